@@ -1,0 +1,34 @@
+/** Pure part of the calculation CLI: parse stdin text, run a command on each input, collect errors in place. */
+export interface CalcCommand {
+  /** Validates one input (throws with a user-facing message) and returns the plain-JSON result. */
+  run(input: unknown): unknown;
+}
+
+function errorMessage(err: unknown): string {
+  if (err && typeof err === 'object' && 'issues' in err && Array.isArray((err as { issues: unknown[] }).issues)) {
+    const issues = (err as { issues: { path: (string | number)[]; message: string }[] }).issues;
+    return issues.map((i) => (i.path.length ? `${i.path.join('.')}: ${i.message}` : i.message)).join('; ');
+  }
+  return err instanceof Error ? err.message : String(err);
+}
+
+export function runCalc(command: CalcCommand, stdinText: string): { output: string; failed: boolean } {
+  let parsed: unknown;
+  try {
+    parsed = JSON.parse(stdinText);
+  } catch {
+    return { output: JSON.stringify({ error: 'stdin is not valid JSON' }), failed: true };
+  }
+  let failed = false;
+  const one = (input: unknown): unknown => {
+    try {
+      if (input === null || typeof input !== 'object' || Array.isArray(input)) throw new Error('each input must be a JSON object');
+      return command.run(input);
+    } catch (err) {
+      failed = true;
+      return { error: errorMessage(err) };
+    }
+  };
+  const result = Array.isArray(parsed) ? parsed.map(one) : one(parsed);
+  return { output: JSON.stringify(result), failed };
+}

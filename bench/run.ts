@@ -1,0 +1,31 @@
+/**
+ * `npm run bench`: runs every bench/cases/*.ts (each default-exports an async function returning rows)
+ * and prints one table. Targets are printed beside the figures; the script exits 1 if a target is missed.
+ */
+import { readdirSync } from 'node:fs';
+import path from 'node:path';
+
+export interface BenchRow {
+  name: string;
+  value: number;
+  unit: string;
+  /** target and whether a larger value is better */
+  target?: { value: number; higherIsBetter: boolean };
+}
+
+const dir = path.join(import.meta.dirname, 'cases');
+const rows: BenchRow[] = [];
+for (const file of readdirSync(dir).filter((f) => f.endsWith('.ts')).sort()) {
+  const mod = await import(path.join(dir, file));
+  rows.push(...((await mod.default()) as BenchRow[]));
+}
+let missed = 0;
+const fmt = (v: number) => (Math.abs(v) >= 1000 ? Math.round(v).toLocaleString('en-US') : v.toPrecision(4));
+console.log(['benchmark'.padEnd(52), 'result'.padStart(16), 'unit'.padEnd(14), 'target'.padStart(16), 'ok'].join('  '));
+for (const r of rows) {
+  const ok = !r.target || (r.target.higherIsBetter ? r.value >= r.target.value : r.value <= r.target.value);
+  if (!ok) missed++;
+  const target = r.target ? `${r.target.higherIsBetter ? '≥' : '≤'} ${fmt(r.target.value)}` : '';
+  console.log([r.name.padEnd(52), fmt(r.value).padStart(16), r.unit.padEnd(14), target.padStart(16), ok ? 'yes' : 'NO'].join('  '));
+}
+process.exit(missed ? 1 : 0);
