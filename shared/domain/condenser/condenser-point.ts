@@ -1,0 +1,141 @@
+/**
+ * Condenser performance at one data point (ENGINEERING.md §3) [pub: HEI Standards for Steam Surface
+ * Condensers; ASME PTC 12.2]: duty, rise, ITD, TTD, LMTD, tube velocity, U, HEI clean coefficient,
+ * cleanliness factor, and the expected backpressure at a reference cleanliness.
+ */
+import { liquidCpKjKgK, liquidDensityKgM3, saturationTemperatureC } from '../steam/index.js';
+import { PointRejectedError } from '../validity/rejection-reasons.js';
+import { DEFAULT_HEI_TABLES, type HeiTables } from './hei-tables.js';
+import { activeSurfaceM2, assertGeometry, tubeInsideDiameterM, tubeVelocityMs, type CondenserGeometry } from './geometry.js';
+import { cleanCoefficientWm2K } from './clean-coefficient.js';
+import { backpressureAtCleanlinessKpa } from './expected-backpressure.js';
+
+export interface CondenserPointInput {
+  backpressureKpa: number;
+  cwInletC: number;
+  cwOutletC: number;
+  /** CW volume flow metered at the inlet, m³/s */
+  cwFlowM3s: number;
+  pluggedTubes: number;
+  geometry: CondenserGeometry;
+  referenceCleanliness: number;
+  /** Clean coefficient at this very point, W/(m²·K), replacing the HEI value. */
+  uCleanWm2K?: number;
+  heiTables?: HeiTables;
+}
+
+export interface CondenserPointResult {
+  saturationC: number;
+  dutyMw: number;
+  riseK: number;
+  itdK: number;
+  ttdK: number;
+  lmtdK: number;
+  velocityMs: number;
+  uWm2K: number;
+  uCleanWm2K: number;
+  cleanliness: number;
+  referenceCleanliness: number;
+  expectedBackpressureKpa: number;
+  cwMassFlowKgS: number;
+  activeSurfaceM2: number;
+  pluggedFraction: number;
+  tubeInsideDiameterMm: number;
+  /** Backpressure rise due to the plugged tubes at the measured cleanliness, kPa (total flow held). */
+  pluggedTubesEffectKpa: number;
+  /** User U_clean over the HEI value at this point (1 when HEI is used); carries the user basis to other conditions. */
+  uCleanScale: number;
+  /** Where U_clean comes from. */
+  uCleanBasis: string;
+  warnings: string[];
+}
+
+function finite(name: string, v: number): void {
+  if (!Number.isFinite(v)) throw new PointRejectedError('non-finite', `${name} must be a finite number, got ${v}`, name);
+}
+
+function inRange(name: string, v: number, lo: number, hi: number, unit: string): void {
+  if (!(v >= lo && v <= hi)) throw new PointRejectedError('out-of-range', `${name} = ${v} ${unit} is outside ${lo}–${hi} ${unit}`, name);
+}
+
+export function analyseCondenserPoint(input: CondenserPointInput): CondenserPointResult {
+  const { backpressureKpa: p, cwInletC: t1, cwOutletC: t2, cwFlowM3s, pluggedTubes, geometry, referenceCleanliness } = input;
+  const tables = input.heiTables ?? DEFAULT_HEI_TABLES;
+  for (const [k, v] of Object.entries({ backpressureKpa: p, cwInletC: t1, cwOutletC: t2, cwFlowM3s, referenceCleanliness })) finite(k, v);
+  inRange('backpressureKpa', p, 0.7, 50, 'kPa');
+  inRange('cwInletC', t1, 0, 60, '°C');
+  inRange('cwOutletC', t2, 0, 80, '°C');
+  if (!(cwFlowM3s > 0)) throw new PointRejectedError('out-of-range', `cwFlowM3s must be positive, got ${cwFlowM3s}`, 'cwFlowM3s');
+  if (!(referenceCleanliness > 0 && referenceCleanliness <= 1.5)) {
+    throw new RangeError(`referenceCleanliness must be in (0, 1.5], got ${referenceCleanliness}`);
+  }
+  assertGeometry(geometry, pluggedTubes);
+
+  const ts = saturationTemperatureC(p);
+  const rise = t2 - t1;
+  const itd = ts - t1;
+  const ttd = ts - t2;
+  if (!(rise > 0)) throw new PointRejectedError('rise-not-positive', `CW outlet ${t2} °C is not above the inlet ${t1} °C`);
+  if (!(ttd > 0)) {
+    throw new PointRejectedError('ttd-not-positive', `CW outlet ${t2} °C is not below the saturation temperature ${ts.toFixed(3)} °C at ${p} kPa`);
+  }
+  const lmtd = rise / Math.log(itd / ttd);
+  const massFlow = liquidDensityKgM3(t1) * cwFlowM3s;
+  const cp = liquidCpKjKgK((t1 + t2) / 2);
+  const dutyMw = (massFlow * cp * rise) / 1000;
+  const aEff = activeSurfaceM2(geometry, pluggedTubes);
+  const u = (dutyMw * 1e6) / (aEff * lmtd);
+  const velocity = tubeVelocityMs(geometry, cwFlowM3s, pluggedTubes);
+  const hei = cleanCoefficientWm2K(geometry, t1, velocity, tables);
+  const warnings = [...hei.warnings];
+  let uClean = hei.value;
+  let basis = hei.basis;
+  if (input.uCleanWm2K !== undefined) {
+    if (!(Number.isFinite(input.uCleanWm2K) && input.uCleanWm2K > 0)) throw new RangeError(`uCleanWm2K must be positive, got ${input.uCleanWm2K}`);
+    uClean = input.uCleanWm2K;
+    basis = 'user-supplied clean coefficient at this point; moved to other conditions by √V and Fw of the HEI tables';
+  }
+  const uCleanScale = uClean / hei.value;
+  const cleanliness = u / uClean;
+  if (ttd < 1) warnings.push(`TTD ${ttd.toFixed(2)} K is below 1 K: usually an instrument problem (common practice)`);
+
+  const model = { geometry, cwInletC: t1, cwFlowM3s, dutyMw, heiTables: tables, uCleanScale };
+  const expected = backpressureAtCleanlinessKpa({ ...model, pluggedTubes, cleanliness: referenceCleanliness });
+  const unplugged = pluggedTubes === 0 ? p : backpressureAtCleanlinessKpa({ ...model, pluggedTubes: 0, cleanliness });
+
+  return {
+    saturationC: ts,
+    dutyMw,
+    riseK: rise,
+    itdK: itd,
+    ttdK: ttd,
+    lmtdK: lmtd,
+    velocityMs: velocity,
+    uWm2K: u,
+    uCleanWm2K: uClean,
+    cleanliness,
+    referenceCleanliness,
+    expectedBackpressureKpa: expected,
+    cwMassFlowKgS: massFlow,
+    activeSurfaceM2: aEff,
+    pluggedFraction: pluggedTubes / geometry.tubeCount,
+    tubeInsideDiameterMm: tubeInsideDiameterM(geometry) * 1000,
+    pluggedTubesEffectKpa: p - unplugged,
+    uCleanScale,
+    uCleanBasis: basis,
+    warnings,
+  };
+}
+
+/**
+ * Correction to other conditions (design inlet temperature, flow, duty, plugging): holds the
+ * point's cleanliness and rescales U_clean through √V and Fw [from memory: HEI practice].
+ */
+export function correctedBackpressureKpa(
+  point: Pick<CondenserPointResult, 'cleanliness' | 'uCleanScale'>,
+  geometry: CondenserGeometry,
+  conditions: { cwInletC: number; cwFlowM3s: number; dutyMw: number; pluggedTubes: number },
+  heiTables: HeiTables = DEFAULT_HEI_TABLES,
+): number {
+  return backpressureAtCleanlinessKpa({ geometry, heiTables, ...conditions, cleanliness: point.cleanliness, uCleanScale: point.uCleanScale });
+}

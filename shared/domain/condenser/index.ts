@@ -1,0 +1,18 @@
+export { TUBE_MATERIALS, DEFAULT_HEI_TABLES, type TubeMaterial, type HeiTables } from './hei-tables.js';
+export { type CondenserGeometry, assertGeometry, tubeInsideDiameterM, activeSurfaceM2, tubeVelocityMs } from './geometry.js';
+export {
+  cleanCoefficientWm2K,
+  rescaleCleanCoefficientWm2K,
+  tubeConstantC,
+  inletTemperatureFactor,
+  materialFactor,
+  type CleanCoefficient,
+} from './clean-coefficient.js';
+export { backpressureAtCleanlinessKpa, cwRiseK, type BackpressureModelInput } from './expected-backpressure.js';
+export {
+  analyseCondenserPoint,
+  correctedBackpressureKpa,
+  type CondenserPointInput,
+  type CondenserPointResult,
+} from './condenser-point.js';
+export { reconcileDuty, type DutyReconciliation } from './duty-reconciliation.js';

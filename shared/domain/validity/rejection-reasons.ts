@@ -1,0 +1,27 @@
+/**
+ * Stable codes for why a data point is left out of the calculations. Imports store the code and
+ * show the message; the codes never change meaning (add new ones, never rename).
+ */
+export const REJECTION_REASONS = {
+  'non-finite': 'a required value is missing or not a finite number',
+  'out-of-range': 'a value is outside its plausible range',
+  'rise-not-positive': 'CW outlet temperature is not above the inlet temperature (t2 ≤ t1)',
+  'ttd-not-positive': 'CW outlet temperature is not below the saturation temperature at the backpressure (TTD ≤ 0)',
+  'low-load': 'load is below the minimum for a valid point',
+  'unsteady-load': 'load changed by more than the allowed share of rating within the steadiness window',
+  'cw-pump-change': 'a circulating-water pump started or stopped within the steadiness window',
+} as const;
+
+export type RejectionReason = keyof typeof REJECTION_REASONS;
+
+/** Thrown by the point calculation when the physics rejects a point; carries the stable code. */
+export class PointRejectedError extends RangeError {
+  readonly reason: RejectionReason;
+  readonly field?: string;
+  constructor(reason: RejectionReason, message: string, field?: string) {
+    super(message);
+    this.name = 'PointRejectedError';
+    this.reason = reason;
+    this.field = field;
+  }
+}
