@@ -1,0 +1,117 @@
+/** createApp builds the Express application from its dependencies; server.ts listens. */
+import express, { type Express } from 'express';
+import session from 'express-session';
+import MySQLStoreFactory from 'express-mysql-session';
+import helmet from 'helmet';
+import { randomUUID } from 'node:crypto';
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import { pinoHttp } from 'pino-http';
+import type { DataSource } from 'typeorm';
+import { createAuthenticate } from './auth/authenticate.js';
+import { configurePassport } from './auth/passport-setup.js';
+import type { Config } from './config.js';
+import { errorHandler } from './http/error-handler.js';
+import { notFound } from './http/app-error.js';
+import { mountRoutes, type RouteSpec } from './http/route-registry.js';
+import type { Logger } from './logger.js';
+import type { Mailer } from './mail/mailer.js';
+import type { SmtpSink } from './mail/smtp-sink.js';
+import { devMailboxRoutes } from './routes/dev-mailbox.routes.js';
+import { healthRoutes } from './routes/health.routes.js';
+import { sessionRoutes } from './routes/session.routes.js';
+
+export interface AppDeps {
+  config: Config;
+  dataSource: DataSource;
+  logger: Logger;
+  mailer: Mailer;
+  /** Present while the local SMTP sink is in use: the mailbox page is mounted. */
+  smtpSink?: SmtpSink;
+  /** Built front end to serve (frontend/dist); omitted in API tests and with the Vite dev server. */
+  staticDir?: string;
+}
+
+export interface CleancaseApp extends Express {
+  locals: Express['locals'] & { routes: RouteSpec[]; close: () => Promise<void> };
+}
+
+export const SESSION_COOKIE = 'cleancase.sid';
+
+export function createApp(deps: AppDeps): CleancaseApp {
+  const { config, dataSource, logger } = deps;
+  const app = express() as CleancaseApp;
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: { 'img-src': ["'self'", 'data:'], 'style-src': ["'self'", "'unsafe-inline'"], 'upgrade-insecure-requests': null },
+      },
+    }),
+  );
+  app.use(
+    pinoHttp({
+      logger,
+      genReqId: (req, res) => {
+        const id = (req.headers['x-request-id'] as string | undefined)?.slice(0, 64) || randomUUID();
+        res.setHeader('x-request-id', id);
+        return id;
+      },
+      customProps: (req) => ({ tenant: (req as express.Request).actor?.membership?.organisationId ?? null }),
+      autoLogging: { ignore: (req) => !req.url?.startsWith('/api/') },
+    }),
+  );
+  app.use(express.json({ limit: '1mb' }));
+
+  const MySQLStore = MySQLStoreFactory(session);
+  const store = new MySQLStore({
+    host: config.DB_HOST,
+    port: config.DB_PORT,
+    user: config.DB_USER,
+    password: config.DB_PASSWORD,
+    database: config.DB_NAME,
+    createDatabaseTable: false,
+    clearExpired: true,
+    checkExpirationInterval: 15 * 60 * 1000,
+    schema: { tableName: 'sessions', columnNames: { session_id: 'session_id', expires: 'expires', data: 'data' } },
+  });
+  const secureCookie = config.COOKIE_SECURE || (config.PUBLIC_URL?.startsWith('https://') ?? false);
+  app.use(
+    session({
+      name: SESSION_COOKIE,
+      secret: config.SESSION_SECRET,
+      store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: secureCookie, maxAge: 12 * 60 * 60 * 1000 },
+    }),
+  );
+  const auth = configurePassport(dataSource);
+  app.use(auth.initialize());
+  const authenticate = createAuthenticate(dataSource);
+
+  const routes: RouteSpec[] = [
+    ...healthRoutes(dataSource),
+    ...sessionRoutes(dataSource, auth, authenticate),
+    ...(deps.smtpSink ? devMailboxRoutes(deps.smtpSink) : []),
+  ];
+  mountRoutes(app, routes, authenticate);
+  app.use('/api', (_req, _res, next) => next(notFound('No such API endpoint')));
+
+  if (deps.staticDir && existsSync(deps.staticDir)) {
+    const staticDir = deps.staticDir;
+    app.use(express.static(staticDir, { index: false, maxAge: '1h' }));
+    // Client-side routes: every other GET gets the app shell.
+    app.get(/^\/(?!api\/).*/, (_req, res) => res.sendFile(path.join(staticDir, 'index.html')));
+  }
+  app.use(errorHandler);
+
+  app.locals.routes = routes;
+  app.locals.close = async () => {
+    await store.close();
+  };
+  return app;
+}

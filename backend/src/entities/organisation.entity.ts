@@ -1,0 +1,17 @@
+import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn } from 'typeorm';
+
+export type SubscriptionStatus = 'trialing' | 'active' | 'past_due' | 'canceled' | 'unpaid';
+
+/** A tenant: an organisation with its own subscription. */
+@Entity('organisation')
+export class Organisation {
+  @PrimaryGeneratedColumn('uuid') id: string;
+  @Column({ type: 'varchar', length: 160 }) name: string;
+  @Column({ type: 'varchar', length: 16, default: 'utility' }) kind: 'utility' | 'consultancy';
+  @Column({ type: 'varchar', length: 32, default: 'trial' }) plan: string;
+  @Column({ type: 'varchar', length: 16, default: 'trialing' }) subscriptionStatus: SubscriptionStatus;
+  @Column({ type: 'datetime', precision: 3, nullable: true }) trialEndsAt: Date | null;
+  @Column({ type: 'varchar', length: 64, nullable: true }) stripeCustomerId: string | null;
+  @Column({ type: 'varchar', length: 64, nullable: true }) stripeSubscriptionId: string | null;
+  @CreateDateColumn({ type: 'datetime', precision: 3 }) createdAt: Date;
+}

@@ -1,0 +1,50 @@
+import type { DataSource } from 'typeorm';
+import { hashPassword } from '../auth/password.js';
+import { Membership } from '../entities/membership.entity.js';
+import { Organisation } from '../entities/organisation.entity.js';
+import { User } from '../entities/user.entity.js';
+import { DEMO_ORGANISATIONS, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people.js';
+
+export interface DemoSignIn {
+  email: string;
+  name: string;
+  password: string;
+  roles: string;
+}
+
+export function demoSignIns(): DemoSignIn[] {
+  const orgName = (key: string) => DEMO_ORGANISATIONS.find((o) => o.key === key)?.name ?? key;
+  return DEMO_PEOPLE.map((p) => ({
+    email: p.email,
+    name: p.name,
+    password: DEMO_PASSWORD,
+    roles: p.memberships.map((m) => `${m.role} at ${orgName(m.organisation)}`).join('; '),
+  }));
+}
+
+/** Seeds the demo scenario when the database holds no organisation yet. Returns true when it seeded. */
+export async function seedDemoIfEmpty(dataSource: DataSource, log: (line: string) => void = () => {}): Promise<boolean> {
+  if ((await dataSource.getRepository(Organisation).count()) > 0) return false;
+  log('Empty database: seeding the demo scenario');
+  const passwordHash = await hashPassword(DEMO_PASSWORD);
+  await dataSource.transaction(async (em) => {
+    const orgIds = new Map<string, string>();
+    for (const o of DEMO_ORGANISATIONS) {
+      const saved = await em.getRepository(Organisation).save({
+        name: o.name,
+        kind: o.kind,
+        plan: o.kind === 'consultancy' ? 'consultancy' : 'trial',
+        subscriptionStatus: o.kind === 'consultancy' ? 'active' : 'trialing',
+        trialEndsAt: o.kind === 'consultancy' ? null : new Date(Date.now() + 30 * 86_400_000),
+      });
+      orgIds.set(o.key, saved.id);
+    }
+    for (const person of DEMO_PEOPLE) {
+      const user = await em.getRepository(User).save({ email: person.email, name: person.name, passwordHash, unitPreference: 'us' });
+      for (const m of person.memberships) {
+        await em.getRepository(Membership).save({ organisationId: orgIds.get(m.organisation)!, userId: user.id, role: m.role, clientGroupIds: null });
+      }
+    }
+  });
+  return true;
+}

@@ -1,0 +1,32 @@
+import { z } from 'zod';
+
+export const signInRequest = z
+  .object({
+    email: z.email('Enter an e-mail address').max(254),
+    password: z.string().min(1, 'Enter your password').max(1024),
+  })
+  .strict();
+export type SignInRequest = z.infer<typeof signInRequest>;
+
+export const roleSchema = z.enum(['admin', 'analyst', 'approver', 'viewer']);
+
+export const membershipSummary = z
+  .object({
+    organisationId: z.string(),
+    organisationName: z.string(),
+    role: roleSchema,
+    limitedToClientGroups: z.boolean(),
+  })
+  .strict();
+
+export const sessionResponse = z
+  .object({
+    user: z
+      .object({ id: z.string(), email: z.string(), name: z.string(), unitPreference: z.enum(['us', 'si']) })
+      .strict()
+      .nullable(),
+    activeOrganisationId: z.string().nullable(),
+    memberships: z.array(membershipSummary),
+  })
+  .strict();
+export type SessionResponse = z.infer<typeof sessionResponse>;
