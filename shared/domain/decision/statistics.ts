@@ -1,0 +1,82 @@
+/** Small statistics helpers for the decision engine (pure, deterministic). */
+
+export function median(values: readonly number[]): number {
+  if (values.length === 0) throw new Error('median of no values');
+  const s = [...values].sort((a, b) => a - b);
+  const mid = s.length >> 1;
+  return s.length % 2 ? s[mid] : (s[mid - 1] + s[mid]) / 2;
+}
+
+/** Quantile with linear interpolation between order statistics (type 7, as in R's default). Input must be sorted. */
+export function quantileSorted(sorted: ArrayLike<number>, p: number): number {
+  const n = sorted.length;
+  if (n === 0) throw new Error('quantile of no values');
+  const h = (n - 1) * p;
+  const lo = Math.floor(h);
+  const hi = Math.min(n - 1, lo + 1);
+  return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
+}
+
+/** Median absolute deviation from the median (unscaled). */
+export function medianAbsoluteDeviation(values: readonly number[]): number {
+  const m = median(values);
+  return median(values.map((v) => Math.abs(v - m)));
+}
+
+/**
+ * Inverse of the standard normal CDF (P. J. Acklam's rational approximation, relative error below 1.15e-9).
+ */
+export function normalQuantile(p: number): number {
+  if (!(p > 0 && p < 1)) throw new Error('normal quantile needs 0 < p < 1');
+  const a = [-39.69683028665376, 220.9460984245205, -275.9285104469687, 138.357751867269, -30.66479806614716, 2.506628277459239];
+  const b = [-54.47609879822406, 161.5858368580409, -155.6989798598866, 66.80131188771972, -13.28068155288572];
+  const c = [-0.007784894002430293, -0.3223964580411365, -2.400758277161838, -2.549732539343734, 4.374664141464968, 2.938163982698783];
+  const d = [0.007784695709041462, 0.3224671290700398, 2.445134137142996, 3.754408661907416];
+  const plow = 0.02425;
+  let x: number;
+  if (p < plow) {
+    const q = Math.sqrt(-2 * Math.log(p));
+    x = (((((c[0] * q + c[1]) * q + c[2]) * q + c[3]) * q + c[4]) * q + c[5]) / ((((d[0] * q + d[1]) * q + d[2]) * q + d[3]) * q + 1);
+  } else if (p <= 1 - plow) {
+    const q = p - 0.5;
+    const r = q * q;
+    x = ((((((a[0] * r + a[1]) * r + a[2]) * r + a[3]) * r + a[4]) * r + a[5]) * q) / (((((b[0] * r + b[1]) * r + b[2]) * r + b[3]) * r + b[4]) * r + 1);
+  } else {
+    const q = Math.sqrt(-2 * Math.log(1 - p));
+    x = -(((((c[0] * q + c[1]) * q + c[2]) * q + c[3]) * q + c[4]) * q + c[5]) / ((((d[0] * q + d[1]) * q + d[2]) * q + d[3]) * q + 1);
+  }
+  return x;
+}
+
+/** Solves the small dense system A·x = b by Gaussian elimination with partial pivoting; null when singular. */
+export function solveLinear(a: readonly number[][], b: readonly number[]): number[] | null {
+  const n = b.length;
+  const m = a.map((row, i) => [...row, b[i]]);
+  for (let col = 0; col < n; col++) {
+    let pivot = col;
+    for (let r = col + 1; r < n; r++) if (Math.abs(m[r][col]) > Math.abs(m[pivot][col])) pivot = r;
+    const scale = Math.max(...m.map((row) => Math.abs(row[col])));
+    if (Math.abs(m[pivot][col]) <= 1e-14 * (scale || 1)) return null;
+    [m[col], m[pivot]] = [m[pivot], m[col]];
+    for (let r = 0; r < n; r++) {
+      if (r === col) continue;
+      const f = m[r][col] / m[col][col];
+      for (let c = col; c <= n; c++) m[r][c] -= f * m[col][c];
+    }
+  }
+  return m.map((row, i) => row[n] / row[i]);
+}
+
+/** Inverse of a small symmetric positive-definite matrix (column by column); null when singular. */
+export function invertMatrix(a: readonly number[][]): number[][] | null {
+  const n = a.length;
+  const cols: number[][] = [];
+  for (let j = 0; j < n; j++) {
+    const e = new Array<number>(n).fill(0);
+    e[j] = 1;
+    const x = solveLinear(a, e);
+    if (!x) return null;
+    cols.push(x);
+  }
+  return Array.from({ length: n }, (_, i) => cols.map((col) => col[i]));
+}
