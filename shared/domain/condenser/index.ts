@@ -16,3 +16,12 @@ export {
   type CondenserPointResult,
 } from './condenser-point.js';
 export { reconcileDuty, type DutyReconciliation } from './duty-reconciliation.js';
+export {
+  deviationBreakdown,
+  DEVIATION_ORDER,
+  type DeviationBreakdown,
+  type DeviationBreakdownInput,
+  type DeviationCause,
+  type DeviationLine,
+  type CondenserOperatingState,
+} from './deviation-breakdown.js';

@@ -1,0 +1,8 @@
+export { REJECTION_REASONS, PointRejectedError, type RejectionReason } from './rejection-reasons.js';
+export {
+  checkPointValidity,
+  DEFAULT_POINT_RANGES,
+  type DataPoint,
+  type ValidityContext,
+  type ValidityResult,
+} from './point-validity.js';
