@@ -71,6 +71,14 @@ export function cleanCoefficientFromConstant(cFm: number, tables: HeiTables, cwI
   return cFm * Math.sqrt(msToFts(velocityMs)) * inletTemperatureFactorValue(tables, cwInletC) * WM2K_PER_BTU_HFT2F;
 }
 
+/** The warning to show when the inlet temperature lies outside the Fw table (the end value is used). */
+export function inletTemperatureFactorWarning(tables: HeiTables, cwInletC: number): string | undefined {
+  const fw = inletTemperatureFactor(tables, cwInletC);
+  if (!fw.clamped) return undefined;
+  const t = tables.inletTemperatureFactor;
+  return `CW inlet ${cToF(cwInletC).toFixed(1)} °F is outside the Fw table (${cToF(t[0].inletC).toFixed(0)}–${cToF(t[t.length - 1].inletC).toFixed(0)} °F); the end value ${fw.factor} was used`;
+}
+
 export interface CleanCoefficient {
   value: number;
   basis: string;
@@ -85,15 +93,10 @@ export function cleanCoefficientWm2K(
 ): CleanCoefficient {
   if (!(Number.isFinite(velocityMs) && velocityMs > 0)) throw new RangeError(`tube velocity must be positive, got ${velocityMs} m/s`);
   if (!Number.isFinite(cwInletC)) throw new RangeError(`cwInletC must be a finite number, got ${cwInletC}`);
-  const warnings: string[] = [];
-  const fw = inletTemperatureFactor(heiTables, cwInletC);
-  if (fw.clamped) {
-    const t = heiTables.inletTemperatureFactor;
-    warnings.push(
-      `CW inlet ${cToF(cwInletC).toFixed(1)} °F is outside the Fw table (${cToF(t[0].inletC).toFixed(0)}–${cToF(t[t.length - 1].inletC).toFixed(0)} °F); the end value ${fw.factor} was used`,
-    );
-  }
-  const value = geometryConstant(geometry, heiTables) * Math.sqrt(msToFts(velocityMs)) * fw.factor * WM2K_PER_BTU_HFT2F;
+  const warning = inletTemperatureFactorWarning(heiTables, cwInletC);
+  const fw = inletTemperatureFactorValue(heiTables, cwInletC);
+  const value = geometryConstant(geometry, heiTables) * Math.sqrt(msToFts(velocityMs)) * fw * WM2K_PER_BTU_HFT2F;
+  const warnings = warning ? [warning] : [];
   return { value, basis: heiTables.basis, warnings };
 }
 

@@ -6,9 +6,9 @@
 import { liquidCpKjKgK, liquidDensityKgM3, saturationTemperatureC } from '../steam/index.js';
 import { PointRejectedError } from '../validity/rejection-reasons.js';
 import { DEFAULT_HEI_TABLES, type HeiTables } from './hei-tables.js';
-import { activeSurfaceM2, assertGeometry, tubeInsideDiameterM, tubeVelocityMs, type CondenserGeometry } from './geometry.js';
-import { cleanCoefficientWm2K } from './clean-coefficient.js';
-import { backpressureAtCleanlinessKpa } from './expected-backpressure.js';
+import { activeSurfaceM2, tubeInsideDiameterM, tubeVelocityMs, type CondenserGeometry } from './geometry.js';
+import { cleanCoefficientFromConstant, inletTemperatureFactorWarning } from './clean-coefficient.js';
+import { backpressureAtCleanlinessKpa, checkedGeometryConstant, modelBackpressureKpa } from './expected-backpressure.js';
 
 export interface CondenserPointInput {
   backpressureKpa: number;
@@ -61,7 +61,11 @@ function inRange(name: string, v: number, lo: number, hi: number, unit: string):
 export function analyseCondenserPoint(input: CondenserPointInput): CondenserPointResult {
   const { backpressureKpa: p, cwInletC: t1, cwOutletC: t2, cwFlowM3s, pluggedTubes, geometry, referenceCleanliness } = input;
   const tables = input.heiTables ?? DEFAULT_HEI_TABLES;
-  for (const [k, v] of Object.entries({ backpressureKpa: p, cwInletC: t1, cwOutletC: t2, cwFlowM3s, referenceCleanliness })) finite(k, v);
+  finite('backpressureKpa', p);
+  finite('cwInletC', t1);
+  finite('cwOutletC', t2);
+  finite('cwFlowM3s', cwFlowM3s);
+  finite('referenceCleanliness', referenceCleanliness);
   inRange('backpressureKpa', p, 0.7, 50, 'kPa');
   inRange('cwInletC', t1, 0, 60, '°C');
   inRange('cwOutletC', t2, 0, 80, '°C');
@@ -69,7 +73,7 @@ export function analyseCondenserPoint(input: CondenserPointInput): CondenserPoin
   if (!(referenceCleanliness > 0 && referenceCleanliness <= 1.5)) {
     throw new RangeError(`referenceCleanliness must be in (0, 1.5], got ${referenceCleanliness}`);
   }
-  assertGeometry(geometry, pluggedTubes);
+  const cFm = checkedGeometryConstant(geometry, tables, pluggedTubes);
 
   const ts = saturationTemperatureC(p);
   const rise = t2 - t1;
@@ -86,22 +90,23 @@ export function analyseCondenserPoint(input: CondenserPointInput): CondenserPoin
   const aEff = activeSurfaceM2(geometry, pluggedTubes);
   const u = (dutyMw * 1e6) / (aEff * lmtd);
   const velocity = tubeVelocityMs(geometry, cwFlowM3s, pluggedTubes);
-  const hei = cleanCoefficientWm2K(geometry, t1, velocity, tables);
-  const warnings = [...hei.warnings];
-  let uClean = hei.value;
-  let basis = hei.basis;
+  const heiValue = cleanCoefficientFromConstant(cFm, tables, t1, velocity);
+  const warnings: string[] = [];
+  const fwWarning = inletTemperatureFactorWarning(tables, t1);
+  if (fwWarning) warnings.push(fwWarning);
+  let uClean = heiValue;
+  let basis = tables.basis;
   if (input.uCleanWm2K !== undefined) {
     if (!(Number.isFinite(input.uCleanWm2K) && input.uCleanWm2K > 0)) throw new RangeError(`uCleanWm2K must be positive, got ${input.uCleanWm2K}`);
     uClean = input.uCleanWm2K;
     basis = 'user-supplied clean coefficient at this point; moved to other conditions by √V and Fw of the HEI tables';
   }
-  const uCleanScale = uClean / hei.value;
+  const uCleanScale = uClean / heiValue;
   const cleanliness = u / uClean;
   if (ttd < 1) warnings.push(`TTD ${ttd.toFixed(2)} K is below 1 K: usually an instrument problem (common practice)`);
 
-  const model = { geometry, cwInletC: t1, cwFlowM3s, dutyMw, heiTables: tables, uCleanScale };
-  const expected = backpressureAtCleanlinessKpa({ ...model, pluggedTubes, cleanliness: referenceCleanliness });
-  const unplugged = pluggedTubes === 0 ? p : backpressureAtCleanlinessKpa({ ...model, pluggedTubes: 0, cleanliness });
+  const expected = modelBackpressureKpa(geometry, tables, cFm, t1, cwFlowM3s, dutyMw, pluggedTubes, referenceCleanliness, Number.NaN, uCleanScale);
+  const unplugged = pluggedTubes === 0 ? p : modelBackpressureKpa(geometry, tables, cFm, t1, cwFlowM3s, dutyMw, 0, cleanliness, Number.NaN, uCleanScale);
 
   return {
     saturationC: ts,

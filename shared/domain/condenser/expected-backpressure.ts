@@ -65,22 +65,50 @@ function positive(name: string, v: number): void {
 
 /** Expected backpressure, kPa(a), at the given cleanliness: the model P(t1, W, Q, Np, CF). */
 export function backpressureAtCleanlinessKpa(input: BackpressureModelInput): number {
-  const { geometry, cwInletC, cwFlowM3s, dutyMw, pluggedTubes, cleanliness } = input;
+  const tables = input.heiTables ?? DEFAULT_HEI_TABLES;
+  const cFm = cachedGeometryConstant(input.geometry, tables, input.pluggedTubes);
+  const uClean = input.uCleanWm2K;
+  if (uClean !== undefined) positive('uCleanWm2K', uClean);
+  return modelBackpressureKpa(
+    input.geometry,
+    tables,
+    cFm,
+    input.cwInletC,
+    input.cwFlowM3s,
+    input.dutyMw,
+    input.pluggedTubes,
+    input.cleanliness,
+    uClean === undefined ? Number.NaN : uClean,
+    input.uCleanScale ?? 1,
+  );
+}
+
+/**
+ * The model with positional arguments (no object shapes to go megamorphic in hot loops).
+ * uCleanWm2K NaN means "from the HEI tables × uCleanScale". The geometry must have been checked.
+ */
+export function modelBackpressureKpa(
+  geometry: CondenserGeometry,
+  tables: HeiTables,
+  cFm: number,
+  cwInletC: number,
+  cwFlowM3s: number,
+  dutyMw: number,
+  pluggedTubes: number,
+  cleanliness: number,
+  uCleanWm2K: number,
+  uCleanScale: number,
+): number {
   positive('cwFlowM3s', cwFlowM3s);
   positive('dutyMw', dutyMw);
   positive('cleanliness', cleanliness);
-  const tables = input.heiTables ?? DEFAULT_HEI_TABLES;
-  const cFm = cachedGeometryConstant(geometry, tables, pluggedTubes);
   const massFlowKgS = liquidDensityKgM3(cwInletC) * cwFlowM3s;
   const rise = cwRiseK(cwInletC, massFlowKgS, dutyMw);
   const cp = liquidCpKjKgK(cwInletC + rise / 2);
-  let uClean = input.uCleanWm2K;
-  if (uClean === undefined) {
-    const velocity = tubeVelocityMs(geometry, cwFlowM3s, pluggedTubes);
-    uClean = cleanCoefficientFromConstant(cFm, tables, cwInletC, velocity) * (input.uCleanScale ?? 1);
-  } else {
-    positive('uCleanWm2K', uClean);
-  }
+  const uClean =
+    uCleanWm2K === uCleanWm2K
+      ? uCleanWm2K
+      : cleanCoefficientFromConstant(cFm, tables, cwInletC, tubeVelocityMs(geometry, cwFlowM3s, pluggedTubes)) * uCleanScale;
   const ntu = (cleanliness * uClean * activeSurfaceM2(geometry, pluggedTubes)) / (massFlowKgS * cp * 1000);
   const effectiveness = -Math.expm1(-ntu);
   const tsC = cwInletC + rise / effectiveness;
@@ -90,4 +118,9 @@ export function backpressureAtCleanlinessKpa(input: BackpressureModelInput): num
     );
   }
   return saturationPressureKpa(tsC);
+}
+
+/** C·Fm for a geometry and tables, memoised per geometry object; checks the geometry and plugging. */
+export function checkedGeometryConstant(geometry: CondenserGeometry, tables: HeiTables, pluggedTubes: number): number {
+  return cachedGeometryConstant(geometry, tables, pluggedTubes);
 }

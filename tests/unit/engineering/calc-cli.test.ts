@@ -1,0 +1,59 @@
+/** The calc CLI end to end: `npx tsx backend/src/cli/calc.ts <command>` with JSON on stdin (ENGINEERING.md §8). */
+import { describe, expect, it } from 'vitest';
+import { spawnSync } from 'node:child_process';
+import path from 'node:path';
+
+const ROOT = path.resolve(import.meta.dirname, '../../..');
+
+function calc(command: string, input: unknown): { status: number | null; body: unknown } {
+  const r = spawnSync('npx', ['tsx', 'backend/src/cli/calc.ts', command], { cwd: ROOT, input: JSON.stringify(input), encoding: 'utf8', timeout: 60_000 });
+  return { status: r.status, body: JSON.parse(r.stdout) };
+}
+
+const point = {
+  backpressureKpa: 6.5, cwInletC: 22, cwOutletC: 31, cwFlowM3s: 15, surfaceM2: 28500, tubeCount: 31200, passes: 2,
+  tubeOdMm: 25.4, tubeBwg: 22, tubeMaterial: 'titanium', pluggedTubes: 0, referenceCleanliness: 0.85,
+};
+
+describe('calc CLI', () => {
+  it('saturation: one object in, the documented keys out, exit 0', () => {
+    const { status, body } = calc('saturation', { pressureKpa: 8 });
+    expect(status).toBe(0);
+    expect(Object.keys(body as object).sort()).toEqual(['hfKjKg', 'hgKjKg', 'pressureKpa', 'temperatureC']);
+    // 8 kPa condenses at 41.51 °C (IF97 region 4; steam tables give 41.51 °C)
+    expect((body as { temperatureC: number }).temperatureC).toBeCloseTo(41.51, 2);
+  });
+
+  it('condenser-point: an array with one bad entry answers in place and exits 1', () => {
+    const { status, body } = calc('condenser-point', [point, { ...point, cwOutletC: 20 }, { ...point, extra: 1 }]);
+    expect(status).toBe(1);
+    const [ok, bad, unknownKey] = body as Record<string, unknown>[];
+    expect(Object.keys(ok).sort()).toEqual(
+      ['cleanliness', 'dutyMw', 'expectedBackpressureKpa', 'itdK', 'lmtdK', 'riseK', 'saturationC', 'ttdK', 'uCleanWm2K', 'uWm2K', 'velocityMs'],
+    );
+    expect(bad.error).toMatch(/not above the inlet/);
+    expect(unknownKey.error).toMatch(/extra/);
+  });
+
+  it('penalty: money rounded to cents, the documented keys, the generic-curve warning', () => {
+    const { status, body } = calc('penalty', {
+      loadFraction: 1, ratingMw: 500, backpressureKpa: 10, referenceBackpressureKpa: 7, heatRateBtuKwh: 9500,
+      fuelPricePerMmbtu: 3, replacementPricePerMwh: 60, co2PricePerTonne: 20, co2KgPerMmbtu: 93.28,
+    });
+    expect(status).toBe(0);
+    const r = body as Record<string, number | string[]>;
+    expect(Object.keys(r).sort()).toEqual(['capacityCostPerHour', 'co2CostPerHour', 'fuelCostPerHour', 'heatRatePenaltyPct', 'outputPenaltyPct', 'warnings']);
+    for (const k of ['fuelCostPerHour', 'co2CostPerHour', 'capacityCostPerHour']) {
+      const v = r[k] as number;
+      expect(Math.abs(v * 100 - Math.round(v * 100))).toBeLessThan(1e-6);
+    }
+    expect(r.warnings).toEqual(["correction curve: generic — replace with the turbine maker's curve"]);
+  });
+
+  it('an unknown command and bad JSON give an error object and exit 1', () => {
+    expect(calc('no-such-command', {}).status).toBe(1);
+    const r = spawnSync('npx', ['tsx', 'backend/src/cli/calc.ts', 'saturation'], { cwd: ROOT, input: '{oops', encoding: 'utf8' });
+    expect(r.status).toBe(1);
+    expect(JSON.parse(r.stdout)).toEqual({ error: 'stdin is not valid JSON' });
+  });
+});
