@@ -3,9 +3,10 @@
  *
  * The state after a cleaning is fully known (age 0 and the method used, which sets the recovered cleanliness and
  * the fouling multiplier), so the programme runs over "restart" nodes (day the unit restarts, method): from each
- * node it walks forward day by day accumulating the discounted fouling cost at the path's cleanliness, and at each
- * day tries every method that may start there (window, spacing, horizon). This is the same as the day-by-day
- * programme over (day, days since cleaning, method), in O(M²·H²) simple steps, with exact reconstruction.
+ * node a walk runs forward day by day accumulating the discounted fouling cost at the path's cleanliness, and at
+ * each day tries every method that may start there (window, spacing, horizon). This is the day-by-day programme
+ * over (day, days since cleaning, method) with exact reconstruction. Walks run in step so that a walk dominated
+ * by a younger, cheaper walk of the same method is dropped (valid when cost rises with age, which is checked).
  * The objective is the discounted total of fouling, cleaning and downtime cost exactly as priceSchedule computes it.
  */
 import { combinedCosts, gridPosition, UNIT_PRICE_SCALES } from './penalty-cost-table.js';
@@ -97,51 +98,115 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
   const best = new Float64Array(nodeCount).fill(Number.POSITIVE_INFINITY);
   const fromNode = new Int32Array(nodeCount).fill(-2);
   const fromStart = new Int32Array(nodeCount);
-  let endBest = Number.POSITIVE_INFINITY;
-  let endFrom = -2;
   const INITIAL = -1;
+  const stateFree = methods.map((_, k) => k).filter((k) => windowCost[k] === null);
+  const stateDependent = methods.map((_, k) => k).filter((k) => windowCost[k] !== null);
+  const sdStart = stateDependent.map((k) => startCost[k]);
+  const sdSums = stateDependent.map((k) => windowCost[k]!.sums);
+  const sdRefSums = stateDependent.map((k) => windowCost[k]!.refSums);
+  const sdDuration = stateDependent.map((k) => methods[k].durationDays);
+  const pruning = costRisesWithAge(problem, base, y);
 
-  const expand = (node: number, d: number, value: number, curve: StateCurve, gapOffset: number) => {
-    let operating = 0;
-    for (let e = d; e <= H; e++) {
-      if (e === H) {
-        if (value + operating < endBest) {
-          endBest = value + operating;
-          endFrom = node;
-        }
-        break;
+  // Walks run in step, day by day. Group g = method index (M for the walk from the initial condition); within a
+  // group, walks are kept oldest first.
+  interface Walk {
+    node: number;
+    restartDay: number;
+    /** cost so far, at the start of the current day */
+    cost: number;
+    firstStart: number;
+    curve: StateCurve;
+  }
+  const groups: Walk[][] = Array.from({ length: M + 1 }, () => []);
+  groups[M].push({ node: INITIAL, restartDay: 0, cost: 0, firstStart: Math.max(0, problem.minSpacingDays - a0), curve: initialCurve });
+
+  for (let e = 0; e < H; e++) {
+    for (let k = 0; k < M; k++) {
+      const node = e * M + k;
+      if (best[node] < Number.POSITIVE_INFINITY) {
+        groups[k].push({ node, restartDay: e, cost: best[node], firstStart: e + Math.max(0, problem.minSpacingDays - methods[k].durationDays), curve: methodCurves[k] });
       }
-      const age = e - d;
-      const gi = curve.index[age];
-      const w = curve.weight[age];
-      if (e - d + gapOffset >= problem.minSpacingDays) {
-        for (let k = 0; k < M; k++) {
-          const fixed = startCost[k][e];
+    }
+    // Cleanings that start today.
+    let arrive = Number.POSITIVE_INFINITY;
+    let arriveFrom = -2;
+    for (const group of groups) {
+      for (const walk of group) {
+        if (e < walk.firstStart) continue;
+        if (walk.cost < arrive) {
+          arrive = walk.cost;
+          arriveFrom = walk.node;
+        }
+        const age = e - walk.restartDay;
+        const gi = walk.curve.index[age];
+        const w = walk.curve.weight[age];
+        for (let j = 0; j < stateDependent.length; j++) {
+          const fixed = sdStart[j][e];
           if (fixed === Number.POSITIVE_INFINITY) continue;
-          let c = value + operating + fixed;
-          const wc = windowCost[k];
-          if (wc) {
-            const s = e * G + gi;
-            c += wc.sums[s] + w * (wc.sums[s + 1] - wc.sums[s]) - wc.refSums[e];
-          }
-          const target = (e + methods[k].durationDays) * M + k;
+          const sums = sdSums[j];
+          const s = e * G + gi;
+          const c = walk.cost + fixed + sums[s] + w * (sums[s + 1] - sums[s]) - sdRefSums[j][e];
+          const target = (e + sdDuration[j]) * M + stateDependent[j];
           if (c < best[target]) {
             best[target] = c;
-            fromNode[target] = node;
+            fromNode[target] = walk.node;
             fromStart[target] = e;
           }
         }
       }
-      const s = e * G + gi;
-      operating += cost[s] + w * (cost[s + 1] - cost[s]) - ref[e];
     }
-  };
-
-  expand(INITIAL, 0, 0, initialCurve, a0);
-  for (let d = 1; d <= H; d++) {
-    for (let k = 0; k < M; k++) {
-      const node = d * M + k;
-      if (best[node] < Number.POSITIVE_INFINITY) expand(node, d, best[node], methodCurves[k], methods[k].durationDays);
+    // Methods that stop the unit pay nothing that depends on the cleanliness found: only the cheapest arrival counts.
+    if (arrive < Number.POSITIVE_INFINITY) {
+      for (const k of stateFree) {
+        const fixed = startCost[k][e];
+        if (fixed === Number.POSITIVE_INFINITY) continue;
+        const target = (e + methods[k].durationDays) * M + k;
+        if (arrive + fixed < best[target]) {
+          best[target] = arrive + fixed;
+          fromNode[target] = arriveFrom;
+          fromStart[target] = e;
+        }
+      }
+    }
+    // Dominance: in one group, an older walk costing at least as much as a younger walk that may already clean
+    // can never do better from here on (the younger one is cleaner every day and has the same choices).
+    for (let g = 0; g <= M; g++) {
+      const group = groups[g];
+      if (pruning && group.length > 1) {
+        let bestYounger = Number.POSITIVE_INFINITY;
+        const kept: Walk[] = [];
+        for (let i = group.length - 1; i >= 0; i--) {
+          const walk = group[i];
+          if (walk.cost >= bestYounger) continue;
+          kept.push(walk);
+          if (e >= walk.firstStart && walk.cost < bestYounger) bestYounger = walk.cost;
+        }
+        kept.reverse();
+        groups[g] = kept;
+      }
+      for (const walk of groups[g]) {
+        const age = e - walk.restartDay;
+        const gi = walk.curve.index[age];
+        const s = e * G + gi;
+        walk.cost += cost[s] + walk.curve.weight[age] * (cost[s + 1] - cost[s]) - ref[e];
+      }
+    }
+  }
+  let endBest = Number.POSITIVE_INFINITY;
+  let endFrom = -2;
+  for (const group of groups) {
+    for (const walk of group) {
+      if (walk.cost < endBest) {
+        endBest = walk.cost;
+        endFrom = walk.node;
+      }
+    }
+  }
+  for (let k = 0; k < M; k++) {
+    const node = H * M + k;
+    if (best[node] < endBest) {
+      endBest = best[node];
+      endFrom = node;
     }
   }
 
@@ -151,4 +216,19 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
     cleanings.unshift({ startDay: fromStart[node], methodId: methods[node % M].id });
   }
   return { cleanings, objective: endBest };
+}
+
+/**
+ * Whether the daily cost can only rise with age for every method: fouling index non-decreasing with age,
+ * multipliers not negative, and each day's penalty non-increasing in cleanliness. Dominance pruning relies on it;
+ * without it every walk is kept (same answer, slower).
+ */
+function costRisesWithAge(problem: ScheduleProblem, base: Float64Array, y: Float64Array): boolean {
+  for (let a = 1; a < y.length; a++) if (y[a] < y[a - 1]) return false;
+  if (problem.initial.foulingRateMultiplier < 0 || problem.methods.some((m) => m.foulingRateMultiplier < 0)) return false;
+  const G = problem.table.size;
+  for (let d = 0; d < problem.days; d++) {
+    for (let i = 1; i < G; i++) if (base[d * G + i] > base[d * G + i - 1]) return false;
+  }
+  return true;
 }

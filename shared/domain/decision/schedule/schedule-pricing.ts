@@ -3,7 +3,7 @@
  * totals, discounted totals and yearly sums. The optimiser's objective equals this pricing at the base scenario,
  * and the uncertainty analysis re-prices a fixed schedule with it.
  */
-import { combinedCosts, gridPosition, type PenaltyCostTable } from './penalty-cost-table.js';
+import { penaltyCostPerDay } from './penalty-cost-table.js';
 import {
   dailyDiscountFactors,
   foulingIndexByAge,
@@ -54,13 +54,6 @@ function zeroTotals(): CostTotals {
   return { foulingCost: 0, cleaningCost: 0, downtimeCost: 0, total: 0 };
 }
 
-/** Interpolated penalty from a combined cost array. */
-function penaltyAt(costs: Float64Array, table: PenaltyCostTable, day: number, cf: number): number {
-  const { index, weight } = gridPosition(table, cf);
-  const k = day * table.size + index;
-  return costs[k] + weight * (costs[k + 1] - costs[k]);
-}
-
 function methodById(problem: ScheduleProblem): Map<string, ScheduleMethod> {
   return new Map(problem.methods.map((m) => [m.id, m]));
 }
@@ -91,11 +84,11 @@ export function priceSchedule(problem: ScheduleProblem, cleanings: readonly Plan
   const { sorted, ruleBreaks } = checkCleanings(problem, cleanings);
   const methods = methodById(problem);
   const { table, days } = problem;
-  const costs = combinedCosts(table, scenario.prices);
   const discount = dailyDiscountFactors(problem.yearIndex, days, scenario.discountRate);
   const y = foulingIndexByAge(problem.fouling, days + problem.initial.daysSinceCleaning, scenario.foulingRateScale);
   const refCf = problem.referenceCleanliness;
-  const foulingOn = (day: number, cf: number) => (problem.plannedOutage[day] ? 0 : penaltyAt(costs, table, day, cf) - penaltyAt(costs, table, day, refCf));
+  const foulingOn = (day: number, cf: number) =>
+    problem.plannedOutage[day] ? 0 : penaltyCostPerDay(table, day, cf, scenario.prices) - penaltyCostPerDay(table, day, refCf, scenario.prices);
 
   const dailyCleanliness = new Float64Array(days);
   const dailyFoulingCost = new Float64Array(days);
