@@ -3,7 +3,7 @@
  * U_clean = C(OD)·√V[ft/s]·Fw(t1)·Fm(material, BWG), Btu/(h·ft²·°F), returned in W/(m²·K).
  */
 import { bwgWallIn, msToFts, WM2K_PER_BTU_HFT2F, cToF } from '../../units.js';
-import { DEFAULT_HEI_TABLES, type HeiTables, type TubeMaterial } from './hei-tables.js';
+import { assertHeiTables, DEFAULT_HEI_TABLES, type HeiTables, type TubeMaterial } from './hei-tables.js';
 import type { CondenserGeometry } from './geometry.js';
 
 export function tubeConstantC(tables: HeiTables, tubeOdMm: number): number {
@@ -63,6 +63,7 @@ export function materialFactor(tables: HeiTables, material: TubeMaterial, bwg: n
 
 /** C·Fm in Btu/(h·ft²·°F)/√(ft/s): constant for a geometry, so hot loops compute it once. */
 export function geometryConstant(geometry: CondenserGeometry, tables: HeiTables): number {
+  assertHeiTables(tables);
   return tubeConstantC(tables, geometry.tubeOdMm) * materialFactor(tables, geometry.tubeMaterial, geometry.tubeBwg);
 }
 

@@ -75,3 +75,35 @@ export const DEFAULT_HEI_TABLES: HeiTables = {
     ],
   },
 };
+
+const checked = new WeakSet<HeiTables>();
+
+/** Checks edited tables once per object; throws a RangeError naming the problem. */
+export function assertHeiTables(tables: HeiTables): void {
+  if (checked.has(tables)) return;
+  if (!tables.basis || typeof tables.basis !== 'string') throw new RangeError('HEI tables need a basis label');
+  const c = tables.tubeConstant;
+  if (!Array.isArray(c) || c.length === 0) throw new RangeError('the C table needs at least one band');
+  c.forEach((band, i) => {
+    if (!(band.c > 0)) throw new RangeError(`C must be positive (band ${i + 1})`);
+    const last = i === c.length - 1;
+    if (last !== (band.odBelowMm === null)) throw new RangeError('only the last C band is open-ended (odBelowMm null)');
+    if (!last && i > 0 && !((band.odBelowMm as number) > (c[i - 1].odBelowMm as number))) {
+      throw new RangeError('C bands must be in increasing order of OD');
+    }
+  });
+  const fw = tables.inletTemperatureFactor;
+  if (!Array.isArray(fw) || fw.length === 0) throw new RangeError('the Fw table needs at least one row');
+  fw.forEach((row, i) => {
+    if (!(row.factor > 0) || !Number.isFinite(row.inletC)) throw new RangeError(`Fw row ${i + 1} needs a finite temperature and a positive factor`);
+    if (i > 0 && !(row.inletC > fw[i - 1].inletC)) throw new RangeError('Fw rows must be in increasing order of temperature');
+  });
+  for (const material of TUBE_MATERIALS) {
+    const rows = tables.materialFactor[material];
+    if (!Array.isArray(rows) || rows.length === 0) throw new RangeError(`the Fm table has no rows for ${material}`);
+    for (const row of rows) {
+      if (!(row.factor > 0) || !Number.isInteger(row.bwg)) throw new RangeError(`Fm for ${material} needs whole BWG numbers and positive factors`);
+    }
+  }
+  checked.add(tables);
+}

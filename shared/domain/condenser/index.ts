@@ -1,4 +1,4 @@
-export { TUBE_MATERIALS, DEFAULT_HEI_TABLES, type TubeMaterial, type HeiTables } from './hei-tables.js';
+export { TUBE_MATERIALS, DEFAULT_HEI_TABLES, assertHeiTables, type TubeMaterial, type HeiTables } from './hei-tables.js';
 export { type CondenserGeometry, assertGeometry, tubeInsideDiameterM, activeSurfaceM2, tubeVelocityMs } from './geometry.js';
 export {
   cleanCoefficientWm2K,

@@ -256,3 +256,16 @@ describe('CW-side duty against heat-balance duty', () => {
     expect(reconcileDuty(560, 600).message).toMatch(/flow metering/);
   });
 });
+
+describe('edited HEI tables', () => {
+  it('are checked, with a clear error for a table out of order', () => {
+    const bad: HeiTables = {
+      ...DEFAULT_HEI_TABLES,
+      inletTemperatureFactor: [
+        { inletC: 20, factor: 1 },
+        { inletC: 10, factor: 0.9 },
+      ],
+    };
+    expect(() => backpressureAtCleanlinessKpa({ geometry: { ...GEOMETRY }, ...DESIGN, heiTables: bad })).toThrow(/Fw rows must be in increasing order/);
+  });
+});
