@@ -12,9 +12,24 @@ export default defineConfig({
   resolve: { alias },
   test: {
     root: '.',
-    include: ['tests/**/*.test.ts', 'tests/**/*.test.tsx'],
     testTimeout: 30_000,
     hookTimeout: 120_000,
     pool: 'forks',
+    projects: [
+      {
+        resolve: { alias },
+        test: { name: 'unit', include: ['tests/unit/**/*.test.{ts,tsx}', 'tests/reference/**/*.test.ts'], testTimeout: 60_000 },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'api',
+          include: ['tests/api/**/*.test.ts', 'tests/security/**/*.test.ts', 'tests/e2e/**/*.test.ts'],
+          globalSetup: ['tests/helpers/global-setup.ts'],
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+        },
+      },
+    ],
   },
 });

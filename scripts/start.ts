@@ -68,9 +68,10 @@ try {
   }
 
   log('Building the front end…');
-  await build({ configFile: path.join(root, 'vite.config.ts'), logLevel: 'warn', mode: 'production' });
+  const distDir = path.resolve(root, config.FRONTEND_DIST_DIR);
+  await build({ configFile: path.join(root, 'vite.config.ts'), logLevel: 'warn', mode: 'production', build: { outDir: distDir } });
 
-  const running: Running = await bootstrap(config, { smtpSink, staticDir: path.join(root, 'frontend', 'dist') });
+  const running: Running = await bootstrap(config, { smtpSink, staticDir: distDir });
   stops.push(running.close);
 
   log(`Cleancase is ready: ${running.url}`);

@@ -12,6 +12,8 @@ const schema = z.object({
   PORT: z.coerce.number().int().min(0).max(65535).default(3000),
   /** The address people use to reach the app; used in e-mail links and OAuth callbacks. */
   PUBLIC_URL: z.url().optional(),
+  /** Where `npm start` builds the front end and the server finds it (relative to the project root). */
+  FRONTEND_DIST_DIR: z.string().default('frontend/dist'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 
   DB_HOST: z.string().default('127.0.0.1'),

@@ -1,7 +1,7 @@
 import 'reflect-metadata';
-import path from 'node:path';
 import { DataSource } from 'typeorm';
 import { ENTITIES } from './entities/index.js';
+import { MIGRATIONS } from './migrations/index.js';
 
 export interface DbConnection {
   host: string;
@@ -14,7 +14,7 @@ export interface DbConnection {
 /** Migrations only: `synchronize` stays off everywhere. */
 export function buildDataSource(db: DbConnection): DataSource {
   return new DataSource({
-    type: 'mysql',
+    type: 'mariadb',
     host: db.host,
     port: db.port,
     username: db.user,
@@ -23,7 +23,7 @@ export function buildDataSource(db: DbConnection): DataSource {
     charset: 'utf8mb4_unicode_ci',
     timezone: 'Z',
     entities: ENTITIES,
-    migrations: [path.join(import.meta.dirname, 'migrations', '*.ts')],
+    migrations: MIGRATIONS,
     migrationsTableName: 'migrations',
     synchronize: false,
     logging: false,

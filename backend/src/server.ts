@@ -7,7 +7,7 @@ import { bootstrap } from './bootstrap.js';
 import { loadConfig } from './config.js';
 
 const config = loadConfig();
-const running = await bootstrap(config, { staticDir: path.join(import.meta.dirname, '..', '..', 'frontend', 'dist') });
+const running = await bootstrap(config, { staticDir: path.resolve(import.meta.dirname, '..', '..', config.FRONTEND_DIST_DIR) });
 console.log(`Cleancase is serving on ${running.url}`);
 const stop = async () => {
   await running.close();

@@ -1,4 +1,5 @@
 // Local Stripe API fake (stripe-stateful-mock), bound to loopback only. Usage: node stripe-fake.cjs <port>
+/* eslint-disable @typescript-eslint/no-require-imports -- plain CommonJS entry forked as its own process */
 const { createExpressApp } = require('stripe-stateful-mock');
 const port = Number(process.argv[2] || 12111);
 const server = createExpressApp().listen(port, '127.0.0.1', () => {

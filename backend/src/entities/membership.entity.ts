@@ -1,4 +1,6 @@
-import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
+import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import { Organisation } from './organisation.entity.js';
+import { User } from './user.entity.js';
 
 export const ROLES = ['admin', 'analyst', 'approver', 'viewer'] as const;
 export type Role = (typeof ROLES)[number];
@@ -8,10 +10,13 @@ export type Role = (typeof ROLES)[number];
 @Index(['organisationId', 'userId'], { unique: true })
 export class Membership {
   @PrimaryGeneratedColumn('uuid') id: string;
-  @Column({ type: 'char', length: 36 }) organisationId: string;
-  @Column({ type: 'char', length: 36 }) userId: string;
+  @Column({ type: 'uuid' }) organisationId: string;
+  @Column({ type: 'uuid' }) userId: string;
   @Column({ type: 'varchar', length: 16 }) role: Role;
   /** null: sees every plant of the tenant; otherwise only plants in these client groups. */
   @Column({ type: 'json', nullable: true }) clientGroupIds: string[] | null;
-  @CreateDateColumn({ type: 'datetime', precision: 3 }) createdAt: Date;
+  @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)' }) createdAt: Date;
+
+  @ManyToOne(() => Organisation, { onDelete: 'CASCADE' }) @JoinColumn({ name: 'organisationId' }) organisation?: Organisation;
+  @ManyToOne(() => User, { onDelete: 'CASCADE' }) @JoinColumn({ name: 'userId' }) user?: User;
 }

@@ -13,5 +13,5 @@ export class Organisation {
   @Column({ type: 'datetime', precision: 3, nullable: true }) trialEndsAt: Date | null;
   @Column({ type: 'varchar', length: 64, nullable: true }) stripeCustomerId: string | null;
   @Column({ type: 'varchar', length: 64, nullable: true }) stripeSubscriptionId: string | null;
-  @CreateDateColumn({ type: 'datetime', precision: 3 }) createdAt: Date;
+  @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)' }) createdAt: Date;
 }

@@ -12,5 +12,5 @@ export class User {
   @Column({ type: 'varchar', length: 2, default: 'us' }) unitPreference: UnitPreference;
   /** Sessions created before this instant are no longer valid (password change, sign-out everywhere). */
   @Column({ type: 'datetime', precision: 3, nullable: true }) sessionsValidFrom: Date | null;
-  @CreateDateColumn({ type: 'datetime', precision: 3 }) createdAt: Date;
+  @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)' }) createdAt: Date;
 }

@@ -11,7 +11,6 @@ export interface Actor {
 }
 
 declare global {
-  // eslint-disable-next-line @typescript-eslint/no-namespace
   namespace Express {
     interface Request {
       actor?: Actor;

@@ -1,0 +1,62 @@
+/**
+ * `npm test`: everything CI checks, needing nothing running beforehand and leaving nothing running.
+ * System packages (MariaDB, Chromium, python3-iapws) are installed when missing; then lint, typecheck,
+ * front-end build, and every vitest suite (unit, reference, API, security, browser).
+ */
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdirSync, readFileSync } from 'node:fs';
+import path from 'node:path';
+import { CHROMIUM, ensureSystemPackages, MARIADB, PYTHON_IAPWS } from './lib/system-packages.js';
+
+const root = path.resolve(import.meta.dirname, '..');
+const bin = (name: string) => path.join(root, 'node_modules', '.bin', name);
+const extraArgs = process.argv.slice(2);
+
+function step(title: string, command: string, args: string[]): boolean {
+  console.log(`\n=== ${title}`);
+  const started = Date.now();
+  const r = spawnSync(command, args, { cwd: root, stdio: 'inherit', env: { ...process.env, FORCE_COLOR: process.env.CI ? '0' : process.env.FORCE_COLOR } });
+  console.log(`=== ${title}: ${r.status === 0 ? 'ok' : 'FAILED'} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
+  return r.status === 0;
+}
+
+/** Any test MariaDB left by a crashed run (the global setup stops its own on every normal exit). */
+function stopStrayTestDatabases(): void {
+  spawnSync('pkill', ['-TERM', '-f', 'mariadbd.*cleancase-(test-db|start|gen)-'], { stdio: 'ignore' });
+}
+
+try {
+  ensureSystemPackages([MARIADB, CHROMIUM, PYTHON_IAPWS]);
+} catch (err) {
+  console.error(err instanceof Error ? err.message : err);
+  process.exit(1);
+}
+
+const resultsFile = path.join(root, '.data', 'test-results.json');
+mkdirSync(path.dirname(resultsFile), { recursive: true });
+
+let ok = true;
+if (extraArgs.length === 0) {
+  ok = step('lint (eslint)', bin('eslint'), ['.', '--max-warnings=0']) && ok;
+  ok = step('typecheck (tsc --noEmit)', bin('tsc'), ['--noEmit', '-p', '.']) && ok;
+  ok = step('front-end build (vite)', bin('vite'), ['build', '--logLevel', 'warn']) && ok;
+} else if (!existsSync(path.join(root, 'frontend', 'dist', 'index.html'))) {
+  ok = step('front-end build (vite)', bin('vite'), ['build', '--logLevel', 'warn']) && ok;
+}
+const vitestOk = step('tests (vitest: unit, reference, api, security, browser)', bin('vitest'), [
+  'run',
+  '--reporter=default',
+  '--reporter=json',
+  `--outputFile.json=${resultsFile}`,
+  ...extraArgs,
+]);
+ok = vitestOk && ok;
+stopStrayTestDatabases();
+
+if (existsSync(resultsFile)) {
+  const results = JSON.parse(readFileSync(resultsFile, 'utf8')) as { numPassedTests: number; numFailedTests: number; numPendingTests: number };
+  console.log(`\ntests: ${results.numPassedTests} passed, ${results.numFailedTests} failed, ${results.numPendingTests} skipped`);
+  if (results.numPassedTests === 0) ok = false;
+}
+console.log(ok ? 'npm test: all checks passed' : 'npm test: FAILED');
+process.exit(ok ? 0 : 1);

@@ -1,0 +1,34 @@
+/**
+ * Vitest global setup for database-backed suites: a private MariaDB on a free port with a throwaway data
+ * folder, stopped and removed at the end even when tests fail. Each test file gets a fresh database.
+ */
+import { mkdtempSync, rmSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import type { TestProject } from 'vitest/node';
+import { freePort } from '../../scripts/lib/free-port.js';
+import { startMariaDb } from '../../scripts/lib/mariadb.js';
+
+export interface TestDbInfo {
+  host: string;
+  port: number;
+  user: string;
+  password: string;
+  socket: string;
+}
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    testDb: TestDbInfo;
+  }
+}
+
+export default async function setup(project: TestProject) {
+  const dataDir = mkdtempSync(path.join(os.tmpdir(), 'cleancase-test-db-'));
+  const db = await startMariaDb({ dataDir, port: await freePort(), database: 'cleancase_test', user: 'cleancase_test', password: 'test-only-password' });
+  project.provide('testDb', { host: db.host, port: db.port, user: db.user, password: db.password, socket: db.socket });
+  return async () => {
+    await db.stop();
+    rmSync(dataDir, { recursive: true, force: true });
+  };
+}
