@@ -1,0 +1,137 @@
+/**
+ * `calc schedule` contract (our design, documented in the README): least-cost cleaning calendar over a horizon,
+ * its baseline, the business case and optionally sensitivity and Monte Carlo. Self-contained and short enough to
+ * write by hand: drivers may be constants or 12 monthly values; methods may be ids of the typical library.
+ */
+import { z } from 'zod';
+import { TUBE_MATERIALS } from '../domain/condenser/hei-tables.js';
+import { correctionCurveSchema } from './calc-penalty.js';
+import { cleaningMethodSchema } from './cleaning-method.js';
+
+const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'dates are YYYY-MM-DD (plant-local)');
+const dateRange = z.object({ from: isoDate, to: isoDate }).strict();
+
+const driver = (unit: string) =>
+  z.union(
+    [
+      z.number().finite(),
+      z.object({ monthly: z.array(z.number().finite()).length(12, 'monthly needs 12 values, January first') }).strict(),
+      z.object({ daily: z.array(z.number().finite()).min(1).max(1830) }).strict(),
+    ],
+    { error: `a driver is a number (${unit}), {"monthly": [12 values]} or {"daily": [one per horizon day]}` },
+  );
+
+const foulingModel = z.discriminatedUnion(
+  'model',
+  [
+    z.object({ model: z.literal('linear'), ratePerDay: z.number().finite().min(0) }).strict(),
+    z.object({ model: z.literal('asymptotic'), maxIndex: z.number().finite().min(0), timeConstantDays: z.number().finite().positive() }).strict(),
+    z.object({ model: z.literal('falling-rate'), coefficient: z.number().finite().min(0), exponent: z.number().finite().gt(0).max(1) }).strict(),
+  ],
+  { error: 'fouling.model must be "linear", "asymptotic" or "falling-rate"' },
+);
+
+const range = z.object({ low: z.number().finite(), base: z.number().finite(), high: z.number().finite() }).strict();
+
+export const calcScheduleInput = z
+  .object({
+    startDate: isoDate,
+    horizonDays: z.number().int().min(1).max(1830, 'horizonDays is at most 1830 (five years)'),
+    drivers: z
+      .object({
+        cwInletC: driver('°C'),
+        loadFraction: driver('fraction of rating'),
+        fuelPricePerMmbtu: driver('money per MMBtu'),
+        replacementPricePerMwh: driver('money per MWh'),
+        co2PricePerTonne: driver('money per tonne').default(0),
+        interpolation: z.enum(['step', 'mid-month']).default('mid-month'),
+      })
+      .strict(),
+    unit: z
+      .object({
+        ratingMw: z.number().finite().positive(),
+        heatRateBtuKwh: z.number().finite().positive(),
+        co2KgPerMmbtu: z.number().finite().min(0).default(0),
+        capacityLimitedShare: z.number().min(0).max(1).default(0),
+        /** tubes in service; default tubeCount − pluggedTubes of the condenser */
+        activeTubes: z.number().int().min(0).optional(),
+        condenser: z
+          .object({
+            surfaceM2: z.number().finite().positive(),
+            tubeCount: z.number().int().positive(),
+            passes: z.number().int().min(1).max(4),
+            tubeOdMm: z.number().finite().positive(),
+            tubeBwg: z.number().int(),
+            tubeMaterial: z.enum(TUBE_MATERIALS),
+            pluggedTubes: z.number().int().min(0).default(0),
+            cwFlowM3s: z.number().finite().positive(),
+            designDutyMw: z.number().finite().positive(),
+          })
+          .strict()
+          .optional(),
+        curve: correctionCurveSchema.optional(),
+      })
+      .strict(),
+    directPenalty: z
+      .object({
+        points: z.array(z.object({ cleanliness: z.number().finite().gt(0), costPerDay: z.number().finite() }).strict()).min(2),
+        monthlyFactors: z.array(z.number().finite().min(0)).length(12).optional(),
+      })
+      .strict()
+      .optional(),
+    fouling: foulingModel,
+    initial: z
+      .object({
+        daysSinceCleaning: z.number().int().min(0),
+        cleanlinessAfterCleaning: z.number().finite().gt(0).max(1.2),
+        foulingRateMultiplier: z.number().finite().positive().default(1),
+      })
+      .strict(),
+    methods: z.array(z.union([z.string(), cleaningMethodSchema])).min(1).max(12),
+    plannedOutages: z.array(dateRange).max(100).optional(),
+    windows: z.array(dateRange).max(500).optional(),
+    methodWindows: z.record(z.string(), z.array(dateRange).max(500)).optional(),
+    minSpacingDays: z.number().int().min(0).default(0),
+    discountRate: z.number().finite().gt(-1),
+    referenceCleanliness: z.number().finite().gt(0).max(1.2).optional(),
+    baseline: z
+      .discriminatedUnion('kind', [
+        z.object({ kind: z.literal('never') }).strict(),
+        z.object({ kind: z.literal('next-planned-outage'), methodId: z.string() }).strict(),
+        z.object({ kind: z.literal('every-planned-outage'), methodId: z.string() }).strict(),
+        z.object({ kind: z.literal('fixed'), cleanings: z.array(z.object({ date: isoDate, methodId: z.string() }).strict()).max(200) }).strict(),
+      ])
+      .default({ kind: 'never' }),
+    upfrontCost: z.number().finite().min(0).default(0),
+    uncertainty: z
+      .object({
+        trials: z.number().int().min(1000).max(100_000).default(5000),
+        seed: z.number().int().min(0).max(4_294_967_295).default(1),
+        ranges: z
+          .object({
+            foulingRate: range,
+            fuelPrice: range,
+            replacementPrice: range,
+            cleaningCost: range,
+            recoveredCleanliness: range,
+            discountRate: range,
+          })
+          .partial()
+          .strict()
+          .optional(),
+      })
+      .strict()
+      .optional(),
+    includeDaily: z.boolean().default(true),
+  })
+  .strict()
+  .refine((v) => (v.unit.condenser === undefined) !== (v.directPenalty === undefined), {
+    message: 'give either unit.condenser (full condenser and turbine models) or directPenalty (a simplified cost curve), not both',
+    path: ['unit', 'condenser'],
+  })
+  .refine((v) => v.unit.condenser !== undefined || v.unit.activeTubes !== undefined, {
+    message: 'unit.activeTubes is needed with directPenalty (for the per-tube part of cleaning costs)',
+    path: ['unit', 'activeTubes'],
+  });
+
+export type CalcScheduleInput = z.infer<typeof calcScheduleInput>;
