@@ -1,0 +1,110 @@
+import { describe, expect, it } from 'vitest';
+import { runCalc } from '@backend/cli/run-calc.js';
+import foulingFit from '@backend/cli/commands/fouling-fit.js';
+import schedule from '@backend/cli/commands/schedule.js';
+import interval from '@backend/cli/commands/interval.js';
+import cashflow from '@backend/cli/commands/cashflow.js';
+
+const scheduleInput = {
+  startDate: '2027-01-01',
+  horizonDays: 365,
+  drivers: {
+    cwInletC: { monthly: [8, 9, 12, 16, 20, 25, 28, 28, 24, 18, 12, 9] },
+    loadFraction: 0.85,
+    fuelPricePerMmbtu: 3.5,
+    replacementPricePerMwh: 60,
+  },
+  unit: {
+    ratingMw: 300,
+    heatRateBtuKwh: 9500,
+    condenser: { surfaceM2: 17000, tubeCount: 18000, passes: 2, tubeOdMm: 25.4, tubeBwg: 22, tubeMaterial: 'titanium', cwFlowM3s: 15, designDutyMw: 480 },
+  },
+  fouling: { model: 'linear', ratePerDay: 0.004 },
+  initial: { daysSinceCleaning: 30, cleanlinessAfterCleaning: 0.9 },
+  methods: ['hp-water-lancing', 'half-condenser-online'],
+  plannedOutages: [{ from: '2027-04-05', to: '2027-04-25' }],
+  minSpacingDays: 30,
+  discountRate: 0.08,
+  baseline: { kind: 'next-planned-outage', methodId: 'hp-water-lancing' },
+};
+
+describe('decision commands of the calculation CLI', () => {
+  it('interval and cashflow answer an array of inputs with one result each, errors in place', () => {
+    const out = runCalc(interval, JSON.stringify([{ cleaningCost: 150000, downtimeCost: 0, downtimeDays: 0, penalty: { model: 'linear', slopePerDay2: 50 } }, { cleaningCost: 1 }]));
+    expect(out.failed).toBe(true);
+    const parsed = JSON.parse(out.output);
+    expect(parsed[0]).toEqual({ optimalIntervalDays: 77.459667, averageCostPerDay: 3872.98 });
+    expect(parsed[1].error).toMatch(/downtimeCost/);
+    expect(() => cashflow.run({ rate: 0.1, cashflows: [-1, 2], extra: true })).toThrow();
+  });
+
+  it('fouling-fit fits, forecasts and reports the chosen model', () => {
+    const points = Array.from({ length: 40 }, (_, day) => ({ day, cleanliness: 1 / (1 / 0.9 + 0.003 * day) }));
+    const out = foulingFit.run({ points, cleanlinessAfterCleaning: 0.9, uCleanWm2K: 3500, forecastDays: 20 }) as {
+      status: string;
+      chosen: { model: string; parameters: Record<string, number>; foulingResistance: Record<string, number> };
+      forecast: { day: number }[];
+    };
+    expect(out.status).toBe('fitted');
+    expect(out.chosen.model).toBe('linear');
+    expect(out.chosen.parameters.ratePerDay).toBeCloseTo(0.003, 8);
+    // Rf rate = y rate / U_clean [derived]
+    expect(out.chosen.foulingResistance.rfRateM2KWPerDay).toBeCloseTo(0.003 / 3500, 12);
+    expect(out.forecast).toHaveLength(60);
+  });
+
+  it('fouling-fit answers "not enough data" as a result, not an error', () => {
+    const out = runCalc(foulingFit, JSON.stringify({ points: [{ day: 0, cleanliness: 0.9 }, { day: 1, cleanliness: 0.89 }] }));
+    expect(out.failed).toBe(false);
+    expect(JSON.parse(out.output)).toMatchObject({ status: 'not-enough-data', minimumPoints: 10, minimumSpanDays: 14 });
+  });
+
+  it('schedule returns cleanings with dates and cautions, a baseline and a business case consistent with it', () => {
+    const out = schedule.run({ ...scheduleInput, includeDaily: true }) as {
+      cleanings: { date: string; methodId: string; cautions: string[]; cleaningCost: number }[];
+      discountedTotals: { total: number };
+      baseline: { discountedTotals: { total: number }; cleanings: { date: string }[] };
+      businessCase: { npv: number; cashflows: number[] };
+      daily: { date: string }[];
+      warnings: string[];
+    };
+    expect(out.cleanings.length).toBeGreaterThan(0);
+    for (const c of out.cleanings) expect(c.date).toMatch(/^2027-\d{2}-\d{2}$/);
+    expect(out.cleanings[0].cautions[0]).toMatch(/local codes/);
+    expect(out.baseline.cleanings[0].date).toBe('2027-04-05');
+    expect(out.daily).toHaveLength(365);
+    expect(out.daily[364].date).toBe('2027-12-31');
+    // the optimiser never does worse than the baseline, and the NPV is the difference of discounted totals
+    expect(out.discountedTotals.total).toBeLessThanOrEqual(out.baseline.discountedTotals.total + 0.01);
+    expect(Math.abs(out.businessCase.npv - (out.baseline.discountedTotals.total - out.discountedTotals.total))).toBeLessThanOrEqual(0.02);
+    expect(out.warnings.some((w) => /generic exhaust-pressure correction curve/.test(w))).toBe(true);
+    expect(out.warnings.some((w) => /typical values/.test(w))).toBe(true);
+    // HP lancing with 18,000 tubes: $25,000 + $4 × 18,000 (typical values)
+    const lancing = out.cleanings.find((c) => c.methodId === 'hp-water-lancing');
+    if (lancing) expect(lancing.cleaningCost).toBe(97_000);
+  });
+
+  it('schedule with uncertainty is reproducible for a seed', () => {
+    const input = { ...scheduleInput, includeDaily: false, uncertainty: { trials: 1000, seed: 5 } };
+    const a = schedule.run(input) as { monteCarlo: unknown; sensitivity: { bars: unknown[] } };
+    expect(schedule.run(input)).toEqual(a);
+    expect(a.sensitivity.bars).toHaveLength(6);
+  });
+
+  it('schedule accepts a simplified direct penalty curve, and refuses both models at once', () => {
+    const { condenser: _condenser, ...unit } = scheduleInput.unit;
+    const direct = {
+      ...scheduleInput,
+      unit: { ...unit, activeTubes: 10_000 },
+      directPenalty: { points: [{ cleanliness: 0.5, costPerDay: 20_000 }, { cleanliness: 0.92, costPerDay: 0 }] },
+      includeDaily: false,
+    };
+    const out = schedule.run(direct) as { cleanings: unknown[]; warnings: string[] };
+    expect(out.warnings.some((w) => /simplified direct penalty/.test(w))).toBe(true);
+    expect(() => schedule.run({ ...direct, unit: scheduleInput.unit })).toThrow(/either unit.condenser/);
+  });
+
+  it('schedule names an unknown library method', () => {
+    expect(() => schedule.run({ ...scheduleInput, methods: ['pressure-washer-9000'] })).toThrow(/not in the typical library/);
+  });
+});
