@@ -105,7 +105,7 @@ export const calcScheduleInput = z
     upfrontCost: z.number().finite().min(0).default(0),
     uncertainty: z
       .object({
-        trials: z.number().int().min(1000).max(100_000).default(5000),
+        trials: z.number().int().min(1000).max(20_000).default(5000),
         seed: z.number().int().min(0).max(4_294_967_295).default(1),
         ranges: z
           .object({
