@@ -17,9 +17,19 @@ import { mountRoutes, type RouteSpec } from './http/route-registry.js';
 import type { Logger } from './logger.js';
 import type { Mailer } from './mail/mailer.js';
 import type { SmtpSink } from './mail/smtp-sink.js';
+import { configureGoogle, googleConfigured } from './auth/google-strategy.js';
+import { accountRoutes } from './routes/account.routes.js';
+import { apiTokenRoutes } from './routes/api-token.routes.js';
+import { auditRoutes } from './routes/audit.routes.js';
+import { calcRoutes } from './routes/calc.routes.js';
+import { clientGroupRoutes } from './routes/client-group.routes.js';
 import { devMailboxRoutes } from './routes/dev-mailbox.routes.js';
+import { googleAuthRoutes } from './routes/google-auth.routes.js';
 import { healthRoutes } from './routes/health.routes.js';
-import { sessionRoutes } from './routes/session.routes.js';
+import { invitationRoutes } from './routes/invitation.routes.js';
+import { memberRoutes } from './routes/member.routes.js';
+import { SESSION_COOKIE, sessionRoutes } from './routes/session.routes.js';
+import { describeSession } from './services/session.service.js';
 
 export interface AppDeps {
   config: Config;
@@ -36,7 +46,7 @@ export interface CleancaseApp extends Express {
   locals: Express['locals'] & { routes: RouteSpec[]; close: () => Promise<void> };
 }
 
-export const SESSION_COOKIE = 'cleancase.sid';
+
 
 export function createApp(deps: AppDeps): CleancaseApp {
   const { config, dataSource, logger } = deps;
@@ -90,12 +100,28 @@ export function createApp(deps: AppDeps): CleancaseApp {
     }),
   );
   const auth = configurePassport(dataSource);
+  const withGoogle = googleConfigured(config);
+  if (withGoogle) configureGoogle(auth, dataSource, config, `${config.PUBLIC_URL?.replace(/\/$/, '') ?? ''}/api/auth/google/callback`);
   app.use(auth.initialize());
   const authenticate = createAuthenticate(dataSource);
+  const devMailbox = !!deps.smtpSink;
+  const answerSession = async (req: express.Request, res: express.Response) => {
+    req.actor = undefined;
+    await new Promise<void>((resolve, reject) => authenticate(req, res, (e?: unknown) => (e ? reject(e) : resolve())));
+    res.json(await describeSession(dataSource, req.actor, devMailbox));
+  };
 
   const routes: RouteSpec[] = [
     ...healthRoutes(dataSource),
-    ...sessionRoutes(dataSource, auth, authenticate),
+    ...sessionRoutes(dataSource, auth, answerSession, devMailbox),
+    ...accountRoutes(dataSource, deps.mailer, config, answerSession),
+    ...invitationRoutes(dataSource, deps.mailer, config, answerSession),
+    ...memberRoutes(dataSource),
+    ...clientGroupRoutes(dataSource),
+    ...apiTokenRoutes(dataSource),
+    ...auditRoutes(dataSource),
+    ...calcRoutes(),
+    ...(withGoogle ? googleAuthRoutes(auth) : []),
     ...(deps.smtpSink ? devMailboxRoutes(deps.smtpSink) : []),
   ];
   mountRoutes(app, routes, authenticate);

@@ -9,6 +9,7 @@ export const signInRequest = z
 export type SignInRequest = z.infer<typeof signInRequest>;
 
 export const roleSchema = z.enum(['admin', 'analyst', 'approver', 'viewer']);
+const permissionSchema = z.enum(['data.read', 'data.write', 'cases.approve', 'members.manage', 'client-groups.manage', 'billing.manage', 'audit.read', 'calc.use']);
 
 export const membershipSummary = z
   .object({
@@ -26,7 +27,11 @@ export const sessionResponse = z
       .strict()
       .nullable(),
     activeOrganisationId: z.string().nullable(),
+    /** What the active role may do, for hiding or disabling actions in the UI. */
+    permissions: z.array(permissionSchema),
     memberships: z.array(membershipSummary),
+    /** Present while the local SMTP sink is in use. */
+    devMailbox: z.boolean(),
   })
   .strict();
 export type SessionResponse = z.infer<typeof sessionResponse>;

@@ -1,4 +1,4 @@
-/** Pure part of the calculation CLI: parse stdin text, run a command on each input, collect errors in place. */
+/** Pure part of the calculation CLI and API: run a command on each input, collect errors in place. */
 export interface CalcCommand {
   /** Validates one input (throws with a user-facing message) and returns the plain-JSON result. */
   run(input: unknown): unknown;
@@ -12,13 +12,8 @@ function errorMessage(err: unknown): string {
   return err instanceof Error ? err.message : String(err);
 }
 
-export function runCalc(command: CalcCommand, stdinText: string): { output: string; failed: boolean } {
-  let parsed: unknown;
-  try {
-    parsed = JSON.parse(stdinText);
-  } catch {
-    return { output: JSON.stringify({ error: 'stdin is not valid JSON' }), failed: true };
-  }
+/** One input or an array of inputs → results in the same shape; `failed` when any input failed. */
+export function runCalcInputs(command: CalcCommand, parsed: unknown): { result: unknown; failed: boolean } {
   let failed = false;
   const one = (input: unknown): unknown => {
     try {
@@ -30,5 +25,16 @@ export function runCalc(command: CalcCommand, stdinText: string): { output: stri
     }
   };
   const result = Array.isArray(parsed) ? parsed.map(one) : one(parsed);
+  return { result, failed };
+}
+
+export function runCalc(command: CalcCommand, stdinText: string): { output: string; failed: boolean } {
+  let parsed: unknown;
+  try {
+    parsed = JSON.parse(stdinText);
+  } catch {
+    return { output: JSON.stringify({ error: 'stdin is not valid JSON' }), failed: true };
+  }
+  const { result, failed } = runCalcInputs(command, parsed);
   return { output: JSON.stringify(result), failed };
 }

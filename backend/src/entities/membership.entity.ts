@@ -2,8 +2,9 @@ import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, Primary
 import { Organisation } from './organisation.entity.js';
 import { User } from './user.entity.js';
 
-export const ROLES = ['admin', 'analyst', 'approver', 'viewer'] as const;
-export type Role = (typeof ROLES)[number];
+import type { Role } from '@shared/permissions.js';
+
+export { ROLES, type Role } from '@shared/permissions.js';
 
 /** A user's role in one tenant, optionally limited to some client groups. */
 @Entity('membership')

@@ -5,18 +5,20 @@
  */
 import type { Express, NextFunction, Request, RequestHandler, Response } from 'express';
 import type { ZodType } from 'zod';
-import type { Role } from '../entities/membership.entity.js';
+import { PERMISSIONS, type Permission } from '@shared/permissions.js';
 import { AppError, forbidden, unauthorised } from './app-error.js';
 import { csrfGuard } from './csrf.js';
 import { rejectPrivilegedFields } from './privileged-fields.js';
 
-export type Access = 'public' | 'signed-in' | readonly Role[];
+export type Access = 'public' | 'signed-in' | Permission;
 
 export interface RouteSpec {
   method: 'get' | 'post' | 'put' | 'patch' | 'delete';
   path: string;
-  /** 'public': anyone; 'signed-in': any signed-in user (no tenant needed); roles: members of the active tenant with one of them. */
+  /** 'public': anyone; 'signed-in': any signed-in user (no tenant needed); a permission: members of the active tenant whose role has it. */
   access: Access;
+  /** Personal API tokens may call this route (calculation API); otherwise only a browser session. */
+  apiToken?: boolean;
   /** Reads or writes records of the active tenant (and so must answer 404 outside its scope). */
   tenantScoped: boolean;
   /** Unsafe methods are CSRF-checked unless this is false (only the Stripe webhook). */
@@ -32,17 +34,17 @@ export interface RouteSpec {
   description: string;
 }
 
-export const ALL_ROLES = ['admin', 'analyst', 'approver', 'viewer'] as const satisfies readonly Role[];
-export const WRITERS = ['admin', 'analyst'] as const satisfies readonly Role[];
-
-function requireAccess(access: Access): RequestHandler {
+function requireAccess(spec: RouteSpec): RequestHandler {
+  const { access } = spec;
   return (req: Request, _res: Response, next: NextFunction) => {
+    if (req.actor?.via === 'api-token' && !spec.apiToken) return next(forbidden('API tokens can only call the calculation API'));
     if (access === 'public') return next();
     if (!req.actor) return next(unauthorised());
     if (access === 'signed-in') return next();
     if (!req.actor.membership) return next(forbidden('Choose an organisation first'));
-    if (!access.includes(req.actor.membership.role)) {
-      return next(forbidden(`Your role (${req.actor.membership.role}) cannot do this; it needs ${access.join(' or ')}`));
+    const allowed: readonly string[] = PERMISSIONS[access];
+    if (!allowed.includes(req.actor.membership.role)) {
+      return next(forbidden(`Your role (${req.actor.membership.role}) cannot do this; it needs ${allowed.join(' or ')}`));
     }
     next();
   };
@@ -79,7 +81,7 @@ export function mountRoutes(app: Express, routes: RouteSpec[], authenticate: Req
     const unsafe = spec.method !== 'get';
     const chain: RequestHandler[] = [];
     if (spec.rateLimit) chain.push(spec.rateLimit);
-    chain.push(authenticate, requireAccess(spec.access));
+    chain.push(authenticate, requireAccess(spec));
     if (unsafe && spec.csrf !== false) chain.push(csrfGuard);
     if (unsafe && !spec.allowsPrivilegedFields) chain.push(rejectPrivilegedFields);
     chain.push(...(spec.before ?? []), validate(spec), wrap(spec.handler));

@@ -1,5 +1,6 @@
 /** Every migration, oldest first. A new migration file is added here too (explicit imports work under tsx, vitest and bundlers alike). */
 import { Foundation1764633600000 } from './1764633600000-foundation.js';
 import { TenantsAndUsers1796163844986 } from './1796163844986-tenants-and-users.js';
+import { Accounts1796164373459 } from './1796164373459-accounts.js';
 
-export const MIGRATIONS = [Foundation1764633600000, TenantsAndUsers1796163844986];
+export const MIGRATIONS = [Foundation1764633600000, TenantsAndUsers1796163844986, Accounts1796164373459];

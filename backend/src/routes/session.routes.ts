@@ -1,46 +1,28 @@
-import type { Request, RequestHandler, Response } from 'express';
-import rateLimit, { ipKeyGenerator } from 'express-rate-limit';
+import type { Request, Response } from 'express';
 import type passport from 'passport';
 import type { DataSource } from 'typeorm';
+import { switchTenantRequest } from '@shared/schemas/accounts.js';
 import { signInRequest } from '@shared/schemas/session.js';
+import { endSession, establishSession } from '../auth/establish-session.js';
 import { BAD_CREDENTIALS } from '../auth/passport-setup.js';
 import type { User } from '../entities/user.entity.js';
 import { AppError } from '../http/app-error.js';
+import { signInLimiter } from '../http/rate-limits.js';
 import type { RouteSpec } from '../http/route-registry.js';
+import { assertMemberOf } from '../services/account.service.js';
 import { describeSession } from '../services/session.service.js';
 
-function signInLimiter() {
-  // Keyed by address and e-mail together: an attacker cannot lock a victim out from elsewhere.
-  return rateLimit({
-    windowMs: 15 * 60 * 1000,
-    limit: 10,
-    standardHeaders: 'draft-7',
-    legacyHeaders: false,
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
-    handler: (_req, res, _next, options) => {
-      res.status(429).json({ error: `Too many sign-in attempts; try again in ${Math.ceil(options.windowMs / 60000)} minutes` });
-    },
-  });
-}
+export const SESSION_COOKIE = 'cleancase.sid';
 
-export function sessionRoutes(dataSource: DataSource, auth: passport.PassportStatic, authenticate: RequestHandler): RouteSpec[] {
-  const signIn = (req: Request, res: Response) =>
-    new Promise<void>((resolve, reject) => {
+/** `answer` re-reads the actor after the session changed and replies with the session description. */
+export function sessionRoutes(ds: DataSource, auth: passport.PassportStatic, answer: (req: Request, res: Response) => Promise<void>, devMailbox: boolean): RouteSpec[] {
+  const verify = (req: Request, res: Response) =>
+    new Promise<User>((resolve, reject) => {
       auth.authenticate('local', (err: unknown, user: User | false) => {
         if (err) return reject(err);
         if (!user) return reject(new AppError(401, BAD_CREDENTIALS));
-        // req.login regenerates the session id (passport ≥ 0.6): no fixation.
-        req.login(user, (loginErr) => {
-          if (loginErr) return reject(loginErr);
-          req.session.createdAt = Date.now();
-          req.session.activeOrganisationId = undefined;
-          resolve();
-        });
+        resolve(user);
       })(req, res, reject);
-    }).then(async () => {
-      req.actor = undefined;
-      await new Promise<void>((resolve, reject) => authenticate(req, res, (e?: unknown) => (e ? reject(e) : resolve())));
-      res.json(await describeSession(dataSource, req.actor));
     });
 
   return [
@@ -49,10 +31,8 @@ export function sessionRoutes(dataSource: DataSource, auth: passport.PassportSta
       path: '/api/session',
       access: 'public',
       tenantScoped: false,
-      description: 'Who is signed in, and their organisations',
-      handler: async (req, res) => {
-        res.json(await describeSession(dataSource, req.actor));
-      },
+      description: 'Who is signed in, their organisations and what the active role may do',
+      handler: async (req, res) => res.json(await describeSession(ds, req.actor, devMailbox)),
     },
     {
       method: 'post',
@@ -61,8 +41,12 @@ export function sessionRoutes(dataSource: DataSource, auth: passport.PassportSta
       tenantScoped: false,
       rateLimit: signInLimiter(),
       body: signInRequest,
-      description: 'Sign in with e-mail and password',
-      handler: signIn,
+      description: 'Sign in with e-mail and password (new session id)',
+      handler: async (req, res) => {
+        const user = await verify(req, res);
+        await establishSession(req, user);
+        await answer(req, res);
+      },
     },
     {
       method: 'delete',
@@ -71,10 +55,24 @@ export function sessionRoutes(dataSource: DataSource, auth: passport.PassportSta
       tenantScoped: false,
       description: 'Sign out',
       handler: async (req, res) => {
-        await new Promise<void>((resolve, reject) => req.logout((err) => (err ? reject(err) : resolve())));
-        await new Promise<void>((resolve) => req.session.destroy(() => resolve()));
-        res.clearCookie('cleancase.sid');
+        await endSession(req);
+        res.clearCookie(SESSION_COOKIE);
         res.status(204).end();
+      },
+    },
+    {
+      method: 'post',
+      path: '/api/session/organisation',
+      access: 'signed-in',
+      tenantScoped: false,
+      allowsPrivilegedFields: true,
+      body: switchTenantRequest,
+      description: 'Switch the active organisation (tenant)',
+      handler: async (req, res) => {
+        const { organisationId } = req.body as { organisationId: string };
+        await assertMemberOf(ds, req.actor!.user.id, organisationId);
+        req.session.activeOrganisationId = organisationId;
+        await answer(req, res);
       },
     },
   ];

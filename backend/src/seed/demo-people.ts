@@ -4,8 +4,8 @@ import type { Role } from '../entities/membership.entity.js';
 export const DEMO_PASSWORD = 'tubesheet-demo-2026';
 
 export const DEMO_ORGANISATIONS = [
-  { key: 'utility', name: 'Northmere Power Cooperative', kind: 'utility' as const },
-  { key: 'consultancy', name: 'Tidewater Performance Partners', kind: 'consultancy' as const },
+  { key: 'utility', name: 'Northmere Power Cooperative', kind: 'utility' as const, clientGroups: [] as string[] },
+  { key: 'consultancy', name: 'Tidewater Performance Partners', kind: 'consultancy' as const, clientGroups: ['Calder Valley Energy', 'Brightwater Municipal Utility'] },
 ];
 
 export interface DemoPerson {
@@ -28,4 +28,9 @@ export const DEMO_PEOPLE: DemoPerson[] = [
     ],
   },
   { email: 'admin@tidewater.example', name: 'Saoirse Callaghan', memberships: [{ organisation: 'consultancy', role: 'admin' }] },
+  {
+    email: 'viewer@caldervalley.example',
+    name: 'Henrike Vogelsang',
+    memberships: [{ organisation: 'consultancy', role: 'viewer', clientGroups: ['Calder Valley Energy'] }],
+  },
 ];

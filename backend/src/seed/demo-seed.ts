@@ -1,5 +1,6 @@
 import type { DataSource } from 'typeorm';
 import { hashPassword } from '../auth/password.js';
+import { ClientGroup } from '../entities/client-group.entity.js';
 import { Membership } from '../entities/membership.entity.js';
 import { Organisation } from '../entities/organisation.entity.js';
 import { User } from '../entities/user.entity.js';
@@ -18,7 +19,7 @@ export function demoSignIns(): DemoSignIn[] {
     email: p.email,
     name: p.name,
     password: DEMO_PASSWORD,
-    roles: p.memberships.map((m) => `${m.role} at ${orgName(m.organisation)}`).join('; '),
+    roles: p.memberships.map((m) => `${m.role} at ${orgName(m.organisation)}${m.clientGroups ? ` (only ${m.clientGroups.join(', ')})` : ''}`).join('; '),
   }));
 }
 
@@ -29,6 +30,7 @@ export async function seedDemoIfEmpty(dataSource: DataSource, log: (line: string
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   await dataSource.transaction(async (em) => {
     const orgIds = new Map<string, string>();
+    const groupIds = new Map<string, string>();
     for (const o of DEMO_ORGANISATIONS) {
       const saved = await em.getRepository(Organisation).save({
         name: o.name,
@@ -38,11 +40,16 @@ export async function seedDemoIfEmpty(dataSource: DataSource, log: (line: string
         trialEndsAt: o.kind === 'consultancy' ? null : new Date(Date.now() + 30 * 86_400_000),
       });
       orgIds.set(o.key, saved.id);
+      for (const name of o.clientGroups) {
+        const group = await em.getRepository(ClientGroup).save({ organisationId: saved.id, name });
+        groupIds.set(name, group.id);
+      }
     }
     for (const person of DEMO_PEOPLE) {
       const user = await em.getRepository(User).save({ email: person.email, name: person.name, passwordHash, unitPreference: 'us' });
       for (const m of person.memberships) {
-        await em.getRepository(Membership).save({ organisationId: orgIds.get(m.organisation)!, userId: user.id, role: m.role, clientGroupIds: null });
+        const clientGroupIds = m.clientGroups ? m.clientGroups.map((g) => groupIds.get(g)!) : null;
+        await em.getRepository(Membership).save({ organisationId: orgIds.get(m.organisation)!, userId: user.id, role: m.role, clientGroupIds });
       }
     }
   });

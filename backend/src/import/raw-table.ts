@@ -1,0 +1,63 @@
+/**
+ * What a reader hands to the row parser: the header texts and an async stream of raw rows,
+ * each with its 1-based line in the file. A table is read once; open it again for a second pass.
+ */
+export interface RawRow {
+  /** 1-based line of the file (CSV) or row number of the sheet (XLSX). */
+  line: number;
+  cells: string[];
+}
+
+export interface RawTable {
+  kind: 'csv' | 'xlsx';
+  headers: string[];
+  /** 1-based line of the header row (the last one when a units row follows it). */
+  headerLine: number;
+  /** The first data rows, for guessing a mapping (they are also yielded by `rows`). */
+  sampleRows: string[][];
+  rows: AsyncIterable<RawRow>;
+  /** Stop reading and release the file (also happens when `rows` is finished or left early). */
+  close(): Promise<void>;
+}
+
+export const HEADER_SEARCH_ROWS = 25;
+export const SAMPLE_ROWS = 20;
+/** Lines longer than this are a file-level error (guards against a wrong delimiter or a binary file). */
+export const MAX_LINE_CHARS = 100_000;
+
+const NUMERIC = /^[+-]?(\d+([.,]\d*)?|[.,]\d+)([eE][+-]?\d+)?$/;
+export const looksNumeric = (cell: string): boolean => NUMERIC.test(cell.trim());
+
+/**
+ * Finds the header row among the first records: the first row with at least two named cells,
+ * mostly non-numeric, and about as wide as the rows below it (preamble lines of one or two cells
+ * are skipped). Rows right below it without a single number (a units row, a description row) are
+ * folded into the header texts as "Name (unit)".
+ */
+export function locateHeader(records: string[][]): { headerIndex: number; dataIndex: number; headers: string[] } | null {
+  const widths = new Map<number, number>();
+  for (const r of records) widths.set(r.length, (widths.get(r.length) ?? 0) + 1);
+  let modal = 0;
+  let best = -1;
+  for (const [w, n] of widths) if (n > best || (n === best && w > modal)) [modal, best] = [w, n];
+  for (let i = 0; i < records.length; i++) {
+    const cells = records[i].map((c) => c.trim());
+    const named = cells.filter((c) => c !== '');
+    if (named.length < 2 || named.length < Math.ceil(0.6 * modal)) continue;
+    const numeric = named.filter(looksNumeric).length;
+    if (numeric > named.length / 2) return null;
+    const headers = cells.map((c, k) => c || `(column ${k + 1})`);
+    let j = i + 1;
+    while (j < records.length && j <= i + 3) {
+      const extra = records[j].map((c) => c.trim());
+      if (extra.every((c) => !looksNumeric(c)) && extra.some((c) => c !== '') && !extra.some(looksLikeDateTime)) {
+        for (let k = 0; k < headers.length; k++) if (extra[k]) headers[k] = `${headers[k]} (${extra[k]})`;
+        j++;
+      } else break;
+    }
+    return { headerIndex: i, dataIndex: j, headers };
+  }
+  return null;
+}
+
+export const looksLikeDateTime = (cell: string): boolean => /^\d{1,4}[-/.]\d{1,2}[-/.]\d{1,4}/.test(cell.trim());

@@ -1,0 +1,169 @@
+/**
+ * Streaming CSV reader (csv-parse): the file is read in chunks, never held whole. Detects the encoding
+ * (UTF-8, else Windows Latin-1), the delimiter (comma, semicolon, tab or bar, by the most consistent
+ * count over the first lines) and the header row. File-level problems throw ImportFileError.
+ */
+import { createReadStream } from 'node:fs';
+import { open, stat } from 'node:fs/promises';
+import { parse, type Info } from 'csv-parse';
+import { ImportFileError } from './import-errors.js';
+import { HEADER_SEARCH_ROWS, MAX_LINE_CHARS, SAMPLE_ROWS, locateHeader, type RawRow, type RawTable } from './raw-table.js';
+
+const HEAD_BYTES = 64 * 1024;
+const DELIMITERS = [',', ';', '\t', '|'] as const;
+
+export interface CsvReadOptions {
+  /** Override the detected delimiter. */
+  delimiter?: string;
+  maxLineChars?: number;
+}
+
+/** Reads the first bytes and decides whether this is text we can read, and in which encoding. */
+async function inspectHead(filePath: string): Promise<{ encoding: 'utf8' | 'latin1'; text: string; wholeFile: boolean }> {
+  const { size } = await stat(filePath);
+  if (size === 0) throw new ImportFileError('empty-file', 'the file is empty (0 bytes)');
+  const fh = await open(filePath, 'r');
+  try {
+    const buf = Buffer.alloc(Math.min(HEAD_BYTES, size));
+    const { bytesRead } = await fh.read(buf, 0, buf.length, 0);
+    const head = buf.subarray(0, bytesRead);
+    if (head[0] === 0x50 && head[1] === 0x4b && head[2] === 0x03 && head[3] === 0x04) {
+      throw new ImportFileError('not-text', 'this is a ZIP/XLSX file, not CSV text: upload it as an .xlsx file');
+    }
+    if ((head[0] === 0xff && head[1] === 0xfe) || (head[0] === 0xfe && head[1] === 0xff)) {
+      throw new ImportFileError('unsupported-encoding', 'the file is UTF-16 text: save it as "CSV UTF-8" and upload again');
+    }
+    let control = 0;
+    for (const b of head) {
+      if (b === 0) throw new ImportFileError('not-text', 'the file contains binary data (NUL bytes), not CSV text');
+      if (b < 0x20 && b !== 0x09 && b !== 0x0a && b !== 0x0d) control++;
+    }
+    if (control > head.length * 0.01) throw new ImportFileError('not-text', 'the file contains binary data, not CSV text');
+    const wholeFile = bytesRead === size;
+    // a multi-byte character may be cut at the end of the head: ignore the last 3 bytes when checking
+    const checked = wholeFile ? head : head.subarray(0, Math.max(0, head.length - 3));
+    let encoding: 'utf8' | 'latin1' = 'utf8';
+    try {
+      new TextDecoder('utf-8', { fatal: true }).decode(checked);
+    } catch {
+      encoding = 'latin1';
+    }
+    const text = head.toString(encoding).replace(/^\uFEFF/, '');
+    if (wholeFile && text.trim() === '') throw new ImportFileError('empty-file', 'the file holds no text (only blank lines or spaces)');
+    return { encoding, text, wholeFile };
+  } finally {
+    await fh.close();
+  }
+}
+
+/** Delimiter whose count per line is the same on most of the first lines (quotes respected). */
+export function detectDelimiter(text: string, wholeFile: boolean): string {
+  const lines = text.split(/\r\n|\n|\r/);
+  if (!wholeFile) lines.pop();
+  const sample = lines.filter((l) => l.trim() !== '').slice(0, 30);
+  let best: string = ',';
+  let bestScore = 0;
+  for (const d of DELIMITERS) {
+    const counts = sample.map((line) => {
+      let n = 0;
+      let quoted = false;
+      for (const ch of line) {
+        if (ch === '"') quoted = !quoted;
+        else if (ch === d && !quoted) n++;
+      }
+      return n;
+    });
+    const freq = new Map<number, number>();
+    for (const c of counts) if (c > 0) freq.set(c, (freq.get(c) ?? 0) + 1);
+    let score = 0;
+    for (const [count, lines_] of freq) score = Math.max(score, lines_ * 1000 + count);
+    if (score > bestScore) [best, bestScore] = [d, score];
+  }
+  return best;
+}
+
+const lineTooLong = (line: number, max: number) =>
+  new ImportFileError('line-too-long', `line ${line} is longer than ${max.toLocaleString('en-US')} characters: is this the right file and delimiter?`, line);
+
+export async function openCsvTable(filePath: string, options: CsvReadOptions = {}): Promise<RawTable> {
+  const maxLine = options.maxLineChars ?? MAX_LINE_CHARS;
+  const { encoding, text, wholeFile } = await inspectHead(filePath);
+  const delimiter = options.delimiter ?? detectDelimiter(text, wholeFile);
+  const input = createReadStream(filePath, { encoding, highWaterMark: 256 * 1024 });
+  const parser = parse({
+    delimiter,
+    bom: true,
+    relax_column_count: true,
+    skip_empty_lines: true,
+    max_record_size: maxLine,
+    info: true,
+  });
+  input.on('error', (e) => parser.destroy(e));
+  input.pipe(parser);
+  const iterator = (parser as AsyncIterable<{ record: string[]; info: Info }>)[Symbol.asyncIterator]();
+
+  const translate = (e: unknown): Error => {
+    const err = e as Error & { code?: unknown; lines?: unknown };
+    const line = typeof err.lines === 'number' ? err.lines : undefined;
+    if (err.code === 'CSV_MAX_RECORD_SIZE') return lineTooLong(line ?? 0, maxLine);
+    if (typeof err.code === 'string' && err.code.startsWith('CSV_')) {
+      return new ImportFileError('not-text', `the CSV cannot be read at line ${line ?? '?'}: ${err.message}`, line);
+    }
+    return err;
+  };
+  const next = async (): Promise<RawRow | null> => {
+    let r: IteratorResult<{ record: string[]; info: Info }>;
+    try {
+      r = await iterator.next();
+    } catch (e) {
+      throw translate(e);
+    }
+    if (r.done) return null;
+    const cells = r.value.record;
+    let chars = cells.length - 1;
+    for (const c of cells) chars += c.length;
+    if (chars > maxLine) throw lineTooLong(r.value.info.lines, maxLine);
+    return { line: r.value.info.lines, cells };
+  };
+  const close = async () => {
+    input.destroy();
+    parser.destroy();
+  };
+
+  try {
+    const head: RawRow[] = [];
+    while (head.length < HEADER_SEARCH_ROWS) {
+      const row = await next();
+      if (!row) break;
+      head.push(row);
+    }
+    if (head.length === 0) throw new ImportFileError('empty-file', 'the file holds no text (only blank lines or spaces)');
+    const located = locateHeader(head.map((r) => r.cells));
+    if (!located) throw new ImportFileError('no-header-row', `no header row found in the first ${HEADER_SEARCH_ROWS} lines: the file must name its columns`);
+    const buffered = head.slice(located.dataIndex);
+    if (buffered.length === 0) {
+      const more = await next();
+      if (!more) throw new ImportFileError('no-data-rows', 'the file has a header but no data rows');
+      buffered.push(more);
+    }
+    async function* rows(): AsyncGenerator<RawRow> {
+      try {
+        yield* buffered;
+        for (let row = await next(); row; row = await next()) yield row;
+      } finally {
+        await close();
+      }
+    }
+    return {
+      kind: 'csv',
+      headers: located.headers,
+      headerLine: head[located.dataIndex - 1].line,
+      sampleRows: buffered.slice(0, SAMPLE_ROWS).map((r) => r.cells),
+      rows: rows(),
+      close,
+    };
+  } catch (e) {
+    await close();
+    throw e;
+  }
+}

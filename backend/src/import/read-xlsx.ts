@@ -1,0 +1,140 @@
+/**
+ * Streaming XLSX reader (exceljs WorkbookReader): rows of the first worksheet are parsed as the ZIP
+ * is inflated, so the workbook is never held whole. Styles are ignored, so date cells arrive as
+ * their Excel serial numbers (map the timestamp column as "excel-serial" with the plant's zone).
+ * Cells are turned into text: numbers in their shortest exact form, formulas by their cached result.
+ */
+import { createReadStream } from 'node:fs';
+import { open, stat } from 'node:fs/promises';
+import ExcelJS from 'exceljs';
+import { ImportFileError } from './import-errors.js';
+import { HEADER_SEARCH_ROWS, MAX_LINE_CHARS, SAMPLE_ROWS, locateHeader, type RawRow, type RawTable } from './raw-table.js';
+
+const MS_PER_DAY = 86_400_000;
+const EXCEL_SERIAL_UNIX_EPOCH = 25_569;
+
+/** One cell value of exceljs as text. */
+export function cellText(value: unknown): string {
+  if (value === null || value === undefined) return '';
+  if (typeof value === 'string') return value;
+  if (typeof value === 'number') return String(value);
+  if (typeof value === 'boolean') return value ? 'TRUE' : 'FALSE';
+  if (value instanceof Date) return String(value.getTime() / MS_PER_DAY + EXCEL_SERIAL_UNIX_EPOCH);
+  if (typeof value === 'object') {
+    const v = value as { richText?: { text: string }[]; result?: unknown; formula?: string; error?: string; text?: unknown };
+    if (Array.isArray(v.richText)) return v.richText.map((r) => r.text).join('');
+    if ('result' in v || 'formula' in v) return cellText(v.result);
+    if (typeof v.error === 'string') return v.error;
+    if ('text' in v) return cellText(v.text);
+  }
+  return String(value);
+}
+
+async function assertZip(filePath: string): Promise<void> {
+  const { size } = await stat(filePath);
+  if (size === 0) throw new ImportFileError('empty-file', 'the file is empty (0 bytes)');
+  const fh = await open(filePath, 'r');
+  try {
+    const sig = Buffer.alloc(4);
+    await fh.read(sig, 0, 4, 0);
+    if (!(sig[0] === 0x50 && sig[1] === 0x4b && sig[2] === 0x03 && sig[3] === 0x04)) {
+      throw new ImportFileError('not-xlsx', 'this is not an XLSX workbook (an .xlsx file is a ZIP archive)');
+    }
+  } finally {
+    await fh.close();
+  }
+}
+
+export interface XlsxReadOptions {
+  maxLineChars?: number;
+}
+
+export async function openXlsxTable(filePath: string, options: XlsxReadOptions = {}): Promise<RawTable> {
+  const maxLine = options.maxLineChars ?? MAX_LINE_CHARS;
+  await assertZip(filePath);
+  const input = createReadStream(filePath);
+  const reader = new ExcelJS.stream.xlsx.WorkbookReader(input, {
+    worksheets: 'emit',
+    sharedStrings: 'cache',
+    hyperlinks: 'ignore',
+    styles: 'ignore',
+    entries: 'ignore',
+  });
+  const sheets = reader[Symbol.asyncIterator]();
+  let rowIterator: AsyncIterator<ExcelJS.Row> | null = null;
+  let width = 0;
+  const close = async () => {
+    input.destroy();
+  };
+  const broken = (e: unknown) =>
+    e instanceof ImportFileError ? e : new ImportFileError('not-xlsx', `the workbook cannot be read: ${(e as Error).message ?? String(e)}`);
+
+  const next = async (): Promise<RawRow | null> => {
+    try {
+      if (!rowIterator) {
+        const sheet = await sheets.next();
+        if (sheet.done) return null;
+        rowIterator = sheet.value[Symbol.asyncIterator]();
+      }
+      for (;;) {
+        const r = await rowIterator.next();
+        if (r.done) return null;
+        const values = r.value.values as unknown[];
+        const cells: string[] = [];
+        let chars = 0;
+        for (let k = 1; k < values.length; k++) {
+          const t = cellText(values[k]);
+          cells.push(t);
+          chars += t.length + 1;
+        }
+        if (chars > maxLine) throw new ImportFileError('line-too-long', `row ${r.value.number} is longer than ${maxLine.toLocaleString('en-US')} characters`, r.value.number);
+        if (cells.every((c) => c.trim() === '')) continue;
+        while (cells.length < width) cells.push('');
+        return { line: r.value.number, cells };
+      }
+    } catch (e) {
+      throw broken(e);
+    }
+  };
+
+  try {
+    const head: RawRow[] = [];
+    while (head.length < HEADER_SEARCH_ROWS) {
+      const row = await next();
+      if (!row) break;
+      head.push(row);
+    }
+    if (head.length === 0) throw new ImportFileError('empty-file', 'the first worksheet is empty');
+    const located = locateHeader(head.map((r) => r.cells));
+    if (!located) throw new ImportFileError('no-header-row', `no header row found in the first ${HEADER_SEARCH_ROWS} rows: the sheet must name its columns`);
+    width = located.headers.length;
+    const buffered = head.slice(located.dataIndex).map((r) => {
+      while (r.cells.length < width) r.cells.push('');
+      return r;
+    });
+    if (buffered.length === 0) {
+      const more = await next();
+      if (!more) throw new ImportFileError('no-data-rows', 'the sheet has a header but no data rows');
+      buffered.push(more);
+    }
+    async function* rows(): AsyncGenerator<RawRow> {
+      try {
+        yield* buffered;
+        for (let row = await next(); row; row = await next()) yield row;
+      } finally {
+        await close();
+      }
+    }
+    return {
+      kind: 'xlsx',
+      headers: located.headers,
+      headerLine: head[located.dataIndex - 1].line,
+      sampleRows: buffered.slice(0, SAMPLE_ROWS).map((r) => r.cells),
+      rows: rows(),
+      close,
+    };
+  } catch (e) {
+    await close();
+    throw e;
+  }
+}

@@ -1,0 +1,98 @@
+import type { Request, Response } from 'express';
+import type { DataSource } from 'typeorm';
+import { createOrganisationRequest, passwordChange, passwordResetConfirm, passwordResetRequest, profileUpdate, signUpRequest } from '@shared/schemas/accounts.js';
+import { establishSession } from '../auth/establish-session.js';
+import type { Config } from '../config.js';
+import { baseUrl } from '../http/base-url.js';
+import { resetLimiter, signUpLimiter } from '../http/rate-limits.js';
+import type { RouteSpec } from '../http/route-registry.js';
+import type { Mailer } from '../mail/mailer.js';
+import { changePassword, confirmPasswordReset, createOrganisation, requestPasswordReset, signUp, updateProfile } from '../services/account.service.js';
+
+export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, answerSession: (req: Request, res: Response) => Promise<void>): RouteSpec[] {
+  return [
+    {
+      method: 'post',
+      path: '/api/sign-up',
+      access: 'public',
+      tenantScoped: false,
+      rateLimit: signUpLimiter(),
+      body: signUpRequest,
+      description: 'Create an account and a new organisation on a free trial, and sign in',
+      handler: async (req, res) => {
+        const { user, organisation } = await signUp(ds, req.body);
+        await establishSession(req, user, organisation.id);
+        res.status(201);
+        await answerSession(req, res);
+      },
+    },
+    {
+      method: 'post',
+      path: '/api/organisations',
+      access: 'signed-in',
+      tenantScoped: false,
+      body: createOrganisationRequest,
+      description: 'Start another organisation (trial) with yourself as administrator, and switch to it',
+      handler: async (req, res) => {
+        const organisation = await createOrganisation(ds, req.actor!.user.id, req.body.name);
+        req.session.activeOrganisationId = organisation.id;
+        res.status(201);
+        await answerSession(req, res);
+      },
+    },
+    {
+      method: 'patch',
+      path: '/api/profile',
+      access: 'signed-in',
+      tenantScoped: false,
+      body: profileUpdate,
+      description: 'Change your name or unit preference (US customary or SI)',
+      handler: async (req, res) => {
+        await updateProfile(ds, req.actor!.user, req.body);
+        await answerSession(req, res);
+      },
+    },
+    {
+      method: 'post',
+      path: '/api/profile/password',
+      access: 'signed-in',
+      tenantScoped: false,
+      rateLimit: resetLimiter(),
+      body: passwordChange,
+      description: 'Change your password; every other session ends, this one gets a new id',
+      handler: async (req, res) => {
+        const user = req.actor!.user;
+        const active = req.session.activeOrganisationId;
+        await changePassword(ds, user, req.body);
+        await establishSession(req, user, active);
+        await answerSession(req, res);
+      },
+    },
+    {
+      method: 'post',
+      path: '/api/password-reset',
+      access: 'public',
+      tenantScoped: false,
+      rateLimit: resetLimiter(),
+      body: passwordResetRequest,
+      description: 'E-mail a password reset link (same answer whether or not the account exists)',
+      handler: async (req, res) => {
+        await requestPasswordReset(ds, mailer, req.body.email, baseUrl(config, req));
+        res.status(202).json({ message: 'If an account uses this e-mail, a reset link is on its way.' });
+      },
+    },
+    {
+      method: 'post',
+      path: '/api/password-reset/confirm',
+      access: 'public',
+      tenantScoped: false,
+      rateLimit: resetLimiter(),
+      body: passwordResetConfirm,
+      description: 'Set a new password with a reset link; every session of the account ends',
+      handler: async (req, res) => {
+        await confirmPasswordReset(ds, req.body.token, req.body.password);
+        res.status(204).end();
+      },
+    },
+  ];
+}

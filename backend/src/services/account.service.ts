@@ -1,0 +1,104 @@
+/** Sign-up, own organisations, tenant switch, profile, password change and reset. */
+import type { DataSource } from 'typeorm';
+import type { z } from 'zod';
+import type { passwordChange, profileUpdate, SignUpRequest } from '@shared/schemas/accounts.js';
+import { assertPasswordAcceptable } from '../auth/password-rules.js';
+import { hashPassword, verifyPassword } from '../auth/password.js';
+import { hashSecretToken, newSecretToken } from '../auth/secret-token.js';
+import { Membership } from '../entities/membership.entity.js';
+import { Organisation } from '../entities/organisation.entity.js';
+import { PasswordResetToken } from '../entities/password-reset-token.entity.js';
+import { User } from '../entities/user.entity.js';
+import { AppError, badRequest, notFound } from '../http/app-error.js';
+import type { Mailer } from '../mail/mailer.js';
+import { passwordResetMail } from '../mail/templates.js';
+import { recordAudit } from './audit.service.js';
+
+export const TRIAL_DAYS = 30;
+const RESET_LIFETIME_MS = 60 * 60 * 1000;
+
+export async function signUp(ds: DataSource, input: SignUpRequest): Promise<{ user: User; organisation: Organisation }> {
+  assertPasswordAcceptable(input.password, { email: input.email, name: input.name });
+  const passwordHash = await hashPassword(input.password);
+  return ds.transaction(async (em) => {
+    if (await em.getRepository(User).existsBy({ email: input.email })) {
+      throw new AppError(409, 'An account with this e-mail exists already; sign in, or reset its password');
+    }
+    const user = await em.getRepository(User).save({ email: input.email, name: input.name, passwordHash, unitPreference: 'us' });
+    const organisation = await em.getRepository(Organisation).save({
+      name: input.organisationName,
+      kind: 'utility',
+      plan: 'trial',
+      subscriptionStatus: 'trialing',
+      trialEndsAt: new Date(Date.now() + TRIAL_DAYS * 86_400_000),
+    });
+    await em.getRepository(Membership).save({ organisationId: organisation.id, userId: user.id, role: 'admin', clientGroupIds: null });
+    await recordAudit(em, { organisationId: organisation.id, userId: user.id, action: 'organisation.created', entityType: 'organisation', entityId: organisation.id });
+    return { user, organisation };
+  });
+}
+
+export async function createOrganisation(ds: DataSource, userId: string, name: string): Promise<Organisation> {
+  return ds.transaction(async (em) => {
+    const organisation = await em.getRepository(Organisation).save({
+      name,
+      kind: 'utility',
+      plan: 'trial',
+      subscriptionStatus: 'trialing',
+      trialEndsAt: new Date(Date.now() + TRIAL_DAYS * 86_400_000),
+    });
+    await em.getRepository(Membership).save({ organisationId: organisation.id, userId, role: 'admin', clientGroupIds: null });
+    await recordAudit(em, { organisationId: organisation.id, userId, action: 'organisation.created', entityType: 'organisation', entityId: organisation.id });
+    return organisation;
+  });
+}
+
+/** A tenant the user is no member of answers 404, like any record outside the caller's scope. */
+export async function assertMemberOf(ds: DataSource, userId: string, organisationId: string): Promise<void> {
+  if (!(await ds.getRepository(Membership).existsBy({ userId, organisationId }))) throw notFound('No such organisation');
+}
+
+export async function updateProfile(ds: DataSource, user: User, input: z.infer<typeof profileUpdate>): Promise<User> {
+  const repo = ds.getRepository(User);
+  await repo.update({ id: user.id }, { ...(input.name !== undefined && { name: input.name }), ...(input.unitPreference && { unitPreference: input.unitPreference }) });
+  return repo.findOneByOrFail({ id: user.id });
+}
+
+/** Changes the password and ends every session of the user that began before now. */
+export async function changePassword(ds: DataSource, user: User, input: z.infer<typeof passwordChange>): Promise<void> {
+  const withHash = await ds.getRepository(User).createQueryBuilder('u').addSelect('u.passwordHash').where('u.id = :id', { id: user.id }).getOneOrFail();
+  if (withHash.passwordHash && !(await verifyPassword(withHash.passwordHash, input.currentPassword))) {
+    throw badRequest('Some fields need attention', { fieldErrors: [{ path: 'currentPassword', message: 'This is not your current password' }] });
+  }
+  assertPasswordAcceptable(input.newPassword, { email: user.email, name: user.name }, 'newPassword');
+  await ds.getRepository(User).update({ id: user.id }, { passwordHash: await hashPassword(input.newPassword), sessionsValidFrom: new Date() });
+}
+
+/** Always answers the same way; mails a link only when the account exists. */
+export async function requestPasswordReset(ds: DataSource, mailer: Mailer, email: string, baseUrl: string): Promise<void> {
+  const user = await ds.getRepository(User).findOneBy({ email });
+  if (!user) return;
+  const { token, hash } = newSecretToken();
+  const expiresAt = new Date(Date.now() + RESET_LIFETIME_MS);
+  await ds.getRepository(PasswordResetToken).insert({ userId: user.id, tokenHash: hash, expiresAt, usedAt: null });
+  await mailer.send(passwordResetMail({ to: user.email, link: `${baseUrl}/reset-password?token=${encodeURIComponent(token)}`, expiresAt }));
+}
+
+export async function confirmPasswordReset(ds: DataSource, token: string, password: string): Promise<User> {
+  return ds.transaction(async (em) => {
+    const reset = await em
+      .getRepository(PasswordResetToken)
+      .createQueryBuilder('t')
+      .setLock('pessimistic_write')
+      .where('t.tokenHash = :h', { h: hashSecretToken(token) })
+      .getOne();
+    if (!reset || reset.usedAt || reset.expiresAt.getTime() < Date.now()) {
+      throw new AppError(400, 'This reset link is no longer valid; ask for a new one');
+    }
+    const user = await em.getRepository(User).findOneByOrFail({ id: reset.userId });
+    assertPasswordAcceptable(password, { email: user.email, name: user.name });
+    await em.getRepository(User).update({ id: user.id }, { passwordHash: await hashPassword(password), sessionsValidFrom: new Date() });
+    await em.getRepository(PasswordResetToken).update({ id: reset.id }, { usedAt: new Date() });
+    return user;
+  });
+}
