@@ -15,7 +15,7 @@ export interface TestApp {
 }
 
 /** createApp() in process against a fresh migrated database and a private SMTP sink. */
-export async function createTestApp(): Promise<TestApp> {
+export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
   const { dataSource, connection } = await migratedDataSource();
   const smtpSink = await startSmtpSink(0);
   const config = loadConfig({
@@ -27,6 +27,7 @@ export async function createTestApp(): Promise<TestApp> {
     DB_USER: connection.user,
     DB_PASSWORD: connection.password,
     PORT: '0',
+    ...env,
   });
   const app = createApp({
     config,

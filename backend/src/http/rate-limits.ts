@@ -24,4 +24,7 @@ const emailOf = (req: Request) => String(req.body?.email ?? '').trim().toLowerCa
 export const signInLimiter = () => limiter('sign-in attempts', 10, 15 * 60_000, emailOf);
 export const signUpLimiter = () => limiter('sign-ups from this address', 20, 60 * 60_000, () => '');
 export const resetLimiter = () => limiter('password reset requests', 5, 60 * 60_000, emailOf);
-export const inviteLimiter = () => limiter('invitations', 30, 60 * 60_000, (req) => req.actor?.user.id ?? '');
+export const resetConfirmLimiter = () => limiter('attempts with this reset link', 10, 60 * 60_000, (req) => String(req.body?.token ?? ''));
+/** Keyed by the session: another person's guesses never lock this account's owner out. */
+export const passwordChangeLimiter = () => limiter('password change attempts', 10, 15 * 60_000, (req) => req.sessionID ?? '');
+export const inviteLimiter = () => limiter('invitations', 30, 60 * 60_000, (req) => req.sessionID ?? '');

@@ -4,7 +4,7 @@ import { createOrganisationRequest, passwordChange, passwordResetConfirm, passwo
 import { establishSession } from '../auth/establish-session.js';
 import type { Config } from '../config.js';
 import { baseUrl } from '../http/base-url.js';
-import { resetLimiter, signUpLimiter } from '../http/rate-limits.js';
+import { passwordChangeLimiter, resetConfirmLimiter, resetLimiter, signUpLimiter } from '../http/rate-limits.js';
 import type { RouteSpec } from '../http/route-registry.js';
 import type { Mailer } from '../mail/mailer.js';
 import { changePassword, confirmPasswordReset, createOrganisation, requestPasswordReset, signUp, updateProfile } from '../services/account.service.js';
@@ -57,7 +57,7 @@ export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, an
       path: '/api/profile/password',
       access: 'signed-in',
       tenantScoped: false,
-      rateLimit: resetLimiter(),
+      rateLimit: passwordChangeLimiter(),
       body: passwordChange,
       description: 'Change your password; every other session ends, this one gets a new id',
       handler: async (req, res) => {
@@ -86,7 +86,7 @@ export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, an
       path: '/api/password-reset/confirm',
       access: 'public',
       tenantScoped: false,
-      rateLimit: resetLimiter(),
+      rateLimit: resetConfirmLimiter(),
       body: passwordResetConfirm,
       description: 'Set a new password with a reset link; every session of the account ends',
       handler: async (req, res) => {

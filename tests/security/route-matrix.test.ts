@@ -1,0 +1,188 @@
+/**
+ * The isolation matrix: every route in the app's registry × every kind of caller, with the status each must
+ * get. A route without an entry here fails the suite, so no endpoint ships without its access decided.
+ * Callers: anonymous; admin, analyst, approver, viewer of tenant A; the admin of tenant B ("other tenant");
+ * an admin of tenant A limited to client group Two ("other group", for records in group One).
+ */
+import request from 'supertest';
+import type TestAgent from 'supertest/lib/agent.js';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createApiToken } from '../../backend/src/services/api-token.service.js';
+import type { Role } from '../../shared/permissions.js';
+import { addMember, createClientGroup, createInvitation, createTenant, createUser, CSRF, signedInAgent, type TenantFixture, uniqueEmail } from '../factories/accounts.js';
+import { startGoogleFake, type GoogleFake } from '../../scripts/lib/local-services.js';
+import { createTestApp, type TestApp } from '../helpers/test-app.js';
+
+type Caller = 'anonymous' | Role | 'otherTenant' | 'otherGroup';
+const CALLERS: Caller[] = ['anonymous', 'admin', 'analyst', 'approver', 'viewer', 'otherTenant', 'otherGroup'];
+
+interface Fixture {
+  a: TenantFixture;
+  b: TenantFixture;
+  groupLimitedAdminEmail: string;
+  emails: Record<Exclude<Caller, 'anonymous'>, string>;
+}
+
+interface Entry {
+  /** Path with ids filled in; called once per request, so it can create a fresh target record. */
+  path?: (fx: Fixture) => Promise<string> | string;
+  body?: (fx: Fixture) => unknown;
+  /** The call changes the caller's session (sign-out, new account, switch): use a throwaway agent. */
+  changesSession?: boolean;
+  expect: Record<Caller, number>;
+}
+
+const all = (status: number): Record<Caller, number> => Object.fromEntries(CALLERS.map((c) => [c, status])) as Record<Caller, number>;
+const members = (ok: number, extra: Partial<Record<Caller, number>> = {}): Record<Caller, number> => ({ ...all(ok), anonymous: 401, ...extra });
+const adminsOnly = (ok: number, extra: Partial<Record<Caller, number>> = {}) =>
+  members(ok, { analyst: 403, approver: 403, viewer: 403, ...extra });
+
+const groupOne = (fx: Fixture) => fx.a.groups[0].id;
+
+const MATRIX: Record<string, Entry> = {
+  'GET /api/health': { expect: all(200) },
+  'GET /api/session': { expect: all(200) },
+  'POST /api/session': { body: () => ({ email: 'nobody@example.test', password: 'wrong password here' }), expect: all(401) },
+  'DELETE /api/session': { changesSession: true, expect: members(204) },
+  'POST /api/session/organisation': {
+    changesSession: true,
+    body: (fx) => ({ organisationId: fx.a.organisation.id }),
+    expect: members(200, { otherTenant: 404 }),
+  },
+  'POST /api/sign-up': {
+    changesSession: true,
+    body: () => ({ name: 'New Person', email: uniqueEmail('signup'), password: 'a long and unusual passphrase', organisationName: 'New Utility' }),
+    expect: all(201),
+  },
+  'POST /api/organisations': { changesSession: true, body: () => ({ name: 'Another Organisation' }), expect: members(201) },
+  'PATCH /api/profile': { body: () => ({ unitPreference: 'si' }), expect: members(200) },
+  'POST /api/profile/password': { body: () => ({ currentPassword: 'not my password', newPassword: 'a long and unusual passphrase' }), expect: members(400) },
+  'POST /api/password-reset': { body: () => ({ email: uniqueEmail('reset') }), expect: all(202) },
+  'POST /api/password-reset/confirm': { body: () => ({ token: 'not-a-real-reset-token', password: 'a long and unusual passphrase' }), expect: all(400) },
+  'GET /api/invitations': { expect: adminsOnly(200) },
+  'POST /api/invitations': { body: () => ({ email: uniqueEmail('invited'), role: 'viewer' }), expect: adminsOnly(201) },
+  'DELETE /api/invitations/:id': {
+    path: async (fx) => `/api/invitations/${(await createInvitation(ds(), fx.a.organisation.id)).invitation.id}`,
+    expect: adminsOnly(204, { otherTenant: 404 }),
+  },
+  'GET /api/invitation-links/:token': {
+    path: async (fx) => `/api/invitation-links/${(await createInvitation(ds(), fx.a.organisation.id)).token}`,
+    expect: all(200),
+  },
+  'POST /api/invitation-links/:token/accept': {
+    changesSession: true,
+    path: async (fx) => `/api/invitation-links/${(await createInvitation(ds(), fx.a.organisation.id)).token}/accept`,
+    body: () => ({ name: 'Invited Person', password: 'a long and unusual passphrase' }),
+    // Signed in as someone else, an invitation for a new address cannot be taken.
+    expect: { ...all(403), anonymous: 200 },
+  },
+  'GET /api/members': { expect: adminsOnly(200) },
+  'PATCH /api/members/:id': {
+    path: async (fx) => `/api/members/${(await addMember(ds(), fx.a.organisation.id, await createUser(ds(), 'target'), 'viewer')).id}`,
+    body: () => ({ role: 'analyst' }),
+    expect: adminsOnly(204, { otherTenant: 404 }),
+  },
+  'DELETE /api/members/:id': {
+    path: async (fx) => `/api/members/${(await addMember(ds(), fx.a.organisation.id, await createUser(ds(), 'target'), 'viewer')).id}`,
+    expect: adminsOnly(204, { otherTenant: 404 }),
+  },
+  'GET /api/client-groups': { expect: members(200) },
+  'GET /api/client-groups/:id': { path: (fx) => `/api/client-groups/${groupOne(fx)}`, expect: members(200, { otherTenant: 404, otherGroup: 404 }) },
+  'POST /api/client-groups': { body: () => ({ name: `Group ${Math.random().toString(36).slice(2)}` }), expect: adminsOnly(201) },
+  'PATCH /api/client-groups/:id': {
+    path: async (fx) => `/api/client-groups/${(await createClientGroup(ds(), fx.a.organisation.id)).id}`,
+    body: () => ({ name: `Renamed ${Math.random().toString(36).slice(2)}` }),
+    expect: adminsOnly(200, { otherTenant: 404, otherGroup: 404 }),
+  },
+  'DELETE /api/client-groups/:id': {
+    path: async (fx) => `/api/client-groups/${(await createClientGroup(ds(), fx.a.organisation.id)).id}`,
+    expect: adminsOnly(204, { otherTenant: 404, otherGroup: 404 }),
+  },
+  'GET /api/api-tokens': { expect: members(200) },
+  'POST /api/api-tokens': { body: () => ({ name: 'batch runs' }), expect: members(201) },
+  'DELETE /api/api-tokens/:id': {
+    // A token belongs to one person: nobody else may revoke it, not even an administrator.
+    path: async (fx) => {
+      const t = await createApiToken(ds(), { organisationId: fx.a.organisation.id, userId: fx.a.users.admin.id, role: 'admin', clientGroupIds: null }, 'x');
+      return `/api/api-tokens/${t.id}`;
+    },
+    expect: members(404, { admin: 204 }),
+  },
+  'GET /api/audit-events': { expect: members(200, { analyst: 403, viewer: 403 }) },
+  'GET /api/calc': { expect: members(200) },
+  'POST /api/calc/:command': { path: () => '/api/calc/saturation', body: () => ({ pressureKpa: 8 }), expect: members(200) },
+  'GET /api/auth/google': { expect: all(302) },
+  'GET /api/auth/google/callback': { expect: all(302) },
+  'GET /api/dev/mailbox': { expect: all(200) },
+};
+
+let t: TestApp;
+let google: GoogleFake;
+const ds = () => t.dataSource;
+
+describe('isolation matrix over every registered route', () => {
+  let fx: Fixture;
+  const agents = new Map<Caller, TestAgent>();
+
+  const agentFor = async (caller: Caller, fresh: boolean): Promise<TestAgent> => {
+    if (caller === 'anonymous') return request.agent(t.app);
+    if (!fresh && agents.has(caller)) return agents.get(caller)!;
+    const agent = await signedInAgent(t.app, fx.emails[caller]);
+    if (!fresh) agents.set(caller, agent);
+    return agent;
+  };
+
+  beforeAll(async () => {
+    google = await startGoogleFake(0);
+    t = await createTestApp({ GOOGLE_AUTH_URL: google.authUrl, GOOGLE_TOKEN_URL: google.tokenUrl, GOOGLE_USERINFO_URL: google.userInfoUrl });
+    const a = await createTenant(t.dataSource, 'alpha');
+    const b = await createTenant(t.dataSource, 'beta');
+    const limited = await createUser(t.dataSource, 'alpha-limited-admin');
+    await addMember(t.dataSource, a.organisation.id, limited, 'admin', [a.groups[1].id]);
+    fx = {
+      a,
+      b,
+      groupLimitedAdminEmail: limited.email,
+      emails: {
+        admin: a.users.admin.email,
+        analyst: a.users.analyst.email,
+        approver: a.users.approver.email,
+        viewer: a.users.viewer.email,
+        otherTenant: b.users.admin.email,
+        otherGroup: limited.email,
+      },
+    };
+  });
+  afterAll(async () => {
+    await t?.close();
+    await google?.stop();
+  });
+
+  it('has an entry for every registered route, and no entry for a route that does not exist', () => {
+    const registered = t.app.locals.routes.map((r) => `${r.method.toUpperCase()} ${r.path}`).sort();
+    expect(Object.keys(MATRIX).sort()).toEqual(registered);
+  });
+
+  it('marks every tenant-scoped route as needing a signed-in member', () => {
+    for (const route of t.app.locals.routes.filter((r) => r.tenantScoped)) {
+      expect(['public', 'signed-in'], `${route.method} ${route.path}`).not.toContain(route.access);
+    }
+  });
+
+  for (const [key, entry] of Object.entries(MATRIX)) {
+    it(`${key} answers each caller as decided`, async () => {
+      const [method, pattern] = key.split(' ') as [string, string];
+      const got: Partial<Record<Caller, number>> = {};
+      for (const caller of CALLERS) {
+        const agent = await agentFor(caller, !!entry.changesSession);
+        const path = entry.path ? await entry.path(fx) : pattern;
+        let req = agent[method.toLowerCase() as 'get' | 'post' | 'patch' | 'delete'](path);
+        if (method !== 'GET') req = req.set(CSRF);
+        const body = entry.body?.(fx);
+        const res = await (body === undefined ? req : req.send(body as object));
+        got[caller] = res.status;
+      }
+      expect(got).toEqual(entry.expect);
+    });
+  }
+});
