@@ -1,0 +1,227 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startGoogleFake, type GoogleFake } from '../../scripts/lib/local-services.js';
+import { addMember, createTenant, createUser, CSRF, signedInAgent, TEST_PASSWORD, uniqueEmail } from '../factories/accounts.js';
+import { createTestApp, type TestApp } from '../helpers/test-app.js';
+
+/** Waits for the SMTP sink to hold a message to `to`, and returns the link in it. */
+async function linkMailedTo(t: TestApp, to: string, pathPart: string): Promise<string> {
+  for (let i = 0; i < 50; i++) {
+    const mail = t.smtpSink.messages().find((m) => m.to.includes(to));
+    if (mail) {
+      const link = mail.text.match(new RegExp(`https?://\\S+${pathPart}\\?token=([A-Za-z0-9_%-]+)`));
+      if (!link) throw new Error(`no ${pathPart} link in: ${mail.text}`);
+      return decodeURIComponent(link[1]);
+    }
+    await new Promise((r) => setTimeout(r, 50));
+  }
+  throw new Error(`no mail to ${to}`);
+}
+
+describe('account flows', () => {
+  let t: TestApp;
+  let google: GoogleFake;
+  beforeAll(async () => {
+    google = await startGoogleFake(0);
+    t = await createTestApp({ GOOGLE_AUTH_URL: google.authUrl, GOOGLE_TOKEN_URL: google.tokenUrl, GOOGLE_USERINFO_URL: google.userInfoUrl });
+  });
+  afterAll(async () => {
+    await t?.close();
+    await google?.stop();
+  });
+
+  it('sign-up creates a person, an organisation on a 30-day trial with them as administrator, and signs them in', async () => {
+    const agent = request.agent(t.app);
+    const email = uniqueEmail('founder');
+    const res = await agent.post('/api/sign-up').set(CSRF).send({ name: 'Ada Founder', email, password: 'tube bundles need cleaning', organisationName: 'Lakeside Generating' });
+    expect(res.status).toBe(201);
+    expect(res.body.user.email).toBe(email);
+    expect(res.body.memberships).toEqual([expect.objectContaining({ organisationName: 'Lakeside Generating', role: 'admin' })]);
+    expect(res.body.permissions).toContain('members.manage');
+    const [org] = await t.dataSource.query('SELECT subscriptionStatus, trialEndsAt FROM organisation WHERE id = ?', [res.body.activeOrganisationId]);
+    expect(org.subscriptionStatus).toBe('trialing');
+    const days = (new Date(org.trialEndsAt).getTime() - Date.now()) / 86_400_000;
+    expect(days).toBeGreaterThan(29.9);
+    expect(days).toBeLessThan(30.1);
+    await agent.post('/api/sign-up').set(CSRF).send({ name: 'Again', email, password: 'tube bundles need cleaning', organisationName: 'X Co' }).expect(409);
+  });
+
+  it('refuses short and common passwords, and accepts a long passphrase (OWASP ASVS 2.1)', async () => {
+    const base = { name: 'P', organisationName: 'Org P' };
+    const short = await request(t.app).post('/api/sign-up').set(CSRF).send({ ...base, email: uniqueEmail('p'), password: 'short' });
+    expect(short.status).toBe(400);
+    expect(short.body.details.fieldErrors[0]).toEqual({ path: 'password', message: 'Use at least 8 characters' });
+    const common = await request(t.app).post('/api/sign-up').set(CSRF).send({ ...base, email: uniqueEmail('p'), password: 'password1' });
+    expect(common.status).toBe(400);
+    expect(common.body.details.fieldErrors[0].message).toMatch(/most common/);
+    const long = await request(t.app).post('/api/sign-up').set(CSRF).send({ ...base, email: uniqueEmail('p'), password: 'x'.repeat(3) + ' a very long passphrase '.repeat(20) });
+    expect(long.status).toBe(201);
+  });
+
+  it('an invitation arrives by e-mail; accepting it creates the account with the invited role', async () => {
+    const tenant = await createTenant(t.dataSource, 'invite');
+    const admin = await signedInAgent(t.app, tenant.users.admin.email);
+    const email = uniqueEmail('colleague');
+    await admin.post('/api/invitations').set(CSRF).send({ email, role: 'approver', clientGroupIds: [tenant.groups[0].id] }).expect(201);
+    const token = await linkMailedTo(t, email, '/invitation');
+
+    const offer = await request(t.app).get(`/api/invitation-links/${token}`).expect(200);
+    expect(offer.body).toMatchObject({ email, role: 'approver', organisationName: tenant.organisation.name, accountExists: false });
+
+    const colleague = request.agent(t.app);
+    const accepted = await colleague.post(`/api/invitation-links/${token}/accept`).set(CSRF).send({ name: 'Col League', password: 'condenser tubes are long' });
+    expect(accepted.status).toBe(200);
+    expect(accepted.body.user.email).toBe(email);
+    expect(accepted.body.memberships).toEqual([expect.objectContaining({ organisationId: tenant.organisation.id, role: 'approver', limitedToClientGroups: true })]);
+    const groups = await colleague.get('/api/client-groups').expect(200);
+    expect(groups.body.clientGroups.map((g: { id: string }) => g.id)).toEqual([tenant.groups[0].id]);
+
+    await request(t.app).post(`/api/invitation-links/${token}/accept`).set(CSRF).send({ name: 'Again', password: 'condenser tubes are long' }).expect(404);
+    const audit = await admin.get('/api/audit-events?action=invitation').expect(200);
+    expect(audit.body.events.map((e: { action: string }) => e.action)).toEqual(['invitation.accepted', 'invitation.sent']);
+  });
+
+  it('an invitation for an existing account links it after that person signs in', async () => {
+    const tenant = await createTenant(t.dataSource, 'link');
+    const outsider = await createUser(t.dataSource, 'outsider');
+    const admin = await signedInAgent(t.app, tenant.users.admin.email);
+    await admin.post('/api/invitations').set(CSRF).send({ email: outsider.email, role: 'viewer' }).expect(201);
+    const token = await linkMailedTo(t, outsider.email, '/invitation');
+    await request(t.app).post(`/api/invitation-links/${token}/accept`).set(CSRF).send({}).expect(401);
+    const agent = await signedInAgent(t.app, outsider.email);
+    const res = await agent.post(`/api/invitation-links/${token}/accept`).set(CSRF).send({}).expect(200);
+    expect(res.body.activeOrganisationId).toBe(tenant.organisation.id);
+    expect(res.body.memberships.map((m: { role: string }) => m.role)).toEqual(['viewer']);
+  });
+
+  it('password reset by e-mail: the link sets a new password once, and the old one stops working', async () => {
+    const user = await createUser(t.dataSource, 'forgetful');
+    const before = await signedInAgent(t.app, user.email);
+    await request(t.app).post('/api/password-reset').set(CSRF).send({ email: user.email }).expect(202);
+    const token = await linkMailedTo(t, user.email, '/reset-password');
+    await request(t.app).post('/api/password-reset/confirm').set(CSRF).send({ token, password: 'a fresh start for the pumps' }).expect(204);
+    await request(t.app).post('/api/password-reset/confirm').set(CSRF).send({ token, password: 'another try at this one' }).expect(400);
+    expect((await before.get('/api/session')).body.user).toBeNull();
+    await request(t.app).post('/api/session').set(CSRF).send({ email: user.email, password: TEST_PASSWORD }).expect(401);
+    await request(t.app).post('/api/session').set(CSRF).send({ email: user.email, password: 'a fresh start for the pumps' }).expect(200);
+  });
+
+  it('a reset for an unknown address answers exactly like one for a known address and sends nothing', async () => {
+    const count = t.smtpSink.messages().length;
+    const res = await request(t.app).post('/api/password-reset').set(CSRF).send({ email: 'ghost@example.test' });
+    expect(res.status).toBe(202);
+    expect(res.body).toEqual({ message: 'If an account uses this e-mail, a reset link is on its way.' });
+    await new Promise((r) => setTimeout(r, 200));
+    expect(t.smtpSink.messages().length).toBe(count);
+  });
+
+  it('Google sign-in end to end against the local fake: new person, then the same person again', async () => {
+    const email = uniqueEmail('googler');
+    google.setNextUser({ sub: `g-${email}`, email, name: 'Gail Googler' });
+    const agent = request.agent(t.app);
+    const start = await agent.get('/api/auth/google').expect(302);
+    const authorize = new URL(start.headers.location);
+    expect(authorize.origin + authorize.pathname).toBe(google.authUrl);
+    expect(authorize.searchParams.get('client_id')).toBe(t.config.GOOGLE_CLIENT_ID);
+    const consent = await request(authorize.origin).get(authorize.pathname + authorize.search).redirects(0);
+    expect(consent.status).toBe(302);
+    const back = new URL(consent.headers.location);
+    expect(back.pathname).toBe('/api/auth/google/callback');
+    expect(back.searchParams.get('state')).toBe(authorize.searchParams.get('state'));
+    const done = await agent.get(back.pathname + back.search).expect(302);
+    expect(done.headers.location).toBe('/');
+    const session = await agent.get('/api/session').expect(200);
+    expect(session.body.user).toMatchObject({ email, name: 'Gail Googler' });
+    expect(session.body.memberships).toEqual([]);
+    const [row] = await t.dataSource.query('SELECT googleSub FROM user WHERE email = ?', [email]);
+    expect(row.googleSub).toBe(`g-${email}`);
+  });
+
+  it('Google sign-in with a forged state is refused and signs nobody in', async () => {
+    const agent = request.agent(t.app);
+    await agent.get('/api/auth/google').expect(302);
+    const res = await agent.get('/api/auth/google/callback?code=forged&state=not-the-state').expect(302);
+    expect(res.headers.location).toBe('/sign-in?google=failed');
+    expect((await agent.get('/api/session')).body.user).toBeNull();
+  });
+
+  it('a consultant switches tenant and then sees only that tenant’s records', async () => {
+    const a = await createTenant(t.dataSource, 'client-a');
+    const b = await createTenant(t.dataSource, 'client-b');
+    const consultant = await createUser(t.dataSource, 'consultant');
+    await addMember(t.dataSource, a.organisation.id, consultant, 'analyst');
+    await addMember(t.dataSource, b.organisation.id, consultant, 'analyst');
+    const agent = await signedInAgent(t.app, consultant.email);
+    const switched = await agent.post('/api/session/organisation').set(CSRF).send({ organisationId: b.organisation.id }).expect(200);
+    expect(switched.body.activeOrganisationId).toBe(b.organisation.id);
+    const groups = (await agent.get('/api/client-groups')).body.clientGroups.map((g: { id: string }) => g.id).sort();
+    expect(groups).toEqual(b.groups.map((g) => g.id).sort());
+    await agent.get(`/api/client-groups/${a.groups[0].id}`).expect(404);
+    const outsider = await createTenant(t.dataSource, 'not-mine');
+    await agent.post('/api/session/organisation').set(CSRF).send({ organisationId: outsider.organisation.id }).expect(404);
+  });
+
+  it('keeps one unrestricted administrator: the last one cannot be demoted, limited or removed', async () => {
+    const tenant = await createTenant(t.dataSource, 'lastadmin');
+    const admin = await signedInAgent(t.app, tenant.users.admin.email);
+    const adminMembership = tenant.memberships.admin.id;
+    const demote = await admin.patch(`/api/members/${adminMembership}`).set(CSRF).send({ role: 'viewer' });
+    expect(demote.status).toBe(409);
+    await admin.patch(`/api/members/${adminMembership}`).set(CSRF).send({ clientGroupIds: [tenant.groups[0].id] }).expect(409);
+    await admin.delete(`/api/members/${adminMembership}`).set(CSRF).expect(409);
+    await admin.patch(`/api/members/${tenant.memberships.viewer.id}`).set(CSRF).send({ role: 'admin' }).expect(204);
+    await admin.patch(`/api/members/${adminMembership}`).set(CSRF).send({ role: 'analyst' }).expect(204);
+    const members = await signedInAgent(t.app, tenant.users.viewer.email).then((a) => a.get('/api/members'));
+    expect(members.body.members.find((m: { membershipId: string }) => m.membershipId === adminMembership).role).toBe('analyst');
+  });
+
+  it('a personal API token calls the calculation API without a session or CSRF header, and nothing else', async () => {
+    const tenant = await createTenant(t.dataSource, 'tokens');
+    const analyst = await signedInAgent(t.app, tenant.users.analyst.email);
+    const created = await analyst.post('/api/api-tokens').set(CSRF).send({ name: 'nightly batch' }).expect(201);
+    const token: string = created.body.token;
+    expect(token).toMatch(/^cct_/);
+    const [stored] = await t.dataSource.query('SELECT tokenHash FROM api_token WHERE id = ?', [created.body.id]);
+    expect(stored.tokenHash).not.toContain(token.slice(4));
+
+    const calc = await request(t.app).post('/api/calc/saturation').set('Authorization', `Bearer ${token}`).send([{ pressureKpa: 8 }, { pressureKpa: -1 }]);
+    expect(calc.status).toBe(422);
+    expect(calc.body[0].temperatureC).toBeCloseTo(41.51, 2); // IF97 region 4 at 8 kPa: Tsat = 41.51 °C (from memory; checked in tests/reference)
+    expect(calc.body[1].error).toBeTruthy();
+    await request(t.app).get('/api/members').set('Authorization', `Bearer ${token}`).expect(403);
+    await request(t.app).get('/api/calc').set('Authorization', 'Bearer cct_not-a-token').expect(401);
+
+    await analyst.delete(`/api/api-tokens/${created.body.id}`).set(CSRF).expect(204);
+    await request(t.app).get('/api/calc').set('Authorization', `Bearer ${token}`).expect(401);
+  });
+
+  it('a member limited to one client group sees only that group, and a group they are not in answers 404', async () => {
+    const tenant = await createTenant(t.dataSource, 'limited');
+    const limitedUser = await createUser(t.dataSource, 'limited-viewer');
+    await addMember(t.dataSource, tenant.organisation.id, limitedUser, 'viewer', [tenant.groups[1].id]);
+    const agent = await signedInAgent(t.app, limitedUser.email);
+    const list = await agent.get('/api/client-groups').expect(200);
+    expect(list.body.clientGroups.map((g: { name: string }) => g.name)).toEqual(['Group Two']);
+    await agent.get(`/api/client-groups/${tenant.groups[0].id}`).expect(404);
+    await agent.get(`/api/client-groups/${tenant.groups[1].id}`).expect(200);
+  });
+
+  it('the audit log filters by action, person and record type, newest first, within the tenant only', async () => {
+    const tenant = await createTenant(t.dataSource, 'audit');
+    const other = await createTenant(t.dataSource, 'audit-other');
+    const admin = await signedInAgent(t.app, tenant.users.admin.email);
+    const otherAdmin = await signedInAgent(t.app, other.users.admin.email);
+    await admin.post('/api/client-groups').set(CSRF).send({ name: 'Ridge Clients' }).expect(201);
+    await otherAdmin.post('/api/client-groups').set(CSRF).send({ name: 'Secret Clients' }).expect(201);
+    await admin.patch(`/api/members/${tenant.memberships.viewer.id}`).set(CSRF).send({ role: 'analyst' }).expect(204);
+    const all = (await admin.get('/api/audit-events').expect(200)).body.events;
+    expect(all.map((e: { action: string }) => e.action)).toEqual(['member.updated', 'client-group.created']);
+    expect(JSON.stringify(all)).not.toContain('Secret Clients');
+    const groupsOnly = (await admin.get('/api/audit-events?entityType=client-group').expect(200)).body.events;
+    expect(groupsOnly).toHaveLength(1);
+    expect(groupsOnly[0]).toMatchObject({ userName: tenant.users.admin.name, details: { name: 'Ridge Clients' } });
+    const byPerson = (await admin.get(`/api/audit-events?userId=${tenant.users.viewer.id}`).expect(200)).body.events;
+    expect(byPerson).toEqual([]);
+    await admin.get('/api/audit-events?from=not-a-date').expect(400);
+  });
+});
