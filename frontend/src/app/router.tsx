@@ -1,26 +1,122 @@
-import { createBrowserRouter, redirect, RouterProvider } from 'react-router-dom';
+import type { EnsureQueryDataOptions, QueryKey } from '@tanstack/react-query';
+import { createBrowserRouter, redirect, RouterProvider, type LoaderFunctionArgs } from 'react-router-dom';
+import type { Permission } from '@shared/permissions';
+import type { SessionResponse } from '@shared/schemas/session';
 import { RouteErrorPage } from '@frontend/components/ui/error-boundary';
+import { apiTokensQueryOptions } from '@frontend/features/api-tokens/api/get-api-tokens';
+import { auditEventsQueryOptions } from '@frontend/features/audit/api/get-audit-events';
+import { clientGroupsQueryOptions } from '@frontend/features/client-groups/api/get-client-groups';
+import { mailboxQueryOptions } from '@frontend/features/dev-mailbox/api/get-mailbox';
+import { invitationsQueryOptions } from '@frontend/features/members/api/get-invitations';
+import { membersQueryOptions } from '@frontend/features/members/api/get-members';
+import { invitationLinkQueryOptions } from '@frontend/features/session/api/get-invitation-link';
 import { sessionQueryOptions } from '@frontend/features/session/api/get-session';
+import { signInReturningTo } from '@frontend/lib/safe-next';
 import { appQueryClient } from './app-query-client';
 import { AppLayout } from './routes/app-layout';
+import { ForgotPasswordPage } from './routes/forgot-password';
+import { InvitationPage } from './routes/invitation';
+import { MailboxPage } from './routes/mailbox';
 import { NotFoundPage } from './routes/not-found';
 import { OverviewPage } from './routes/overview';
+import { ResetPasswordPage } from './routes/reset-password';
+import { ApiTokensSettingsPage } from './routes/settings-api-tokens';
+import { AuditSettingsPage, auditFiltersFrom } from './routes/settings-audit';
+import { ClientGroupsSettingsPage } from './routes/settings-client-groups';
+import { SettingsLayout } from './routes/settings-layout';
+import { MembersSettingsPage } from './routes/settings-members';
+import { ProfileSettingsPage } from './routes/settings-profile';
 import { SignInPage } from './routes/sign-in';
+import { SignUpPage } from './routes/sign-up';
 
-async function requireSignedIn() {
-  const session = await appQueryClient.ensureQueryData(sessionQueryOptions());
-  if (!session.user) throw redirect('/sign-in');
-  return session;
+const session = () => appQueryClient.ensureQueryData(sessionQueryOptions());
+
+async function requireSignedIn({ request }: LoaderFunctionArgs) {
+  const current = await session();
+  if (!current.user) {
+    const url = new URL(request.url);
+    throw redirect(url.pathname === '/' ? '/sign-in' : signInReturningTo(`${url.pathname}${url.search}`));
+  }
+  return null;
+}
+
+/**
+ * Warms the cache before the page renders. Failures are left to the page, which shows them in place
+ * (with a retry) instead of replacing the whole screen.
+ */
+function prefetch<T, K extends QueryKey>(options: EnsureQueryDataOptions<T, Error, T, K>) {
+  return appQueryClient.ensureQueryData(options).catch(() => undefined);
+}
+
+/** A loader for an organisation page: prefetches only what the active role may read. */
+function tenantLoader(needs: Permission, load: (organisationId: string, args: LoaderFunctionArgs) => Promise<unknown>[]) {
+  return async (args: LoaderFunctionArgs) => {
+    const current: SessionResponse = await session();
+    if (current.activeOrganisationId && current.permissions.includes(needs)) await Promise.all(load(current.activeOrganisationId, args));
+    return null;
+  };
 }
 
 const router = createBrowserRouter([
   { path: '/sign-in', element: <SignInPage />, errorElement: <RouteErrorPage /> },
+  { path: '/sign-up', element: <SignUpPage />, errorElement: <RouteErrorPage /> },
+  { path: '/forgot-password', element: <ForgotPasswordPage />, errorElement: <RouteErrorPage /> },
+  { path: '/reset-password', element: <ResetPasswordPage />, errorElement: <RouteErrorPage /> },
+  {
+    path: '/invitation',
+    element: <InvitationPage />,
+    errorElement: <RouteErrorPage />,
+    loader: async ({ request }) => {
+      const token = new URL(request.url).searchParams.get('token');
+      await Promise.all([session().catch(() => undefined), token ? prefetch(invitationLinkQueryOptions(token)) : undefined]);
+      return null;
+    },
+  },
+  {
+    path: '/mailbox',
+    element: <MailboxPage />,
+    errorElement: <RouteErrorPage />,
+    loader: async () => {
+      const current = await session().catch(() => undefined);
+      if (current?.devMailbox) await prefetch(mailboxQueryOptions());
+      return null;
+    },
+  },
   {
     path: '/',
     element: <AppLayout />,
     loader: requireSignedIn,
     errorElement: <RouteErrorPage />,
-    children: [{ index: true, element: <OverviewPage /> }],
+    children: [
+      { index: true, element: <OverviewPage /> },
+      {
+        path: 'settings',
+        element: <SettingsLayout />,
+        children: [
+          { index: true, loader: () => redirect('/settings/profile') },
+          { path: 'profile', element: <ProfileSettingsPage /> },
+          {
+            path: 'members',
+            element: <MembersSettingsPage />,
+            loader: tenantLoader('members.manage', (org) => [
+              prefetch(membersQueryOptions(org)),
+              prefetch(invitationsQueryOptions(org)),
+              prefetch(clientGroupsQueryOptions(org)),
+            ]),
+          },
+          { path: 'client-groups', element: <ClientGroupsSettingsPage />, loader: tenantLoader('data.read', (org) => [prefetch(clientGroupsQueryOptions(org))]) },
+          { path: 'api-tokens', element: <ApiTokensSettingsPage />, loader: tenantLoader('calc.use', (org) => [prefetch(apiTokensQueryOptions(org))]) },
+          {
+            path: 'audit',
+            element: <AuditSettingsPage />,
+            loader: tenantLoader('audit.read', (org, { request }) => [
+              prefetch(auditEventsQueryOptions(org, auditFiltersFrom(new URL(request.url).searchParams))),
+              prefetch(auditEventsQueryOptions(org, {})),
+            ]),
+          },
+        ],
+      },
+    ],
   },
   { path: '*', element: <NotFoundPage /> },
 ]);

@@ -1,48 +1,48 @@
-import { useState, type FormEvent } from 'react';
-import { useNavigate } from 'react-router-dom';
-import { signInRequest } from '@shared/schemas/session';
-import { Button } from '@frontend/components/ui/button';
-import { TextField } from '@frontend/components/ui/text-field';
-import { useSignIn } from '@frontend/features/session/api/sign-in';
+import { Link, useNavigate, useSearchParams } from 'react-router-dom';
+import { Notice } from '@frontend/components/ui/notice';
+import { linkClass, PublicPage } from '@frontend/components/ui/public-page';
+import { useSession } from '@frontend/features/session/api/get-session';
+import { SignInForm } from '@frontend/features/session/components/sign-in-form';
+import { safeNextPath } from '@frontend/lib/safe-next';
 
 export function SignInPage() {
   const navigate = useNavigate();
-  const signIn = useSignIn();
-  const [fieldErrors, setFieldErrors] = useState<Record<string, string>>({});
-
-  const onSubmit = (event: FormEvent<HTMLFormElement>) => {
-    event.preventDefault();
-    const form = new FormData(event.currentTarget);
-    const parsed = signInRequest.safeParse({ email: String(form.get('email') ?? '').trim(), password: String(form.get('password') ?? '') });
-    if (!parsed.success) {
-      setFieldErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])));
-      return;
-    }
-    setFieldErrors({});
-    signIn.mutate(parsed.data, { onSuccess: () => navigate('/') });
-  };
+  const [params] = useSearchParams();
+  const { data: session } = useSession();
+  const next = safeNextPath(params.get('next'));
+  const googleFailed = params.get('google') === 'failed';
 
   return (
-    <main className="flex min-h-screen items-center justify-center p-4">
-      <div className="w-full max-w-sm">
-        <p className="mb-1 text-2xl font-semibold tracking-tight">
-          Clean<span className="text-tube-600">case</span>
-        </p>
-        <p className="mb-6 text-sm text-ink-soft">Condenser cleanliness, its cost, and when cleaning pays.</p>
-        <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4 rounded border border-rule bg-paper-raised p-5">
-          <h1>Sign in</h1>
-          <TextField label="E-mail" name="email" type="email" autoComplete="username" error={fieldErrors.email} />
-          <TextField label="Password" name="password" type="password" autoComplete="current-password" error={fieldErrors.password} />
-          {signIn.isError && (
-            <p role="alert" className="text-sm text-fault">
-              {signIn.error.message}
-            </p>
+    <PublicPage
+      footer={
+        <>
+          <Link className={linkClass} to="/sign-up">
+            Create an account
+          </Link>
+          <Link className={linkClass} to="/forgot-password">
+            Forgot your password?
+          </Link>
+          {session?.devMailbox && (
+            <Link className={`${linkClass} ml-auto`} to="/mailbox">
+              Local mailbox
+            </Link>
           )}
-          <Button type="submit" disabled={signIn.isPending}>
-            {signIn.isPending ? 'Signing in…' : 'Sign in'}
-          </Button>
-        </form>
+        </>
+      }
+    >
+      {googleFailed && <Notice tone="fault">Signing in with Google did not work. Try again, or use your e-mail and password.</Notice>}
+      {next && <p className="text-sm text-ink-soft">Sign in to continue; you go back to where you were afterwards.</p>}
+      <SignInForm onSignedIn={() => navigate(next ?? '/')} />
+      <div className="flex items-center gap-3 text-xs text-ink-faint" aria-hidden>
+        <span className="h-px flex-1 bg-rule" />
+        or
+        <span className="h-px flex-1 bg-rule" />
       </div>
-    </main>
+      {/* A plain link: the server redirects to Google (or its local stand-in) and back. */}
+      <a href="/api/auth/google" className="inline-flex items-center justify-center gap-2 rounded border border-rule bg-paper-raised px-3 py-1.5 text-sm font-medium text-ink hover:bg-paper-sunk">
+        <span aria-hidden className="font-bold text-tube-600">G</span>
+        Sign in with Google
+      </a>
+    </PublicPage>
   );
 }

@@ -1,4 +1,4 @@
-import type { ButtonHTMLAttributes } from 'react';
+import type { ButtonHTMLAttributes, Ref } from 'react';
 
 type Variant = 'primary' | 'quiet' | 'danger';
 
@@ -8,9 +8,17 @@ const styles: Record<Variant, string> = {
   danger: 'bg-fault text-white hover:opacity-90 disabled:bg-ink-faint',
 };
 
-export function Button({ variant = 'primary', className = '', ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant }) {
+export function Button({
+  variant = 'primary',
+  className = '',
+  type = 'button',
+  ref,
+  ...props
+}: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant; ref?: Ref<HTMLButtonElement> }) {
   return (
     <button
+      ref={ref}
+      type={type}
       {...props}
       className={`inline-flex items-center justify-center gap-2 rounded px-3 py-1.5 text-sm font-medium disabled:cursor-not-allowed ${styles[variant]} ${className}`}
     />

@@ -1,0 +1,30 @@
+import { useSearchParams } from 'react-router-dom';
+import { whyNot } from '@shared/permissions';
+import { NoOrganisation, NotPermitted } from '@frontend/components/ui/not-permitted';
+import type { AuditFilters } from '@frontend/features/audit/api/get-audit-events';
+import { AuditLog } from '@frontend/features/audit/components/audit-log';
+import { useSession } from '@frontend/features/session/api/get-session';
+
+const FILTER_KEYS = ['action', 'userId', 'entityType', 'from', 'to'] as const;
+
+/** The filters live in the address, so a filtered view can be bookmarked, shared or printed. */
+export function auditFiltersFrom(params: URLSearchParams): AuditFilters {
+  return Object.fromEntries(FILTER_KEYS.flatMap((k) => (params.get(k) ? [[k, params.get(k)!]] : [])));
+}
+
+export function AuditSettingsPage() {
+  const { data: session } = useSession();
+  const [params, setParams] = useSearchParams();
+  const organisationId = session?.activeOrganisationId;
+  if (!session?.user || !organisationId) return <NoOrganisation />;
+  if (!session.permissions.includes('audit.read')) return <NotPermitted what="The audit log" reason={whyNot('audit.read')} />;
+  return (
+    <section className="flex flex-col gap-4">
+      <div>
+        <h1>Audit log</h1>
+        <p className="mt-1 text-sm text-ink-soft">Who changed what in this organisation, newest first.</p>
+      </div>
+      <AuditLog organisationId={organisationId} filters={auditFiltersFrom(params)} onFiltersChange={(f) => setParams(f as Record<string, string>)} />
+    </section>
+  );
+}

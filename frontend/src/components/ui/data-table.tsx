@@ -1,0 +1,21 @@
+import type { ReactNode } from 'react';
+
+/** Cell classes shared by every table, so lists read alike and print cleanly. */
+export const th = 'px-3 py-2 text-left text-xs font-medium uppercase tracking-wide text-ink-soft';
+export const td = 'px-3 py-2 align-top';
+export const tr = 'border-b border-rule last:border-0';
+
+/** A bordered, horizontally scrollable table with a sunk header row. */
+export function DataTable({ head, children, caption }: { head: ReactNode; children: ReactNode; caption?: string }) {
+  return (
+    <div className="overflow-x-auto rounded border border-rule bg-paper-raised">
+      <table className="w-full text-sm">
+        {caption && <caption className="sr-only">{caption}</caption>}
+        <thead className="border-b border-rule bg-paper-sunk">
+          <tr>{head}</tr>
+        </thead>
+        <tbody>{children}</tbody>
+      </table>
+    </div>
+  );
+}

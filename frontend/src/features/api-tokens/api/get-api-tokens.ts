@@ -1,0 +1,11 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { ApiTokenView } from '@shared/schemas/accounts';
+import { api } from '@frontend/lib/api-client';
+
+export const apiTokensQueryOptions = (organisationId: string) =>
+  queryOptions({
+    queryKey: ['organisations', organisationId, 'api-tokens'],
+    queryFn: () => api<{ apiTokens: ApiTokenView[] }>('/api/api-tokens').then((r) => r.apiTokens),
+  });
+
+export const useApiTokens = (organisationId: string) => useQuery(apiTokensQueryOptions(organisationId));

@@ -1,0 +1,26 @@
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import type { AuditEventView } from '@shared/schemas/accounts';
+import { api } from '@frontend/lib/api-client';
+
+export interface AuditFilters {
+  action?: string;
+  userId?: string;
+  entityType?: string;
+  from?: string;
+  to?: string;
+}
+
+const toSearch = (f: AuditFilters) =>
+  new URLSearchParams(Object.entries(f).filter((e): e is [string, string] => typeof e[1] === 'string' && e[1] !== '')).toString();
+
+export const auditEventsQueryOptions = (organisationId: string, filters: AuditFilters) =>
+  queryOptions({
+    queryKey: ['organisations', organisationId, 'audit-events', filters],
+    queryFn: () => {
+      const search = toSearch(filters);
+      return api<{ events: AuditEventView[] }>(`/api/audit-events${search ? `?${search}` : ''}`).then((r) => r.events);
+    },
+    placeholderData: keepPreviousData,
+  });
+
+export const useAuditEvents = (organisationId: string, filters: AuditFilters) => useQuery(auditEventsQueryOptions(organisationId, filters));

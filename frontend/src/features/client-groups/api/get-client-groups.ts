@@ -1,0 +1,12 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { ClientGroupView } from '@shared/schemas/accounts';
+import { api } from '@frontend/lib/api-client';
+
+/** Keyed by organisation, so one tenant's groups can never be read from the cache under another. */
+export const clientGroupsQueryOptions = (organisationId: string) =>
+  queryOptions({
+    queryKey: ['organisations', organisationId, 'client-groups'],
+    queryFn: () => api<{ clientGroups: ClientGroupView[] }>('/api/client-groups').then((r) => r.clientGroups),
+  });
+
+export const useClientGroups = (organisationId: string) => useQuery(clientGroupsQueryOptions(organisationId));

@@ -1,0 +1,11 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { MemberView } from '@shared/schemas/accounts';
+import { api } from '@frontend/lib/api-client';
+
+export const membersQueryOptions = (organisationId: string) =>
+  queryOptions({
+    queryKey: ['organisations', organisationId, 'members'],
+    queryFn: () => api<{ members: MemberView[] }>('/api/members').then((r) => r.members),
+  });
+
+export const useMembers = (organisationId: string) => useQuery(membersQueryOptions(organisationId));

@@ -1,0 +1,13 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { SessionResponse } from '@shared/schemas/session';
+import { api } from '@frontend/lib/api-client';
+import { sessionQueryOptions } from './get-session';
+
+/** Other sessions of the account end; this one continues under a new id. */
+export function useChangePassword() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (body: { currentPassword: string; newPassword: string }) => api<SessionResponse>('/api/profile/password', { method: 'POST', body }),
+    onSuccess: (session) => queryClient.setQueryData(sessionQueryOptions().queryKey, session),
+  });
+}
