@@ -131,65 +131,69 @@ export class RowConverter {
         return false;
       }
     }
-    let ok = true;
+    this.rowOk = true;
     const tsText = cells[this.m.timestampIndex];
     const ts = this.timestamps.parse(tsText);
     if (Number.isNaN(ts)) {
       errors.add(line, headers[this.m.timestampIndex], tsText, `bad timestamp: ${this.timestamps.error}`);
-      ok = false;
+      this.rowOk = false;
     }
     out[F.timestampUtc] = ts;
     out[F.line] = line;
 
-    const read = (q: ImportQuantity, required: boolean): number => {
-      const i = index[q];
-      if (i === undefined) return Number.NaN;
-      const raw = cells[i];
-      const text = raw.trim();
-      if (text === '') {
-        if (required) {
-          errors.add(line, headers[i], raw, `missing value: ${REQUIRED_LABEL[q] ?? q} is required in every row`);
-          ok = false;
-        }
-        return Number.NaN;
-      }
-      if (!this.numberPattern.test(text)) {
-        errors.add(line, headers[i], raw, `not a number${this.comma ? ' (decimal comma expected)' : ''}`);
-        ok = false;
-        return Number.NaN;
-      }
-      return Number(this.comma ? text.replace(',', '.') : text);
-    };
     const c = mapping.columns;
-    const load = read('grossLoad', true);
-    const t1 = read('cwInletTemperature', true);
-    const t2 = read('cwOutletTemperature', true);
+    const load = this.readNumber(cells, line, errors, 'grossLoad', true);
+    const t1 = this.readNumber(cells, line, errors, 'cwInletTemperature', true);
+    const t2 = this.readNumber(cells, line, errors, 'cwOutletTemperature', true);
     out[F.loadMw] = powerToMw(load, c.grossLoad!.unit);
     out[F.cwInletC] = temperatureToC(t1, c.cwInletTemperature!.unit);
     out[F.cwOutletC] = temperatureToC(t2, c.cwOutletTemperature!.unit);
 
-    const baro = read('barometer', !!c.condenserVacuum && !mapping.fixedBarometer);
+    const baro = this.readNumber(cells, line, errors, 'barometer', !!c.condenserVacuum && !mapping.fixedBarometer);
     out[F.barometerKpa] = c.barometer ? pressureToKpa(baro, c.barometer.unit) : Number.NaN;
     if (c.backpressure) {
-      out[F.backpressureKpa] = pressureToKpa(read('backpressure', true), c.backpressure.unit);
+      out[F.backpressureKpa] = pressureToKpa(this.readNumber(cells, line, errors, 'backpressure', true), c.backpressure.unit);
     } else {
-      const vacuumKpa = pressureToKpa(read('condenserVacuum', true), c.condenserVacuum!.unit);
+      const vacuumKpa = pressureToKpa(this.readNumber(cells, line, errors, 'condenserVacuum', true), c.condenserVacuum!.unit);
       const baroKpa = c.barometer && !Number.isNaN(out[F.barometerKpa])
         ? out[F.barometerKpa]
         : pressureToKpa(mapping.fixedBarometer!.value, mapping.fixedBarometer!.unit);
       out[F.backpressureKpa] = baroKpa - vacuumKpa;
     }
     if (c.cwFlow) {
-      const flow = read('cwFlow', true);
+      const flow = this.readNumber(cells, line, errors, 'cwFlow', true);
       out[F.cwFlowM3s] = Number.isNaN(flow) ? Number.NaN : cwFlowToM3s(flow, c.cwFlow.unit, out[F.cwInletC]);
     } else {
       out[F.cwFlowM3s] = mapping.designCwFlowM3s!;
     }
-    out[F.hotwellC] = c.hotwellTemperature ? temperatureToC(read('hotwellTemperature', false), c.hotwellTemperature.unit) : Number.NaN;
-    out[F.dissolvedOxygenPpb] = c.dissolvedOxygen ? dissolvedOxygenToPpb(read('dissolvedOxygen', false), c.dissolvedOxygen.unit) : Number.NaN;
-    out[F.airRemovalKgS] = c.airRemovalFlow ? massFlowToKgS(read('airRemovalFlow', false), c.airRemovalFlow.unit) : Number.NaN;
-    out[F.cwDifferentialPressureKpa] = c.cwDifferentialPressure ? pressureToKpa(read('cwDifferentialPressure', false), c.cwDifferentialPressure.unit) : Number.NaN;
-    out[F.condensateFlowKgS] = c.condensateFlow ? massFlowToKgS(read('condensateFlow', false), c.condensateFlow.unit) : Number.NaN;
-    return ok;
+    out[F.hotwellC] = c.hotwellTemperature ? temperatureToC(this.readNumber(cells, line, errors, 'hotwellTemperature', false), c.hotwellTemperature.unit) : Number.NaN;
+    out[F.dissolvedOxygenPpb] = c.dissolvedOxygen ? dissolvedOxygenToPpb(this.readNumber(cells, line, errors, 'dissolvedOxygen', false), c.dissolvedOxygen.unit) : Number.NaN;
+    out[F.airRemovalKgS] = c.airRemovalFlow ? massFlowToKgS(this.readNumber(cells, line, errors, 'airRemovalFlow', false), c.airRemovalFlow.unit) : Number.NaN;
+    out[F.cwDifferentialPressureKpa] = c.cwDifferentialPressure ? pressureToKpa(this.readNumber(cells, line, errors, 'cwDifferentialPressure', false), c.cwDifferentialPressure.unit) : Number.NaN;
+    out[F.condensateFlowKgS] = c.condensateFlow ? massFlowToKgS(this.readNumber(cells, line, errors, 'condensateFlow', false), c.condensateFlow.unit) : Number.NaN;
+    return this.rowOk;
+  }
+
+  private rowOk = true;
+
+  /** The number in a mapped cell, NaN when empty (an error if required) or not a number (an error). */
+  private readNumber(cells: string[], line: number, errors: RowErrorList, q: ImportQuantity, required: boolean): number {
+    const i = this.m.index[q];
+    if (i === undefined) return Number.NaN;
+    const raw = cells[i];
+    const text = raw.trim();
+    if (text === '') {
+      if (required) {
+        errors.add(line, this.m.headers[i], raw, `missing value: ${REQUIRED_LABEL[q] ?? q} is required in every row`);
+        this.rowOk = false;
+      }
+      return Number.NaN;
+    }
+    if (!this.numberPattern.test(text)) {
+      errors.add(line, this.m.headers[i], raw, `not a number${this.comma ? ' (decimal comma expected)' : ''}`);
+      this.rowOk = false;
+      return Number.NaN;
+    }
+    return Number(this.comma ? text.replace(',', '.') : text);
   }
 }

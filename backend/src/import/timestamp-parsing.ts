@@ -9,13 +9,12 @@
  * is a file error; a wall time in the repeated autumn hour is read by the mapping's `repeatedHour` rule
  * (default by-file-order: the first pass through the hour is daylight time, a repeat after the clock
  * went back is standard time, which needs the file to be in time order through that hour).
- * Zone offsets come from the runtime's time-zone database through luxon, cached per local hour.
+ * Zone offsets come from the runtime's time-zone database through luxon, cached per local day.
  */
 import { IANAZone } from 'luxon';
 import type { ImportTimestamp } from '@shared/schemas/import-mapping.js';
 
 const MS_PER_MIN = 60_000;
-const MS_PER_HOUR = 3_600_000;
 const MS_PER_DAY = 86_400_000;
 /** Excel serial of 1970-01-01 in the 1900 date system (epoch 1899-12-30). */
 const EXCEL_SERIAL_UNIX_EPOCH = 25_569;
@@ -35,14 +34,14 @@ function naiveMs(y: number, mo: number, d: number, h: number, mi: number, s: num
   return Date.UTC(y, mo - 1, d, h, mi, s) + ms;
 }
 
-type HourResolution =
+type DayResolution =
   | { kind: 'single'; offsetMin: number }
   | { kind: 'gap' }
   | { kind: 'overlap'; earlierUtcShiftMin: number; laterUtcShiftMin: number }
   | { kind: 'mixed' };
 
 /** UTC instants whose wall clock in `zone` equals `naive` (0 in a gap, 2 in a repeated hour). */
-function resolveWallClock(zone: IANAZone, naive: number): Exclude<HourResolution, { kind: 'mixed' }> {
+function resolveWallClock(zone: IANAZone, naive: number): Exclude<DayResolution, { kind: 'mixed' }> {
   const candidates = new Set([zone.offset(naive - MS_PER_DAY), zone.offset(naive), zone.offset(naive + MS_PER_DAY)]);
   const valid: number[] = [];
   for (const o of candidates) if (zone.offset(naive - o * MS_PER_MIN) === o) valid.push(o);
@@ -52,7 +51,7 @@ function resolveWallClock(zone: IANAZone, naive: number): Exclude<HourResolution
   return { kind: 'overlap', earlierUtcShiftMin: Math.max(...valid), laterUtcShiftMin: Math.min(...valid) };
 }
 
-const sameResolution = (a: HourResolution, b: HourResolution): boolean =>
+const sameResolution = (a: DayResolution, b: DayResolution): boolean =>
   a.kind === b.kind &&
   (a.kind !== 'single' || a.offsetMin === (b as typeof a).offsetMin) &&
   (a.kind !== 'overlap' || (a.earlierUtcShiftMin === (b as typeof a).earlierUtcShiftMin && a.laterUtcShiftMin === (b as typeof a).laterUtcShiftMin));
@@ -61,7 +60,9 @@ export class TimestampParser {
   /** Why the last parse returned NaN. */
   error = '';
   private readonly zone?: IANAZone;
-  private readonly hourCache = new Map<number, HourResolution>();
+  private readonly dayCache = new Map<number, DayResolution>();
+  private lastDay = Number.NaN;
+  private lastResolution?: DayResolution;
   private overlapDay = Number.NaN;
   private overlapMaxNaive = -Infinity;
   private overlapRepeating = false;
@@ -149,15 +150,18 @@ export class TimestampParser {
 
   private wallClockToUtc(naive: number, text: string): number {
     const zone = this.zone!;
-    const hour = Math.floor(naive / MS_PER_HOUR);
-    let r: HourResolution | undefined = this.hourCache.get(hour);
+    // a day whose first and last minute resolve alike has no clock change in it (real zones change at most once a day)
+    const day = Math.floor(naive / MS_PER_DAY);
+    let r: DayResolution | undefined = day === this.lastDay ? this.lastResolution : this.dayCache.get(day);
     if (!r) {
-      const start = resolveWallClock(zone, hour * MS_PER_HOUR);
-      const end = resolveWallClock(zone, hour * MS_PER_HOUR + MS_PER_HOUR - 1);
+      const start = resolveWallClock(zone, day * MS_PER_DAY);
+      const end = resolveWallClock(zone, day * MS_PER_DAY + MS_PER_DAY - 1);
       r = sameResolution(start, end) ? start : { kind: 'mixed' };
-      if (this.hourCache.size > 50_000) this.hourCache.clear();
-      this.hourCache.set(hour, r);
+      if (this.dayCache.size > 20_000) this.dayCache.clear();
+      this.dayCache.set(day, r);
     }
+    this.lastDay = day;
+    this.lastResolution = r;
     const resolved = r.kind === 'mixed' ? resolveWallClock(zone, naive) : r;
     if (resolved.kind === 'single') return naive - resolved.offsetMin * MS_PER_MIN;
     if (resolved.kind === 'gap') {

@@ -1,0 +1,256 @@
+/**
+ * Several years of hourly performance data for a demo unit, made by the project's own condenser
+ * model (shared/domain/condenser) from a known "true" cleanliness, so the app's calculations can be
+ * checked against the truth. Seeded and deterministic: the same seed gives the same rows.
+ *
+ * Story of each unit: seasonal CW inlet temperature (sinusoid + weather), daily and weekly dispatch
+ * with some low-load nights, planned and forced outages, fouling that grows asymptotically after each
+ * cleaning (Kern–Seaton form, CF(t) = 1/(1/CF0 + k·(1 − e^(−t/θ))), ENGINEERING.md §5), cleanings that
+ * restore it, one air in-leakage episode (backpressure above what fouling explains, with higher
+ * subcooling, dissolved oxygen and air-removal flow), sensor noise, and a few non-physical rows
+ * (outlet at or below inlet, outlet above saturation, a stuck outlet sensor, a pressure spike).
+ * No value is ever missing: the file stays importable, the bad rows get validity codes.
+ */
+import { DateTime } from 'luxon';
+import { backpressureAtCleanlinessKpa, cwRiseK } from '@shared/domain/condenser/index.js';
+import { liquidDensityKgM3, saturationTemperatureC } from '@shared/domain/steam/index.js';
+import { massFlowToKgS } from '../../import/quantity-conversion.js';
+import { DemoRandom, seedFromText } from './demo-random.js';
+import { DEMO_END_LOCAL, DEMO_SCENARIO_SEED, DEMO_START_LOCAL, demoPlant, type DemoUnitSpec } from './demo-scenario.js';
+
+export type DemoFault = 'outlet-not-above-inlet' | 'outlet-above-saturation' | 'stuck-outlet-sensor' | 'pressure-spike';
+
+/** One hour as the historian would record it (SI), with the truth behind it. */
+export interface DemoHour {
+  timestampUtc: number;
+  loadMw: number;
+  backpressureKpa: number;
+  cwInletC: number;
+  cwOutletC: number;
+  cwFlowM3s: number;
+  hotwellC: number;
+  dissolvedOxygenPpb: number;
+  airRemovalKgS: number;
+  barometerKpa: number;
+  truth: {
+    /** Fouling cleanliness, the quantity the fouling trend should recover. */
+    cleanliness: number;
+    /** Cleanliness the model ran with (lower during the air leak). */
+    effectiveCleanliness: number;
+    dutyMw: number;
+    cwFlowM3s: number;
+    backpressureKpa: number;
+    offline: boolean;
+    airLeak: boolean;
+    fault: DemoFault | null;
+  };
+}
+
+export interface DemoCleaning {
+  /** Local date (plant time zone) the cleaning finished. */
+  date: string;
+  method: string;
+  cfBefore: number;
+  cfAfter: number;
+}
+
+export interface DemoOutage {
+  start: string;
+  end: string;
+  kind: 'planned' | 'forced';
+}
+
+export interface DemoUnitData {
+  unit: DemoUnitSpec;
+  timeZone: string;
+  hours: DemoHour[];
+  cleanings: DemoCleaning[];
+  outages: DemoOutage[];
+  airLeak: { start: string; end: string; startUtc: number; endUtc: number };
+  designBackpressureKpa: number;
+}
+
+const MS_PER_HOUR = 3_600_000;
+const AIR_REMOVAL_NORMAL_KGS = massFlowToKgS(7, 'scfm');
+const AIR_REMOVAL_LEAK_KGS = massFlowToKgS(26, 'scfm');
+
+/** Duty at a load: the part-load ratio rises as the cycle efficiency falls [common practice, rough]. */
+export const dutyAtLoadMw = (unit: DemoUnitSpec, loadMw: number): number =>
+  loadMw * (unit.dutyPerMwFullLoad + 0.25 * (1 - loadMw / unit.turbine.ratingMw));
+
+export function designBackpressureKpa(unit: DemoUnitSpec): number {
+  return backpressureAtCleanlinessKpa({
+    geometry: unit.geometry,
+    cwInletC: unit.design.cwInletC,
+    cwFlowM3s: unit.design.cwFlowM3s,
+    dutyMw: dutyAtLoadMw(unit, unit.turbine.ratingMw),
+    pluggedTubes: unit.pluggedTubes,
+    cleanliness: unit.design.cleanliness,
+  });
+}
+
+function forcedOutages(unit: DemoUnitSpec, rng: DemoRandom): DemoOutage[] {
+  const out: DemoOutage[] = [];
+  const startYear = Number(DEMO_START_LOCAL.slice(0, 4));
+  const endYear = Number(DEMO_END_LOCAL.slice(0, 4));
+  for (let year = startYear; year < endYear; year++) {
+    for (let attempt = 0; attempt < 20; attempt++) {
+      const start = DateTime.fromObject({ year, month: 1, day: 1 }).plus({ days: rng.integer(20, 330) });
+      const end = start.plus({ days: rng.integer(2, 5) });
+      const s = start.toISODate()!;
+      const e = end.toISODate()!;
+      const clash = [...unit.plannedOutages, unit.airLeak].some((p) => !(e < p.start || s > p.end));
+      if (!clash) {
+        out.push({ start: s, end: e, kind: 'forced' });
+        break;
+      }
+    }
+  }
+  return out;
+}
+
+/** Cleanliness after `days` of fouling from CF0 (Kern–Seaton asymptotic fouling resistance). */
+export function foulingCleanliness(unit: DemoUnitSpec, cf0: number, days: number): number {
+  const k = 1 / unit.fouling.asymptoticCf - 1 / unit.fouling.cleanCf;
+  return 1 / (1 / cf0 + k * (1 - Math.exp(-days / unit.fouling.timeConstantDays)));
+}
+
+export function generateDemoUnitData(unit: DemoUnitSpec, scenarioSeed = DEMO_SCENARIO_SEED): DemoUnitData {
+  const plant = demoPlant(unit.plantKey);
+  const zone = plant.timeZone;
+  const rng = new DemoRandom(seedFromText(unit.key, scenarioSeed + unit.seed));
+  const startMs = DateTime.fromISO(DEMO_START_LOCAL, { zone }).toMillis();
+  const endMs = DateTime.fromISO(DEMO_END_LOCAL, { zone }).toMillis();
+  const rating = unit.turbine.ratingMw;
+  const outages: DemoOutage[] = [...unit.plannedOutages.map((o) => ({ start: o.start, end: o.end, kind: 'planned' as const })), ...forcedOutages(unit, rng)].sort(
+    (a, b) => a.start.localeCompare(b.start),
+  );
+  const cleaningByEnd = new Map(unit.plannedOutages.filter((o) => o.cleaning).map((o) => [o.end, o.cleaning!]));
+  const airLeakStartUtc = DateTime.fromISO(unit.airLeak.start, { zone }).toMillis();
+  const airLeakEndUtc = DateTime.fromISO(unit.airLeak.end, { zone }).plus({ days: 1 }).toMillis();
+
+  const hours: DemoHour[] = [];
+  const cleanings: DemoCleaning[] = [];
+  let cf0 = unit.fouling.cleanCf;
+  let cleanedAtMs = startMs - unit.fouling.daysSinceCleaningAtStart * 24 * MS_PER_HOUR;
+  let weather = 0;
+  let baroWeather = 0;
+  let winterLineup = false;
+  let day = '';
+  let dayLevel = 1;
+  let nightLevel = 0.6;
+  for (let t = startMs; t < endMs; t += MS_PER_HOUR) {
+    const local = DateTime.fromMillis(t, { zone });
+    const date = local.toISODate()!;
+    if (date !== day) {
+      day = date;
+      const weekend = local.weekday >= 6;
+      const summer = local.month >= 6 && local.month <= 9;
+      dayLevel = summer ? rng.uniform(0.94, 1.0) : weekend ? rng.uniform(0.68, 0.85) : rng.uniform(0.86, 0.99);
+      nightLevel = rng.next() < 0.07 ? rng.uniform(0.3, 0.37) : weekend ? rng.uniform(0.48, 0.6) : rng.uniform(0.55, 0.72);
+      const finishedCleaning = cleaningByEnd.get(date);
+      if (finishedCleaning) {
+        cleanings.push({ date, method: finishedCleaning.method, cfBefore: foulingCleanliness(unit, cf0, (t - cleanedAtMs) / (24 * MS_PER_HOUR)), cfAfter: finishedCleaning.cfAfter });
+        cf0 = finishedCleaning.cfAfter;
+        cleanedAtMs = t;
+      }
+    }
+    const offline = outages.some((o) => date >= o.start && date <= o.end);
+    const doy = local.ordinal;
+    weather = 0.995 * weather + rng.normal(0, unit.climate.weatherSdK * Math.sqrt(1 - 0.995 ** 2));
+    baroWeather = 0.99 * baroWeather + rng.normal(0, 0.6 * Math.sqrt(1 - 0.99 ** 2));
+    const seasonal = unit.climate.meanInletC - unit.climate.amplitudeK * Math.cos((2 * Math.PI * (doy - unit.climate.coldestDayOfYear)) / 365.25);
+    const diurnal = 0.3 * Math.sin((2 * Math.PI * (local.hour - 9)) / 24);
+    const t1 = Math.max(0.5, seasonal + weather + diurnal);
+    if (t1 < 9) winterLineup = true;
+    else if (t1 > 11) winterLineup = false;
+    const flow = unit.design.cwFlowM3s * (winterLineup ? unit.winterFlowFraction : 1) * (1 + rng.normal(0, 0.003));
+    const baro = unit.barometerKpa + baroWeather;
+    const cleanliness = foulingCleanliness(unit, cf0, (t - cleanedAtMs) / (24 * MS_PER_HOUR));
+    const airLeak = t >= airLeakStartUtc && t < airLeakEndUtc;
+    const leakRamp = airLeak ? Math.min(1, (t - airLeakStartUtc) / (12 * MS_PER_HOUR)) : 0;
+    const effective = cleanliness * (1 - unit.airLeak.cfLossFraction * leakRamp);
+    const level = local.hour >= 6 && local.hour < 22 ? dayLevel : nightLevel;
+    const load = offline ? 0 : level * rating;
+    let hour: DemoHour;
+    if (offline) {
+      // vacuum broken, CW pumps running: the historian still records the instruments
+      hour = {
+        timestampUtc: t,
+        loadMw: 0,
+        backpressureKpa: baro,
+        cwInletC: t1 + rng.normal(0, 0.06),
+        cwOutletC: t1 + 0.1 + rng.normal(0, 0.06),
+        cwFlowM3s: flow * (1 + rng.normal(0, 0.006)),
+        hotwellC: t1 + 3,
+        dissolvedOxygenPpb: 80 + rng.normal(0, 10),
+        airRemovalKgS: 0,
+        barometerKpa: baro,
+        truth: { cleanliness, effectiveCleanliness: effective, dutyMw: 0, cwFlowM3s: flow, backpressureKpa: baro, offline, airLeak, fault: null },
+      };
+    } else {
+      const duty = dutyAtLoadMw(unit, load);
+      const p = backpressureAtCleanlinessKpa({ geometry: unit.geometry, cwInletC: t1, cwFlowM3s: flow, dutyMw: duty, pluggedTubes: unit.pluggedTubes, cleanliness: effective });
+      const t2 = t1 + cwRiseK(t1, liquidDensityKgM3(t1) * flow, duty);
+      const ts = saturationTemperatureC(p);
+      const subcooling = airLeak ? 2.2 * leakRamp + 0.4 + Math.abs(rng.normal(0, 0.3)) : 0.4 + Math.abs(rng.normal(0, 0.12));
+      hour = {
+        timestampUtc: t,
+        loadMw: load + rng.normal(0, 0.002 * rating),
+        backpressureKpa: p * (1 + rng.normal(0, 0.003)),
+        cwInletC: t1 + rng.normal(0, 0.06),
+        cwOutletC: t2 + rng.normal(0, 0.06),
+        cwFlowM3s: flow * (1 + rng.normal(0, 0.006)),
+        hotwellC: ts - subcooling,
+        dissolvedOxygenPpb: Math.max(1, airLeak ? 5 + 25 * leakRamp + rng.normal(0, 4) : 5 + rng.normal(0, 1.2)),
+        airRemovalKgS: Math.max(0, (airLeak ? AIR_REMOVAL_NORMAL_KGS + (AIR_REMOVAL_LEAK_KGS - AIR_REMOVAL_NORMAL_KGS) * leakRamp : AIR_REMOVAL_NORMAL_KGS) * (1 + rng.normal(0, 0.08))),
+        barometerKpa: baro,
+        truth: { cleanliness, effectiveCleanliness: effective, dutyMw: duty, cwFlowM3s: flow, backpressureKpa: p, offline, airLeak, fault: null },
+      };
+    }
+    hours.push(hour);
+  }
+  injectFaults(hours, rng);
+  return {
+    unit,
+    timeZone: zone,
+    hours,
+    cleanings,
+    outages,
+    airLeak: { start: unit.airLeak.start, end: unit.airLeak.end, startUtc: airLeakStartUtc, endUtc: airLeakEndUtc },
+    designBackpressureKpa: designBackpressureKpa(unit),
+  };
+}
+
+/** A few non-physical or faulty readings at random operating hours (values stay present). */
+function injectFaults(hours: DemoHour[], rng: DemoRandom): void {
+  const pick = (): number => {
+    for (;;) {
+      const i = rng.integer(500, hours.length - 500);
+      if (!hours[i].truth.offline && !hours[i].truth.airLeak && hours[i].truth.fault === null) return i;
+    }
+  };
+  for (let k = 0; k < 4; k++) {
+    const h = hours[pick()];
+    h.cwOutletC = h.cwInletC - rng.uniform(0, 0.4);
+    h.truth.fault = 'outlet-not-above-inlet';
+  }
+  for (let k = 0; k < 3; k++) {
+    const h = hours[pick()];
+    h.cwOutletC = saturationTemperatureC(h.backpressureKpa) + rng.uniform(0.3, 1.5);
+    h.truth.fault = 'outlet-above-saturation';
+  }
+  for (let k = 0; k < 2; k++) {
+    const h = hours[pick()];
+    h.backpressureKpa = rng.uniform(55, 70);
+    h.truth.fault = 'pressure-spike';
+  }
+  const stuckFrom = pick();
+  const stuckValue = hours[stuckFrom].cwOutletC;
+  for (let i = stuckFrom; i < Math.min(hours.length, stuckFrom + 36); i++) {
+    if (hours[i].truth.fault !== null) continue;
+    hours[i].cwOutletC = stuckValue;
+    hours[i].truth.fault = 'stuck-outlet-sensor';
+  }
+}
+

@@ -1,0 +1,14 @@
+export { DEMO_PLANTS, DEMO_UNITS, DEMO_SCENARIO_SEED, DEMO_START_LOCAL, DEMO_END_LOCAL, demoUnit, demoPlant } from './demo-scenario.js';
+export type { DemoPlant, DemoUnitSpec, DemoFileStyle } from './demo-scenario.js';
+export {
+  generateDemoUnitData,
+  designBackpressureKpa,
+  dutyAtLoadMw,
+  foulingCleanliness,
+  type DemoHour,
+  type DemoUnitData,
+  type DemoCleaning,
+  type DemoOutage,
+  type DemoFault,
+} from './generate-demo-data.js';
+export { writeDemoCsv, writeDemoXlsx, demoImportMapping, excelSerialLocal, DEMO_FILE_COLUMNS } from './demo-files.js';
