@@ -6,7 +6,19 @@ import { Membership } from './membership.entity.js';
 import { Organisation } from './organisation.entity.js';
 import { PasswordResetToken } from './password-reset-token.entity.js';
 import { User } from './user.entity.js';
+import { BackgroundJob } from './background-job.entity.js';
+import { CleaningMethodRecord } from './cleaning-method.entity.js';
+import { DailyAggregate } from './daily-aggregate.entity.js';
+import { DataImport } from './data-import.entity.js';
+import { GeneratingUnit } from './generating-unit.entity.js';
+import { PerformanceSample } from './performance-sample.entity.js';
+import { Plant } from './plant.entity.js';
+import { UnitEvent } from './unit-event.entity.js';
 
 export { ApiToken, AuditEvent, ClientGroup, Invitation, Membership, Organisation, PasswordResetToken, User };
+export { BackgroundJob, CleaningMethodRecord, DailyAggregate, DataImport, GeneratingUnit, PerformanceSample, Plant, UnitEvent };
 
-export const ENTITIES = [Organisation, User, Membership, AuditEvent, ClientGroup, Invitation, PasswordResetToken, ApiToken];
+export const ENTITIES = [
+  Organisation, User, Membership, AuditEvent, ClientGroup, Invitation, PasswordResetToken, ApiToken,
+  Plant, GeneratingUnit, DataImport, PerformanceSample, DailyAggregate, UnitEvent, CleaningMethodRecord, BackgroundJob,
+];
