@@ -232,6 +232,8 @@ export interface ImportSamplesOptions extends ImportFileOptions {
   fileOrder?: FileOrder;
   /** Where the sort keeps its runs (default: the OS temp dir). */
   tempDir?: string;
+  /** Rows sorted in memory at a time before a run goes to disk (default 65,536). */
+  sortChunkRows?: number;
 }
 
 const OPTIONAL_FIELDS: [keyof ImportSample, number][] = [
@@ -249,7 +251,7 @@ const OPTIONAL_FIELDS: [keyof ImportSample, number][] = [
  */
 export async function importSamples(filePath: string, options: ImportSamplesOptions): Promise<ImportSummary> {
   const table = await openTable(filePath, { kind: options.kind, delimiter: options.delimiter });
-  const sorter = options.fileOrder === 'ascending' ? null : new RecordSorter(options.tempDir);
+  const sorter = options.fileOrder === 'ascending' ? null : new RecordSorter(options.tempDir, options.sortChunkRows);
   try {
     const compiled = compileMapping(options.mapping, table.headers);
     const converter = new RowConverter(compiled);

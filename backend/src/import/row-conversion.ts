@@ -118,7 +118,7 @@ export class RowConverter {
    * All problems of a row are reported, not only the first.
    */
   convert(cells: string[], line: number, out: Float64Array, errors: RowErrorList): boolean {
-    const { headers, index, mapping } = this.m;
+    const { headers, mapping } = this.m;
     out[F.timestampUtc] = Number.NaN;
     out[F.line] = line;
     if (cells.length < headers.length) {
