@@ -11,6 +11,7 @@ export type ImportFileErrorCode =
   | 'no-header-row'
   | 'line-too-long'
   | 'not-text'
+  | 'malformed-csv'
   | 'not-xlsx'
   | 'unsupported-encoding'
   | 'bad-mapping'

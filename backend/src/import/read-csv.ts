@@ -5,7 +5,7 @@
  */
 import { createReadStream } from 'node:fs';
 import { open, stat } from 'node:fs/promises';
-import { parse, type Info } from 'csv-parse';
+import { CsvError, parse, type Info } from 'csv-parse';
 import { ImportFileError } from './import-errors.js';
 import { HEADER_SEARCH_ROWS, MAX_LINE_CHARS, SAMPLE_ROWS, locateHeader, type RawRow, type RawTable } from './raw-table.js';
 
@@ -95,6 +95,8 @@ export async function openCsvTable(filePath: string, options: CsvReadOptions = {
     bom: true,
     relax_column_count: true,
     skip_empty_lines: true,
+    // a quote inside an unquoted cell is kept as text; an unclosed quoted cell is still an error
+    relax_quotes: true,
     max_record_size: maxLine,
     info: true,
   });
@@ -106,8 +108,8 @@ export async function openCsvTable(filePath: string, options: CsvReadOptions = {
     const err = e as Error & { code?: unknown; lines?: unknown };
     const line = typeof err.lines === 'number' ? err.lines : undefined;
     if (err.code === 'CSV_MAX_RECORD_SIZE') return lineTooLong(line ?? 0, maxLine);
-    if (typeof err.code === 'string' && err.code.startsWith('CSV_')) {
-      return new ImportFileError('not-text', `the CSV cannot be read at line ${line ?? '?'}: ${err.message}`, line);
+    if (e instanceof CsvError) {
+      return new ImportFileError('malformed-csv', `the CSV cannot be read at line ${line ?? '?'}: ${err.message}`, line);
     }
     return err;
   };
