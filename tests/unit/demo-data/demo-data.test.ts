@@ -1,0 +1,187 @@
+import { createHash } from 'node:crypto';
+import { readFile } from 'node:fs/promises';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { analyseCondenserPoint, backpressureAtCleanlinessKpa } from '@shared/domain/condenser/index.js';
+import { saturationTemperatureC } from '@shared/domain/steam/index.js';
+import { checkImportFile, importSamples, type ImportSample } from '@backend/import/parse-rows.js';
+import {
+  DEMO_PLANTS,
+  DEMO_UNITS,
+  demoImportMapping,
+  demoUnit,
+  generateDemoUnitData,
+  writeDemoCsv,
+  writeDemoXlsx,
+  type DemoUnitData,
+} from '@backend/seed/demo-data/index.js';
+import { makeTempDir } from '../import/import-fixtures.js';
+
+let tmp: Awaited<ReturnType<typeof makeTempDir>>;
+beforeAll(async () => {
+  tmp = await makeTempDir();
+});
+afterAll(async () => {
+  await tmp.cleanup();
+});
+
+const generated = new Map<string, DemoUnitData>();
+/** The default-seed data of a unit, generated once per test file. */
+const dataOf = (key: string): DemoUnitData => {
+  if (!generated.has(key)) generated.set(key, generateDemoUnitData(demoUnit(key)));
+  return generated.get(key)!;
+};
+
+const sha256 = async (file: string) => createHash('sha256').update(await readFile(file)).digest('hex');
+
+async function importDemo(data: DemoUnitData, kind: 'csv' | 'xlsx') {
+  const file = tmp.file(`${data.unit.key}-${kind}-import.${kind}`);
+  await (kind === 'csv' ? writeDemoCsv(data, file) : writeDemoXlsx(data, file));
+  const mapping = demoImportMapping(data, kind);
+  const check = await checkImportFile(file, { mapping });
+  const samples: ImportSample[] = [];
+  const summary = check.ok
+    ? await importSamples(file, { mapping, fileOrder: check.order, steadiness: { ratingMw: data.unit.turbine.ratingMw }, onBatch: (b) => void samples.push(...b) })
+    : null;
+  return { check, summary, samples };
+}
+
+describe('demo scenario metadata', () => {
+  it('uses only the fictional organisations and plants, with their time zones', () => {
+    expect(DEMO_PLANTS.map((p) => [p.name, p.organisation, p.client ?? null, p.timeZone])).toEqual([
+      ['Harrow Creek Station', 'Northmere Power Cooperative', null, 'America/Chicago'],
+      ['Fenwick Ridge', 'Tidewater Performance Partners', 'Calder Valley Energy', 'Europe/Berlin'],
+      ['Saltmarsh Point', 'Tidewater Performance Partners', 'Brightwater Municipal Utility', 'America/New_York'],
+    ]);
+  });
+
+  it('states a surface that agrees with tube count, OD and length (A = N·π·OD·L, HEI outside-surface basis)', () => {
+    for (const u of DEMO_UNITS) {
+      const a = u.geometry.tubeCount * Math.PI * (u.geometry.tubeOdMm / 1000) * u.tubeEffectiveLengthM;
+      expect(Math.abs(u.geometry.surfaceM2 - a)).toBeLessThan(1);
+    }
+  });
+
+  it('has design tube velocities within the 6–8 ft/s the trade expects [common practice, ENGINEERING.md §3]', () => {
+    for (const u of DEMO_UNITS) {
+      const p = analyseCondenserPoint({ backpressureKpa: 8, cwInletC: u.design.cwInletC, cwOutletC: u.design.cwInletC + 10, cwFlowM3s: u.design.cwFlowM3s, pluggedTubes: u.pluggedTubes, geometry: u.geometry, referenceCleanliness: 0.85 });
+      expect(p.velocityMs / 0.3048).toBeGreaterThan(5.5);
+      expect(p.velocityMs / 0.3048).toBeLessThan(8.5);
+    }
+  });
+});
+
+describe('demo data generator', () => {
+  it('with the same seed writes the same bytes; with another seed, different ones', async () => {
+    const unit = demoUnit('fenwick-ridge-1');
+    const a = tmp.file('a.csv');
+    const b = tmp.file('b.csv');
+    const c = tmp.file('c.csv');
+    await writeDemoCsv(generateDemoUnitData(unit, 7), a);
+    await writeDemoCsv(generateDemoUnitData(unit, 7), b);
+    await writeDemoCsv(generateDemoUnitData(unit, 8), c);
+    expect(await sha256(a)).toBe(await sha256(b));
+    expect(await sha256(c)).not.toBe(await sha256(a));
+  });
+
+  it('makes three years of hourly rows with every value present and finite', () => {
+    const data = dataOf('harrow-creek-2');
+    // 2023-01-01 to 2026-01-01 local: 1096 days; the DST changes cancel out over whole years
+    expect(data.hours).toHaveLength(1096 * 24);
+    for (const h of data.hours) {
+      for (const v of [h.loadMw, h.backpressureKpa, h.cwInletC, h.cwOutletC, h.cwFlowM3s, h.hotwellC, h.dissolvedOxygenPpb, h.airRemovalKgS, h.barometerKpa]) expect(Number.isFinite(v)).toBe(true);
+    }
+  });
+
+  it('restores cleanliness at each cleaning it reports, inside a planned outage', () => {
+    for (const u of DEMO_UNITS) {
+      const data = dataOf(u.key);
+      expect(data.cleanings.length).toBe(u.plannedOutages.filter((o) => o.cleaning).length);
+      for (const c of data.cleanings) {
+        expect(c.cfAfter).toBeGreaterThan(c.cfBefore + 0.15);
+        expect(u.plannedOutages.some((o) => o.start <= c.date && c.date <= o.end)).toBe(true);
+      }
+    }
+  });
+
+  it('fouls asymptotically: cleanliness falls fast after a cleaning, then levels off', () => {
+    const data = dataOf('harrow-creek-1');
+    const byDay = (iso: string) => data.hours.find((h) => h.timestampUtc >= Date.parse(`${iso}T12:00:00Z`))!.truth.cleanliness;
+    const early = byDay('2023-10-30') - byDay('2023-12-29'); // first 60 days after the October 2023 cleaning
+    const late = byDay('2024-08-26') - byDay('2024-10-25'); // 60 days starting 300 days later
+    expect(early).toBeGreaterThan(3 * late);
+  });
+
+  it('during the air in-leakage episode, raises backpressure above what fouling explains, with subcooling, dissolved O2 and air-removal flow', () => {
+    const u = demoUnit('harrow-creek-1');
+    const data = dataOf(u.key);
+    const online = data.hours.filter((h) => !h.truth.offline && h.truth.fault === null);
+    const inLeak = online.filter((h) => h.timestampUtc >= data.airLeak.startUtc + 86_400_000 && h.timestampUtc < data.airLeak.endUtc);
+    const nearby = online.filter((h) => Math.abs(h.timestampUtc - data.airLeak.startUtc) < 60 * 86_400_000 && !h.truth.airLeak);
+    const mean = (xs: number[]) => xs.reduce((a, b) => a + b, 0) / xs.length;
+    const subcooling = (h: (typeof online)[number]) => saturationTemperatureC(h.backpressureKpa) - h.hotwellC;
+    const unexplained = (h: (typeof online)[number]) =>
+      h.truth.backpressureKpa -
+      backpressureAtCleanlinessKpa({ geometry: u.geometry, cwInletC: h.cwInletC, cwFlowM3s: h.truth.cwFlowM3s, dutyMw: h.truth.dutyMw, pluggedTubes: u.pluggedTubes, cleanliness: h.truth.cleanliness });
+    expect(inLeak.length).toBeGreaterThan(19 * 24 * 0.9);
+    expect(mean(inLeak.map(subcooling))).toBeGreaterThan(2);
+    expect(mean(nearby.map(subcooling))).toBeLessThan(1);
+    expect(mean(inLeak.map((h) => h.dissolvedOxygenPpb))).toBeGreaterThan(3 * mean(nearby.map((h) => h.dissolvedOxygenPpb)));
+    expect(mean(inLeak.map((h) => h.airRemovalKgS))).toBeGreaterThan(3 * mean(nearby.map((h) => h.airRemovalKgS)));
+    expect(mean(inLeak.map(unexplained))).toBeGreaterThan(0.3);
+    expect(Math.abs(mean(nearby.map(unexplained)))).toBeLessThan(0.05);
+  });
+});
+
+describe('demo files through the import pipeline', () => {
+  it.each(DEMO_UNITS.map((u) => [u.key, u.fileStyle]))('%s (%s CSV) imports without a file error, keeping its bad rows with reasons', async (key) => {
+    const data = dataOf(key);
+    const { check, summary, samples } = await importDemo(data, 'csv');
+    expect(check.fileError).toBeUndefined();
+    expect(check.errors).toEqual([]);
+    expect(check.dataRows).toBe(data.hours.length);
+    expect(summary!.rowsRead).toBe(data.hours.length);
+    const truth = new Map(data.hours.map((h) => [h.timestampUtc, h]));
+    const codes = (fault: string) => samples.filter((s) => truth.get(s.timestampUtc)!.truth.fault === fault).map((s) => s.validity);
+    expect(codes('outlet-not-above-inlet')).toEqual(Array(4).fill('rise-not-positive'));
+    expect(codes('outlet-above-saturation')).toEqual(Array(3).fill('ttd-not-positive'));
+    expect(codes('pressure-spike')).toEqual(Array(2).fill('out-of-range'));
+    expect(summary!.rowsByReason['low-load']).toBeGreaterThan(100);
+    expect(summary!.rowsOk / summary!.rowsRead).toBeGreaterThan(0.85);
+  });
+
+  it('recomputes, through the engineering core, a cleanliness within the sensor noise of the generator’s true one', async () => {
+    const data = dataOf('harrow-creek-1');
+    const { samples } = await importDemo(data, 'csv');
+    const truth = new Map(data.hours.map((h) => [h.timestampUtc, h]));
+    const relErrors: number[] = [];
+    for (const s of samples) {
+      const h = truth.get(s.timestampUtc)!;
+      if (s.validity !== 'ok' || h.truth.fault !== null || h.truth.airLeak) continue;
+      const point = analyseCondenserPoint({ backpressureKpa: s.backpressureKpa, cwInletC: s.cwInletC, cwOutletC: s.cwOutletC, cwFlowM3s: s.cwFlowM3s, pluggedTubes: data.unit.pluggedTubes, geometry: data.unit.geometry, referenceCleanliness: 0.9 });
+      relErrors.push(point.cleanliness / h.truth.cleanliness - 1);
+    }
+    relErrors.sort((a, b) => a - b);
+    const q = (p: number) => relErrors[Math.floor(p * (relErrors.length - 1))];
+    // noise: ±0.06 K on each CW temperature, 0.3 % on backpressure, 0.6 % on flow → a few per cent on CF
+    expect(relErrors.length).toBeGreaterThan(20_000);
+    expect(Math.abs(q(0.5))).toBeLessThan(0.003);
+    expect(q(0.025)).toBeGreaterThan(-0.05);
+    expect(q(0.975)).toBeLessThan(0.05);
+  });
+
+  it('imports the XLSX variant to the same samples as the CSV', async () => {
+    const data = dataOf('harrow-creek-2');
+    const csv = await importDemo(data, 'csv');
+    const xlsx = await importDemo(data, 'xlsx');
+    expect(xlsx.check.ok).toBe(true);
+    expect(xlsx.summary!.rowsByReason).toEqual(csv.summary!.rowsByReason);
+    expect(xlsx.samples.length).toBe(csv.samples.length);
+    for (let i = 0; i < csv.samples.length; i += 997) {
+      const a = csv.samples[i];
+      const b = xlsx.samples[i];
+      expect(b.timestampUtc).toBe(a.timestampUtc);
+      expect(b.backpressureKpa).toBeCloseTo(a.backpressureKpa, 9);
+      expect(b.cwOutletC).toBeCloseTo(a.cwOutletC, 9);
+    }
+  });
+});
