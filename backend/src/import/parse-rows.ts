@@ -80,6 +80,8 @@ const PLAUSIBLE_MEAN: [field: number, label: string, min: number, max: number, h
   [F.cwFlowM3s, 'CW flow', 0.2, 150, 'is the unit right (gpm, m³/h, m³/s, kg/s)?'],
 ];
 
+const MEAN_FIELDS = PLAUSIBLE_MEAN.map(([field]) => field);
+
 function unitWarnings(sums: Float64Array, counts: Float64Array): string[] {
   const out: string[] = [];
   for (const [field, label, min, max, hint] of PLAUSIBLE_MEAN) {
@@ -138,7 +140,7 @@ export async function checkImportFile(filePath: string, options: ImportFileOptio
         if (result.lastTimestampUtc === null || t > result.lastTimestampUtc) result.lastTimestampUtc = t;
       }
       if (good) {
-        for (const f of [F.cwInletC, F.cwOutletC, F.backpressureKpa, F.cwFlowM3s]) {
+        for (const f of MEAN_FIELDS) {
           sums[f] += record[f];
           counts[f]++;
         }

@@ -4,6 +4,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analyseCondenserPoint, backpressureAtCleanlinessKpa } from '@shared/domain/condenser/index.js';
 import { saturationTemperatureC } from '@shared/domain/steam/index.js';
 import { checkImportFile, importSamples, type ImportSample } from '@backend/import/parse-rows.js';
+import { openTable } from '@backend/import/open-table.js';
+import { guessMapping } from '@backend/import/column-mapping.js';
+import { importMappingSchema } from '@shared/schemas/import-mapping.js';
 import {
   DEMO_PLANTS,
   DEMO_UNITS,
@@ -11,6 +14,7 @@ import {
   demoUnit,
   generateDemoUnitData,
   writeDemoCsv,
+  writeDemoFileSets,
   writeDemoXlsx,
   type DemoUnitData,
 } from '@backend/seed/demo-data/index.js';
@@ -182,6 +186,23 @@ describe('demo files through the import pipeline', () => {
       expect(b.timestampUtc).toBe(a.timestampUtc);
       expect(b.backpressureKpa).toBeCloseTo(a.backpressureKpa, 9);
       expect(b.cwOutletC).toBeCloseTo(a.cwOutletC, 9);
+    }
+  });
+});
+
+describe('demo file sets for the seed', () => {
+  it('writes one CSV per unit whose mapping is valid, names the file’s columns and matches what the guesser proposes', async () => {
+    const sets = await writeDemoFileSets(tmp.dir);
+    expect(sets.map((s) => s.data.unit.key)).toEqual(DEMO_UNITS.map((u) => u.key));
+    for (const set of sets) {
+      const mapping = importMappingSchema.parse(set.csvMapping);
+      const table = await openTable(set.csvPath);
+      await table.close();
+      const mapped = [mapping.timestamp.column, ...Object.values(mapping.columns).map((c) => c!.column)];
+      for (const column of mapped) expect(table.headers).toContain(column);
+      const guess = guessMapping(table.headers, table.sampleRows, { timeZone: set.plant.timeZone });
+      expect(guess.complete || !('cwFlow' in mapping.columns)).toBe(true);
+      expect(guess.mapping.columns).toMatchObject(mapping.columns);
     }
   });
 });

@@ -12,3 +12,4 @@ export {
   type DemoFault,
 } from './generate-demo-data.js';
 export { writeDemoCsv, writeDemoXlsx, demoImportMapping, excelSerialLocal, DEMO_FILE_COLUMNS } from './demo-files.js';
+export { writeDemoFileSets, type DemoFileSet } from './demo-file-set.js';

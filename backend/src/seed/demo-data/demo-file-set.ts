@@ -1,0 +1,32 @@
+/** One call for the seed: generate every demo unit and write its historian files with their mappings. */
+import path from 'node:path';
+import type { ImportMappingInput } from '@shared/schemas/import-mapping.js';
+import { DEMO_SCENARIO_SEED, DEMO_UNITS, demoPlant, type DemoPlant } from './demo-scenario.js';
+import { generateDemoUnitData, type DemoUnitData } from './generate-demo-data.js';
+import { demoImportMapping, writeDemoCsv, writeDemoXlsx } from './demo-files.js';
+
+export interface DemoFileSet {
+  plant: DemoPlant;
+  data: DemoUnitData;
+  csvPath: string;
+  csvMapping: ImportMappingInput;
+  xlsxPath?: string;
+  xlsxMapping?: ImportMappingInput;
+}
+
+export async function writeDemoFileSets(dir: string, options: { xlsx?: boolean; seed?: number } = {}): Promise<DemoFileSet[]> {
+  const sets: DemoFileSet[] = [];
+  for (const unit of DEMO_UNITS) {
+    const data = generateDemoUnitData(unit, options.seed ?? DEMO_SCENARIO_SEED);
+    const csvPath = path.join(dir, `${unit.key}.csv`);
+    await writeDemoCsv(data, csvPath);
+    const set: DemoFileSet = { plant: demoPlant(unit.plantKey), data, csvPath, csvMapping: demoImportMapping(data, 'csv') };
+    if (options.xlsx) {
+      set.xlsxPath = path.join(dir, `${unit.key}.xlsx`);
+      await writeDemoXlsx(data, set.xlsxPath);
+      set.xlsxMapping = demoImportMapping(data, 'xlsx');
+    }
+    sets.push(set);
+  }
+  return sets;
+}
