@@ -84,7 +84,7 @@ describe('account screens in a real browser', () => {
       const password = page.getByLabel('Password');
       await expect.poll(() => password.getAttribute('aria-invalid')).toBe('true');
       const describedBy = await password.getAttribute('aria-describedby');
-      await expect(page.locator(`[id="${describedBy!.split(' ')[0]}"]`).textContent()).resolves.toMatch(/at least 8|common/);
+      await expect.poll(() => page.locator(`[id="${describedBy!.split(' ')[0]}"]`).textContent()).toMatch(/at least 8|common/);
       expect(page.url()).toContain('/sign-up');
     });
 
@@ -95,7 +95,7 @@ describe('account screens in a real browser', () => {
       const editor = founder.getByRole('row').filter({ hasText: 'aino@estuary.example' });
       await editor.getByLabel('Role').selectOption('viewer');
       await editor.getByRole('button', { name: 'Save', exact: true }).click();
-      await expect(founder.getByRole('alert').filter({ hasText: 'at least one administrator' }).textContent()).resolves.toContain(
+      await expect.poll(() => founder.getByRole('alert').filter({ hasText: 'at least one administrator' }).textContent()).toContain(
         'needs at least one administrator',
       );
       await editor.getByRole('button', { name: 'Cancel' }).click();
@@ -106,10 +106,10 @@ describe('account screens in a real browser', () => {
       await invite.getByLabel('E-mail').fill(colleague);
       await invite.getByLabel('Role').selectOption('analyst');
       await invite.getByRole('button', { name: 'Send invitation' }).click();
-      await expect(invite.getByRole('status').textContent()).resolves.toContain(`Invitation sent to ${colleague}`);
+      await expect.poll(() => invite.getByRole('status').textContent()).toContain(`Invitation sent to ${colleague}`);
       const pending = founder.getByRole('table').filter({ hasText: colleague });
       await pending.waitFor();
-      await expect(pending.getByRole('row').filter({ hasText: colleague }).textContent()).resolves.toContain('Analyst');
+      await expect.poll(() => pending.getByRole('row').filter({ hasText: colleague }).textContent()).toContain('Analyst');
     });
 
     it('the colleague opens the mailed link in another browser, creates an account and joins as analyst', async () => {
@@ -117,7 +117,7 @@ describe('account screens in a real browser', () => {
       const link = await linkFromMailbox(page, server, colleague, new RegExp(organisationName));
       expect(link.startsWith(`${server.url}/invitation?token=`)).toBe(true);
       await page.goto(link);
-      await expect(page.getByTestId('invitation-organisation').textContent()).resolves.toBe(organisationName);
+      await expect.poll(() => page.getByTestId('invitation-organisation').textContent()).toBe(organisationName);
       await page.getByLabel('Your name').fill('Kwabena Asante');
       await page.getByLabel('Password').fill('tube-bundle-sweeper-7');
       await page.getByRole('button', { name: 'Create account and join' }).click();
@@ -127,14 +127,14 @@ describe('account screens in a real browser', () => {
       expect(active).toContain('Analyst');
       // Analysts get no member management: the settings list says why instead of linking.
       await page.goto(`${server.url}/settings/members`);
-      await expect(page.getByText('People and roles is not available to you').isVisible()).resolves.toBe(true);
+      await page.getByText('People and roles is not available to you').waitFor();
     });
 
     it('the administrator then sees the colleague among the members and no longer among pending invitations', async () => {
       await founder.reload();
       const members = founder.getByRole('table').first();
       await members.getByRole('row').filter({ hasText: colleague }).waitFor();
-      await expect(founder.getByText('No invitations are waiting for an answer').isVisible()).resolves.toBe(true);
+      await founder.getByText('No invitations are waiting for an answer').waitFor();
     });
   });
 
@@ -154,7 +154,7 @@ describe('account screens in a real browser', () => {
       const names = await rows.locator('td:first-child').allTextContents();
       expect(names.sort()).toEqual(['Brightwater Municipal Utility', 'Calder Valley Energy']);
       // An analyst may look but not manage; the reason is given.
-      await expect(page.getByText('Only administrators can do this: creating, renaming and deleting client groups.').isVisible()).resolves.toBe(true);
+      await page.getByText('Only administrators can do this: creating, renaming and deleting client groups.').waitFor();
     });
 
     it('after switching to the utility, no client group of the consultancy shows anywhere on the page', async () => {
@@ -191,7 +191,7 @@ describe('account screens in a real browser', () => {
       await page.getByLabel('Password').fill(DEMO_PASSWORD);
       await page.getByRole('button', { name: 'Sign in', exact: true }).click();
       await page.waitForURL(`${server.url}/settings/profile`);
-      await expect(page.getByRole('heading', { name: 'Your profile' }).isVisible()).resolves.toBe(true);
+      await page.getByRole('heading', { name: 'Your profile' }).waitFor();
     });
 
     it('a next address pointing to another site is ignored', async () => {
@@ -207,7 +207,7 @@ describe('account screens in a real browser', () => {
     it('a failed Google sign-in is explained on the sign-in page', async () => {
       const page = await freshPage();
       await page.goto(`${server.url}/sign-in?google=failed`);
-      await expect(page.getByRole('alert').textContent()).resolves.toContain('Signing in with Google did not work');
+      await expect.poll(() => page.getByRole('alert').textContent()).toContain('Signing in with Google did not work');
       await expect(page.getByRole('link', { name: 'Sign in with Google' }).getAttribute('href')).resolves.toBe('/api/auth/google');
     });
   });
@@ -222,7 +222,7 @@ describe('account screens in a real browser', () => {
       await page.getByRole('link', { name: 'Forgot your password?' }).click();
       await page.getByLabel('E-mail').fill(email);
       await page.getByRole('button', { name: 'Send the reset link' }).click();
-      await expect(page.getByRole('status').textContent()).resolves.toContain('If an account uses this e-mail');
+      await expect.poll(() => page.getByRole('status').textContent()).toContain('If an account uses this e-mail');
 
       const link = await linkFromMailbox(page, server, email, /Reset your Cleancase password/);
       await page.goto(link);
@@ -233,12 +233,12 @@ describe('account screens in a real browser', () => {
       await page.getByLabel('E-mail').fill(email);
       await page.getByLabel('Password').fill(DEMO_PASSWORD);
       await page.getByRole('button', { name: 'Sign in', exact: true }).click();
-      await expect(page.getByRole('alert').textContent()).resolves.toContain('E-mail or password is not right');
+      await expect.poll(() => page.getByRole('alert').textContent()).toContain('E-mail or password is not right');
 
       await page.getByLabel('Password').fill(newPassword);
       await page.getByRole('button', { name: 'Sign in', exact: true }).click();
       await page.waitForURL(`${server.url}/`);
-      await expect(page.getByTestId('active-organisation').textContent()).resolves.toContain('Northmere Power Cooperative');
+      await expect.poll(() => page.getByTestId('active-organisation').textContent()).toContain('Northmere Power Cooperative');
     });
 
     it('the same reset link does not work twice', async () => {
@@ -248,7 +248,7 @@ describe('account screens in a real browser', () => {
       await page.getByLabel('New password').fill('another-long-passphrase');
       await page.getByRole('button', { name: 'Save the new password' }).click();
       await page.getByRole('alert').waitFor();
-      await expect(page.getByRole('link', { name: 'Ask for a new link' }).isVisible()).resolves.toBe(true);
+      await page.getByRole('link', { name: 'Ask for a new link' }).waitFor();
     });
   });
 });

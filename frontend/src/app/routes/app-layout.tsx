@@ -34,7 +34,7 @@ export function AppLayout() {
           </nav>
           <div className="ml-auto flex items-center gap-3 text-sm">
             {session?.user && <OrganisationSwitcher session={session} onSwitched={() => navigate('/')} />}
-            <Link to="/settings/profile" className="text-ink-soft hover:text-ink" title="Your profile">
+            <Link to="/settings/profile" className="hidden text-ink-soft hover:text-ink sm:inline" title="Your profile">
               {session?.user?.name}
             </Link>
             <Button variant="quiet" onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in') })}>

@@ -7,12 +7,12 @@ export function SignUpPage() {
   return (
     <PublicPage
       footer={
-        <>
+        <span>
           Have an account already?{' '}
           <Link className={linkClass} to="/sign-in">
             Sign in
           </Link>
-        </>
+        </span>
       }
     >
       <SignUpForm onSignedUp={() => navigate('/')} />

@@ -20,7 +20,7 @@ export function Button({
       ref={ref}
       type={type}
       {...props}
-      className={`inline-flex items-center justify-center gap-2 rounded px-3 py-1.5 text-sm font-medium disabled:cursor-not-allowed ${styles[variant]} ${className}`}
+      className={`inline-flex items-center justify-center gap-2 whitespace-nowrap rounded px-3 py-1.5 text-sm font-medium disabled:cursor-not-allowed ${styles[variant]} ${className}`}
     />
   );
 }

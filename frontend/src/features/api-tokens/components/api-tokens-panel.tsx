@@ -121,7 +121,7 @@ function UsageExample({ origin }: { origin: string }) {
         Saturation temperature at 8 kPa absolute, from a terminal. Replace <code className="font-mono">&lt;token&gt;</code> with the secret. Tokens act in this
         organisation only, with your role.
       </p>
-      <pre className="overflow-x-auto rounded border border-rule bg-paper-sunk p-3 font-mono text-xs">{example}</pre>
+      <pre className="whitespace-pre-wrap break-all rounded border border-rule bg-paper-sunk p-3 font-mono text-xs">{example}</pre>
       <div>
         <CopyButton text={example} label="Copy command" />
       </div>

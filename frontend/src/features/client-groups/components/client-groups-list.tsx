@@ -56,7 +56,7 @@ export function ClientGroupsList({ organisationId, cannotManage }: Props) {
                 <td className={`${td} font-medium`}>{g.name}</td>
                 <td className={`${td} whitespace-nowrap text-ink-soft`}>{formatDate(g.createdAt)}</td>
                 <td className={`${td} text-right`}>
-                  <div className="flex justify-end gap-2">
+                  <div className="flex items-start justify-end gap-2">
                     <Button variant="quiet" disabled={!!cannotManage} title={cannotManage ?? undefined} onClick={() => setRenaming(g.id)} aria-label={`Rename ${g.name}`}>
                       Rename
                     </Button>

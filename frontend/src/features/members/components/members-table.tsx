@@ -53,7 +53,7 @@ export function MembersTable({ organisationId, groups, currentUserId }: { organi
                   <td className={`${td} ${m.clientGroupIds === null ? 'text-ink-soft' : ''}`}>{describeGroupLimit(m.clientGroupIds, groups)}</td>
                   <td className={`${td} whitespace-nowrap`}>{formatDate(m.joinedAt)}</td>
                   <td className={`${td} text-right`}>
-                    <div className="flex justify-end gap-2">
+                    <div className="flex items-start justify-end gap-2">
                       <Button variant="quiet" onClick={() => setEditing(m.membershipId)} aria-label={`Change access of ${m.name}`}>
                         Change access
                       </Button>

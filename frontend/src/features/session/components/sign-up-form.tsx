@@ -24,7 +24,7 @@ export function SignUpForm({ onSignedUp }: { onSignedUp: () => void }) {
       <div>
         <h1>Create an account</h1>
         <p className="mt-1 text-sm text-ink-soft">
-          Your organisation starts on a 30-day trial with every feature. You become its administrator and can invite colleagues.
+          Your organisation starts on a free 30-day trial. You become its administrator and can invite colleagues.
         </p>
       </div>
       <TextField label="Your name" name="name" autoComplete="name" error={fieldErrors.name} />
