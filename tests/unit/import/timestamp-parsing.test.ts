@@ -102,3 +102,48 @@ describe('Excel serial dates', () => {
     expect(p.parse('1/1/2024')).toBeNaN();
   });
 });
+
+describe('local time round trip (property)', () => {
+  // Independent reference: luxon formats each instant as wall-clock text in the zone; reading it back
+  // must give the instant itself (in a repeated hour, one of the two readings does).
+  const zones = ['America/Chicago', 'Europe/Berlin', 'Australia/Lord_Howe', 'Asia/Kolkata', 'America/St_Johns', 'Pacific/Chatham'];
+  it('reads back any instant from 2000 to 2040 written as local text, in zones with whole, half-hour and 30-min DST offsets', async () => {
+    const fc = await import('fast-check');
+    const { DateTime } = await import('luxon');
+    fc.assert(
+      fc.property(fc.constantFrom(...zones), fc.integer({ min: 946_684_800, max: 2_208_988_800 }), (zone, seconds) => {
+        const t = seconds * 1000;
+        const text = DateTime.fromMillis(t, { zone }).toFormat('yyyy-MM-dd HH:mm:ss');
+        const earlier = parser({ format: 'local-text', timeZone: zone, dateOrder: 'ymd', repeatedHour: 'earlier' }).parse(text);
+        const later = parser({ format: 'local-text', timeZone: zone, dateOrder: 'ymd', repeatedHour: 'later' }).parse(text);
+        return earlier === t || later === t;
+      }),
+      { numRuns: 3000, seed: 20240310 },
+    );
+  });
+
+  it('reads back instants within three hours of clock changes', async () => {
+    const fc = await import('fast-check');
+    const { DateTime } = await import('luxon');
+    // clock-change instants (UTC) [from memory of the zone rules]; the loop below confirms each one really changes the offset
+    const changes: [string, number][] = [
+      ['America/Chicago', Date.UTC(2024, 2, 10, 8)],
+      ['America/Chicago', Date.UTC(2024, 10, 3, 7)],
+      ['Europe/Berlin', Date.UTC(2024, 2, 31, 1)],
+      ['Europe/Berlin', Date.UTC(2024, 9, 27, 1)],
+      ['Australia/Lord_Howe', Date.UTC(2024, 3, 6, 15)],
+      ['America/St_Johns', Date.UTC(2024, 10, 3, 4, 30)],
+    ];
+    for (const [zone, at] of changes) expect(DateTime.fromMillis(at - 3_600_000, { zone }).offset).not.toBe(DateTime.fromMillis(at + 3_600_000, { zone }).offset);
+    fc.assert(
+      fc.property(fc.constantFrom(...changes), fc.integer({ min: -3 * 3600, max: 3 * 3600 }), ([zone, at], seconds) => {
+        const t = at + seconds * 1000;
+        const text = DateTime.fromMillis(t, { zone }).toFormat('yyyy-MM-dd HH:mm:ss');
+        const earlier = parser({ format: 'local-text', timeZone: zone, dateOrder: 'ymd', repeatedHour: 'earlier' }).parse(text);
+        const later = parser({ format: 'local-text', timeZone: zone, dateOrder: 'ymd', repeatedHour: 'later' }).parse(text);
+        return earlier === t || later === t;
+      }),
+      { numRuns: 3000, seed: 20241103 },
+    );
+  });
+});
