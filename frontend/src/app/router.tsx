@@ -1,8 +1,9 @@
 import type { EnsureQueryDataOptions, QueryKey } from '@tanstack/react-query';
-import { createBrowserRouter, redirect, RouterProvider, type LoaderFunctionArgs } from 'react-router-dom';
+import { createBrowserRouter, Navigate, redirect, RouterProvider, type LoaderFunctionArgs } from 'react-router-dom';
 import type { Permission } from '@shared/permissions';
 import type { SessionResponse } from '@shared/schemas/session';
 import { RouteErrorPage } from '@frontend/components/ui/error-boundary';
+import { FirstLoad } from '@frontend/components/ui/query-state';
 import { apiTokensQueryOptions } from '@frontend/features/api-tokens/api/get-api-tokens';
 import { auditEventsQueryOptions } from '@frontend/features/audit/api/get-audit-events';
 import { clientGroupsQueryOptions } from '@frontend/features/client-groups/api/get-client-groups';
@@ -66,6 +67,7 @@ const router = createBrowserRouter([
     path: '/invitation',
     element: <InvitationPage />,
     errorElement: <RouteErrorPage />,
+    hydrateFallbackElement: <FirstLoad />,
     loader: async ({ request }) => {
       const token = new URL(request.url).searchParams.get('token');
       await Promise.all([session().catch(() => undefined), token ? prefetch(invitationLinkQueryOptions(token)) : undefined]);
@@ -76,6 +78,7 @@ const router = createBrowserRouter([
     path: '/mailbox',
     element: <MailboxPage />,
     errorElement: <RouteErrorPage />,
+    hydrateFallbackElement: <FirstLoad />,
     loader: async () => {
       const current = await session().catch(() => undefined);
       if (current?.devMailbox) await prefetch(mailboxQueryOptions());
@@ -87,13 +90,14 @@ const router = createBrowserRouter([
     element: <AppLayout />,
     loader: requireSignedIn,
     errorElement: <RouteErrorPage />,
+    hydrateFallbackElement: <FirstLoad />,
     children: [
       { index: true, element: <OverviewPage /> },
       {
         path: 'settings',
         element: <SettingsLayout />,
         children: [
-          { index: true, loader: () => redirect('/settings/profile') },
+          { index: true, element: <Navigate to="/settings/profile" replace /> },
           { path: 'profile', element: <ProfileSettingsPage /> },
           {
             path: 'members',

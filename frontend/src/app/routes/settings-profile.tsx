@@ -13,7 +13,7 @@ export function ProfileSettingsPage() {
       </div>
       <ProfileForm key={session.user.id} user={session.user} />
       <hr className="border-rule" />
-      <PasswordChangeForm />
+      <PasswordChangeForm email={session.user.email} />
     </section>
   );
 }

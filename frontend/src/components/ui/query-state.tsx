@@ -25,3 +25,12 @@ export function ErrorState({ what, error, onRetry }: { what: string; error: unkn
     </div>
   );
 }
+
+/** Shown on the very first load while route loaders fetch the session and the page's data. */
+export function FirstLoad() {
+  return (
+    <main className="flex min-h-screen items-center justify-center p-4">
+      <LoadingState what="Cleancase" />
+    </main>
+  );
+}

@@ -15,6 +15,8 @@ export const invitationLinkQueryOptions = (token: string) =>
     queryKey: ['invitation-links', token],
     queryFn: () => api<InvitationLinkView>(`/api/invitation-links/${encodeURIComponent(token)}`),
     staleTime: 0,
+    // A dead link stays dead: do not ask again when the page mounts after the loader already failed.
+    retryOnMount: false,
   });
 
 export const useInvitationLink = (token: string) => useQuery(invitationLinkQueryOptions(token));

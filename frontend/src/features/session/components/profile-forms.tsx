@@ -50,7 +50,7 @@ export function ProfileForm({ user }: { user: User }) {
   );
 }
 
-export function PasswordChangeForm() {
+export function PasswordChangeForm({ email }: { email: string }) {
   const change = useChangePassword();
   const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
@@ -70,6 +70,8 @@ export function PasswordChangeForm() {
           Changing it signs you out everywhere else (other browsers and devices); you stay signed in here.
         </p>
       </div>
+      {/* Lets password managers pair the new password with the account. */}
+      <input type="email" name="username" autoComplete="username" value={email} readOnly hidden />
       <TextField label="Current password" name="currentPassword" type="password" autoComplete="current-password" error={fieldErrors.currentPassword} />
       <TextField label="New password" name="newPassword" type="password" autoComplete="new-password" hint={PASSWORD_RULE} error={fieldErrors.newPassword} />
       {message && <Notice tone="fault">{message}</Notice>}
