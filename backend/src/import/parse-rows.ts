@@ -125,7 +125,7 @@ export async function checkImportFile(filePath: string, options: ImportFileOptio
     let ascending = true;
     let descending = true;
     let prev = Number.NaN;
-    for await (const row of table.rows) {
+    for await (const chunk of table.chunks) for (const row of chunk) {
       result.dataRows++;
       const good = converter.convert(row.cells, row.line, record, errors);
       const t = record[F.timestampUtc];
@@ -312,7 +312,7 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
 
     const errors = new RowErrorList(1);
     let lastTime = -Infinity;
-    for await (const row of table.rows) {
+    for await (const chunk of table.chunks) for (const row of chunk) {
       const record = new Float64Array(RECORD_FIELDS);
       if (!converter.convert(row.cells, row.line, record, errors)) {
         const e = errors.errors[0];
@@ -326,7 +326,7 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
         }
         lastTime = record[F.timestampUtc];
         window.push(record);
-        await drain();
+        if (pendingBatches.length > 0) await drain();
       }
     }
     if (sorter) {
@@ -337,7 +337,7 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
         }
         prev = record[F.timestampUtc];
         window.push(record);
-        await drain();
+        if (pendingBatches.length > 0) await drain();
       }
     }
     window.flush();

@@ -7,7 +7,7 @@ import { createReadStream } from 'node:fs';
 import { open, stat } from 'node:fs/promises';
 import { CsvError, parse, type Info } from 'csv-parse';
 import { ImportFileError } from './import-errors.js';
-import { HEADER_SEARCH_ROWS, MAX_LINE_CHARS, SAMPLE_ROWS, locateHeader, type RawRow, type RawTable } from './raw-table.js';
+import { CHUNK_ROWS, HEADER_SEARCH_ROWS, MAX_LINE_CHARS, locateHeader, tableFrom, type RawRow, type RawTable } from './raw-table.js';
 
 const HEAD_BYTES = 64 * 1024;
 const DELIMITERS = [',', ';', '\t', '|'] as const;
@@ -102,7 +102,24 @@ export async function openCsvTable(filePath: string, options: CsvReadOptions = {
   });
   input.on('error', (e) => parser.destroy(e));
   input.pipe(parser);
-  const iterator = (parser as AsyncIterable<{ record: string[]; info: Info }>)[Symbol.asyncIterator]();
+  // rows are taken from the parser in synchronous runs (read() until it is empty), not one promise per row
+  let ended = false;
+  let failure: unknown = null;
+  let wake: (() => void) | null = null;
+  const rouse = () => {
+    const w = wake;
+    wake = null;
+    w?.();
+  };
+  parser.on('readable', rouse);
+  parser.on('end', () => {
+    ended = true;
+    rouse();
+  });
+  parser.on('error', (e) => {
+    failure = e;
+    rouse();
+  });
 
   const translate = (e: unknown): Error => {
     const err = e as Error & { code?: unknown; lines?: unknown };
@@ -113,20 +130,28 @@ export async function openCsvTable(filePath: string, options: CsvReadOptions = {
     }
     return err;
   };
-  const next = async (): Promise<RawRow | null> => {
-    let r: IteratorResult<{ record: string[]; info: Info }>;
-    try {
-      r = await iterator.next();
-    } catch (e) {
-      throw translate(e);
+  /** The next run of rows (up to `max`), or null at the end of the file. */
+  const nextChunk = async (max: number): Promise<RawRow[] | null> => {
+    for (;;) {
+      if (failure) throw translate(failure);
+      const out: RawRow[] = [];
+      let item: { record: string[]; info: Info } | null;
+      while (out.length < max && (item = parser.read() as { record: string[]; info: Info } | null) !== null) {
+        const cells = item.record;
+        let chars = cells.length - 1;
+        for (const c of cells) chars += c.length;
+        if (chars > maxLine) throw lineTooLong(item.info.lines, maxLine);
+        out.push({ line: item.info.lines, cells });
+      }
+      if (out.length > 0) return out;
+      if (failure) throw translate(failure);
+      if (ended) return null;
+      await new Promise<void>((resolve) => {
+        wake = resolve;
+      });
     }
-    if (r.done) return null;
-    const cells = r.value.record;
-    let chars = cells.length - 1;
-    for (const c of cells) chars += c.length;
-    if (chars > maxLine) throw lineTooLong(r.value.info.lines, maxLine);
-    return { line: r.value.info.lines, cells };
   };
+  const next = async (): Promise<RawRow | null> => (await nextChunk(1))?.[0] ?? null;
   const close = async () => {
     input.destroy();
     parser.destroy();
@@ -148,22 +173,15 @@ export async function openCsvTable(filePath: string, options: CsvReadOptions = {
       if (!more) throw new ImportFileError('no-data-rows', 'the file has a header but no data rows');
       buffered.push(more);
     }
-    async function* rows(): AsyncGenerator<RawRow> {
+    async function* chunks(): AsyncGenerator<RawRow[]> {
       try {
-        yield* buffered;
-        for (let row = await next(); row; row = await next()) yield row;
+        yield buffered;
+        for (let chunk = await nextChunk(CHUNK_ROWS); chunk; chunk = await nextChunk(CHUNK_ROWS)) yield chunk;
       } finally {
         await close();
       }
     }
-    return {
-      kind: 'csv',
-      headers: located.headers,
-      headerLine: head[located.dataIndex - 1].line,
-      sampleRows: buffered.slice(0, SAMPLE_ROWS).map((r) => r.cells),
-      rows: rows(),
-      close,
-    };
+    return tableFrom('csv', located.headers, head[located.dataIndex - 1].line, buffered, chunks(), close);
   } catch (e) {
     await close();
     throw e;

@@ -8,7 +8,7 @@ import { createReadStream } from 'node:fs';
 import { open, stat } from 'node:fs/promises';
 import ExcelJS from 'exceljs';
 import { ImportFileError } from './import-errors.js';
-import { HEADER_SEARCH_ROWS, MAX_LINE_CHARS, SAMPLE_ROWS, locateHeader, type RawRow, type RawTable } from './raw-table.js';
+import { CHUNK_ROWS, HEADER_SEARCH_ROWS, MAX_LINE_CHARS, locateHeader, tableFrom, type RawRow, type RawTable } from './raw-table.js';
 
 const MS_PER_DAY = 86_400_000;
 const EXCEL_SERIAL_UNIX_EPOCH = 25_569;
@@ -117,22 +117,20 @@ export async function openXlsxTable(filePath: string, options: XlsxReadOptions =
       if (!more) throw new ImportFileError('no-data-rows', 'the sheet has a header but no data rows');
       buffered.push(more);
     }
-    async function* rows(): AsyncGenerator<RawRow> {
+    async function* chunks(): AsyncGenerator<RawRow[]> {
       try {
-        yield* buffered;
-        for (let row = await next(); row; row = await next()) yield row;
+        yield buffered;
+        for (;;) {
+          const chunk: RawRow[] = [];
+          for (let row = await next(); row; row = chunk.length < CHUNK_ROWS ? await next() : null) chunk.push(row);
+          if (chunk.length === 0) return;
+          yield chunk;
+        }
       } finally {
         await close();
       }
     }
-    return {
-      kind: 'xlsx',
-      headers: located.headers,
-      headerLine: head[located.dataIndex - 1].line,
-      sampleRows: buffered.slice(0, SAMPLE_ROWS).map((r) => r.cells),
-      rows: rows(),
-      close,
-    };
+    return tableFrom('xlsx', located.headers, head[located.dataIndex - 1].line, buffered, chunks(), close);
   } catch (e) {
     await close();
     throw e;
