@@ -7,8 +7,9 @@
  *   rounded to the nearest second (serials are binary fractions).
  * Daylight-saving changes for local times: a wall time inside the spring-forward gap does not exist and
  * is a file error; a wall time in the repeated autumn hour is read by the mapping's `repeatedHour` rule
- * (default by-file-order: the first pass through the hour is daylight time, a repeat after the clock
- * went back is standard time, which needs the file to be in time order through that hour).
+ * (default by-file-order: in an oldest-first file the first pass through the hour is daylight time and the
+ * repeat standard time, in a newest-first file the reverse; this needs the file in time order, either way,
+ * through that hour).
  * Zone offsets come from the runtime's time-zone database through luxon, cached per local day.
  */
 import { IANAZone } from 'luxon';
@@ -63,8 +64,11 @@ export class TimestampParser {
   private readonly dayCache = new Map<number, DayResolution>();
   private lastDay = Number.NaN;
   private lastResolution?: DayResolution;
+  private previousNaive = Number.NaN;
   private overlapDay = Number.NaN;
-  private overlapMaxNaive = -Infinity;
+  private overlapDescending = false;
+  /** Latest (ascending) or earliest (descending) wall time seen in the first pass through the repeated hour. */
+  private overlapEdge = Number.NaN;
   private overlapRepeating = false;
 
   constructor(private readonly spec: ImportTimestamp) {
@@ -149,6 +153,8 @@ export class TimestampParser {
   }
 
   private wallClockToUtc(naive: number, text: string): number {
+    const previous = this.previousNaive;
+    this.previousNaive = naive;
     const zone = this.zone!;
     // a day whose first and last minute resolve alike has no clock change in it (real zones change at most once a day)
     const day = Math.floor(naive / MS_PER_DAY);
@@ -177,16 +183,20 @@ export class TimestampParser {
       case 'reject':
         return this.fail(`${text} occurs twice in ${zone.name} (the clocks went back): choose how to read the repeated hour`);
       default: {
-        const day = Math.floor(naive / MS_PER_DAY);
+        // A file in ascending order passes through the hour first in daylight time, then again in standard
+        // time; a newest-first file the other way round. The direction is taken from the row before the hour.
         if (day !== this.overlapDay) {
           this.overlapDay = day;
-          this.overlapMaxNaive = -Infinity;
+          this.overlapDescending = naive < previous;
+          this.overlapEdge = naive;
           this.overlapRepeating = false;
+        } else if (!this.overlapRepeating) {
+          const turnedBack = this.overlapDescending ? naive >= this.overlapEdge : naive <= this.overlapEdge;
+          if (turnedBack) this.overlapRepeating = true;
+          else this.overlapEdge = naive;
         }
-        if (!this.overlapRepeating && naive <= this.overlapMaxNaive) this.overlapRepeating = true;
-        if (this.overlapRepeating) return later;
-        this.overlapMaxNaive = naive;
-        return earlier;
+        const firstPassIsEarlier = !this.overlapDescending;
+        return this.overlapRepeating === firstPassIsEarlier ? later : earlier;
       }
     }
   }
@@ -197,7 +207,7 @@ export function describeTimestampRule(spec: ImportTimestamp): string {
   if (spec.format === 'iso-8601-offset') return 'timestamps are ISO 8601 with their own UTC offset';
   const what = spec.format === 'excel-serial' ? 'Excel serial dates (1900 system) in local time' : `local time text (${spec.dateOrder})`;
   const repeated = {
-    'by-file-order': 'the repeated hour when clocks go back is read in file order (first pass daylight time, the repeat standard time)',
+    'by-file-order': 'the repeated hour when clocks go back is read in file order (oldest-first: first pass daylight time, the repeat standard time; newest-first: the reverse)',
     earlier: 'the repeated hour when clocks go back is read as daylight time (the earlier instant)',
     later: 'the repeated hour when clocks go back is read as standard time (the later instant)',
     reject: 'times in the repeated hour when clocks go back are rejected',

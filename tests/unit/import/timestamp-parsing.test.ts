@@ -147,3 +147,18 @@ describe('local time round trip (property)', () => {
     );
   });
 });
+
+describe('repeated hour in a newest-first file', () => {
+  it('reads the first pass through the hour as standard time and the repeat as daylight time', () => {
+    const p = parser({ format: 'local-text', timeZone: 'America/Chicago', dateOrder: 'mdy' });
+    const walls = ['11/03/2024 02:00', '11/03/2024 01:30', '11/03/2024 01:00', '11/03/2024 01:30', '11/03/2024 01:00', '11/03/2024 00:30'];
+    expect(walls.map((w) => iso(p.parse(w)))).toEqual([
+      '2024-11-03T08:00:00.000Z',
+      '2024-11-03T07:30:00.000Z', // 01:30 CST
+      '2024-11-03T07:00:00.000Z',
+      '2024-11-03T06:30:00.000Z', // 01:30 CDT
+      '2024-11-03T06:00:00.000Z',
+      '2024-11-03T05:30:00.000Z',
+    ]);
+  });
+});
