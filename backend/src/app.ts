@@ -26,6 +26,9 @@ import { clientGroupRoutes } from './routes/client-group.routes.js';
 import { devMailboxRoutes } from './routes/dev-mailbox.routes.js';
 import { googleAuthRoutes } from './routes/google-auth.routes.js';
 import { healthRoutes } from './routes/health.routes.js';
+import { importRoutes } from './routes/import.routes.js';
+import { plantRoutes } from './routes/plant.routes.js';
+import { unitRoutes } from './routes/unit.routes.js';
 import { invitationRoutes } from './routes/invitation.routes.js';
 import { memberRoutes } from './routes/member.routes.js';
 import { SESSION_COOKIE, sessionRoutes } from './routes/session.routes.js';
@@ -120,6 +123,9 @@ export function createApp(deps: AppDeps): CleancaseApp {
     ...clientGroupRoutes(dataSource),
     ...apiTokenRoutes(dataSource),
     ...auditRoutes(dataSource),
+    ...plantRoutes(dataSource),
+    ...unitRoutes(dataSource),
+    ...importRoutes(dataSource, config),
     ...calcRoutes(),
     ...(withGoogle ? googleAuthRoutes(auth) : []),
     ...(deps.smtpSink ? devMailboxRoutes(deps.smtpSink) : []),

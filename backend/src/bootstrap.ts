@@ -6,6 +6,8 @@ import { buildDataSource } from './data-source.js';
 import { createLogger } from './logger.js';
 import { createMailer } from './mail/mailer.js';
 import type { SmtpSink } from './mail/smtp-sink.js';
+import { JOB_HANDLERS } from './jobs/job-handlers.js';
+import { startJobWorker } from './jobs/job-worker.js';
 import { seedDemoIfEmpty } from './seed/demo-seed.js';
 
 export interface Running {
@@ -27,12 +29,14 @@ export async function bootstrap(config: Config, options: { smtpSink?: SmtpSink; 
     const s = app.listen(config.PORT, config.HOST, () => resolve(s));
     s.once('error', reject);
   });
+  const worker = config.JOB_WORKER === 'on' ? startJobWorker(dataSource, JOB_HANDLERS, logger) : null;
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.PORT;
   const url = config.PUBLIC_URL ?? `http://${config.HOST}:${port}`;
   return {
     url: url || publicUrl(config),
     close: async () => {
+      await worker?.stop();
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await app.locals.close();

@@ -14,6 +14,10 @@ const schema = z.object({
   PUBLIC_URL: z.url().optional(),
   /** Where `npm start` builds the front end and the server finds it (relative to the project root). */
   FRONTEND_DIST_DIR: z.string().default('frontend/dist'),
+  /** Where uploaded historian files wait until their import has read them. */
+  UPLOAD_DIR: z.string().default('.data/uploads'),
+  /** Run background jobs in this process (turn off on processes that should only serve requests). */
+  JOB_WORKER: z.enum(['on', 'off']).default('on'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 
   DB_HOST: z.string().default('127.0.0.1'),

@@ -12,12 +12,18 @@ import type { Role } from '../../shared/permissions.js';
 import { addMember, createClientGroup, createInvitation, createTenant, createUser, CSRF, signedInAgent, type TenantFixture, uniqueEmail } from '../factories/accounts.js';
 import { startGoogleFake, type GoogleFake } from '../../scripts/lib/local-services.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
+import type { GeneratingUnit } from '../../backend/src/entities/generating-unit.entity.js';
+import type { Plant } from '../../backend/src/entities/plant.entity.js';
+import { createEvent, createPendingImport, createPlant, createUnit, TEST_CONDENSER, TEST_ECONOMICS, TEST_TURBINE } from '../factories/units.js';
 
 type Caller = 'anonymous' | Role | 'otherTenant' | 'otherGroup';
 const CALLERS: Caller[] = ['anonymous', 'admin', 'analyst', 'approver', 'viewer', 'otherTenant', 'otherGroup'];
 
 interface Fixture {
   a: TenantFixture;
+  /** A plant in client group One of tenant A, with one unit. */
+  plant: Plant;
+  unit: GeneratingUnit;
   b: TenantFixture;
   groupLimitedAdminEmail: string;
   emails: Record<Exclude<Caller, 'anonymous'>, string>;
@@ -38,6 +44,13 @@ const adminsOnly = (ok: number, extra: Partial<Record<Caller, number>> = {}) =>
   members(ok, { analyst: 403, approver: 403, viewer: 403, ...extra });
 
 const groupOne = (fx: Fixture) => fx.a.groups[0].id;
+/** Writers are admins and analysts; a record of tenant A in group One is out of scope for the other two callers. */
+const writers = (ok: number, extra: Partial<Record<Caller, number>> = {}) =>
+  members(ok, { approver: 403, viewer: 403, otherTenant: 404, otherGroup: 404, ...extra });
+const readers = (ok: number) => members(ok, { otherTenant: 404, otherGroup: 404 });
+const freshPlant = async (fx: Fixture) => createPlant(ds(), fx.a.organisation.id, groupOne(fx));
+const freshUnit = async (fx: Fixture) => createUnit(ds(), await freshPlant(fx));
+const plantBody = (fx: Fixture) => ({ name: `Plant ${Math.random().toString(36).slice(2)}`, timeZone: 'Europe/Berlin', clientGroupId: groupOne(fx) });
 
 const MATRIX: Record<string, Entry> = {
   'GET /api/health': { expect: all(200) },
@@ -114,6 +127,39 @@ const MATRIX: Record<string, Entry> = {
   'GET /api/auth/google': { expect: all(302) },
   'GET /api/auth/google/callback': { expect: all(302) },
   'GET /api/dev/mailbox': { expect: all(200) },
+  'GET /api/plants': { expect: members(200) },
+  'POST /api/plants': {
+    // With no client group: a member limited to groups may not create a plant they could not see.
+    body: () => ({ name: `Plant ${Math.random().toString(36).slice(2)}`, timeZone: 'America/Chicago', clientGroupId: null }),
+    expect: members(201, { approver: 403, viewer: 403, otherGroup: 400 }),
+  },
+  'GET /api/plants/:id': { path: (fx) => `/api/plants/${fx.plant.id}`, expect: readers(200) },
+  'PUT /api/plants/:id': { path: async (fx) => `/api/plants/${(await freshPlant(fx)).id}`, body: plantBody, expect: writers(200) },
+  'DELETE /api/plants/:id': { path: async (fx) => `/api/plants/${(await freshPlant(fx)).id}`, expect: writers(204) },
+  'POST /api/plants/:id/units': { path: (fx) => `/api/plants/${fx.plant.id}/units`, body: () => ({ name: `Unit ${Math.random().toString(36).slice(2)}` }), expect: writers(201) },
+  'GET /api/units/:id': { path: (fx) => `/api/units/${fx.unit.id}`, expect: readers(200) },
+  'PATCH /api/units/:id': { path: async (fx) => `/api/units/${(await freshUnit(fx)).id}`, body: () => ({ name: 'Renamed unit' }), expect: writers(200) },
+  'DELETE /api/units/:id': { path: async (fx) => `/api/units/${(await freshUnit(fx)).id}`, expect: writers(204) },
+  'PUT /api/units/:id/condenser': { path: (fx) => `/api/units/${fx.unit.id}/condenser`, body: () => TEST_CONDENSER, expect: writers(200) },
+  'PUT /api/units/:id/turbine': { path: (fx) => `/api/units/${fx.unit.id}/turbine`, body: () => TEST_TURBINE, expect: writers(200) },
+  'PUT /api/units/:id/economics': { path: (fx) => `/api/units/${fx.unit.id}/economics`, body: () => TEST_ECONOMICS, expect: writers(200) },
+  'GET /api/units/:id/daily': { path: (fx) => `/api/units/${fx.unit.id}/daily`, expect: readers(200) },
+  'GET /api/units/:id/events': { path: (fx) => `/api/units/${fx.unit.id}/events`, expect: readers(200) },
+  'POST /api/units/:id/events': { path: (fx) => `/api/units/${fx.unit.id}/events`, body: () => ({ kind: 'other', startDate: '2026-02-01', notes: 'walkdown' }), expect: writers(201) },
+  'PUT /api/events/:id': {
+    path: async (fx) => `/api/events/${(await createEvent(ds(), fx.unit)).id}`,
+    body: () => ({ kind: 'air-leak-repair', startDate: '2026-02-02' }),
+    expect: writers(200),
+  },
+  'DELETE /api/events/:id': { path: async (fx) => `/api/events/${(await createEvent(ds(), fx.unit)).id}`, expect: writers(204) },
+  // No file attached: writers are told to choose one; outside the scope the unit is not found first.
+  'POST /api/units/:id/uploads': { path: (fx) => `/api/units/${fx.unit.id}/uploads`, expect: writers(400) },
+  'GET /api/units/:id/imports': { path: (fx) => `/api/units/${fx.unit.id}/imports`, expect: readers(200) },
+  'GET /api/imports/:id': { path: async (fx) => `/api/imports/${(await createPendingImport(ds(), fx.unit)).id}`, expect: readers(200) },
+  // An empty mapping is refused with the fields it lacks.
+  'POST /api/imports/:id/start': { path: async (fx) => `/api/imports/${(await createPendingImport(ds(), fx.unit)).id}/start`, body: () => ({ mapping: {} }), expect: writers(400) },
+  'GET /api/imports/:id/errors.csv': { path: async (fx) => `/api/imports/${(await createPendingImport(ds(), fx.unit)).id}/errors.csv`, expect: readers(200) },
+  'DELETE /api/imports/:id': { path: async (fx) => `/api/imports/${(await createPendingImport(ds(), fx.unit)).id}`, expect: writers(200) },
 };
 
 let t: TestApp;
@@ -139,8 +185,12 @@ describe('isolation matrix over every registered route', () => {
     const b = await createTenant(t.dataSource, 'beta');
     const limited = await createUser(t.dataSource, 'alpha-limited-admin');
     await addMember(t.dataSource, a.organisation.id, limited, 'admin', [a.groups[1].id]);
+    const plant = await createPlant(t.dataSource, a.organisation.id, a.groups[0].id);
+    const unit = await createUnit(t.dataSource, plant);
     fx = {
       a,
+      plant,
+      unit,
       b,
       groupLimitedAdminEmail: limited.email,
       emails: {
@@ -176,7 +226,7 @@ describe('isolation matrix over every registered route', () => {
       for (const caller of CALLERS) {
         const agent = await agentFor(caller, !!entry.changesSession);
         const path = entry.path ? await entry.path(fx) : pattern;
-        let req = agent[method.toLowerCase() as 'get' | 'post' | 'patch' | 'delete'](path);
+        let req = agent[method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete'](path);
         if (method !== 'GET') req = req.set(CSRF);
         const body = entry.body?.(fx);
         const res = await (body === undefined ? req : req.send(body as object));

@@ -1,7 +1,7 @@
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
 import { GeneratingUnit } from './generating-unit.entity.js';
 
-export type ImportStatus = 'checking' | 'rejected' | 'importing' | 'complete' | 'failed' | 'undone';
+export type ImportStatus = 'mapping' | 'checking' | 'rejected' | 'importing' | 'complete' | 'failed' | 'undone';
 
 /** One historian file brought in: who, when, the mapping used, the outcome counts and the errors. */
 @Entity('data_import')

@@ -23,9 +23,9 @@ export class PerformanceSample {
   @Column({ type: 'boolean', default: false }) flowAssumed: boolean;
   @Column(num) hotwellC: number | null;
   @Column(num) dissolvedOxygenPpb: number | null;
-  @Column(num) airRemovalKgH: number | null;
+  @Column(num) airRemovalKgS: number | null;
   @Column(num) barometerKpa: number | null;
-  @Column(num) cwDifferentialKpa: number | null;
+  @Column(num) cwDifferentialPressureKpa: number | null;
   @Column(num) condensateFlowKgS: number | null;
   /** 'ok' or the reason code the point is left out of the calculations. */
   @Column({ type: 'varchar', length: 32 }) validity: string;

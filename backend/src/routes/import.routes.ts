@@ -1,0 +1,76 @@
+import type { Request } from 'express';
+import path from 'node:path';
+import type { DataSource } from 'typeorm';
+import { z } from 'zod';
+import type { Config } from '../config.js';
+import { idParam } from '../http/params.js';
+import type { RouteSpec } from '../http/route-registry.js';
+import { singleFileUpload } from '../http/upload.js';
+import { scopeOf } from '../policies/tenant-scope.js';
+import { getUnitOrThrow } from '../services/plant.service.js';
+import { errorReportCsv, findImport, importView, listImports, receiveUpload, startImport, undoImport } from '../services/import.service.js';
+
+const startBody = z.object({ mapping: z.unknown() }).strict();
+
+export function importRoutes(ds: DataSource, config: Config): RouteSpec[] {
+  const upload = singleFileUpload(path.resolve(config.UPLOAD_DIR));
+  const unitOrThrow = (req: Request) => getUnitOrThrow(ds, scopeOf(req.actor), idParam(req));
+  return [
+    {
+      method: 'post',
+      path: '/api/units/:id/uploads',
+      access: 'data.write',
+      tenantScoped: true,
+      // The unit is checked before a byte is stored: outside the scope answers 404 whatever is sent.
+      before: [async (req, _res, next) => unitOrThrow(req).then(() => next(), next), upload],
+      description: 'Upload a historian CSV or XLSX (up to 200 MB): returns its columns, first rows and a proposed mapping',
+      handler: async (req, res) => res.status(201).json(await receiveUpload(ds, scopeOf(req.actor), idParam(req), req.file!)),
+    },
+    {
+      method: 'get',
+      path: '/api/units/:id/imports',
+      access: 'data.read',
+      tenantScoped: true,
+      description: 'Import history of a unit, newest first',
+      handler: async (req, res) => res.json({ imports: await listImports(ds, scopeOf(req.actor), idParam(req)) }),
+    },
+    {
+      method: 'get',
+      path: '/api/imports/:id',
+      access: 'data.read',
+      tenantScoped: true,
+      description: 'One import: status, progress, counts by outcome and reason, errors by row and column',
+      handler: async (req, res) => res.json(importView(await findImport(ds, scopeOf(req.actor), idParam(req)))),
+    },
+    {
+      method: 'post',
+      path: '/api/imports/:id/start',
+      access: 'data.write',
+      tenantScoped: true,
+      body: startBody,
+      description: 'Confirm the column mapping and import (runs in the background; poll the import for progress)',
+      handler: async (req, res) => res.status(202).json(await startImport(ds, scopeOf(req.actor), idParam(req), req.body.mapping)),
+    },
+    {
+      method: 'get',
+      path: '/api/imports/:id/errors.csv',
+      access: 'data.read',
+      tenantScoped: true,
+      description: 'Every file error by row and column, as CSV (cells that could run as formulas are neutralised)',
+      handler: async (req, res) => {
+        const report = await errorReportCsv(ds, scopeOf(req.actor), idParam(req));
+        res.setHeader('content-type', 'text/csv; charset=utf-8');
+        res.setHeader('content-disposition', `attachment; filename="${report.fileName.replace(/[^A-Za-z0-9._-]/g, '_')}"`);
+        res.send(report.csv);
+      },
+    },
+    {
+      method: 'delete',
+      path: '/api/imports/:id',
+      access: 'data.write',
+      tenantScoped: true,
+      description: 'Undo an import: remove its rows and recompute',
+      handler: async (req, res) => res.json(await undoImport(ds, scopeOf(req.actor), idParam(req))),
+    },
+  ];
+}

@@ -1,0 +1,73 @@
+import type { DataSource } from 'typeorm';
+import type { UnitEventInput } from '@shared/schemas/unit-event.js';
+import { UnitEvent } from '../entities/unit-event.entity.js';
+import { notFound } from '../http/app-error.js';
+import { enqueueRecompute } from '../jobs/job-queue.js';
+import type { TenantScope } from '../policies/tenant-scope.js';
+import { findUnit } from '../repositories/plant.repository.js';
+import { recordAudit } from './audit.service.js';
+
+export const eventView = (e: UnitEvent) => ({
+  id: e.id,
+  unitId: e.unitId,
+  kind: e.kind,
+  startDate: e.startDate,
+  endDate: e.endDate,
+  methodId: e.methodId,
+  cost: e.cost === null ? null : Number(e.cost),
+  cleanlinessBefore: e.cleanlinessBefore,
+  cleanlinessAfter: e.cleanlinessAfter,
+  pluggedTubesAfter: e.pluggedTubesAfter,
+  notes: e.notes,
+  createdAt: e.createdAt.toISOString(),
+});
+
+/** Events that change derived data: a cleaning restarts the trend, plugging changes the tube count. */
+const changesDerivedData = (kind: string) => kind === 'cleaning' || kind === 'tube-plugging';
+
+export async function listEvents(ds: DataSource, scope: TenantScope, unitId: string) {
+  if (!(await findUnit(ds.manager, scope, unitId))) throw notFound('No such unit');
+  const rows = await ds.getRepository(UnitEvent).find({ where: { unitId, organisationId: scope.organisationId }, order: { startDate: 'ASC', createdAt: 'ASC' } });
+  return rows.map(eventView);
+}
+
+export async function addEvent(ds: DataSource, scope: TenantScope, unitId: string, input: UnitEventInput) {
+  if (!(await findUnit(ds.manager, scope, unitId))) throw notFound('No such unit');
+  return ds.transaction(async (em) => {
+    const saved = await em.getRepository(UnitEvent).save({
+      organisationId: scope.organisationId,
+      unitId,
+      ...input,
+      cost: input.cost === null ? null : input.cost.toFixed(2),
+      createdByUserId: scope.userId,
+    });
+    if (changesDerivedData(input.kind)) await enqueueRecompute(em, scope.organisationId, unitId, `${input.kind} recorded`);
+    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'event.added', entityType: 'unit-event', entityId: saved.id, details: { kind: input.kind, startDate: input.startDate } });
+    return eventView(saved);
+  });
+}
+
+async function eventInScope(ds: DataSource, scope: TenantScope, id: string): Promise<UnitEvent> {
+  const e = await ds.getRepository(UnitEvent).findOneBy({ id, organisationId: scope.organisationId });
+  if (!e || !(await findUnit(ds.manager, scope, e.unitId))) throw notFound('No such event');
+  return e;
+}
+
+export async function updateEvent(ds: DataSource, scope: TenantScope, id: string, input: UnitEventInput) {
+  const e = await eventInScope(ds, scope, id);
+  return ds.transaction(async (em) => {
+    await em.getRepository(UnitEvent).update({ id }, { ...input, cost: input.cost === null ? null : input.cost.toFixed(2) });
+    if (changesDerivedData(e.kind) || changesDerivedData(input.kind)) await enqueueRecompute(em, scope.organisationId, e.unitId, 'event changed');
+    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'event.updated', entityType: 'unit-event', entityId: id, details: { kind: input.kind } });
+    return eventView(await em.getRepository(UnitEvent).findOneByOrFail({ id }));
+  });
+}
+
+export async function deleteEvent(ds: DataSource, scope: TenantScope, id: string): Promise<void> {
+  const e = await eventInScope(ds, scope, id);
+  await ds.transaction(async (em) => {
+    await em.getRepository(UnitEvent).delete({ id });
+    if (changesDerivedData(e.kind)) await enqueueRecompute(em, scope.organisationId, e.unitId, 'event deleted');
+    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'event.deleted', entityType: 'unit-event', entityId: id, details: { kind: e.kind, startDate: e.startDate } });
+  });
+}

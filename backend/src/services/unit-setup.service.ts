@@ -1,0 +1,41 @@
+import type { DataSource } from 'typeorm';
+import type { CondenserSetup, EconomicsSetup, TurbineSetup } from '@shared/schemas/unit-setup.js';
+import { BackgroundJob } from '../entities/background-job.entity.js';
+import { GeneratingUnit } from '../entities/generating-unit.entity.js';
+import { Plant } from '../entities/plant.entity.js';
+import { enqueueRecompute } from '../jobs/job-queue.js';
+import type { TenantScope } from '../policies/tenant-scope.js';
+import { recordAudit } from './audit.service.js';
+import { getUnitOrThrow } from './plant.service.js';
+
+export type SetupPart = 'condenser' | 'turbine' | 'economics';
+
+export async function unitDetail(ds: DataSource, scope: TenantScope, id: string) {
+  const unit = await getUnitOrThrow(ds, scope, id);
+  const plant = await ds.getRepository(Plant).findOneByOrFail({ id: unit.plantId });
+  const jobs = await ds.getRepository(BackgroundJob).find({ where: { unitId: id }, order: { createdAt: 'DESC' }, take: 5 });
+  const counts = (await ds.query(`SELECT COUNT(*) AS n, MIN(timestampUtc) AS first, MAX(timestampUtc) AS last FROM performance_sample WHERE unitId = ?`, [id]))[0];
+  return {
+    id: unit.id,
+    name: unit.name,
+    plant: { id: plant.id, name: plant.name, timeZone: plant.timeZone, clientGroupId: plant.clientGroupId },
+    condenser: unit.condenser,
+    turbine: unit.turbine,
+    economics: unit.economics,
+    setupVersion: unit.setupVersion,
+    setupComplete: !!(unit.condenser && unit.turbine && unit.economics),
+    samples: { count: Number(counts.n), first: counts.first ? new Date(counts.first).toISOString() : null, last: counts.last ? new Date(counts.last).toISOString() : null },
+    jobs: jobs.map((j) => ({ id: j.id, kind: j.kind, status: j.status, progress: j.progress, message: j.message, createdAt: j.createdAt.toISOString(), finishedAt: j.finishedAt?.toISOString() ?? null })),
+  };
+}
+
+/** Saves one part of the setup; derived data is recomputed in the background. */
+export async function saveSetupPart(ds: DataSource, scope: TenantScope, id: string, part: SetupPart, value: CondenserSetup | TurbineSetup | EconomicsSetup) {
+  const unit = await getUnitOrThrow(ds, scope, id);
+  await ds.transaction(async (em) => {
+    await em.getRepository(GeneratingUnit).update({ id, organisationId: scope.organisationId }, { [part]: value, setupVersion: unit.setupVersion + 1 });
+    await enqueueRecompute(em, scope.organisationId, id, `${part} setup changed`);
+    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: `unit.${part}-saved`, entityType: 'unit', entityId: id, details: { from: unit[part], to: value } as Record<string, unknown> });
+  });
+  return unitDetail(ds, scope, id);
+}

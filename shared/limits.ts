@@ -1,0 +1,10 @@
+/** Named limits used by both sides. */
+
+/** Largest historian file accepted (PRODUCT.md: up to 200 MB). */
+export const MAX_UPLOAD_BYTES = 200 * 1024 * 1024;
+
+/** File errors kept on an import and shown/downloaded (the count beyond is reported). */
+export const MAX_LISTED_IMPORT_ERRORS = 10_000;
+
+/** Points per chart series after downsampling (LTTB). */
+export const MAX_SERIES_POINTS = 2_000;

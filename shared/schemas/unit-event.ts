@@ -1,0 +1,27 @@
+import { z } from 'zod';
+
+export const UNIT_EVENT_KINDS = ['cleaning', 'tube-plugging', 'air-leak-repair', 'outage', 'other'] as const;
+
+const isoDate = z.iso.date('Use a date like 2026-05-14');
+
+export const unitEventInput = z
+  .object({
+    kind: z.enum(UNIT_EVENT_KINDS),
+    startDate: isoDate,
+    endDate: isoDate.nullable().default(null),
+    methodId: z.string().max(64).nullable().default(null),
+    cost: z.number().min(0).max(1e10).nullable().default(null),
+    cleanlinessBefore: z.number().gt(0).max(1.2).nullable().default(null),
+    cleanlinessAfter: z.number().gt(0).max(1.2).nullable().default(null),
+    pluggedTubesAfter: z.number().int().min(0).nullable().default(null),
+    notes: z.string().max(2000).nullable().default(null),
+  })
+  .strict()
+  .refine((e) => e.endDate === null || e.endDate >= e.startDate, { message: 'The end is before the start', path: ['endDate'] })
+  .refine((e) => e.kind !== 'tube-plugging' || e.pluggedTubesAfter !== null, { message: 'Give the plugged-tube count after the plugging', path: ['pluggedTubesAfter'] })
+  .refine((e) => e.kind !== 'outage' || e.endDate !== null, { message: 'Give the last day of the outage', path: ['endDate'] });
+export type UnitEventInput = z.infer<typeof unitEventInput>;
+
+export const dailyQuery = z
+  .object({ from: isoDate.optional(), to: isoDate.optional() })
+  .strict();
