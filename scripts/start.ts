@@ -71,7 +71,7 @@ try {
   const distDir = path.resolve(root, config.FRONTEND_DIST_DIR);
   await build({ configFile: path.join(root, 'vite.config.ts'), logLevel: 'warn', mode: 'production', build: { outDir: distDir } });
 
-  const running: Running = await bootstrap(config, { smtpSink, staticDir: distDir });
+  const running: Running = await bootstrap(config, { smtpSink, staticDir: distDir, log });
   stops.push(running.close);
 
   log(`Cleancase is ready: ${running.url}`);

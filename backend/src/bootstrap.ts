@@ -15,13 +15,15 @@ export interface Running {
   close: () => Promise<void>;
 }
 
-export async function bootstrap(config: Config, options: { smtpSink?: SmtpSink; staticDir?: string; seed?: boolean } = {}): Promise<Running> {
+export async function bootstrap(config: Config, options: { smtpSink?: SmtpSink; staticDir?: string; seed?: boolean; log?: (line: string) => void } = {}): Promise<Running> {
   const logger = createLogger(config.LOG_LEVEL);
   const dataSource = buildDataSource({ host: config.DB_HOST, port: config.DB_PORT, database: config.DB_NAME, user: config.DB_USER, password: config.DB_PASSWORD });
   await dataSource.initialize();
   const applied = await dataSource.runMigrations({ transaction: 'each' });
   if (applied.length) logger.info({ migrations: applied.map((m) => m.name) }, 'migrations applied');
-  if (options.seed !== false) await seedDemoIfEmpty(dataSource, (line) => logger.info(line));
+  if (options.seed !== false && config.DEMO_DATA !== 'none') {
+    await seedDemoIfEmpty(dataSource, options.log ?? ((line) => logger.info(line)), config.DEMO_DATA === 'full');
+  }
 
   const mailer = createMailer({ smtpUrl: config.SMTP_URL, sinkPort: options.smtpSink?.port, from: config.MAIL_FROM });
   const app = createApp({ config, dataSource, logger, mailer, smtpSink: options.smtpSink, staticDir: options.staticDir });

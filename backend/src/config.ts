@@ -16,6 +16,8 @@ const schema = z.object({
   FRONTEND_DIST_DIR: z.string().default('frontend/dist'),
   /** Where uploaded historian files wait until their import has read them. */
   UPLOAD_DIR: z.string().default('.data/uploads'),
+  /** What an empty database is seeded with: people only, or people with plants, units and years of data. */
+  DEMO_DATA: z.enum(['full', 'people', 'none']).default('full'),
   /** Run background jobs in this process (turn off on processes that should only serve requests). */
   JOB_WORKER: z.enum(['on', 'off']).default('on'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),

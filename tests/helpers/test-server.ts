@@ -8,7 +8,7 @@ import { createEmptyDatabase } from './test-database.js';
 const distDir = path.resolve(import.meta.dirname, '..', '..', 'frontend', 'dist');
 
 /** The whole product on a free port: fresh database with the demo seed, built front end, SMTP sink. */
-export async function startTestServer(): Promise<Running & { mailbox: () => ReturnType<Awaited<ReturnType<typeof startSmtpSink>>['messages']> }> {
+export async function startTestServer(options: { demoData?: 'full' | 'people' } = {}): Promise<Running & { mailbox: () => ReturnType<Awaited<ReturnType<typeof startSmtpSink>>['messages']> }> {
   if (!existsSync(path.join(distDir, 'index.html'))) {
     throw new Error('frontend/dist is missing: npm test builds it first (or run `npx vite build`)');
   }
@@ -23,6 +23,7 @@ export async function startTestServer(): Promise<Running & { mailbox: () => Retu
     DB_NAME: db.database,
     DB_USER: db.user,
     DB_PASSWORD: db.password,
+    DEMO_DATA: options.demoData ?? 'people',
   });
   const running = await bootstrap(config, { smtpSink, staticDir: distDir });
   return {

@@ -5,6 +5,7 @@ import { Membership } from '../entities/membership.entity.js';
 import { Organisation } from '../entities/organisation.entity.js';
 import { User } from '../entities/user.entity.js';
 import { DEMO_ORGANISATIONS, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people.js';
+import { seedDemoUnits } from './demo-units-seed.js';
 
 export interface DemoSignIn {
   email: string;
@@ -23,8 +24,11 @@ export function demoSignIns(): DemoSignIn[] {
   }));
 }
 
-/** Seeds the demo scenario when the database holds no organisation yet. Returns true when it seeded. */
-export async function seedDemoIfEmpty(dataSource: DataSource, log: (line: string) => void = () => {}): Promise<boolean> {
+/**
+ * Seeds the demo scenario when the database holds no organisation yet: people and organisations, and with
+ * `withData` the demo plants, units and their imported history. Returns true when it seeded.
+ */
+export async function seedDemoIfEmpty(dataSource: DataSource, log: (line: string) => void = () => {}, withData = true): Promise<boolean> {
   if ((await dataSource.getRepository(Organisation).count()) > 0) return false;
   log('Empty database: seeding the demo scenario');
   const passwordHash = await hashPassword(DEMO_PASSWORD);
@@ -53,5 +57,6 @@ export async function seedDemoIfEmpty(dataSource: DataSource, log: (line: string
       }
     }
   });
+  if (withData) await seedDemoUnits(dataSource, log);
   return true;
 }
