@@ -25,6 +25,17 @@ export class DailyAggregate {
   @Column(num) loadKpa: number | null;
   @Column(num) pluggingKpa: number | null;
   @Column(num) unexplainedKpa: number | null;
+  /** Fitted fouling-trend cleanliness for the day (null where no trend could be fitted). */
+  @Column(num) trendCleanliness: number | null;
+  @Column(num) meanSubcoolingK: number | null;
+  @Column(num) meanDissolvedOxygenPpb: number | null;
+  @Column(num) meanAirRemovalKgS: number | null;
+  @Column({ type: 'boolean', default: false }) airLeakSuspected: boolean;
+  /** CW-side duty and the heat-balance duty at the day's mean load, for their reconciliation. */
+  @Column(num) meanDutyMw: number | null;
+  @Column(num) heatBalanceDutyMw: number | null;
+  /** Sensors whose readings did not change all day (six or more points). */
+  @Column({ type: 'json', nullable: true }) stuckSensors: string[] | null;
   /** Money over the day's valid hours (each valid point stands for its share of the day). */
   @Column(num) foulingCost: number | null;
   @Column(num) unexplainedCost: number | null;

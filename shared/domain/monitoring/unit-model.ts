@@ -36,6 +36,7 @@ export interface UnitSetupSi {
     replacementPricePerMwh: number;
     capacityLimitedShare: number;
     co2PricePerTonne: number;
+    discountRate: number;
   };
 }
 

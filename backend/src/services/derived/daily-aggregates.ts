@@ -7,7 +7,23 @@
 import type { DataSource } from 'typeorm';
 import { median } from './plant-day.js';
 
+/** Per-day facts the recompute knows beyond the samples themselves. */
+export interface DayFacts {
+  trendCleanliness: (day: string) => number | null;
+  airLeakSuspected: (day: string) => boolean;
+  heatBalanceDutyMw: (meanLoadMw: number) => number;
+  witnesses: (day: string) => { subcoolingK: number | null; dissolvedOxygenPpb: number | null; airRemovalKgS: number | null };
+}
+
+/** Raw sensors watched for readings that never change over a day. */
+// Load and CW flow are often held flat on purpose (set point, fixed pump line-up), so only the readings that always wander are watched.
+const SENSORS = ['backpressureKpa', 'cwInletC', 'cwOutletC'] as const;
+const STUCK_MIN_POINTS = 6;
+
 interface Acc {
+  first: Record<string, number | null>;
+  changed: Set<string>;
+  all: number;
   used: number;
   dropped: number;
   byReason: Record<string, number>;
@@ -16,16 +32,16 @@ interface Acc {
   sums: Record<string, number>;
 }
 
-const MEANS = ['backpressureKpa', 'expectedBackpressureKpa', 'excessBackpressureKpa', 'cwInletC', 'loadMw', 'heatRatePenaltyPct', 'foulingKpa', 'cwInletKpa', 'cwFlowKpa', 'loadKpa', 'pluggingKpa', 'unexplainedKpa', 'foulingCostPerHour', 'unexplainedCostPerHour'] as const;
+const MEANS = ['backpressureKpa', 'expectedBackpressureKpa', 'excessBackpressureKpa', 'cwInletC', 'loadMw', 'heatRatePenaltyPct', 'foulingKpa', 'cwInletKpa', 'cwFlowKpa', 'loadKpa', 'pluggingKpa', 'unexplainedKpa', 'foulingCostPerHour', 'unexplainedCostPerHour', 'dutyMw'] as const;
 
-export async function rebuildDailyAggregates(ds: DataSource, unitId: string, dayOf: (ts: number) => string): Promise<number> {
+export async function rebuildDailyAggregates(ds: DataSource, unitId: string, dayOf: (ts: number) => string, facts?: DayFacts): Promise<number> {
   const days = new Map<string, Acc>();
   const intervals: number[] = [];
   let lastTs: number | null = null;
   let lastId = '0';
   for (;;) {
     const rows: Record<string, unknown>[] = await ds.query(
-      `SELECT id, timestampUtc AS ts, validity, cleanliness, ttdK, ${MEANS.join(', ')} FROM performance_sample WHERE unitId = ? AND id > ? ORDER BY id LIMIT 20000`,
+      `SELECT id, timestampUtc AS ts, validity, cleanliness, ttdK, cwOutletC, cwFlowM3s, ${MEANS.join(', ')} FROM performance_sample WHERE unitId = ? AND id > ? ORDER BY id LIMIT 20000`,
       [unitId, lastId],
     );
     if (rows.length === 0) break;
@@ -36,7 +52,13 @@ export async function rebuildDailyAggregates(ds: DataSource, unitId: string, day
       lastTs = ts;
       const day = dayOf(ts);
       let acc = days.get(day);
-      if (!acc) days.set(day, (acc = { used: 0, dropped: 0, byReason: {}, cf: [], ttd: [], sums: Object.fromEntries(MEANS.map((m) => [m, 0])) }));
+      if (!acc) days.set(day, (acc = { first: {}, changed: new Set(), all: 0, used: 0, dropped: 0, byReason: {}, cf: [], ttd: [], sums: Object.fromEntries(MEANS.map((m) => [m, 0])) }));
+      acc.all++;
+      for (const sensor of SENSORS) {
+        const v = r[sensor] === null ? null : Number(r[sensor]);
+        if (!(sensor in acc.first)) acc.first[sensor] = v;
+        else if (acc.first[sensor] !== v) acc.changed.add(sensor);
+      }
       const valid = r.validity === 'ok' && r.cleanliness !== null;
       if (!valid) {
         acc.dropped++;
@@ -61,7 +83,13 @@ export async function rebuildDailyAggregates(ds: DataSource, unitId: string, day
       for (const [day, a] of slice) {
         const mean = (m: (typeof MEANS)[number]) => (a.used ? a.sums[m] / a.used : null);
         const hours = Math.min(24, (a.used + a.dropped) * intervalH);
+        const stuck = a.used >= STUCK_MIN_POINTS ? SENSORS.filter((sensor) => !a.changed.has(sensor)) : [];
+        const w = facts?.witnesses(day);
+        const meanLoad = mean('loadMw');
         values.push(
+          facts?.trendCleanliness(day) ?? null, w?.subcoolingK ?? null, w?.dissolvedOxygenPpb ?? null, w?.airRemovalKgS ?? null,
+          facts?.airLeakSuspected(day) ?? false, mean('dutyMw'), facts && meanLoad !== null ? facts.heatBalanceDutyMw(meanLoad) : null,
+          stuck.length ? JSON.stringify(stuck) : null,
           unitId, day, a.used, a.dropped, JSON.stringify(a.byReason), median(a.cf), median(a.ttd),
           mean('backpressureKpa'), mean('expectedBackpressureKpa'), mean('excessBackpressureKpa'), mean('cwInletC'), mean('loadMw'), mean('heatRatePenaltyPct'),
           mean('foulingKpa'), mean('cwInletKpa'), mean('cwFlowKpa'), mean('loadKpa'), mean('pluggingKpa'), mean('unexplainedKpa'),
@@ -69,9 +97,10 @@ export async function rebuildDailyAggregates(ds: DataSource, unitId: string, day
         );
       }
       await em.query(
-        `INSERT INTO daily_aggregate (unitId, day, pointsUsed, pointsDropped, droppedByReason, medianCleanliness, medianTtdK, meanBackpressureKpa, meanExpectedBackpressureKpa,
+        `INSERT INTO daily_aggregate (trendCleanliness, meanSubcoolingK, meanDissolvedOxygenPpb, meanAirRemovalKgS, airLeakSuspected, meanDutyMw, heatBalanceDutyMw, stuckSensors,
+           unitId, day, pointsUsed, pointsDropped, droppedByReason, medianCleanliness, medianTtdK, meanBackpressureKpa, meanExpectedBackpressureKpa,
            meanExcessBackpressureKpa, meanCwInletC, meanLoadMw, meanHeatRatePenaltyPct, foulingKpa, cwInletKpa, cwFlowKpa, loadKpa, pluggingKpa, unexplainedKpa, foulingCost, unexplainedCost)
-         VALUES ${slice.map(() => `(${new Array(21).fill('?').join(',')})`).join(',')}`,
+         VALUES ${slice.map(() => `(${new Array(29).fill('?').join(',')})`).join(',')}`,
         values,
       );
     }

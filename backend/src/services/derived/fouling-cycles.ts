@@ -45,3 +45,24 @@ export function trendCleanlinessOn(cycles: CycleTrend[], day: string): number | 
   const chosen = cycle.result.chosen;
   return cleanlinessAfter(chosen.model, chosen.cleanlinessAfterCleaning, daysBetween(cycle.startDay, day));
 }
+
+/** What the health view needs of a cycle's fit (plain JSON, stored with the unit). */
+export function cycleSummary(c: CycleTrend) {
+  if (c.result.status !== 'fitted') {
+    return { startDay: c.startDay, endDay: c.endDay, status: c.result.status, reason: c.result.reason, usablePoints: c.result.usablePoints, minimumPoints: c.result.minimumPoints, minimumSpanDays: c.result.minimumSpanDays };
+  }
+  const chosen = c.result.chosen;
+  return {
+    startDay: c.startDay,
+    endDay: c.endDay,
+    status: 'fitted' as const,
+    model: chosen.model,
+    cleanlinessAfterCleaning: chosen.cleanlinessAfterCleaning,
+    rSquared: chosen.rSquared,
+    residualStdCleanliness: chosen.residualStdCleanliness,
+    aic: chosen.aic,
+    pointsUsed: c.result.pointsUsed,
+    outlierDays: c.result.outlierDays.length,
+    alternatives: c.result.models.map((m) => ({ model: m.model.model, aic: m.aic, rSquared: m.rSquared })),
+  };
+}

@@ -6,14 +6,15 @@
  */
 import type { DataSource } from 'typeorm';
 import { analyseCondenserPoint } from '@shared/domain/condenser/index.js';
-import { analyseSample, buildUnitModel, type UnitModel, type UnitSetupSi } from '@shared/domain/monitoring/index.js';
+import { airLeakPeriods, analyseSample, buildUnitModel, judgeAirLeakDays, type UnitModel, type UnitSetupSi } from '@shared/domain/monitoring/index.js';
 import { PointRejectedError } from '@shared/domain/validity/index.js';
 import { GeneratingUnit } from '../../entities/generating-unit.entity.js';
 import { Plant } from '../../entities/plant.entity.js';
 import { UnitEvent } from '../../entities/unit-event.entity.js';
-import { fitCycles, trendCleanlinessOn, type CycleTrend } from './fouling-cycles.js';
+import { cycleSummary, fitCycles, trendCleanlinessOn, type CycleTrend } from './fouling-cycles.js';
 import { median, plantDayFormatter } from './plant-day.js';
 import { rebuildDailyAggregates } from './daily-aggregates.js';
+import { cleaningOutlook } from './cleaning-outlook.js';
 
 const CHUNK = 5_000;
 
@@ -25,14 +26,24 @@ interface RawRow {
   cwInletC: number;
   cwOutletC: number;
   cwFlowM3s: number;
+  hotwellC: number | null;
+  dissolvedOxygenPpb: number | null;
+  airRemovalKgS: number | null;
   validity: string;
+}
+
+interface DayWitness {
+  cf: number[];
+  subcooling: number[];
+  oxygen: number[];
+  air: number[];
 }
 
 async function* validRows(ds: DataSource, unitId: string): AsyncGenerator<RawRow[]> {
   let lastId = '0';
   for (;;) {
     const rows: RawRow[] = await ds.query(
-      `SELECT id, timestampUtc AS ts, loadMw, backpressureKpa, cwInletC, cwOutletC, cwFlowM3s, validity
+      `SELECT id, timestampUtc AS ts, loadMw, backpressureKpa, cwInletC, cwOutletC, cwFlowM3s, hotwellC, dissolvedOxygenPpb, airRemovalKgS, validity
          FROM performance_sample WHERE unitId = ? AND id > ? AND (validity = 'ok' OR validity LIKE 'model:%') ORDER BY id LIMIT ${CHUNK}`,
       [unitId, lastId],
     );
@@ -74,13 +85,14 @@ export async function recomputeUnit(ds: DataSource, unitId: string, onProgress: 
   if (!model) {
     await ds.query(`UPDATE performance_sample SET cleanliness = NULL, ttdK = NULL, expectedBackpressureKpa = NULL, excessBackpressureKpa = NULL, foulingCostPerHour = NULL WHERE unitId = ?`, [unitId]);
     const days = await rebuildDailyAggregates(ds, unitId, dayOf);
+    await ds.query('UPDATE generating_unit SET analysis = NULL WHERE id = ?', [unitId]);
     return { samples: total, days, cycles: [] };
   }
   const plugged = pluggedTubesOn(events, unit.condenser!.pluggedTubes);
 
-  // Pass 1: measured cleanliness per plant-local day.
+  // Pass 1: measured cleanliness and the air in-leakage witnesses per plant-local day.
   await onProgress(0.05, 'Measuring cleanliness');
-  const perDay = new Map<string, number[]>();
+  const perDay = new Map<string, DayWitness>();
   for await (const rows of validRows(ds, unitId)) {
     for (const r of rows) {
       const day = dayOf(new Date(r.ts).getTime());
@@ -95,18 +107,30 @@ export async function recomputeUnit(ds: DataSource, unitId: string, onProgress: 
           referenceCleanliness: model.referenceCleanliness,
           heiTables: model.heiTables,
         });
-        const list = perDay.get(day);
-        if (list) list.push(p.cleanliness);
-        else perDay.set(day, [p.cleanliness]);
+        let w = perDay.get(day);
+        if (!w) perDay.set(day, (w = { cf: [], subcooling: [], oxygen: [], air: [] }));
+        w.cf.push(p.cleanliness);
+        if (r.hotwellC !== null) w.subcooling.push(p.saturationC - r.hotwellC);
+        if (r.dissolvedOxygenPpb !== null) w.oxygen.push(r.dissolvedOxygenPpb);
+        if (r.airRemovalKgS !== null) w.air.push(r.airRemovalKgS);
       } catch {
         // rejected by the model: pass 2 records the reason
       }
     }
   }
+  const days = [...perDay.keys()].sort();
   const dailyCf = new Map<string, number>();
-  for (const [day, values] of perDay) dailyCf.set(day, median(values)!);
+  for (const day of days) dailyCf.set(day, median(perDay.get(day)!.cf)!);
+  const verdicts = judgeAirLeakDays(
+    days.map((day) => {
+      const w = perDay.get(day)!;
+      return { day, cleanliness: dailyCf.get(day)!, subcoolingK: median(w.subcooling), dissolvedOxygenPpb: median(w.oxygen), airRemovalKgS: median(w.air) };
+    }),
+  );
+  const suspectedDays = new Set(verdicts.filter((v) => v.suspected).map((v) => v.day));
   const cleanings = events.filter((e) => e.kind === 'cleaning').map((e) => ({ date: e.endDate ?? e.startDate, cleanlinessAfter: e.cleanlinessAfter }));
-  const cycles = fitCycles(dailyCf, cleanings, new Set());
+  // Flagged air in-leakage days are left out of the fit, so a weeks-long leak is not booked as fouling.
+  const cycles = fitCycles(dailyCf, cleanings, suspectedDays);
 
   // Pass 2: full analysis with the day's trend CF, written back through a temporary table on one connection.
   const columns = ['validity', 'cleanliness', 'ttdK', 'dutyMw', 'expectedBackpressureKpa', 'excessBackpressureKpa', 'foulingKpa', 'cwInletKpa', 'cwFlowKpa', 'loadKpa', 'pluggingKpa', 'unexplainedKpa', 'heatRatePenaltyPct', 'foulingCostPerHour', 'unexplainedCostPerHour'];
@@ -144,6 +168,34 @@ export async function recomputeUnit(ds: DataSource, unitId: string, onProgress: 
     await runner.release();
   }
   await onProgress(0.92, 'Building daily figures');
-  const days = await rebuildDailyAggregates(ds, unitId, dayOf);
-  return { samples: total, days, cycles };
+  const dayCount = await rebuildDailyAggregates(ds, unitId, dayOf, {
+    trendCleanliness: (day) => trendCleanlinessOn(cycles, day) ?? null,
+    airLeakSuspected: (day) => suspectedDays.has(day),
+    heatBalanceDutyMw: (meanLoadMw) => model.heatBalanceDutyMw(meanLoadMw / model.ratingMw),
+    witnesses: (day) => {
+      const w = perDay.get(day);
+      return { subcoolingK: w ? median(w.subcooling) : null, dissolvedOxygenPpb: w ? median(w.oxygen) : null, airRemovalKgS: w ? median(w.air) : null };
+    },
+  });
+  const periods = airLeakPeriods(verdicts);
+  await onProgress(0.97, 'Planning the next cleaning');
+  const lastCycle = cycles.at(-1);
+  const lastFit = lastCycle?.result.status === 'fitted' ? lastCycle.result.chosen : null;
+  const history: { day: string | Date; cwInletC: number; loadMw: number }[] = await ds.query(
+    'SELECT day, meanCwInletC AS cwInletC, meanLoadMw AS loadMw FROM daily_aggregate WHERE unitId = ? AND pointsUsed > 0 ORDER BY day',
+    [unitId],
+  );
+  const outlook = days.length
+    ? cleaningOutlook({
+        model,
+        setup: { condenser: unit.condenser!, turbine: unit.turbine!, economics: unit.economics! } as UnitSetupSi,
+        lastDay: days.at(-1)!,
+        cycle: lastCycle && lastFit ? { startDay: lastCycle.startDay, model: lastFit.model, cleanlinessAfterCleaning: lastFit.cleanlinessAfterCleaning } : null,
+        history: history.map((h) => ({ date: typeof h.day === 'string' ? h.day : h.day.toISOString().slice(0, 10), cwInletC: h.cwInletC, loadFraction: h.loadMw / model.ratingMw })),
+        plannedOutages: events.filter((e) => e.kind === 'outage' && e.endDate).map((e) => ({ from: e.startDate, to: e.endDate! })),
+      })
+    : null;
+  const analysis = { computedAt: new Date().toISOString(), setupVersion: unit.setupVersion, lastDay: days.at(-1) ?? null, cycles: cycles.map(cycleSummary), airLeakPeriods: periods, outlook };
+  await ds.query('UPDATE generating_unit SET analysis = ? WHERE id = ?', [JSON.stringify(analysis), unitId]);
+  return { samples: total, days: dayCount, cycles };
 }
