@@ -10,8 +10,12 @@ import { clientGroupsQueryOptions } from '@frontend/features/client-groups/api/g
 import { mailboxQueryOptions } from '@frontend/features/dev-mailbox/api/get-mailbox';
 import { invitationsQueryOptions } from '@frontend/features/members/api/get-invitations';
 import { membersQueryOptions } from '@frontend/features/members/api/get-members';
+import { plantsQueryOptions } from '@frontend/features/plants/api/get-plants';
 import { invitationLinkQueryOptions } from '@frontend/features/session/api/get-invitation-link';
 import { sessionQueryOptions } from '@frontend/features/session/api/get-session';
+import { unitQueryOptions } from '@frontend/features/units/api/get-unit';
+import { eventsQueryOptions } from '@frontend/features/events/api/get-events';
+import { unitImportsQueryOptions } from '@frontend/features/imports/api/get-imports';
 import { signInReturningTo } from '@frontend/lib/safe-next';
 import { appQueryClient } from './app-query-client';
 import { AppLayout } from './routes/app-layout';
@@ -20,6 +24,7 @@ import { InvitationPage } from './routes/invitation';
 import { MailboxPage } from './routes/mailbox';
 import { NotFoundPage } from './routes/not-found';
 import { OverviewPage } from './routes/overview';
+import { PlantsPage } from './routes/plants';
 import { ResetPasswordPage } from './routes/reset-password';
 import { ApiTokensSettingsPage } from './routes/settings-api-tokens';
 import { AuditSettingsPage, auditFiltersFrom } from './routes/settings-audit';
@@ -29,6 +34,12 @@ import { MembersSettingsPage } from './routes/settings-members';
 import { ProfileSettingsPage } from './routes/settings-profile';
 import { SignInPage } from './routes/sign-in';
 import { SignUpPage } from './routes/sign-up';
+import { UnitEventsPage } from './routes/unit-events';
+import { UnitImportPage } from './routes/unit-import';
+import { UnitImportsPage } from './routes/unit-imports';
+import { UnitLayout } from './routes/unit-layout';
+import { UnitOverviewPage } from './routes/unit-overview';
+import { UnitSetupPage } from './routes/unit-setup';
 
 const session = () => appQueryClient.ensureQueryData(sessionQueryOptions());
 
@@ -93,6 +104,23 @@ const router = createBrowserRouter([
     hydrateFallbackElement: <FirstLoad />,
     children: [
       { index: true, element: <OverviewPage /> },
+      {
+        path: 'plants',
+        element: <PlantsPage />,
+        loader: tenantLoader('data.read', (org) => [prefetch(plantsQueryOptions(org)), prefetch(clientGroupsQueryOptions(org))]),
+      },
+      {
+        path: 'units/:unitId',
+        element: <UnitLayout />,
+        loader: tenantLoader('data.read', (org, { params }) => [prefetch(unitQueryOptions(org, params.unitId ?? ''))]),
+        children: [
+          { index: true, element: <UnitOverviewPage /> },
+          { path: 'setup', element: <UnitSetupPage /> },
+          { path: 'import', element: <UnitImportPage /> },
+          { path: 'imports', element: <UnitImportsPage />, loader: tenantLoader('data.read', (org, { params }) => [prefetch(unitImportsQueryOptions(org, params.unitId ?? ''))]) },
+          { path: 'events', element: <UnitEventsPage />, loader: tenantLoader('data.read', (org, { params }) => [prefetch(eventsQueryOptions(org, params.unitId ?? ''))]) },
+        ],
+      },
       {
         path: 'settings',
         element: <SettingsLayout />,

@@ -33,3 +33,19 @@ export function formText(form: HTMLFormElement, ...names: string[]): Record<stri
   const data = new FormData(form);
   return Object.fromEntries(names.map((n) => [n, String(data.get(n) ?? '')]));
 }
+
+/** Like zodFieldErrors, but a problem inside a list says which row (1-based) and which column it is in. */
+export function zodFieldErrorsByRow(error: z.ZodError, columnNames: Record<string, string> = {}): FieldErrors {
+  const out: FieldErrors = {};
+  for (const issue of error.issues) {
+    const key = issue.path.length ? String(issue.path[0]) : 'form';
+    const rowIndex = issue.path.findIndex((p) => typeof p === 'number');
+    const column = issue.path.at(-1);
+    const where =
+      rowIndex > 0
+        ? `Row ${(issue.path[rowIndex] as number) + 1}${typeof column === 'string' && columnNames[column] ? `, ${columnNames[column]}` : ''}: `
+        : '';
+    out[key] ??= `${where}${issue.message}`;
+  }
+  return out;
+}

@@ -12,3 +12,21 @@ export const ROLE_NOTES = {
   approver: 'reads everything, approves cases',
   viewer: 'reads dashboards and approved cases',
 } as const;
+
+/** A number with fixed decimals and thousands grouping, or a dash. */
+export const formatNumber = (value: number | null | undefined, decimals = 0): string =>
+  value === null || value === undefined || !Number.isFinite(value)
+    ? '—'
+    : value.toLocaleString('en-US', { minimumFractionDigits: decimals, maximumFractionDigits: decimals });
+
+/** Money with its currency code, e.g. "USD 48,200". */
+export const formatMoney = (value: number | null | undefined, currency = 'USD', decimals = 0): string =>
+  value === null || value === undefined ? '—' : `${currency} ${formatNumber(value, decimals)}`;
+
+/** A fraction as a percentage, e.g. 0.853 → "85.3 %". */
+export const formatPercent = (fraction: number | null | undefined, decimals = 1): string =>
+  fraction === null || fraction === undefined ? '—' : `${formatNumber(fraction * 100, decimals)} %`;
+
+/** Bytes as KB/MB for file sizes. */
+export const formatBytes = (bytes: number): string =>
+  bytes >= 1024 * 1024 ? `${formatNumber(bytes / 1024 / 1024, 1)} MB` : `${formatNumber(Math.max(1, Math.round(bytes / 1024)))} KB`;

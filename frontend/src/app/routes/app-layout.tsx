@@ -23,6 +23,9 @@ export function AppLayout() {
             <NavLink to="/" end className={navClass}>
               Overview
             </NavLink>
+            <NavLink to="/plants" className={navClass}>
+              Plants
+            </NavLink>
             <NavLink to="/settings" className={navClass}>
               Settings
             </NavLink>

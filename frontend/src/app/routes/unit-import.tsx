@@ -1,0 +1,73 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { useEffect, useState } from 'react';
+import { Link, useSearchParams } from 'react-router-dom';
+import { Button } from '@frontend/components/ui/button';
+import { linkClass } from '@frontend/components/ui/public-page';
+import { importIsRunning, useImport } from '@frontend/features/imports/api/get-import';
+import type { UploadResponse } from '@frontend/features/imports/api/upload-historian-file';
+import { ImportOutcome } from '@frontend/features/imports/components/import-outcome';
+import { MappingStep } from '@frontend/features/imports/components/mapping-step';
+import { UploadStep } from '@frontend/features/imports/components/upload-step';
+import { useUnitPage } from './unit-layout';
+
+/** Upload → map columns → progress and result. The running import's id sits in the address, so a reload keeps watching it. */
+export function UnitImportPage() {
+  const { organisationId, unit, units, cannotWrite } = useUnitPage();
+  const [search, setSearch] = useSearchParams();
+  const [upload, setUpload] = useState<UploadResponse | null>(null);
+  const importId = search.get('import');
+  const queryClient = useQueryClient();
+  const current = useImport(organisationId, importId);
+  const finished = current.data && !importIsRunning(current.data.status);
+  useEffect(() => {
+    // when an import ends, the unit's data span and jobs changed: refresh the frame and the history
+    if (finished) void queryClient.invalidateQueries({ queryKey: ['organisations', organisationId, 'units', unit.id] });
+  }, [finished, importId, organisationId, unit.id, queryClient]);
+
+  const startOver = () => {
+    setUpload(null);
+    setSearch({});
+  };
+
+  return (
+    <div className="flex flex-col gap-4">
+      {!importId && !upload && <UploadStep unitId={unit.id} onUploaded={setUpload} disabledReason={cannotWrite} />}
+      {!importId && upload && (
+        <MappingStep
+          organisationId={organisationId}
+          upload={upload}
+          plantTimeZone={unit.plant.timeZone}
+          designCwFlowM3s={unit.condenser?.designCwFlowM3s ?? null}
+          units={units}
+          onStarted={(view) => {
+            setUpload(null);
+            setSearch({ import: view.id });
+          }}
+          onCancel={startOver}
+        />
+      )}
+      {importId && <ImportOutcome organisationId={organisationId} importId={importId} />}
+      {importId && finished && (
+        <div className="flex flex-wrap items-center gap-4 text-sm">
+          <Button variant="quiet" onClick={startOver}>
+            Import another file
+          </Button>
+          <Link className={linkClass} to={`/units/${unit.id}/imports`}>
+            Import history
+          </Link>
+          <Link className={linkClass} to={`/units/${unit.id}`}>
+            Unit summary
+          </Link>
+        </div>
+      )}
+      {!unit.turbine && !importId && (
+        <p className="text-xs text-ink-soft">
+          The turbine is not set up yet: without its rating the low-load and steadiness checks are skipped for this import (physics checks still run).{' '}
+          <Link className={linkClass} to={`/units/${unit.id}/setup`}>
+            Set up the turbine
+          </Link>
+        </p>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,10 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '@frontend/lib/api-client';
+
+export function useDeleteEvent(organisationId: string, unitId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (id: string) => api<void>(`/api/events/${id}`, { method: 'DELETE' }),
+    onSettled: () => queryClient.invalidateQueries({ queryKey: ['organisations', organisationId, 'units', unitId] }),
+  });
+}

@@ -1,0 +1,12 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { UnitEventInput } from '@shared/schemas/unit-event';
+import { api } from '@frontend/lib/api-client';
+import type { UnitEventView } from './get-events';
+
+export function useUpdateEvent(organisationId: string, unitId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, ...body }: UnitEventInput & { id: string }) => api<UnitEventView>(`/api/events/${id}`, { method: 'PUT', body }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['organisations', organisationId, 'units', unitId] }),
+  });
+}

@@ -1,0 +1,307 @@
+import { useMemo, useState } from 'react';
+import {
+  DATE_ORDERS,
+  IMPORT_QUANTITIES,
+  IMPORT_QUANTITY_UNITS,
+  importMappingSchema,
+  REPEATED_HOUR_RULES,
+  TIMESTAMP_FORMATS,
+  type ImportMappingInput,
+  type ImportQuantity,
+} from '@shared/schemas/import-mapping';
+import { Button } from '@frontend/components/ui/button';
+import { DataTable, td, th, tr } from '@frontend/components/ui/data-table';
+import { Notice } from '@frontend/components/ui/notice';
+import { SelectField } from '@frontend/components/ui/select-field';
+import { TimeZonePicker } from '@frontend/components/ui/time-zone-picker';
+import { ApiError } from '@frontend/lib/api-client';
+import { formatStored, parseNumberText, type FieldUnits } from '@frontend/lib/field-units';
+import { useStartImport } from '../api/start-import';
+import type { ImportView } from '../api/get-import';
+import type { UploadResponse } from '../api/upload-historian-file';
+import { DATE_ORDER_LABELS, QUANTITY_LABELS, REPEATED_HOUR_LABELS, TIMESTAMP_FORMAT_LABELS, unitLabel } from './import-words';
+
+type Role = ImportQuantity | 'timestamp' | '';
+interface Assignment {
+  role: Role;
+  unit: string;
+}
+
+interface Props {
+  organisationId: string;
+  upload: UploadResponse;
+  plantTimeZone: string;
+  /** The condenser's design CW flow, m³/s; null when the condenser is not set up. */
+  designCwFlowM3s: number | null;
+  units: FieldUnits;
+  onStarted: (view: ImportView) => void;
+  onCancel: () => void;
+}
+
+const selectClass = 'w-full rounded border border-rule bg-paper-raised px-2 py-1 text-sm';
+
+function initialAssignments(upload: UploadResponse): Record<string, Assignment> {
+  const m = upload.proposedMapping;
+  const out: Record<string, Assignment> = Object.fromEntries(upload.headers.map((h) => [h, { role: '' as Role, unit: '' }]));
+  if (m.timestamp?.column && out[m.timestamp.column]) out[m.timestamp.column] = { role: 'timestamp', unit: '' };
+  for (const q of IMPORT_QUANTITIES) {
+    const ref = m.columns?.[q];
+    if (ref && out[ref.column]) out[ref.column] = { role: q, unit: ref.unit };
+  }
+  return out;
+}
+
+const defaultUnit = (q: ImportQuantity, guessed: string | null | undefined): string => {
+  const allowed = IMPORT_QUANTITY_UNITS[q] as readonly string[];
+  return guessed && allowed.includes(guessed) ? guessed : allowed[0];
+};
+
+/** Step 2: what each column is and in which unit, how to read the timestamps, and the assumptions for missing meters. */
+export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlowM3s, units, onStarted, onCancel }: Props) {
+  const start = useStartImport(organisationId);
+  const proposed = upload.proposedMapping;
+  const [assignments, setAssignments] = useState(() => initialAssignments(upload));
+  const [format, setFormat] = useState<(typeof TIMESTAMP_FORMATS)[number]>(proposed.timestamp?.format ?? 'iso-8601-offset');
+  const [timeZone, setTimeZone] = useState(proposed.timestamp?.timeZone ?? plantTimeZone);
+  const [dateOrder, setDateOrder] = useState<(typeof DATE_ORDERS)[number]>(proposed.timestamp?.dateOrder ?? 'ymd');
+  const [repeatedHour, setRepeatedHour] = useState<(typeof REPEATED_HOUR_RULES)[number]>(proposed.timestamp?.repeatedHour ?? 'by-file-order');
+  const [decimalSeparator, setDecimalSeparator] = useState<'.' | ','>(proposed.decimalSeparator ?? '.');
+  const [vacuum, setVacuum] = useState(!!proposed.columns?.condenserVacuum);
+  const [barometerText, setBarometerText] = useState(proposed.fixedBarometer ? String(proposed.fixedBarometer.value) : '');
+  const [barometerUnit, setBarometerUnit] = useState<string>(proposed.fixedBarometer?.unit ?? (units.pressureKpa.label === 'inHgA' ? 'inHg' : 'kPa'));
+  const [flowNotMetered, setFlowNotMetered] = useState(proposed.designCwFlowM3s !== undefined && !proposed.columns?.cwFlow);
+
+  const guessByHeader = useMemo(() => new Map(upload.guess.columns.map((g) => [g.header, g])), [upload]);
+
+  const assign = (header: string, role: Role) =>
+    setAssignments((current) => {
+      const next = { ...current };
+      // one column per quantity: choosing it here takes it from another column
+      if (role) for (const h of Object.keys(next)) if (h !== header && next[h].role === role) next[h] = { role: '', unit: '' };
+      next[header] = { role, unit: role && role !== 'timestamp' ? defaultUnit(role, guessByHeader.get(header)?.unit) : '' };
+      return next;
+    });
+
+  const toggleVacuum = (on: boolean) => {
+    setVacuum(on);
+    setAssignments((current) => {
+      const next = { ...current };
+      for (const h of Object.keys(next)) {
+        if (on && next[h].role === 'backpressure') next[h] = { ...next[h], role: 'condenserVacuum' };
+        if (!on && next[h].role === 'condenserVacuum') next[h] = { ...next[h], role: 'backpressure' };
+      }
+      return next;
+    });
+  };
+
+  const mapping: ImportMappingInput = useMemo(() => {
+    const columns: ImportMappingInput['columns'] = {};
+    let timestampColumn = '';
+    for (const [header, a] of Object.entries(assignments)) {
+      if (a.role === 'timestamp') timestampColumn = header;
+      else if (a.role && !(flowNotMetered && a.role === 'cwFlow')) (columns as Record<string, { column: string; unit: string }>)[a.role] = { column: header, unit: a.unit };
+    }
+    const barometer = parseNumberText(barometerText);
+    return {
+      timestamp: {
+        column: timestampColumn,
+        format,
+        ...(format !== 'iso-8601-offset' && { timeZone }),
+        ...(format === 'local-text' && { dateOrder }),
+        repeatedHour,
+      },
+      columns,
+      decimalSeparator,
+      ...(flowNotMetered && designCwFlowM3s !== null && { designCwFlowM3s }),
+      ...(vacuum && !columns.barometer && barometer !== undefined && { fixedBarometer: { value: barometer, unit: barometerUnit as 'kPa' } }),
+    };
+  }, [assignments, format, timeZone, dateOrder, repeatedHour, decimalSeparator, flowNotMetered, designCwFlowM3s, vacuum, barometerText, barometerUnit]);
+
+  const localProblems = useMemo(() => {
+    const parsed = importMappingSchema.safeParse(mapping);
+    const problems = parsed.success ? [] : parsed.error.issues.map((i) => (i.path[0] === 'timestamp' && i.path[1] === 'column' ? 'choose the timestamp column' : i.message));
+    if (flowNotMetered && designCwFlowM3s === null) problems.push('the design CW flow is not set: save the condenser setup first, or map a CW flow column');
+    return [...new Set(problems)];
+  }, [mapping, flowNotMetered, designCwFlowM3s]);
+  const serverProblems = start.error instanceof ApiError ? (start.error.details?.fieldErrors ?? []).map((f) => `${f.path}: ${f.message}`) : [];
+
+  const submit = () => {
+    if (localProblems.length) return;
+    start.mutate({ importId: upload.import.id, mapping }, { onSuccess: onStarted });
+  };
+
+  return (
+    <section aria-label="Map the columns" className="flex flex-col gap-4 rounded border border-rule bg-paper-raised p-4">
+      <div>
+        <h2>2. Say what each column is</h2>
+        <p className="text-sm text-ink-soft">
+          {upload.import.fileName}: {upload.headers.length} columns.{' '}
+          {upload.mappingSource === 'saved'
+            ? 'Filled in from this unit’s last import, which had the same columns.'
+            : 'Filled in from the column names and values; check every row, then start the import.'}{' '}
+          The mapping is kept for the next file.
+        </p>
+      </div>
+
+      <DataTable
+        caption="Columns of the file"
+        head={
+          <>
+            <th className={th}>Column in the file</th>
+            <th className={th}>First values</th>
+            <th className={th}>Is</th>
+            <th className={th}>Unit</th>
+            <th className={th}>Guess</th>
+          </>
+        }
+      >
+        {upload.headers.map((header, index) => {
+          const a = assignments[header];
+          const guess = guessByHeader.get(header);
+          const samples = upload.sampleRows.slice(0, 3).map((r) => r[index] ?? '');
+          return (
+            <tr key={header} className={tr} data-testid="mapping-row">
+              <td className={`${td} font-medium`}>{header}</td>
+              <td className={`${td} font-mono text-xs text-ink-soft`}>
+                {samples.map((s, k) => (
+                  <span key={k} className="block max-w-56 truncate" title={s}>
+                    {s || '(blank)'}
+                  </span>
+                ))}
+              </td>
+              <td className={td}>
+                <select aria-label={`What column ${header} is`} className={selectClass} value={a.role} onChange={(e) => assign(header, e.target.value as Role)}>
+                  <option value="">Not imported</option>
+                  <option value="timestamp">Timestamp</option>
+                  {IMPORT_QUANTITIES.map((q) => (
+                    <option key={q} value={q}>
+                      {QUANTITY_LABELS[q]}
+                    </option>
+                  ))}
+                </select>
+              </td>
+              <td className={td}>
+                {a.role && a.role !== 'timestamp' ? (
+                  <select aria-label={`Unit of column ${header}`} className={selectClass} value={a.unit} onChange={(e) => setAssignments({ ...assignments, [header]: { ...a, unit: e.target.value } })}>
+                    {(IMPORT_QUANTITY_UNITS[a.role] as readonly string[]).map((u) => (
+                      <option key={u} value={u}>
+                        {unitLabel(u)}
+                      </option>
+                    ))}
+                  </select>
+                ) : (
+                  <span className="text-xs text-ink-faint">{a.role === 'timestamp' ? 'format below' : '—'}</span>
+                )}
+              </td>
+              <td className={`${td} text-xs whitespace-nowrap`}>
+                {upload.mappingSource === 'saved' ? (
+                  <span className="text-ink-soft">saved mapping</span>
+                ) : guess?.quantity ? (
+                  <span className={guess.confidence >= 0.8 ? 'text-ok' : guess.confidence >= 0.5 ? 'text-warn' : 'text-ink-faint'} title={guess.note}>
+                    {Math.round(guess.confidence * 100)} % sure
+                  </span>
+                ) : (
+                  <span className="text-ink-faint">no guess</span>
+                )}
+              </td>
+            </tr>
+          );
+        })}
+      </DataTable>
+
+      <fieldset className="flex flex-col gap-3">
+        <legend className="mb-1 text-sm font-semibold">Timestamps</legend>
+        <div className="grid gap-3 md:grid-cols-2 lg:grid-cols-4">
+          <SelectField label="Timestamp format" value={format} onChange={(e) => setFormat(e.target.value as typeof format)}>
+            {TIMESTAMP_FORMATS.map((f) => (
+              <option key={f} value={f}>
+                {TIMESTAMP_FORMAT_LABELS[f]}
+              </option>
+            ))}
+          </SelectField>
+          {format !== 'iso-8601-offset' && <TimeZonePicker label="Clock of the file" value={timeZone} onChange={setTimeZone} hint={`The plant’s is ${plantTimeZone.replace(/_/g, ' ')}`} />}
+          {format === 'local-text' && (
+            <SelectField label="Date order" value={dateOrder} onChange={(e) => setDateOrder(e.target.value as typeof dateOrder)}>
+              {DATE_ORDERS.map((o) => (
+                <option key={o} value={o}>
+                  {DATE_ORDER_LABELS[o]}
+                </option>
+              ))}
+            </SelectField>
+          )}
+          {format !== 'iso-8601-offset' && (
+            <SelectField label="Repeated hour when clocks go back" value={repeatedHour} onChange={(e) => setRepeatedHour(e.target.value as typeof repeatedHour)}>
+              {REPEATED_HOUR_RULES.map((r) => (
+                <option key={r} value={r}>
+                  {REPEATED_HOUR_LABELS[r]}
+                </option>
+              ))}
+            </SelectField>
+          )}
+        </div>
+      </fieldset>
+
+      <fieldset className="flex flex-col gap-2">
+        <legend className="mb-1 text-sm font-semibold">Readings and assumptions</legend>
+        <label className="flex items-center gap-2 text-sm">
+          <input type="checkbox" checked={vacuum} onChange={(e) => toggleVacuum(e.target.checked)} />
+          The file gives condenser vacuum below the barometer, not absolute backpressure
+        </label>
+        {vacuum && !mapping.columns.barometer && (
+          <div className="ml-6 flex flex-wrap items-end gap-2">
+            <label className="flex flex-col gap-1 text-sm">
+              Fixed barometer (no barometer column)
+              <input
+                inputMode="decimal"
+                value={barometerText}
+                onChange={(e) => setBarometerText(e.target.value)}
+                className="w-28 rounded border border-rule bg-paper-raised px-2 py-1 text-right text-sm"
+              />
+            </label>
+            <select aria-label="Unit of the fixed barometer" className="rounded border border-rule bg-paper-raised px-2 py-1 text-sm" value={barometerUnit} onChange={(e) => setBarometerUnit(e.target.value)}>
+              {IMPORT_QUANTITY_UNITS.barometer.map((u) => (
+                <option key={u} value={u}>
+                  {unitLabel(u)}
+                </option>
+              ))}
+            </select>
+            <span className="text-xs text-ink-soft">Recorded as an assumption of this import.</span>
+          </div>
+        )}
+        <label className="flex items-center gap-2 text-sm">
+          <input type="checkbox" checked={flowNotMetered} disabled={designCwFlowM3s === null && !flowNotMetered} onChange={(e) => setFlowNotMetered(e.target.checked)} />
+          CW flow is not metered: use the design flow
+          <span className="text-xs text-ink-soft">
+            {designCwFlowM3s === null ? '(set up the condenser first)' : `(${formatStored(designCwFlowM3s, units.flowM3s)}, recorded as an assumption)`}
+          </span>
+        </label>
+        <div className="max-w-xs">
+          <SelectField label="Decimal separator in numbers" value={decimalSeparator} onChange={(e) => setDecimalSeparator(e.target.value as '.' | ',')}>
+            <option value=".">Point (1234.5)</option>
+            <option value=",">Comma (1234,5)</option>
+          </SelectField>
+        </div>
+      </fieldset>
+
+      {(localProblems.length > 0 || serverProblems.length > 0) && (
+        <div role="alert" className="rounded border border-warn/40 bg-ledger-50 px-3 py-2 text-sm text-warn" data-testid="mapping-problems">
+          <p className="font-medium">Before the import can start:</p>
+          <ul className="ml-5 list-disc">
+            {[...localProblems, ...serverProblems].map((p) => (
+              <li key={p}>{p}</li>
+            ))}
+          </ul>
+        </div>
+      )}
+      {start.isError && serverProblems.length === 0 && <Notice tone="fault">{start.error.message}</Notice>}
+      <div className="flex gap-2">
+        <Button onClick={submit} disabled={localProblems.length > 0 || start.isPending}>
+          {start.isPending ? 'Starting…' : 'Check and import'}
+        </Button>
+        <Button variant="quiet" onClick={onCancel}>
+          Choose another file
+        </Button>
+      </div>
+    </section>
+  );
+}

@@ -1,0 +1,11 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '@frontend/lib/api-client';
+import { plantsQueryOptions } from './get-plants';
+
+export function useDeleteUnit(organisationId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (id: string) => api<void>(`/api/units/${id}`, { method: 'DELETE' }),
+    onSettled: () => queryClient.invalidateQueries({ queryKey: plantsQueryOptions(organisationId).queryKey }),
+  });
+}

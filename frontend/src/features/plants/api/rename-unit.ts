@@ -1,0 +1,12 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '@frontend/lib/api-client';
+import type { UnitListItem } from './get-plants';
+
+export function useRenameUnit(organisationId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, name }: { id: string; name: string }) => api<UnitListItem>(`/api/units/${id}`, { method: 'PATCH', body: { name } }),
+    // the plant list and the unit's own page both show the name
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['organisations', organisationId] }),
+  });
+}

@@ -1,0 +1,96 @@
+import { useState, type FormEvent } from 'react';
+import { plantInput } from '@shared/schemas/unit-setup';
+import { Button } from '@frontend/components/ui/button';
+import type { GroupOption } from '@frontend/components/ui/client-group-picker';
+import { Notice } from '@frontend/components/ui/notice';
+import { SelectField } from '@frontend/components/ui/select-field';
+import { TextField } from '@frontend/components/ui/text-field';
+import { browserTimeZone, TimeZonePicker } from '@frontend/components/ui/time-zone-picker';
+import { formMessage, serverFieldErrors, zodFieldErrors, type FieldErrors } from '@frontend/lib/form-errors';
+import { useCreatePlant } from '../api/create-plant';
+import type { PlantView } from '../api/get-plants';
+import { useUpdatePlant } from '../api/update-plant';
+
+interface Props {
+  organisationId: string;
+  groups: GroupOption[];
+  /** The plant being changed; none: a new plant. */
+  plant?: PlantView;
+  onDone?: () => void;
+}
+
+/** Name, IANA time zone (days and schedules are plant-local) and client group of a plant. */
+export function PlantForm({ organisationId, groups, plant, onDone }: Props) {
+  const create = useCreatePlant(organisationId);
+  const update = useUpdatePlant(organisationId);
+  const mutation = plant ? update : create;
+  const [name, setName] = useState(plant?.name ?? '');
+  const [timeZone, setTimeZone] = useState(plant?.timeZone ?? browserTimeZone());
+  const [clientGroupId, setClientGroupId] = useState<string | null>(plant?.clientGroupId ?? null);
+  const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
+
+  const onSubmit = (event: FormEvent<HTMLFormElement>) => {
+    event.preventDefault();
+    const parsed = plantInput.safeParse({ name, timeZone, clientGroupId });
+    if (!parsed.success) return setFieldErrors(zodFieldErrors(parsed.error));
+    setFieldErrors({});
+    const onError = (e: Error) => setFieldErrors(serverFieldErrors(e));
+    if (plant) update.mutate({ id: plant.id, ...parsed.data }, { onSuccess: () => onDone?.(), onError });
+    else
+      create.mutate(parsed.data, {
+        onSuccess: () => {
+          setName('');
+          onDone?.();
+        },
+        onError,
+      });
+  };
+
+  const message = formMessage(mutation.error);
+  return (
+    <form
+      onSubmit={onSubmit}
+      noValidate
+      aria-label={plant ? `Change ${plant.name}` : 'New plant'}
+      className="flex flex-col gap-3 rounded border border-rule bg-paper-raised p-4"
+      onKeyDown={(e) => plant && e.key === 'Escape' && onDone?.()}
+    >
+      {!plant && <h2>New plant</h2>}
+      <div className="grid gap-3 md:grid-cols-[1fr_1.4fr_1fr]">
+        <TextField label="Plant name" name="name" value={name} onChange={(e) => setName(e.target.value)} error={fieldErrors.name} autoFocus={!!plant} />
+        <TimeZonePicker
+          label="Time zone"
+          value={timeZone}
+          onChange={setTimeZone}
+          error={fieldErrors.timeZone}
+          hint="The plant’s local clock: days, daily figures and schedules follow it."
+        />
+        <SelectField
+          label="Client group"
+          value={clientGroupId ?? ''}
+          onChange={(e) => setClientGroupId(e.target.value || null)}
+          error={fieldErrors.clientGroupId}
+          hint={groups.length === 0 ? 'No client groups in this organisation.' : undefined}
+        >
+          <option value="">No client group</option>
+          {groups.map((g) => (
+            <option key={g.id} value={g.id}>
+              {g.name}
+            </option>
+          ))}
+        </SelectField>
+      </div>
+      {message && <Notice tone="fault">{message}</Notice>}
+      <div className="flex gap-2">
+        {plant && (
+          <Button variant="quiet" onClick={onDone}>
+            Cancel
+          </Button>
+        )}
+        <Button type="submit" disabled={mutation.isPending}>
+          {mutation.isPending ? 'Saving…' : plant ? 'Save plant' : 'Create plant'}
+        </Button>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,124 @@
+import { useState, type FormEvent } from 'react';
+import { CO2_FACTORS_NOTE, CO2_KG_PER_MMBTU, type Fuel } from '@shared/domain/turbine/emission-factors';
+import { economicsSetup, FUELS, type EconomicsSetup } from '@shared/schemas/unit-setup';
+import { Button } from '@frontend/components/ui/button';
+import { Notice } from '@frontend/components/ui/notice';
+import { QuantityField } from '@frontend/components/ui/quantity-field';
+import { SelectField } from '@frontend/components/ui/select-field';
+import { TextField } from '@frontend/components/ui/text-field';
+import type { FieldUnits } from '@frontend/lib/field-units';
+import { formMessage, serverFieldErrors, zodFieldErrors, type FieldErrors } from '@frontend/lib/form-errors';
+import { useSaveSetupPart } from '../api/save-setup-part';
+import { storedValues, textFromStored, type FieldKind } from './setup-fields';
+
+export const FUEL_LABELS: Record<Fuel, string> = {
+  'natural-gas': 'Natural gas',
+  'bituminous-coal': 'Bituminous coal',
+  'sub-bituminous-coal': 'Sub-bituminous coal',
+  lignite: 'Lignite',
+  'distillate-oil-no2': 'Distillate oil (No. 2)',
+};
+
+const FIELDS = ['co2KgPerMmbtu', 'fuelPricePerMmbtu', 'replacementPricePerMwh', 'capacityLimitedShare', 'co2PricePerTonne', 'discountRate'] as const;
+type Field = (typeof FIELDS)[number];
+
+interface Props {
+  organisationId: string;
+  unitId: string;
+  saved: EconomicsSetup | null;
+  units: FieldUnits;
+  cannotWrite: string | null;
+}
+
+export function EconomicsForm({ organisationId, unitId, saved, units, cannotWrite }: Props) {
+  const save = useSaveSetupPart(organisationId, unitId, 'economics');
+  const kinds: Record<Field, FieldKind> = {
+    co2KgPerMmbtu: { unit: units.co2KgPerMmbtu },
+    fuelPricePerMmbtu: { unit: units.fuelPricePerMmbtu },
+    replacementPricePerMwh: 'plain',
+    capacityLimitedShare: 'percent',
+    co2PricePerTonne: 'plain',
+    discountRate: 'percent',
+  };
+  const [fuel, setFuel] = useState<string>(saved?.fuel ?? '');
+  const [currency, setCurrency] = useState(saved?.currency ?? 'USD');
+  const [texts, setTexts] = useState<Record<Field, string>>(() => {
+    const t = Object.fromEntries(FIELDS.map((f) => [f, textFromStored(saved?.[f] ?? null, kinds[f])])) as Record<Field, string>;
+    if (!saved) Object.assign(t, { co2PricePerTonne: '0', discountRate: '8' });
+    return t;
+  });
+  const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
+  const [savedAt, setSavedAt] = useState<number | null>(null);
+  const set = (f: Field) => (text: string) => setTexts((t) => ({ ...t, [f]: text }));
+
+  const chooseFuel = (value: string) => {
+    setFuel(value);
+    if (value in CO2_KG_PER_MMBTU) set('co2KgPerMmbtu')(textFromStored(CO2_KG_PER_MMBTU[value as Fuel], kinds.co2KgPerMmbtu));
+  };
+
+  const onSubmit = (event: FormEvent<HTMLFormElement>) => {
+    event.preventDefault();
+    const parsed = economicsSetup.safeParse({ ...storedValues(texts, kinds), fuel: fuel || undefined, currency: currency.trim().toUpperCase() });
+    if (!parsed.success) return setFieldErrors(zodFieldErrors(parsed.error));
+    setFieldErrors({});
+    save.mutate(parsed.data, { onSuccess: () => setSavedAt(Date.now()), onError: (e) => setFieldErrors(serverFieldErrors(e)) });
+  };
+
+  const money = (label: string) => label.replace('$', currency.trim().toUpperCase() || '$');
+  const disabled = !!cannotWrite;
+  const message = formMessage(save.error);
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label="Economics" className="flex flex-col gap-4">
+      <div className="grid gap-3 sm:grid-cols-3">
+        <SelectField label="Fuel" value={fuel} onChange={(e) => chooseFuel(e.target.value)} error={fieldErrors.fuel} disabled={disabled}>
+          <option value="">Choose…</option>
+          {FUELS.map((f) => (
+            <option key={f} value={f}>
+              {FUEL_LABELS[f as Fuel] ?? f}
+            </option>
+          ))}
+        </SelectField>
+        <QuantityField
+          label="CO2 factor"
+          unit={units.co2KgPerMmbtu.label}
+          value={texts.co2KgPerMmbtu}
+          onChange={set('co2KgPerMmbtu')}
+          error={fieldErrors.co2KgPerMmbtu}
+          hint={`Filled from the fuel: ${CO2_FACTORS_NOTE}. Heat input on the higher heating value.`}
+          disabled={disabled}
+        />
+        <TextField label="Currency" value={currency} maxLength={3} onChange={(e) => setCurrency(e.target.value)} error={fieldErrors.currency} hint="Three-letter code, e.g. USD" disabled={disabled} />
+      </div>
+      <div className="grid gap-3 sm:grid-cols-3">
+        <QuantityField label="Fuel price" unit={money(units.fuelPricePerMmbtu.label)} value={texts.fuelPricePerMmbtu} onChange={set('fuelPricePerMmbtu')} error={fieldErrors.fuelPricePerMmbtu} disabled={disabled} />
+        <QuantityField
+          label="Replacement power price"
+          unit={money('$/MWh')}
+          value={texts.replacementPricePerMwh}
+          onChange={set('replacementPricePerMwh')}
+          error={fieldErrors.replacementPricePerMwh}
+          hint="What lost output costs when it must be bought or made elsewhere"
+          disabled={disabled}
+        />
+        <QuantityField
+          label="Capacity-limited share of hours"
+          unit="%"
+          value={texts.capacityLimitedShare}
+          onChange={set('capacityLimitedShare')}
+          error={fieldErrors.capacityLimitedShare}
+          hint="Hours when backpressure limits the output the unit could sell"
+          disabled={disabled}
+        />
+        <QuantityField label="CO2 price" unit={money('$/t')} value={texts.co2PricePerTonne} onChange={set('co2PricePerTonne')} error={fieldErrors.co2PricePerTonne} disabled={disabled} />
+        <QuantityField label="Discount rate" unit="% a year" value={texts.discountRate} onChange={set('discountRate')} error={fieldErrors.discountRate} disabled={disabled} />
+      </div>
+      {message && <Notice tone="fault">{message}</Notice>}
+      {savedAt && !save.isPending && !save.isError && <Notice tone="ok">Economics saved. The unit’s derived data is being recomputed.</Notice>}
+      <div>
+        <Button type="submit" disabled={disabled || save.isPending} title={cannotWrite ?? undefined}>
+          {save.isPending ? 'Saving…' : 'Save economics'}
+        </Button>
+      </div>
+    </form>
+  );
+}

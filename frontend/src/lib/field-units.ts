@@ -1,0 +1,82 @@
+import {
+  btuKwhToKjKwh,
+  DISPLAY_PRESETS,
+  ftToM,
+  inToMm,
+  KJ_PER_BTU,
+  kjKwhToBtuKwh,
+  mmToIn,
+  mToFt,
+  type DisplayUnit,
+} from '@shared/units';
+
+export type UnitSystem = 'us' | 'si';
+
+const identity = (v: number) => v;
+
+/**
+ * How each kind of setup field is shown in the user's system, and converted to the unit the shared
+ * schema stores (its name says which: `tubeOdMm`, `designHeatRateBtuKwh`, …). Most come from the shared
+ * display presets; the rest are fields whose stored unit is not the preset's internal one.
+ */
+export function fieldUnits(system: UnitSystem) {
+  const preset = DISPLAY_PRESETS[system];
+  const us = system === 'us';
+  // 1 MMBtu = 1.055056 GJ, so a price per GJ is the price per MMBtu ÷ 1.055056 (NIST SP 811 Btu factor).
+  const perMmbtu = (label: string, decimals: number): DisplayUnit =>
+    us
+      ? { label: `${label}/MMBtu`, toSi: identity, fromSi: identity, decimals }
+      : { label: `${label}/GJ`, toSi: (v) => v * KJ_PER_BTU, fromSi: (v) => v / KJ_PER_BTU, decimals };
+  return {
+    pressureKpa: preset.pressure,
+    temperatureC: preset.temperature,
+    flowM3s: preset.flow,
+    powerMw: preset.power,
+    areaM2: preset.area,
+    tubeOdMm: (us
+      ? { label: 'in', toSi: inToMm, fromSi: mmToIn, decimals: 3 }
+      : { label: 'mm', toSi: identity, fromSi: identity, decimals: 2 }) satisfies DisplayUnit,
+    tubeLengthM: (us
+      ? { label: 'ft', toSi: ftToM, fromSi: mToFt, decimals: 2 }
+      : { label: 'm', toSi: identity, fromSi: identity, decimals: 2 }) satisfies DisplayUnit,
+    heatRateBtuKwh: (us
+      ? { label: 'Btu/kWh', toSi: identity, fromSi: identity, decimals: 0 }
+      : { label: 'kJ/kWh', toSi: kjKwhToBtuKwh, fromSi: btuKwhToKjKwh, decimals: 0 }) satisfies DisplayUnit,
+    fuelPricePerMmbtu: perMmbtu('$', 2),
+    co2KgPerMmbtu: perMmbtu('kg', 2),
+  };
+}
+
+export type FieldUnits = ReturnType<typeof fieldUnits>;
+
+/**
+ * A stored value as text for an input, in the display unit: one decimal more than the display
+ * precision so a save without edits does not drift, trailing zeros dropped.
+ */
+export function toInputText(stored: number | null | undefined, unit: DisplayUnit): string {
+  if (stored === null || stored === undefined || !Number.isFinite(stored)) return '';
+  return String(Number(unit.fromSi(stored).toFixed(unit.decimals + 1)));
+}
+
+/**
+ * Text typed by a person as a number: blank is "not given" (undefined), US thousands separators
+ * ("164,800") are accepted, anything else that is not a number becomes NaN so the schema names it.
+ */
+export function parseNumberText(text: string): number | undefined {
+  const t = text.trim().replace(/[\s\u00a0\u202f]/g, '');
+  if (t === '') return undefined;
+  const plain = /^-?\d{1,3}(,\d{3})+(\.\d+)?$/.test(t) ? t.replace(/,/g, '') : t;
+  return /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(plain) ? Number(plain) : Number.NaN;
+}
+
+/** Text in a display unit → the stored value (undefined when blank). */
+export function fromInputText(text: string, unit: DisplayUnit): number | undefined {
+  const n = parseNumberText(text);
+  return n === undefined || Number.isNaN(n) ? n : unit.toSi(n);
+}
+
+/** A stored value for reading, with its unit, e.g. "2.00 inHgA". */
+export function formatStored(stored: number | null | undefined, unit: DisplayUnit): string {
+  if (stored === null || stored === undefined || !Number.isFinite(stored)) return '—';
+  return `${unit.fromSi(stored).toLocaleString('en-US', { minimumFractionDigits: unit.decimals, maximumFractionDigits: unit.decimals })} ${unit.label}`;
+}
