@@ -427,6 +427,7 @@ describe('historian imports through the API', () => {
     const unit = await newUnit();
     const rows = physicalHistory({ startUtc: START_UTC, hours: 5_200, condenser: TEST_CONDENSER, turbine: TEST_TURBINE });
     const file = await writeHistorianCsv(tmp.file('long-history.csv'), rows);
+    const [{ maxId }] = await t.dataSource.query('SELECT COALESCE(MAX(id), 0) AS maxId FROM performance_sample');
     importFaults.failAfterBatches = 1;
     let imp;
     try {
@@ -440,10 +441,14 @@ describe('historian imports through the API', () => {
     expect(Number(n)).toBe(0);
     expect(await dailyOf(unit.id)).toEqual([]);
 
-    // The same file without the fault stores every row (so the fault did hit after a stored batch).
+    // The same file without the fault stores every row; its ids start past the 5,000 ids the first batch of
+    // the failed import used (InnoDB does not hand out deleted auto-increment ids again), so that batch was
+    // written and then removed.
     const ok = await importFile(unit.id, file);
     expect(ok.imp.status).toBe('complete');
     expect(ok.imp.counts.stored).toBe(5_200);
+    const [{ minId }] = await t.dataSource.query('SELECT MIN(id) AS minId FROM performance_sample WHERE importId = ?', [ok.imp.id]);
+    expect(Number(minId)).toBeGreaterThan(Number(maxId) + 5_000);
   });
 
   it('undo removes the import’s rows and recomputes the daily figures of the days it touched', async () => {
