@@ -29,6 +29,7 @@ import { healthRoutes } from './routes/health.routes.js';
 import { importRoutes } from './routes/import.routes.js';
 import { plantRoutes } from './routes/plant.routes.js';
 import { unitRoutes } from './routes/unit.routes.js';
+import { unitHealthRoutes } from './routes/unit-health.routes.js';
 import { invitationRoutes } from './routes/invitation.routes.js';
 import { memberRoutes } from './routes/member.routes.js';
 import { SESSION_COOKIE, sessionRoutes } from './routes/session.routes.js';
@@ -125,6 +126,7 @@ export function createApp(deps: AppDeps): CleancaseApp {
     ...auditRoutes(dataSource),
     ...plantRoutes(dataSource),
     ...unitRoutes(dataSource),
+    ...unitHealthRoutes(dataSource),
     ...importRoutes(dataSource, config),
     ...calcRoutes(),
     ...(withGoogle ? googleAuthRoutes(auth) : []),

@@ -1,0 +1,256 @@
+/**
+ * The condenser health view of one unit over a period: headline figures, daily series, the fouling trend
+ * with its forecast band, the deviation breakdown by week or month, events, suspected air in-leakage and
+ * data quality. Everything comes from the stored daily aggregates and the unit's last analysis.
+ */
+import type { DataSource } from 'typeorm';
+import { backpressureAtCleanlinessKpa } from '@shared/domain/condenser/index.js';
+import { fitFoulingTrend } from '@shared/domain/decision/fouling/fouling-trend.js';
+import { addDays } from '@shared/domain/decision/calendar/plant-date.js';
+import { lttb, type AirLeakPeriod } from '@shared/domain/monitoring/index.js';
+import { MAX_SERIES_POINTS } from '@shared/limits.js';
+import { BREAKDOWN_CAUSES, type HealthQuery } from '@shared/schemas/health.js';
+import { GeneratingUnit } from '../entities/generating-unit.entity.js';
+import { Plant } from '../entities/plant.entity.js';
+import { UnitEvent } from '../entities/unit-event.entity.js';
+import { notFound } from '../http/app-error.js';
+import type { TenantScope } from '../policies/tenant-scope.js';
+import { findUnit } from '../repositories/plant.repository.js';
+import { daysBetween } from './derived/plant-day.js';
+import type { CleaningOutlook } from './derived/cleaning-outlook.js';
+import { eventView } from './unit-event.service.js';
+
+export interface DailyRow {
+  day: string;
+  pointsUsed: number;
+  pointsDropped: number;
+  droppedByReason: Record<string, number> | null;
+  medianCleanliness: number | null;
+  trendCleanliness: number | null;
+  medianTtdK: number | null;
+  meanBackpressureKpa: number | null;
+  meanExpectedBackpressureKpa: number | null;
+  meanExcessBackpressureKpa: number | null;
+  meanCwInletC: number | null;
+  meanLoadMw: number | null;
+  meanHeatRatePenaltyPct: number | null;
+  cwInletKpa: number | null;
+  cwFlowKpa: number | null;
+  loadKpa: number | null;
+  pluggingKpa: number | null;
+  foulingKpa: number | null;
+  unexplainedKpa: number | null;
+  foulingCost: number | null;
+  unexplainedCost: number | null;
+  meanSubcoolingK: number | null;
+  meanDissolvedOxygenPpb: number | null;
+  meanAirRemovalKgS: number | null;
+  airLeakSuspected: boolean;
+  meanDutyMw: number | null;
+  heatBalanceDutyMw: number | null;
+  stuckSensors: string[] | null;
+}
+
+const dayText = (d: unknown) => (typeof d === 'string' ? d.slice(0, 10) : (d as Date).toISOString().slice(0, 10));
+const json = <T>(v: unknown): T | null => (v === null || v === undefined ? null : typeof v === 'string' ? (JSON.parse(v) as T) : (v as T));
+
+export async function loadDailyRows(ds: DataSource, unitId: string, from?: string, to?: string): Promise<DailyRow[]> {
+  const where = ['unitId = ?'];
+  const params: unknown[] = [unitId];
+  if (from) {
+    where.push('day >= ?');
+    params.push(from);
+  }
+  if (to) {
+    where.push('day <= ?');
+    params.push(to);
+  }
+  const rows: Record<string, unknown>[] = await ds.query(`SELECT * FROM daily_aggregate WHERE ${where.join(' AND ')} ORDER BY day`, params);
+  return rows.map((r) => ({
+    ...(r as unknown as DailyRow),
+    day: dayText(r.day),
+    airLeakSuspected: !!r.airLeakSuspected,
+    droppedByReason: json<Record<string, number>>(r.droppedByReason),
+    stuckSensors: json<string[]>(r.stuckSensors),
+  }));
+}
+
+async function unitInScope(ds: DataSource, scope: TenantScope, unitId: string): Promise<{ unit: GeneratingUnit; plant: Plant }> {
+  const unit = await findUnit(ds.manager, scope, unitId);
+  if (!unit) throw notFound('No such unit');
+  return { unit, plant: await ds.getRepository(Plant).findOneByOrFail({ id: unit.plantId }) };
+}
+
+function isoWeekStart(day: string): string {
+  const d = new Date(`${day}T00:00:00Z`);
+  const weekday = (d.getUTCDay() + 6) % 7;
+  return addDays(day, -weekday);
+}
+
+const mean = (values: (number | null)[]) => {
+  const v = values.filter((x): x is number => x !== null && Number.isFinite(x));
+  return v.length ? v.reduce((a, b) => a + b, 0) / v.length : null;
+};
+const sum = (values: (number | null)[]) => values.reduce<number>((a, b) => a + (b ?? 0), 0);
+
+export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: string, q: HealthQuery) {
+  const { unit, plant } = await unitInScope(ds, scope, unitId);
+  const analysis = (unit.analysis ?? null) as { lastDay?: string | null; cycles?: Record<string, unknown>[]; airLeakPeriods?: AirLeakPeriod[]; outlook?: CleaningOutlook | null; computedAt?: string } | null;
+  const all = await loadDailyRows(ds, unitId);
+  const withData = all.filter((d) => d.pointsUsed > 0);
+  const lastDay = withData.at(-1)?.day ?? null;
+  const to = q.to ?? lastDay ?? undefined;
+  const from = q.from ?? (to ? addDays(to, -364) : undefined);
+  const period = all.filter((d) => (!from || d.day >= from) && (!to || d.day <= to));
+  const events = (await ds.getRepository(UnitEvent).find({ where: { unitId }, order: { startDate: 'ASC' } })).map(eventView);
+  const cleanings = events.filter((e) => e.kind === 'cleaning');
+  const lastCleaning = cleanings.filter((e) => !lastDay || (e.endDate ?? e.startDate) <= lastDay).at(-1) ?? null;
+  const sinceCleaning = withData.filter((d) => !lastCleaning || d.day >= (lastCleaning.endDate ?? lastCleaning.startDate));
+  const lastWeek = withData.slice(-7);
+  const lastSample: { ts: Date | string | null }[] = await ds.query('SELECT MAX(timestampUtc) AS ts FROM performance_sample WHERE unitId = ?', [unitId]);
+  const lastSampleUtc = lastSample[0]?.ts ? new Date(lastSample[0].ts).toISOString() : null;
+
+  const c = unit.condenser;
+  const designModelKpa = c
+    ? backpressureAtCleanlinessKpa({
+        geometry: { surfaceM2: c.surfaceM2, tubeCount: c.tubeCount, passes: c.passes, tubeOdMm: c.tubeOdMm, tubeBwg: c.tubeBwg, tubeMaterial: c.tubeMaterial },
+        cwInletC: c.designCwInletC,
+        cwFlowM3s: c.designCwFlowM3s,
+        dutyMw: c.designDutyMw,
+        pluggedTubes: c.designPluggedTubes,
+        cleanliness: c.designCleanliness,
+      })
+    : null;
+
+  // The forecast band: the latest cycle refitted on its daily medians (air-leak days left out).
+  let forecast: { day: string; cleanliness: number; low: number; high: number }[] = [];
+  let trendFit: Record<string, unknown> | null = (analysis?.cycles?.at(-1) as Record<string, unknown> | undefined) ?? null;
+  if (lastDay && trendFit && trendFit.status === 'fitted' && (!to || to >= lastDay)) {
+    const start = String(trendFit.startDay);
+    const points = withData.filter((d) => d.day >= start && !d.airLeakSuspected && d.medianCleanliness !== null).map((d) => ({ day: daysBetween(start, d.day), cleanliness: d.medianCleanliness! }));
+    const fit = fitFoulingTrend({ points, cleanlinessAfterCleaning: trendFit.cleanlinessAfterCleaning as number, forecastDays: 120 });
+    if (fit.status === 'fitted') {
+      const lastOffset = daysBetween(start, lastDay);
+      forecast = fit.forecast.filter((f) => f.day > lastOffset).map((f) => ({ day: addDays(start, f.day), cleanliness: f.cleanliness, low: f.low, high: f.high }));
+      trendFit = { ...trendFit, bandProbability: fit.bandProbability };
+    }
+  }
+
+  let cumulative = 0;
+  const series = period.map((d) => {
+    cumulative += d.foulingCost ?? 0;
+    return {
+      day: d.day,
+      cleanliness: d.medianCleanliness,
+      trendCleanliness: d.trendCleanliness,
+      backpressureKpa: d.meanBackpressureKpa,
+      expectedBackpressureKpa: d.meanExpectedBackpressureKpa,
+      excessBackpressureKpa: d.meanExcessBackpressureKpa,
+      ttdK: d.medianTtdK,
+      cwInletC: d.meanCwInletC,
+      loadMw: d.meanLoadMw,
+      foulingCost: d.foulingCost,
+      unexplainedCost: d.unexplainedCost,
+      cumulativeFoulingCost: cumulative,
+      airLeakSuspected: d.airLeakSuspected,
+    };
+  });
+  const downsampled = series.length > MAX_SERIES_POINTS ? lttb(series, MAX_SERIES_POINTS, (p) => Date.parse(p.day), (p) => p.cleanliness ?? 0) : series;
+
+  const buckets = new Map<string, DailyRow[]>();
+  for (const d of period.filter((x) => x.pointsUsed > 0)) {
+    const key = q.breakdownBy === 'week' ? isoWeekStart(d.day) : d.day.slice(0, 7);
+    const list = buckets.get(key);
+    if (list) list.push(d);
+    else buckets.set(key, [d]);
+  }
+  const breakdown = [...buckets.entries()].map(([bucket, rows]) => ({
+    period: bucket,
+    ...Object.fromEntries(BREAKDOWN_CAUSES.map((cause) => [cause, mean(rows.map((r) => r[cause]))])),
+    meanExcessBackpressureKpa: mean(rows.map((r) => r.meanExcessBackpressureKpa)),
+    foulingCost: sum(rows.map((r) => r.foulingCost)),
+    unexplainedCost: sum(rows.map((r) => r.unexplainedCost)),
+  }));
+
+  const dropped: Record<string, number> = {};
+  for (const d of period) for (const [k, v] of Object.entries(d.droppedByReason ?? {})) dropped[k] = (dropped[k] ?? 0) + v;
+  const dutyGaps = period
+    .filter((d) => d.meanDutyMw !== null && d.heatBalanceDutyMw)
+    .map((d) => ({ day: d.day, gapPct: (100 * (d.meanDutyMw! - d.heatBalanceDutyMw!)) / d.heatBalanceDutyMw! }));
+  const stuck: Record<string, string[]> = {};
+  for (const d of period) for (const s of d.stuckSensors ?? []) (stuck[s] ??= []).push(d.day);
+
+  const leaks = (analysis?.airLeakPeriods ?? []).filter((p) => (!from || p.to >= from) && (!to || p.from <= to));
+  const econ = unit.economics;
+  return {
+    unit: { id: unit.id, name: unit.name, plant: { id: plant.id, name: plant.name, timeZone: plant.timeZone }, setupComplete: !!(unit.condenser && unit.turbine && unit.economics) },
+    period: { from: from ?? null, to: to ?? null, breakdownBy: q.breakdownBy },
+    analysedAt: analysis?.computedAt ?? null,
+    headline: {
+      asOf: lastDay,
+      cleanliness: withData.at(-1)?.medianCleanliness ?? null,
+      trendCleanliness: withData.at(-1)?.trendCleanliness ?? null,
+      referenceCleanliness: c ? (c.referenceCleanliness ?? c.designCleanliness) : null,
+      designCleanliness: c?.designCleanliness ?? null,
+      excessBackpressureKpa: mean(lastWeek.map((d) => d.meanExcessBackpressureKpa)),
+      foulingCostPerDay: mean(lastWeek.map((d) => d.foulingCost)),
+      unexplainedCostPerDay: mean(lastWeek.map((d) => d.unexplainedCost)),
+      foulingCostSinceCleaning: sinceCleaning.length ? sum(sinceCleaning.map((d) => d.foulingCost)) : null,
+      lastCleaning: lastCleaning ? { date: lastCleaning.endDate ?? lastCleaning.startDate, notes: lastCleaning.notes, cleanlinessAfter: lastCleaning.cleanlinessAfter } : null,
+      lastSampleUtc,
+      nextCleaning: analysis?.outlook ?? null,
+      averagingNote: 'Cleanliness is the last day’s median; backpressure excess and costs are means of the last 7 days with valid data.',
+      costBasis: econ
+        ? `Fuel${econ.co2PricePerTonne > 0 ? ' and CO2' : ''} with load held for ${Math.round((1 - econ.capacityLimitedShare) * 100)} % of hours; replacement power with firing held for ${Math.round(econ.capacityLimitedShare * 100)} %.`
+        : null,
+    },
+    design: c ? { datasheetBackpressureKpa: c.designBackpressureKpa, modelBackpressureKpa: designModelKpa, modelOffsetKpa: designModelKpa === null ? null : designModelKpa - c.designBackpressureKpa } : null,
+    trend: trendFit,
+    forecast,
+    series: downsampled,
+    seriesDownsampled: downsampled.length < series.length,
+    breakdown,
+    events: events.filter((e) => (!from || (e.endDate ?? e.startDate) >= from) && (!to || e.startDate <= to)),
+    airLeakPeriods: leaks.map((p) => ({ ...p, note: 'Cleaning would not recover this: find and seal the air in-leakage (and check the instruments).' })),
+    dataQuality: {
+      daysInPeriod: period.length,
+      daysWithValidData: period.filter((d) => d.pointsUsed > 0).length,
+      pointsUsed: sum(period.map((d) => d.pointsUsed)),
+      pointsDropped: sum(period.map((d) => d.pointsDropped)),
+      droppedByReason: dropped,
+      dutyGap: {
+        meanPct: mean(dutyGaps.map((g) => g.gapPct)),
+        daysOver5Pct: dutyGaps.filter((g) => Math.abs(g.gapPct) > 5).length,
+        note: 'CW-side duty against the heat-balance duty at the day’s load; gaps over 5 % point to unmetered flow or a stratified outlet temperature (a 5 % flow error is a 2.5 % cleanliness error).',
+      },
+      stuckSensors: Object.entries(stuck).map(([sensor, days]) => ({ sensor, days: days.length, lastDay: days.at(-1) })),
+    },
+  };
+}
+
+/** Hourly points of one quantity over a period, downsampled (LTTB) to at most MAX_SERIES_POINTS. */
+export async function unitSamples(ds: DataSource, scope: TenantScope, unitId: string, q: { from: string; to: string; quantity: string }) {
+  const { plant } = await unitInScope(ds, scope, unitId);
+  const columns: Record<string, string[]> = {
+    backpressure: ['backpressureKpa', 'expectedBackpressureKpa'],
+    cleanliness: ['cleanliness'],
+    ttd: ['ttdK'],
+    cwInlet: ['cwInletC'],
+    load: ['loadMw'],
+  };
+  const cols = columns[q.quantity];
+  // Plant-local days: widen by a day on each side in UTC, then keep what falls inside.
+  const rows: Record<string, unknown>[] = await ds.query(
+    `SELECT timestampUtc AS ts, validity, ${cols.join(', ')} FROM performance_sample WHERE unitId = ? AND timestampUtc >= ? AND timestampUtc < ? ORDER BY timestampUtc`,
+    [unitId, `${addDays(q.from, -1)} 00:00:00`, `${addDays(q.to, 2)} 00:00:00`],
+  );
+  const fmt = new Intl.DateTimeFormat('en-CA', { timeZone: plant.timeZone, year: 'numeric', month: '2-digit', day: '2-digit' });
+  const points = rows
+    .map((r) => ({ t: new Date(r.ts as string).toISOString(), valid: r.validity === 'ok', ...Object.fromEntries(cols.map((c) => [c, r[c] === null ? null : Number(r[c])])) }))
+    .filter((p) => {
+      const day = fmt.format(new Date(p.t));
+      return day >= q.from && day <= q.to;
+    });
+  const sampled = points.length > MAX_SERIES_POINTS ? lttb(points, MAX_SERIES_POINTS, (p) => Date.parse(p.t), (p) => Number((p as Record<string, unknown>)[cols[0]] ?? 0)) : points;
+  return { quantity: q.quantity, columns: cols, total: points.length, points: sampled };
+}
