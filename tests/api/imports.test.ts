@@ -153,6 +153,8 @@ describe('historian imports through the API', () => {
       expect(imp.firstTimestamp).toBe(new Date(START_UTC).toISOString());
       expect(imp.lastTimestamp).toBe(new Date(START_UTC + 167 * 3_600_000).toISOString());
       expect(imp.errorCount).toBe(0);
+      // A finished import cannot be started again.
+      await analyst.post(`/api/imports/${imp.id}/start`).set(CSRF).send({ mapping: up.body.proposedMapping }).expect(409);
 
       const stored = await samplesOf(unit.id);
       expect(stored).toHaveLength(168);
