@@ -246,10 +246,7 @@ describe('historian imports through the API', () => {
       expect(days.find((d) => d.day === '2024-06-03')).toMatchObject({ pointsUsed: 24 });
     });
 
-    // Known bug (backend/src/services/import.service.ts, receiveUpload): guessMapping is called without
-    // { timeZone: plant.timeZone }, so a local-time file gets a proposal without a zone that the start
-    // refuses. Remove `.fails` once the plant's zone is passed to the guess.
-    it.fails('the proposed mapping for local times carries the plant’s time zone', async () => {
+    it('the proposed mapping for local times carries the plant’s time zone', async () => {
       const unit = await newUnit();
       const up = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', await writeHistorianCsv(tmp.file('local-week-2.csv'), localWeek())).expect(201);
       expect(up.body.proposedMapping.timestamp.timeZone).toBe('America/Chicago');
@@ -337,9 +334,7 @@ describe('historian imports through the API', () => {
       expect((await analyst.get(`/api/units/${unit.id}/imports`).expect(200)).body.imports).toEqual([]);
     });
 
-    // Known bug (backend/src/http/upload.ts, the `req.file.size === 0` branch): the refused 0-byte upload
-    // stays in UPLOAD_DIR. Remove `.fails` once the branch deletes req.file.path.
-    it.fails('a refused 0-byte upload is not kept on disk', async () => {
+    it('a refused 0-byte upload is not kept on disk', async () => {
       const unit = await newUnit();
       await writeFile(tmp.file('empty-2.csv'), '');
       const before = await readdir(tmp.file('uploads'));

@@ -1,4 +1,5 @@
 import { mkdirSync } from 'node:fs';
+import { rm } from 'node:fs/promises';
 import path from 'node:path';
 import type { RequestHandler } from 'express';
 import multer from 'multer';
@@ -19,7 +20,10 @@ export function singleFileUpload(uploadDir: string): RequestHandler {
     upload(req, res, (err: unknown) => {
       if (!err) {
         if (!req.file) return next(new AppError(400, 'Choose a CSV or XLSX file to upload'));
-        if (req.file.size === 0) return next(new AppError(400, 'The file is empty (0 bytes)'));
+        if (req.file.size === 0) {
+          const empty = req.file.path;
+          return void rm(empty, { force: true }).finally(() => next(new AppError(400, 'The file is empty (0 bytes)')));
+        }
         return next();
       }
       if (err instanceof multer.MulterError) {

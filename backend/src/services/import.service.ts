@@ -14,7 +14,7 @@ import { GeneratingUnit } from '../entities/generating-unit.entity.js';
 import { AppError, badRequest, notFound } from '../http/app-error.js';
 import { enqueueJob, enqueueRecompute, reportProgress } from '../jobs/job-queue.js';
 import type { TenantScope } from '../policies/tenant-scope.js';
-import { findUnit } from '../repositories/plant.repository.js';
+import { findUnit, findUnitWithPlant } from '../repositories/plant.repository.js';
 import { recordAudit } from './audit.service.js';
 import { recomputeUnit } from './derived/recompute-unit.js';
 
@@ -83,10 +83,12 @@ export async function findImport(ds: DataSource, scope: TenantScope, importId: s
 
 /** Stores the upload, reads its header and first rows, and proposes a mapping (the unit's saved one when it fits). */
 export async function receiveUpload(ds: DataSource, scope: TenantScope, unitId: string, file: UploadedFile) {
-  const unit = await unitInScope(ds, scope, unitId).catch(async (err) => {
+  const found = await findUnitWithPlant(ds.manager, scope, unitId);
+  if (!found) {
     await rm(file.path, { force: true });
-    throw err;
-  });
+    throw notFound('No such unit');
+  }
+  const { unit, plant } = found;
   let table;
   try {
     table = await openTable(file.path);
@@ -98,7 +100,7 @@ export async function receiveUpload(ds: DataSource, scope: TenantScope, unitId: 
   const sampleRows = table.sampleRows.slice(0, 10);
   const kind = table.kind;
   await table.close();
-  const guess = guessMapping(headers, sampleRows);
+  const guess = guessMapping(headers, sampleRows, { timeZone: plant.timeZone });
   const saved = unit.savedMapping ? importMappingSchema.safeParse(unit.savedMapping) : null;
   const savedFits = saved?.success && headersCover(saved.data, headers);
   const imp = await ds.getRepository(DataImport).save({
@@ -185,8 +187,23 @@ const sameValue = (a: number | null, b: number | null | undefined) => (a === nul
 /** Test hook: throw after this many batches to prove a failure leaves nothing behind. */
 export const importFaults = { failAfterBatches: null as number | null };
 
-/** The import job: check, then store, then recompute. */
+/** The import job: check, then store, then recompute. Any failure leaves no rows and a failed import. */
 export async function runImportJob(ds: DataSource, jobId: string, importId: string): Promise<void> {
+  try {
+    await importThenRecompute(ds, jobId, importId);
+  } catch (err) {
+    await ds.query('DELETE FROM performance_sample WHERE importId = ?', [importId]);
+    const imp = await ds.getRepository(DataImport).findOneBy({ id: importId });
+    if (imp && imp.status !== 'complete' && imp.status !== 'rejected') {
+      await ds.getRepository(DataImport).update({ id: importId }, { status: 'failed', progress: 1, message: `The import stopped and stored nothing: ${err instanceof Error ? err.message : String(err)}`, finishedAt: new Date() });
+    }
+    if (imp?.storedPath) await rm(imp.storedPath, { force: true });
+    if (imp) await enqueueRecompute(ds.manager, imp.organisationId, imp.unitId, 'import failed');
+    throw err;
+  }
+}
+
+async function importThenRecompute(ds: DataSource, jobId: string, importId: string): Promise<void> {
   const imp = await ds.getRepository(DataImport).findOneByOrFail({ id: importId });
   const unit = await ds.getRepository(GeneratingUnit).findOneByOrFail({ id: imp.unitId });
   const repo = ds.getRepository(DataImport);
