@@ -21,11 +21,11 @@ for (const file of readdirSync(dir).filter((f) => f.endsWith('.ts')).sort()) {
 }
 let missed = 0;
 const fmt = (v: number) => (Math.abs(v) >= 1000 ? Math.round(v).toLocaleString('en-US') : v.toPrecision(4));
-console.log(['benchmark'.padEnd(52), 'result'.padStart(16), 'unit'.padEnd(14), 'target'.padStart(16), 'ok'].join('  '));
+console.log(['benchmark'.padEnd(72), 'result'.padStart(16), 'unit'.padEnd(14), 'target'.padStart(16), 'ok'].join('  '));
 for (const r of rows) {
   const ok = !r.target || (r.target.higherIsBetter ? r.value >= r.target.value : r.value <= r.target.value);
   if (!ok) missed++;
   const target = r.target ? `${r.target.higherIsBetter ? '≥' : '≤'} ${fmt(r.target.value)}` : '';
-  console.log([r.name.padEnd(52), fmt(r.value).padStart(16), r.unit.padEnd(14), target.padStart(16), ok ? 'yes' : 'NO'].join('  '));
+  console.log([r.name.padEnd(72), fmt(r.value).padStart(16), r.unit.padEnd(14), target.padStart(16), ok ? 'yes' : 'NO'].join('  '));
 }
 process.exit(missed ? 1 : 0);
