@@ -102,6 +102,7 @@ describe('unit setup, import and undo in a real browser', () => {
     const row = card.getByTestId('unit-row').filter({ hasText: 'Unit 1' });
     await row.waitFor();
     expect(await row.textContent()).toContain('Needs setup');
+    await page.screenshot({ path: '/tmp/plants.png', fullPage: true });
     await row.getByRole('link', { name: 'Unit 1' }).click();
     await page.waitForURL(/\/units\/[0-9a-f-]{36}$/);
     unitId = page.url().split('/units/')[1];
@@ -243,6 +244,7 @@ describe('unit setup, import and undo in a real browser', () => {
     expect(await row.textContent()).toContain('removes the rows this import brought and recomputes');
     await row.getByRole('button', { name: 'Undo import' }).click();
     await expect.poll(() => row.textContent()).toContain('Undone');
+    await page.screenshot({ path: '/tmp/unit-imports.png', fullPage: true });
     await expect.poll(async () => (await unitJson()).samples.count).toBe(0);
   });
 
@@ -259,6 +261,7 @@ describe('unit setup, import and undo in a real browser', () => {
     const rejected = page.getByTestId('import-rejected');
     await rejected.waitFor({ timeout: 45_000 });
     expect(await rejected.textContent()).toContain('Nothing was imported');
+    await page.screenshot({ path: '/tmp/unit-import-rejected.png', fullPage: true });
     const errorRow = rejected.getByTestId('error-row').first();
     // header on line 1, data row index 10 on line 12
     expect(await errorRow.locator('td').nth(0).textContent()).toBe('12');
@@ -284,6 +287,10 @@ describe('unit setup, import and undo in a real browser', () => {
     await row.waitFor();
     expect(await row.textContent()).toContain('USD 48,200');
     expect(await row.textContent()).toContain('92 %');
+    await page.screenshot({ path: '/tmp/unit-events.png', fullPage: true });
+    await page.getByRole('navigation', { name: 'Unit' }).getByRole('link', { name: 'Health' }).click();
+    await page.getByTestId('setup-summary').waitFor();
+    await page.screenshot({ path: '/tmp/unit-summary.png', fullPage: true });
   });
 
   it('a viewer of the same organisation sees the plant but every change is disabled with the reason', async () => {

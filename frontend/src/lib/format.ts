@@ -30,3 +30,23 @@ export const formatPercent = (fraction: number | null | undefined, decimals = 1)
 /** Bytes as KB/MB for file sizes. */
 export const formatBytes = (bytes: number): string =>
   bytes >= 1024 * 1024 ? `${formatNumber(bytes / 1024 / 1024, 1)} MB` : `${formatNumber(Math.max(1, Math.round(bytes / 1024)))} KB`;
+
+/** A moment on a plant's own clock, with the zone's short name, e.g. "2 Jun 2025, 00:00 CDT". */
+export function formatPlantTime(iso: string | null | undefined, timeZone: string): string {
+  if (!iso) return '—';
+  try {
+    return new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', timeZone, timeZoneName: 'short' }).format(new Date(iso));
+  } catch {
+    return formatDateTime(iso);
+  }
+}
+
+/** A plant-local calendar day. */
+export function formatPlantDate(iso: string | null | undefined, timeZone: string): string {
+  if (!iso) return '—';
+  try {
+    return new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone }).format(new Date(iso));
+  } catch {
+    return formatDate(iso);
+  }
+}

@@ -1,4 +1,4 @@
-import { Link, NavLink, Outlet, useNavigate, useNavigation } from 'react-router-dom';
+import { Link, NavLink, Outlet, useLocation, useNavigate, useNavigation } from 'react-router-dom';
 import { Button } from '@frontend/components/ui/button';
 import { useSession } from '@frontend/features/session/api/get-session';
 import { useSignOut } from '@frontend/features/session/api/sign-out';
@@ -12,6 +12,8 @@ export function AppLayout() {
   const signOut = useSignOut();
   const navigate = useNavigate();
   const navigation = useNavigation();
+  // a unit's pages belong under Plants in the main navigation
+  const onUnitPage = useLocation().pathname.startsWith('/units/');
   return (
     <div className="min-h-screen">
       <header className="border-b border-rule bg-paper-raised">
@@ -23,7 +25,7 @@ export function AppLayout() {
             <NavLink to="/" end className={navClass}>
               Overview
             </NavLink>
-            <NavLink to="/plants" className={navClass}>
+            <NavLink to="/plants" className={({ isActive }) => navClass({ isActive: isActive || onUnitPage })}>
               Plants
             </NavLink>
             <NavLink to="/settings" className={navClass}>

@@ -46,7 +46,7 @@ export function UnitImportPage() {
           onCancel={startOver}
         />
       )}
-      {importId && <ImportOutcome organisationId={organisationId} importId={importId} />}
+      {importId && <ImportOutcome organisationId={organisationId} importId={importId} plantTimeZone={unit.plant.timeZone} />}
       {importId && finished && (
         <div className="flex flex-wrap items-center gap-4 text-sm">
           <Button variant="quiet" onClick={startOver}>

@@ -6,7 +6,7 @@ export function UnitImportsPage() {
   return (
     <section className="flex flex-col gap-3" aria-label="Import history">
       <p className="text-sm text-ink-soft">Every file imported for this unit, newest first. Undo removes the rows an import brought and recomputes the unit.</p>
-      <ImportHistory organisationId={organisationId} unitId={unit.id} cannotWrite={cannotWrite} />
+      <ImportHistory organisationId={organisationId} unitId={unit.id} plantTimeZone={unit.plant.timeZone} cannotWrite={cannotWrite} />
     </section>
   );
 }

@@ -5,7 +5,7 @@ import { EmptyState } from '@frontend/components/ui/empty-state';
 import { Notice } from '@frontend/components/ui/notice';
 import { linkClass } from '@frontend/components/ui/public-page';
 import { ErrorState, LoadingState } from '@frontend/components/ui/query-state';
-import { formatBytes, formatDate, formatDateTime, formatNumber } from '@frontend/lib/format';
+import { formatBytes, formatDateTime, formatNumber, formatPlantDate } from '@frontend/lib/format';
 import { importIsRunning, type ImportView } from '../api/get-import';
 import { useUnitImports } from '../api/get-imports';
 import { useUndoImport } from '../api/undo-import';
@@ -14,7 +14,7 @@ import { STATUS_LABELS } from './import-words';
 const leftOut = (i: ImportView) => Object.values(i.counts?.rowsByReason ?? {}).reduce((s: number, n) => s + (n ?? 0), 0);
 const canUndo = (i: ImportView) => i.status === 'complete' || i.status === 'rejected' || i.status === 'failed' || i.status === 'mapping';
 
-export function ImportHistory({ organisationId, unitId, cannotWrite }: { organisationId: string; unitId: string; cannotWrite: string | null }) {
+export function ImportHistory({ organisationId, unitId, plantTimeZone, cannotWrite }: { organisationId: string; unitId: string; plantTimeZone: string; cannotWrite: string | null }) {
   const imports = useUnitImports(organisationId, unitId);
   const undo = useUndoImport(organisationId, unitId);
   if (imports.isPending) return <LoadingState what="the import history" />;
@@ -40,7 +40,7 @@ export function ImportHistory({ organisationId, unitId, cannotWrite }: { organis
             <th className={th}>Status</th>
             <th className={`${th} text-right`}>Rows stored</th>
             <th className={`${th} text-right`}>Left out</th>
-            <th className={th}>Data from – to</th>
+            <th className={th}>Data from – to (plant days)</th>
             <th className={th}>
               <span className="sr-only">Actions</span>
             </th>
@@ -65,7 +65,7 @@ export function ImportHistory({ organisationId, unitId, cannotWrite }: { organis
             </td>
             <td className={`${td} text-right tabular-nums`}>{i.status === 'complete' ? formatNumber(i.counts?.stored ?? 0) : '—'}</td>
             <td className={`${td} text-right tabular-nums`}>{i.status === 'complete' ? formatNumber(leftOut(i)) : '—'}</td>
-            <td className={`${td} whitespace-nowrap`}>{i.firstTimestamp ? `${formatDate(i.firstTimestamp)} – ${formatDate(i.lastTimestamp)}` : '—'}</td>
+            <td className={`${td} whitespace-nowrap`}>{i.firstTimestamp ? `${formatPlantDate(i.firstTimestamp, plantTimeZone)} – ${formatPlantDate(i.lastTimestamp, plantTimeZone)}` : '—'}</td>
             <td className={`${td} text-right`}>
               {canUndo(i) && (
                 <ConfirmAction

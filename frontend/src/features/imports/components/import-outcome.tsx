@@ -3,12 +3,12 @@ import { Notice } from '@frontend/components/ui/notice';
 import { ProgressBar } from '@frontend/components/ui/progress-bar';
 import { linkClass } from '@frontend/components/ui/public-page';
 import { ErrorState, LoadingState } from '@frontend/components/ui/query-state';
-import { formatDateTime, formatNumber } from '@frontend/lib/format';
+import { formatNumber, formatPlantTime } from '@frontend/lib/format';
 import { importIsRunning, useImport, type ImportView } from '../api/get-import';
 import { reasonLabel, STATUS_LABELS } from './import-words';
 
 /** Step 3: progress while the server checks and stores, then what happened. */
-export function ImportOutcome({ organisationId, importId }: { organisationId: string; importId: string }) {
+export function ImportOutcome({ organisationId, importId, plantTimeZone }: { organisationId: string; importId: string; plantTimeZone: string }) {
   const query = useImport(organisationId, importId);
   if (query.isPending) return <LoadingState what="the import" />;
   if (query.isError) return <ErrorState what="the import" error={query.error} onRetry={() => query.refetch()} />;
@@ -22,7 +22,7 @@ export function ImportOutcome({ organisationId, importId }: { organisationId: st
         </p>
       </div>
       {importIsRunning(view.status) && <ProgressBar fraction={view.progress} label="Import progress" message={view.message ?? 'Waiting to start'} />}
-      {view.status === 'complete' && <ImportSummary view={view} />}
+      {view.status === 'complete' && <ImportSummary view={view} plantTimeZone={plantTimeZone} />}
       {view.status === 'rejected' && <RejectedImport view={view} />}
       {view.status === 'failed' && <Notice tone="fault">{view.message ?? 'The import stopped and stored nothing.'}</Notice>}
       {view.status === 'undone' && <Notice>This import was undone: its rows were removed and the unit recomputed.</Notice>}
@@ -39,14 +39,14 @@ function Count({ label, value, tone }: { label: string; value: number | undefine
   );
 }
 
-function ImportSummary({ view }: { view: ImportView }) {
+function ImportSummary({ view, plantTimeZone }: { view: ImportView; plantTimeZone: string }) {
   const c = view.counts ?? {};
   const reasons = Object.entries(c.rowsByReason ?? {}).filter(([, n]) => (n ?? 0) > 0).sort(([, a], [, b]) => (b ?? 0) - (a ?? 0));
   const leftOut = reasons.reduce((s, [, n]) => s + (n ?? 0), 0);
   return (
     <div className="flex flex-col gap-4" data-testid="import-summary">
       <Notice tone="ok">
-        Imported {formatNumber(c.stored ?? 0)} rows covering {formatDateTime(view.firstTimestamp)} to {formatDateTime(view.lastTimestamp)}. The unit’s derived data has been recomputed.
+        Imported {formatNumber(c.stored ?? 0)} rows from {formatPlantTime(view.firstTimestamp, plantTimeZone)} to {formatPlantTime(view.lastTimestamp, plantTimeZone)} (plant time). The unit’s derived data has been recomputed.
       </Notice>
       <dl className="grid gap-2 sm:grid-cols-3 lg:grid-cols-6">
         <Count label="Rows read" value={c.rowsRead} />
@@ -76,7 +76,7 @@ function ImportSummary({ view }: { view: ImportView }) {
       </div>
       {(c.conflicts?.length ?? 0) > 0 && (
         <p className="text-sm text-warn">
-          Conflicting times (already stored with other values; the stored rows were kept): {c.conflicts!.slice(0, 5).map((x) => formatDateTime(x.timestampUtc)).join(', ')}
+          Conflicting times (already stored with other values; the stored rows were kept): {c.conflicts!.slice(0, 5).map((x) => formatPlantTime(x.timestampUtc, plantTimeZone)).join(', ')}
           {c.conflicts!.length > 5 ? ` and ${c.conflicts!.length - 5} more` : ''}. Undo the earlier import first to replace them.
         </p>
       )}

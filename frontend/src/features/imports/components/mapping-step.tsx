@@ -211,7 +211,7 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
 
       <fieldset className="flex flex-col gap-3">
         <legend className="mb-1 text-sm font-semibold">Timestamps</legend>
-        <div className="grid gap-3 md:grid-cols-2 lg:grid-cols-4">
+        <div className="grid gap-3 md:grid-cols-2">
           <SelectField label="Timestamp format" value={format} onChange={(e) => setFormat(e.target.value as typeof format)}>
             {TIMESTAMP_FORMATS.map((f) => (
               <option key={f} value={f}>

@@ -77,7 +77,9 @@ export function CorrectionCurveEditor({ draft, onChange, pressure, error, disabl
                 head={
                   <>
                     <th className={`${th} text-right`}>Load (% of rating)</th>
-                    <th className={`${th} text-right`}>Backpressure ({pressure.label})</th>
+                    <th className={`${th} text-right`}>
+                      Backpressure <span className="normal-case">({pressure.label})</span>
+                    </th>
                     <th className={`${th} text-right`}>Change (%)</th>
                     <th className={th}>
                       <span className="sr-only">Remove</span>

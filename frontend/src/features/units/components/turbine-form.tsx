@@ -99,7 +99,9 @@ export function TurbineForm({ organisationId, unitId, saved, units, cannotWrite 
             head={
               <>
                 <th className={`${th} text-right`}>Load (% of rating)</th>
-                <th className={`${th} text-right`}>Duty ({units.powerMw.label})</th>
+                <th className={`${th} text-right`}>
+                  Duty <span className="normal-case">({units.powerMw.label})</span>
+                </th>
                 <th className={th}>
                   <span className="sr-only">Remove</span>
                 </th>

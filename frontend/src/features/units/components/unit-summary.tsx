@@ -3,7 +3,7 @@ import { DataTable, td, th, tr } from '@frontend/components/ui/data-table';
 import { EmptyState } from '@frontend/components/ui/empty-state';
 import { linkClass } from '@frontend/components/ui/public-page';
 import { formatStored, type FieldUnits } from '@frontend/lib/field-units';
-import { formatDateTime, formatNumber, formatPercent } from '@frontend/lib/format';
+import { formatDateTime, formatNumber, formatPercent, formatPlantTime } from '@frontend/lib/format';
 import type { UnitDetail } from '../api/get-unit';
 import { RecomputeStatus } from './recompute-status';
 
@@ -65,7 +65,7 @@ export function UnitSummary({ unit, units }: { unit: UnitDetail; units: FieldUni
           </EmptyState>
         ) : (
           <p className="text-sm" data-testid="data-span">
-            {formatNumber(unit.samples.count)} rows from {formatDateTime(unit.samples.first)} to {formatDateTime(unit.samples.last)}.{' '}
+            {formatNumber(unit.samples.count)} rows from {formatPlantTime(unit.samples.first, unit.plant.timeZone)} to {formatPlantTime(unit.samples.last, unit.plant.timeZone)} (plant time).{' '}
             <Link className={linkClass} to={`/units/${unit.id}/import`}>
               Import more
             </Link>
