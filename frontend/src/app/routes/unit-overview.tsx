@@ -6,22 +6,28 @@ import { useUnitPage } from './unit-layout';
 /** The unit's index page; the health view (charts of cleanliness and cost) will take this place. */
 export function UnitOverviewPage() {
   const { unit, units } = useUnitPage();
+  const hasData = unit.samples.count > 0;
+  const next = [
+    !unit.setupComplete && (
+      <Link key="setup" className={linkClass} to={`/units/${unit.id}/setup`}>
+        finish the setup
+      </Link>
+    ),
+    !hasData && (
+      <Link key="import" className={linkClass} to={`/units/${unit.id}/import`}>
+        import its performance data
+      </Link>
+    ),
+  ].filter(Boolean);
   return (
     <section className="flex flex-col gap-4" aria-label="Unit summary">
       <p className="text-sm text-ink-soft">
-        {unit.setupComplete && unit.samples.count > 0
-          ? 'Setup and data are in place; cleanliness and cost figures are derived from them.'
-          : 'Two steps before cleanliness and cost can be shown: '}
-        {!(unit.setupComplete && unit.samples.count > 0) && (
+        {next.length === 0 ? (
+          'Setup and data are in place; cleanliness and cost figures are derived from them.'
+        ) : (
           <>
-            <Link className={linkClass} to={`/units/${unit.id}/setup`}>
-              set up the unit
-            </Link>{' '}
-            and{' '}
-            <Link className={linkClass} to={`/units/${unit.id}/import`}>
-              import its data
-            </Link>
-            .
+            Before cleanliness and cost can be shown: {next[0]}
+            {next.length > 1 && <> and {next[1]}</>}.
           </>
         )}
       </p>

@@ -116,10 +116,16 @@ function NotesList({ view }: { view: ImportView }) {
 }
 
 function RejectedImport({ view }: { view: ImportView }) {
+  // a file-level error (unreadable, no header…) comes as one error without a column
+  const fileLevel = view.errors.length === 1 && !view.errors[0].column;
   return (
     <div className="flex flex-col gap-3" data-testid="import-rejected">
       <Notice tone="fault">
-        Nothing was imported. {view.message ?? ''} Fix the file (or the column mapping) and upload it again.
+        Nothing was imported:{' '}
+        {fileLevel
+          ? `${(view.message ?? 'the file could not be read').replace(/\.$/, '')}.`
+          : `the file has ${formatNumber(view.errorCount)} problem${view.errorCount === 1 ? '' : 's'} to fix.`}{' '}
+        Fix the file (or the column mapping) and upload it again.
       </Notice>
       <p className="text-sm">
         {formatNumber(view.errorCount)} problem{view.errorCount === 1 ? '' : 's'}
