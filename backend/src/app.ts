@@ -22,6 +22,7 @@ import { accountRoutes } from './routes/account.routes.js';
 import { apiTokenRoutes } from './routes/api-token.routes.js';
 import { auditRoutes } from './routes/audit.routes.js';
 import { calcRoutes } from './routes/calc.routes.js';
+import { cleaningMethodRoutes } from './routes/cleaning-method.routes.js';
 import { clientGroupRoutes } from './routes/client-group.routes.js';
 import { devMailboxRoutes } from './routes/dev-mailbox.routes.js';
 import { googleAuthRoutes } from './routes/google-auth.routes.js';
@@ -125,6 +126,7 @@ export function createApp(deps: AppDeps): CleancaseApp {
     ...apiTokenRoutes(dataSource),
     ...auditRoutes(dataSource),
     ...plantRoutes(dataSource),
+    ...cleaningMethodRoutes(dataSource),
     ...unitRoutes(dataSource),
     ...unitHealthRoutes(dataSource),
     ...importRoutes(dataSource, config),

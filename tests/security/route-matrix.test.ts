@@ -8,6 +8,8 @@ import request from 'supertest';
 import type TestAgent from 'supertest/lib/agent.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApiToken } from '../../backend/src/services/api-token.service.js';
+import { createMethod } from '../../backend/src/services/cleaning-method.service.js';
+import { TYPICAL_CLEANING_METHODS } from '../../shared/schemas/cleaning-method.js';
 import type { Role } from '../../shared/permissions.js';
 import { addMember, createClientGroup, createInvitation, createTenant, createUser, CSRF, signedInAgent, type TenantFixture, uniqueEmail } from '../factories/accounts.js';
 import { startGoogleFake, type GoogleFake } from '../../scripts/lib/local-services.js';
@@ -50,6 +52,8 @@ const writers = (ok: number, extra: Partial<Record<Caller, number>> = {}) =>
 const readers = (ok: number) => members(ok, { otherTenant: 404, otherGroup: 404 });
 const freshPlant = async (fx: Fixture) => createPlant(ds(), fx.a.organisation.id, groupOne(fx));
 const freshUnit = async (fx: Fixture) => createUnit(ds(), await freshPlant(fx));
+const freshMethod = (fx: Fixture) =>
+  createMethod(ds(), { organisationId: fx.a.organisation.id, userId: fx.a.users.admin.id, role: 'admin', clientGroupIds: null }, { ...TYPICAL_CLEANING_METHODS[2], id: `m-${Math.random().toString(36).slice(2, 10)}` });
 const plantBody = (fx: Fixture) => ({ name: `Plant ${Math.random().toString(36).slice(2)}`, timeZone: 'Europe/Berlin', clientGroupId: groupOne(fx) });
 
 const MATRIX: Record<string, Entry> = {
@@ -128,6 +132,14 @@ const MATRIX: Record<string, Entry> = {
   'GET /api/auth/google/callback': { expect: all(302) },
   'GET /api/dev/mailbox': { expect: all(200) },
   'GET /api/plants': { expect: members(200) },
+  'GET /api/cleaning-methods': { expect: members(200) },
+  'POST /api/cleaning-methods': { body: () => ({ ...TYPICAL_CLEANING_METHODS[0], id: `m-${Math.random().toString(36).slice(2, 10)}` }), expect: members(201, { approver: 403, viewer: 403 }) },
+  'PUT /api/cleaning-methods/:id': {
+    path: async (fx) => `/api/cleaning-methods/${(await freshMethod(fx)).recordId}`,
+    body: () => ({ ...TYPICAL_CLEANING_METHODS[1], id: `m-${Math.random().toString(36).slice(2, 10)}`, typical: false }),
+    expect: members(200, { approver: 403, viewer: 403, otherTenant: 404 }),
+  },
+  'DELETE /api/cleaning-methods/:id': { path: async (fx) => `/api/cleaning-methods/${(await freshMethod(fx)).recordId}`, expect: members(204, { approver: 403, viewer: 403, otherTenant: 404 }) },
   'POST /api/plants': {
     // With no client group: a member limited to groups may not create a plant they could not see.
     body: () => ({ name: `Plant ${Math.random().toString(36).slice(2)}`, timeZone: 'America/Chicago', clientGroupId: null }),

@@ -6,6 +6,7 @@ import { Organisation } from '../entities/organisation.entity.js';
 import { User } from '../entities/user.entity.js';
 import { DEMO_ORGANISATIONS, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people.js';
 import { seedDemoUnits } from './demo-units-seed.js';
+import { seedTypicalMethods } from '../services/cleaning-method.service.js';
 
 export interface DemoSignIn {
   email: string;
@@ -44,6 +45,7 @@ export async function seedDemoIfEmpty(dataSource: DataSource, log: (line: string
         trialEndsAt: o.kind === 'consultancy' ? null : new Date(Date.now() + 30 * 86_400_000),
       });
       orgIds.set(o.key, saved.id);
+      await seedTypicalMethods(em, saved.id);
       for (const name of o.clientGroups) {
         const group = await em.getRepository(ClientGroup).save({ organisationId: saved.id, name });
         groupIds.set(name, group.id);

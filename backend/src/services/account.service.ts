@@ -13,6 +13,7 @@ import { AppError, badRequest, notFound } from '../http/app-error.js';
 import type { Mailer } from '../mail/mailer.js';
 import { passwordResetMail } from '../mail/templates.js';
 import { recordAudit } from './audit.service.js';
+import { seedTypicalMethods } from './cleaning-method.service.js';
 
 export const TRIAL_DAYS = 30;
 const RESET_LIFETIME_MS = 60 * 60 * 1000;
@@ -33,6 +34,7 @@ export async function signUp(ds: DataSource, input: SignUpRequest): Promise<{ us
       trialEndsAt: new Date(Date.now() + TRIAL_DAYS * 86_400_000),
     });
     await em.getRepository(Membership).save({ organisationId: organisation.id, userId: user.id, role: 'admin', clientGroupIds: null });
+    await seedTypicalMethods(em, organisation.id);
     await recordAudit(em, { organisationId: organisation.id, userId: user.id, action: 'organisation.created', entityType: 'organisation', entityId: organisation.id });
     return { user, organisation };
   });
@@ -48,6 +50,7 @@ export async function createOrganisation(ds: DataSource, userId: string, name: s
       trialEndsAt: new Date(Date.now() + TRIAL_DAYS * 86_400_000),
     });
     await em.getRepository(Membership).save({ organisationId: organisation.id, userId, role: 'admin', clientGroupIds: null });
+    await seedTypicalMethods(em, organisation.id);
     await recordAudit(em, { organisationId: organisation.id, userId, action: 'organisation.created', entityType: 'organisation', entityId: organisation.id });
     return organisation;
   });

@@ -39,7 +39,11 @@ const HORIZON_DAYS = 365;
 
 export function cleaningOutlook(input: OutlookInput): CleaningOutlook {
   const methods = [...(input.methods ?? TYPICAL_CLEANING_METHODS)];
-  const methodsBasis = input.methods ? 'the organisation’s cleaning methods' : 'typical cleaning methods (typical values, edit them to your own)';
+  const methodsBasis = !input.methods
+    ? 'typical cleaning methods (typical values, edit them to your own)'
+    : methods.some((m) => m.typical)
+      ? 'the organisation’s cleaning methods (some still at typical values)'
+      : 'the organisation’s cleaning methods';
   if (!input.cycle) return { status: 'not-available', reason: 'No fouling trend yet: at least 10 days of valid data over 14 days since the last cleaning are needed', methodsBasis };
   if (input.history.length < 28) return { status: 'not-available', reason: 'Less than four weeks of history to build the seasonal profile', methodsBasis };
   const planFrom = addDays(input.lastDay, 1);

@@ -15,6 +15,7 @@ import { cycleSummary, fitCycles, trendCleanlinessOn, type CycleTrend } from './
 import { median, plantDayFormatter } from './plant-day.js';
 import { rebuildDailyAggregates } from './daily-aggregates.js';
 import { cleaningOutlook } from './cleaning-outlook.js';
+import { methodsOf } from '../cleaning-method.service.js';
 
 const CHUNK = 5_000;
 
@@ -185,6 +186,7 @@ export async function recomputeUnit(ds: DataSource, unitId: string, onProgress: 
     'SELECT day, meanCwInletC AS cwInletC, meanLoadMw AS loadMw FROM daily_aggregate WHERE unitId = ? AND pointsUsed > 0 ORDER BY day',
     [unitId],
   );
+  const libraryMethods = await methodsOf(ds.manager, unit.organisationId);
   const outlook = days.length
     ? cleaningOutlook({
         model,
@@ -193,6 +195,7 @@ export async function recomputeUnit(ds: DataSource, unitId: string, onProgress: 
         cycle: lastCycle && lastFit ? { startDay: lastCycle.startDay, model: lastFit.model, cleanlinessAfterCleaning: lastFit.cleanlinessAfterCleaning } : null,
         history: history.map((h) => ({ date: typeof h.day === 'string' ? h.day : h.day.toISOString().slice(0, 10), cwInletC: h.cwInletC, loadFraction: h.loadMw / model.ratingMw })),
         plannedOutages: events.filter((e) => e.kind === 'outage' && e.endDate).map((e) => ({ from: e.startDate, to: e.endDate! })),
+        methods: libraryMethods.length ? libraryMethods : undefined,
       })
     : null;
   const analysis = { computedAt: new Date().toISOString(), setupVersion: unit.setupVersion, lastDay: days.at(-1) ?? null, cycles: cycles.map(cycleSummary), airLeakPeriods: periods, outlook };
