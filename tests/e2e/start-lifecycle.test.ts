@@ -26,6 +26,8 @@ describe('npm start lifecycle', () => {
       GOOGLE_FAKE_PORT: String(await freePort()),
       SMTP_SINK_PORT: String(await freePort()),
       LOG_LEVEL: 'warn',
+      // People only: the full demo history is exercised by the import and health tests.
+      DEMO_DATA: 'people',
     };
     const runOnce = async () => {
       const child = spawn(process.execPath, [path.join(root, 'node_modules', 'tsx', 'dist', 'cli.mjs'), 'scripts/start.ts'], { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'] });
