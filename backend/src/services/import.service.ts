@@ -6,7 +6,8 @@
  * reported as conflicts and not stored. Undo deletes an import's rows and recomputes.
  */
 import { rm } from 'node:fs/promises';
-import type { DataSource } from 'typeorm';
+import { In, type DataSource } from 'typeorm';
+import { User } from '../entities/user.entity.js';
 import { importMappingSchema } from '@shared/schemas/import-mapping.js';
 import { checkImportFile, formatRowErrorReportCsv, guessMapping, importSamples, openTable, type ImportSample, type RowError } from '../import/index.js';
 import { DataImport } from '../entities/data-import.entity.js';
@@ -42,11 +43,12 @@ export interface ImportView {
   createdAt: string;
   finishedAt: string | null;
   mapping: unknown;
+  uploadedBy: string | null;
 }
 
 const ERRORS_IN_VIEW = 200;
 
-export function importView(i: DataImport, allErrors = false): ImportView {
+export function importView(i: DataImport, allErrors = false, uploadedBy: string | null = null): ImportView {
   const errors = (Array.isArray(i.errors) ? i.errors : []) as RowError[];
   return {
     id: i.id,
@@ -66,6 +68,7 @@ export function importView(i: DataImport, allErrors = false): ImportView {
     createdAt: i.createdAt.toISOString(),
     finishedAt: i.finishedAt?.toISOString() ?? null,
     mapping: i.mapping,
+    uploadedBy,
   };
 }
 
@@ -152,7 +155,9 @@ export async function startImport(ds: DataSource, scope: TenantScope, importId: 
 export async function listImports(ds: DataSource, scope: TenantScope, unitId: string): Promise<ImportView[]> {
   await unitInScope(ds, scope, unitId);
   const rows = await ds.getRepository(DataImport).find({ where: { unitId, organisationId: scope.organisationId }, order: { createdAt: 'DESC' }, take: 200 });
-  return rows.map((r) => importView(r));
+  const ids = [...new Set(rows.map((r) => r.uploadedByUserId).filter((id): id is string => !!id))];
+  const names = new Map((ids.length ? await ds.getRepository(User).findBy({ id: In(ids) }) : []).map((u) => [u.id, u.name]));
+  return rows.map((r) => importView(r, false, r.uploadedByUserId ? (names.get(r.uploadedByUserId) ?? null) : null));
 }
 
 export async function errorReportCsv(ds: DataSource, scope: TenantScope, importId: string): Promise<{ fileName: string; csv: string }> {
