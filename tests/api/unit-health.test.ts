@@ -8,11 +8,12 @@ import type TestAgent from 'supertest/lib/agent.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { backpressureAtCleanlinessKpa } from '@shared/domain/condenser/index.js';
 import { addDays, daysBetween } from '@shared/domain/decision/calendar/plant-date.js';
+import { analyseSample, buildUnitModel, type UnitSetupSi } from '@shared/domain/monitoring/index.js';
 import { drainJobs } from '../../backend/src/jobs/job-worker.js';
 import { JOB_HANDLERS } from '../../backend/src/jobs/job-handlers.js';
 import type { GeneratingUnit } from '../../backend/src/entities/generating-unit.entity.js';
 import { createTenant, CSRF, signedInAgent, type TenantFixture } from '../factories/accounts.js';
-import { createPlant, createUnit, TEST_CONDENSER, TEST_TURBINE } from '../factories/units.js';
+import { createPlant, createUnit, TEST_CONDENSER, TEST_ECONOMICS, TEST_TURBINE } from '../factories/units.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import { geometryOf, makeTempDir, physicalHistory, US_MAPPING, writeHistorianCsv, type HistorianRow } from '../helpers/historian-files.js';
 import { refreshCells, WITNESS_HEADERS, WITNESS_MAPPING, withWitnesses, type WitnessRow, type Witnesses } from '../helpers/historian-witness-files.js';
@@ -287,11 +288,27 @@ describe('condenser health API', () => {
       const valid = daily.filter((d) => d.pointsUsed > 0);
       const lastWeek = valid.slice(-7).map((d) => d.foulingCost);
       expect(health.headline.foulingCostPerDay).toBeCloseTo(mean(lastWeek), 6);
-      // CF below the reference 0.90 all through the second cycle's later weeks: fouling costs money.
+      // derived (§4): the trend CF is below the reference 0.90 through the second cycle's later weeks, so fouling costs money.
       expect(health.headline.foulingCostPerDay).toBeGreaterThan(0);
       const since = valid.filter((d) => d.day >= CLEANING_DATE).map((d) => d.foulingCost);
       expect(since).toHaveLength(DAYS - CLEANING_DAY);
       expect(health.headline.foulingCostSinceCleaning).toBeCloseTo(sum(since), 6);
+      const week = valid.slice(-7);
+      expect(health.headline.excessBackpressureKpa).toBeCloseTo(mean(week.map((d) => d.meanExcessBackpressureKpa as number)), 9);
+      expect(health.headline.unexplainedCostPerDay).toBeCloseTo(mean(week.map((d) => d.unexplainedCost as number)), 6);
+    });
+
+    it('costs a day as the sum of its hours, each analysed at the day’s trend cleanliness through the turbine curve', () => {
+      // derived (§4): fouling cost = penalty between P(trend CF) and P(reference CF) per hour, summed over the
+      // day's 24 valid hours; recomputed here from the file's own rows with the shared calculation.
+      const model = buildUnitModel({ condenser: TEST_CONDENSER, turbine: TEST_TURBINE, economics: TEST_ECONOMICS } as UnitSetupSi);
+      for (const i of [5, 33, 60]) {
+        const d = byDay.get(addDays(FIRST_DAY, i))!;
+        expect(d.pointsUsed).toBe(H);
+        const hours = rows.slice(i * H, (i + 1) * H).map((r) => analyseSample(model, r, TEST_CONDENSER.pluggedTubes, d.trendCleanliness!));
+        expect(d.foulingCost).toBeCloseTo(sum(hours.map((a) => a.foulingCostPerHour)), 2);
+        expect(d.foulingCost).toBeGreaterThan(0);
+      }
     });
 
     it('gives the next cleaning a status, and when planned a date after the last day', () => {
@@ -369,6 +386,30 @@ describe('condenser health API', () => {
     });
   });
 
+  describe('a chosen period', () => {
+    it('limits the series, breakdown, air-leak periods and data quality to July, with no forecast before the last day', async () => {
+      const july = (await analyst.get(`/api/units/${unit.id}/health`).query({ from: '2024-07-01', to: '2024-07-31', breakdownBy: 'week' }).expect(200)).body;
+      expect(july.period).toEqual({ from: '2024-07-01', to: '2024-07-31', breakdownBy: 'week' });
+      expect(july.series).toHaveLength(31);
+      expect(july.series[0].day).toBe('2024-07-01');
+      expect(july.series[0].cumulativeFoulingCost).toBeCloseTo(byDay.get('2024-07-01')!.foulingCost, 6);
+      // The leak was in June.
+      expect(july.airLeakPeriods).toEqual([]);
+      expect(july.forecast).toEqual([]);
+      expect(july.dataQuality.daysInPeriod).toBe(31);
+      expect(july.dataQuality.droppedByReason).toEqual({ 'rise-not-positive': NO_RISE_HOURS.length });
+      expect(july.events.map((e: { kind: string }) => e.kind)).toEqual(['cleaning']);
+      // Weeks that start in late June still count only their July days.
+      expect(july.breakdown[0].period).toBe('2024-07-01');
+      // The headline stays the unit's latest state whatever the period.
+      expect(july.headline.asOf).toBe(LAST_DAY);
+    });
+
+    it('refuses a period that ends before it starts', async () => {
+      await analyst.get(`/api/units/${unit.id}/health`).query({ from: '2024-07-31', to: '2024-07-01' }).expect(400);
+    });
+  });
+
   describe('data quality', () => {
     it('sums the points used and left out of the daily rows and counts the refused rows by reason', () => {
       const q = health.dataQuality;
@@ -442,7 +483,7 @@ describe('condenser health API', () => {
         expect(Number(r[col('Fouling cost (money/day)')])).toBe(d.foulingCost);
         expect(r[col('Air in-leakage suspected')]).toBe(String(Boolean(d.airLeakSuspected)));
       });
-      // At 88 % load the heat-balance duty is below the full-load design duty: a negative load-and-duty part.
+      // derived (§3): at 88 % load the heat-balance duty is below the full-load design duty, so the load-and-duty part is negative.
       const loadCells = body.map((r) => r[col('Deviation: load and duty kPa')]);
       expect(loadCells.every((c) => /^-\d/.test(c))).toBe(true);
       // No text here needs neutralising, and numbers are never given the apostrophe.
