@@ -29,6 +29,9 @@ export function fieldUnits(system: UnitSystem) {
       : { label: `${label}/GJ`, toSi: (v) => v * KJ_PER_BTU, fromSi: (v) => v / KJ_PER_BTU, decimals };
   return {
     pressureKpa: preset.pressure,
+    /** a difference of pressures: same factor as the absolute pressure, without the "absolute" mark */
+    pressureDifferenceKpa: { ...preset.pressure, label: us ? 'inHg' : 'kPa' } satisfies DisplayUnit,
+    temperatureDifferenceK: preset.temperatureDifference,
     temperatureC: preset.temperature,
     flowM3s: preset.flow,
     powerMw: preset.power,

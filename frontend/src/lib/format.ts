@@ -23,6 +23,19 @@ export const formatNumber = (value: number | null | undefined, decimals = 0): st
 export const formatMoney = (value: number | null | undefined, currency = 'USD', decimals = 0): string =>
   value === null || value === undefined ? '—' : `${currency} ${formatNumber(value, decimals)}`;
 
+/**
+ * Money with the currency's own sign where it has one, e.g. "$48,200" or "€48,200"; an unknown code
+ * falls back to "XYZ 48,200".
+ */
+export function formatCurrency(value: number | null | undefined, currency = 'USD', decimals = 0): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  try {
+    return new Intl.NumberFormat('en-US', { style: 'currency', currency, minimumFractionDigits: decimals, maximumFractionDigits: decimals }).format(value);
+  } catch {
+    return formatMoney(value, currency, decimals);
+  }
+}
+
 /** A fraction as a percentage, e.g. 0.853 → "85.3 %". */
 export const formatPercent = (fraction: number | null | undefined, decimals = 1): string =>
   fraction === null || fraction === undefined ? '—' : `${formatNumber(fraction * 100, decimals)} %`;
@@ -50,3 +63,8 @@ export function formatPlantDate(iso: string | null | undefined, timeZone: string
     return formatDate(iso);
   }
 }
+
+const dayFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
+
+/** A calendar day already in the plant's time ("2025-04-20") as "20 Apr 2025", with no zone shift. */
+export const formatDay = (day: string | null | undefined): string => (day ? dayFormat.format(new Date(`${day.slice(0, 10)}T00:00:00Z`)) : '—');

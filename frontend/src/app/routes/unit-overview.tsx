@@ -1,12 +1,39 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { useEffect, useRef } from 'react';
 import { Link } from 'react-router-dom';
 import { linkClass } from '@frontend/components/ui/public-page';
+import { HealthView } from '@frontend/features/health/components/health-view';
+import { jobIsActive } from '@frontend/features/units/api/get-unit';
+import { RecomputeStatus } from '@frontend/features/units/components/recompute-status';
 import { UnitSummary } from '@frontend/features/units/components/unit-summary';
 import { useUnitPage } from './unit-layout';
 
-/** The unit's index page; the health view (charts of cleanliness and cost) will take this place. */
+/** The unit's index page: the condenser health view, or what to do before there can be one. */
 export function UnitOverviewPage() {
-  const { unit, units } = useUnitPage();
+  const { organisationId, unit, units, cannotWrite } = useUnitPage();
+  const queryClient = useQueryClient();
   const hasData = unit.samples.count > 0;
+  const working = unit.jobs.some(jobIsActive);
+  const wasWorking = useRef(working);
+  useEffect(() => {
+    // a recompute (after a cleaning, a setup change or an import) just ended: the health figures changed
+    if (wasWorking.current && !working) void queryClient.invalidateQueries({ queryKey: ['organisations', organisationId, 'units', unit.id, 'health'] });
+    wasWorking.current = working;
+  }, [working, organisationId, unit.id, queryClient]);
+
+  if (unit.setupComplete && hasData) {
+    const lastJob = unit.jobs[0];
+    return (
+      <HealthView
+        organisationId={organisationId}
+        unit={{ id: unit.id, timeZone: unit.plant.timeZone, firstSampleUtc: unit.samples.first, lastSampleUtc: unit.samples.last, currency: unit.economics?.currency ?? 'USD' }}
+        units={units}
+        cannotWrite={cannotWrite}
+        progress={working || lastJob?.status === 'failed' ? <RecomputeStatus jobs={unit.jobs} /> : null}
+      />
+    );
+  }
+
   const next = [
     !unit.setupComplete && (
       <Link key="setup" className={linkClass} to={`/units/${unit.id}/setup`}>
@@ -22,14 +49,8 @@ export function UnitOverviewPage() {
   return (
     <section className="flex flex-col gap-4" aria-label="Unit summary">
       <p className="text-sm text-ink-soft">
-        {next.length === 0 ? (
-          'Setup and data are in place; cleanliness and cost figures are derived from them.'
-        ) : (
-          <>
-            Before cleanliness and cost can be shown: {next[0]}
-            {next.length > 1 && <> and {next[1]}</>}.
-          </>
-        )}
+        Before cleanliness and cost can be shown: {next[0]}
+        {next.length > 1 && <> and {next[1]}</>}.
       </p>
       <UnitSummary unit={unit} units={units} />
     </section>

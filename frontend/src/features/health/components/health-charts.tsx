@@ -1,0 +1,242 @@
+import { ResponsiveBar, type BarTooltipProps } from '@nivo/bar';
+import { useMemo } from 'react';
+import { BREAKDOWN_CAUSES } from '@shared/schemas/health';
+import { CAUSE_STYLES, CHART_COLOURS, CHART_THEME } from '@frontend/lib/chart-palette';
+import { formatStored, type FieldUnits } from '@frontend/lib/field-units';
+import { formatCurrency, formatDay, formatNumber } from '@frontend/lib/format';
+import type { UnitHealth } from '../api/get-health';
+import { ChartFrame, TooltipBox, type LegendItem } from './chart-frame';
+import TimeChart, { type TimeSeriesSpec } from './time-chart';
+
+export interface HealthChartsProps {
+  health: UnitHealth;
+  units: FieldUnits;
+  currency: string;
+  narrow: boolean;
+}
+
+const pct = (v: number | null) => (v === null ? null : v * 100);
+const shortDay = (day: string) => new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', timeZone: 'UTC' }).format(new Date(`${day}T00:00:00Z`));
+
+/** The four charts of the health view; loaded on demand because the chart library is most of the bundle. */
+export default function HealthCharts({ health, units, currency, narrow }: HealthChartsProps) {
+  const from = health.period.from ?? health.series[0]?.day ?? '';
+  const lastDataDay = health.period.to ?? health.series.at(-1)?.day ?? '';
+  const forecastEnd = health.forecast.at(-1)?.day;
+  const to = forecastEnd && forecastEnd > lastDataDay ? forecastEnd : lastDataDay;
+  const cleanings = useMemo(
+    () => health.events.filter((e) => e.kind === 'cleaning').map((e) => ({ day: e.endDate ?? e.startDate, label: `Cleaning ${shortDay(e.endDate ?? e.startDate)}` })),
+    [health.events],
+  );
+  const shades = health.airLeakPeriods;
+  const p = units.pressureKpa;
+  const ref = health.headline.referenceCleanliness;
+  if (!from || !to) return null;
+
+  const cleanlinessSeries: TimeSeriesSpec[] = [
+    { id: 'measured', label: 'Measured (daily median)', colour: CHART_COLOURS.measured, style: 'points', values: health.series.map((d) => ({ day: d.day, y: pct(d.cleanliness) })) },
+    { id: 'trend', label: 'Fitted trend', colour: CHART_COLOURS.fitted, style: 'line', width: 2.5, values: health.series.map((d) => ({ day: d.day, y: pct(d.trendCleanliness) })) },
+    { id: 'forecast', label: 'Forecast', colour: CHART_COLOURS.forecast, style: 'dash', values: health.forecast.map((f) => ({ day: f.day, y: f.cleanliness * 100 })) },
+  ];
+  const hasLeak = shades.length > 0;
+  const hasCleaning = cleanings.some((c) => c.day >= from && c.day <= to);
+  const common: LegendItem[] = [
+    ...(hasCleaning ? [{ label: 'Cleaning', colour: CHART_COLOURS.cleaning, mark: 'marker' as const }] : []),
+    ...(hasLeak ? [{ label: 'Suspected air in-leakage (left out of the trend)', colour: CHART_COLOURS.airLeakShade, mark: 'shade' as const }] : []),
+  ];
+  const trend = health.trend;
+
+  return (
+    <div className="grid gap-3 xl:grid-cols-2">
+      <ChartFrame
+        testId="chart-cleanliness"
+        points={health.series.length}
+        title="Cleanliness factor over time"
+        subtitle="How clean the tubes are: 100 % is a new, clean condenser. The trend restarts at each cleaning."
+        legend={[
+          { label: 'Measured (daily median)', colour: CHART_COLOURS.measured, mark: 'points' },
+          { label: 'Fitted trend', colour: CHART_COLOURS.fitted, mark: 'line' },
+          ...(health.forecast.length ? [{ label: `Forecast with ${Math.round((trend?.bandProbability ?? 0.9) * 100)} % band`, colour: CHART_COLOURS.forecastBand, mark: 'band' as const }] : []),
+          { label: 'Reference cleanliness', colour: CHART_COLOURS.reference, mark: 'dash' },
+          ...common,
+        ]}
+        note={
+          trend?.status === 'fitted' && trend.rSquared !== undefined ? (
+            <>
+              Trend since {formatDay(trend.startDay)}: {trend.model?.model ?? 'fitted'} model, R² {formatNumber(trend.rSquared, 3)}, scatter ±{formatNumber((trend.residualStdCleanliness ?? 0) * 100, 1)} % CF
+              {trend.pointsUsed !== undefined && <> over {formatNumber(trend.pointsUsed)} days</>}.
+            </>
+          ) : trend?.reason ? (
+            <>No trend for the latest cycle: {trend.reason}</>
+          ) : null
+        }
+      >
+        <TimeChart
+          series={cleanlinessSeries}
+          band={health.forecast.map((f) => ({ day: f.day, low: f.low * 100, high: f.high * 100 }))}
+          shades={shades}
+          cleanings={cleanings}
+          reference={ref === null ? undefined : { value: ref * 100, label: `Reference ${formatNumber(ref * 100, 0)} %` }}
+          from={from}
+          to={to}
+          yLegend="Cleanliness factor (%)"
+          yTick={(v) => formatNumber(v, 0)}
+          yValue={(v) => `${formatNumber(v, 1)} %`}
+          ariaLabel="Cleanliness factor by day: measured, fitted trend and forecast"
+          narrow={narrow}
+        />
+      </ChartFrame>
+
+      <ChartFrame
+        testId="chart-backpressure"
+        points={health.series.length}
+        title="Backpressure: actual against expected"
+        subtitle={`Daily means. Expected is what the condenser would hold at the reference cleanliness${ref === null ? '' : ` (${formatNumber(ref * 100, 0)} %)`} with the same CW and load; the gap is the excess.`}
+        legend={[
+          { label: 'Actual', colour: CHART_COLOURS.measured, mark: 'line' },
+          { label: 'Expected at reference cleanliness', colour: CHART_COLOURS.expected, mark: 'dash' },
+          ...common,
+        ]}
+      >
+        <TimeChart
+          series={[
+            { id: 'actual', label: 'Actual', colour: CHART_COLOURS.measured, style: 'line', width: 1.75, values: health.series.map((d) => ({ day: d.day, y: d.backpressureKpa === null ? null : p.fromSi(d.backpressureKpa) })) },
+            {
+              id: 'expected',
+              label: 'Expected',
+              colour: CHART_COLOURS.expected,
+              style: 'dash',
+              width: 1.5,
+              values: health.series.map((d) => ({ day: d.day, y: d.expectedBackpressureKpa === null ? null : p.fromSi(d.expectedBackpressureKpa) })),
+            },
+          ]}
+          shades={shades}
+          cleanings={cleanings}
+          from={from}
+          to={lastDataDay}
+          yLegend={`Backpressure (${p.label})`}
+          yTick={(v) => formatNumber(v, p.decimals - 1)}
+          yValue={(v) => `${formatNumber(v, p.decimals)} ${p.label}`}
+          ariaLabel="Actual and expected backpressure by day"
+          narrow={narrow}
+        />
+      </ChartFrame>
+
+      <DeviationChart health={health} units={units} narrow={narrow} />
+
+      <ChartFrame
+        testId="chart-cost"
+        points={health.series.length}
+        title="Fouling cost, running total over the period"
+        subtitle="Extra fuel and replacement power because the tubes are dirtier than the reference. Cleanings are marked; the total does not reset."
+        legend={[{ label: `Cumulative fouling cost (${currency})`, colour: CHART_COLOURS.cost, mark: 'line' }, ...common]}
+        note={
+          <>
+            Over the period: <span className="font-medium text-ledger-700">{formatCurrency(health.series.at(-1)?.cumulativeFoulingCost ?? 0, currency)}</span>; the unexplained part (
+            {formatCurrency(health.series.reduce((a, d) => a + (d.unexplainedCost ?? 0), 0), currency)}) is not included.
+          </>
+        }
+      >
+        <TimeChart
+          series={[{ id: 'cost', label: 'Cumulative fouling cost', colour: CHART_COLOURS.cost, style: 'line', width: 2.5, values: health.series.map((d) => ({ day: d.day, y: d.cumulativeFoulingCost })) }]}
+          shades={shades}
+          cleanings={cleanings}
+          from={from}
+          to={lastDataDay}
+          yFromZero
+          yLegend={`Cost (${currency})`}
+          yTick={(v) => compactMoney(v, currency)}
+          yValue={(v) => formatCurrency(v, currency)}
+          ariaLabel="Cumulative fouling cost by day"
+          narrow={narrow}
+        />
+      </ChartFrame>
+    </div>
+  );
+}
+
+function compactMoney(v: number, currency: string): string {
+  try {
+    return new Intl.NumberFormat('en-US', { style: 'currency', currency, notation: 'compact', maximumFractionDigits: 1 }).format(v);
+  } catch {
+    return formatNumber(v, 0);
+  }
+}
+
+type BarRow = { period: string } & Record<(typeof BREAKDOWN_CAUSES)[number], number>;
+
+function DeviationChart({ health, units, narrow }: { health: UnitHealth; units: FieldUnits; narrow: boolean }) {
+  const dp = units.pressureDifferenceKpa;
+  const byWeek = health.period.breakdownBy === 'week';
+  const rows: BarRow[] = useMemo(
+    () =>
+      health.breakdown.map(
+        (b) => ({ period: b.period, ...Object.fromEntries(BREAKDOWN_CAUSES.map((c) => [c, b[c] === null ? 0 : dp.fromSi(b[c]!)])) }) as BarRow,
+      ),
+    [health.breakdown, dp],
+  );
+  const label = (period: string) =>
+    byWeek ? shortDay(period) : new Intl.DateTimeFormat('en-US', { month: 'short', year: '2-digit', timeZone: 'UTC' }).format(new Date(`${period}-01T00:00:00Z`));
+  const every = Math.max(1, Math.ceil(rows.length / (narrow ? 5 : 10)));
+  const offset = health.design?.modelOffsetKpa ?? null;
+  const Tip = ({ indexValue, data }: BarTooltipProps<BarRow>) => {
+    const source = health.breakdown.find((b) => b.period === indexValue);
+    const total = BREAKDOWN_CAUSES.reduce((a, c) => a + (data[c] ?? 0), 0);
+    return (
+      <TooltipBox
+        title={byWeek ? `Week of ${formatDay(String(indexValue))}` : label(String(indexValue))}
+        rows={[
+          ...BREAKDOWN_CAUSES.map((c) => ({ label: CAUSE_STYLES[c].label, value: signed(data[c], dp.decimals, dp.label), colour: CAUSE_STYLES[c].colour })),
+          { label: 'Sum of the parts', value: signed(total, dp.decimals, dp.label) },
+          { label: 'Excess over expected', value: source?.meanExcessBackpressureKpa === null || !source ? '—' : signed(dp.fromSi(source.meanExcessBackpressureKpa), dp.decimals, dp.label) },
+        ]}
+      />
+    );
+  };
+  return (
+    <ChartFrame
+      testId="chart-breakdown"
+      points={rows.length}
+      title={`Why backpressure differs from design, by ${byWeek ? 'week' : 'month'}`}
+      subtitle={
+        health.design
+          ? `Mean of each cause against the design backpressure (${formatStored(health.design.datasheetBackpressureKpa, units.pressureKpa)}); above zero raises backpressure, below zero lowers it. Only fouling is recovered by cleaning.`
+          : 'Mean of each cause against the design backpressure; only fouling is recovered by cleaning.'
+      }
+      legend={BREAKDOWN_CAUSES.map((c) => ({ label: CAUSE_STYLES[c].label, colour: CAUSE_STYLES[c].colour, mark: 'bar' as const }))}
+      note={
+        offset !== null ? (
+          <>
+            Model offset (not in the bars): the model at the design point reads {signed(dp.fromSi(offset), dp.decimals + 2, dp.label)} against the datasheet design backpressure.
+          </>
+        ) : undefined
+      }
+    >
+      <div className="h-64 w-full print:h-56" role="img" aria-label={`Backpressure deviation by cause, one bar per ${byWeek ? 'week' : 'month'}`}>
+        <ResponsiveBar<BarRow>
+          data={rows}
+          keys={[...BREAKDOWN_CAUSES]}
+          indexBy="period"
+          groupMode="stacked"
+          margin={{ top: 12, right: 16, bottom: 40, left: 60 }}
+          padding={rows.length > 40 ? 0.1 : 0.25}
+          colors={({ id }) => CAUSE_STYLES[id as (typeof BREAKDOWN_CAUSES)[number]].colour}
+          borderWidth={rows.length > 60 ? 0 : 0.75}
+          borderColor="#ffffff"
+          enableLabel={false}
+          valueScale={{ type: 'linear', min: 'auto', max: 'auto', nice: true }}
+          axisBottom={{ tickSize: 4, tickValues: rows.filter((_, i) => i % every === 0).map((r) => r.period), format: (v: string) => label(v) }}
+          axisLeft={{ legend: `Deviation (${dp.label})`, legendOffset: -50, legendPosition: 'middle', tickSize: 4, tickValues: 6, format: (v: number) => formatNumber(v, dp.decimals) }}
+          markers={[{ axis: 'y', value: 0, lineStyle: { stroke: '#1d1f23', strokeWidth: 1 } }]}
+          tooltip={Tip}
+          animate={false}
+          theme={CHART_THEME}
+          role="presentation"
+        />
+      </div>
+    </ChartFrame>
+  );
+}
+
+const signed = (v: number | null | undefined, decimals: number, unit: string) =>
+  v === null || v === undefined || !Number.isFinite(v) ? '—' : `${v > 0 ? '+' : v < 0 ? '−' : ''}${formatNumber(Math.abs(v), decimals)} ${unit}`;

@@ -1,0 +1,74 @@
+import type { HealthPeriodQuery } from '../api/get-health';
+
+export const PERIOD_CHOICES = [
+  { value: '30d', label: 'Last 30 days', days: 30 },
+  { value: '90d', label: 'Last 90 days', days: 90 },
+  { value: '1y', label: 'Last year', days: 365 },
+  { value: 'all', label: 'All data', days: null },
+  { value: 'custom', label: 'From – to', days: null },
+] as const;
+
+export type PeriodChoice = (typeof PERIOD_CHOICES)[number]['value'];
+
+export interface PeriodSelection {
+  choice: PeriodChoice;
+  from: string | null;
+  to: string | null;
+  breakdownBy: 'week' | 'month';
+}
+
+const DAY = /^\d{4}-\d{2}-\d{2}$/;
+const validDay = (v: string | null) => (v && DAY.test(v) && !Number.isNaN(Date.parse(v)) ? v : null);
+
+/** The period in the address (`?period=90d&by=week`, or `?period=custom&from=…&to=…`), so a view can be shared. */
+export function periodFromSearch(search: URLSearchParams): PeriodSelection {
+  const raw = search.get('period');
+  const choice = (PERIOD_CHOICES.find((c) => c.value === raw)?.value ?? '1y') as PeriodChoice;
+  const breakdownBy = search.get('by') === 'week' ? 'week' : 'month';
+  return { choice, from: validDay(search.get('from')), to: validDay(search.get('to')), breakdownBy };
+}
+
+export function searchFromPeriod(p: PeriodSelection): Record<string, string> {
+  const out: Record<string, string> = { period: p.choice, by: p.breakdownBy };
+  if (p.choice === 'custom') {
+    if (p.from) out.from = p.from;
+    if (p.to) out.to = p.to;
+  }
+  return out;
+}
+
+export function addDaysTo(day: string, days: number): string {
+  const d = new Date(`${day}T00:00:00Z`);
+  d.setUTCDate(d.getUTCDate() + days);
+  return d.toISOString().slice(0, 10);
+}
+
+/** A moment as the plant-local calendar day. */
+export function plantDay(iso: string, timeZone: string): string {
+  try {
+    return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date(iso));
+  } catch {
+    return iso.slice(0, 10);
+  }
+}
+
+/**
+ * The request for a selection. "Last N days" count back from the unit's last day of data (not from
+ * today: a unit whose data stops in spring still shows its last 30 days), "all" starts at its first day.
+ */
+export function periodQuery(p: PeriodSelection, data: { firstDay: string | null; lastDay: string | null }): HealthPeriodQuery {
+  const q: HealthPeriodQuery = { breakdownBy: p.breakdownBy };
+  if (p.choice === 'custom') {
+    if (p.from) q.from = p.from;
+    if (p.to) q.to = p.to;
+    if (q.from && q.to && q.from > q.to) [q.from, q.to] = [q.to, q.from];
+    return q;
+  }
+  if (p.choice === 'all') {
+    if (data.firstDay) q.from = data.firstDay;
+    return q;
+  }
+  const days = PERIOD_CHOICES.find((c) => c.value === p.choice)?.days ?? 365;
+  if (data.lastDay) q.from = addDaysTo(data.lastDay, -(days - 1));
+  return q;
+}
