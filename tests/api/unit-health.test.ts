@@ -545,6 +545,30 @@ describe('condenser health API', () => {
     });
   });
 
+  describe('air in-leakage soon after a cleaning', () => {
+    // Known gap, kept as an expected failure until fixed: the reference window of judgeAirLeakDays reaches back
+    // across the cleaning to the fouled days before it, so a leak that begins a few days after a cleaning shows
+    // no cleanliness drop against it; with a single witness (dissolved oxygen) nothing is flagged, and the leak
+    // days then go into the new cycle's fouling fit. Remove `.fails` when the reference stops at a cleaning.
+    it.fails('is still flagged when it begins three days after a cleaning and only dissolved oxygen witnesses it', async () => {
+      const u = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
+      // Cleaned at CF 0.80 after 35 days (as in the main history), leak from the third day after.
+      const cleaningDay = 35;
+      const leakFrom = cleaningDay + 3;
+      const inLeak = (h: number) => h >= leakFrom * H && h < (leakFrom + LEAK_DAYS) * H;
+      const cf = (h: number) => 1 / (1 / CF0 + K * (h / H - (h >= cleaningDay * H ? cleaningDay : 0)));
+      const plain = physicalHistory({ startUtc: START_UTC, hours: 55 * H, condenser: TEST_CONDENSER, turbine: TEST_TURBINE, cleanlinessAt: (h) => cf(h) - (inLeak(h) ? LEAK_CF_LOSS : 0) });
+      const data = withWitnesses(plain, (h) => ({ ...tight(h), dissolvedOxygenPpb: inLeak(h) ? 24 : tight(h).dissolvedOxygenPpb }));
+      await importInto(u, 'after-cleaning', data, WITNESS_MAPPING, WITNESS_HEADERS);
+      const date = addDays(FIRST_DAY, cleaningDay);
+      await analyst.post(`/api/units/${u.id}/events`).set(CSRF).send({ kind: 'cleaning', startDate: date, endDate: date }).expect(201);
+      await drain();
+      const body = (await analyst.get(`/api/units/${u.id}/health`).expect(200)).body;
+      expect(body.airLeakPeriods).toHaveLength(1);
+      expect(Math.abs(daysBetween(addDays(FIRST_DAY, leakFrom), body.airLeakPeriods[0].from))).toBeLessThanOrEqual(2);
+    });
+  });
+
   describe('scope', () => {
     it('answers 404 for another tenant’s unit on health, samples and export, both ways', async () => {
       const theirUnit = await createUnit(t.dataSource, await createPlant(t.dataSource, other.organisation.id));
