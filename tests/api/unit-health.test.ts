@@ -546,11 +546,8 @@ describe('condenser health API', () => {
   });
 
   describe('air in-leakage soon after a cleaning', () => {
-    // Known gap, kept as an expected failure until fixed: the reference window of judgeAirLeakDays reaches back
-    // across the cleaning to the fouled days before it, so a leak that begins a few days after a cleaning shows
-    // no cleanliness drop against it; with a single witness (dissolved oxygen) nothing is flagged, and the leak
-    // days then go into the new cycle's fouling fit. Remove `.fails` when the reference stops at a cleaning.
-    it.fails('is still flagged when it begins three days after a cleaning and only dissolved oxygen witnesses it', async () => {
+    // A leak that begins a few days after a cleaning is judged against the clean days since it, not the fouled days before.
+    it('is still flagged when it begins three days after a cleaning and only dissolved oxygen witnesses it', async () => {
       const u = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
       // Cleaned at CF 0.80 after 35 days (as in the main history), leak from the third day after.
       const cleaningDay = 35;

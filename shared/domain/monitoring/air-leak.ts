@@ -59,17 +59,30 @@ function median(values: number[]): number | null {
   return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
 }
 
-export function judgeAirLeakDays(days: readonly AirLeakDay[], settings: AirLeakSettings = DEFAULT_AIR_LEAK_SETTINGS): AirLeakDayVerdict[] {
+/** After a cleaning the reference may be this short, and is taken right up to the day before. */
+const MIN_REFERENCE_AFTER_CLEANING = 3;
+
+/**
+ * @param cleanings dates ('YYYY-MM-DD') the cleanliness was restored: the reference never reaches back past
+ *   one, since the fouled days before it would hide a drop that starts soon after
+ */
+export function judgeAirLeakDays(days: readonly AirLeakDay[], settings: AirLeakSettings = DEFAULT_AIR_LEAK_SETTINGS, cleanings: readonly string[] = []): AirLeakDayVerdict[] {
   const verdicts: AirLeakDayVerdict[] = [];
+  const sortedCleanings = [...cleanings].sort();
   for (let i = 0; i < days.length; i++) {
+    const d = days[i];
+    const lastCleaning = sortedCleanings.filter((c) => c <= d.day).at(-1) ?? '';
+    const freshlyCleaned = lastCleaning !== '' && days.slice(Math.max(0, i - settings.baselineDays - settings.gapDays), i).some((x) => x.day < lastCleaning);
     // Reference: the last `baselineDays` unsuspected days ending `gapDays` before this one (so a long leak
-    // is still judged against the days before it began), looking back at most 90 days.
+    // is still judged against the days before it began), looking back at most 90 days and never past the
+    // last cleaning; in the first weeks after a cleaning the gap is dropped and a shorter reference will do.
+    const gap = freshlyCleaned ? 0 : settings.gapDays;
     const reference: AirLeakDay[] = [];
-    for (let k = i - settings.gapDays - 1; k >= 0 && k >= i - 90 && reference.length < settings.baselineDays; k--) {
+    for (let k = i - gap - 1; k >= 0 && k >= i - 90 && reference.length < settings.baselineDays && days[k].day >= lastCleaning; k--) {
       if (!verdicts[k].suspected) reference.push(days[k]);
     }
-    const d = days[i];
-    if (reference.length < settings.baselineDays / 2) {
+    const minimum = freshlyCleaned ? MIN_REFERENCE_AFTER_CLEANING : settings.baselineDays / 2;
+    if (reference.length < minimum) {
       verdicts.push({ day: d.day, suspected: false, drop: 0, evidence: [] });
       continue;
     }

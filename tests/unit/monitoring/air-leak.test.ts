@@ -129,4 +129,22 @@ describe('air in-leakage periods from daily verdicts', () => {
       [addDays(START, 6), addDays(START, 8)],
     ]);
   });
+
+  it('judges a leak that starts three days after a cleaning against the clean days since, not the fouled ones before', () => {
+    // Fouled to 0.70 over 40 days, cleaned back to 0.90 on day 40, leak of 0.08 from day 43 with only oxygen raised.
+    const cleanedOn = 40;
+    const days = Array.from({ length: 70 }, (_, i) => ({
+      day: addDays(START, i),
+      cleanliness: (i < cleanedOn ? 0.9 - 0.005 * i : 0.9 - 0.0005 * (i - cleanedOn)) - (inside(i, cleanedOn + 3, 8) ? 0.08 : 0),
+      ...NORMAL,
+      dissolvedOxygenPpb: inside(i, cleanedOn + 3, 8) ? 24 : 6,
+    }));
+    const withCleaning = airLeakPeriods(judgeAirLeakDays(days, DEFAULT_AIR_LEAK_SETTINGS, [addDays(START, cleanedOn)]));
+    expect(withCleaning).toHaveLength(1);
+    expect(withCleaning[0].from).toBe(addDays(START, cleanedOn + 3));
+    expect(withCleaning[0].evidence).toEqual(['cleanliness-drop', 'dissolved-oxygen']);
+    // Without knowing of the cleaning, the fouled days before it hide the drop.
+    const blind = airLeakPeriods(judgeAirLeakDays(days)).filter((p) => p.from >= addDays(START, cleanedOn));
+    expect(blind.every((p) => p.from > addDays(START, cleanedOn + 3))).toBe(true);
+  });
 });

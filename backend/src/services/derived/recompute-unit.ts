@@ -122,14 +122,16 @@ export async function recomputeUnit(ds: DataSource, unitId: string, onProgress: 
   const days = [...perDay.keys()].sort();
   const dailyCf = new Map<string, number>();
   for (const day of days) dailyCf.set(day, median(perDay.get(day)!.cf)!);
+  const cleanings = events.filter((e) => e.kind === 'cleaning').map((e) => ({ date: e.endDate ?? e.startDate, cleanlinessAfter: e.cleanlinessAfter }));
   const verdicts = judgeAirLeakDays(
     days.map((day) => {
       const w = perDay.get(day)!;
       return { day, cleanliness: dailyCf.get(day)!, subcoolingK: median(w.subcooling), dissolvedOxygenPpb: median(w.oxygen), airRemovalKgS: median(w.air) };
     }),
+    undefined,
+    cleanings.map((c) => c.date),
   );
   const suspectedDays = new Set(verdicts.filter((v) => v.suspected).map((v) => v.day));
-  const cleanings = events.filter((e) => e.kind === 'cleaning').map((e) => ({ date: e.endDate ?? e.startDate, cleanlinessAfter: e.cleanlinessAfter }));
   // Flagged air in-leakage days are left out of the fit, so a weeks-long leak is not booked as fouling.
   const cycles = fitCycles(dailyCf, cleanings, suspectedDays);
 
