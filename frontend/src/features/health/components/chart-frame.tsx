@@ -36,6 +36,7 @@ export function ChartFrame({
   note,
   children,
   testId,
+  noteTestId,
   points,
 }: {
   title: string;
@@ -44,6 +45,7 @@ export function ChartFrame({
   note?: ReactNode;
   children: ReactNode;
   testId: string;
+  noteTestId?: string;
   /** how many points or bars are drawn; read by the browser test to see the chart follow the period */
   points: number;
 }) {
@@ -62,7 +64,11 @@ export function ChartFrame({
         </ul>
       </figcaption>
       {children}
-      {note && <p className="text-2xs text-ink-faint">{note}</p>}
+      {note && (
+        <p className="text-2xs text-ink-faint" data-testid={noteTestId}>
+          {note}
+        </p>
+      )}
     </figure>
   );
 }

@@ -60,14 +60,17 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
           { label: 'Reference cleanliness', colour: CHART_COLOURS.reference, mark: 'dash' },
           ...common,
         ]}
+        noteTestId="trend-note"
         note={
           trend?.status === 'fitted' && trend.rSquared !== undefined ? (
             <>
               Trend since {formatDay(trend.startDay)}: {trend.model?.model ?? 'fitted'} model, R² {formatNumber(trend.rSquared, 3)}, scatter ±{formatNumber((trend.residualStdCleanliness ?? 0) * 100, 1)} % CF
               {trend.pointsUsed !== undefined && <> over {formatNumber(trend.pointsUsed)} days</>}.
             </>
-          ) : trend?.reason ? (
-            <>No trend for the latest cycle: {trend.reason}</>
+          ) : trend ? (
+            <>
+              Trend since {formatDay(trend.startDay)}: {trend.reason ?? 'not fitted yet'}.
+            </>
           ) : null
         }
       >

@@ -52,7 +52,7 @@ export function HealthHeadlineStrip({ headline: h, units, currency, timeZone, no
       <h2 id="headline-heading" className="sr-only">
         Condenser health now
       </h2>
-      <div className="grid grid-cols-1 gap-2 sm:grid-cols-2 lg:grid-cols-3 xl:grid-cols-6">
+      <div className="grid grid-cols-1 gap-2 sm:grid-cols-2 md:grid-cols-3 xl:grid-cols-6">
         <Tile label="Cleanliness" value={formatPercent(h.cleanliness, 1)} tone="tube" testId="headline-cleanliness">
           {h.cleanliness !== null && <CleanlinessGauge value={h.cleanliness} reference={h.referenceCleanliness} />}
           <p className="mt-1">
@@ -123,8 +123,12 @@ export function HealthHeadlineStrip({ headline: h, units, currency, timeZone, no
               </p>
               <p>
                 CF {formatPercent(next.next.cleanlinessBefore, 0)} → {formatPercent(next.next.cleanlinessAfter, 0)}; cost {money(next.next.cleaningCost + next.next.downtimeCost)}
-                {next.savingsVersusNoCleaning !== undefined && <>; saves {money(next.savingsVersusNoCleaning)} in the coming year</>}
               </p>
+              {next.savingsVersusNoCleaning !== undefined && (
+                <p>
+                  The plan ({formatNumber(next.cleaningsInHorizon ?? 1)} {next.cleaningsInHorizon === 1 ? 'cleaning' : 'cleanings'} in the coming year) saves {money(next.savingsVersusNoCleaning)} against not cleaning.
+                </p>
+              )}
             </>
           ) : (
             <p>{next?.reason ?? 'The outlook is made after the next recompute.'}</p>

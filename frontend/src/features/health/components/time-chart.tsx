@@ -81,12 +81,13 @@ export default function TimeChart(props: TimeChartProps) {
     };
     const Lines = ({ series: computed, xScale, yScale }: LayerProps) => (
       <g aria-hidden>
-        {computed.map((s) => {
+        {/* lines first, measured points on top, so the measurement is never hidden under its own trend */}
+        {[...computed].sort((a, b) => Number(styleOf.get(String(a.id))?.style === 'points') - Number(styleOf.get(String(b.id))?.style === 'points')).map((s) => {
           const style = styleOf.get(String(s.id));
           if (!style) return null;
           const pts = s.data.map((d) => (d.data.y === null ? null : ([xScale(d.data.x), yScale(d.data.y)] as const)));
           if (style.style === 'points') {
-            const r = pts.length > 500 ? 1.4 : 2;
+            const r = pts.length > 500 ? 1.5 : 2.2;
             return (
               <g key={s.id} fill={style.colour}>
                 {pts.map((p, i) => (p ? <circle key={i} cx={p[0]} cy={p[1]} r={r} /> : null))}
