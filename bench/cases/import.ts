@@ -15,7 +15,7 @@ import { checkImportFile, importSamples } from '../../backend/src/import/index.j
 const ROWS = 525_600;
 const ZONE = 'America/Chicago';
 
-async function writeYearCsv(filePath: string): Promise<void> {
+export async function writeYearCsv(filePath: string): Promise<void> {
   const out = createWriteStream(filePath);
   out.write('Timestamp,Gross MW,BP (inHgA),CW In Temp °F,CW Out Temp °F,Circ Water Flow gpm\r\n');
   const start = DateTime.fromISO('2024-01-01T00:00', { zone: ZONE }).toMillis();
@@ -37,7 +37,7 @@ async function writeYearCsv(filePath: string): Promise<void> {
   await once(out, 'finish');
 }
 
-const MAPPING = {
+export const MAPPING = {
   timestamp: { column: 'Timestamp', format: 'local-text', timeZone: ZONE, dateOrder: 'mdy' },
   columns: {
     grossLoad: { column: 'Gross MW', unit: 'MW' },
