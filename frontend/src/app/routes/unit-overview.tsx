@@ -24,13 +24,19 @@ export function UnitOverviewPage() {
   if (unit.setupComplete && hasData) {
     const lastJob = unit.jobs[0];
     return (
-      <HealthView
-        organisationId={organisationId}
-        unit={{ id: unit.id, timeZone: unit.plant.timeZone, firstSampleUtc: unit.samples.first, lastSampleUtc: unit.samples.last, currency: unit.economics?.currency ?? 'USD' }}
-        units={units}
-        cannotWrite={cannotWrite}
-        progress={working || lastJob?.status === 'failed' ? <RecomputeStatus jobs={unit.jobs} /> : null}
-      />
+      <div className="flex flex-col gap-6">
+        <HealthView
+          organisationId={organisationId}
+          unit={{ id: unit.id, timeZone: unit.plant.timeZone, firstSampleUtc: unit.samples.first, lastSampleUtc: unit.samples.last, currency: unit.economics?.currency ?? 'USD' }}
+          units={units}
+          cannotWrite={cannotWrite}
+          progress={working || lastJob?.status === 'failed' ? <RecomputeStatus jobs={unit.jobs} /> : null}
+        />
+        {/* the basis of the figures: design point, data span, recent background work */}
+        <section aria-label="Unit basis" className="no-print border-t border-rule pt-4">
+          <UnitSummary unit={unit} units={units} showStatus={false} />
+        </section>
+      </div>
     );
   }
 

@@ -126,7 +126,7 @@ export function HealthHeadlineStrip({ headline: h, units, currency, timeZone, no
               </p>
               {next.savingsVersusNoCleaning !== undefined && (
                 <p>
-                  The plan ({formatNumber(next.cleaningsInHorizon ?? 1)} {next.cleaningsInHorizon === 1 ? 'cleaning' : 'cleanings'} in the coming year) saves {money(next.savingsVersusNoCleaning)} against not cleaning.
+                  Plan: {formatNumber(next.cleaningsInHorizon ?? 1)} {next.cleaningsInHorizon === 1 ? 'cleaning' : 'cleanings'} this coming year, {money(next.savingsVersusNoCleaning)} less than not cleaning
                 </p>
               )}
             </>

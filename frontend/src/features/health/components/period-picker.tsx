@@ -36,6 +36,7 @@ export function PeriodPicker({ selection, shown, onChange }: Props) {
           <span className="text-xs font-medium uppercase tracking-wide text-ink-soft" id="period-label">
             Period
           </span>
+          <span className="hidden text-sm print:inline">{PERIOD_CHOICES.find((c) => c.value === selection.choice)?.label}</span>
           <div role="group" aria-labelledby="period-label" className="no-print inline-flex overflow-hidden rounded border border-rule">
             {PERIOD_CHOICES.map((c) => (
               <button
@@ -57,6 +58,7 @@ export function PeriodPicker({ selection, shown, onChange }: Props) {
           <span className="text-xs font-medium uppercase tracking-wide text-ink-soft" id="breakdown-label">
             Breakdown by
           </span>
+          <span className="hidden text-sm print:inline">{selection.breakdownBy === 'week' ? 'Week' : 'Month'}</span>
           <div role="group" aria-labelledby="breakdown-label" className="no-print inline-flex overflow-hidden rounded border border-rule">
             {(['week', 'month'] as const).map((b) => (
               <button key={b} type="button" aria-pressed={selection.breakdownBy === b} className={segment(selection.breakdownBy === b)} onClick={() => onChange({ ...selection, breakdownBy: b })}>

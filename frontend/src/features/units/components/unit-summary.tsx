@@ -10,7 +10,7 @@ import { RecomputeStatus } from './recompute-status';
 const JOB_STATUS_WORDS = { queued: 'Waiting', running: 'Running', done: 'Done', failed: 'Failed' } as const;
 
 /** A short page about the unit: what its setup still lacks, what data it holds, what ran lately. */
-export function UnitSummary({ unit, units }: { unit: UnitDetail; units: FieldUnits }) {
+export function UnitSummary({ unit, units, showStatus = true }: { unit: UnitDetail; units: FieldUnits; /** off where the page shows the progress itself */ showStatus?: boolean }) {
   const missing = [
     !unit.condenser && 'the condenser (geometry and design point)',
     !unit.turbine && 'the turbine (rating, heat rate, heat-balance duty)',
@@ -75,7 +75,7 @@ export function UnitSummary({ unit, units }: { unit: UnitDetail; units: FieldUni
 
       <section aria-labelledby="jobs-heading" className="flex flex-col gap-2">
         <h2 id="jobs-heading">Recent background work</h2>
-        <RecomputeStatus jobs={unit.jobs} />
+        {showStatus && <RecomputeStatus jobs={unit.jobs} />}
         {unit.jobs.length === 0 ? (
           <p className="text-sm text-ink-soft">Nothing has run for this unit yet.</p>
         ) : (
