@@ -5,7 +5,7 @@ import { DataTable, td, th, tr } from '@frontend/components/ui/data-table';
 import { EmptyState } from '@frontend/components/ui/empty-state';
 import { Notice } from '@frontend/components/ui/notice';
 import { ErrorState, LoadingState } from '@frontend/components/ui/query-state';
-import { formatDate, formatMoney, formatNumber, formatPercent } from '@frontend/lib/format';
+import { formatDay, formatMoney, formatNumber, formatPercent } from '@frontend/lib/format';
 import { useDeleteEvent } from '../api/delete-event';
 import { useEvents, type UnitEventView } from '../api/get-events';
 import { EVENT_KIND_LABELS, EventForm } from './event-form';
@@ -17,7 +17,7 @@ interface Props {
   cannotWrite: string | null;
 }
 
-const dates = (e: UnitEventView) => (e.endDate && e.endDate !== e.startDate ? `${formatDate(e.startDate)} – ${formatDate(e.endDate)}` : formatDate(e.startDate));
+const dates = (e: UnitEventView) => (e.endDate && e.endDate !== e.startDate ? `${formatDay(e.startDate)} – ${formatDay(e.endDate)}` : formatDay(e.startDate));
 
 /** The unit's events, newest first, with add, change and delete. */
 export function EventsTimeline({ organisationId, unitId, currency, cannotWrite }: Props) {
