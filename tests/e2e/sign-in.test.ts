@@ -43,6 +43,9 @@ describe('the app in a real browser', () => {
     await page.waitForURL(`${server.url}/`);
     const org = await page.getByTestId('active-organisation').textContent();
     expect(org).toContain('Northmere Power Cooperative');
+    // People-only seed: no units yet, and the overview says what to do next.
+    await page.getByText('No generating units to show yet').waitFor();
+    expect(await page.getByRole('link', { name: 'Go to plants' }).getAttribute('href')).toBe('/plants');
   });
 
   it('shows the not-found page for an unknown address', async () => {
