@@ -6,6 +6,7 @@ import { RouteErrorPage } from '@frontend/components/ui/error-boundary';
 import { FirstLoad } from '@frontend/components/ui/query-state';
 import { apiTokensQueryOptions } from '@frontend/features/api-tokens/api/get-api-tokens';
 import { auditEventsQueryOptions } from '@frontend/features/audit/api/get-audit-events';
+import { cleaningMethodsQueryOptions } from '@frontend/features/cleaning-methods/api/get-cleaning-methods';
 import { clientGroupsQueryOptions } from '@frontend/features/client-groups/api/get-client-groups';
 import { mailboxQueryOptions } from '@frontend/features/dev-mailbox/api/get-mailbox';
 import { invitationsQueryOptions } from '@frontend/features/members/api/get-invitations';
@@ -28,6 +29,7 @@ import { PlantsPage } from './routes/plants';
 import { ResetPasswordPage } from './routes/reset-password';
 import { ApiTokensSettingsPage } from './routes/settings-api-tokens';
 import { AuditSettingsPage, auditFiltersFrom } from './routes/settings-audit';
+import { CleaningMethodsSettingsPage } from './routes/settings-cleaning-methods';
 import { ClientGroupsSettingsPage } from './routes/settings-client-groups';
 import { SettingsLayout } from './routes/settings-layout';
 import { MembersSettingsPage } from './routes/settings-members';
@@ -118,7 +120,7 @@ const router = createBrowserRouter([
           { path: 'setup', element: <UnitSetupPage /> },
           { path: 'import', element: <UnitImportPage /> },
           { path: 'imports', element: <UnitImportsPage />, loader: tenantLoader('data.read', (org, { params }) => [prefetch(unitImportsQueryOptions(org, params.unitId ?? ''))]) },
-          { path: 'events', element: <UnitEventsPage />, loader: tenantLoader('data.read', (org, { params }) => [prefetch(eventsQueryOptions(org, params.unitId ?? ''))]) },
+          { path: 'events', element: <UnitEventsPage />, loader: tenantLoader('data.read', (org, { params }) => [prefetch(eventsQueryOptions(org, params.unitId ?? '')), prefetch(cleaningMethodsQueryOptions(org))]) },
         ],
       },
       {
@@ -137,6 +139,11 @@ const router = createBrowserRouter([
             ]),
           },
           { path: 'client-groups', element: <ClientGroupsSettingsPage />, loader: tenantLoader('data.read', (org) => [prefetch(clientGroupsQueryOptions(org))]) },
+          {
+            path: 'cleaning-methods',
+            element: <CleaningMethodsSettingsPage />,
+            loader: tenantLoader('data.read', (org) => [prefetch(cleaningMethodsQueryOptions(org))]),
+          },
           { path: 'api-tokens', element: <ApiTokensSettingsPage />, loader: tenantLoader('calc.use', (org) => [prefetch(apiTokensQueryOptions(org))]) },
           {
             path: 'audit',

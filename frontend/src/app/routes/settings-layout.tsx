@@ -13,6 +13,7 @@ const items: Item[] = [
   { to: '/settings/api-tokens', label: 'API tokens', needs: 'calc.use' },
   { to: '/settings/members', label: 'People and roles', needs: 'members.manage' },
   { to: '/settings/client-groups', label: 'Client groups', needs: 'data.read' },
+  { to: '/settings/cleaning-methods', label: 'Cleaning methods', needs: 'data.read' },
   { to: '/settings/audit', label: 'Audit log', needs: 'audit.read' },
 ];
 

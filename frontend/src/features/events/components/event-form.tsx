@@ -3,6 +3,7 @@ import { GENERAL_CAUTION } from '@shared/schemas/cleaning-method';
 import { UNIT_EVENT_KINDS, unitEventInput } from '@shared/schemas/unit-event';
 import { Button } from '@frontend/components/ui/button';
 import { Notice } from '@frontend/components/ui/notice';
+import { SafetyCautions } from '@frontend/components/ui/safety-cautions';
 import { QuantityField } from '@frontend/components/ui/quantity-field';
 import { SelectField } from '@frontend/components/ui/select-field';
 import { TextField } from '@frontend/components/ui/text-field';
@@ -28,10 +29,20 @@ const KIND_NOTES: Partial<Record<Kind, string>> = {
   outage: 'Give the first and last day of the outage.',
 };
 
+/** A method from the organisation's library, as the cleaning select offers it. */
+export interface MethodChoice {
+  id: string;
+  name: string;
+  /** the general caution first */
+  cautionTexts: string[];
+}
+
 interface Props {
   organisationId: string;
   unitId: string;
   currency: string;
+  /** The library's methods; undefined while they load (or if they could not be read). */
+  methods?: MethodChoice[];
   event?: UnitEventView;
   onDone?: () => void;
 }
@@ -39,7 +50,7 @@ interface Props {
 const pct = (v: number | null | undefined) => (v === null || v === undefined ? '' : String(Number((v * 100).toFixed(2))));
 
 /** Add or change one event on the unit's timeline; the fields follow the kind. */
-export function EventForm({ organisationId, unitId, currency, event, onDone }: Props) {
+export function EventForm({ organisationId, unitId, currency, methods, event, onDone }: Props) {
   const add = useAddEvent(organisationId, unitId);
   const update = useUpdateEvent(organisationId, unitId);
   const mutation = event ? update : add;
@@ -54,6 +65,8 @@ export function EventForm({ organisationId, unitId, currency, event, onDone }: P
   const [notes, setNotes] = useState(event?.notes ?? '');
   const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
   const [added, setAdded] = useState(false);
+  const library = methods ?? [];
+  const chosenMethod = library.find((m) => m.id === methodId);
 
   const onSubmit = (e: FormEvent<HTMLFormElement>) => {
     e.preventDefault();
@@ -126,7 +139,25 @@ export function EventForm({ organisationId, unitId, currency, event, onDone }: P
       </div>
       {kind === 'cleaning' && (
         <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-          <TextField label="Cleaning method" value={methodId} onChange={(e) => setMethodId(e.target.value)} error={fieldErrors.methodId} hint="A short key, e.g. hp-water-jetting" />
+          {library.length > 0 ? (
+            <SelectField label="Cleaning method" value={methodId} onChange={(e) => setMethodId(e.target.value)} error={fieldErrors.methodId}>
+              <option value="">Not recorded</option>
+              {library.map((m) => (
+                <option key={m.id} value={m.id}>
+                  {m.name}
+                </option>
+              ))}
+              {methodId && !chosenMethod && <option value={methodId}>{methodId} (not in the library)</option>}
+            </SelectField>
+          ) : (
+            <TextField
+              label="Cleaning method"
+              value={methodId}
+              onChange={(e) => setMethodId(e.target.value)}
+              error={fieldErrors.methodId}
+              hint={methods ? 'The method library is empty: type a short key, e.g. hp-water-jetting' : 'A short key, e.g. hp-water-jetting'}
+            />
+          )}
           <QuantityField label="Cleanliness before" unit="%" value={before} onChange={setBefore} error={fieldErrors.cleanlinessBefore} />
           <QuantityField label="Cleanliness after" unit="%" value={after} onChange={setAfter} error={fieldErrors.cleanlinessAfter} />
         </div>
@@ -142,10 +173,7 @@ export function EventForm({ organisationId, unitId, currency, event, onDone }: P
       </label>
       {KIND_NOTES[kind] && <p className="text-xs text-ink-soft">{KIND_NOTES[kind]}</p>}
       {kind === 'cleaning' && (
-        <p className="rounded border border-warn/40 bg-ledger-50 px-3 py-2 text-xs text-warn" data-testid="cleaning-caution">
-          <strong className="font-semibold">Safety: </strong>
-          {GENERAL_CAUTION}
-        </p>
+        <SafetyCautions texts={chosenMethod?.cautionTexts ?? [GENERAL_CAUTION]} testId="cleaning-caution" />
       )}
       {message && <Notice tone="fault">{message}</Notice>}
       {added && !event && <Notice tone="ok">Event added.</Notice>}

@@ -8,19 +8,21 @@ import { ErrorState, LoadingState } from '@frontend/components/ui/query-state';
 import { formatDay, formatMoney, formatNumber, formatPercent } from '@frontend/lib/format';
 import { useDeleteEvent } from '../api/delete-event';
 import { useEvents, type UnitEventView } from '../api/get-events';
-import { EVENT_KIND_LABELS, EventForm } from './event-form';
+import { EVENT_KIND_LABELS, EventForm, type MethodChoice } from './event-form';
 
 interface Props {
   organisationId: string;
   unitId: string;
   currency: string;
+  /** The organisation's cleaning methods for the cleaning select; undefined while they load. */
+  methods?: MethodChoice[];
   cannotWrite: string | null;
 }
 
 const dates = (e: UnitEventView) => (e.endDate && e.endDate !== e.startDate ? `${formatDay(e.startDate)} – ${formatDay(e.endDate)}` : formatDay(e.startDate));
 
 /** The unit's events, newest first, with add, change and delete. */
-export function EventsTimeline({ organisationId, unitId, currency, cannotWrite }: Props) {
+export function EventsTimeline({ organisationId, unitId, currency, methods, cannotWrite }: Props) {
   const events = useEvents(organisationId, unitId);
   const remove = useDeleteEvent(organisationId, unitId);
   const [editing, setEditing] = useState<string | null>(null);
@@ -31,7 +33,7 @@ export function EventsTimeline({ organisationId, unitId, currency, cannotWrite }
       {cannotWrite ? (
         <p className="text-sm text-ink-soft">{cannotWrite}: adding, changing and deleting events.</p>
       ) : (
-        <EventForm organisationId={organisationId} unitId={unitId} currency={currency} />
+        <EventForm organisationId={organisationId} unitId={unitId} currency={currency} methods={methods} />
       )}
       {remove.isError && <Notice tone="fault">{remove.error.message}</Notice>}
       {events.isPending ? (
@@ -62,7 +64,7 @@ export function EventsTimeline({ organisationId, unitId, currency, cannotWrite }
             editing === e.id ? (
               <tr key={e.id} className={`${tr} bg-tube-50/40`}>
                 <td className={td} colSpan={8}>
-                  <EventForm organisationId={organisationId} unitId={unitId} currency={currency} event={e} onDone={() => setEditing(null)} />
+                  <EventForm organisationId={organisationId} unitId={unitId} currency={currency} methods={methods} event={e} onDone={() => setEditing(null)} />
                 </td>
               </tr>
             ) : (
