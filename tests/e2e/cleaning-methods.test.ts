@@ -92,6 +92,26 @@ describe('the cleaning-method library in a real browser', () => {
     expect(saved).toMatchObject({ fixedCost: 31_500, typical: false, recoveredCleanliness: 0.92 });
   });
 
+  it('recording a cleaning offers the library’s methods and shows the chosen method’s cautions under the form', async () => {
+    const headers = { 'x-cleancase-request': '1' };
+    const plant = (await (await page.request.post(`${server.url}/api/plants`, { headers, data: { name: 'Fenwick Bay', timeZone: 'Europe/London' } })).json()) as { id: string };
+    const unitResponse = await page.request.post(`${server.url}/api/plants/${plant.id}/units`, { headers, data: { name: 'Unit 1' } });
+    expect(unitResponse.status()).toBe(201);
+    const unit = (await unitResponse.json()) as { id: string };
+    await page.goto(`${server.url}/units/${unit.id}/events`);
+    const form = page.getByRole('form', { name: 'Add an event' });
+    const method = form.getByRole('combobox', { name: 'Cleaning method' });
+    await method.waitFor();
+    const offered = await method.locator('option').allTextContents();
+    for (const m of TYPICAL_CLEANING_METHODS) expect(offered).toContain(m.name);
+    const caution = form.getByTestId('cleaning-caution');
+    expect(await caution.textContent()).toContain(GENERAL_CAUTION);
+    expect(await caution.textContent()).not.toContain(CAUTION_TEXT['water-jetting']);
+    await method.selectOption('hp-water-lancing');
+    await expect.poll(() => caution.textContent()).toContain(CAUTION_TEXT['water-jetting']);
+    expect(await caution.textContent()).toContain(GENERAL_CAUTION);
+  });
+
   it('a viewer sees the library but every change is disabled with the reason', async () => {
     const context = await browser.newContext();
     contexts.push(context);
