@@ -4,6 +4,7 @@
  * front-end build, and every vitest suite (unit, reference, API, security, browser).
  */
 import { spawnSync } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { CHROMIUM, ensureSystemPackages, MARIADB, PYTHON_IAPWS } from './lib/system-packages.js';
@@ -15,14 +16,17 @@ const extraArgs = process.argv.slice(2);
 function step(title: string, command: string, args: string[]): boolean {
   console.log(`\n=== ${title}`);
   const started = Date.now();
-  const r = spawnSync(command, args, { cwd: root, stdio: 'inherit', env: { ...process.env, FORCE_COLOR: process.env.CI ? '0' : process.env.FORCE_COLOR } });
+  const r = spawnSync(command, args, { cwd: root, stdio: 'inherit', env: { ...process.env, CLEANCASE_TEST_RUN: runId, FORCE_COLOR: process.env.CI ? '0' : process.env.FORCE_COLOR } });
   console.log(`=== ${title}: ${r.status === 0 ? 'ok' : 'FAILED'} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
   return r.status === 0;
 }
 
-/** Any test MariaDB left by a crashed run (the global setup stops its own on every normal exit). */
+/** This run's id: the test databases it starts carry it in their folder names. */
+const runId = randomBytes(4).toString('hex');
+
+/** A test MariaDB of this run left by a crash (the global setup stops its own on every normal exit); other runs' are left alone. */
 function stopStrayTestDatabases(): void {
-  spawnSync('pkill', ['-TERM', '-f', 'mariadbd.*cleancase-(test-db|start|gen)-'], { stdio: 'ignore' });
+  spawnSync('pkill', ['-TERM', '-f', `mariadbd.*cleancase-(test-db|start)-${runId}-`], { stdio: 'ignore' });
 }
 
 try {

@@ -14,7 +14,7 @@ function processesUsing(dataDir: string): string[] {
 
 describe('npm start lifecycle', () => {
   it('starts MariaDB, the fakes and the app, then stops all of it on SIGINT and keeps the data', async () => {
-    const dataDir = mkdtempSync(path.join(os.tmpdir(), 'cleancase-start-'));
+    const dataDir = mkdtempSync(path.join(os.tmpdir(), `cleancase-start-${process.env.CLEANCASE_TEST_RUN ?? 'adhoc'}-`));
     const env = {
       ...process.env,
       NODE_ENV: 'development',

@@ -279,7 +279,7 @@ describe('unit setup, import and undo in a real browser', () => {
     expect(await form.getByTestId('cleaning-caution').textContent()).toContain('local codes');
     await form.getByLabel('Date', { exact: true }).fill('2025-06-05');
     await field(form, 'Cost (USD)').fill('48,200');
-    await form.getByLabel('Cleaning method').fill('hp-water-jetting');
+    await form.getByLabel('Cleaning method').selectOption('hp-water-lancing');
     await field(form, 'Cleanliness before (%)').fill('71');
     await field(form, 'Cleanliness after (%)').fill('92');
     await form.getByRole('button', { name: 'Add event' }).click();

@@ -24,7 +24,7 @@ declare module 'vitest' {
 }
 
 export default async function setup(project: TestProject) {
-  const dataDir = mkdtempSync(path.join(os.tmpdir(), 'cleancase-test-db-'));
+  const dataDir = mkdtempSync(path.join(os.tmpdir(), `cleancase-test-db-${process.env.CLEANCASE_TEST_RUN ?? 'adhoc'}-`));
   const db = await startMariaDb({ dataDir, port: await freePort(), database: 'cleancase_test', user: 'cleancase_test', password: 'test-only-password' });
   project.provide('testDb', { host: db.host, port: db.port, user: db.user, password: db.password, socket: db.socket });
   return async () => {
