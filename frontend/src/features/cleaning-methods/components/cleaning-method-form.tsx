@@ -1,6 +1,6 @@
 import { useId, useState, type FormEvent } from 'react';
 import { CAUTION_KEYS, CAUTION_TEXT, cleaningMethodSchema, UNIT_DURING_CLEANING, type CautionKey, type CleaningMethod } from '@shared/schemas/cleaning-method';
-import { Button } from '@frontend/components/ui/button';
+import { FormActions } from '@frontend/components/ui/form-actions';
 import { Notice } from '@frontend/components/ui/notice';
 import { QuantityField } from '@frontend/components/ui/quantity-field';
 import { SelectField } from '@frontend/components/ui/select-field';
@@ -188,16 +188,7 @@ export function CleaningMethodForm({ organisationId, method, onDone }: Props) {
       {fieldErrors.form && <Notice tone="fault">{fieldErrors.form}</Notice>}
       {message && <Notice tone="fault">{message}</Notice>}
       {added && !method && <Notice tone="ok">Method added.</Notice>}
-      <div className="flex gap-2">
-        {method && (
-          <Button variant="quiet" onClick={onDone}>
-            Cancel
-          </Button>
-        )}
-        <Button type="submit" disabled={mutation.isPending}>
-          {mutation.isPending ? 'Saving…' : method ? 'Save method' : 'Add method'}
-        </Button>
-      </div>
+      <FormActions editing={!!method} pending={mutation.isPending} addLabel="Add method" saveLabel="Save method" onCancel={onDone} />
     </form>
   );
 }

@@ -5,6 +5,7 @@ import { ConfirmAction } from '@frontend/components/ui/confirm-action';
 import { DataTable, td, th, tr } from '@frontend/components/ui/data-table';
 import { EmptyState } from '@frontend/components/ui/empty-state';
 import { Notice } from '@frontend/components/ui/notice';
+import { RenameRow } from '@frontend/components/ui/rename-row';
 import { ErrorState, LoadingState } from '@frontend/components/ui/query-state';
 import { TextField } from '@frontend/components/ui/text-field';
 import { formatDate } from '@frontend/lib/format';
@@ -50,7 +51,7 @@ export function ClientGroupsList({ organisationId, cannotManage }: Props) {
         <DataTable caption="Client groups" head={<><th className={th}>Name</th><th className={th}>Created</th><th className={th}><span className="sr-only">Actions</span></th></>}>
           {groups.data.map((g) =>
             renaming === g.id ? (
-              <RenameRow key={g.id} group={g} organisationId={organisationId} onDone={() => setRenaming(null)} />
+              <RenameGroupRow key={g.id} group={g} organisationId={organisationId} onDone={() => setRenaming(null)} />
             ) : (
               <tr key={g.id} className={tr} data-testid="client-group-row">
                 <td className={`${td} font-medium`}>{g.name}</td>
@@ -105,33 +106,17 @@ function CreateClientGroupForm({ organisationId }: { organisationId: string }) {
   );
 }
 
-function RenameRow({ group, organisationId, onDone }: { group: ClientGroupView; organisationId: string; onDone: () => void }) {
+function RenameGroupRow({ group, organisationId, onDone }: { group: ClientGroupView; organisationId: string; onDone: () => void }) {
   const rename = useRenameClientGroup(organisationId);
-  const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
-  const onSubmit = (event: FormEvent<HTMLFormElement>) => {
-    event.preventDefault();
-    const parsed = clientGroupInput.safeParse(formText(event.currentTarget, 'name'));
-    if (!parsed.success) return setFieldErrors(zodFieldErrors(parsed.error));
-    setFieldErrors({});
-    rename.mutate({ id: group.id, ...parsed.data }, { onSuccess: onDone, onError: (e) => setFieldErrors(serverFieldErrors(e)) });
-  };
   return (
-    <tr className={`${tr} bg-tube-50/40`}>
-      <td className={td} colSpan={3}>
-        <form onSubmit={onSubmit} noValidate className="flex flex-wrap items-start gap-3" onKeyDown={(e) => e.key === 'Escape' && onDone()}>
-          <div className="min-w-64 flex-1">
-            <TextField label={`New name for “${group.name}”`} name="name" defaultValue={group.name} autoFocus error={fieldErrors.name ?? formMessage(rename.error) ?? undefined} />
-          </div>
-          <div className="mt-6 flex gap-2">
-            <Button variant="quiet" onClick={onDone}>
-              Cancel
-            </Button>
-            <Button type="submit" disabled={rename.isPending}>
-              {rename.isPending ? 'Saving…' : 'Save name'}
-            </Button>
-          </div>
-        </form>
-      </td>
-    </tr>
+    <RenameRow
+      currentName={group.name}
+      colSpan={3}
+      schema={clientGroupInput}
+      pending={rename.isPending}
+      error={rename.error}
+      onSave={(name, callbacks) => rename.mutate({ id: group.id, name }, callbacks)}
+      onDone={onDone}
+    />
   );
 }

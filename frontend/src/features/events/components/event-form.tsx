@@ -1,7 +1,7 @@
 import { useState, type FormEvent } from 'react';
 import { GENERAL_CAUTION } from '@shared/schemas/cleaning-method';
 import { UNIT_EVENT_KINDS, unitEventInput } from '@shared/schemas/unit-event';
-import { Button } from '@frontend/components/ui/button';
+import { FormActions } from '@frontend/components/ui/form-actions';
 import { Notice } from '@frontend/components/ui/notice';
 import { SafetyCautions } from '@frontend/components/ui/safety-cautions';
 import { QuantityField } from '@frontend/components/ui/quantity-field';
@@ -177,16 +177,7 @@ export function EventForm({ organisationId, unitId, currency, methods, event, on
       )}
       {message && <Notice tone="fault">{message}</Notice>}
       {added && !event && <Notice tone="ok">Event added.</Notice>}
-      <div className="flex gap-2">
-        {event && (
-          <Button variant="quiet" onClick={onDone}>
-            Cancel
-          </Button>
-        )}
-        <Button type="submit" disabled={mutation.isPending}>
-          {mutation.isPending ? 'Saving…' : event ? 'Save event' : 'Add event'}
-        </Button>
-      </div>
+      <FormActions editing={!!event} pending={mutation.isPending} addLabel="Add event" saveLabel="Save event" onCancel={onDone} />
     </form>
   );
 }

@@ -1,6 +1,6 @@
 import { useState, type FormEvent } from 'react';
 import { plantInput } from '@shared/schemas/unit-setup';
-import { Button } from '@frontend/components/ui/button';
+import { FormActions } from '@frontend/components/ui/form-actions';
 import type { GroupOption } from '@frontend/components/ui/client-group-picker';
 import { Notice } from '@frontend/components/ui/notice';
 import { SelectField } from '@frontend/components/ui/select-field';
@@ -81,16 +81,7 @@ export function PlantForm({ organisationId, groups, plant, onDone }: Props) {
         </SelectField>
       </div>
       {message && <Notice tone="fault">{message}</Notice>}
-      <div className="flex gap-2">
-        {plant && (
-          <Button variant="quiet" onClick={onDone}>
-            Cancel
-          </Button>
-        )}
-        <Button type="submit" disabled={mutation.isPending}>
-          {mutation.isPending ? 'Saving…' : plant ? 'Save plant' : 'Create plant'}
-        </Button>
-      </div>
+      <FormActions editing={!!plant} pending={mutation.isPending} addLabel="Create plant" saveLabel="Save plant" onCancel={onDone} />
     </form>
   );
 }

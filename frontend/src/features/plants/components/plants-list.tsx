@@ -9,6 +9,7 @@ import { EmptyState } from '@frontend/components/ui/empty-state';
 import { Notice } from '@frontend/components/ui/notice';
 import { linkClass } from '@frontend/components/ui/public-page';
 import { ErrorState, LoadingState } from '@frontend/components/ui/query-state';
+import { RenameRow } from '@frontend/components/ui/rename-row';
 import { TextField } from '@frontend/components/ui/text-field';
 import { formatNumber } from '@frontend/lib/format';
 import { formMessage, formText, serverFieldErrors, zodFieldErrors, type FieldErrors } from '@frontend/lib/form-errors';
@@ -189,31 +190,15 @@ function AddUnitForm({ plant, organisationId }: { plant: PlantView; organisation
 
 function RenameUnitRow({ unit, organisationId, onDone }: { unit: UnitListItem; organisationId: string; onDone: () => void }) {
   const rename = useRenameUnit(organisationId);
-  const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
-  const onSubmit = (event: FormEvent<HTMLFormElement>) => {
-    event.preventDefault();
-    const parsed = unitInput.safeParse(formText(event.currentTarget, 'name'));
-    if (!parsed.success) return setFieldErrors(zodFieldErrors(parsed.error));
-    setFieldErrors({});
-    rename.mutate({ id: unit.id, ...parsed.data }, { onSuccess: onDone, onError: (e) => setFieldErrors(serverFieldErrors(e)) });
-  };
   return (
-    <tr className={`${tr} bg-tube-50/40`}>
-      <td className={td} colSpan={4}>
-        <form onSubmit={onSubmit} noValidate className="flex flex-wrap items-start gap-3" onKeyDown={(e) => e.key === 'Escape' && onDone()}>
-          <div className="min-w-64 flex-1">
-            <TextField label={`New name for “${unit.name}”`} name="name" defaultValue={unit.name} autoFocus error={fieldErrors.name ?? formMessage(rename.error) ?? undefined} />
-          </div>
-          <div className="mt-6 flex gap-2">
-            <Button variant="quiet" onClick={onDone}>
-              Cancel
-            </Button>
-            <Button type="submit" disabled={rename.isPending}>
-              {rename.isPending ? 'Saving…' : 'Save name'}
-            </Button>
-          </div>
-        </form>
-      </td>
-    </tr>
+    <RenameRow
+      currentName={unit.name}
+      colSpan={4}
+      schema={unitInput}
+      pending={rename.isPending}
+      error={rename.error}
+      onSave={(name, callbacks) => rename.mutate({ id: unit.id, name }, callbacks)}
+      onDone={onDone}
+    />
   );
 }
