@@ -2,6 +2,8 @@
  * What a reader hands to the row parser: the header texts and an async stream of raw rows,
  * each with its 1-based line in the file. A table is read once; open it again for a second pass.
  */
+import { ImportFileError } from './import-errors.js';
+
 export interface RawRow {
   /** 1-based line of the file (CSV) or row number of the sheet (XLSX). */
   line: number;
@@ -61,6 +63,32 @@ export function locateHeader(records: string[][]): { headerIndex: number; dataIn
     return { headerIndex: i, dataIndex: j, headers };
   }
   return null;
+}
+
+/**
+ * Reads up to HEADER_SEARCH_ROWS rows and finds the header among them; the data rows after it start the
+ * table (at least one is required). `words` names the source in the messages ('file'/'lines' or 'sheet'/'rows').
+ */
+export async function readHeaderBlock(
+  next: () => Promise<RawRow | null>,
+  messages: { empty: string; noHeader: string; noData: string },
+): Promise<{ head: RawRow[]; located: NonNullable<ReturnType<typeof locateHeader>>; buffered: RawRow[] }> {
+  const head: RawRow[] = [];
+  while (head.length < HEADER_SEARCH_ROWS) {
+    const row = await next();
+    if (!row) break;
+    head.push(row);
+  }
+  if (head.length === 0) throw new ImportFileError('empty-file', messages.empty);
+  const located = locateHeader(head.map((r) => r.cells));
+  if (!located) throw new ImportFileError('no-header-row', messages.noHeader);
+  const buffered = head.slice(located.dataIndex);
+  if (buffered.length === 0) {
+    const more = await next();
+    if (!more) throw new ImportFileError('no-data-rows', messages.noData);
+    buffered.push(more);
+  }
+  return { head, located, buffered };
 }
 
 export const looksLikeDateTime = (cell: string): boolean => /^\d{1,4}[-/.]\d{1,2}[-/.]\d{1,4}/.test(cell.trim());

@@ -7,7 +7,7 @@ import { createReadStream } from 'node:fs';
 import { open, stat } from 'node:fs/promises';
 import { CsvError, parse, type Info } from 'csv-parse';
 import { ImportFileError } from './import-errors.js';
-import { CHUNK_ROWS, HEADER_SEARCH_ROWS, MAX_LINE_CHARS, locateHeader, tableFrom, type RawRow, type RawTable } from './raw-table.js';
+import { CHUNK_ROWS, HEADER_SEARCH_ROWS, MAX_LINE_CHARS, readHeaderBlock, tableFrom, type RawRow, type RawTable } from './raw-table.js';
 
 const HEAD_BYTES = 64 * 1024;
 const DELIMITERS = [',', ';', '\t', '|'] as const;
@@ -158,21 +158,11 @@ export async function openCsvTable(filePath: string, options: CsvReadOptions = {
   };
 
   try {
-    const head: RawRow[] = [];
-    while (head.length < HEADER_SEARCH_ROWS) {
-      const row = await next();
-      if (!row) break;
-      head.push(row);
-    }
-    if (head.length === 0) throw new ImportFileError('empty-file', 'the file holds no text (only blank lines or spaces)');
-    const located = locateHeader(head.map((r) => r.cells));
-    if (!located) throw new ImportFileError('no-header-row', `no header row found in the first ${HEADER_SEARCH_ROWS} lines: the file must name its columns`);
-    const buffered = head.slice(located.dataIndex);
-    if (buffered.length === 0) {
-      const more = await next();
-      if (!more) throw new ImportFileError('no-data-rows', 'the file has a header but no data rows');
-      buffered.push(more);
-    }
+    const { head, located, buffered } = await readHeaderBlock(next, {
+      empty: 'the file holds no text (only blank lines or spaces)',
+      noHeader: `no header row found in the first ${HEADER_SEARCH_ROWS} lines: the file must name its columns`,
+      noData: 'the file has a header but no data rows',
+    });
     async function* chunks(): AsyncGenerator<RawRow[]> {
       try {
         yield buffered;

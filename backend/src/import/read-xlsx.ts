@@ -8,7 +8,7 @@ import { createReadStream } from 'node:fs';
 import { open, stat } from 'node:fs/promises';
 import ExcelJS from 'exceljs';
 import { ImportFileError } from './import-errors.js';
-import { CHUNK_ROWS, HEADER_SEARCH_ROWS, MAX_LINE_CHARS, locateHeader, tableFrom, type RawRow, type RawTable } from './raw-table.js';
+import { CHUNK_ROWS, HEADER_SEARCH_ROWS, MAX_LINE_CHARS, readHeaderBlock, tableFrom, type RawRow, type RawTable } from './raw-table.js';
 
 const MS_PER_DAY = 86_400_000;
 const EXCEL_SERIAL_UNIX_EPOCH = 25_569;
@@ -98,25 +98,13 @@ export async function openXlsxTable(filePath: string, options: XlsxReadOptions =
   };
 
   try {
-    const head: RawRow[] = [];
-    while (head.length < HEADER_SEARCH_ROWS) {
-      const row = await next();
-      if (!row) break;
-      head.push(row);
-    }
-    if (head.length === 0) throw new ImportFileError('empty-file', 'the first worksheet is empty');
-    const located = locateHeader(head.map((r) => r.cells));
-    if (!located) throw new ImportFileError('no-header-row', `no header row found in the first ${HEADER_SEARCH_ROWS} rows: the sheet must name its columns`);
-    width = located.headers.length;
-    const buffered = head.slice(located.dataIndex).map((r) => {
-      while (r.cells.length < width) r.cells.push('');
-      return r;
+    const { head, located, buffered } = await readHeaderBlock(next, {
+      empty: 'the first worksheet is empty',
+      noHeader: `no header row found in the first ${HEADER_SEARCH_ROWS} rows: the sheet must name its columns`,
+      noData: 'the sheet has a header but no data rows',
     });
-    if (buffered.length === 0) {
-      const more = await next();
-      if (!more) throw new ImportFileError('no-data-rows', 'the sheet has a header but no data rows');
-      buffered.push(more);
-    }
+    width = located.headers.length;
+    for (const r of buffered) while (r.cells.length < width) r.cells.push('');
     async function* chunks(): AsyncGenerator<RawRow[]> {
       try {
         yield buffered;
