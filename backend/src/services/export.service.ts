@@ -7,7 +7,7 @@ import ExcelJS from 'exceljs';
 import type { DataSource } from 'typeorm';
 import { neutraliseCell } from '../import/import-errors.js';
 import type { TenantScope } from '../policies/tenant-scope.js';
-import { loadDailyRows, unitHealth, type DailyRow } from './health.service.js';
+import { breakdownByPeriod, loadDailyRows, type DailyRow } from './health.service.js';
 import { getUnitOrThrow } from './plant.service.js';
 
 type Cell = string | number | boolean | null;
@@ -77,12 +77,9 @@ export async function exportUnitData(
     header = DAILY_COLUMNS.map(([h]) => h);
     rows = days.map((d) => DAILY_COLUMNS.map(([, pick]) => pick(d)));
   } else {
-    const health = await unitHealth(ds, scope, unitId, { from: q.from, to: q.to, breakdownBy: 'month' });
+    const breakdown = breakdownByPeriod(await loadDailyRows(ds, unitId, q.from, q.to), 'month');
     header = ['Month', 'CW inlet temperature kPa', 'CW flow kPa', 'Load and duty kPa', 'Plugged tubes kPa', 'Fouling kPa', 'Unexplained kPa', 'Excess backpressure kPa', 'Fouling cost (money)', 'Unexplained cost (money)'];
-    rows = health.breakdown.map((b) => {
-      const r = b as unknown as Record<string, number | null>;
-      return [b.period, r.cwInletKpa, r.cwFlowKpa, r.loadKpa, r.pluggingKpa, r.foulingKpa, r.unexplainedKpa, r.meanExcessBackpressureKpa, r.foulingCost, r.unexplainedCost];
-    });
+    rows = breakdown.map((b) => [b.period, b.cwInletKpa, b.cwFlowKpa, b.loadKpa, b.pluggingKpa, b.foulingKpa, b.unexplainedKpa, b.meanExcessBackpressureKpa, b.foulingCost, b.unexplainedCost]);
   }
   const base = `${unit.name}-${q.dataset}`.replace(/[^A-Za-z0-9._-]+/g, '-');
   if (q.format === 'csv') return { fileName: `${base}.csv`, contentType: 'text/csv; charset=utf-8', body: toCsv(header, rows) };

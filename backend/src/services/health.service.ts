@@ -93,6 +93,24 @@ const mean = (values: (number | null)[]) => {
 };
 const sum = (values: (number | null)[]) => values.reduce<number>((a, b) => a + (b ?? 0), 0);
 
+/** Mean deviation parts and summed costs of the valid days, per ISO week (starting Monday) or calendar month. */
+export function breakdownByPeriod(days: DailyRow[], by: 'week' | 'month') {
+  const buckets = new Map<string, DailyRow[]>();
+  for (const d of days.filter((x) => x.pointsUsed > 0)) {
+    const key = by === 'week' ? isoWeekStart(d.day) : d.day.slice(0, 7);
+    const list = buckets.get(key);
+    if (list) list.push(d);
+    else buckets.set(key, [d]);
+  }
+  return [...buckets.entries()].map(([bucket, rows]) => ({
+    period: bucket,
+    ...(Object.fromEntries(BREAKDOWN_CAUSES.map((cause) => [cause, mean(rows.map((r) => r[cause]))])) as Record<(typeof BREAKDOWN_CAUSES)[number], number | null>),
+    meanExcessBackpressureKpa: mean(rows.map((r) => r.meanExcessBackpressureKpa)),
+    foulingCost: sum(rows.map((r) => r.foulingCost)),
+    unexplainedCost: sum(rows.map((r) => r.unexplainedCost)),
+  }));
+}
+
 export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: string, q: HealthQuery) {
   const { unit, plant } = await unitInScope(ds, scope, unitId);
   const analysis = (unit.analysis ?? null) as { lastDay?: string | null; cycles?: Record<string, unknown>[]; airLeakPeriods?: AirLeakPeriod[]; outlook?: CleaningOutlook | null; computedAt?: string } | null;
@@ -157,20 +175,7 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
   });
   const downsampled = series.length > MAX_SERIES_POINTS ? lttb(series, MAX_SERIES_POINTS, (p) => Date.parse(p.day), (p) => p.cleanliness ?? 0) : series;
 
-  const buckets = new Map<string, DailyRow[]>();
-  for (const d of period.filter((x) => x.pointsUsed > 0)) {
-    const key = q.breakdownBy === 'week' ? isoWeekStart(d.day) : d.day.slice(0, 7);
-    const list = buckets.get(key);
-    if (list) list.push(d);
-    else buckets.set(key, [d]);
-  }
-  const breakdown = [...buckets.entries()].map(([bucket, rows]) => ({
-    period: bucket,
-    ...Object.fromEntries(BREAKDOWN_CAUSES.map((cause) => [cause, mean(rows.map((r) => r[cause]))])),
-    meanExcessBackpressureKpa: mean(rows.map((r) => r.meanExcessBackpressureKpa)),
-    foulingCost: sum(rows.map((r) => r.foulingCost)),
-    unexplainedCost: sum(rows.map((r) => r.unexplainedCost)),
-  }));
+  const breakdown = breakdownByPeriod(period, q.breakdownBy);
 
   const dropped: Record<string, number> = {};
   for (const d of period) for (const [k, v] of Object.entries(d.droppedByReason ?? {})) dropped[k] = (dropped[k] ?? 0) + v;
