@@ -46,9 +46,25 @@ describe('IRR', () => {
 });
 
 describe('payback', () => {
-  it('is 0 when values[0] is not negative', () => {
+  it('is 0 only when the cumulative flow is never negative', () => {
     expect(paybackYears([0, 10])).toBe(0);
     expect(discountedPaybackYears(0.1, [5, -1])).toBe(0);
+  });
+  it('when nothing is spent at t = 0 but the first year costs money, payback is when the cumulative flow turns for good', () => {
+    // [derived] cumulative 0, −100, −40, +20: it crosses zero 40/60 into year 3 → 2 + 2/3 years (ENGINEERING.md §7)
+    expect(paybackYears([0, -100, 60, 60])).toBeCloseTo(2 + 2 / 3, 12);
+    // [derived] discounted at 10 %: 0, −90.909, −41.322, +3.757 → 2 + 41.322/45.079
+    const expected = 2 + (100 / 1.1 - 60 / 1.21) / (60 / 1.331);
+    expect(discountedPaybackYears(0.1, [0, -100, 60, 60])).toBeCloseTo(expected, 10);
+  });
+  it('when the cumulative flow turns positive and dips again, payback is the last crossing', () => {
+    // [derived] cumulative −100, +100, −50, +50: negative again in year 2, for good from 2 + 50/100 years
+    expect(paybackYears([-100, 200, -150, 100])).toBeCloseTo(2.5, 12);
+  });
+  it('when the cumulative flow starts positive and ends negative, there is no payback', () => {
+    expect(paybackYears([10, -20])).toBeNull();
+    expect(paybackYears([-100, 200, -150])).toBeNull();
+    expect(discountedPaybackYears(0.1, [0, 50, -60])).toBeNull();
   });
   it('spreads each year evenly: −100 then 40 a year pays back at 2.5 years', () => {
     expect(paybackYears([-100, 40, 40, 40])).toBeCloseTo(2.5, 12);

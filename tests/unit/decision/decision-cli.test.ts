@@ -38,6 +38,12 @@ describe('decision commands of the calculation CLI', () => {
     expect(() => cashflow.run({ rate: 0.1, cashflows: [-1, 2], extra: true })).toThrow();
   });
 
+  it('cashflow: a first year that costs money after a zero at t = 0 pays back when the cumulative flow turns for good', () => {
+    // [derived] cumulative 0, −100, −40, +20 → 2 + 40/60 years (ENGINEERING.md §7)
+    expect(cashflow.run({ rate: 0, cashflows: [0, -100, 60, 60] })).toMatchObject({ paybackYears: 2.666667, discountedPaybackYears: 2.666667 });
+    expect(cashflow.run({ rate: 0.05, cashflows: [10, -20] })).toMatchObject({ paybackYears: null, discountedPaybackYears: null });
+  });
+
   it('fouling-fit fits, forecasts and reports the chosen model', () => {
     const points = Array.from({ length: 40 }, (_, day) => ({ day, cleanliness: 1 / (1 / 0.9 + 0.003 * day) }));
     const out = foulingFit.run({ points, cleanlinessAfterCleaning: 0.9, uCleanWm2K: 3500, forecastDays: 20 }) as {

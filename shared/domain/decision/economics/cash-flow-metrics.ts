@@ -118,16 +118,25 @@ export function irr(values: readonly MoneyInput[]): IrrResult {
   return { irr: new Decimal(new Precise(1).div(x).minus(1)) };
 }
 
-/** Time (years) at which the cumulative of the given flows first reaches zero, each year's flow spread evenly. */
+/**
+ * Time (years) after which the cumulative of the given flows stays ≥ 0, values[0] falling at t = 0 and each later
+ * year's flow spread evenly through its year, so the cumulative is piecewise linear between year ends: 0 when it is
+ * never negative, null when it ends negative, else the crossing in the year after its last negative year end.
+ */
 function cumulativeZeroCrossing(flows: readonly Decimal[]): number | null {
-  let cumulative = flows[0] ?? new Decimal(0);
-  if (cumulative.gte(0)) return 0;
-  for (let k = 1; k < flows.length; k++) {
-    const next = cumulative.plus(flows[k]);
-    if (next.gte(0)) return new Precise(k - 1).plus(cumulative.neg().div(flows[k])).toNumber();
-    cumulative = next;
-  }
-  return null;
+  let cumulative = new Precise(0);
+  let lastNegative = -1;
+  let atLastNegative = cumulative;
+  flows.forEach((f, k) => {
+    cumulative = cumulative.plus(f);
+    if (cumulative.lt(0)) {
+      lastNegative = k;
+      atLastNegative = cumulative;
+    }
+  });
+  if (lastNegative < 0) return 0;
+  if (lastNegative === flows.length - 1) return null;
+  return new Precise(lastNegative).plus(atLastNegative.neg().div(flows[lastNegative + 1])).toNumber();
 }
 
 export function paybackYears(values: readonly MoneyInput[]): number | null {
