@@ -78,6 +78,11 @@ export function createApp(deps: AppDeps): CleancaseApp {
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api/') },
     }),
   );
+  // Every API answer may carry private data: no browser or proxy keeps a copy (RFC 9111 no-store).
+  app.use('/api', (_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
   app.use(express.json({ limit: '1mb' }));
 
   const MySQLStore = MySQLStoreFactory(session);
