@@ -33,10 +33,10 @@ export async function bootstrap(config: Config, options: { smtpSink?: SmtpSink; 
   });
   const worker = config.JOB_WORKER === 'on' ? startJobWorker(dataSource, JOB_HANDLERS, logger) : null;
   const address = server.address();
-  const port = typeof address === 'object' && address ? address.port : config.PORT;
-  const url = config.PUBLIC_URL ?? `http://${config.HOST}:${port}`;
+  // PORT 0 asks for any free port: from here on the configuration names the one we got (links in e-mail use it).
+  if (typeof address === 'object' && address) config.PORT = address.port;
   return {
-    url: url || publicUrl(config),
+    url: publicUrl(config),
     close: async () => {
       await worker?.stop();
       server.closeAllConnections();

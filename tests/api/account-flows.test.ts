@@ -2,7 +2,18 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startGoogleFake, type GoogleFake } from '../../scripts/lib/local-services.js';
 import { addMember, createTenant, createUser, CSRF, signedInAgent, TEST_PASSWORD, uniqueEmail } from '../factories/accounts.js';
+import { publicUrl } from '../../backend/src/config.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
+
+/** Waits for the SMTP sink to hold a message to `to`. */
+async function mailTo(t: TestApp, to: string) {
+  for (let i = 0; i < 50; i++) {
+    const mail = t.smtpSink.messages().find((m) => m.to.includes(to));
+    if (mail) return mail;
+    await new Promise((r) => setTimeout(r, 50));
+  }
+  throw new Error(`no mail to ${to}`);
+}
 
 /** Waits for the SMTP sink to hold a message to `to`, and returns the link in it. */
 async function linkMailedTo(t: TestApp, to: string, pathPart: string): Promise<string> {
@@ -104,6 +115,14 @@ describe('account flows', () => {
     expect((await before.get('/api/session')).body.user).toBeNull();
     await request(t.app).post('/api/session').set(CSRF).send({ email: user.email, password: TEST_PASSWORD }).expect(401);
     await request(t.app).post('/api/session').set(CSRF).send({ email: user.email, password: 'a fresh start for the pumps' }).expect(200);
+  });
+
+  it('a reset link is built from the configured public address, never from the request’s Host header', async () => {
+    const user = await createUser(t.dataSource, 'hosted');
+    await request(t.app).post('/api/password-reset').set(CSRF).set('Host', 'evil.example').send({ email: user.email }).expect(202);
+    const mail = await mailTo(t, user.email);
+    expect(mail.text).not.toContain('evil.example');
+    expect(mail.text).toContain(`${publicUrl(t.config)}/reset-password?token=`);
   });
 
   it('a reset for an unknown address answers exactly like one for a known address and sends nothing', async () => {

@@ -1,7 +1,10 @@
 import type { Request } from 'express';
-import type { Config } from '../config.js';
+import { publicUrl, type Config } from '../config.js';
 
-/** Address for links in e-mail: PUBLIC_URL when set (always set it in production), else this request's own origin. */
-export function baseUrl(config: Config, req: Request): string {
-  return config.PUBLIC_URL?.replace(/\/$/, '') ?? `${req.protocol}://${req.get('host')}`;
+/**
+ * Address for links in e-mail: the configured public address only (PUBLIC_URL, else http://HOST:PORT).
+ * The request is deliberately not consulted: its Host header is whatever the caller wrote.
+ */
+export function baseUrl(config: Config, _req?: Request): string {
+  return publicUrl(config).replace(/\/$/, '');
 }
