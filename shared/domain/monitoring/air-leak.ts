@@ -17,9 +17,9 @@ export interface AirLeakSettings {
   /** days in the reference window, which ends `gapDays` before the day judged */
   baselineDays: number;
   gapDays: number;
-  /** cleanliness drop against the reference that counts as a sudden loss (absolute CF) */
+  /** cleanliness drop against the reference's trend that counts as a sudden loss (absolute CF) */
   dropWithEvidence: number;
-  /** a drop this large is flagged even when no witness is measured */
+  /** a drop this large is flagged on its own, only when no witness is measured */
   dropAlone: number;
   subcoolingRiseK: number;
   oxygenFactor: number;
@@ -40,7 +40,7 @@ export const DEFAULT_AIR_LEAK_SETTINGS: AirLeakSettings = {
 export interface AirLeakPeriod {
   from: string;
   to: string;
-  /** largest cleanliness drop against the reference window */
+  /** largest cleanliness drop against the reference window's trend */
   maxDrop: number;
   evidence: ('cleanliness-drop' | 'subcooling' | 'dissolved-oxygen' | 'air-removal')[];
 }
@@ -63,6 +63,37 @@ function median(values: number[]): number | null {
 const MIN_REFERENCE_AFTER_CLEANING = 3;
 
 /**
+ * The reference never reaches back further than this: a state that lasts two months is the unit's new normal
+ * (a leak is found and sealed within weeks), so the reference moves on and never freezes behind flagged days.
+ * [common practice: engineering judgement, not from a standard]
+ */
+const MAX_REFERENCE_REACH_DAYS = 60;
+
+/** With at least this many reference days the recent trend is extrapolated; with fewer, their median is the level. */
+const MIN_DAYS_FOR_TREND = 7;
+
+const dayNumber = (day: string) => Date.parse(`${day}T00:00:00Z`) / 86_400_000;
+
+/**
+ * Cleanliness the reference days lead one to expect on day `t`: their robust straight line (Theil–Sen: median of
+ * the pairwise slopes, median intercept) extrapolated, so steady fouling is expected and only a step against it
+ * counts as a drop. A rising reference is taken as level: cleanliness does not climb between cleanings.
+ */
+function expectedCleanliness(reference: readonly AirLeakDay[], t: number): number {
+  const cf = reference.map((r) => r.cleanliness);
+  if (reference.length < MIN_DAYS_FOR_TREND) return median(cf)!;
+  const ts = reference.map((r) => dayNumber(r.day));
+  const slopes: number[] = [];
+  for (let a = 0; a < ts.length; a++) for (let b = a + 1; b < ts.length; b++) if (ts[a] !== ts[b]) slopes.push((cf[b] - cf[a]) / (ts[b] - ts[a]));
+  const slope = Math.min(0, median(slopes) ?? 0);
+  return median(cf.map((c, k) => c - slope * (ts[k] - t)))!;
+}
+
+/**
+ * A day is suspected when its cleanliness steps down against the recent trend and the witnesses confirm it.
+ * Fouling leaves the witnesses alone, so when any witness is measured a drop without a witness's rise is
+ * fouling (or an instrument), never a leak; only when none is measured does a large step alone raise suspicion.
+ *
  * @param cleanings dates ('YYYY-MM-DD') the cleanliness was restored: the reference never reaches back past
  *   one, since the fouled days before it would hide a drop that starts soon after
  */
@@ -71,31 +102,39 @@ export function judgeAirLeakDays(days: readonly AirLeakDay[], settings: AirLeakS
   const sortedCleanings = [...cleanings].sort();
   for (let i = 0; i < days.length; i++) {
     const d = days[i];
+    const t = dayNumber(d.day);
     const lastCleaning = sortedCleanings.filter((c) => c <= d.day).at(-1) ?? '';
     const freshlyCleaned = lastCleaning !== '' && days.slice(Math.max(0, i - settings.baselineDays - settings.gapDays), i).some((x) => x.day < lastCleaning);
     // Reference: the last `baselineDays` unsuspected days ending `gapDays` before this one (so a long leak
-    // is still judged against the days before it began), looking back at most 90 days and never past the
-    // last cleaning; in the first weeks after a cleaning the gap is dropped and a shorter reference will do.
+    // is still judged against the days before it began), never past the last cleaning nor further back than
+    // the reach limit; in the first weeks after a cleaning the gap is dropped and a shorter reference will do.
     const gap = freshlyCleaned ? 0 : settings.gapDays;
-    const reference: AirLeakDay[] = [];
-    for (let k = i - gap - 1; k >= 0 && k >= i - 90 && reference.length < settings.baselineDays && days[k].day >= lastCleaning; k--) {
+    const minimum = freshlyCleaned ? MIN_REFERENCE_AFTER_CLEANING : settings.baselineDays / 2;
+    const inReach = (k: number) => k >= 0 && days[k].day >= lastCleaning && t - dayNumber(days[k].day) <= MAX_REFERENCE_REACH_DAYS;
+    let reference: AirLeakDay[] = [];
+    for (let k = i - gap - 1; inReach(k) && reference.length < settings.baselineDays; k--) {
       if (!verdicts[k].suspected) reference.push(days[k]);
     }
-    const minimum = freshlyCleaned ? MIN_REFERENCE_AFTER_CLEANING : settings.baselineDays / 2;
+    if (reference.length < minimum) {
+      // Too few unsuspected days within reach: the latest days, suspected or not, are the new normal.
+      reference = [];
+      for (let k = i - gap - 1; inReach(k) && reference.length < settings.baselineDays; k--) reference.push(days[k]);
+    }
     if (reference.length < minimum) {
       verdicts.push({ day: d.day, suspected: false, drop: 0, evidence: [] });
       continue;
     }
     const ref = (pick: (x: AirLeakDay) => number | null) => median(reference.map(pick).filter((v): v is number => v !== null));
-    const drop = (ref((x) => x.cleanliness) ?? d.cleanliness) - d.cleanliness;
+    const drop = expectedCleanliness(reference, t) - d.cleanliness;
     const evidence: AirLeakPeriod['evidence'] = [];
     const sub = ref((x) => x.subcoolingK);
-    if (d.subcoolingK !== null && sub !== null && d.subcoolingK - sub >= settings.subcoolingRiseK) evidence.push('subcooling');
     const o2 = ref((x) => x.dissolvedOxygenPpb);
-    if (d.dissolvedOxygenPpb !== null && o2 !== null && d.dissolvedOxygenPpb >= settings.oxygenFactor * Math.max(o2, 1)) evidence.push('dissolved-oxygen');
     const air = ref((x) => x.airRemovalKgS);
+    const witnessed = (d.subcoolingK !== null && sub !== null) || (d.dissolvedOxygenPpb !== null && o2 !== null) || (d.airRemovalKgS !== null && air !== null && air > 0);
+    if (d.subcoolingK !== null && sub !== null && d.subcoolingK - sub >= settings.subcoolingRiseK) evidence.push('subcooling');
+    if (d.dissolvedOxygenPpb !== null && o2 !== null && d.dissolvedOxygenPpb >= settings.oxygenFactor * Math.max(o2, 1)) evidence.push('dissolved-oxygen');
     if (d.airRemovalKgS !== null && air !== null && air > 0 && d.airRemovalKgS >= settings.airRemovalFactor * air) evidence.push('air-removal');
-    const suspected = (drop >= settings.dropWithEvidence && evidence.length > 0) || drop >= settings.dropAlone || evidence.length >= 2;
+    const suspected = witnessed ? (drop >= settings.dropWithEvidence && evidence.length > 0) || evidence.length >= 2 : drop >= settings.dropAlone;
     verdicts.push({ day: d.day, suspected, drop, evidence: suspected ? (drop >= settings.dropWithEvidence ? ['cleanliness-drop', ...evidence] : evidence) : [] });
   }
   return verdicts;
