@@ -77,10 +77,11 @@ const MATRIX: Record<string, Entry> = {
   'POST /api/password-reset': { body: () => ({ email: uniqueEmail('reset') }), expect: all(202) },
   'POST /api/password-reset/confirm': { body: () => ({ token: 'not-a-real-reset-token', password: 'a long and unusual passphrase' }), expect: all(400) },
   'GET /api/invitations': { expect: adminsOnly(200) },
-  'POST /api/invitations': { body: () => ({ email: uniqueEmail('invited'), role: 'viewer' }), expect: adminsOnly(201) },
+  // Without a client-group limit: an administrator limited to groups may not invite someone wider than themselves.
+  'POST /api/invitations': { body: () => ({ email: uniqueEmail('invited'), role: 'viewer' }), expect: adminsOnly(201, { otherGroup: 403 }) },
   'DELETE /api/invitations/:id': {
     path: async (fx) => `/api/invitations/${(await createInvitation(ds(), fx.a.organisation.id)).invitation.id}`,
-    expect: adminsOnly(204, { otherTenant: 404 }),
+    expect: adminsOnly(204, { otherTenant: 404, otherGroup: 404 }),
   },
   'GET /api/invitation-links/:token': {
     path: async (fx) => `/api/invitation-links/${(await createInvitation(ds(), fx.a.organisation.id)).token}`,
@@ -97,11 +98,12 @@ const MATRIX: Record<string, Entry> = {
   'PATCH /api/members/:id': {
     path: async (fx) => `/api/members/${(await addMember(ds(), fx.a.organisation.id, await createUser(ds(), 'target'), 'viewer')).id}`,
     body: () => ({ role: 'analyst' }),
-    expect: adminsOnly(204, { otherTenant: 404 }),
+    // The target has no client-group limit: outside the scope of an administrator limited to groups.
+    expect: adminsOnly(204, { otherTenant: 404, otherGroup: 404 }),
   },
   'DELETE /api/members/:id': {
     path: async (fx) => `/api/members/${(await addMember(ds(), fx.a.organisation.id, await createUser(ds(), 'target'), 'viewer')).id}`,
-    expect: adminsOnly(204, { otherTenant: 404 }),
+    expect: adminsOnly(204, { otherTenant: 404, otherGroup: 404 }),
   },
   'GET /api/client-groups': { expect: members(200) },
   'GET /api/client-groups/:id': { path: (fx) => `/api/client-groups/${groupOne(fx)}`, expect: members(200, { otherTenant: 404, otherGroup: 404 }) },

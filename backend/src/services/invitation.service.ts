@@ -12,7 +12,7 @@ import { User } from '../entities/user.entity.js';
 import { AppError, badRequest, notFound } from '../http/app-error.js';
 import type { Mailer } from '../mail/mailer.js';
 import { invitationMail } from '../mail/templates.js';
-import type { TenantScope } from '../policies/tenant-scope.js';
+import { assertMayGrant, coversClientGroups, type TenantScope } from '../policies/tenant-scope.js';
 import { assertClientGroupsInTenant } from '../repositories/client-group.repository.js';
 import { recordAudit } from './audit.service.js';
 
@@ -30,6 +30,7 @@ const view = (i: Invitation): InvitationView => ({
 export async function invite(ds: DataSource, mailer: Mailer, scope: TenantScope, inviterName: string, input: InviteRequest, baseUrl: string): Promise<InvitationView> {
   const { token, hash } = newSecretToken();
   const expiresAt = new Date(Date.now() + LIFETIME_MS);
+  assertMayGrant(scope, input.clientGroupIds);
   const { invitation, organisation } = await ds.transaction(async (em) => {
     if (input.clientGroupIds && !(await assertClientGroupsInTenant(em, scope.organisationId, input.clientGroupIds))) throw badRequest('Unknown client group');
     const existing = await em
@@ -64,13 +65,13 @@ export async function listPendingInvitations(ds: DataSource, scope: TenantScope)
     where: { organisationId: scope.organisationId, acceptedAt: IsNull(), expiresAt: MoreThan(new Date()) },
     order: { createdAt: 'DESC' },
   });
-  return rows.map(view);
+  return rows.filter((i) => coversClientGroups(scope, i.clientGroupIds)).map(view);
 }
 
 export async function revokeInvitation(ds: DataSource, scope: TenantScope, id: string): Promise<void> {
   await ds.transaction(async (em) => {
     const inv = await em.getRepository(Invitation).findOneBy({ id, organisationId: scope.organisationId, acceptedAt: IsNull() });
-    if (!inv) throw notFound('No such invitation');
+    if (!inv || !coversClientGroups(scope, inv.clientGroupIds)) throw notFound('No such invitation');
     await em.getRepository(Invitation).delete({ id: inv.id });
     await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'invitation.revoked', entityType: 'invitation', entityId: inv.id, details: { email: inv.email } });
   });

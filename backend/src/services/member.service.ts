@@ -4,7 +4,7 @@ import type { MemberView, memberUpdate } from '@shared/schemas/accounts.js';
 import { Membership } from '../entities/membership.entity.js';
 import { User } from '../entities/user.entity.js';
 import { AppError, badRequest, notFound } from '../http/app-error.js';
-import type { TenantScope } from '../policies/tenant-scope.js';
+import { assertMayGrant, coversClientGroups, type TenantScope } from '../policies/tenant-scope.js';
 import { assertClientGroupsInTenant } from '../repositories/client-group.repository.js';
 import { recordAudit } from './audit.service.js';
 
@@ -17,7 +17,7 @@ export async function listMembers(ds: DataSource, scope: TenantScope): Promise<M
     .where('m.organisationId = :org', { org: scope.organisationId })
     .orderBy('u.name', 'ASC')
     .getRawMany();
-  return rows.map((r) => ({
+  const members: MemberView[] = rows.map((r) => ({
     membershipId: r.membershipId,
     userId: r.userId,
     name: r.name,
@@ -26,6 +26,8 @@ export async function listMembers(ds: DataSource, scope: TenantScope): Promise<M
     clientGroupIds: typeof r.clientGroupIds === 'string' ? JSON.parse(r.clientGroupIds) : (r.clientGroupIds ?? null),
     joinedAt: new Date(r.joinedAt).toISOString(),
   }));
+  // A member limited to client groups sees only the people whose access lies within those groups.
+  return members.filter((m) => coversClientGroups(scope, m.clientGroupIds));
 }
 
 async function lockedMembership(em: EntityManager, scope: TenantScope, membershipId: string): Promise<Membership> {
@@ -35,7 +37,7 @@ async function lockedMembership(em: EntityManager, scope: TenantScope, membershi
     .setLock('pessimistic_write')
     .where('m.id = :id AND m.organisationId = :org', { id: membershipId, org: scope.organisationId })
     .getOne();
-  if (!m) throw notFound('No such member');
+  if (!m || !coversClientGroups(scope, m.clientGroupIds)) throw notFound('No such member');
   return m;
 }
 
@@ -54,6 +56,7 @@ export async function updateMember(ds: DataSource, scope: TenantScope, membershi
     const m = await lockedMembership(em, scope, membershipId);
     const role = input.role ?? m.role;
     const clientGroupIds = input.clientGroupIds === undefined ? m.clientGroupIds : input.clientGroupIds;
+    if (input.clientGroupIds !== undefined) assertMayGrant(scope, input.clientGroupIds);
     if (clientGroupIds && !(await assertClientGroupsInTenant(em, scope.organisationId, clientGroupIds))) throw badRequest('Unknown client group');
     const wasFullAdmin = m.role === 'admin' && m.clientGroupIds === null;
     if (wasFullAdmin && (role !== 'admin' || clientGroupIds !== null)) await assertAnotherAdminRemains(em, scope.organisationId, m.id);
