@@ -214,6 +214,22 @@ describe('account flows', () => {
     await request(t.app).get('/api/calc').set('Authorization', `Bearer ${token}`).expect(401);
   });
 
+  it('a password change or reset revokes every API token of the person', async () => {
+    const tenant = await createTenant(t.dataSource, 'revoke');
+    const analyst = await signedInAgent(t.app, tenant.users.analyst.email);
+    const first = (await analyst.post('/api/api-tokens').set(CSRF).send({ name: 'before the change' }).expect(201)).body.token as string;
+    await request(t.app).get('/api/calc').set('Authorization', `Bearer ${first}`).expect(200);
+    await analyst.post('/api/profile/password').set(CSRF).send({ currentPassword: TEST_PASSWORD, newPassword: 'a changed passphrase for the pumps' }).expect(200);
+    await request(t.app).get('/api/calc').set('Authorization', `Bearer ${first}`).expect(401);
+    expect((await analyst.get('/api/api-tokens').expect(200)).body.apiTokens).toEqual([]);
+
+    const second = (await analyst.post('/api/api-tokens').set(CSRF).send({ name: 'before the reset' }).expect(201)).body.token as string;
+    await request(t.app).post('/api/password-reset').set(CSRF).send({ email: tenant.users.analyst.email }).expect(202);
+    const reset = await linkMailedTo(t, tenant.users.analyst.email, '/reset-password');
+    await request(t.app).post('/api/password-reset/confirm').set(CSRF).send({ token: reset, password: 'a reset passphrase for the pumps' }).expect(204);
+    await request(t.app).get('/api/calc').set('Authorization', `Bearer ${second}`).expect(401);
+  });
+
   it('a member limited to one client group sees only that group, and a group they are not in answers 404', async () => {
     const tenant = await createTenant(t.dataSource, 'limited');
     const limitedUser = await createUser(t.dataSource, 'limited-viewer');

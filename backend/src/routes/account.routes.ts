@@ -59,7 +59,7 @@ export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, an
       tenantScoped: false,
       rateLimit: passwordChangeLimiter(),
       body: passwordChange,
-      description: 'Change your password; every other session ends, this one gets a new id',
+      description: 'Change your password; every other session ends, this one gets a new id, your API tokens are revoked',
       handler: async (req, res) => {
         const user = req.actor!.user;
         const active = req.session.activeOrganisationId;

@@ -12,6 +12,7 @@ import { User } from '../entities/user.entity.js';
 import { AppError, badRequest, notFound } from '../http/app-error.js';
 import type { Mailer } from '../mail/mailer.js';
 import { passwordResetMail } from '../mail/templates.js';
+import { revokeAllApiTokensOf } from './api-token.service.js';
 import { recordAudit } from './audit.service.js';
 import { seedTypicalMethods } from './cleaning-method.service.js';
 
@@ -67,14 +68,18 @@ export async function updateProfile(ds: DataSource, user: User, input: z.infer<t
   return repo.findOneByOrFail({ id: user.id });
 }
 
-/** Changes the password and ends every session of the user that began before now. */
+/** Changes the password, ends every session of the user that began before now and revokes their API tokens. */
 export async function changePassword(ds: DataSource, user: User, input: z.infer<typeof passwordChange>): Promise<void> {
   const withHash = await ds.getRepository(User).createQueryBuilder('u').addSelect('u.passwordHash').where('u.id = :id', { id: user.id }).getOneOrFail();
   if (withHash.passwordHash && !(await verifyPassword(withHash.passwordHash, input.currentPassword))) {
     throw badRequest('Some fields need attention', { fieldErrors: [{ path: 'currentPassword', message: 'This is not your current password' }] });
   }
   assertPasswordAcceptable(input.newPassword, { email: user.email, name: user.name }, 'newPassword');
-  await ds.getRepository(User).update({ id: user.id }, { passwordHash: await hashPassword(input.newPassword), sessionsValidFrom: new Date() });
+  const passwordHash = await hashPassword(input.newPassword);
+  await ds.transaction(async (em) => {
+    await em.getRepository(User).update({ id: user.id }, { passwordHash, sessionsValidFrom: new Date() });
+    await revokeAllApiTokensOf(em, user.id);
+  });
 }
 
 /** Always answers the same way; mails a link only when the account exists. */
@@ -102,6 +107,7 @@ export async function confirmPasswordReset(ds: DataSource, token: string, passwo
     assertPasswordAcceptable(password, { email: user.email, name: user.name });
     await em.getRepository(User).update({ id: user.id }, { passwordHash: await hashPassword(password), sessionsValidFrom: new Date() });
     await em.getRepository(PasswordResetToken).update({ id: reset.id }, { usedAt: new Date() });
+    await revokeAllApiTokensOf(em, user.id);
     return user;
   });
 }

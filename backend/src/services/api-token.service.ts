@@ -1,4 +1,4 @@
-import type { DataSource } from 'typeorm';
+import type { DataSource, EntityManager } from 'typeorm';
 import { IsNull } from 'typeorm';
 import type { ApiTokenView } from '@shared/schemas/accounts.js';
 import { hashSecretToken, newSecretToken } from '../auth/secret-token.js';
@@ -40,6 +40,11 @@ export async function revokeApiToken(ds: DataSource, scope: TenantScope, id: str
     await em.getRepository(ApiToken).update({ id }, { revokedAt: new Date() });
     await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'api-token.revoked', entityType: 'api-token', entityId: id, details: { name: t.name } });
   });
+}
+
+/** A new password ends every token the old one may have let someone create (change or reset). */
+export async function revokeAllApiTokensOf(em: EntityManager, userId: string): Promise<void> {
+  await em.getRepository(ApiToken).update({ userId, revokedAt: IsNull() }, { revokedAt: new Date() });
 }
 
 export async function findLiveApiToken(ds: DataSource, token: string): Promise<ApiToken | null> {
