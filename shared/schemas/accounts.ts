@@ -2,7 +2,11 @@ import { z } from 'zod';
 import { roleSchema } from './session.js';
 
 const email = z.email('Enter an e-mail address').max(254).transform((e) => e.trim().toLowerCase());
-const personName = z.string().trim().min(1, 'Enter a name').max(120);
+/** Names go into e-mails: plain text, no markup, no links (the mail templates strip them too). */
+const plainText = (s: string) => !/[<>]|:\/\/|\bwww\./i.test(s);
+const PLAIN_TEXT_MESSAGE = 'Use plain text: no links and no < or >';
+const personName = z.string().trim().min(1, 'Enter a name').max(80, 'Use at most 80 characters').refine(plainText, PLAIN_TEXT_MESSAGE);
+const organisationName = (empty: string) => z.string().trim().min(2, empty).max(120, 'Use at most 120 characters').refine(plainText, PLAIN_TEXT_MESSAGE);
 const newPassword = z.string().min(1, 'Enter a password').max(4096);
 const uuid = z.uuid('Not a valid id');
 
@@ -11,14 +15,14 @@ export const signUpRequest = z
     name: personName,
     email,
     password: newPassword,
-    organisationName: z.string().trim().min(2, 'Enter your organisation’s name').max(160),
+    organisationName: organisationName('Enter your organisation’s name'),
   })
   .strict();
 export type SignUpRequest = z.infer<typeof signUpRequest>;
 
 export const switchTenantRequest = z.object({ organisationId: uuid }).strict();
 
-export const createOrganisationRequest = z.object({ name: z.string().trim().min(2, 'Enter a name').max(160) }).strict();
+export const createOrganisationRequest = z.object({ name: organisationName('Enter a name') }).strict();
 
 export const passwordResetRequest = z.object({ email }).strict();
 export const passwordResetConfirm = z.object({ token: z.string().min(10).max(200), password: newPassword }).strict();

@@ -1,11 +1,14 @@
 import type { OutgoingMail } from './mailer.js';
+import { plainName } from './plain-name.js';
 
 export function invitationMail(p: { to: string; organisationName: string; inviterName: string; role: string; link: string; expiresAt: Date }): OutgoingMail {
+  const organisation = plainName(p.organisationName, 'an organisation');
+  const inviter = plainName(p.inviterName, 'A colleague');
   return {
     to: p.to,
-    subject: `${p.inviterName} invited you to ${p.organisationName} on Cleancase`,
+    subject: `${inviter} invited you to ${organisation} on Cleancase`,
     text: [
-      `${p.inviterName} invited you to join ${p.organisationName} on Cleancase as ${p.role}.`,
+      `${inviter} invited you to join ${organisation} on Cleancase as ${p.role}.`,
       '',
       `Accept the invitation: ${p.link}`,
       '',
@@ -24,6 +27,22 @@ export function passwordResetMail(p: { to: string; link: string; expiresAt: Date
       `Choose a new password: ${p.link}`,
       '',
       `The link works once and until ${p.expiresAt.toUTCString()}. If it was not you, ignore this message; your password stays as it is.`,
+    ].join('\n'),
+  };
+}
+
+/** Sent instead of creating a second account when someone signs up with an address that has one. */
+export function accountExistsMail(p: { to: string; signInLink: string; resetLink: string }): OutgoingMail {
+  return {
+    to: p.to,
+    subject: 'Your Cleancase account already exists',
+    text: [
+      'Someone tried to create a Cleancase account with this e-mail address, which already has one. No second account was made.',
+      '',
+      `If it was you, sign in: ${p.signInLink}`,
+      `Forgot the password? Ask for a reset link: ${p.resetLink}`,
+      '',
+      'If it was not you, ignore this message; nothing about your account changed.',
     ].join('\n'),
   };
 }
