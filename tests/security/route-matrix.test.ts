@@ -127,7 +127,7 @@ const MATRIX: Record<string, Entry> = {
     },
     expect: members(404, { admin: 204 }),
   },
-  'GET /api/audit-events': { expect: members(200, { analyst: 403, viewer: 403 }) },
+  'GET /api/audit-events': { expect: members(200, { analyst: 403, viewer: 403, otherGroup: 403 }) },
   'GET /api/calc': { expect: members(200) },
   'POST /api/calc/:command': { path: () => '/api/calc/saturation', body: () => ({ pressureKpa: 8 }), expect: members(200) },
   'GET /api/auth/google': { expect: all(302) },

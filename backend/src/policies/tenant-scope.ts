@@ -48,3 +48,8 @@ export function assertMayGrant(scope: TenantScope, clientGroupIds: string[] | nu
   }
   if (!coversClientGroups(scope, clientGroupIds)) throw badRequest('Unknown client group: choose among your own client groups');
 }
+
+/** Records of the organisation as a whole (the audit log) are for members without a client-group limit. */
+export function assertWholeTenant(scope: TenantScope, what: string): void {
+  if (scope.clientGroupIds !== null) throw forbidden(`${what} covers the whole organisation: only members without a client-group limit can read it`);
+}

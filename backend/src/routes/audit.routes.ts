@@ -13,7 +13,7 @@ export function auditRoutes(ds: DataSource): RouteSpec[] {
       access: 'audit.read',
       tenantScoped: true,
       query: auditQuery,
-      description: 'Who changed what, newest first; filter by action prefix, person, record type and dates',
+      description: 'Who changed what, newest first; filter by action prefix, person, record type and dates (members without a client-group limit)',
       handler: async (req, res) => res.json({ events: await listAuditEvents(ds, scopeOf(req.actor), req.validQuery as z.infer<typeof auditQuery>) }),
     },
   ];
