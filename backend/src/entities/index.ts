@@ -14,11 +14,15 @@ import { GeneratingUnit } from './generating-unit.entity.js';
 import { PerformanceSample } from './performance-sample.entity.js';
 import { Plant } from './plant.entity.js';
 import { UnitEvent } from './unit-event.entity.js';
+import { MailOutbox } from './mail-outbox.entity.js';
+import { SinkMessage } from './sink-message.entity.js';
 
 export { ApiToken, AuditEvent, ClientGroup, Invitation, Membership, Organisation, PasswordResetToken, User };
 export { BackgroundJob, CleaningMethodRecord, DailyAggregate, DataImport, GeneratingUnit, PerformanceSample, Plant, UnitEvent };
+export { MailOutbox, SinkMessage };
 
 export const ENTITIES = [
   Organisation, User, Membership, AuditEvent, ClientGroup, Invitation, PasswordResetToken, ApiToken,
   Plant, GeneratingUnit, DataImport, PerformanceSample, DailyAggregate, UnitEvent, CleaningMethodRecord, BackgroundJob,
+  MailOutbox, SinkMessage,
 ];
