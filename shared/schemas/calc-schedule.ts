@@ -5,21 +5,34 @@
  */
 import { z } from 'zod';
 import { TUBE_MATERIALS } from '../domain/condenser/hei-tables.js';
+import { DEFAULT_POINT_RANGES } from '../domain/validity/point-validity.js';
 import { correctionCurveSchema } from './calc-penalty.js';
 import { cleaningMethodSchema } from './cleaning-method.js';
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'dates are YYYY-MM-DD (plant-local)');
 const dateRange = z.object({ from: isoDate, to: isoDate }).strict();
 
-const driver = (unit: string) =>
+/** A driver's value: a constant, 12 monthly values or one per day, each within the value's bounds. */
+const driver = (value: z.ZodNumber, unit: string) =>
   z.union(
     [
-      z.number().finite(),
-      z.object({ monthly: z.array(z.number().finite()).length(12, 'monthly needs 12 values, January first') }).strict(),
-      z.object({ daily: z.array(z.number().finite()).min(1).max(1830) }).strict(),
+      value,
+      z.object({ monthly: z.array(value).length(12, 'monthly needs 12 values, January first') }).strict(),
+      z.object({ daily: z.array(value).min(1).max(1830) }).strict(),
     ],
     { error: `a driver is a number (${unit}), {"monthly": [12 values]} or {"daily": [one per horizon day]}` },
   );
+
+// The same bounds as the penalty command (calc-penalty.ts); a day at load 0 is a day off line. The CW inlet range is
+// the one a measured point may have (DEFAULT_POINT_RANGES, common practice). Replacement prices may be negative.
+const cwInlet = DEFAULT_POINT_RANGES.cwInletC;
+const driverValues = {
+  cwInletC: z.number().finite().min(cwInlet.min, `cwInletC must be ${cwInlet.min} °C or more`).max(cwInlet.max, `cwInletC is at most ${cwInlet.max} °C`),
+  loadFraction: z.number().finite().min(0, 'loadFraction cannot be negative (0 = off line)').max(1.2, 'loadFraction is a fraction of rating, at most 1.2'),
+  fuelPricePerMmbtu: z.number().finite().min(0, 'fuelPricePerMmbtu cannot be negative'),
+  replacementPricePerMwh: z.number().finite(),
+  co2PricePerTonne: z.number().finite().min(0, 'co2PricePerTonne cannot be negative'),
+};
 
 const foulingModel = z.discriminatedUnion(
   'model',
@@ -31,7 +44,8 @@ const foulingModel = z.discriminatedUnion(
   { error: 'fouling.model must be "linear", "asymptotic" or "falling-rate"' },
 );
 
-const range = z.object({ low: z.number().finite(), base: z.number().finite(), high: z.number().finite() }).strict();
+const range = (value: z.ZodNumber) => z.object({ low: value, base: value, high: value }).strict();
+const multiplier = z.number().finite().min(0, 'a multiplier cannot be negative');
 
 export const calcScheduleInput = z
   .object({
@@ -39,11 +53,11 @@ export const calcScheduleInput = z
     horizonDays: z.number().int().min(1).max(1830, 'horizonDays is at most 1830 (five years)'),
     drivers: z
       .object({
-        cwInletC: driver('°C'),
-        loadFraction: driver('fraction of rating'),
-        fuelPricePerMmbtu: driver('money per MMBtu'),
-        replacementPricePerMwh: driver('money per MWh'),
-        co2PricePerTonne: driver('money per tonne').default(0),
+        cwInletC: driver(driverValues.cwInletC, '°C'),
+        loadFraction: driver(driverValues.loadFraction, 'fraction of rating'),
+        fuelPricePerMmbtu: driver(driverValues.fuelPricePerMmbtu, 'money per MMBtu'),
+        replacementPricePerMwh: driver(driverValues.replacementPricePerMwh, 'money per MWh'),
+        co2PricePerTonne: driver(driverValues.co2PricePerTonne, 'money per tonne').default(0),
         interpolation: z.enum(['step', 'mid-month']).default('mid-month'),
       })
       .strict(),
@@ -109,12 +123,12 @@ export const calcScheduleInput = z
         seed: z.number().int().min(0).max(4_294_967_295).default(1),
         ranges: z
           .object({
-            foulingRate: range,
-            fuelPrice: range,
-            replacementPrice: range,
-            cleaningCost: range,
-            recoveredCleanliness: range,
-            discountRate: range,
+            foulingRate: range(multiplier),
+            fuelPrice: range(multiplier),
+            replacementPrice: range(multiplier),
+            cleaningCost: range(multiplier),
+            recoveredCleanliness: range(z.number().finite().min(-1).max(1)),
+            discountRate: range(z.number().finite().gt(-1, 'a discount rate must be above −1')),
           })
           .partial()
           .strict()
