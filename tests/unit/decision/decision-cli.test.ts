@@ -4,6 +4,7 @@ import foulingFit from '@backend/cli/commands/fouling-fit.js';
 import schedule from '@backend/cli/commands/schedule.js';
 import interval from '@backend/cli/commands/interval.js';
 import cashflow from '@backend/cli/commands/cashflow.js';
+import { TYPICAL_CLEANING_METHODS } from '@shared/schemas/cleaning-method.js';
 
 const scheduleInput = {
   startDate: '2027-01-01',
@@ -88,6 +89,41 @@ describe('decision commands of the calculation CLI', () => {
     // HP lancing with 18,000 tubes: $25,000 + $4 × 18,000 (typical values)
     const lancing = out.cleanings.find((c) => c.methodId === 'hp-water-lancing');
     if (lancing) expect(lancing.cleaningCost).toBe(97_000);
+  });
+
+  it('schedule: a cleaning’s downtime is what the unit would have made at that day’s load and cannot', () => {
+    const baselineOf = (loadFraction: number) =>
+      schedule.run({
+        ...scheduleInput,
+        drivers: { ...scheduleInput.drivers, loadFraction },
+        includeDaily: false,
+        baseline: { kind: 'fixed', cleanings: [{ date: '2027-03-01', methodId: 'hp-water-lancing' }, { date: '2027-09-01', methodId: 'half-condenser-online' }] },
+      }) as { baseline: { cleanings: { methodId: string; downtimeCost: number }[]; totals: { downtimeCost: number } } };
+    // [derived] a lost MWh is worth 60 − 9.5 MMBtu/MWh × 3.5 = 26.75; both typical methods take 4 days
+    const perMwh = 60 - 9.5 * 3.5;
+    const at85 = baselineOf(0.85).baseline;
+    // outage: load × rating × 24 h; derate 50 %: max(0, load − 0.5) × rating × 24 h
+    expect(at85.cleanings[0].downtimeCost).toBeCloseTo(0.85 * 300 * 24 * 4 * perMwh, 2);
+    expect(at85.cleanings[1].downtimeCost).toBeCloseTo((0.85 - 0.5) * 300 * 24 * 4 * perMwh, 2);
+    expect(at85.totals.downtimeCost).toBeCloseTo((0.85 + 0.35) * 300 * 24 * 4 * perMwh, 2);
+    // below the derated limit the derate cleaning loses nothing
+    expect(baselineOf(0.45).baseline.cleanings[1].downtimeCost).toBe(0);
+  });
+
+  it('schedule: days without load stop the fouling clock and carry no fouling cost', () => {
+    const load = Array.from({ length: 365 }, (_, d) => (d >= 150 && d < 160 ? 0 : 0.85));
+    const noCleaning = { ...TYPICAL_CLEANING_METHODS.find((m) => m.id === 'hp-water-lancing')!, fixedCost: 1e9 };
+    const out = schedule.run({ ...scheduleInput, drivers: { ...scheduleInput.drivers, loadFraction: { daily: load } }, methods: [noCleaning], plannedOutages: [], baseline: { kind: 'never' } }) as {
+      cleanings: unknown[];
+      daily: { cleanliness: number; foulingCost: number }[];
+    };
+    expect(out.cleanings).toEqual([]);
+    for (let d = 150; d < 160; d++) {
+      expect(out.daily[d].foulingCost).toBe(0);
+      expect(out.daily[d + 1].cleanliness).toBe(out.daily[150].cleanliness);
+    }
+    expect(out.daily[149].cleanliness).toBeGreaterThan(out.daily[150].cleanliness);
+    expect(out.daily[161].cleanliness).toBeLessThan(out.daily[160].cleanliness);
   });
 
   it('schedule with uncertainty is reproducible for a seed', () => {

@@ -54,6 +54,37 @@ describe('least-cost cleaning calendar (dynamic programme)', () => {
     for (const seed of [1, 2, 3, 4, 5, 6]) expectOptimal(randomProblem(seed));
   });
 
+  it('matches brute force when the load varies and some days have no load (the fouling clock stops on them)', () => {
+    for (const seed of [11, 12, 13, 14]) {
+      const p = randomProblem(seed);
+      const r = mulberry32(seed * 7);
+      const load = Float64Array.from({ length: p.days }, () => (r() < 0.15 ? 0 : 0.3 + 0.7 * r()));
+      expectOptimal({ ...p, lostGeneration: { ...p.lostGeneration, loadFraction: load } });
+    }
+  });
+
+  it('a cleaning in a planned outage is not pushed to the outage’s last days: fouling waits while the unit is off line', () => {
+    // only the outage method, expensive lost generation, an eight-day planned outage on days 20–27 (one discount year)
+    const plannedOutage = Uint8Array.from({ length: 40 }, (_, d) => (d >= 20 && d <= 27 ? 1 : 0));
+    const p = smallProblem(
+      {
+        methods: [smallProblem().methods[0]],
+        plannedOutage,
+        yearIndex: new Int32Array(40),
+        lostGeneration: { ...smallProblem().lostGeneration, ratingMw: 500, replacementPricePerMwh: new Float64Array(40).fill(200) },
+        minSpacingDays: 8,
+      },
+      40,
+    );
+    // with the clock stopped, every start inside the outage leaves the same cleanliness on the first day back
+    const totals = [20, 22, 24, 26].map((start) => priceSchedule(p, [{ startDay: start, methodId: 'outage-wash' }], baseScenario(p)).discountedTotals.total);
+    for (const t of totals) expect(t).toBeCloseTo(totals[0], 6);
+    const inOutage = optimiseSchedule(p).cleanings.filter((c) => c.startDay >= 20 && c.startDay <= 27);
+    expect(inOutage).toHaveLength(1);
+    // among equal choices the earliest is kept, so the rest of the outage stays free for the work
+    expect(inOutage[0].startDay).toBe(20);
+  });
+
   it('matches brute force when windows restrict when each method may run', () => {
     const p = smallProblem(
       {
@@ -93,7 +124,7 @@ describe('least-cost cleaning calendar (dynamic programme)', () => {
     const p = smallProblem(
       {
         methods: [smallProblem().methods[0]],
-        lostGeneration: { ratingMw: 500, replacementPricePerMwh: new Float64Array(40).fill(200), ownFuelCostPerMwh: new Float64Array(40).fill(20), ownCo2CostPerMwh: new Float64Array(40) },
+        lostGeneration: { ratingMw: 500, loadFraction: new Float64Array(40).fill(1), replacementPricePerMwh: new Float64Array(40).fill(200), ownFuelCostPerMwh: new Float64Array(40).fill(20), ownCo2CostPerMwh: new Float64Array(40) },
         minSpacingDays: 8,
       },
       40,

@@ -9,14 +9,35 @@ describe('pricing a given schedule', () => {
   const p = smallProblem({}, 40);
   const base = baseScenario(p);
 
-  it('an outage method outside a planned outage loses the full rating for its duration, valued at replacement less own fuel and CO2', () => {
+  it('an outage method outside a planned outage at full load loses the full rating for its duration, valued at replacement less own fuel and CO2', () => {
     const priced = priceSchedule(p, [{ startDay: 5, methodId: 'outage-wash' }], base);
     // [derived] 10 MW × 24 h × 2 days × (80 − 30 − 5) $/MWh
     expect(priced.cleanings[0].downtimeCost).toBeCloseTo(10 * 24 * 2 * 45, 9);
     expect(priced.cleanings[0].foulingCostDuring).toBe(0);
   });
 
-  it('a derate method loses rating × derate % for its duration', () => {
+  it('when the unit runs part-loaded, an outage cleaning loses only the MW the unit would have made', () => {
+    const load = new Float64Array(40).fill(0.6);
+    load[6] = 0.3;
+    const partLoad = smallProblem({ lostGeneration: { ...p.lostGeneration, loadFraction: load } }, 40);
+    const priced = priceSchedule(partLoad, [{ startDay: 5, methodId: 'outage-wash' }], baseScenario(partLoad));
+    // [derived] lost MWh = load × rating × 24 h a day: 10 MW × (0.6 + 0.3) × 24 h × 45 $/MWh
+    expect(priced.cleanings[0].downtimeCost).toBeCloseTo(10 * (0.6 + 0.3) * 24 * 45, 9);
+  });
+
+  it('a derate cleaning costs only the load above the derated limit, and nothing when the unit runs below it', () => {
+    // 50 % derate: the unit may still make 50 % of its rating
+    const at = (loadFraction: number) => {
+      const q = smallProblem({ lostGeneration: { ...p.lostGeneration, loadFraction: new Float64Array(40).fill(loadFraction) } }, 40);
+      return priceSchedule(q, [{ startDay: 5, methodId: 'derate-brush' }], baseScenario(q)).cleanings[0].downtimeCost;
+    };
+    // [derived] max(0, load − (1 − derate)) × rating × 24 h × 3 days × 45 $/MWh
+    expect(at(0.8)).toBeCloseTo((0.8 - 0.5) * 10 * 24 * 3 * 45, 9);
+    expect(at(0.4)).toBe(0);
+    expect(at(0.5)).toBe(0);
+  });
+
+  it('at full load a derate method loses rating × derate % for its duration', () => {
     const priced = priceSchedule(p, [{ startDay: 5, methodId: 'derate-brush' }], base);
     // [derived] 10 MW × 50 % × 24 h × 3 days × 45 $/MWh
     expect(priced.cleanings[0].downtimeCost).toBeCloseTo(10 * 0.5 * 24 * 3 * 45, 9);
@@ -28,6 +49,29 @@ describe('pricing a given schedule', () => {
     const priced = priceSchedule(p, [{ startDay: 20, methodId: 'outage-wash' }], base);
     expect(priced.cleanings[0]).toMatchObject({ downtimeCost: 0, daysInPlannedOutage: 2 });
     for (let d = 20; d <= 23; d++) expect(priced.dailyFoulingCost[d]).toBe(0);
+  });
+
+  it('fouling does not grow through a planned outage: the fouling index is the same before and after it', () => {
+    // outage days 20–23 of the fixture; no cleaning
+    const priced = priceSchedule(p, [], base);
+    expect(priced.dailyCleanliness[19]).toBeGreaterThan(priced.dailyCleanliness[20]);
+    for (let d = 21; d <= 24; d++) expect(priced.dailyCleanliness[d]).toBe(priced.dailyCleanliness[20]);
+    expect(priced.dailyCleanliness[25]).toBeLessThan(priced.dailyCleanliness[24]);
+  });
+
+  it('a day without load is off line: no fouling growth, no fouling cost, and a cleaning that day loses nothing', () => {
+    const load = new Float64Array(40).fill(1);
+    for (const d of [8, 9, 10]) load[d] = 0;
+    const idle = smallProblem({ lostGeneration: { ...p.lostGeneration, loadFraction: load } }, 40);
+    const priced = priceSchedule(idle, [], baseScenario(idle));
+    expect(priced.dailyCleanliness[9]).toBe(priced.dailyCleanliness[8]);
+    expect(priced.dailyCleanliness[11]).toBe(priced.dailyCleanliness[8]);
+    for (const d of [8, 9, 10]) expect(priced.dailyFoulingCost[d]).toBe(0);
+    // [derived] the same path with the idle days removed: day 11 is at the operating age of day 8
+    const busy = priceSchedule(p, [], base);
+    expect(priced.dailyCleanliness[11]).toBeCloseTo(busy.dailyCleanliness[8], 12);
+    const cleaning = priceSchedule(idle, [{ startDay: 8, methodId: 'outage-wash' }], baseScenario(idle));
+    expect(cleaning.cleanings[0].downtimeCost).toBe(0);
   });
 
   it('after a cleaning the cleanliness restarts at the method’s recovered value and falls again', () => {
@@ -66,6 +110,16 @@ describe('pricing a given schedule', () => {
       expect(quick.length).toBe(detailed.length);
       quick.forEach((v, i) => expect(v).toBeCloseTo(detailed[i], 6));
     }
+  });
+
+  it('the fast re-pricer agrees with the detailed pricing when the load varies and some days have none', () => {
+    const load = Float64Array.from({ length: 40 }, (_, d) => (d % 9 === 4 ? 0 : 0.45 + 0.5 * Math.abs(Math.sin(d / 5))));
+    const varied = smallProblem({ lostGeneration: { ...p.lostGeneration, loadFraction: load } }, 40);
+    const plan = [{ startDay: 3, methodId: 'derate-brush' }, { startDay: 12, methodId: 'outage-wash' }, { startDay: 21, methodId: 'derate-brush' }, { startDay: 30, methodId: 'outage-wash' }];
+    const fast = compileSchedulePricer(varied, plan);
+    const s: PricingScenario = { foulingRateScale: 1.3, prices: { fuel: 0.8, co2: 1, replacement: 1.4 }, cleaningCostScale: 1.2, recoveredCleanlinessShift: -0.03, discountRate: 0.12 };
+    const detailed = priceSchedule(varied, plan, s).yearly.map((y) => y.total);
+    Array.from(fast.yearlyTotals(s)).forEach((v, i) => expect(v).toBeCloseTo(detailed[i], 6));
   });
 
   it('the next-planned-outage baseline cleans once at the start of the first outage long enough', () => {

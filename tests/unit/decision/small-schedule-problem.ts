@@ -28,6 +28,7 @@ export function smallProblem(overrides: Partial<ScheduleProblem> = {}, days = 40
     table,
     lostGeneration: {
       ratingMw: 10,
+      loadFraction: new Float64Array(days).fill(1),
       replacementPricePerMwh: new Float64Array(days).fill(80),
       ownFuelCostPerMwh: new Float64Array(days).fill(30),
       ownCo2CostPerMwh: new Float64Array(days).fill(5),

@@ -6,7 +6,7 @@
  */
 import { gridPosition } from './penalty-cost-table.js';
 import { checkCleanings } from './schedule-pricing.js';
-import { foulingIndexByAge, lostMwhOnCleaningDay, type PlannedCleaning, type PricingScenario, type ScheduleProblem } from './schedule-problem.js';
+import { foulingIndexByAge, lostMwhOnCleaningDay, onLineDays, type PlannedCleaning, type PricingScenario, type ScheduleProblem } from './schedule-problem.js';
 
 export interface SchedulePricer {
   /** undiscounted total cost (fouling + cleaning + downtime) per horizon year */
@@ -19,6 +19,7 @@ export function compileSchedulePricer(problem: ScheduleProblem, cleanings: reado
   const G = table.size;
   const methods = new Map(problem.methods.map((m) => [m.id, m]));
   const years = problem.yearIndex[days - 1] + 1;
+  const onLine = onLineDays(problem);
 
   // Per day: the segment (which cleaning the unit is running after, -1 = before the first) and the age, or
   // a flag that the day belongs to a cleaning (and which one, to hold the cleanliness found).
@@ -39,7 +40,7 @@ export function compileSchedulePricer(problem: ScheduleProblem, cleanings: reado
         segment[d + j] = seg;
         age[d + j] = a;
         lostMwh[d + j] = lostMwhOnCleaningDay(problem, m, d + j);
-        chargedDuring[d + j] = m.unitDuringCleaning === 'outage' || problem.plannedOutage[d + j] ? 0 : 1;
+        chargedDuring[d + j] = m.unitDuringCleaning === 'outage' || !onLine[d + j] ? 0 : 1;
       }
       d += m.durationDays;
       seg = next;
@@ -49,19 +50,19 @@ export function compileSchedulePricer(problem: ScheduleProblem, cleanings: reado
     }
     segment[d] = seg;
     age[d] = a;
+    a += onLine[d];
     d++;
-    a++;
   }
   const segmentMethods = sorted.map((c) => methods.get(c.methodId)!);
   const y = foulingIndexByAge(problem.fouling, days + problem.initial.daysSinceCleaning);
 
-  // Reference penalty components per day (zero on planned-outage days).
+  // Reference penalty components per day (zero on days off line).
   const refPos = gridPosition(table, problem.referenceCleanliness);
   const refFuel = new Float64Array(days);
   const refCo2 = new Float64Array(days);
   const refCap = new Float64Array(days);
   for (let d = 0; d < days; d++) {
-    if (problem.plannedOutage[d]) continue;
+    if (!onLine[d]) continue;
     const k = d * G + refPos.index;
     const w = refPos.weight;
     refFuel[d] = table.heatRateFuel[k] + w * (table.heatRateFuel[k + 1] - table.heatRateFuel[k]);
@@ -85,7 +86,7 @@ export function compileSchedulePricer(problem: ScheduleProblem, cleanings: reado
           const value = replacement * lg.replacementPricePerMwh[d] - fuel * lg.ownFuelCostPerMwh[d] - co2 * lg.ownCo2CostPerMwh[d];
           if (value > 0) out[yr] += lostMwh[d] * value;
         }
-        if (problem.plannedOutage[d] || (cleaningOf[d] >= 0 && !chargedDuring[d])) continue;
+        if (!onLine[d] || (cleaningOf[d] >= 0 && !chargedDuring[d])) continue;
         const sg = segment[d];
         const cf = sg < 0 ? 1 / (initialInv + initialMult * y[age[d]]) : 1 / (invCf0[sg] + mult[sg] * y[age[d]]);
         let x = (cf - table.cfMin) / table.cfStep;

@@ -7,6 +7,8 @@
  * each day tries every method that may start there (window, spacing, horizon). This is the day-by-day programme
  * over (day, days since cleaning, method) with exact reconstruction. Walks run in step so that a walk dominated
  * by a younger, cheaper walk of the same method is dropped (valid when cost rises with age, which is checked).
+ * Fouling ages only on days on line, so walks that restarted within one stretch off line stay alike for good: of
+ * those the oldest at the least cost is kept, which also settles ties towards the earlier cleaning.
  * The objective is the discounted total of fouling, cleaning and downtime cost exactly as priceSchedule computes it.
  */
 import { combinedCosts, gridPosition, UNIT_PRICE_SCALES } from './penalty-cost-table.js';
@@ -16,6 +18,8 @@ import {
   lostMwhOnCleaningDay,
   lostMwhValue,
   mayStart,
+  onLineDays,
+  onLineDaysBefore,
   validateProblem,
   type PlannedCleaning,
   type ScheduleProblem,
@@ -40,12 +44,15 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
   const M = methods.length;
   const discount = dailyDiscountFactors(problem.yearIndex, H, problem.discountRate);
   const base = combinedCosts(table);
-  // Discounted penalty per (day, grid point), zero on planned-outage days, and the discounted reference penalty.
+  // Discounted penalty per (day, grid point), zero on days off line, and the discounted reference penalty.
   const cost = new Float64Array(H * G);
   const ref = new Float64Array(H);
   const refPos = gridPosition(table, problem.referenceCleanliness);
+  const onLine = onLineDays(problem);
+  // fouling age of a walk on day e = days on line since its restart = onLineBefore[e] − onLineBefore[restart]
+  const onLineBefore = onLineDaysBefore(onLine);
   for (let d = 0; d < H; d++) {
-    if (problem.plannedOutage[d]) continue;
+    if (!onLine[d]) continue;
     for (let i = 0; i < G; i++) cost[d * G + i] = discount[d] * base[d * G + i];
     const k = d * G + refPos.index;
     ref[d] = discount[d] * (base[k] + refPos.weight * (base[k + 1] - base[k]));
@@ -112,19 +119,21 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
   interface Walk {
     node: number;
     restartDay: number;
+    /** days on line before the restart day (the walk's fouling clock started there) */
+    clockStart: number;
     /** cost so far, at the start of the current day */
     cost: number;
     firstStart: number;
     curve: StateCurve;
   }
   const groups: Walk[][] = Array.from({ length: M + 1 }, () => []);
-  groups[M].push({ node: INITIAL, restartDay: 0, cost: 0, firstStart: Math.max(0, problem.minSpacingDays - a0), curve: initialCurve });
+  groups[M].push({ node: INITIAL, restartDay: 0, clockStart: 0, cost: 0, firstStart: Math.max(0, problem.minSpacingDays - a0), curve: initialCurve });
 
   for (let e = 0; e < H; e++) {
     for (let k = 0; k < M; k++) {
       const node = e * M + k;
       if (best[node] < Number.POSITIVE_INFINITY) {
-        groups[k].push({ node, restartDay: e, cost: best[node], firstStart: e + Math.max(0, problem.minSpacingDays - methods[k].durationDays), curve: methodCurves[k] });
+        groups[k].push({ node, restartDay: e, clockStart: onLineBefore[e], cost: best[node], firstStart: e + Math.max(0, problem.minSpacingDays - methods[k].durationDays), curve: methodCurves[k] });
       }
     }
     // Cleanings that start today.
@@ -137,7 +146,7 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
           arrive = walk.cost;
           arriveFrom = walk.node;
         }
-        const age = e - walk.restartDay;
+        const age = onLineBefore[e] - walk.clockStart;
         const gi = walk.curve.index[age];
         const w = walk.curve.weight[age];
         for (let j = 0; j < stateDependent.length; j++) {
@@ -168,24 +177,10 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
         }
       }
     }
-    // Dominance: in one group, an older walk costing at least as much as a younger walk that may already clean
-    // can never do better from here on (the younger one is cleaner every day and has the same choices).
     for (let g = 0; g <= M; g++) {
-      const group = groups[g];
-      if (pruning && group.length > 1) {
-        let bestYounger = Number.POSITIVE_INFINITY;
-        const kept: Walk[] = [];
-        for (let i = group.length - 1; i >= 0; i--) {
-          const walk = group[i];
-          if (walk.cost >= bestYounger) continue;
-          kept.push(walk);
-          if (e >= walk.firstStart && walk.cost < bestYounger) bestYounger = walk.cost;
-        }
-        kept.reverse();
-        groups[g] = kept;
-      }
+      if (groups[g].length > 1) groups[g] = dropDominated(groups[g], e, pruning);
       for (const walk of groups[g]) {
-        const age = e - walk.restartDay;
+        const age = onLineBefore[e] - walk.clockStart;
         const gi = walk.curve.index[age];
         const s = e * G + gi;
         walk.cost += cost[s] + walk.curve.weight[age] * (cost[s + 1] - cost[s]) - ref[e];
@@ -216,6 +211,41 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
     cleanings.unshift({ startDay: fromStart[node], methodId: methods[node % M].id });
   }
   return { cleanings, objective: endBest };
+}
+
+interface WalkOrder {
+  cost: number;
+  firstStart: number;
+  clockStart: number;
+}
+
+/**
+ * Drops walks of one group (same method, oldest first) that can never do better from day e on. Walks with the same
+ * fouling age (restarted within one stretch off line) have the same cleanliness every day from here: a younger one
+ * costing no less than an older one is dropped (the older has every choice the younger has), and so are the older
+ * ones once a cheaper one may already clean. With `ageRule` (cost rises with age), an older walk costing at least as
+ * much as a walk of lower fouling age that may already clean is dropped too (the younger is cleaner every day and
+ * has the same choices).
+ */
+function dropDominated<T extends WalkOrder>(group: T[], e: number, ageRule: boolean): T[] {
+  const runs: T[][] = [];
+  for (const walk of group) {
+    const last = runs.at(-1);
+    if (last && last[0].clockStart === walk.clockStart) last.push(walk);
+    else runs.push([walk]);
+  }
+  const kept: T[][] = [];
+  let bestYounger = Number.POSITIVE_INFINITY;
+  for (let r = runs.length - 1; r >= 0; r--) {
+    let front: T[] = [];
+    for (const walk of runs[r]) if (front.length === 0 || walk.cost < front[front.length - 1].cost) front.push(walk);
+    const youngestReady = front.findLastIndex((w) => e >= w.firstStart);
+    if (youngestReady > 0) front = front.slice(youngestReady);
+    if (ageRule) front = front.filter((w) => w.cost < bestYounger);
+    kept.push(front);
+    for (const w of front) if (e >= w.firstStart && w.cost < bestYounger) bestYounger = w.cost;
+  }
+  return kept.reverse().flat();
 }
 
 /**

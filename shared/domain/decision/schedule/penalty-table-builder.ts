@@ -100,11 +100,12 @@ export function buildPenaltyTable(
   return table;
 }
 
-/** Per-day value of lost generation: replacement price and the unit's own fuel and CO2 cost per MWh (§4). */
+/** Per-day load and value of lost generation: replacement price and the unit's own fuel and CO2 cost per MWh (§4). */
 export function lostGenerationFromDrivers(model: Pick<UnitPenaltyModel, 'ratingMw' | 'heatRateBtuKwh' | 'co2KgPerMmbtu'>, drivers: DailyDrivers): LostGenerationEconomics {
   const mmbtuPerMwh = model.heatRateBtuKwh / 1000;
   return {
     ratingMw: model.ratingMw,
+    loadFraction: Float64Array.from(drivers.loadFraction),
     replacementPricePerMwh: Float64Array.from(drivers.replacementPricePerMwh),
     ownFuelCostPerMwh: drivers.fuelPricePerMmbtu.map((p) => mmbtuPerMwh * p),
     ownCo2CostPerMwh: drivers.co2PricePerTonne.map((p) => (mmbtuPerMwh * model.co2KgPerMmbtu * p) / 1000),

@@ -10,6 +10,7 @@ import {
   lostMwhOnCleaningDay,
   lostMwhValue,
   mayStart,
+  onLineDays,
   type PlannedCleaning,
   type PricingScenario,
   type ScheduleMethod,
@@ -87,8 +88,9 @@ export function priceSchedule(problem: ScheduleProblem, cleanings: readonly Plan
   const discount = dailyDiscountFactors(problem.yearIndex, days, scenario.discountRate);
   const y = foulingIndexByAge(problem.fouling, days + problem.initial.daysSinceCleaning, scenario.foulingRateScale);
   const refCf = problem.referenceCleanliness;
+  const onLine = onLineDays(problem);
   const foulingOn = (day: number, cf: number) =>
-    problem.plannedOutage[day] ? 0 : penaltyCostPerDay(table, day, cf, scenario.prices) - penaltyCostPerDay(table, day, refCf, scenario.prices);
+    !onLine[day] ? 0 : penaltyCostPerDay(table, day, cf, scenario.prices) - penaltyCostPerDay(table, day, refCf, scenario.prices);
 
   const dailyCleanliness = new Float64Array(days);
   const dailyFoulingCost = new Float64Array(days);
@@ -149,8 +151,9 @@ export function priceSchedule(problem: ScheduleProblem, cleanings: readonly Plan
     dailyCleanliness[d] = cf;
     dailyFoulingCost[d] = fouling;
     book(d, 'foulingCost', fouling);
+    // the fouling clock stops while the unit is off line
+    age += onLine[d];
     d++;
-    age++;
   }
   for (const t of [totals, discountedTotals, ...yearly]) t.total = t.foulingCost + t.cleaningCost + t.downtimeCost;
   return { cleanings: priced, dailyCleanliness, dailyFoulingCost, dailyCleaningCost, totals, discountedTotals, yearly, ruleBreaks };

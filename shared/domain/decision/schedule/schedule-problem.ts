@@ -31,13 +31,15 @@ export interface ScheduleMethod {
 /** Value of generation the unit cannot make: lost MWh × (replacement price − own fuel and CO2 cost per MWh). */
 export interface LostGenerationEconomics {
   ratingMw: number;
+  /** load the unit would run at each day, fraction of rating; 0 = off line (no fouling growth, nothing to lose) */
+  loadFraction: Float64Array;
   replacementPricePerMwh: Float64Array;
   ownFuelCostPerMwh: Float64Array;
   ownCo2CostPerMwh: Float64Array;
 }
 
 export interface InitialCondition {
-  /** days since the last cleaning ended, at the start of the horizon */
+  /** days on line since the last cleaning ended, at the start of the horizon (the fouling model's clock) */
   daysSinceCleaning: number;
   /** cleanliness that cleaning left */
   cleanlinessAfterCleaning: number;
@@ -51,7 +53,7 @@ export interface ScheduleProblem {
   fouling: FoulingModel;
   initial: InitialCondition;
   methods: readonly ScheduleMethod[];
-  /** 1 on days the unit is down in a planned outage (no generation, no fouling cost, no downtime cost) */
+  /** 1 on days the unit is down in a planned outage (no generation, no fouling cost or growth, no downtime cost) */
   plannedOutage: Uint8Array;
   /** when given, every cleaning must lie inside one of these ranges (an empty list allows none) */
   windows?: readonly DayRange[];
@@ -92,7 +94,7 @@ export interface PlannedCleaning {
 export function validateProblem(p: ScheduleProblem): void {
   if (!(Number.isInteger(p.days) && p.days >= 1)) throw new Error('the horizon needs at least one day');
   if (p.table.days < p.days) throw new Error('the penalty table is shorter than the horizon');
-  for (const a of [p.plannedOutage, p.yearIndex, p.lostGeneration.replacementPricePerMwh, p.lostGeneration.ownFuelCostPerMwh, p.lostGeneration.ownCo2CostPerMwh]) {
+  for (const a of [p.plannedOutage, p.yearIndex, p.lostGeneration.loadFraction, p.lostGeneration.replacementPricePerMwh, p.lostGeneration.ownFuelCostPerMwh, p.lostGeneration.ownCo2CostPerMwh]) {
     if (a.length < p.days) throw new Error('a daily series is shorter than the horizon');
   }
   if (!(p.discountRate > -1)) throw new Error('the discount rate must be above −1');
@@ -134,12 +136,30 @@ export function lostMwhValue(e: LostGenerationEconomics, day: number, prices: Pr
   return Math.max(0, prices.replacement * e.replacementPricePerMwh[day] - prices.fuel * e.ownFuelCostPerMwh[day] - prices.co2 * e.ownCo2CostPerMwh[day]);
 }
 
-/** Lost MWh on one cleaning day: full rating for an outage method, rating × derate for a derate method. */
+/**
+ * Lost MWh on one cleaning day: what the unit would have made that day and cannot. An outage method loses
+ * load × rating × 24 h; a derate method only the load above the derated limit, max(0, load − (1 − derate)) × rating × 24 h.
+ */
 export function lostMwhOnCleaningDay(p: ScheduleProblem, m: ScheduleMethod, day: number): number {
   if (p.plannedOutage[day]) return 0;
-  if (m.unitDuringCleaning === 'outage') return p.lostGeneration.ratingMw * 24;
-  if (m.unitDuringCleaning === 'derate') return (p.lostGeneration.ratingMw * m.deratePct * 24) / 100;
+  const load = Math.max(0, p.lostGeneration.loadFraction[day]);
+  if (m.unitDuringCleaning === 'outage') return load * p.lostGeneration.ratingMw * 24;
+  if (m.unitDuringCleaning === 'derate') return Math.max(0, load - (1 - m.deratePct / 100)) * p.lostGeneration.ratingMw * 24;
   return 0;
+}
+
+/** 1 on days the unit runs: not in a planned outage and with load. Fouling grows and costs only on these days. */
+export function onLineDays(p: ScheduleProblem): Uint8Array {
+  const out = new Uint8Array(p.days);
+  for (let d = 0; d < p.days; d++) out[d] = !p.plannedOutage[d] && p.lostGeneration.loadFraction[d] > 0 ? 1 : 0;
+  return out;
+}
+
+/** Days on line in [0, d) for d = 0 … days: the fouling clock between two days is the difference. */
+export function onLineDaysBefore(onLine: Uint8Array): Int32Array {
+  const out = new Int32Array(onLine.length + 1);
+  for (let d = 0; d < onLine.length; d++) out[d + 1] = out[d] + onLine[d];
+  return out;
 }
 
 function inside(ranges: readonly DayRange[], from: number, to: number): boolean {
