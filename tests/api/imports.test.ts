@@ -4,10 +4,14 @@
  * spot checks against the calculation CLI, and scope.
  */
 import { spawn } from 'node:child_process';
+import { existsSync } from 'node:fs';
 import { readdir, writeFile } from 'node:fs/promises';
 import type TestAgent from 'supertest/lib/agent.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { drainJobs } from '../../backend/src/jobs/job-worker.js';
+import { claimNextJob, finishJob, MAX_ATTEMPTS, reportProgress, STALE_MINUTES } from '../../backend/src/jobs/job-queue.js';
+import { BackgroundJob } from '../../backend/src/entities/background-job.entity.js';
+import { DataImport } from '../../backend/src/entities/data-import.entity.js';
 import { JOB_HANDLERS } from '../../backend/src/jobs/job-handlers.js';
 import { importFaults } from '../../backend/src/services/import.service.js';
 import type { GeneratingUnit } from '../../backend/src/entities/generating-unit.entity.js';
@@ -506,6 +510,102 @@ describe('historian imports through the API', () => {
       expect(relClose(s.cleanliness!, out[i].cleanliness, 5e-4)).toBe(true);
       expect(relClose(s.ttdK!, out[i].ttdK, 5e-4)).toBe(true);
       expect(relClose(s.expectedBackpressureKpa!, out[i].expectedBackpressureKpa, 5e-4)).toBe(true);
+    });
+  });
+
+  describe('as a background job', () => {
+    /** Uploads and starts an import without running its job. */
+    async function startedImport(unitId: string, filePath: string): Promise<string> {
+      const up = await analyst.post(`/api/units/${unitId}/uploads`).set(CSRF).attach('file', filePath).expect(201);
+      await analyst.post(`/api/imports/${up.body.import.id}/start`).set(CSRF).send({ mapping: up.body.proposedMapping }).expect(202);
+      return up.body.import.id;
+    }
+    const jobsOf = (unitId: string) => t.dataSource.getRepository(BackgroundJob).find({ where: { unitId }, order: { createdAt: 'ASC' } });
+    /** What a worker that died leaves behind once the stale time has passed. */
+    const ageLock = (jobId: string) => t.dataSource.query(`UPDATE background_job SET lockedAt = NOW(3) - INTERVAL ${STALE_MINUTES + 1} MINUTE WHERE id = ?`, [jobId]);
+
+    it('stores the rows and queues a recompute of the unit like every other change, and draining the queue builds the daily figures', async () => {
+      const unit = await newUnit();
+      const importId = await startedImport(unit.id, await writeHistorianCsv(tmp.file('queued-recompute.csv'), goodWeek()));
+      const job = await claimNextJob(t.dataSource, 'import-only');
+      expect(job).toMatchObject({ kind: 'import', unitId: unit.id });
+      await JOB_HANDLERS.import(t.dataSource, job!);
+
+      const imp = (await analyst.get(`/api/imports/${importId}`).expect(200)).body;
+      expect(imp.status).toBe('complete');
+      expect(imp.counts.stored).toBe(168);
+      expect((await jobsOf(unit.id)).map((j) => [j.kind, j.status])).toEqual([['import', 'running'], ['recompute', 'queued']]);
+      expect(await dailyOf(unit.id)).toEqual([]);
+      expect((await samplesOf(unit.id)).every((s) => s.cleanliness === null)).toBe(true);
+
+      expect(await finishJob(t.dataSource, job!, { ok: true })).toBe(true);
+      expect(await drain()).toBe(1);
+      expect((await dailyOf(unit.id)).map((d) => d.day)).toEqual(['2024-06-02', '2024-06-03', '2024-06-04', '2024-06-05', '2024-06-06', '2024-06-07', '2024-06-08', '2024-06-09']);
+      expect((await samplesOf(unit.id)).filter((s) => s.validity === 'ok').every((s) => s.cleanliness !== null)).toBe(true);
+    });
+
+    it('taken over from a worker that died part-way, stores every row of the file exactly once', async () => {
+      const unit = await newUnit();
+      const rows = goodWeek();
+      const importId = await startedImport(unit.id, await writeHistorianCsv(tmp.file('taken-over.csv'), rows));
+      const dead = await claimNextJob(t.dataSource, 'died-mid-import');
+      expect(dead).toMatchObject({ kind: 'import', unitId: unit.id });
+      // what the dead worker had stored before it died: the file's first row
+      const r = rows[0];
+      await t.dataSource.query(
+        `INSERT INTO performance_sample (unitId, importId, timestampUtc, loadMw, backpressureKpa, cwInletC, cwOutletC, cwFlowM3s, validity) VALUES (?, ?, ?, ?, ?, ?, ?, ?, 'ok')`,
+        [unit.id, importId, new Date(r.timestampUtc), r.loadMw, r.backpressureKpa, r.cwInletC, r.cwOutletC, r.cwFlowM3s],
+      );
+      await ageLock(dead!.id);
+
+      expect(await drain()).toBe(2);
+      const imp = (await analyst.get(`/api/imports/${importId}`).expect(200)).body;
+      expect(imp.status).toBe('complete');
+      expect(imp.counts).toMatchObject({ rowsRead: 168, stored: 168, skippedIdentical: 0, conflicting: 0 });
+      const samples = await samplesOf(unit.id);
+      expect(samples).toHaveLength(168);
+      expect(samples.every((s) => s.importId === importId)).toBe(true);
+      expect((await jobsOf(unit.id)).map((j) => [j.kind, j.status, j.attempts])).toEqual([['import', 'done', 2], ['recompute', 'done', 1]]);
+    });
+
+    it('finished just before its worker died, keeps its rows when the job is taken over', async () => {
+      const unit = await newUnit();
+      const importId = await startedImport(unit.id, await writeHistorianCsv(tmp.file('finished-then-died.csv'), goodWeek()));
+      const dead = await claimNextJob(t.dataSource, 'died-after-import');
+      await JOB_HANDLERS.import(t.dataSource, dead!);
+      await ageLock(dead!.id);
+
+      await drain();
+      const imp = (await analyst.get(`/api/imports/${importId}`).expect(200)).body;
+      expect(imp.status).toBe('complete');
+      expect(imp.counts.stored).toBe(168);
+      expect(await samplesOf(unit.id)).toHaveLength(168);
+      expect((await dailyOf(unit.id)).length).toBe(8);
+    });
+
+    it('whose workers keep dying ends failed after three attempts, keeping none of its rows nor its file', async () => {
+      const unit = await newUnit();
+      const importId = await startedImport(unit.id, await writeHistorianCsv(tmp.file('keeps-dying.csv'), goodWeek()));
+      const { storedPath } = await t.dataSource.getRepository(DataImport).findOneByOrFail({ id: importId });
+      for (let attempt = 1; attempt <= MAX_ATTEMPTS; attempt++) {
+        const dying = await claimNextJob(t.dataSource, `dying-${attempt}`);
+        expect(dying).toMatchObject({ kind: 'import', unitId: unit.id, attempts: attempt });
+        await reportProgress(t.dataSource, dying!, 0.3, 'Stored 5,000 of 168 rows');
+        await t.dataSource.query(
+          `INSERT IGNORE INTO performance_sample (unitId, importId, timestampUtc, loadMw, backpressureKpa, cwInletC, cwOutletC, cwFlowM3s, validity) VALUES (?, ?, ?, 300, 7, 20, 30, 15, 'ok')`,
+          [unit.id, importId, new Date(START_UTC)],
+        );
+        await ageLock(dying!.id);
+      }
+
+      expect(await drain()).toBe(0);
+      const imp = (await analyst.get(`/api/imports/${importId}`).expect(200)).body;
+      expect(imp.status).toBe('failed');
+      expect(imp.message).toMatch(/stored nothing.*3 attempts/);
+      expect(await samplesOf(unit.id)).toEqual([]);
+      expect(existsSync(storedPath!)).toBe(false);
+      const [job] = await jobsOf(unit.id);
+      expect(job).toMatchObject({ kind: 'import', status: 'failed', attempts: MAX_ATTEMPTS });
     });
   });
 

@@ -2,11 +2,14 @@
 import type { JobHandler } from './job-worker.js';
 import { reportProgress } from './job-queue.js';
 import { recomputeUnit } from '../services/derived/recompute-unit.js';
-import { runImportJob } from '../services/import.service.js';
+import { giveUpImport, runImportJob } from '../services/import.service.js';
+
+const importJob: JobHandler = (ds, job) => runImportJob(ds, job, String(job.payload?.importId));
+importJob.giveUp = (em, job) => giveUpImport(em, String(job.payload?.importId), job.message ?? 'the import stopped');
 
 export const JOB_HANDLERS: Record<string, JobHandler> = {
-  import: (ds, job) => runImportJob(ds, job.id, String(job.payload?.importId)),
+  import: importJob,
   recompute: async (ds, job) => {
-    await recomputeUnit(ds, job.unitId, (f, m) => reportProgress(ds, job.id, f, m));
+    await recomputeUnit(ds, job.unitId, (f, m) => reportProgress(ds, job, f, m));
   },
 };

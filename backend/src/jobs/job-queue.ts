@@ -1,12 +1,32 @@
 /**
- * Background jobs in MariaDB. Any number of workers (in any number of app processes) claim jobs with
- * SELECT … FOR UPDATE SKIP LOCKED; a unit never has two jobs running at once; a job whose worker died is
- * taken over after STALE_MINUTES.
+ * Background jobs in MariaDB. Any number of workers (in any number of app processes) claim jobs; a unit never
+ * has two jobs running at once, because every claim locks the unit's row (SELECT … FOR UPDATE) for its
+ * transaction and only then looks, in committed data, for a running job of that unit. A job whose worker
+ * died is taken over after STALE_MINUTES; one that never finished in MAX_ATTEMPTS runs is given up. Only the
+ * worker holding a job's lock reports progress on it or finishes it: a worker that lost its lock stops.
  */
 import type { DataSource, EntityManager } from 'typeorm';
 import { BackgroundJob, type JobKind } from '../entities/background-job.entity.js';
 
 export const STALE_MINUTES = 15;
+/** Runs a job may start without finishing (its worker died each time) before it is given up. */
+export const MAX_ATTEMPTS = 3;
+
+/** The part of a claimed job that proves who holds it. */
+export type JobLease = Pick<BackgroundJob, 'id' | 'lockedBy'>;
+
+/** Thrown to a worker whose job was taken over by another (its lock went stale): it must stop. */
+export class LostJobLockError extends Error {
+  constructor(jobId: string) {
+    super(`job ${jobId} was taken over by another worker`);
+    this.name = 'LostJobLockError';
+  }
+}
+
+/** Undoes what a job left half-done, in the transaction that gives it up. */
+export type GiveUpHook = (em: EntityManager, job: BackgroundJob) => Promise<void>;
+
+const STALE = `NOW(3) - INTERVAL ${STALE_MINUTES} MINUTE`;
 
 export async function enqueueJob(em: EntityManager, job: { organisationId: string; unitId: string; kind: JobKind; payload?: Record<string, unknown> }): Promise<BackgroundJob> {
   return em.getRepository(BackgroundJob).save({ ...job, payload: job.payload ?? null, status: 'queued', progress: 0, message: null, lockedBy: null, lockedAt: null, attempts: 0, finishedAt: null });
@@ -18,28 +38,111 @@ export async function enqueueRecompute(em: EntityManager, organisationId: string
   if (!waiting) await enqueueJob(em, { organisationId, unitId, kind: 'recompute', payload: { reason } });
 }
 
-export async function claimNextJob(ds: DataSource, workerId: string): Promise<BackgroundJob | null> {
-  return ds.transaction(async (em) => {
-    const rows: { id: string }[] = await em.query(
-      `SELECT j.id FROM background_job j
-        WHERE (j.status = 'queued' OR (j.status = 'running' AND j.lockedAt < NOW(3) - INTERVAL ${STALE_MINUTES} MINUTE))
-          AND NOT EXISTS (SELECT 1 FROM background_job r WHERE r.unitId = j.unitId AND r.status = 'running' AND r.id <> j.id
-                          AND r.lockedAt >= NOW(3) - INTERVAL ${STALE_MINUTES} MINUTE)
-        ORDER BY j.createdAt ASC LIMIT 1 FOR UPDATE SKIP LOCKED`,
+/**
+ * Claims the oldest runnable job of a unit with no job running (queued, or running with a stale lock), marks
+ * it running for this worker and returns it; null when there is none. Jobs that ran MAX_ATTEMPTS times
+ * without finishing are given up first.
+ */
+export async function claimNextJob(ds: DataSource, workerId: string, options: { onGiveUp?: GiveUpHook } = {}): Promise<BackgroundJob | null> {
+  await giveUpExhaustedJobs(ds, options.onGiveUp);
+  // READ COMMITTED: each plain read below sees every claim committed before it, not a snapshot.
+  return ds.transaction('READ COMMITTED', async (em) => {
+    const units: { unitId: string }[] = await em.query(
+      `SELECT unitId FROM background_job
+        WHERE status = 'queued' OR (status = 'running' AND lockedAt < ${STALE} AND attempts < ${MAX_ATTEMPTS})
+        GROUP BY unitId ORDER BY MIN(createdAt) ASC LIMIT 20`,
     );
-    if (rows.length === 0) return null;
-    await em.query(`UPDATE background_job SET status = 'running', lockedBy = ?, lockedAt = NOW(3), attempts = attempts + 1 WHERE id = ?`, [workerId, rows[0].id]);
-    return em.getRepository(BackgroundJob).findOneByOrFail({ id: rows[0].id });
+    for (const { unitId } of units) {
+      // Another claim holding this unit is skipped, not waited for; it holds the row until it commits.
+      const locked: unknown[] = await em.query('SELECT id FROM generating_unit WHERE id = ? FOR UPDATE SKIP LOCKED', [unitId]);
+      if (locked.length === 0) {
+        const exists: unknown[] = await em.query('SELECT id FROM generating_unit WHERE id = ?', [unitId]);
+        if (exists.length === 0) await failJobsOfMissingUnit(em, unitId);
+        continue;
+      }
+      const busy: unknown[] = await em.query(`SELECT id FROM background_job WHERE unitId = ? AND status = 'running' AND lockedAt >= ${STALE} LIMIT 1`, [unitId]);
+      if (busy.length > 0) continue;
+      const next: { id: string }[] = await em.query(
+        `SELECT id FROM background_job
+          WHERE unitId = ? AND (status = 'queued' OR (status = 'running' AND lockedAt < ${STALE} AND attempts < ${MAX_ATTEMPTS}))
+          ORDER BY createdAt ASC LIMIT 1 FOR UPDATE SKIP LOCKED`,
+        [unitId],
+      );
+      if (next.length === 0) continue;
+      await em.query(`UPDATE background_job SET status = 'running', lockedBy = ?, lockedAt = NOW(3), attempts = attempts + 1 WHERE id = ?`, [workerId, next[0].id]);
+      return em.getRepository(BackgroundJob).findOneByOrFail({ id: next[0].id });
+    }
+    return null;
   });
 }
 
-export async function reportProgress(ds: DataSource, jobId: string, progress: number, message?: string): Promise<void> {
-  await ds.getRepository(BackgroundJob).update({ id: jobId }, { progress: Math.max(0, Math.min(1, progress)), lockedAt: new Date(), ...(message !== undefined && { message }) });
+async function failJobsOfMissingUnit(em: EntityManager, unitId: string): Promise<void> {
+  await em.query(
+    `UPDATE background_job SET status = 'failed', message = 'The unit no longer exists', finishedAt = ?, lockedBy = NULL
+      WHERE unitId = ? AND (status = 'queued' OR (status = 'running' AND lockedAt < ${STALE}))`,
+    [new Date(), unitId],
+  );
 }
 
-export async function finishJob(ds: DataSource, jobId: string, outcome: { ok: true } | { ok: false; message: string }): Promise<void> {
-  await ds.getRepository(BackgroundJob).update(
-    { id: jobId },
-    { status: outcome.ok ? 'done' : 'failed', progress: outcome.ok ? 1 : undefined, message: outcome.ok ? null : outcome.message.slice(0, 500), finishedAt: new Date(), lockedBy: null },
+/** Ends failed every job whose lock went stale after its last allowed run, each in its own transaction. */
+async function giveUpExhaustedJobs(ds: DataSource, onGiveUp?: GiveUpHook): Promise<void> {
+  for (;;) {
+    const gaveUp = await ds.transaction('READ COMMITTED', async (em) => {
+      const rows: { id: string }[] = await em.query(
+        `SELECT id FROM background_job WHERE status = 'running' AND lockedAt < ${STALE} AND attempts >= ${MAX_ATTEMPTS}
+          ORDER BY createdAt ASC LIMIT 1 FOR UPDATE SKIP LOCKED`,
+      );
+      if (rows.length === 0) return false;
+      const job = await em.getRepository(BackgroundJob).findOneByOrFail({ id: rows[0].id });
+      const lastStep = job.message ? ` (last step: ${job.message})` : '';
+      const message = `Stopped after ${job.attempts} attempts that did not finish${lastStep}`.slice(0, 500);
+      await em.query(`UPDATE background_job SET status = 'failed', message = ?, finishedAt = ?, lockedBy = NULL WHERE id = ?`, [message, new Date(), job.id]);
+      await onGiveUp?.(em, { ...job, status: 'failed', message, lockedBy: null });
+      return true;
+    });
+    if (!gaveUp) return;
+  }
+}
+
+/** Progress of a running job; also renews its lock. Throws LostJobLockError when another worker holds it now. */
+export async function reportProgress(ds: DataSource | EntityManager, lease: JobLease, progress: number, message?: string): Promise<void> {
+  const fraction = Math.max(0, Math.min(1, Number.isFinite(progress) ? progress : 0));
+  const result = await ds.query(
+    `UPDATE background_job SET progress = ?, lockedAt = NOW(3)${message !== undefined ? ', message = ?' : ''} WHERE id = ? AND lockedBy = ? AND status = 'running'`,
+    message !== undefined ? [fraction, message.slice(0, 500), lease.id, lease.lockedBy] : [fraction, lease.id, lease.lockedBy],
   );
+  if (affectedRows(result) === 0) throw new LostJobLockError(lease.id);
+}
+
+/** Renews the lock of a job still held by this worker; false when it was taken over. */
+export async function renewLease(ds: DataSource, lease: JobLease): Promise<boolean> {
+  const result = await ds.query(`UPDATE background_job SET lockedAt = NOW(3) WHERE id = ? AND lockedBy = ? AND status = 'running'`, [lease.id, lease.lockedBy]);
+  return affectedRows(result) > 0;
+}
+
+/**
+ * Runs `work` in a transaction that holds the job's row, so no other worker can take the job over while it
+ * writes; throws LostJobLockError (and writes nothing) when the job is no longer this worker's.
+ */
+export async function withLease<T>(ds: DataSource, lease: JobLease, work: (em: EntityManager) => Promise<T>): Promise<T> {
+  return ds.transaction(async (em) => {
+    const held: unknown[] = await em.query(`SELECT id FROM background_job WHERE id = ? AND lockedBy = ? AND status = 'running' FOR UPDATE`, [lease.id, lease.lockedBy]);
+    if (held.length === 0) throw new LostJobLockError(lease.id);
+    await em.query('UPDATE background_job SET lockedAt = NOW(3) WHERE id = ?', [lease.id]);
+    return work(em);
+  });
+}
+
+/** Ends a job held by this worker; false (and nothing written) when another worker holds it now. */
+export async function finishJob(ds: DataSource, lease: JobLease, outcome: { ok: true } | { ok: false; message: string }): Promise<boolean> {
+  const result = outcome.ok
+    ? await ds.query(`UPDATE background_job SET status = 'done', progress = 1, message = NULL, finishedAt = ?, lockedBy = NULL WHERE id = ? AND lockedBy = ? AND status = 'running'`, [new Date(), lease.id, lease.lockedBy])
+    : await ds.query(`UPDATE background_job SET status = 'failed', message = ?, finishedAt = ?, lockedBy = NULL WHERE id = ? AND lockedBy = ? AND status = 'running'`, [outcome.message.slice(0, 500), new Date(), lease.id, lease.lockedBy]);
+  return affectedRows(result) > 0;
+}
+
+/** Rows changed by an UPDATE through TypeORM's MariaDB driver (an OkPacket, or [rows, OkPacket]). */
+function affectedRows(result: unknown): number {
+  const packet = Array.isArray(result) ? result[1] ?? result[0] : result;
+  return typeof packet === 'object' && packet !== null && 'affectedRows' in packet ? Number((packet as { affectedRows: number }).affectedRows) : 0;
 }
