@@ -1,7 +1,8 @@
-import type { DataSource } from 'typeorm';
+import type { DataSource, EntityManager } from 'typeorm';
 import type { UnitEventInput } from '@shared/schemas/unit-event.js';
+import { CleaningMethodRecord } from '../entities/cleaning-method.entity.js';
 import { UnitEvent } from '../entities/unit-event.entity.js';
-import { notFound } from '../http/app-error.js';
+import { badRequest, notFound } from '../http/app-error.js';
 import { enqueueRecompute } from '../jobs/job-queue.js';
 import type { TenantScope } from '../policies/tenant-scope.js';
 import { findUnit } from '../repositories/plant.repository.js';
@@ -25,6 +26,22 @@ export const eventView = (e: UnitEvent) => ({
 /** Events that change derived data: a cleaning restarts the trend, plugging changes the tube count. */
 const changesDerivedData = (kind: string) => kind === 'cleaning' || kind === 'tube-plugging';
 
+/** The method must be in the organisation's own library; its row stays locked until the event is saved. */
+async function assertMethodInLibrary(em: EntityManager, scope: TenantScope, methodId: string | null): Promise<void> {
+  if (methodId === null) return;
+  const found = await em
+    .getRepository(CleaningMethodRecord)
+    .createQueryBuilder('m')
+    .select('m.id')
+    .setLock('pessimistic_read')
+    .where('m.organisationId = :org AND m.methodKey = :key', { org: scope.organisationId, key: methodId })
+    .getOne();
+  if (!found) {
+    const message = 'Unknown cleaning method: choose one from your organisation’s library';
+    throw badRequest(message, { fieldErrors: [{ path: 'methodId', message }] });
+  }
+}
+
 export async function listEvents(ds: DataSource, scope: TenantScope, unitId: string) {
   if (!(await findUnit(ds.manager, scope, unitId))) throw notFound('No such unit');
   const rows = await ds.getRepository(UnitEvent).find({ where: { unitId, organisationId: scope.organisationId }, order: { startDate: 'ASC', createdAt: 'ASC' } });
@@ -34,6 +51,7 @@ export async function listEvents(ds: DataSource, scope: TenantScope, unitId: str
 export async function addEvent(ds: DataSource, scope: TenantScope, unitId: string, input: UnitEventInput) {
   if (!(await findUnit(ds.manager, scope, unitId))) throw notFound('No such unit');
   return ds.transaction(async (em) => {
+    await assertMethodInLibrary(em, scope, input.methodId);
     const saved = await em.getRepository(UnitEvent).save({
       organisationId: scope.organisationId,
       unitId,
@@ -56,6 +74,7 @@ async function eventInScope(ds: DataSource, scope: TenantScope, id: string): Pro
 export async function updateEvent(ds: DataSource, scope: TenantScope, id: string, input: UnitEventInput) {
   const e = await eventInScope(ds, scope, id);
   return ds.transaction(async (em) => {
+    await assertMethodInLibrary(em, scope, input.methodId);
     await em.getRepository(UnitEvent).update({ id }, { ...input, cost: input.cost === null ? null : input.cost.toFixed(2) });
     if (changesDerivedData(e.kind) || changesDerivedData(input.kind)) await enqueueRecompute(em, scope.organisationId, e.unitId, 'event changed');
     await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'event.updated', entityType: 'unit-event', entityId: id, details: { kind: input.kind } });
