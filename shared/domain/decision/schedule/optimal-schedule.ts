@@ -228,24 +228,28 @@ interface WalkOrder {
  * has the same choices).
  */
 function dropDominated<T extends WalkOrder>(group: T[], e: number, ageRule: boolean): T[] {
-  const runs: T[][] = [];
-  for (const walk of group) {
-    const last = runs.at(-1);
-    if (last && last[0].clockStart === walk.clockStart) last.push(walk);
-    else runs.push([walk]);
-  }
-  const kept: T[][] = [];
+  const keep = new Uint8Array(group.length);
   let bestYounger = Number.POSITIVE_INFINITY;
-  for (let r = runs.length - 1; r >= 0; r--) {
-    let front: T[] = [];
-    for (const walk of runs[r]) if (front.length === 0 || walk.cost < front[front.length - 1].cost) front.push(walk);
-    const youngestReady = front.findLastIndex((w) => e >= w.firstStart);
-    if (youngestReady > 0) front = front.slice(youngestReady);
-    if (ageRule) front = front.filter((w) => w.cost < bestYounger);
-    kept.push(front);
-    for (const w of front) if (e >= w.firstStart && w.cost < bestYounger) bestYounger = w.cost;
+  for (let last = group.length - 1; last >= 0; ) {
+    let first = last;
+    while (first > 0 && group[first - 1].clockStart === group[last].clockStart) first--;
+    let olderMin = Number.POSITIVE_INFINITY;
+    for (let i = first; i <= last; i++) {
+      if (group[i].cost < olderMin) {
+        keep[i] = 1;
+        olderMin = group[i].cost;
+      }
+    }
+    let youngerReadyMin = Number.POSITIVE_INFINITY;
+    for (let i = last; i >= first; i--) {
+      const w = group[i];
+      if (youngerReadyMin < w.cost || (ageRule && w.cost >= bestYounger)) keep[i] = 0;
+      if (e >= w.firstStart && w.cost < youngerReadyMin) youngerReadyMin = w.cost;
+    }
+    if (youngerReadyMin < bestYounger) bestYounger = youngerReadyMin;
+    last = first - 1;
   }
-  return kept.reverse().flat();
+  return group.filter((_, i) => keep[i] === 1);
 }
 
 /**
