@@ -1,6 +1,6 @@
 /**
  * `calc schedule`: least-cost cleaning calendar over a horizon, the baseline, the business case, and optionally
- * the sensitivity and Monte Carlo (ENGINEERING.md §6–7). Contract in docs/calc-cli-decision.md.
+ * the sensitivity and Monte Carlo (ENGINEERING.md §6–7). Contract in README.md, "Decision commands".
  */
 import type { CalcCommand } from '../run-calc.js';
 import { calcScheduleInput, type CalcScheduleInput } from '@shared/schemas/calc-schedule.js';
