@@ -34,9 +34,9 @@ export const cleaningMethodSchema = z
     id: z.string().regex(/^[a-z0-9][a-z0-9-]{0,59}$/, 'lower-case letters, digits and dashes'),
     name: z.string().min(1).max(120),
     /** money per cleaning, whatever the size */
-    fixedCost: z.number().finite().nonnegative(),
+    fixedCost: z.number().finite().nonnegative().max(1e9, 'The fixed cost must be between 0 and 1,000,000,000'),
     /** money per tube cleaned (active tubes) */
-    costPerTube: z.number().finite().nonnegative(),
+    costPerTube: z.number().finite().nonnegative().max(10_000, 'The cost per tube must be between 0 and 10,000'),
     /** whole days the cleaning takes */
     durationDays: z.number().int().min(1).max(60),
     unitDuringCleaning: z.enum(UNIT_DURING_CLEANING),

@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { cleanlinessFactor, count, within } from './bounded-number.js';
+import { MAX_TUBE_COUNT } from '../limits.js';
 
 export const UNIT_EVENT_KINDS = ['cleaning', 'tube-plugging', 'air-leak-repair', 'outage', 'other'] as const;
 
@@ -10,10 +12,10 @@ export const unitEventInput = z
     startDate: isoDate,
     endDate: isoDate.nullable().default(null),
     methodId: z.string().max(64).nullable().default(null),
-    cost: z.number().min(0).max(1e10).nullable().default(null),
-    cleanlinessBefore: z.number().gt(0).max(1.2).nullable().default(null),
-    cleanlinessAfter: z.number().gt(0).max(1.2).nullable().default(null),
-    pluggedTubesAfter: z.number().int().min(0).nullable().default(null),
+    cost: within('the cost', 0, 1e10).nullable().default(null),
+    cleanlinessBefore: cleanlinessFactor('the cleanliness before').nullable().default(null),
+    cleanlinessAfter: cleanlinessFactor('the cleanliness after').nullable().default(null),
+    pluggedTubesAfter: count('the plugged tube count', 0, MAX_TUBE_COUNT).nullable().default(null),
     notes: z.string().max(2000).nullable().default(null),
   })
   .strict()

@@ -6,6 +6,17 @@ import multer from 'multer';
 import { MAX_UPLOAD_BYTES } from '@shared/limits.js';
 import { AppError } from './app-error.js';
 
+const UPLOAD_UNREADABLE = 'The upload was cut off or is incomplete, so nothing was stored: upload the file again';
+
+const MULTER_MESSAGES: Partial<Record<multer.ErrorCode, string>> = {
+  LIMIT_FILE_COUNT: 'Upload one file at a time',
+  LIMIT_UNEXPECTED_FILE: 'Send the file in the form field named "file", one file at a time',
+  LIMIT_FIELD_COUNT: 'The upload carries too many form fields: send only the file',
+  LIMIT_PART_COUNT: 'The upload carries too many parts: send only the file',
+  LIMIT_FIELD_KEY: 'A form field name in the upload is too long',
+  LIMIT_FIELD_VALUE: 'A form field in the upload is too long',
+};
+
 /** One file in the field "file", streamed to disk (never held in memory), at most MAX_UPLOAD_BYTES. */
 export function singleFileUpload(uploadDir: string): RequestHandler {
   mkdirSync(uploadDir, { recursive: true });
@@ -26,11 +37,13 @@ export function singleFileUpload(uploadDir: string): RequestHandler {
         }
         return next();
       }
+      // Multer removes a partly written file itself; the message is ours, never the parser's.
       if (err instanceof multer.MulterError) {
         if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, `The file is larger than ${MAX_UPLOAD_BYTES / 1024 / 1024} MB`));
-        return next(new AppError(400, `The upload could not be read: ${err.message}`));
+        return next(new AppError(400, MULTER_MESSAGES[err.code] ?? UPLOAD_UNREADABLE));
       }
-      next(err);
+      req.log?.warn({ err }, 'upload refused: the form could not be read');
+      next(new AppError(400, UPLOAD_UNREADABLE));
     });
 }
 
