@@ -72,6 +72,28 @@ describe('a multipart upload that is cut off before its end', () => {
   });
 });
 
+describe('an upload that is not a readable table', () => {
+  const LIBRARY_TEXT = /Cannot read|undefined|FILE_ENDED|invalid distance|Error:|errno/i;
+
+  it.each([
+    ['a workbook cut short', 'cut.xlsx', () => Buffer.concat([Buffer.from([0x50, 0x4b, 0x03, 0x04]), Buffer.alloc(3000, 0x41)]), /not a readable XLSX workbook/],
+    ['binary data named .csv', 'binary.csv', () => {
+      const b = Buffer.alloc(4096);
+      let x = 11;
+      for (let i = 0; i < b.length; i++) b[i] = x = (x * 1103515245 + 12345) & 0xff;
+      return b;
+    }, /binary data.*not CSV text/],
+  ])('%s answers 400 saying what is wrong in our words, and keeps no import and no file', async (_label, name, bytes, words) => {
+    const unit = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
+    const res = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', bytes(), name);
+    expect(res.status).toBe(400);
+    expect(res.body.error).toMatch(words);
+    expect(res.body.error).not.toMatch(LIBRARY_TEXT);
+    expect(await t.dataSource.getRepository(DataImport).countBy({ unitId: unit.id })).toBe(0);
+    expect(await readdir(tmp.file('uploads'))).toEqual([]);
+  });
+});
+
 describe('setup numbers outside a physical range', () => {
   const put = (unitId: string, part: string, body: object) => analyst.put(`/api/units/${unitId}/${part}`).set(CSRF).send(body);
 

@@ -17,15 +17,17 @@ export type ImportFileErrorCode =
   | 'bad-mapping'
   | 'column-not-found'
   | 'duplicate-column'
-  | 'file-changed';
+  | 'file-changed'
+  | 'unreadable-file';
 
 /** A problem with the file as a whole; nothing is imported. */
 export class ImportFileError extends Error {
   readonly code: ImportFileErrorCode;
   /** 1-based file line, when one line is to blame. */
   readonly line?: number;
-  constructor(code: ImportFileErrorCode, message: string, line?: number) {
-    super(message);
+  /** The message is ours; what a library said goes in `cause` (for the log), never in the message. */
+  constructor(code: ImportFileErrorCode, message: string, line?: number, cause?: unknown) {
+    super(message, cause === undefined ? undefined : { cause });
     this.name = 'ImportFileError';
     this.code = code;
     this.line = line;
@@ -33,6 +35,10 @@ export class ImportFileError extends Error {
 }
 
 /** One wrong cell or row. `value` is already truncated and safe to echo into a spreadsheet. */
+/** A workbook the XLSX reader cannot get through, whatever the library underneath said. */
+export const NOT_A_READABLE_WORKBOOK =
+  'the file is not a readable XLSX workbook: it may be damaged or cut short. Open it in your spreadsheet program, save it again as .xlsx (or as CSV) and upload that';
+
 export interface RowError {
   /** 1-based line of the file (CSV) or row number of the sheet (XLSX). */
   row: number;

@@ -20,7 +20,13 @@ export async function detectTableKind(filePath: string): Promise<TableKind> {
   }
 }
 
+/** Every failure is an ImportFileError in our words (the readers translate theirs; this catches the rest). */
 export async function openTable(filePath: string, options: CsvReadOptions & { kind?: TableKind } = {}): Promise<RawTable> {
-  const kind = options.kind ?? (await detectTableKind(filePath));
-  return kind === 'xlsx' ? openXlsxTable(filePath, options) : openCsvTable(filePath, options);
+  try {
+    const kind = options.kind ?? (await detectTableKind(filePath));
+    return await (kind === 'xlsx' ? openXlsxTable(filePath, options) : openCsvTable(filePath, options));
+  } catch (e) {
+    if (e instanceof ImportFileError) throw e;
+    throw new ImportFileError('unreadable-file', 'the file could not be read: upload it again', undefined, e);
+  }
 }

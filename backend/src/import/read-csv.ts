@@ -121,14 +121,21 @@ export async function openCsvTable(filePath: string, options: CsvReadOptions = {
     rouse();
   });
 
+  /** Line of the last row handed out: a quote that never closes opened on the line after it. */
+  let lastLine = 0;
   const translate = (e: unknown): Error => {
+    if (e instanceof ImportFileError) return e;
     const err = e as Error & { code?: unknown; lines?: unknown };
     const line = typeof err.lines === 'number' ? err.lines : undefined;
     if (err.code === 'CSV_MAX_RECORD_SIZE') return lineTooLong(line ?? 0, maxLine);
-    if (e instanceof CsvError) {
-      return new ImportFileError('malformed-csv', `the CSV cannot be read at line ${line ?? '?'}: ${err.message}`, line);
+    if (err.code === 'CSV_QUOTE_NOT_CLOSED') {
+      return new ImportFileError('malformed-csv', `a quote opened on line ${lastLine + 1} is never closed: check the quotes on that line`, lastLine + 1, e);
     }
-    return err;
+    if (e instanceof CsvError) {
+      const where = line ?? lastLine + 1;
+      return new ImportFileError('malformed-csv', `the CSV cannot be read at line ${where}: its quotes or delimiters do not form a table`, where, e);
+    }
+    return new ImportFileError('unreadable-file', 'the file could not be read to its end: upload it again', undefined, e);
   };
   /** The next run of rows (up to `max`), or null at the end of the file. */
   const nextChunk = async (max: number): Promise<RawRow[] | null> => {
@@ -142,6 +149,7 @@ export async function openCsvTable(filePath: string, options: CsvReadOptions = {
         for (const c of cells) chars += c.length;
         if (chars > maxLine) throw lineTooLong(item.info.lines, maxLine);
         out.push({ line: item.info.lines, cells });
+        lastLine = item.info.lines;
       }
       if (out.length > 0) return out;
       if (failure) throw translate(failure);

@@ -7,7 +7,7 @@
 import { createReadStream } from 'node:fs';
 import { open, stat } from 'node:fs/promises';
 import ExcelJS from 'exceljs';
-import { ImportFileError } from './import-errors.js';
+import { ImportFileError, NOT_A_READABLE_WORKBOOK } from './import-errors.js';
 import { CHUNK_ROWS, HEADER_SEARCH_ROWS, MAX_LINE_CHARS, readHeaderBlock, tableFrom, type RawRow, type RawTable } from './raw-table.js';
 
 const MS_PER_DAY = 86_400_000;
@@ -62,18 +62,22 @@ export async function openXlsxTable(filePath: string, options: XlsxReadOptions =
   });
   const sheets = reader[Symbol.asyncIterator]();
   let rowIterator: AsyncIterator<ExcelJS.Row> | null = null;
+  let sawSheet = false;
   let width = 0;
   const close = async () => {
     input.destroy();
   };
-  const broken = (e: unknown) =>
-    e instanceof ImportFileError ? e : new ImportFileError('not-xlsx', `the workbook cannot be read: ${(e as Error).message ?? String(e)}`);
+  const broken = (e: unknown) => (e instanceof ImportFileError ? e : new ImportFileError('not-xlsx', NOT_A_READABLE_WORKBOOK, undefined, e));
 
   const next = async (): Promise<RawRow | null> => {
     try {
       if (!rowIterator) {
         const sheet = await sheets.next();
-        if (sheet.done) return null;
+        if (sheet.done) {
+          if (sawSheet) return null;
+          throw new ImportFileError('not-xlsx', 'the file is a ZIP archive but holds no worksheet: is it an XLSX workbook? Save it again from your spreadsheet program as .xlsx and upload that');
+        }
+        sawSheet = true;
         rowIterator = sheet.value[Symbol.asyncIterator]();
       }
       for (;;) {
