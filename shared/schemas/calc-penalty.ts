@@ -1,5 +1,6 @@
 /** `calc penalty` contract (ENGINEERING.md §8). */
 import { z } from 'zod';
+import { BACKPRESSURE_BOUNDS_KPA } from '../domain/validity/rejection-reasons.js';
 
 /** A number field with messages that name the unit. */
 const num = (unit: string) =>
@@ -25,12 +26,18 @@ export const correctionCurveSchema = z
   })
   .strict();
 
+/** A backpressure a condenser may read: 0.7–50 kPa(a), the bounds of a measured point (BACKPRESSURE_BOUNDS_KPA). */
+const backpressure = (name: string) =>
+  num('kPa absolute')
+    .min(BACKPRESSURE_BOUNDS_KPA.min, `${name} must be ${BACKPRESSURE_BOUNDS_KPA.min}–${BACKPRESSURE_BOUNDS_KPA.max} kPa absolute, the range a condenser may read`)
+    .max(BACKPRESSURE_BOUNDS_KPA.max, `${name} must be ${BACKPRESSURE_BOUNDS_KPA.min}–${BACKPRESSURE_BOUNDS_KPA.max} kPa absolute, the range a condenser may read`);
+
 export const calcPenaltyInput = z
   .object({
     loadFraction: num('fraction of rating').positive('loadFraction must be positive').max(1.2, 'loadFraction is a fraction of rating, at most 1.2'),
     ratingMw: num('MW').positive('ratingMw must be positive (MW)'),
-    backpressureKpa: num('kPa absolute').positive('backpressureKpa must be positive (kPa absolute)'),
-    referenceBackpressureKpa: num('kPa absolute').positive('referenceBackpressureKpa must be positive (kPa absolute)'),
+    backpressureKpa: backpressure('backpressureKpa'),
+    referenceBackpressureKpa: backpressure('referenceBackpressureKpa'),
     heatRateBtuKwh: num('Btu/kWh').positive('heatRateBtuKwh must be positive (Btu/kWh)'),
     fuelPricePerMmbtu: num('per MMBtu').min(0, 'fuelPricePerMmbtu cannot be negative'),
     replacementPricePerMwh: num('per MWh'),

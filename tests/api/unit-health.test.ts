@@ -6,7 +6,7 @@
 import ExcelJS from 'exceljs';
 import type TestAgent from 'supertest/lib/agent.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { backpressureAtCleanlinessKpa } from '@shared/domain/condenser/index.js';
+import { analyseCondenserPoint, backpressureAtCleanlinessKpa } from '@shared/domain/condenser/index.js';
 import { addDays, daysBetween } from '@shared/domain/decision/calendar/plant-date.js';
 import { analyseSample, buildUnitModel, type UnitSetupSi } from '@shared/domain/monitoring/index.js';
 import { drainJobs } from '../../backend/src/jobs/job-worker.js';
@@ -90,6 +90,15 @@ function mainHistory(): WitnessRow[] {
   const frozen = median(rows.slice(STUCK_DAY * H, (STUCK_DAY + 1) * H).map((r) => r.backpressureKpa));
   for (let h = STUCK_DAY * H; h < (STUCK_DAY + 1) * H; h++) refreshCells(Object.assign(rows[h], { backpressureKpa: frozen }));
   return rows;
+}
+
+/** Hours of the frozen-transmitter day whose measured cleanliness is above the plausible 1.3 (common practice band). */
+function frozenImplausibleHours(): number {
+  const hours = mainHistory().slice(STUCK_DAY * H, (STUCK_DAY + 1) * H);
+  return hours.filter((r) => {
+    const point = analyseCondenserPoint({ ...r, pluggedTubes: TEST_CONDENSER.pluggedTubes, geometry: geometryOf(TEST_CONDENSER), referenceCleanliness: TEST_CONDENSER.designCleanliness });
+    return point.cleanliness > 1.3;
+  }).length;
 }
 
 /** The /daily row as JSON (MariaDB doubles come back as numbers, tinyint as 0/1, json columns as text). */
@@ -266,7 +275,9 @@ describe('condenser health API', () => {
         if (i >= LEAK_FROM_DAY && i < LEAK_FROM_DAY + LEAK_DAYS) {
           // derived (§3): unexplained = p_measured − P(S5) with S5 at the trend CF, here P(CF − 0.08) − P(CF) > 0.
           expect(d.unexplainedKpa, d.day).toBeGreaterThan(0.2);
-        } else {
+        } else if (i !== STUCK_DAY) {
+          // The frozen-transmitter day is left aside: its hours read above 1.3 are left out (see data quality), so
+          // the hours above and below the frozen reading no longer balance there.
           expect(Math.abs(d.unexplainedKpa), d.day).toBeLessThan(0.05);
         }
       }
@@ -396,7 +407,7 @@ describe('condenser health API', () => {
       expect(july.airLeakPeriods).toEqual([]);
       expect(july.forecast).toEqual([]);
       expect(july.dataQuality.daysInPeriod).toBe(31);
-      expect(july.dataQuality.droppedByReason).toEqual({ 'rise-not-positive': NO_RISE_HOURS.length });
+      expect(july.dataQuality.droppedByReason).toEqual({ 'rise-not-positive': NO_RISE_HOURS.length, 'model:implausible-cleanliness': frozenImplausibleHours() });
       expect(july.events.map((e: { kind: string }) => e.kind)).toEqual(['cleaning']);
       // Weeks that start in late June still count only their July days.
       expect(july.breakdown[0].period).toBe('2024-07-01');
@@ -417,8 +428,15 @@ describe('condenser health API', () => {
       expect(q.pointsUsed).toBe(sum(daily.map((d) => d.pointsUsed)));
       expect(q.pointsDropped).toBe(sum(daily.map((d) => d.pointsDropped)));
       expect(q.pointsUsed + q.pointsDropped).toBe(DAYS * H);
-      expect(q.droppedByReason).toEqual({ 'low-load': LOW_LOAD_HOURS.length, 'rise-not-positive': NO_RISE_HOURS.length });
+      expect(q.droppedByReason).toEqual({ 'low-load': LOW_LOAD_HOURS.length, 'rise-not-positive': NO_RISE_HOURS.length, 'model:implausible-cleanliness': frozenImplausibleHours() });
       expect(byDay.get(addDays(FIRST_DAY, 10))!.droppedByReason).toEqual({ 'low-load': 3 });
+    });
+
+    it('leaves out, with its reason, the frozen-transmitter hours whose cleanliness reads above the plausible 1.3', () => {
+      // The frozen reading puts the cool hours' outlet within a whisker of saturation: a tiny TTD, a huge LMTD-based U.
+      expect(frozenImplausibleHours()).toBeGreaterThan(0);
+      expect(byDay.get(STUCK_DATE)!.droppedByReason).toEqual({ 'model:implausible-cleanliness': frozenImplausibleHours() });
+      expect(health.warnings).toEqual([expect.stringMatching(new RegExp(`^${frozenImplausibleHours()} points left out: cleanliness outside 0.2–1.3`))]);
     });
 
     it('names the backpressure sensor that read the same value all day, and no other', () => {

@@ -4,7 +4,7 @@
  * data quality. Everything comes from the stored daily aggregates and the unit's last analysis.
  */
 import type { DataSource } from 'typeorm';
-import { backpressureAtCleanlinessKpa } from '@shared/domain/condenser/index.js';
+import { backpressureAtCleanlinessKpa, expectedWithinBounds, PLAUSIBLE_CLEANLINESS } from '@shared/domain/condenser/index.js';
 import { fitFoulingTrend } from '@shared/domain/decision/fouling/fouling-trend.js';
 import { addDays } from '@shared/domain/decision/calendar/plant-date.js';
 import { lttb, type AirLeakPeriod } from '@shared/domain/monitoring/index.js';
@@ -50,6 +50,14 @@ export interface DailyRow {
   heatBalanceDutyMw: number | null;
   stuckSensors: string[] | null;
 }
+
+/** Points the models left out as implausible, in the words the view shows. */
+const IMPLAUSIBLE_WORDS = {
+  'implausible-cleanliness': `cleanliness outside ${PLAUSIBLE_CLEANLINESS.min}–${PLAUSIBLE_CLEANLINESS.max}; check the surface, tube count and clean coefficient in the setup, or the instruments.`,
+  // Velocity and pressure bands are named, not quoted, so the words hold in the person's units (US or SI).
+  'implausible-velocity': 'tube velocity outside its plausible band (a wrong CW flow, tube count or number of passes); check them in the setup.',
+  'expected-out-of-range': 'the model’s backpressure lies outside the range a condenser may read; check the setup (design duty, CW flow, surface, tube count).',
+} as const;
 
 const dayText = (d: unknown) => (typeof d === 'string' ? d.slice(0, 10) : (d as Date).toISOString().slice(0, 10));
 const json = <T>(v: unknown): T | null => (v === null || v === undefined ? null : typeof v === 'string' ? (JSON.parse(v) as T) : (v as T));
@@ -129,16 +137,28 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
   const lastSampleUtc = lastSample[0]?.ts ? new Date(lastSample[0].ts).toISOString() : null;
 
   const c = unit.condenser;
-  const designModelKpa = c
-    ? backpressureAtCleanlinessKpa({
-        geometry: { surfaceM2: c.surfaceM2, tubeCount: c.tubeCount, passes: c.passes, tubeOdMm: c.tubeOdMm, tubeBwg: c.tubeBwg, tubeMaterial: c.tubeMaterial },
-        cwInletC: c.designCwInletC,
-        cwFlowM3s: c.designCwFlowM3s,
-        dutyMw: c.designDutyMw,
-        pluggedTubes: c.designPluggedTubes,
-        cleanliness: c.designCleanliness,
-      })
-    : null;
+  const warnings: string[] = [];
+  let designModelKpa: number | null = null;
+  if (c) {
+    // The stored setup may be one the form would refuse today: the view then says so instead of failing.
+    try {
+      designModelKpa = expectedWithinBounds(
+        () =>
+          backpressureAtCleanlinessKpa({
+            geometry: { surfaceM2: c.surfaceM2, tubeCount: c.tubeCount, passes: c.passes, tubeOdMm: c.tubeOdMm, tubeBwg: c.tubeBwg, tubeMaterial: c.tubeMaterial },
+            cwInletC: c.designCwInletC,
+            cwFlowM3s: c.designCwFlowM3s,
+            dutyMw: c.designDutyMw,
+            pluggedTubes: c.designPluggedTubes,
+            cleanliness: c.designCleanliness,
+          }),
+        c.designCleanliness,
+        'the design point',
+      );
+    } catch {
+      warnings.push('The design point cannot be modelled with this setup: the model’s backpressure there lies outside the range a condenser may read. Check the design duty, CW flow, surface and tube count.');
+    }
+  }
 
   // The forecast band: the latest cycle refitted on its daily medians (air-leak days left out).
   let forecast: { day: string; cleanliness: number; low: number; high: number }[] = [];
@@ -146,8 +166,13 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
   if (lastDay && trendFit && trendFit.status === 'fitted' && (!to || to >= lastDay)) {
     const start = String(trendFit.startDay);
     const points = withData.filter((d) => d.day >= start && !d.airLeakSuspected && d.medianCleanliness !== null).map((d) => ({ day: daysBetween(start, d.day), cleanliness: d.medianCleanliness! }));
-    const fit = fitFoulingTrend({ points, cleanlinessAfterCleaning: trendFit.cleanlinessAfterCleaning as number, forecastDays: 120 });
-    if (fit.status === 'fitted') {
+    let fit: ReturnType<typeof fitFoulingTrend> | null = null;
+    try {
+      fit = fitFoulingTrend({ points, cleanlinessAfterCleaning: trendFit.cleanlinessAfterCleaning as number, forecastDays: 120 });
+    } catch {
+      warnings.push('The fouling forecast could not be drawn from the stored trend; recompute the unit.');
+    }
+    if (fit?.status === 'fitted') {
       const lastOffset = daysBetween(start, lastDay);
       forecast = fit.forecast.filter((f) => f.day > lastOffset).map((f) => ({ day: addDays(start, f.day), cleanliness: f.cleanliness, low: f.low, high: f.high }));
       trendFit = { ...trendFit, bandProbability: fit.bandProbability };
@@ -185,6 +210,11 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
   const stuck: Record<string, string[]> = {};
   for (const d of period) for (const s of d.stuckSensors ?? []) (stuck[s] ??= []).push(d.day);
 
+  for (const [reason, words] of Object.entries(IMPLAUSIBLE_WORDS)) {
+    const n = dropped[`model:${reason}`] ?? 0;
+    if (n > 0) warnings.push(`${n.toLocaleString('en-US')} points left out: ${words}`);
+  }
+
   const leaks = (analysis?.airLeakPeriods ?? []).filter((p) => (!from || p.to >= from) && (!to || p.from <= to));
   const econ = unit.economics;
   return {
@@ -217,6 +247,7 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
     breakdown,
     events: events.filter((e) => (!from || (e.endDate ?? e.startDate) >= from) && (!to || e.startDate <= to)),
     airLeakPeriods: leaks.map((p) => ({ ...p, note: 'Cleaning would not recover this: find and seal the air in-leakage (and check the instruments).' })),
+    warnings,
     dataQuality: {
       daysInPeriod: period.length,
       daysWithValidData: period.filter((d) => d.pointsUsed > 0).length,

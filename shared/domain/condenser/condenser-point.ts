@@ -4,11 +4,12 @@
  * cleanliness factor, and the expected backpressure at a reference cleanliness.
  */
 import { liquidCpKjKgK, liquidDensityKgM3, saturationTemperatureC } from '../steam/index.js';
-import { PointRejectedError } from '../validity/rejection-reasons.js';
+import { BACKPRESSURE_BOUNDS_KPA, PointRejectedError } from '../validity/rejection-reasons.js';
 import { DEFAULT_HEI_TABLES, type HeiTables } from './hei-tables.js';
 import { activeSurfaceM2, tubeInsideDiameterM, tubeVelocityMs, type CondenserGeometry } from './geometry.js';
 import { cleanCoefficientFromConstant, inletTemperatureFactorWarning } from './clean-coefficient.js';
 import { backpressureAtCleanlinessKpa, checkedGeometryConstant, modelBackpressureKpa } from './expected-backpressure.js';
+import { implausibleResults, type ImplausibleResult } from './plausibility.js';
 
 export interface CondenserPointInput {
   backpressureKpa: number;
@@ -47,6 +48,8 @@ export interface CondenserPointResult {
   uCleanScale: number;
   /** Where U_clean comes from. */
   uCleanBasis: string;
+  /** Results outside their plausibility band: the point is kept out of trends and daily medians. */
+  implausible: ImplausibleResult[];
   warnings: string[];
 }
 
@@ -58,6 +61,29 @@ function inRange(name: string, v: number, lo: number, hi: number, unit: string):
   if (!(v >= lo && v <= hi)) throw new PointRejectedError('out-of-range', `${name} = ${v} ${unit} is outside ${lo}–${hi} ${unit}`, name);
 }
 
+/**
+ * The model's expected backpressure, refused (with the point) when it lies outside the range a measured
+ * backpressure may have: such a result means the setup or an instrument is wrong, and would price absurd costs.
+ */
+export function expectedWithinBounds(model: () => number, cleanliness: number, what = 'expected backpressure'): number {
+  const { min, max } = BACKPRESSURE_BOUNDS_KPA;
+  let kpa: number;
+  try {
+    kpa = model();
+  } catch (err) {
+    if (!(err instanceof RangeError)) throw err;
+    kpa = Number.POSITIVE_INFINITY;
+  }
+  if (!(kpa >= min && kpa <= max)) {
+    const shown = Number.isFinite(kpa) ? `${kpa.toPrecision(4)} kPa` : 'beyond the steam tables';
+    throw new PointRejectedError(
+      'expected-out-of-range',
+      `${what} at cleanliness ${cleanliness.toFixed(2)} is ${shown}, outside ${min}–${max} kPa, the range a measured backpressure may have: check the setup (surface, tube count, clean coefficient) or the instruments`,
+    );
+  }
+  return kpa;
+}
+
 export function analyseCondenserPoint(input: CondenserPointInput): CondenserPointResult {
   const { backpressureKpa: p, cwInletC: t1, cwOutletC: t2, cwFlowM3s, pluggedTubes, geometry, referenceCleanliness } = input;
   const tables = input.heiTables ?? DEFAULT_HEI_TABLES;
@@ -66,7 +92,7 @@ export function analyseCondenserPoint(input: CondenserPointInput): CondenserPoin
   finite('cwOutletC', t2);
   finite('cwFlowM3s', cwFlowM3s);
   finite('referenceCleanliness', referenceCleanliness);
-  inRange('backpressureKpa', p, 0.7, 50, 'kPa');
+  inRange('backpressureKpa', p, BACKPRESSURE_BOUNDS_KPA.min, BACKPRESSURE_BOUNDS_KPA.max, 'kPa');
   inRange('cwInletC', t1, 0, 60, '°C');
   inRange('cwOutletC', t2, 0, 80, '°C');
   if (!(cwFlowM3s > 0)) throw new PointRejectedError('out-of-range', `cwFlowM3s must be positive, got ${cwFlowM3s}`, 'cwFlowM3s');
@@ -105,8 +131,17 @@ export function analyseCondenserPoint(input: CondenserPointInput): CondenserPoin
   const cleanliness = u / uClean;
   if (ttd < 1) warnings.push(`TTD ${ttd.toFixed(2)} K is below 1 K: usually an instrument problem (common practice)`);
 
-  const expected = modelBackpressureKpa(geometry, tables, cFm, t1, cwFlowM3s, dutyMw, pluggedTubes, referenceCleanliness, Number.NaN, uCleanScale);
-  const unplugged = pluggedTubes === 0 ? p : modelBackpressureKpa(geometry, tables, cFm, t1, cwFlowM3s, dutyMw, 0, cleanliness, Number.NaN, uCleanScale);
+  const expected = expectedWithinBounds(() => modelBackpressureKpa(geometry, tables, cFm, t1, cwFlowM3s, dutyMw, pluggedTubes, referenceCleanliness, Number.NaN, uCleanScale), referenceCleanliness);
+  const implausible = implausibleResults({ cleanliness, velocityMs: velocity });
+  for (const f of implausible) warnings.push(f.message);
+  let unplugged = p;
+  try {
+    if (pluggedTubes > 0) unplugged = modelBackpressureKpa(geometry, tables, cFm, t1, cwFlowM3s, dutyMw, 0, cleanliness, Number.NaN, uCleanScale);
+  } catch (err) {
+    // only an implausible cleanliness can push the unplugged model past the steam tables; it already carries its warning
+    if (!(err instanceof RangeError) || implausible.length === 0) throw err;
+    unplugged = Number.NaN;
+  }
 
   return {
     saturationC: ts,
@@ -128,6 +163,7 @@ export function analyseCondenserPoint(input: CondenserPointInput): CondenserPoin
     pluggedTubesEffectKpa: p - unplugged,
     uCleanScale,
     uCleanBasis: basis,
+    implausible,
     warnings,
   };
 }

@@ -12,9 +12,11 @@ export { backpressureAtCleanlinessKpa, cwRiseK, type BackpressureModelInput } fr
 export {
   analyseCondenserPoint,
   correctedBackpressureKpa,
+  expectedWithinBounds,
   type CondenserPointInput,
   type CondenserPointResult,
 } from './condenser-point.js';
+export { PLAUSIBLE_CLEANLINESS, PLAUSIBLE_TUBE_VELOCITY_MS, implausibleResults, type ImplausibleResult } from './plausibility.js';
 export { reconcileDuty, type DutyReconciliation } from './duty-reconciliation.js';
 export {
   deviationBreakdown,

@@ -2,8 +2,10 @@
  * Exhaust-pressure correction curves [pub: ASME PTC 6 practice]: % change of heat rate (or of
  * output) against exhaust pressure, one curve per load fraction. Monotone cubic in pressure, linear
  * in load fraction (clamped to the nearest curve outside the listed loads); flat below each curve's
- * first point (the choke point); straight continuation above the last point.
+ * first point (the choke point); straight continuation above the last point, with a warning, and never
+ * beyond the highest backpressure a measured point may have (no turbine runs there).
  */
+import { BACKPRESSURE_BOUNDS_KPA } from '../validity/rejection-reasons.js';
 import { buildMonotoneCubic, evaluateMonotoneCubic, type MonotoneCubic } from './monotone-cubic.js';
 
 export interface CorrectionCurve {
@@ -54,6 +56,11 @@ export function compileCorrectionCurve(curve: CorrectionCurve): CompiledCurve {
 export function curveChangePct(curve: CorrectionCurve, loadFraction: number, backpressureKpa: number): number {
   if (!Number.isFinite(loadFraction) || !(loadFraction > 0)) throw new RangeError(`loadFraction must be a positive number, got ${loadFraction}`);
   if (!(Number.isFinite(backpressureKpa) && backpressureKpa > 0)) throw new RangeError(`backpressureKpa must be a positive number, got ${backpressureKpa}`);
+  if (backpressureKpa > BACKPRESSURE_BOUNDS_KPA.max) {
+    throw new RangeError(
+      `backpressure ${+backpressureKpa.toPrecision(4)} kPa is above ${BACKPRESSURE_BOUNDS_KPA.max} kPa, the most a condenser point may read: the correction curve is not continued that far (check the setup: design duty, CW flow, surface)`,
+    );
+  }
   const { loads, cubics } = compileCorrectionCurve(curve);
   const n = loads.length;
   if (n === 1 || loadFraction <= loads[0]) return evaluateMonotoneCubic(cubics[0], backpressureKpa);
@@ -62,6 +69,19 @@ export function curveChangePct(curve: CorrectionCurve, loadFraction: number, bac
   while (loadFraction > loads[i]) i++;
   const w = (loadFraction - loads[i - 1]) / (loads[i] - loads[i - 1]);
   return (1 - w) * evaluateMonotoneCubic(cubics[i - 1], backpressureKpa) + w * evaluateMonotoneCubic(cubics[i], backpressureKpa);
+}
+
+/**
+ * The warning to show when a backpressure lies beyond the last point of the load curves read at this load:
+ * there the curve is continued in a straight line with its end slope, which the maker's data do not cover.
+ */
+export function curveExtrapolationWarning(curve: CorrectionCurve, loadFraction: number, backpressureKpa: number): string | undefined {
+  const { loads, cubics } = compileCorrectionCurve(curve);
+  const n = loads.length;
+  const used = n === 1 || loadFraction <= loads[0] ? [0] : loadFraction >= loads[n - 1] ? [n - 1] : [loads.findIndex((l) => l >= loadFraction) - 1, loads.findIndex((l) => l >= loadFraction)];
+  const lastKpa = Math.min(...used.map((i) => cubics[i].xs[cubics[i].xs.length - 1]));
+  if (!(backpressureKpa > lastKpa)) return undefined;
+  return `backpressure ${+backpressureKpa.toPrecision(4)} kPa is beyond the correction curve's last point (${+lastKpa.toPrecision(4)} kPa at load ${loadFraction}): the curve is continued in a straight line there`;
 }
 
 /** Output change with firing held, from a heat-rate change: ΔkW% = −ΔHR%/(1 + ΔHR%/100) [derived]. */

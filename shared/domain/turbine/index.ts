@@ -3,6 +3,7 @@ export {
   type PenaltyBetween,
   compileCorrectionCurve,
   curveChangePct,
+  curveExtrapolationWarning,
   heatRateChangePct,
   penaltyBetween,
   outputChangeFromHeatRatePct,

@@ -1,4 +1,4 @@
-export { REJECTION_REASONS, PointRejectedError, type RejectionReason } from './rejection-reasons.js';
+export { REJECTION_REASONS, BACKPRESSURE_BOUNDS_KPA, PointRejectedError, type RejectionReason } from './rejection-reasons.js';
 export {
   checkPointValidity,
   DEFAULT_POINT_RANGES,

@@ -4,7 +4,7 @@
  * Steadiness defaults [common practice]: load change within ±30 min ≤ 2 % of rating; load ≥ 40 % of rating.
  */
 import { saturationTemperatureC } from '../steam/index.js';
-import { REJECTION_REASONS, type RejectionReason } from './rejection-reasons.js';
+import { BACKPRESSURE_BOUNDS_KPA, REJECTION_REASONS, type RejectionReason } from './rejection-reasons.js';
 
 export interface DataPoint {
   backpressureKpa: number;
@@ -34,7 +34,7 @@ export type ValidityResult = { valid: true } | { valid: false; reason: Rejection
 
 /** Default plausible ranges for a steam surface condenser point (common practice, generous). */
 export const DEFAULT_POINT_RANGES: Record<keyof DataPoint, { min: number; max: number }> = {
-  backpressureKpa: { min: 0.7, max: 50 },
+  backpressureKpa: { ...BACKPRESSURE_BOUNDS_KPA },
   cwInletC: { min: 0, max: 50 },
   cwOutletC: { min: 0, max: 70 },
   cwFlowM3s: { min: 0.01, max: 200 },

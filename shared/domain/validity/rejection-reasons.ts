@@ -10,7 +10,17 @@ export const REJECTION_REASONS = {
   'low-load': 'load is below the minimum for a valid point',
   'unsteady-load': 'load changed by more than the allowed share of rating within the steadiness window',
   'cw-pump-change': 'a circulating-water pump started or stopped within the steadiness window',
+  'expected-out-of-range': 'the expected backpressure is outside the range a measured backpressure may have: check the setup or the instruments',
+  'implausible-cleanliness': 'cleanliness is outside its plausible band: check the setup (surface, tube count, clean coefficient) or the instruments',
+  'implausible-velocity': 'tube velocity is outside its plausible band: check the CW flow, tube count and passes',
 } as const;
+
+/**
+ * The range a measured backpressure may have, kPa(a): a point outside it is refused, and so is a model's
+ * expected backpressure, and the turbine correction is never read beyond it [common practice, generous:
+ * condensers run at about 1.5–3.5 inHgA (5–12 kPa); turbines trip far below 50 kPa].
+ */
+export const BACKPRESSURE_BOUNDS_KPA = { min: 0.7, max: 50 } as const;
 
 export type RejectionReason = keyof typeof REJECTION_REASONS;
 

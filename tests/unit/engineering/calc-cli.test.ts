@@ -50,6 +50,23 @@ describe('calc CLI', () => {
     expect(r.warnings).toEqual(["correction curve: generic — replace with the turbine maker's curve"]);
   });
 
+  it('condenser-point: warns of a cleanliness outside 0.2–1.3 and refuses an expected backpressure above 50 kPa', () => {
+    const { status, body } = calc('condenser-point', [{ ...point, uCleanWm2K: 500 }, { ...point, uCleanWm2K: 300 }]);
+    expect(status).toBe(1);
+    const [warned, refused] = body as { warnings?: string[]; error?: string }[];
+    expect(warned.warnings).toEqual([expect.stringMatching(/cleanliness 3\.77 is outside 0\.2–1\.3/)]);
+    expect(refused.error).toMatch(/expected backpressure at cleanliness 0\.85 is 117\.\d kPa, outside 0\.7–50 kPa/);
+  });
+
+  it('penalty: warns beyond the correction curve\'s last point and refuses a backpressure above 50 kPa', () => {
+    const input = { loadFraction: 1, ratingMw: 300, referenceBackpressureKpa: 7, heatRateBtuKwh: 9500, fuelPricePerMmbtu: 3, replacementPricePerMwh: 60, co2PricePerTonne: 0, co2KgPerMmbtu: 53.06 };
+    const { status, body } = calc('penalty', [{ ...input, backpressureKpa: 20 }, { ...input, backpressureKpa: 4035 }]);
+    expect(status).toBe(1);
+    const [beyond, refused] = body as { warnings?: string[]; error?: string }[];
+    expect(beyond.warnings).toContainEqual(expect.stringMatching(/20 kPa is beyond the correction curve's last point/));
+    expect(refused.error).toMatch(/backpressureKpa must be 0\.7–50 kPa/);
+  });
+
   it('an unknown command and bad JSON give an error object and exit 1', () => {
     expect(calc('no-such-command', {}).status).toBe(1);
     const r = spawnSync('npx', ['tsx', 'backend/src/cli/calc.ts', 'saturation'], { cwd: ROOT, input: '{oops', encoding: 'utf8' });

@@ -6,7 +6,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { backpressureAtCleanlinessKpa } from '@shared/domain/condenser/index.js';
-import { analyseSample, blendedCostPerHour, buildUnitModel, type UnitModel } from '@shared/domain/monitoring/index.js';
+import { analyseSample, blendedCostPerHour, buildUnitModel, designPointKpa, type UnitModel } from '@shared/domain/monitoring/index.js';
+import { PointRejectedError } from '@shared/domain/validity/index.js';
 import type { CorrectionCurve } from '@shared/domain/turbine/index.js';
 import { MODEL, SETUP, sampleAt } from './monitoring-fixture.js';
 
@@ -117,7 +118,8 @@ describe('deviation breakdown of a sample', () => {
           trend: fc.double({ min: 0.5, max: 1, noNaN: true }),
           loadFraction: fc.double({ min: 0.45, max: 1, noNaN: true }),
           cwInletC: fc.double({ min: 8, max: 32, noNaN: true }),
-          cwFlowM3s: fc.double({ min: 11, max: 17, noNaN: true }),
+          // up to 16 m³/s: with 1,500 tubes plugged the tube velocity stays below the 4.5 m/s plausibility band
+          cwFlowM3s: fc.double({ min: 11, max: 16, noNaN: true }),
           pluggedTubes: fc.integer({ min: 0, max: 1500 }),
           dutyRatio: fc.double({ min: 0.95, max: 1.05, noNaN: true }),
         }),
@@ -175,5 +177,35 @@ describe('blended cost per hour', () => {
     expect(blendedCostPerHour(capacity, 1, onePct)).toBeCloseTo(capacityCost, 9);
     const mix = { ...worked, economics: { ...worked.economics, capacityLimitedShare: 0.3 } };
     expect(blendedCostPerHour(mix, 1, onePct)).toBeCloseTo(0.7 * 142.5 + 0.3 * capacityCost, 9);
+  });
+});
+
+describe('plausibility of a sample', () => {
+  const reasonOf = (run: () => unknown) => {
+    try {
+      run();
+    } catch (err) {
+      return err instanceof PointRejectedError ? err.reason : `not a rejection: ${String(err)}`;
+    }
+    return 'accepted';
+  };
+
+  it('leaves out a sample whose cleanliness is above 1.3 or below 0.2, with its reason', () => {
+    expect(reasonOf(() => analyseSample(MODEL, sampleAt(MODEL, { cleanliness: 1.45 }), PLUGGED))).toBe('implausible-cleanliness');
+    expect(reasonOf(() => analyseSample(MODEL, sampleAt(MODEL, { cleanliness: 0.15 }), PLUGGED))).toBe('implausible-cleanliness');
+    expect(reasonOf(() => analyseSample(MODEL, sampleAt(MODEL, { cleanliness: 1.2 }), PLUGGED))).toBe('accepted');
+  });
+
+  it('keeps a unit on one CW pump of two (about 1.5 m/s in the tubes) and leaves out a flow giving over 4.5 m/s', () => {
+    // derived: the fixture's flow area is (18,000 − 120)/2 tubes × π/4 × (23.98 mm)², about 4.04 m².
+    expect(reasonOf(() => analyseSample(MODEL, sampleAt(MODEL, { cleanliness: 0.85, cwFlowM3s: 6, loadFraction: 0.6 }), PLUGGED))).toBe('accepted');
+    expect(reasonOf(() => analyseSample(MODEL, sampleAt(MODEL, { cleanliness: 0.85, cwFlowM3s: 19 }), PLUGGED))).toBe('implausible-velocity');
+  });
+
+  it('leaves out every sample of a setup whose design point the model puts above 50 kPa (design duty of another unit)', () => {
+    const broken = buildUnitModel({ ...SETUP, condenser: { ...SETUP.condenser, designDutyMw: 5000 } });
+    expect(() => designPointKpa(broken)).toThrow(/design point at full load .* outside 0\.7–50 kPa/);
+    expect(reasonOf(() => analyseSample(broken, sampleAt(MODEL, { cleanliness: 0.85 }), PLUGGED))).toBe('expected-out-of-range');
+    expect(designPointKpa(MODEL)).toBeGreaterThan(3);
   });
 });

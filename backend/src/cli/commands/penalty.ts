@@ -2,7 +2,7 @@
 import Decimal from 'decimal.js';
 import type { CalcCommand } from '../run-calc.js';
 import { calcPenaltyInput, type CalcPenaltyOutput } from '@shared/schemas/calc-penalty.js';
-import { GENERIC_CORRECTION_CURVE, penaltyBetween, penaltyCostPerHour } from '@shared/domain/turbine/index.js';
+import { curveExtrapolationWarning, GENERIC_CORRECTION_CURVE, penaltyBetween, penaltyCostPerHour } from '@shared/domain/turbine/index.js';
 
 const cents = (x: number): number => new Decimal(x).toDecimalPlaces(2, Decimal.ROUND_HALF_UP).toNumber() || 0;
 
@@ -23,6 +23,10 @@ const command: CalcCommand = {
       replacementPricePerMwh: v.replacementPricePerMwh,
     });
     const warnings = curve.isGeneric ? [`correction curve: ${curve.label}`] : [];
+    for (const kpa of new Set([v.backpressureKpa, v.referenceBackpressureKpa])) {
+      const beyond = curveExtrapolationWarning(curve, v.loadFraction, kpa);
+      if (beyond) warnings.push(beyond);
+    }
     return {
       heatRatePenaltyPct: pen.heatRatePenaltyPct,
       outputPenaltyPct: pen.outputPenaltyPct,

@@ -5,8 +5,7 @@
  * Rows are read in id order in chunks, so memory stays bounded whatever the history length.
  */
 import type { DataSource } from 'typeorm';
-import { analyseCondenserPoint } from '@shared/domain/condenser/index.js';
-import { airLeakPeriods, analyseSample, buildUnitModel, judgeAirLeakDays, type UnitModel, type UnitSetupSi } from '@shared/domain/monitoring/index.js';
+import { airLeakPeriods, analyseSample, buildUnitModel, judgeAirLeakDays, plausibleCondenserPoint, designPointKpa, type UnitModel, type UnitSetupSi } from '@shared/domain/monitoring/index.js';
 import { PointRejectedError } from '@shared/domain/validity/index.js';
 import { GeneratingUnit } from '../../entities/generating-unit.entity.js';
 import { Plant } from '../../entities/plant.entity.js';
@@ -91,23 +90,22 @@ export async function recomputeUnit(ds: DataSource, unitId: string, onProgress: 
   }
   const plugged = pluggedTubesOn(events, unit.condenser!.pluggedTubes);
 
-  // Pass 1: measured cleanliness and the air in-leakage witnesses per plant-local day.
+  // Pass 1: measured cleanliness and the air in-leakage witnesses per plant-local day. A design point the model
+  // puts outside the range a condenser may read leaves every point out (pass 2 records why), so no trend either.
   await onProgress(0.05, 'Measuring cleanliness');
   const perDay = new Map<string, DayWitness>();
-  for await (const rows of validRows(ds, unitId)) {
+  let designInRange = true;
+  try {
+    designPointKpa(model);
+  } catch {
+    designInRange = false;
+  }
+  for await (const rows of designInRange ? validRows(ds, unitId) : []) {
     for (const r of rows) {
       const day = dayOf(new Date(r.ts).getTime());
       try {
-        const p = analyseCondenserPoint({
-          backpressureKpa: r.backpressureKpa,
-          cwInletC: r.cwInletC,
-          cwOutletC: r.cwOutletC,
-          cwFlowM3s: r.cwFlowM3s,
-          pluggedTubes: plugged(day),
-          geometry: model.geometry,
-          referenceCleanliness: model.referenceCleanliness,
-          heiTables: model.heiTables,
-        });
+        // An implausible result (cleanliness, tube velocity, expected backpressure) keeps the point out of the daily medians.
+        const p = plausibleCondenserPoint(model, r, plugged(day));
         let w = perDay.get(day);
         if (!w) perDay.set(day, (w = { cf: [], subcooling: [], oxygen: [], air: [] }));
         w.cf.push(p.cleanliness);

@@ -106,6 +106,8 @@ export interface UnitHealth {
   breakdown: BreakdownBar[];
   events: HealthEvent[];
   airLeakPeriods: { from: string; to: string; maxDrop: number; evidence: AirLeakEvidence[]; note: string }[];
+  /** what in the stored setup or data keeps figures out (implausible results, a design point the model cannot reach) */
+  warnings: string[];
   dataQuality: {
     daysInPeriod: number;
     daysWithValidData: number;

@@ -14,7 +14,8 @@ const SENSOR_WORDS: Record<string, string> = {
 };
 
 const reasonWords = (code: string) => {
-  const text: string | undefined = REJECTION_REASONS[code as RejectionReason];
+  // Points the models refused after the import are stored as `model:<reason>`.
+  const text: string | undefined = REJECTION_REASONS[code.replace(/^model:/, '') as RejectionReason];
   return text ? text.charAt(0).toUpperCase() + text.slice(1) : code;
 };
 

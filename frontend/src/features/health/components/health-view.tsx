@@ -1,5 +1,6 @@
 import { lazy, Suspense, useEffect, useState, type ReactNode } from 'react';
 import { useSearchParams } from 'react-router-dom';
+import { Notice } from '@frontend/components/ui/notice';
 import { ErrorState, LoadingState } from '@frontend/components/ui/query-state';
 import type { FieldUnits } from '@frontend/lib/field-units';
 import { formatDateTime } from '@frontend/lib/format';
@@ -72,6 +73,15 @@ export function HealthView({ organisationId, unit, units, cannotWrite, progress 
       {progress}
       {justAdded && !progress && <p className="text-sm text-ok" role="status">Cleaning recorded; the figures below include it.</p>}
       <HealthHeadlineStrip headline={h.headline} units={units} currency={unit.currency} timeZone={unit.timeZone} now={Date.now()} />
+      {h.warnings.length > 0 && (
+        <Notice tone="warn">
+          <ul className="flex flex-col gap-1" data-testid="health-warnings">
+            {h.warnings.map((w) => (
+              <li key={w}>{w}</li>
+            ))}
+          </ul>
+        </Notice>
+      )}
 
       <div className="flex flex-col gap-2">
         <PeriodPicker selection={selection} shown={h.period} onChange={choose} />
