@@ -5,7 +5,7 @@ import { Membership } from '../entities/membership.entity.js';
 import { Organisation } from '../entities/organisation.entity.js';
 import { User } from '../entities/user.entity.js';
 import { DEMO_ORGANISATIONS, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people.js';
-import { seedDemoUnits } from './demo-units-seed.js';
+import { seedDemoUnits, type DemoDay } from './demo-units-seed.js';
 import { seedTypicalMethods } from '../services/cleaning-method.service.js';
 
 export interface DemoSignIn {
@@ -27,9 +27,10 @@ export function demoSignIns(): DemoSignIn[] {
 
 /**
  * Seeds the demo scenario when the database holds no organisation yet: people and organisations, and with
- * `withData` the demo plants, units and their imported history. Returns true when it seeded.
+ * `withData` the demo plants, units and their imported history up to the day before `day` (each plant's
+ * yesterday by default). Returns true when it seeded.
  */
-export async function seedDemoIfEmpty(dataSource: DataSource, log: (line: string) => void = () => {}, withData = true): Promise<boolean> {
+export async function seedDemoIfEmpty(dataSource: DataSource, log: (line: string) => void = () => {}, withData = true, day: DemoDay = {}): Promise<boolean> {
   if ((await dataSource.getRepository(Organisation).count()) > 0) return false;
   log('Empty database: seeding the demo scenario');
   const passwordHash = await hashPassword(DEMO_PASSWORD);
@@ -59,6 +60,6 @@ export async function seedDemoIfEmpty(dataSource: DataSource, log: (line: string
       }
     }
   });
-  if (withData) await seedDemoUnits(dataSource, log);
+  if (withData) await seedDemoUnits(dataSource, log, day);
   return true;
 }

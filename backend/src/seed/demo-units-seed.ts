@@ -1,6 +1,7 @@
 /**
  * Demo plants and units with several years of hourly data, brought in through the same import pipeline a
- * user's file takes (upload record → mapping → check → store → recompute). Prices are DEMO VALUES.
+ * user's file takes (upload record → mapping → check → store → recompute). The history ends the day before the
+ * plant's today, so the demo looks current whenever it is seeded. Prices are DEMO VALUES.
  */
 import { mkdtemp, rm } from 'node:fs/promises';
 import os from 'node:os';
@@ -70,11 +71,19 @@ function setupOf(set: DemoFileSet): { condenser: CondenserSetup; turbine: Turbin
   };
 }
 
-export async function seedDemoUnits(ds: DataSource, log: (line: string) => void): Promise<void> {
+/** When the demo is made: a fixed day for every plant (tests), or each plant's own today at `now` (the clock by default). */
+export interface DemoDay {
+  today?: string;
+  now?: Date;
+  /** Only these demo units (by key); all of them by default. */
+  units?: string[];
+}
+
+export async function seedDemoUnits(ds: DataSource, log: (line: string) => void, day: DemoDay = {}): Promise<void> {
   const dir = await mkdtemp(path.join(os.tmpdir(), 'cleancase-demo-'));
   try {
-    log('Generating the demo historian files (hourly, 2023–2025)…');
-    const sets = await writeDemoFileSets(dir, { xlsx: false });
+    log('Generating the demo historian files (hourly, the three years up to yesterday)…');
+    const sets = await writeDemoFileSets(dir, { xlsx: false, today: day.today, now: day.now, units: day.units });
     for (const set of sets) {
       const organisation = await ds.getRepository(Organisation).findOneByOrFail({ name: set.plant.organisation });
       const admin = await ds.getRepository(Membership).findOneByOrFail({ organisationId: organisation.id, role: 'admin' });

@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
-import { readFile } from 'node:fs/promises';
+import { mkdir, readFile } from 'node:fs/promises';
+import { DateTime } from 'luxon';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analyseCondenserPoint, backpressureAtCleanlinessKpa } from '@shared/domain/condenser/index.js';
 import { saturationTemperatureC } from '@shared/domain/steam/index.js';
@@ -28,12 +29,17 @@ afterAll(async () => {
   await tmp.cleanup();
 });
 
+/** The day the tests make the demo on: the story then plays on the dates it is written in (2023–2025). */
+const TODAY = '2026-01-01';
+
 const generated = new Map<string, DemoUnitData>();
-/** The default-seed data of a unit, generated once per test file. */
+/** The default-seed data of a unit made on TODAY, generated once per test file. */
 const dataOf = (key: string): DemoUnitData => {
-  if (!generated.has(key)) generated.set(key, generateDemoUnitData(demoUnit(key)));
+  if (!generated.has(key)) generated.set(key, generateDemoUnitData(demoUnit(key), { today: TODAY }));
   return generated.get(key)!;
 };
+/** The plant-local day of an hour of a unit's data. */
+const localDay = (data: DemoUnitData, ms: number) => DateTime.fromMillis(ms, { zone: data.timeZone }).toISODate();
 
 const sha256 = async (file: string) => createHash('sha256').update(await readFile(file)).digest('hex');
 
@@ -80,9 +86,9 @@ describe('demo data generator', () => {
     const a = tmp.file('a.csv');
     const b = tmp.file('b.csv');
     const c = tmp.file('c.csv');
-    await writeDemoCsv(generateDemoUnitData(unit, 7), a);
-    await writeDemoCsv(generateDemoUnitData(unit, 7), b);
-    await writeDemoCsv(generateDemoUnitData(unit, 8), c);
+    await writeDemoCsv(generateDemoUnitData(unit, { today: TODAY, seed: 7 }), a);
+    await writeDemoCsv(generateDemoUnitData(unit, { today: TODAY, seed: 7 }), b);
+    await writeDemoCsv(generateDemoUnitData(unit, { today: TODAY, seed: 8 }), c);
     expect(await sha256(a)).toBe(await sha256(b));
     expect(await sha256(c)).not.toBe(await sha256(a));
   });
@@ -102,7 +108,7 @@ describe('demo data generator', () => {
       expect(data.cleanings.length).toBe(u.plannedOutages.filter((o) => o.cleaning).length);
       for (const c of data.cleanings) {
         expect(c.cfAfter).toBeGreaterThan(c.cfBefore + 0.15);
-        expect(u.plannedOutages.some((o) => o.start <= c.date && c.date <= o.end)).toBe(true);
+        expect(data.unit.plannedOutages.some((o) => o.start <= c.date && c.date <= o.end)).toBe(true);
       }
     }
   });
@@ -133,6 +139,62 @@ describe('demo data generator', () => {
     expect(mean(inLeak.map((h) => h.airRemovalKgS))).toBeGreaterThan(3 * mean(nearby.map((h) => h.airRemovalKgS)));
     expect(mean(inLeak.map(unexplained))).toBeGreaterThan(0.3);
     expect(Math.abs(mean(nearby.map(unexplained)))).toBeLessThan(0.05);
+  });
+});
+
+describe('the demo made on a given day', () => {
+  const LATER = '2026-12-02';
+
+  it.each(['harrow-creek-1', 'fenwick-ridge-1'])('%s made on 2 Dec 2026 ends with the hour before midnight of 1 Dec on the plant’s clock and starts 1,096 days earlier', (key) => {
+    const data = generateDemoUnitData(demoUnit(key), { today: LATER });
+    const first = DateTime.fromMillis(data.hours[0].timestampUtc, { zone: data.timeZone });
+    const last = DateTime.fromMillis(data.hours.at(-1)!.timestampUtc, { zone: data.timeZone });
+    expect(last.toISODate()).toBe('2026-12-01');
+    expect(last.hour).toBe(23);
+    expect(first.toISODate()).toBe(DateTime.fromISO(LATER).minus({ days: 1096 }).toISODate());
+    expect(first.hour).toBe(0);
+    // one row an hour throughout
+    for (let i = 1; i < data.hours.length; i++) expect(data.hours[i].timestampUtc - data.hours[i - 1].timestampUtc).toBe(3_600_000);
+  });
+
+  it('plays the same story moved: cleanings, outages and the air leak keep their distance from the end', () => {
+    const written = dataOf('harrow-creek-1');
+    const moved = generateDemoUnitData(demoUnit('harrow-creek-1'), { today: LATER });
+    const days = DateTime.fromISO(LATER).diff(DateTime.fromISO(TODAY), 'days').days;
+    const plus = (day: string) => DateTime.fromISO(day).plus({ days }).toISODate();
+    expect(moved.cleanings.map((c) => [c.date, c.method, c.cfAfter])).toEqual(written.cleanings.map((c) => [plus(c.date), c.method, c.cfAfter]));
+    expect(moved.outages).toEqual(written.outages.map((o) => ({ ...o, start: plus(o.start), end: plus(o.end) })));
+    expect([moved.airLeak.start, moved.airLeak.end]).toEqual([plus(written.airLeak.start), plus(written.airLeak.end)]);
+    // the hours of the leak and of the outages are where the moved dates say
+    const leakDays = new Set(moved.hours.filter((h) => h.truth.airLeak).map((h) => localDay(moved, h.timestampUtc)));
+    expect([...leakDays].sort()).toEqual(Array.from({ length: leakDays.size }, (_, i) => DateTime.fromISO(moved.airLeak.start).plus({ days: i }).toISODate()));
+    for (const o of moved.outages) {
+      const inside = moved.hours.filter((h) => { const d = localDay(moved, h.timestampUtc)!; return d >= o.start && d <= o.end; });
+      expect(inside.length).toBeGreaterThan(0);
+      expect(inside.every((h) => h.truth.offline)).toBe(true);
+    }
+  });
+
+  it('with the same seed and day gives the same rows; on another day, the rows of other dates', () => {
+    const a = generateDemoUnitData(demoUnit('saltmarsh-point-1'), { today: LATER });
+    const b = generateDemoUnitData(demoUnit('saltmarsh-point-1'), { today: LATER });
+    expect(b.hours).toEqual(a.hours);
+    expect(a.hours[0].timestampUtc).not.toBe(dataOf('saltmarsh-point-1').hours[0].timestampUtc);
+  });
+
+  it('made at one instant, ends each plant’s history with the day before that plant’s own today', async () => {
+    // 05:30 UTC on 2 Dec 2026: still 1 Dec in Chicago (CST = UTC−6), already 2 Dec in Berlin (CET = UTC+1)
+    const dir = tmp.file('at-an-instant');
+    await mkdir(dir);
+    const sets = await writeDemoFileSets(dir, { now: new Date('2026-12-02T05:30:00Z'), units: ['harrow-creek-1', 'fenwick-ridge-1'] });
+    expect(sets.map((s) => [s.data.unit.key, localDay(s.data, s.data.hours.at(-1)!.timestampUtc)])).toEqual([
+      ['harrow-creek-1', '2026-11-30'],
+      ['fenwick-ridge-1', '2026-12-01'],
+    ]);
+  });
+
+  it('refuses a day that is not a calendar day', () => {
+    expect(() => generateDemoUnitData(demoUnit('harrow-creek-1'), { today: '2026-13-01' })).toThrow(/not a calendar day/);
   });
 });
 
@@ -192,7 +254,7 @@ describe('demo files through the import pipeline', () => {
 
 describe('demo file sets for the seed', () => {
   it('writes one CSV per unit whose mapping is valid, names the file’s columns and matches what the guesser proposes', async () => {
-    const sets = await writeDemoFileSets(tmp.dir);
+    const sets = await writeDemoFileSets(tmp.dir, { today: TODAY });
     expect(sets.map((s) => s.data.unit.key)).toEqual(DEMO_UNITS.map((u) => u.key));
     for (const set of sets) {
       const mapping = importMappingSchema.parse(set.csvMapping);

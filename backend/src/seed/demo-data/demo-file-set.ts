@@ -3,6 +3,7 @@ import path from 'node:path';
 import type { ImportMappingInput } from '@shared/schemas/import-mapping.js';
 import { DEMO_SCENARIO_SEED, DEMO_UNITS, demoPlant, type DemoPlant } from './demo-scenario.js';
 import { generateDemoUnitData, type DemoUnitData } from './generate-demo-data.js';
+import { plantToday } from './demo-calendar.js';
 import { demoImportMapping, writeDemoCsv, writeDemoXlsx } from './demo-files.js';
 
 export interface DemoFileSet {
@@ -14,10 +15,22 @@ export interface DemoFileSet {
   xlsxMapping?: ImportMappingInput;
 }
 
-export async function writeDemoFileSets(dir: string, options: { xlsx?: boolean; seed?: number } = {}): Promise<DemoFileSet[]> {
+export interface DemoFileSetOptions {
+  xlsx?: boolean;
+  seed?: number;
+  /** The day the demo is made on, for every plant (tests); without it, each plant's own today at `now`. */
+  today?: string;
+  now?: Date;
+  /** Only these units (by key); all of them by default. */
+  units?: string[];
+}
+
+export async function writeDemoFileSets(dir: string, options: DemoFileSetOptions = {}): Promise<DemoFileSet[]> {
   const sets: DemoFileSet[] = [];
-  for (const unit of DEMO_UNITS) {
-    const data = generateDemoUnitData(unit, options.seed ?? DEMO_SCENARIO_SEED);
+  const now = options.now ?? new Date();
+  for (const unit of DEMO_UNITS.filter((u) => !options.units || options.units.includes(u.key))) {
+    const today = options.today ?? plantToday(demoPlant(unit.plantKey).timeZone, now);
+    const data = generateDemoUnitData(unit, { today, seed: options.seed ?? DEMO_SCENARIO_SEED });
     const csvPath = path.join(dir, `${unit.key}.csv`);
     await writeDemoCsv(data, csvPath);
     const set: DemoFileSet = { plant: demoPlant(unit.plantKey), data, csvPath, csvMapping: demoImportMapping(data, 'csv') };

@@ -42,6 +42,7 @@ export interface DemoUnitSpec {
   seed: number;
 }
 
+/** The calendar the story below is written in; it is played moved to end the day before today (demo-calendar.ts). */
 export const DEMO_START_LOCAL = '2023-01-01';
 export const DEMO_END_LOCAL = '2026-01-01'; // exclusive
 export const DEMO_SCENARIO_SEED = 20_260_101;

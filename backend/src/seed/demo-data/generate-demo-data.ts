@@ -10,6 +10,9 @@
  * subcooling, dissolved oxygen and air-removal flow), sensor noise, and a few non-physical rows
  * (outlet at or below inlet, outlet above saturation, a stuck outlet sensor, a pressure spike).
  * No value is ever missing: the file stays importable, the bad rows get validity codes.
+ *
+ * The story is written for 2023–2025 and played moved so that it ends the day before the given "today"
+ * (demo-calendar.ts): the same seed and the same today give the same rows.
  */
 import { DateTime } from 'luxon';
 import { backpressureAtCleanlinessKpa, cwRiseK } from '@shared/domain/condenser/index.js';
@@ -17,6 +20,7 @@ import { liquidDensityKgM3, saturationTemperatureC } from '@shared/domain/steam/
 import { massFlowToKgS } from '../../import/quantity-conversion.js';
 import { DemoRandom, seedFromText } from './demo-random.js';
 import { DEMO_END_LOCAL, DEMO_SCENARIO_SEED, DEMO_START_LOCAL, demoPlant, type DemoUnitSpec } from './demo-scenario.js';
+import { demoShiftDays, shiftDay, shiftUnitDates } from './demo-calendar.js';
 
 export type DemoFault = 'outlet-not-above-inlet' | 'outlet-above-saturation' | 'stuck-outlet-sensor' | 'pressure-spike';
 
@@ -60,7 +64,14 @@ export interface DemoOutage {
   kind: 'planned' | 'forced';
 }
 
+export interface DemoGenerationOptions {
+  /** The plant-local day the demo is made on (YYYY-MM-DD): the history ends with the day before. */
+  today: string;
+  seed?: number;
+}
+
 export interface DemoUnitData {
+  /** The unit with its story's dates as played (moved to end the day before today). */
   unit: DemoUnitSpec;
   timeZone: string;
   hours: DemoHour[];
@@ -89,6 +100,7 @@ export function designBackpressureKpa(unit: DemoUnitSpec): number {
   });
 }
 
+/** Forced outages of the story as written (one a year, clear of the planned outages and the leak). */
 function forcedOutages(unit: DemoUnitSpec, rng: DemoRandom): DemoOutage[] {
   const out: DemoOutage[] = [];
   const startYear = Number(DEMO_START_LOCAL.slice(0, 4));
@@ -115,16 +127,17 @@ export function foulingCleanliness(unit: DemoUnitSpec, cf0: number, days: number
   return 1 / (1 / cf0 + k * (1 - Math.exp(-days / unit.fouling.timeConstantDays)));
 }
 
-export function generateDemoUnitData(unit: DemoUnitSpec, scenarioSeed = DEMO_SCENARIO_SEED): DemoUnitData {
+export function generateDemoUnitData(written: DemoUnitSpec, options: DemoGenerationOptions): DemoUnitData {
+  const shift = demoShiftDays(options.today);
+  const unit = shiftUnitDates(written, shift);
   const plant = demoPlant(unit.plantKey);
   const zone = plant.timeZone;
-  const rng = new DemoRandom(seedFromText(unit.key, scenarioSeed + unit.seed));
-  const startMs = DateTime.fromISO(DEMO_START_LOCAL, { zone }).toMillis();
-  const endMs = DateTime.fromISO(DEMO_END_LOCAL, { zone }).toMillis();
+  const rng = new DemoRandom(seedFromText(unit.key, (options.seed ?? DEMO_SCENARIO_SEED) + unit.seed));
+  const startMs = DateTime.fromISO(shiftDay(DEMO_START_LOCAL, shift), { zone }).toMillis();
+  const endMs = DateTime.fromISO(shiftDay(DEMO_END_LOCAL, shift), { zone }).toMillis();
   const rating = unit.turbine.ratingMw;
-  const outages: DemoOutage[] = [...unit.plannedOutages.map((o) => ({ start: o.start, end: o.end, kind: 'planned' as const })), ...forcedOutages(unit, rng)].sort(
-    (a, b) => a.start.localeCompare(b.start),
-  );
+  const forced = forcedOutages(written, rng).map((o) => ({ ...o, start: shiftDay(o.start, shift), end: shiftDay(o.end, shift) }));
+  const outages: DemoOutage[] = [...unit.plannedOutages.map((o) => ({ start: o.start, end: o.end, kind: 'planned' as const })), ...forced].sort((a, b) => a.start.localeCompare(b.start));
   const cleaningByEnd = new Map(unit.plannedOutages.filter((o) => o.cleaning).map((o) => [o.end, o.cleaning!]));
   const airLeakStartUtc = DateTime.fromISO(unit.airLeak.start, { zone }).toMillis();
   const airLeakEndUtc = DateTime.fromISO(unit.airLeak.end, { zone }).plus({ days: 1 }).toMillis();

@@ -10,6 +10,8 @@ export {
   type DemoCleaning,
   type DemoOutage,
   type DemoFault,
+  type DemoGenerationOptions,
 } from './generate-demo-data.js';
+export { demoShiftDays, plantToday, shiftDay } from './demo-calendar.js';
 export { writeDemoCsv, writeDemoXlsx, demoImportMapping, excelSerialLocal, DEMO_FILE_COLUMNS } from './demo-files.js';
-export { writeDemoFileSets, type DemoFileSet } from './demo-file-set.js';
+export { writeDemoFileSets, type DemoFileSet, type DemoFileSetOptions } from './demo-file-set.js';
