@@ -10,6 +10,7 @@ import {
   type ImportQuantity,
   type ImportMappingInput,
 } from '@shared/schemas/import-mapping.js';
+import { cwFlowToM3s, dissolvedOxygenToPpb, massFlowToKgS, powerToMw, pressureToKpa, temperatureToC } from './quantity-conversion.js';
 import { looksLikeDateTime } from './raw-table.js';
 
 export { importMappingSchema, type ImportMapping, type ImportMappingInput } from '@shared/schemas/import-mapping.js';
@@ -43,6 +44,8 @@ export function normaliseHeader(header: string): string {
     .replace(/[°º]\s*/g, ' deg')
     .replace(/³/g, '3')
     .replace(/δp|Δp/gi, ' dp ')
+    .replace(/%/g, ' pct ')
+    .replace(/(?<!\d)\.|\.(?!\d)/g, ' ')
     .replace(/[()[\]{},;:_|"'#]/g, ' ')
     .replace(/\s*\/\s*/g, '/')
     .replace(/\s+/g, ' ')
@@ -90,9 +93,33 @@ const IN = /\b(in|inlet|supply|intake|entering|inl)\b/;
 const OUT = /\b(out|outlet|discharge|return|leaving|outl)\b/;
 const TEMP = /\b(temp|temperature|t|deg[fc]?)\b/;
 
+/**
+ * Words that name a quantity Cleancase does not import: a header with one of them is never proposed, whatever else
+ * it says ("Hotwell lvl in" is a level in inches, not a hotwell temperature).
+ */
+const OTHER_QUANTITIES: [RegExp, string][] = [
+  [/\b(level|lvl|lev)\b/, 'a level'],
+  [/\b(position|pos|valve|vlv|opening|damper)\b/, 'a valve or damper position'],
+  [/\bpct\b|\bpercent\b/, 'a percentage'],
+  [/\b(speed|rpm)\b/, 'a speed'],
+  [/\b(current|amps?)\b/, 'an electric current'],
+  [/\bmvars?\b|\bkvars?\b|\breactive\b/, 'reactive power'],
+  [/\b(kv|volts?|voltage)\b/, 'a voltage'],
+  [/\b(hz|frequency)\b/, 'a frequency'],
+  [/\b(vib|vibration)\b|\bmils?\b|\bmm\/s\b/, 'a vibration'],
+  [/\bconductivity\b|\bµs\/cm\b|\bus\/cm\b|\bph\b|\bsodium\b/, 'a water chemistry reading other than dissolved oxygen'],
+  [/\b(setpoint|set point|sp)\b/, 'a setpoint'],
+  [/\b(status|alarm|mode|count|hours|hrs|run ?time)\b/, 'a status or counter'],
+];
+
+function otherQuantityOf(n: string): string | null {
+  for (const [re, what] of OTHER_QUANTITIES) if (re.test(n)) return what;
+  return null;
+}
+
 /** Quantity from the header words, in the order the tests are tried (most specific first). */
 function quantityFromWords(n: string): GuessedQuantity | null {
-  if (/\b(time ?stamp|date ?time|date|time|zeit|datum)\b/.test(n) && !/\b(run|up|down) ?time\b/.test(n)) return 'timestamp';
+  if (/\b(time ?stamp|t?stamp|ts|date ?time|date|time|zeit|zeitstempel|datum)\b/.test(n) && !/\b(run|up|down) ?time\b/.test(n)) return 'timestamp';
   if (/\bbarom|\bbaro\b|\batmospheric|\bambient press|\batm press/.test(n)) return 'barometer';
   if (/\bhot ?well\b|\bcondensate temp/.test(n)) return 'hotwellTemperature';
   if (/\bdissolved (o2|oxygen)\b|\bdo\b|\bo2\b|\boxygen\b/.test(n)) return 'dissolvedOxygen';
@@ -100,7 +127,7 @@ function quantityFromWords(n: string): GuessedQuantity | null {
   if (/\bcondensate (pump )?flow\b|\bcond(ensate)? flow\b/.test(n) && !CW.test(n)) return 'condensateFlow';
   if (/\bdp\b|\bd\/p\b|\bdiff(erential)? ?press|\bdelta ?p\b|\bpress(ure)? drop\b/.test(n)) return 'cwDifferentialPressure';
   if (/\bvac(uum)?\b/.test(n)) return 'condenserVacuum';
-  if (/\bback ?pressure\b|\bbp\b|\bcond(enser)? (abs(olute)? )?press(ure)?\b|\bexhaust press|\bturbine exhaust\b|\bshell press|\bcondenser pressure\b/.test(n)) {
+  if (/\bback ?pressure\b|\bbp\b|\bcond(enser)? (abs(olute)? )?(press(ure)?|pr)\b|\bexh(aust)? (abs(olute)? )?(press(ure)?|pr)\b|\bturb(ine)? exh(aust)?\b|\bshell press|\bcondenser pressure\b/.test(n)) {
     return 'backpressure';
   }
   if (TEMP.test(n) || /\bdeg ?[fc]\b/.test(n)) {
@@ -142,6 +169,43 @@ function unitFromValues(quantity: GuessedQuantity, values: number[]): string | n
   return null;
 }
 
+/**
+ * What each quantity can physically be, in Cleancase's units (kPa absolute, °C, m³/s, kg/s, MW, ppb): wide bands
+ * that tell a temperature from a flow or a level, not operating limits [common practice, rough].
+ */
+const PLAUSIBLE_SI: Record<ImportQuantity, [min: number, max: number]> = {
+  grossLoad: [-50, 2_500],
+  backpressure: [0.5, 80],
+  condenserVacuum: [0, 105],
+  barometer: [60, 110],
+  cwInletTemperature: [-5, 60],
+  cwOutletTemperature: [-5, 75],
+  hotwellTemperature: [0, 95],
+  cwFlow: [0, 300],
+  dissolvedOxygen: [0, 20_000],
+  airRemovalFlow: [0, 10],
+  cwDifferentialPressure: [0, 300],
+  condensateFlow: [0, 3_000],
+};
+
+/** A value in a file unit in Cleancase's unit for the range check (a mass CW flow at 20 °C, close enough for it). */
+function toSi(quantity: ImportQuantity, value: number, unit: string): number {
+  if (PRESSURES.includes(quantity)) return pressureToKpa(value, unit);
+  if (TEMPERATURES.includes(quantity)) return temperatureToC(value, unit);
+  if (quantity === 'grossLoad') return powerToMw(value, unit);
+  if (quantity === 'cwFlow') return cwFlowToM3s(value, unit, 20);
+  if (quantity === 'dissolvedOxygen') return dissolvedOxygenToPpb(value, unit);
+  return massFlowToKgS(value, unit);
+}
+
+/** Whether the typical value of a column (its median) is something the quantity can be in that unit. */
+function plausible(quantity: ImportQuantity, unit: string, values: number[]): boolean {
+  if (values.length === 0) return true;
+  const [min, max] = PLAUSIBLE_SI[quantity];
+  const m = toSi(quantity, median(values), unit);
+  return m >= min && m <= max;
+}
+
 function guessTimestamp(samples: string[]): { format: 'iso-8601-offset' | 'local-text' | 'excel-serial'; dateOrder?: 'ymd' | 'mdy' | 'dmy'; confidence: number } | null {
   const texts = samples.map((s) => s.trim()).filter(Boolean);
   if (texts.length === 0) return null;
@@ -165,6 +229,9 @@ export function guessMapping(headers: string[], sampleRows: string[][] = [], opt
   const commaDecimals = sampleRows.some((r) => r.some((c) => /^-?\d+,\d+$/.test(c.trim()))) && !sampleRows.some((r) => r.some((c) => /^-?\d+\.\d+$/.test(c.trim())));
   const guesses: ColumnGuess[] = headers.map((header, index) => {
     const n = normaliseHeader(header);
+    const unmapped = (note?: string): ColumnGuess => ({ header, index, quantity: null, unit: null, confidence: 0, ...(note ? { note } : {}) });
+    const other = otherQuantityOf(n);
+    if (other) return unmapped(`the header names ${other}, which is not imported`);
     const fromUnit = unitFromHeader(n);
     let quantity = quantityFromWords(n);
     let confidence = 0;
@@ -178,23 +245,43 @@ export function guessMapping(headers: string[], sampleRows: string[][] = [], opt
       quantity = fromUnit.kinds[0];
       confidence = 0.35;
       note = 'guessed from the unit only';
+    } else if (quantity === null && fromUnit?.absolute && /\b(press(ure)?|pr|p)\b/.test(n)) {
+      // an absolute pressure that is not named a barometer: the condenser's
+      quantity = 'backpressure';
+      confidence = 0.45;
+      note = 'guessed from the absolute pressure unit';
     } else if (quantity) confidence = 0.6;
-    if (!quantity) return { header, index, quantity: null, unit: null, confidence: 0 };
+    if (!quantity) return unmapped();
     // a gauge reading named like a backpressure is a vacuum; an absolute unit on a "vacuum" column is a backpressure
     if (quantity === 'backpressure' && fromUnit?.unit === 'inHg' && !fromUnit.absolute && /\bvac/.test(n)) quantity = 'condenserVacuum';
     if (quantity === 'condenserVacuum' && fromUnit?.absolute) quantity = 'backpressure';
-    if (fromUnit && fromUnit.kinds.includes(quantity)) {
+    const values = numericValues(sampleRows, index, commaDecimals);
+    const units = IMPORT_QUANTITY_UNITS[quantity as ImportQuantity] as readonly string[];
+    if (fromUnit && !fromUnit.kinds.includes(quantity)) return unmapped(`the header's unit (${fromUnit.unit}) is not a unit of ${quantity}`);
+    if (fromUnit) {
       unit = fromUnit.unit;
       confidence = Math.max(confidence, 0.6) + 0.3;
     } else {
-      unit = unitFromValues(quantity, numericValues(sampleRows, index, commaDecimals));
+      unit = unitFromValues(quantity, values);
       if (unit) {
         confidence = Math.min(confidence, 0.5);
         note = 'unit guessed from the values';
       } else note = 'unit unknown: choose it';
     }
+    if (unit && units.includes(unit) && !plausible(quantity as ImportQuantity, unit, values)) {
+      return unmapped(`the values (typically ${median(values)}) are not a plausible ${quantity} in ${unit}`);
+    }
+    if (!unit && values.length > 0 && !units.some((u) => plausible(quantity as ImportQuantity, u, values))) {
+      return unmapped(`the values (typically ${median(values)}) are not a plausible ${quantity} in any unit`);
+    }
     return { header, index, quantity, unit, confidence: Math.round(confidence * 100) / 100, ...(note ? { note } : {}) };
   });
+
+  // no timestamp by its words: a column whose sample values are all date-times is taken, with a low confidence
+  if (!guesses.some((g) => g.quantity === 'timestamp')) {
+    const byValues = guesses.find((g) => g.quantity === null && !g.note && sampleRows.length > 0 && guessTimestamp(sampleRows.map((r) => r[g.index] ?? ''))?.format === 'local-text');
+    if (byValues) Object.assign(byValues, { quantity: 'timestamp', confidence: 0.5, note: 'taken as the timestamp from its values' });
+  }
 
   // one column per quantity: the most confident wins, the others are left for the user
   const best = new Map<GuessedQuantity, ColumnGuess>();
