@@ -48,6 +48,57 @@ export function normalQuantile(p: number): number {
   return x;
 }
 
+/**
+ * Student's t distribution function for a whole number of degrees of freedom, from the exact finite series of
+ * P(|T| ≤ t) with θ = atan(t/√ν) [pub: Abramowitz & Stegun, Handbook of Mathematical Functions, 26.7.3–26.7.4]:
+ * ν odd: (2/π)(θ + sinθ(cosθ + ⅔cos³θ + … )); ν even: sinθ(1 + ½cos²θ + (1·3)/(2·4)cos⁴θ + … ).
+ */
+export function studentTCdf(t: number, dof: number): number {
+  if (!(Number.isInteger(dof) && dof >= 1)) throw new Error("Student's t needs a whole number of degrees of freedom, at least 1");
+  const theta = Math.atan(Math.abs(t) / Math.sqrt(dof));
+  const sin = Math.sin(theta);
+  const cos2 = Math.cos(theta) ** 2;
+  let within: number;
+  if (dof % 2 === 1) {
+    let term = Math.cos(theta);
+    let sum = dof > 1 ? term : 0;
+    for (let j = 1; 2 * j <= dof - 3; j++) {
+      term *= (cos2 * (2 * j)) / (2 * j + 1);
+      sum += term;
+    }
+    within = (2 / Math.PI) * (theta + sin * sum);
+  } else {
+    let term = 1;
+    let sum = 1;
+    for (let j = 1; 2 * j <= dof - 2; j++) {
+      term *= (cos2 * (2 * j - 1)) / (2 * j);
+      sum += term;
+    }
+    within = sin * sum;
+  }
+  return t >= 0 ? 0.5 + within / 2 : 0.5 - within / 2;
+}
+
+/**
+ * Quantile of Student's t with `dof` degrees of freedom, by bisection on the distribution function to full
+ * double precision. For prediction bands from few points, where the normal quantile would be too narrow.
+ */
+export function studentTQuantile(p: number, dof: number): number {
+  if (!(p > 0 && p < 1)) throw new Error("Student's t quantile needs 0 < p < 1");
+  if (!(Number.isInteger(dof) && dof >= 1)) throw new Error("Student's t quantile needs a whole number of degrees of freedom, at least 1");
+  if (p === 0.5) return 0;
+  if (p < 0.5) return -studentTQuantile(1 - p, dof);
+  let lo = 0;
+  let hi = 1;
+  while (studentTCdf(hi, dof) < p) hi *= 2;
+  for (let i = 0; i < 200 && hi - lo > 1e-14 * hi; i++) {
+    const mid = (lo + hi) / 2;
+    if (studentTCdf(mid, dof) < p) lo = mid;
+    else hi = mid;
+  }
+  return (lo + hi) / 2;
+}
+
 /** Solves the small dense system A·x = b by Gaussian elimination with partial pivoting; null when singular. */
 export function solveLinear(a: readonly number[][], b: readonly number[]): number[] | null {
   const n = b.length;

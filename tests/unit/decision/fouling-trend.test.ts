@@ -96,3 +96,28 @@ describe('fouling trend fit', () => {
     expect(fitFoulingTrend({ points: pts })).toEqual(fitFoulingTrend({ points: pts }));
   });
 });
+
+describe('fouling forecast band with few points', () => {
+  it("is built with Student's t for n − k degrees of freedom: 1.812 for a 90 % band from 11 days of a one-parameter fit", () => {
+    // 11 days, linear fouling with CF0 given: one parameter (the rate), so 10 degrees of freedom.
+    const days = range(0, 10).map((i) => 2 * i);
+    const r = fitFoulingTrend({ points: synthetic({ model: 'linear', ratePerDay: 0.003 }, 0.9, days, 0.003, 5), cleanlinessAfterCleaning: 0.9, forecastDays: 30 });
+    if (r.status !== 'fitted') throw new Error('expected a fit');
+    expect(r.chosen.model.model).toBe('linear');
+    expect(r.chosen.parameterCount).toBe(1);
+    expect(r.pointsUsed).toBe(11);
+    expect(r.bandProbability).toBe(0.9);
+    // derived: in the fit space z = 1/CF the model is z = 1/CF0 + a·t, so s² = SSE/(n − 1) and the leverage of day d
+    // is d²/Σt²; the half-width over √(s²(1 + leverage)) is the quantile used.
+    const points = synthetic({ model: 'linear', ratePerDay: 0.003 }, 0.9, days, 0.003, 5);
+    const at = (d: number) => r.forecast.find((f) => f.day === d)!;
+    const sse = points.reduce((s, p) => s + (1 / p.cleanliness - 1 / at(p.day).cleanliness) ** 2, 0);
+    const s2 = sse / (points.length - 1);
+    const sumT2 = days.reduce((s, t) => s + t * t, 0);
+    for (const d of [10, 20, 50]) {
+      const half = 1 / at(d).low - 1 / at(d).cleanliness;
+      // pub: NIST/SEMATECH e-Handbook of Statistical Methods, §1.3.6.7.2: t(0.95, 10) = 1.812 (the normal quantile would be 1.645).
+      expect(half / Math.sqrt(s2 * (1 + (d * d) / sumT2))).toBeCloseTo(1.812, 3);
+    }
+  });
+});

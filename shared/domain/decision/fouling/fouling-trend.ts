@@ -16,7 +16,7 @@
  * start, then Levenberg–Marquardt (ml-levenberg-marquardt, analytic Jacobian) polishes all parameters.
  */
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
-import { invertMatrix, median, medianAbsoluteDeviation, normalQuantile, solveLinear } from '../statistics.js';
+import { invertMatrix, median, medianAbsoluteDeviation, solveLinear, studentTQuantile } from '../statistics.js';
 import {
   FOULING_MODEL_KINDS,
   foulingIndex,
@@ -281,7 +281,9 @@ function forecastOf(fit: RawFit, data: FitData, lastDay: number, probability: nu
     for (let a = 0; a < fit.k; a++) for (let b = 0; b < fit.k; b++) jtj[a][b] += g[a] * g[b];
   }
   const cov = invertMatrix(jtj);
-  const zq = normalQuantile(0.5 + probability / 2);
+  // Student's t for the n − k degrees of freedom of the residual variance: with 10–20 daily points the normal
+  // quantile would draw the band too narrow (t(0.95, 10) = 1.812 against 1.645).
+  const zq = studentTQuantile(0.5 + probability / 2, Math.max(1, n - fit.k));
   const out: ForecastDay[] = [];
   for (let day = 0; day <= Math.ceil(lastDay); day++) {
     const zHat = predictZ(fit, day);
