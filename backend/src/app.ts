@@ -14,6 +14,7 @@ import type { Config } from './config.js';
 import { errorHandler } from './http/error-handler.js';
 import { notFound } from './http/app-error.js';
 import { mountRoutes, type RouteSpec } from './http/route-registry.js';
+import { trustProxySetting } from './http/trust-proxy.js';
 import type { Logger } from './logger.js';
 import type { Mailer } from './mail/mailer.js';
 import type { SmtpSink } from './mail/smtp-sink.js';
@@ -57,7 +58,7 @@ export function createApp(deps: AppDeps): CleancaseApp {
   const { config, dataSource, logger } = deps;
   const app = express() as CleancaseApp;
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', trustProxySetting(config.TRUST_PROXY));
 
   app.use(
     helmet({

@@ -21,6 +21,11 @@ const schema = z.object({
   /** Run background jobs in this process (turn off on processes that should only serve requests). */
   JOB_WORKER: z.enum(['on', 'off']).default('on'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  /** Reverse proxies whose X-Forwarded-For names the client: off, a hop count, or their addresses/subnets (loopback, 10.0.0.0/8). */
+  TRUST_PROXY: z
+    .string()
+    .regex(/^\s*(off|\d{1,2}|(loopback|linklocal|uniquelocal|[0-9a-f.:]+(\/\d{1,3})?)(\s*,\s*(loopback|linklocal|uniquelocal|[0-9a-f.:]+(\/\d{1,3})?))*)\s*$/i, 'off, a hop count, or the proxies’ addresses and subnets such as loopback, 10.0.0.0/8 (never every address: any client could then choose its own)')
+    .default('off'),
 
   DB_HOST: z.string().default('127.0.0.1'),
   DB_PORT: z.coerce.number().int().min(1).max(65535).default(3307),

@@ -24,8 +24,8 @@ describe('sessions', () => {
     expect(cookie).not.toMatch(/Secure/i);
   });
 
-  it('adds Secure when the app is served over HTTPS', async () => {
-    const secure = await createTestApp({ COOKIE_SECURE: 'true' });
+  it('adds Secure when the app is served over HTTPS through a configured proxy', async () => {
+    const secure = await createTestApp({ COOKIE_SECURE: 'true', TRUST_PROXY: 'loopback' });
     try {
       const tenant2 = await createTenant(secure.dataSource, 'secure');
       const res = await request(secure.app).post('/api/session').set(CSRF).set('X-Forwarded-Proto', 'https').send({ email: tenant2.users.viewer.email, password: TEST_PASSWORD });

@@ -16,7 +16,7 @@ export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, an
       path: '/api/sign-up',
       access: 'public',
       tenantScoped: false,
-      rateLimit: signUpLimiter(),
+      rateLimit: signUpLimiter(ds),
       body: signUpRequest,
       description: 'Create an account and a new organisation on a free trial, and sign in',
       handler: async (req, res) => {
@@ -57,7 +57,7 @@ export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, an
       path: '/api/profile/password',
       access: 'signed-in',
       tenantScoped: false,
-      rateLimit: passwordChangeLimiter(),
+      rateLimit: passwordChangeLimiter(ds),
       body: passwordChange,
       description: 'Change your password; every other session ends, this one gets a new id, your API tokens are revoked',
       handler: async (req, res) => {
@@ -73,7 +73,7 @@ export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, an
       path: '/api/password-reset',
       access: 'public',
       tenantScoped: false,
-      rateLimit: resetLimiter(),
+      rateLimit: resetLimiter(ds),
       body: passwordResetRequest,
       description: 'E-mail a password reset link (same answer whether or not the account exists)',
       handler: async (req, res) => {
@@ -86,7 +86,7 @@ export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, an
       path: '/api/password-reset/confirm',
       access: 'public',
       tenantScoped: false,
-      rateLimit: resetConfirmLimiter(),
+      rateLimit: resetConfirmLimiter(ds),
       body: passwordResetConfirm,
       description: 'Set a new password with a reset link; every session of the account ends',
       handler: async (req, res) => {

@@ -27,7 +27,7 @@ export function invitationRoutes(ds: DataSource, mailer: Mailer, config: Config,
       access: 'members.manage',
       tenantScoped: true,
       allowsPrivilegedFields: true,
-      rateLimit: inviteLimiter(),
+      rateLimit: inviteLimiter(ds),
       body: inviteRequest,
       description: 'Invite someone by e-mail with a role, optionally limited to client groups',
       handler: async (req, res) => {

@@ -39,7 +39,7 @@ export function sessionRoutes(ds: DataSource, auth: passport.PassportStatic, ans
       path: '/api/session',
       access: 'public',
       tenantScoped: false,
-      rateLimit: signInLimiter(),
+      rateLimit: signInLimiter(ds),
       body: signInRequest,
       description: 'Sign in with e-mail and password (new session id)',
       handler: async (req, res) => {
