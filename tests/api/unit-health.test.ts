@@ -464,6 +464,20 @@ describe('condenser health API', () => {
       });
     });
 
+    it('downsamples cleanliness with 2 % of the hours refused (low load) without scoring them as 0: no empty hour among the 2,000', async () => {
+      const gappy = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
+      const hours = 90 * H;
+      const rowsWithGaps = physicalHistory({ startUtc: START_UTC, hours, condenser: TEST_CONDENSER, turbine: TEST_TURBINE, loadAt: (h) => (h % 50 === 7 ? 0.3 : 0.88) * TEST_TURBINE.ratingMw });
+      await importInto(gappy, 'gappy', rowsWithGaps);
+      await drain();
+      const res = (await analyst.get(`/api/units/${gappy.id}/samples`).query({ from: FIRST_DAY, to: addDays(FIRST_DAY, 89), quantity: 'cleanliness' }).expect(200)).body;
+      expect(res.total).toBe(hours);
+      expect(res.points).toHaveLength(2000);
+      // Each output point stands for about an hour here, so a single refused hour is no visible gap.
+      expect(res.points.filter((p: { cleanliness: number | null }) => p.cleanliness === null)).toHaveLength(0);
+      expect(Math.min(...res.points.map((p: { cleanliness: number }) => p.cleanliness))).toBeGreaterThan(0.8);
+    });
+
     it('downsamples a longer window of more than 2,000 points to exactly 2,000, keeping the first, the last and a one-hour spike', async () => {
       const longUnit = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
       const hours = 90 * H;

@@ -7,7 +7,7 @@ import type { DataSource } from 'typeorm';
 import { backpressureAtCleanlinessKpa, expectedWithinBounds, PLAUSIBLE_CLEANLINESS } from '@shared/domain/condenser/index.js';
 import { fitFoulingTrend } from '@shared/domain/decision/fouling/fouling-trend.js';
 import { addDays } from '@shared/domain/decision/calendar/plant-date.js';
-import { lttb, type AirLeakPeriod } from '@shared/domain/monitoring/index.js';
+import { lttbKeepingGaps, type AirLeakPeriod } from '@shared/domain/monitoring/index.js';
 import { MAX_SERIES_POINTS } from '@shared/limits.js';
 import { BREAKDOWN_CAUSES, type HealthQuery } from '@shared/schemas/health.js';
 import { GeneratingUnit } from '../entities/generating-unit.entity.js';
@@ -198,7 +198,7 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
       airLeakSuspected: d.airLeakSuspected,
     };
   });
-  const downsampled = series.length > MAX_SERIES_POINTS ? lttb(series, MAX_SERIES_POINTS, (p) => Date.parse(p.day), (p) => p.cleanliness ?? 0) : series;
+  const downsampled = series.length > MAX_SERIES_POINTS ? lttbKeepingGaps(series, MAX_SERIES_POINTS, (p) => Date.parse(p.day), (p) => p.cleanliness) : series;
 
   const breakdown = breakdownByPeriod(period, q.breakdownBy);
 
@@ -287,6 +287,7 @@ export async function unitSamples(ds: DataSource, scope: TenantScope, unitId: st
       const day = fmt.format(new Date(p.t));
       return day >= q.from && day <= q.to;
     });
-  const sampled = points.length > MAX_SERIES_POINTS ? lttb(points, MAX_SERIES_POINTS, (p) => Date.parse(p.t), (p) => Number((p as Record<string, unknown>)[cols[0]] ?? 0)) : points;
+  const first = (p: (typeof points)[number]) => (p as Record<string, unknown>)[cols[0]] as number | null;
+  const sampled = points.length > MAX_SERIES_POINTS ? lttbKeepingGaps(points, MAX_SERIES_POINTS, (p) => Date.parse(p.t), first) : points;
   return { quantity: q.quantity, columns: cols, total: points.length, points: sampled };
 }

@@ -39,3 +39,72 @@ export function lttb<T>(points: readonly T[], threshold: number, x: (p: T) => nu
   sampled.push(points[points.length - 1]);
   return sampled;
 }
+
+/**
+ * LTTB for a series with missing values: a missing value is never scored (as 0 or anything else). A gap at least
+ * one output bucket long is kept as one empty point (its first), so a chart breaks its line there; shorter gaps are
+ * invisible at the output's resolution and are left out. The runs between kept gaps share the remaining points in
+ * proportion to their length (at least one each) and are downsampled on their own, so a run never reaches across
+ * a gap. At or below the threshold the input comes back unchanged.
+ */
+export function lttbKeepingGaps<T>(points: readonly T[], threshold: number, x: (p: T) => number, y: (p: T) => number | null): T[] {
+  const n = points.length;
+  if (threshold >= n || threshold < 3) return [...points];
+  const missing = (p: T) => {
+    const v = y(p);
+    return v === null || !Number.isFinite(v);
+  };
+  const bucket = n / threshold;
+  const pieces: ({ gap: T } | { run: T[] })[] = [];
+  for (let i = 0; i < n; ) {
+    let j = i;
+    if (missing(points[i])) {
+      while (j < n && missing(points[j])) j++;
+      if (j - i >= bucket) pieces.push({ gap: points[i] });
+    } else {
+      while (j < n && !missing(points[j])) j++;
+      const last = pieces.at(-1);
+      if (last && 'run' in last) last.run.push(...points.slice(i, j));
+      else pieces.push({ run: points.slice(i, j) });
+    }
+    i = j;
+  }
+  const runs = pieces.filter((p): p is { run: T[] } => 'run' in p).map((p) => p.run);
+  const gaps = pieces.length - runs.length;
+  const budget = threshold - gaps;
+  if (budget < runs.length) {
+    // Gaps alternate faster than the output can show: every n/threshold-th point, empty ones as they are.
+    return Array.from({ length: threshold }, (_, k) => points[Math.floor((k * (n - 1)) / (threshold - 1))]);
+  }
+  const total = runs.reduce((s, r) => s + r.length, 0);
+  const alloc = runs.map((r) => Math.min(r.length, Math.max(1, Math.floor((budget * r.length) / total))));
+  let sum = alloc.reduce((s, a) => s + a, 0);
+  while (sum > budget) {
+    const k = alloc.indexOf(Math.max(...alloc));
+    alloc[k]--;
+    sum--;
+  }
+  while (sum < budget) {
+    let k = -1;
+    for (let r = 0; r < runs.length; r++) if (alloc[r] < runs[r].length && (k < 0 || runs[r].length / alloc[r] > runs[k].length / alloc[k])) k = r;
+    if (k < 0) break;
+    alloc[k]++;
+    sum++;
+  }
+  const value = (p: T) => y(p) as number;
+  const out: T[] = [];
+  let r = 0;
+  for (const piece of pieces) {
+    if ('gap' in piece) {
+      out.push(piece.gap);
+      continue;
+    }
+    const run = piece.run;
+    const k = alloc[r++];
+    if (k >= run.length) out.push(...run);
+    else if (k === 1) out.push(run[run.length >> 1]);
+    else if (k === 2) out.push(run[0], run[run.length - 1]);
+    else out.push(...lttb(run, k, x, value));
+  }
+  return out;
+}

@@ -5,7 +5,7 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { lttb } from '@shared/domain/monitoring/index.js';
+import { lttb, lttbKeepingGaps } from '@shared/domain/monitoring/index.js';
 
 interface P {
   t: number;
@@ -60,5 +60,52 @@ describe('LTTB downsampling', () => {
       expect(out).toEqual(points);
       expect(out).not.toBe(points);
     }
+  });
+});
+
+describe('LTTB downsampling of a series with missing values', () => {
+  interface Q {
+    t: number;
+    v: number | null;
+  }
+  const QX = (p: Q) => p.t;
+  const QY = (p: Q) => p.v;
+  /** A sine of 10,000 hours around 0.8 (never near 0), with the hours `missing` picks left empty. */
+  const series = (missing: (i: number) => boolean): Q[] => Array.from({ length: 10_000 }, (_, i) => ({ t: 3_600_000 * i, v: missing(i) ? null : 0.8 + 0.05 * Math.sin(i / 300) }));
+
+  it('with 2 % of the hours missing here and there, scores none of them as 0 and keeps no empty point (not 10 % of the output)', () => {
+    const points = series((i) => i % 50 === 7);
+    const out = lttbKeepingGaps(points, 2000, QX, QY);
+    expect(out).toHaveLength(2000);
+    expect(out.filter((p) => p.v === null)).toHaveLength(0);
+    expect(Math.min(...out.map((p) => p.v!))).toBeGreaterThan(0.74);
+    for (let k = 1; k < out.length; k++) expect(out[k].t).toBeGreaterThan(out[k - 1].t);
+  });
+
+  it('keeps a gap longer than a bucket as one empty point inside it, so the chart breaks the line there', () => {
+    // A 300-hour outage (each of the 2,000 output points stands for 5 hours).
+    const points = series((i) => i >= 4000 && i < 4300);
+    const out = lttbKeepingGaps(points, 2000, QX, QY);
+    expect(out).toHaveLength(2000);
+    const empty = out.filter((p) => p.v === null);
+    expect(empty).toHaveLength(1);
+    expect(empty[0]).toBe(points[4000]);
+    expect(out.every((p) => p.v === null || p.v > 0.74)).toBe(true);
+    // Points on both sides of the gap are kept up to its edges.
+    expect(out).toContain(points[3999]);
+    expect(out).toContain(points[4300]);
+  });
+
+  it('returns the input unchanged at or below the threshold, empty points included', () => {
+    const points = series((i) => i % 3 === 0).slice(0, 100);
+    expect(lttbKeepingGaps(points, 100, QX, QY)).toEqual(points);
+  });
+
+  it('stays within the threshold even when gaps alternate with single values', () => {
+    const points = series((i) => Math.floor(i / 10) % 2 === 1);
+    const out = lttbKeepingGaps(points, 300, QX, QY);
+    expect(out.length).toBeLessThanOrEqual(300);
+    expect(out.length).toBeGreaterThan(250);
+    for (let k = 1; k < out.length; k++) expect(out[k].t).toBeGreaterThan(out[k - 1].t);
   });
 });
