@@ -3,10 +3,8 @@ import express, { type Express } from 'express';
 import session from 'express-session';
 import MySQLStoreFactory from 'express-mysql-session';
 import helmet from 'helmet';
-import { randomUUID } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
-import { pinoHttp } from 'pino-http';
 import type { DataSource } from 'typeorm';
 import { createAuthenticate } from './auth/authenticate.js';
 import { configurePassport } from './auth/passport-setup.js';
@@ -15,9 +13,8 @@ import { errorHandler } from './http/error-handler.js';
 import { notFound } from './http/app-error.js';
 import { mountRoutes, type RouteSpec } from './http/route-registry.js';
 import { trustProxySetting } from './http/trust-proxy.js';
-import type { Logger } from './logger.js';
+import { createHttpLogger, type Logger } from './logger.js';
 import type { Mailer } from './mail/mailer.js';
-import type { SmtpSink } from './mail/smtp-sink.js';
 import { configureGoogle, googleConfigured } from './auth/google-strategy.js';
 import { accountRoutes } from './routes/account.routes.js';
 import { apiTokenRoutes } from './routes/api-token.routes.js';
@@ -42,8 +39,8 @@ export interface AppDeps {
   dataSource: DataSource;
   logger: Logger;
   mailer: Mailer;
-  /** Present while the local SMTP sink is in use: the mailbox page is mounted. */
-  smtpSink?: SmtpSink;
+  /** The local SMTP sink is in use (loopback, no SMTP_URL): the mailbox page is mounted. */
+  devMailbox?: boolean;
   /** Built front end to serve (frontend/dist); omitted in API tests and with the Vite dev server. */
   staticDir?: string;
 }
@@ -67,18 +64,7 @@ export function createApp(deps: AppDeps): CleancaseApp {
       },
     }),
   );
-  app.use(
-    pinoHttp({
-      logger,
-      genReqId: (req, res) => {
-        const id = (req.headers['x-request-id'] as string | undefined)?.slice(0, 64) || randomUUID();
-        res.setHeader('x-request-id', id);
-        return id;
-      },
-      customProps: (req) => ({ tenant: (req as express.Request).actor?.membership?.organisationId ?? null }),
-      autoLogging: { ignore: (req) => !req.url?.startsWith('/api/') },
-    }),
-  );
+  app.use(createHttpLogger(logger));
   // Every API answer may carry private data: no browser or proxy keeps a copy (RFC 9111 no-store).
   app.use('/api', (_req, res, next) => {
     res.setHeader('Cache-Control', 'no-store');
@@ -115,7 +101,7 @@ export function createApp(deps: AppDeps): CleancaseApp {
   if (withGoogle) configureGoogle(auth, dataSource, config, `${config.PUBLIC_URL?.replace(/\/$/, '') ?? ''}/api/auth/google/callback`);
   app.use(auth.initialize());
   const authenticate = createAuthenticate(dataSource);
-  const devMailbox = !!deps.smtpSink;
+  const devMailbox = deps.devMailbox === true;
   const answerSession = async (req: express.Request, res: express.Response) => {
     req.actor = undefined;
     await new Promise<void>((resolve, reject) => authenticate(req, res, (e?: unknown) => (e ? reject(e) : resolve())));
@@ -138,7 +124,7 @@ export function createApp(deps: AppDeps): CleancaseApp {
     ...importRoutes(dataSource, config),
     ...calcRoutes(),
     ...(withGoogle ? googleAuthRoutes(auth) : []),
-    ...(deps.smtpSink ? devMailboxRoutes(deps.smtpSink) : []),
+    ...(devMailbox ? devMailboxRoutes(dataSource) : []),
   ];
   mountRoutes(app, routes, authenticate);
   app.use('/api', (_req, _res, next) => next(notFound('No such API endpoint')));

@@ -1,13 +1,12 @@
 /**
  * The hosted services' local stand-ins, each on loopback: Stripe (stripe-stateful-mock, own process),
- * Google sign-in (oauth2-mock-server) and the SMTP sink (in this process, so the mailbox page can read it).
+ * Google sign-in (oauth2-mock-server). The SMTP sink is started by the app itself (backend/src/mail/smtp-sink.ts).
  * Each one starts only when the environment does not point at the real service.
  */
 import { fork, type ChildProcess } from 'node:child_process';
 import net from 'node:net';
 import path from 'node:path';
 import { OAuth2Server } from 'oauth2-mock-server';
-import { startSmtpSink, type SmtpSink } from '../../backend/src/mail/smtp-sink.js';
 
 export interface GoogleFake {
   issuer: string;
@@ -90,5 +89,3 @@ export async function startStripeFake(port: number): Promise<StripeFake> {
     },
   };
 }
-
-export { startSmtpSink, type SmtpSink };

@@ -2,31 +2,25 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startGoogleFake, type GoogleFake } from '../../scripts/lib/local-services.js';
 import { addMember, createTenant, createUser, CSRF, signedInAgent, TEST_PASSWORD, uniqueEmail } from '../factories/accounts.js';
+import { createApp } from '../../backend/src/app.js';
 import { publicUrl } from '../../backend/src/config.js';
+import { createLogger } from '../../backend/src/logger.js';
+import type { Mailer } from '../../backend/src/mail/mailer.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 
-/** Waits for the SMTP sink to hold a message to `to`. */
+/** Delivers the outbox and returns the newest message the SMTP sink holds for `to`. */
 async function mailTo(t: TestApp, to: string) {
-  for (let i = 0; i < 50; i++) {
-    const mail = t.smtpSink.messages().find((m) => m.to.includes(to));
-    if (mail) return mail;
-    await new Promise((r) => setTimeout(r, 50));
-  }
-  throw new Error(`no mail to ${to}`);
+  const [mail] = await t.mailTo(to);
+  if (!mail) throw new Error(`no mail to ${to}`);
+  return mail;
 }
 
-/** Waits for the SMTP sink to hold a message to `to`, and returns the link in it. */
+/** The token of the link in the newest message to `to`. */
 async function linkMailedTo(t: TestApp, to: string, pathPart: string): Promise<string> {
-  for (let i = 0; i < 50; i++) {
-    const mail = t.smtpSink.messages().find((m) => m.to.includes(to));
-    if (mail) {
-      const link = mail.text.match(new RegExp(`https?://\\S+${pathPart}\\?token=([A-Za-z0-9_%-]+)`));
-      if (!link) throw new Error(`no ${pathPart} link in: ${mail.text}`);
-      return decodeURIComponent(link[1]);
-    }
-    await new Promise((r) => setTimeout(r, 50));
-  }
-  throw new Error(`no mail to ${to}`);
+  const mail = await mailTo(t, to);
+  const link = mail.text.match(new RegExp(`https?://\\S+${pathPart}\\?token=([A-Za-z0-9_%-]+)`));
+  if (!link) throw new Error(`no ${pathPart} link in: ${mail.text}`);
+  return decodeURIComponent(link[1]);
 }
 
 describe('account flows', () => {
@@ -41,20 +35,41 @@ describe('account flows', () => {
     await google?.stop();
   });
 
-  it('sign-up creates a person, an organisation on a 30-day trial with them as administrator, and signs them in', async () => {
-    const agent = request.agent(t.app);
+  it('sign-up creates a person and an organisation on a 30-day trial with them as administrator; they can sign in at once', async () => {
     const email = uniqueEmail('founder');
-    const res = await agent.post('/api/sign-up').set(CSRF).send({ name: 'Ada Founder', email, password: 'tube bundles need cleaning', organisationName: 'Lakeside Generating' });
+    const res = await request(t.app).post('/api/sign-up').set(CSRF).send({ name: 'Ada Founder', email, password: 'tube bundles need cleaning', organisationName: 'Lakeside Generating' });
     expect(res.status).toBe(201);
-    expect(res.body.user.email).toBe(email);
-    expect(res.body.memberships).toEqual([expect.objectContaining({ organisationName: 'Lakeside Generating', role: 'admin' })]);
-    expect(res.body.permissions).toContain('members.manage');
-    const [org] = await t.dataSource.query('SELECT subscriptionStatus, trialEndsAt FROM organisation WHERE id = ?', [res.body.activeOrganisationId]);
+    const agent = await signedInAgent(t.app, email, 'tube bundles need cleaning');
+    const session = (await agent.get('/api/session').expect(200)).body;
+    expect(session.user.email).toBe(email);
+    expect(session.memberships).toEqual([expect.objectContaining({ organisationName: 'Lakeside Generating', role: 'admin' })]);
+    expect(session.permissions).toContain('members.manage');
+    const [org] = await t.dataSource.query('SELECT subscriptionStatus, trialEndsAt FROM organisation WHERE id = ?', [session.activeOrganisationId]);
     expect(org.subscriptionStatus).toBe('trialing');
     const days = (new Date(org.trialEndsAt).getTime() - Date.now()) / 86_400_000;
     expect(days).toBeGreaterThan(29.9);
     expect(days).toBeLessThan(30.1);
-    await agent.post('/api/sign-up').set(CSRF).send({ name: 'Again', email, password: 'tube bundles need cleaning', organisationName: 'X Co' }).expect(409);
+  });
+
+  it('sign-up answers the same whether or not the address has an account; an existing address gets a notice, not a second account', async () => {
+    const existing = await createUser(t.dataSource, 'taken');
+    const body = (email: string) => ({ name: 'Someone', email, password: 'tube bundles need cleaning', organisationName: 'Some Utility' });
+    const fresh = await request(t.app).post('/api/sign-up').set(CSRF).send(body(uniqueEmail('fresh')));
+    const taken = await request(t.app).post('/api/sign-up').set(CSRF).send(body(existing.email));
+    expect(taken.status).toBe(fresh.status);
+    expect(taken.status).toBe(201);
+    expect(taken.body).toEqual(fresh.body);
+    expect(taken.headers['set-cookie']).toBeUndefined();
+    expect(fresh.headers['set-cookie']).toBeUndefined();
+
+    const [count] = await t.dataSource.query('SELECT COUNT(*) AS n FROM user WHERE email = ?', [existing.email]);
+    expect(Number(count.n)).toBe(1);
+    // The existing password still works, the one typed at sign-up does not.
+    await signedInAgent(t.app, existing.email);
+    await request(t.app).post('/api/session').set(CSRF).send({ email: existing.email, password: 'tube bundles need cleaning' }).expect(401);
+    const notice = await mailTo(t, existing.email);
+    expect(notice.subject).toBe('Your Cleancase account already exists');
+    expect(notice.text).toContain(`${publicUrl(t.config)}/forgot-password`);
   });
 
   it('refuses short and common passwords, and accepts a long passphrase (OWASP ASVS 2.1)', async () => {
@@ -126,12 +141,39 @@ describe('account flows', () => {
   });
 
   it('a reset for an unknown address answers exactly like one for a known address and sends nothing', async () => {
-    const count = t.smtpSink.messages().length;
-    const res = await request(t.app).post('/api/password-reset').set(CSRF).send({ email: 'ghost@example.test' });
-    expect(res.status).toBe(202);
-    expect(res.body).toEqual({ message: 'If an account uses this e-mail, a reset link is on its way.' });
-    await new Promise((r) => setTimeout(r, 200));
-    expect(t.smtpSink.messages().length).toBe(count);
+    const known = await createUser(t.dataSource, 'known');
+    const forKnown = await request(t.app).post('/api/password-reset').set(CSRF).send({ email: known.email });
+    const forUnknown = await request(t.app).post('/api/password-reset').set(CSRF).send({ email: 'ghost@example.test' });
+    expect(forUnknown.status).toBe(202);
+    expect(forUnknown.status).toBe(forKnown.status);
+    expect(forUnknown.body).toEqual({ message: 'If an account uses this e-mail, a reset link is on its way.' });
+    expect(forUnknown.body).toEqual(forKnown.body);
+    expect(await t.mailTo('ghost@example.test')).toEqual([]);
+    expect(await t.mailTo(known.email)).toHaveLength(1);
+  });
+
+  it('the reset answer goes out before the mail: the mail is sent afterwards, from the outbox', async () => {
+    const user = await createUser(t.dataSource, 'later');
+    await request(t.app).post('/api/password-reset').set(CSRF).send({ email: user.email }).expect(202);
+    // Answered, and nothing has been handed to SMTP yet: the request only queued the mail.
+    const [queued] = await t.dataSource.query('SELECT COUNT(*) AS n FROM mail_outbox WHERE recipient = ?', [user.email]);
+    expect(Number(queued.n)).toBe(1);
+    const [sunk] = await t.dataSource.query('SELECT COUNT(*) AS n FROM sink_message WHERE recipient = ?', [user.email]);
+    expect(Number(sunk.n)).toBe(0);
+    expect(await t.deliverMail()).toBeGreaterThanOrEqual(1);
+    expect((await t.mailTo(user.email))[0].subject).toBe('Reset your Cleancase password');
+  });
+
+  it('a mail server that never answers does not hold up the reset answer', async () => {
+    const hung: Mailer = { send: () => new Promise<void>(() => {}) };
+    const app = createApp({ config: t.config, dataSource: t.dataSource, logger: createLogger('silent'), mailer: hung, devMailbox: true });
+    try {
+      const user = await createUser(t.dataSource, 'hung');
+      const res = await request(app).post('/api/password-reset').set(CSRF).send({ email: user.email }).timeout(5_000);
+      expect(res.status).toBe(202);
+    } finally {
+      await app.locals.close();
+    }
   });
 
   it('Google sign-in end to end against the local fake: new person, then the same person again', async () => {

@@ -2,22 +2,26 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { bootstrap, type Running } from '../../backend/src/bootstrap.js';
 import { loadConfig } from '../../backend/src/config.js';
-import { startSmtpSink } from '../../backend/src/mail/smtp-sink.js';
+import { buildDataSource } from '../../backend/src/data-source.js';
+import { sinkMessagesFor, type SinkMessageView } from '../../backend/src/mail/smtp-sink.js';
 import { createEmptyDatabase } from './test-database.js';
 
 const distDir = path.resolve(import.meta.dirname, '..', '..', 'frontend', 'dist');
 
-/** The whole product on a free port: fresh database with the demo seed, built front end, SMTP sink. */
-export async function startTestServer(options: { demoData?: 'full' | 'people' } = {}): Promise<Running & { mailbox: () => ReturnType<Awaited<ReturnType<typeof startSmtpSink>>['messages']> }> {
+/**
+ * The whole product on a free port: fresh database with the demo seed, built front end, the local SMTP sink
+ * and the mail delivery loop. `mailTo` reads the sink's mail from MariaDB, as the terminal would show it.
+ */
+export async function startTestServer(options: { demoData?: 'full' | 'people' } = {}): Promise<Running & { mailTo: (to: string) => Promise<SinkMessageView[]> }> {
   if (!existsSync(path.join(distDir, 'index.html'))) {
     throw new Error('frontend/dist is missing: npm test builds it first (or run `npx vite build`)');
   }
   const db = createEmptyDatabase('e2e');
-  const smtpSink = await startSmtpSink(0);
   const config = loadConfig({
     NODE_ENV: 'test',
     LOG_LEVEL: 'silent',
     PORT: '0',
+    SMTP_SINK_PORT: '0',
     DB_HOST: db.host,
     DB_PORT: String(db.port),
     DB_NAME: db.database,
@@ -25,13 +29,16 @@ export async function startTestServer(options: { demoData?: 'full' | 'people' } 
     DB_PASSWORD: db.password,
     DEMO_DATA: options.demoData ?? 'people',
   });
-  const running = await bootstrap(config, { smtpSink, staticDir: distDir });
+  // The demo is made on a fixed day, so its dates (and the browser tests that read them) are the same every run.
+  const running = await bootstrap(config, { staticDir: distDir, demoDay: { today: '2026-01-01' } });
+  const reader = buildDataSource(db);
+  await reader.initialize();
   return {
     url: running.url,
-    mailbox: smtpSink.messages,
+    mailTo: (to) => sinkMessagesFor(reader, to),
     close: async () => {
       await running.close();
-      await smtpSink.close();
+      await reader.destroy();
     },
   };
 }

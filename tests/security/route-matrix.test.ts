@@ -132,7 +132,7 @@ const MATRIX: Record<string, Entry> = {
   'POST /api/calc/:command': { path: () => '/api/calc/saturation', body: () => ({ pressureKpa: 8 }), expect: members(200) },
   'GET /api/auth/google': { expect: all(302) },
   'GET /api/auth/google/callback': { expect: all(302) },
-  'GET /api/dev/mailbox': { expect: all(200) },
+  'GET /api/dev/mailbox': { expect: members(200) },
   'GET /api/plants': { expect: members(200) },
   'GET /api/cleaning-methods': { expect: members(200) },
   'POST /api/cleaning-methods': { body: () => ({ ...TYPICAL_CLEANING_METHODS[0], id: `m-${Math.random().toString(36).slice(2, 10)}` }), expect: members(201, { approver: 403, viewer: 403 }) },

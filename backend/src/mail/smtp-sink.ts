@@ -1,49 +1,54 @@
 /**
- * Local SMTP sink for development and tests: accepts every message on loopback and keeps the last
- * few hundred in memory for the mailbox page. Off whenever SMTP_URL points at a real server.
+ * Local SMTP sink for development and tests: accepts every message on loopback, keeps it in MariaDB
+ * (sink_message, so every app process shows the same mail on the mailbox page) and prints it for the terminal,
+ * so someone who cannot sign in can still follow a reset link in a local run. Off whenever SMTP_URL is set,
+ * and only ever on a loopback HOST (config refuses anything else).
  */
 import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
+import { LessThan, type DataSource } from 'typeorm';
+import { SinkMessage } from '../entities/sink-message.entity.js';
 
-export interface SunkMessage {
-  id: number;
+export interface SmtpSink {
+  port: number;
+  close: () => Promise<void>;
+}
+
+export interface SinkMessageView {
+  id: string;
   receivedAt: string;
   from: string;
   to: string[];
   subject: string;
   text: string;
-  html: string | null;
 }
 
-export interface SmtpSink {
-  port: number;
-  messages: () => SunkMessage[];
-  clear: () => void;
-  close: () => Promise<void>;
+/** Sink mail older than this is dropped when new mail arrives. */
+const KEEP_DAYS = 30;
+
+export function formatForTerminal(m: { from: string; to: string; subject: string; text: string }): string {
+  return [`Mail to ${m.to} — ${m.subject}`, ...m.text.split('\n').map((l) => `  | ${l}`)].join('\n');
 }
 
-const KEEP = 500;
-
-export async function startSmtpSink(port: number): Promise<SmtpSink> {
-  const stored: SunkMessage[] = [];
-  let nextId = 1;
+export async function startSmtpSink(options: { port: number; dataSource: DataSource; print?: (text: string) => void }): Promise<SmtpSink> {
+  const { dataSource, print } = options;
   const server = new SMTPServer({
     authOptional: true,
     disabledCommands: ['STARTTLS'],
     logger: false,
+    // Stopping waits at most this long for open client connections (the default is 30 s).
+    closeTimeout: 1_000,
     onData(stream, session, callback) {
       simpleParser(stream)
-        .then((mail) => {
-          stored.unshift({
-            id: nextId++,
-            receivedAt: new Date().toISOString(),
-            from: mail.from?.text ?? '',
-            to: (session.envelope.rcptTo ?? []).map((r) => r.address),
-            subject: mail.subject ?? '',
-            text: mail.text ?? '',
-            html: typeof mail.html === 'string' ? mail.html : null,
-          });
-          stored.length = Math.min(stored.length, KEEP);
+        .then(async (mail) => {
+          const recipients = (session.envelope.rcptTo ?? []).map((r) => r.address.toLowerCase());
+          const base = { sender: (mail.from?.text ?? '').slice(0, 300), subject: (mail.subject ?? '').slice(0, 300), body: mail.text ?? '', receivedAt: new Date() };
+          const repo = dataSource.getRepository(SinkMessage);
+          for (const recipient of recipients) {
+            await repo.insert({ ...base, recipient });
+            print?.(formatForTerminal({ from: base.sender, to: recipient, subject: base.subject, text: base.body }));
+          }
+          await repo.delete({ receivedAt: LessThan(new Date(Date.now() - KEEP_DAYS * 86_400_000)) });
           callback();
         })
         .catch((err: Error) => callback(err));
@@ -51,15 +56,17 @@ export async function startSmtpSink(port: number): Promise<SmtpSink> {
   });
   await new Promise<void>((resolve, reject) => {
     server.once('error', reject);
-    server.listen(port, '127.0.0.1', () => resolve());
+    server.listen(options.port, '127.0.0.1', () => resolve());
   });
   const address = server.server.address();
   return {
-    port: typeof address === 'object' && address ? address.port : port,
-    messages: () => [...stored],
-    clear: () => {
-      stored.length = 0;
-    },
+    port: typeof address === 'object' && address ? address.port : options.port,
     close: () => new Promise((resolve) => server.close(() => resolve())),
   };
+}
+
+/** The mail the sink received for one person, newest first. */
+export async function sinkMessagesFor(ds: DataSource, email: string, limit = 200): Promise<SinkMessageView[]> {
+  const rows = await ds.getRepository(SinkMessage).find({ where: { recipient: email.toLowerCase() }, order: { receivedAt: 'DESC' }, take: limit });
+  return rows.map((r) => ({ id: r.id, receivedAt: r.receivedAt.toISOString(), from: r.sender, to: [r.recipient], subject: r.subject, text: r.body }));
 }

@@ -7,7 +7,7 @@ import { baseUrl } from '../http/base-url.js';
 import { passwordChangeLimiter, resetConfirmLimiter, resetLimiter, signUpLimiter } from '../http/rate-limits.js';
 import type { RouteSpec } from '../http/route-registry.js';
 import type { Mailer } from '../mail/mailer.js';
-import { changePassword, confirmPasswordReset, createOrganisation, requestPasswordReset, signUp, updateProfile } from '../services/account.service.js';
+import { changePassword, confirmPasswordReset, createOrganisation, requestPasswordReset, SIGN_UP_ANSWER, signUp, updateProfile } from '../services/account.service.js';
 
 export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, answerSession: (req: Request, res: Response) => Promise<void>): RouteSpec[] {
   return [
@@ -18,12 +18,10 @@ export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, an
       tenantScoped: false,
       rateLimit: signUpLimiter(ds),
       body: signUpRequest,
-      description: 'Create an account and a new organisation on a free trial, and sign in',
+      description: 'Create an account and a new organisation on a free trial (same answer whether or not the address has an account; then sign in)',
       handler: async (req, res) => {
-        const { user, organisation } = await signUp(ds, req.body);
-        await establishSession(req, user, organisation.id);
-        res.status(201);
-        await answerSession(req, res);
+        await signUp(ds, mailer, req.body, baseUrl(config));
+        res.status(201).json(SIGN_UP_ANSWER);
       },
     },
     {
@@ -75,9 +73,9 @@ export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, an
       tenantScoped: false,
       rateLimit: resetLimiter(ds),
       body: passwordResetRequest,
-      description: 'E-mail a password reset link (same answer whether or not the account exists)',
+      description: 'E-mail a password reset link (same answer, in the same time, whether or not the account exists)',
       handler: async (req, res) => {
-        await requestPasswordReset(ds, mailer, req.body.email, baseUrl(config, req));
+        await requestPasswordReset(ds, req.body.email);
         res.status(202).json({ message: 'If an account uses this e-mail, a reset link is on its way.' });
       },
     },

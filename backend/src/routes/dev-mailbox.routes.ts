@@ -1,17 +1,18 @@
-import type { SmtpSink } from '../mail/smtp-sink.js';
+import type { DataSource } from 'typeorm';
 import type { RouteSpec } from '../http/route-registry.js';
+import { sinkMessagesFor } from '../mail/smtp-sink.js';
 
-/** Mounted only while the local SMTP sink is in use. */
-export function devMailboxRoutes(sink: SmtpSink): RouteSpec[] {
+/** Mounted only while the local SMTP sink is in use (loopback, no SMTP_URL). */
+export function devMailboxRoutes(ds: DataSource): RouteSpec[] {
   return [
     {
       method: 'get',
       path: '/api/dev/mailbox',
-      access: 'public',
+      access: 'signed-in',
       tenantScoped: false,
-      description: 'Messages the app sent to the local SMTP sink (development only)',
-      handler: (_req, res) => {
-        res.json({ messages: sink.messages() });
+      description: 'Messages the local SMTP sink received for you (local runs only)',
+      handler: async (req, res) => {
+        res.json({ messages: await sinkMessagesFor(ds, req.actor!.user.email) });
       },
     },
   ];

@@ -10,8 +10,9 @@ import { Organisation } from '../entities/organisation.entity.js';
 import { PasswordResetToken } from '../entities/password-reset-token.entity.js';
 import { User } from '../entities/user.entity.js';
 import { AppError, badRequest, notFound } from '../http/app-error.js';
-import type { Mailer } from '../mail/mailer.js';
-import { passwordResetMail } from '../mail/templates.js';
+import type { Mailer, OutgoingMail } from '../mail/mailer.js';
+import { enqueueComposed } from '../mail/outbox.js';
+import { accountExistsMail, passwordResetMail } from '../mail/templates.js';
 import { revokeAllApiTokensOf } from './api-token.service.js';
 import { recordAudit } from './audit.service.js';
 import { seedTypicalMethods } from './cleaning-method.service.js';
@@ -19,27 +20,43 @@ import { seedTypicalMethods } from './cleaning-method.service.js';
 export const TRIAL_DAYS = 30;
 const RESET_LIFETIME_MS = 60 * 60 * 1000;
 
-export async function signUp(ds: DataSource, input: SignUpRequest): Promise<{ user: User; organisation: Organisation }> {
+/** The one answer to every well-formed sign-up, whether or not the address had an account (no enumeration). */
+export const SIGN_UP_ANSWER = {
+  message: 'Thank you. Sign in with this e-mail and password. If the address already had an account, we sent it an e-mail instead.',
+};
+
+/**
+ * A new address gets an account and organisation at once (it can sign in straight away); an address with an
+ * account gets a notice by e-mail instead of a second account. Both take the same steps up to that point.
+ */
+export async function signUp(ds: DataSource, mailer: Mailer, input: SignUpRequest, baseUrl: string): Promise<void> {
   assertPasswordAcceptable(input.password, { email: input.email, name: input.name });
   const passwordHash = await hashPassword(input.password);
-  return ds.transaction(async (em) => {
-    if (await em.getRepository(User).existsBy({ email: input.email })) {
-      throw new AppError(409, 'An account with this e-mail exists already; sign in, or reset its password');
-    }
-    const user = await em.getRepository(User).save({ email: input.email, name: input.name, passwordHash, unitPreference: 'us' });
-    const organisation = await em.getRepository(Organisation).save({
-      name: input.organisationName,
-      kind: 'utility',
-      plan: 'trial',
-      subscriptionStatus: 'trialing',
-      trialEndsAt: new Date(Date.now() + TRIAL_DAYS * 86_400_000),
+  const noticeExisting = () => mailer.send(accountExistsMail({ to: input.email, signInLink: `${baseUrl}/sign-in`, resetLink: `${baseUrl}/forgot-password` }));
+  try {
+    await ds.transaction(async (em) => {
+      if (await em.getRepository(User).existsBy({ email: input.email })) throw new AddressTaken();
+      const user = await em.getRepository(User).save({ email: input.email, name: input.name, passwordHash, unitPreference: 'us' });
+      const organisation = await em.getRepository(Organisation).save({
+        name: input.organisationName,
+        kind: 'utility',
+        plan: 'trial',
+        subscriptionStatus: 'trialing',
+        trialEndsAt: new Date(Date.now() + TRIAL_DAYS * 86_400_000),
+      });
+      await em.getRepository(Membership).save({ organisationId: organisation.id, userId: user.id, role: 'admin', clientGroupIds: null });
+      await seedTypicalMethods(em, organisation.id);
+      await recordAudit(em, { organisationId: organisation.id, userId: user.id, action: 'organisation.created', entityType: 'organisation', entityId: organisation.id });
     });
-    await em.getRepository(Membership).save({ organisationId: organisation.id, userId: user.id, role: 'admin', clientGroupIds: null });
-    await seedTypicalMethods(em, organisation.id);
-    await recordAudit(em, { organisationId: organisation.id, userId: user.id, action: 'organisation.created', entityType: 'organisation', entityId: organisation.id });
-    return { user, organisation };
-  });
+  } catch (err) {
+    // Two sign-ups for one new address at once: the second meets the unique index and is treated as existing.
+    const duplicate = (err as { code?: string }).code === 'ER_DUP_ENTRY';
+    if (!(err instanceof AddressTaken) && !duplicate) throw err;
+    await noticeExisting();
+  }
 }
+
+class AddressTaken extends Error {}
 
 export async function createOrganisation(ds: DataSource, userId: string, name: string): Promise<Organisation> {
   return ds.transaction(async (em) => {
@@ -82,14 +99,24 @@ export async function changePassword(ds: DataSource, user: User, input: z.infer<
   });
 }
 
-/** Always answers the same way; mails a link only when the account exists. */
-export async function requestPasswordReset(ds: DataSource, mailer: Mailer, email: string, baseUrl: string): Promise<void> {
+export const PASSWORD_RESET_MAIL = 'password-reset';
+
+/**
+ * Only queues the request: the same single insert whether or not the account exists, so the answer is the same
+ * in content and time. The outbox delivery composes the mail afterwards (composePasswordResetMail).
+ */
+export async function requestPasswordReset(ds: DataSource, email: string): Promise<void> {
+  await enqueueComposed(ds, PASSWORD_RESET_MAIL, email);
+}
+
+/** Runs at delivery: a fresh single-use link for an existing account, nothing for an unknown address. */
+export async function composePasswordResetMail(ds: DataSource, email: string, baseUrl: string): Promise<OutgoingMail | null> {
   const user = await ds.getRepository(User).findOneBy({ email });
-  if (!user) return;
+  if (!user) return null;
   const { token, hash } = newSecretToken();
   const expiresAt = new Date(Date.now() + RESET_LIFETIME_MS);
   await ds.getRepository(PasswordResetToken).insert({ userId: user.id, tokenHash: hash, expiresAt, usedAt: null });
-  await mailer.send(passwordResetMail({ to: user.email, link: `${baseUrl}/reset-password?token=${encodeURIComponent(token)}`, expiresAt }));
+  return passwordResetMail({ to: user.email, link: `${baseUrl}/reset-password?token=${encodeURIComponent(token)}`, expiresAt });
 }
 
 export async function confirmPasswordReset(ds: DataSource, token: string, password: string): Promise<User> {

@@ -5,7 +5,10 @@ import { LoadingState } from '@frontend/components/ui/query-state';
 import { MailboxList } from '@frontend/features/dev-mailbox/components/mailbox-list';
 import { useSession } from '@frontend/features/session/api/get-session';
 
-/** Public on purpose: people read invitation and reset mail here before they can sign in. */
+/**
+ * Each signed-in person reads the mail addressed to them. Someone who cannot sign in (a new invitee, a forgotten
+ * password) follows the link printed in the terminal where the server runs.
+ */
 export function MailboxPage() {
   const session = useSession();
   return (
@@ -16,18 +19,23 @@ export function MailboxPage() {
             Clean<span className="text-tube-600">case</span>
           </Link>
           <h1 className="mt-2">Local mailbox</h1>
-          <p className="mt-1 text-sm text-ink-soft">Mail sent by this development server. Nothing here left the machine.</p>
+          <p className="mt-1 text-sm text-ink-soft">Mail this local server sent to you. Nothing here left the machine.</p>
         </div>
-        <Link className={`${linkClass} text-sm`} to={session.data?.user ? '/' : '/sign-in'}>
+        <Link className={`${linkClass} text-sm`} to={session.data?.user ? '/' : '/sign-in?next=%2Fmailbox'}>
           {session.data?.user ? 'Back to the overview' : 'Back to sign-in'}
         </Link>
       </div>
       {session.isPending ? (
         <LoadingState what="the mailbox" />
-      ) : session.data?.devMailbox ? (
+      ) : !session.data?.devMailbox ? (
+        <EmptyState title="No local mailbox on this server" next="This server sends real e-mail; look in your own inbox." />
+      ) : session.data.user ? (
         <MailboxList />
       ) : (
-        <EmptyState title="No local mailbox on this server" next="This server sends real e-mail; look in your own inbox." />
+        <EmptyState
+          title="Sign in to read your mail"
+          next="The mailbox shows each person only the mail sent to them. Cannot sign in? Every message is also printed in the terminal where the server runs; follow the link there."
+        />
       )}
     </main>
   );

@@ -2,21 +2,20 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@frontend/lib/api-client';
 
 export interface MailboxMessage {
-  id: number;
+  id: string;
   receivedAt: string;
   from: string;
   to: string[];
   subject: string;
   text: string;
-  html: string | null;
 }
 
-/** Newest first, as the local SMTP sink keeps them; refreshed every few seconds while the page is open. */
+/** The signed-in person's own mail in the local SMTP sink, newest first; refreshed every few seconds while the page is open. */
 export const mailboxQueryOptions = () =>
   queryOptions({
     queryKey: ['dev-mailbox'],
     queryFn: () =>
-      api<{ messages: MailboxMessage[] }>('/api/dev/mailbox').then((r) => [...r.messages].sort((a, b) => b.receivedAt.localeCompare(a.receivedAt) || b.id - a.id)),
+      api<{ messages: MailboxMessage[] }>('/api/dev/mailbox').then((r) => [...r.messages].sort((a, b) => b.receivedAt.localeCompare(a.receivedAt) || b.id.localeCompare(a.id))),
     staleTime: 0,
     refetchInterval: 5_000,
   });
