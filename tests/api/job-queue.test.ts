@@ -81,6 +81,16 @@ describe('background jobs with two workers', () => {
     expect((await jobsOf(unit)).map((j) => j.status)).toEqual(['running', 'queued', 'queued']);
   });
 
+  it('units whose jobs are running, however many, do not hold up the queued job of a free unit', async () => {
+    const busy: GeneratingUnit[] = [];
+    for (let i = 0; i < 25; i++) busy.push(await newUnit());
+    for (const u of busy) await queue(u, 2);
+    for (let i = 0; i < busy.length; i++) expect(await claimNextJob(i % 2 ? dsA : dsB, `busy-${i}`)).not.toBeNull();
+    const free = await newUnit();
+    await queue(free, 1);
+    expect((await claimNextJob(dsA, 'free'))?.unitId).toBe(free.id);
+  });
+
   it('two workers draining two units’ queues never run two jobs of one unit at once, and finish them all', async () => {
     const units = [await newUnit(), await newUnit()];
     for (const u of units) await queue(u, 6);

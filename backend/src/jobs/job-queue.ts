@@ -27,6 +27,8 @@ export class LostJobLockError extends Error {
 export type GiveUpHook = (em: EntityManager, job: BackgroundJob) => Promise<void>;
 
 const STALE = `NOW(3) - INTERVAL ${STALE_MINUTES} MINUTE`;
+/** A job a worker may start: waiting, or running under a stale lock with attempts left. */
+const RUNNABLE = `status = 'queued' OR (status = 'running' AND lockedAt < ${STALE} AND attempts < ${MAX_ATTEMPTS})`;
 
 export async function enqueueJob(em: EntityManager, job: { organisationId: string; unitId: string; kind: JobKind; payload?: Record<string, unknown> }): Promise<BackgroundJob> {
   return em.getRepository(BackgroundJob).save({ ...job, payload: job.payload ?? null, status: 'queued', progress: 0, message: null, lockedBy: null, lockedAt: null, attempts: 0, finishedAt: null });
@@ -47,10 +49,12 @@ export async function claimNextJob(ds: DataSource, workerId: string, options: { 
   await giveUpExhaustedJobs(ds, options.onGiveUp);
   // READ COMMITTED: each plain read below sees every claim committed before it, not a snapshot.
   return ds.transaction('READ COMMITTED', async (em) => {
+    // Units with work waiting and (as far as this read shows) none running; checked again under the unit's lock.
     const units: { unitId: string }[] = await em.query(
-      `SELECT unitId FROM background_job
-        WHERE status = 'queued' OR (status = 'running' AND lockedAt < ${STALE} AND attempts < ${MAX_ATTEMPTS})
-        GROUP BY unitId ORDER BY MIN(createdAt) ASC LIMIT 20`,
+      `SELECT j.unitId FROM background_job j
+        WHERE (${RUNNABLE})
+          AND NOT EXISTS (SELECT 1 FROM background_job r WHERE r.unitId = j.unitId AND r.status = 'running' AND r.lockedAt >= ${STALE})
+        GROUP BY j.unitId ORDER BY MIN(j.createdAt) ASC LIMIT 20`,
     );
     for (const { unitId } of units) {
       // Another claim holding this unit is skipped, not waited for; it holds the row until it commits.
@@ -62,14 +66,18 @@ export async function claimNextJob(ds: DataSource, workerId: string, options: { 
       }
       const busy: unknown[] = await em.query(`SELECT id FROM background_job WHERE unitId = ? AND status = 'running' AND lockedAt >= ${STALE} LIMIT 1`, [unitId]);
       if (busy.length > 0) continue;
+      // No SKIP LOCKED here: a locking scan elsewhere may hold the row for an instant. The unit's lock already
+      // keeps other claims off; the UPDATE waits for the row and checks it is still runnable.
       const next: { id: string }[] = await em.query(
-        `SELECT id FROM background_job
-          WHERE unitId = ? AND (status = 'queued' OR (status = 'running' AND lockedAt < ${STALE} AND attempts < ${MAX_ATTEMPTS}))
-          ORDER BY createdAt ASC LIMIT 1 FOR UPDATE SKIP LOCKED`,
+        `SELECT id FROM background_job WHERE unitId = ? AND (${RUNNABLE}) ORDER BY createdAt ASC LIMIT 1`,
         [unitId],
       );
       if (next.length === 0) continue;
-      await em.query(`UPDATE background_job SET status = 'running', lockedBy = ?, lockedAt = NOW(3), attempts = attempts + 1 WHERE id = ?`, [workerId, next[0].id]);
+      const claimed = await em.query(
+        `UPDATE background_job SET status = 'running', lockedBy = ?, lockedAt = NOW(3), attempts = attempts + 1 WHERE id = ? AND (${RUNNABLE})`,
+        [workerId, next[0].id],
+      );
+      if (affectedRows(claimed) === 0) continue;
       return em.getRepository(BackgroundJob).findOneByOrFail({ id: next[0].id });
     }
     return null;
