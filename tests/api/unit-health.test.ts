@@ -126,8 +126,9 @@ const dayIndex = (day: string) => daysBetween(FIRST_DAY, day);
 /** What the daily median would be without the leak: the median of the day's true fouling CF. */
 const trueDailyCf = (day: string) => median(Array.from({ length: H }, (_, k) => foulingCf(dayIndex(day) * H + k)));
 
-/** RFC 4180 fields: quoted fields may hold commas, quotes ("") and line breaks. */
-function parseCsv(text: string): string[][] {
+/** RFC 4180 fields: quoted fields may hold commas, quotes ("") and line breaks. The export's byte-order mark (tests/api/exports.test.ts) is dropped. */
+function parseCsv(withBom: string): string[][] {
+  const text = withBom.replace(/^\uFEFF/, '');
   const rows: string[][] = [];
   let row: string[] = [];
   let field = '';
@@ -496,6 +497,11 @@ describe('condenser health API', () => {
   });
 
   describe('exports', () => {
+    // These check the stored SI figures; exports in US units are checked in tests/api/exports.test.ts.
+    beforeAll(async () => {
+      await analyst.patch('/api/profile').set(CSRF).send({ unitPreference: 'si' }).expect(200);
+    });
+
     it('writes the daily figures as CSV with units in the headers and numbers as plain numbers, negatives unprefixed', async () => {
       const res = await analyst.get(`/api/units/${unit.id}/export`).query({ dataset: 'daily', format: 'csv' }).expect(200);
       expect(res.headers['content-type']).toMatch(/^text\/csv/);
@@ -511,7 +517,7 @@ describe('condenser health API', () => {
         expect(r[col('Day (plant local)')]).toBe(d.day);
         // String(number) round-trips a double exactly (ECMAScript Number::toString).
         expect(Number(r[col('Backpressure kPa(a)')])).toBe(d.meanBackpressureKpa);
-        expect(Number(r[col('Fouling cost (money/day)')])).toBe(d.foulingCost);
+        expect(Number(r[col('Fouling cost USD/day')])).toBe(d.foulingCost);
         expect(r[col('Air in-leakage suspected')]).toBe(String(Boolean(d.airLeakSuspected)));
       });
       // derived (§3): at 88 % load the heat-balance duty is below the full-load design duty, so the load-and-duty part is negative.
@@ -545,7 +551,7 @@ describe('condenser health API', () => {
 
     it('writes the monthly breakdown as CSV and XLSX with the figures of the health view', async () => {
       const csv = parseCsv((await analyst.get(`/api/units/${unit.id}/export`).query({ dataset: 'breakdown', format: 'csv' }).expect(200)).text);
-      expect(csv[0]).toEqual(['Month', 'CW inlet temperature kPa', 'CW flow kPa', 'Load and duty kPa', 'Plugged tubes kPa', 'Fouling kPa', 'Unexplained kPa', 'Excess backpressure kPa', 'Fouling cost (money)', 'Unexplained cost (money)']);
+      expect(csv[0]).toEqual(['Month', 'CW inlet temperature kPa', 'CW flow kPa', 'Load and duty kPa', 'Plugged tubes kPa', 'Fouling kPa', 'Unexplained kPa', 'Excess backpressure kPa', 'Fouling cost USD', 'Unexplained cost USD']);
       expect(csv.slice(1).map((r) => r[0])).toEqual(['2024-06', '2024-07', '2024-08']);
       csv.slice(1).forEach((r, i) => {
         const b = health.breakdown[i];
