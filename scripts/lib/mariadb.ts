@@ -59,7 +59,10 @@ export async function startMariaDb(options: MariaDbOptions): Promise<MariaDbInst
   const socket = path.join(dataDir, 'mysqld.sock');
   const pidFile = path.join(dataDir, 'mysqld.pid');
   const errLog = path.join(dataDir, 'mysqld.err');
-  mkdirSync(dataDir, { recursive: true });
+  // A temporary folder of its own: at start, every mariadbd deletes the #sql* files it finds in its tmpdir, so
+  // instances sharing /tmp break each other's mariadb-install-db when they start at the same moment.
+  const tmpDir = path.join(dataDir, 'tmp');
+  mkdirSync(tmpDir, { recursive: true });
 
   // A previous run that was killed hard may have left a server behind on this folder: stop it first.
   if (existsSync(pidFile)) {
@@ -76,7 +79,7 @@ export async function startMariaDb(options: MariaDbOptions): Promise<MariaDbInst
     mkdirSync(dbDir, { recursive: true });
     const init = spawnSync(
       binary('mariadb-install-db'),
-      ['--user=root', `--datadir=${dbDir}`, '--auth-root-authentication-method=normal', '--skip-test-db'],
+      ['--user=root', `--datadir=${dbDir}`, `--tmpdir=${tmpDir}`, '--auth-root-authentication-method=normal', '--skip-test-db'],
       { encoding: 'utf8' },
     );
     if (init.status !== 0) throw new Error(`mariadb-install-db failed:\n${init.stdout}${init.stderr}`);
@@ -102,13 +105,15 @@ export async function startMariaDb(options: MariaDbOptions): Promise<MariaDbInst
       `--defaults-file=${path.join(dataDir, 'my.cnf')}`,
       '--user=root',
       `--datadir=${dbDir}`,
+      `--tmpdir=${tmpDir}`,
       `--socket=${socket}`,
       `--port=${options.port}`,
       '--bind-address=127.0.0.1',
       `--pid-file=${pidFile}`,
       `--log-error=${errLog}`,
     ],
-    { stdio: 'ignore', detached: false },
+    // A process group of its own: a terminal's Ctrl-C reaches only `npm start`, which then shuts MariaDB down cleanly.
+    { stdio: 'ignore', detached: true },
   );
   let exited = false;
   child.on('exit', () => {
@@ -140,11 +145,29 @@ export async function startMariaDb(options: MariaDbOptions): Promise<MariaDbInst
   if (!r.ok) throw new Error(`Could not create the database and user: ${r.output}`);
 
   const pid = child.pid!;
+  const waitForExit = async (ms: number) => {
+    for (const end = Date.now() + ms; !exited && Date.now() < end; ) await sleep(100);
+    return exited;
+  };
+  /**
+   * Clean shutdown, each step with a time limit and without blocking this process's event loop: ask over the
+   * socket (mariadb-admin shutdown), then SIGTERM (also a clean shutdown for mariadbd), SIGKILL only as the last
+   * resort. Resolves once the server has exited.
+   */
   const stop = async () => {
     if (exited) return;
-    spawnSync(binary('mariadb-admin'), ['--protocol=socket', `--socket=${socket}`, '-uroot', 'shutdown'], { encoding: 'utf8' });
-    for (let i = 0; i < 200 && !exited; i++) await sleep(100);
-    if (!exited) child.kill('SIGKILL');
+    await new Promise<void>((resolve) => {
+      const admin = spawn(binary('mariadb-admin'), ['--protocol=socket', `--socket=${socket}`, '-uroot', '--connect-timeout=5', 'shutdown'], { stdio: 'ignore', timeout: 10_000 });
+      admin.once('exit', () => resolve());
+      admin.once('error', () => resolve());
+    });
+    if (await waitForExit(30_000)) return;
+    log('MariaDB did not stop when asked; sending SIGTERM');
+    child.kill('SIGTERM');
+    if (await waitForExit(30_000)) return;
+    log('MariaDB still running; killing it');
+    child.kill('SIGKILL');
+    await waitForExit(5_000);
   };
   log(`MariaDB ready on 127.0.0.1:${options.port} (data in ${dbDir})`);
   return { host: '127.0.0.1', port: options.port, database: db, user: options.user, password: options.password, socket, pid, stop };
