@@ -1,32 +1,9 @@
-import { useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
-import { Button } from '@frontend/components/ui/button';
 import { EmptyState } from '@frontend/components/ui/empty-state';
 import { ErrorState, LoadingState } from '@frontend/components/ui/query-state';
-import { TextField } from '@frontend/components/ui/text-field';
 import { usePlants } from '@frontend/features/plants/api/get-plants';
-import { useCreateOrganisation } from '@frontend/features/session/api/create-organisation';
 import { useSession } from '@frontend/features/session/api/get-session';
-
-/** Someone signed in (e.g. with Google) who belongs to no organisation yet can start one here. */
-function StartOrganisation() {
-  const create = useCreateOrganisation();
-  const [name, setName] = useState('');
-  const onSubmit = (e: FormEvent) => {
-    e.preventDefault();
-    if (name.trim().length >= 2) create.mutate({ name: name.trim() });
-  };
-  return (
-    <EmptyState title="You belong to no organisation yet" next="Ask an administrator to invite you, or start your own organisation on a 30-day trial.">
-      <form onSubmit={onSubmit} className="flex items-end gap-2 text-left">
-        <TextField label="Organisation name" value={name} onChange={(e) => setName(e.target.value)} error={create.error?.message} />
-        <Button type="submit" disabled={create.isPending || name.trim().length < 2}>
-          Start organisation
-        </Button>
-      </form>
-    </EmptyState>
-  );
-}
+import { StartOrganisation } from '@frontend/features/session/components/start-organisation';
 
 function UnitsOfOrganisation({ organisationId }: { organisationId: string }) {
   const plants = usePlants(organisationId);

@@ -1,15 +1,19 @@
+import { useQuery } from '@tanstack/react-query';
 import { whyNot } from '@shared/permissions';
 import { NoOrganisation } from '@frontend/components/ui/not-permitted';
-import { useClientGroups } from '@frontend/features/client-groups/api/get-client-groups';
+import { clientGroupsQueryOptions } from '@frontend/features/client-groups/api/get-client-groups';
 import { PlantsList } from '@frontend/features/plants/components/plants-list';
 import { useSession } from '@frontend/features/session/api/get-session';
+import { StartOrganisation } from '@frontend/features/session/components/start-organisation';
 
 export function PlantsPage() {
   const { data: session } = useSession();
-  const organisationId = session?.activeOrganisationId;
-  // group names label the sections; without them the plants still show, ungrouped
-  const groups = useClientGroups(organisationId ?? '');
-  if (!session?.user || !organisationId) return <NoOrganisation />;
+  const organisationId = session?.activeOrganisationId ?? null;
+  // group names label the sections; without them the plants still show, ungrouped. Without an
+  // organisation nothing is asked of the server: it could only refuse.
+  const groups = useQuery({ ...clientGroupsQueryOptions(organisationId ?? ''), enabled: organisationId !== null });
+  if (!session?.user) return <NoOrganisation />;
+  if (!organisationId) return session.memberships.length === 0 ? <StartOrganisation /> : <NoOrganisation />;
   return (
     <section className="flex flex-col gap-4">
       <div>
