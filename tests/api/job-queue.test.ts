@@ -157,6 +157,37 @@ describe('background jobs with two workers', () => {
     expect((await claimNextJob(dsA, 'next'))?.unitId).toBe(unit.id);
   });
 
+  it('a worker stopped while its job runs hands the job back: queued again without using up an attempt, and another worker takes it at once', async () => {
+    const unit = await newUnit();
+    const [job] = await queue(unit, 1);
+    let started!: () => void;
+    const startedA = new Promise<void>((resolve) => (started = resolve));
+    let release!: () => void;
+    const gate = new Promise<void>((resolve) => (release = resolve));
+    let lostLock: unknown = null;
+    const slowA: Record<string, JobHandler> = {
+      recompute: async (ds, j) => {
+        started();
+        await gate;
+        await reportProgress(ds, j, 0.5, 'after the stop').catch((err) => {
+          lostLock = err;
+          throw err;
+        });
+      },
+    };
+    const worker = startJobWorker(dsA, slowA, createLogger('silent'), 5);
+    await startedA;
+    const stopped = await Promise.race([worker.stop(200).then(() => 'stopped'), sleep(5_000).then(() => 'still waiting')]);
+    expect(stopped).toBe('stopped');
+    expect(await dsA.getRepository(BackgroundJob).findOneByOrFail({ id: job.id })).toMatchObject({ status: 'queued', attempts: 0, lockedBy: null });
+
+    expect(await drainJobs(dsB, { recompute: async () => {} })).toBe(1);
+    release();
+    await sleep(100);
+    expect(lostLock).toBeInstanceOf(LostJobLockError);
+    expect(await dsA.getRepository(BackgroundJob).findOneByOrFail({ id: job.id })).toMatchObject({ status: 'done', attempts: 1, lockedBy: null });
+  });
+
   it('a worker whose job was taken over cannot report progress on it or finish it, and its late failure does not touch the job', async () => {
     const unit = await newUnit();
     const [job] = await queue(unit, 1);

@@ -141,6 +141,20 @@ export async function withLease<T>(ds: DataSource, lease: JobLease, work: (em: E
   });
 }
 
+/**
+ * Hands a job this worker holds back to the queue (its app is stopping): queued again at once, the attempt
+ * not counted, so a stop is not taken for a crash. What it wrote is cleaned up by the next run; a write it
+ * still tries is refused (LostJobLockError). False when the job is no longer this worker's.
+ */
+export async function releaseJob(ds: DataSource, lease: JobLease): Promise<boolean> {
+  const result = await ds.query(
+    `UPDATE background_job SET status = 'queued', lockedBy = NULL, lockedAt = NULL, attempts = GREATEST(attempts - 1, 0), message = 'Waiting to start again (the app stopped while it ran)'
+      WHERE id = ? AND lockedBy = ? AND status = 'running'`,
+    [lease.id, lease.lockedBy],
+  );
+  return affectedRows(result) > 0;
+}
+
 /** Ends a job held by this worker; false (and nothing written) when another worker holds it now. */
 export async function finishJob(ds: DataSource, lease: JobLease, outcome: { ok: true } | { ok: false; message: string }): Promise<boolean> {
   const result = outcome.ok
