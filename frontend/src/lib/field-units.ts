@@ -9,6 +9,7 @@ import {
   mToFt,
   type DisplayUnit,
 } from '@shared/units';
+import { readTyped, writeForInput } from './number-format';
 
 export type UnitSystem = 'us' | 'si';
 
@@ -53,23 +54,31 @@ export function fieldUnits(system: UnitSystem) {
 export type FieldUnits = ReturnType<typeof fieldUnits>;
 
 /**
- * A stored value as text for an input, in the display unit: one decimal more than the display
- * precision so a save without edits does not drift, trailing zeros dropped.
+ * A stored value as text for an input, in the display unit and the person's number format: one decimal more
+ * than the display precision so a save without edits does not drift, trailing zeros dropped.
  */
 export function toInputText(stored: number | null | undefined, unit: DisplayUnit): string {
   if (stored === null || stored === undefined || !Number.isFinite(stored)) return '';
-  return String(Number(unit.fromSi(stored).toFixed(unit.decimals + 1)));
+  return writeForInput(Number(unit.fromSi(stored).toFixed(unit.decimals + 1)));
 }
 
 /**
- * Text typed by a person as a number: blank is "not given" (undefined), US thousands separators
- * ("164,800") are accepted, anything else that is not a number becomes NaN so the schema names it.
+ * Text typed by a person as a number, in their number format (shared/number-text.ts): blank is "not given"
+ * (undefined); text that is not a number, or could be two numbers, becomes NaN so the form refuses it (the
+ * field shows why, see QuantityField).
  */
 export function parseNumberText(text: string): number | undefined {
-  const t = text.trim().replace(/[\s\u00a0\u202f]/g, '');
-  if (t === '') return undefined;
-  const plain = /^-?\d{1,3}(,\d{3})+(\.\d+)?$/.test(t) ? t.replace(/,/g, '') : t;
-  return /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(plain) ? Number(plain) : Number.NaN;
+  const read = readTyped(text);
+  if (read.kind === 'blank') return undefined;
+  return read.kind === 'number' ? read.value : Number.NaN;
+}
+
+/** What to say beside a field about its text: why it is refused, or how a format-dependent number was read. */
+export function numberTextNote(text: string): { error?: string; hint?: string } {
+  const read = readTyped(text);
+  if (read.kind === 'ambiguous') return { error: read.message };
+  if (read.kind === 'number' && read.readAs) return { hint: read.readAs };
+  return {};
 }
 
 /** Text in a display unit → the stored value (undefined when blank). */

@@ -1,4 +1,5 @@
 import { useId, type InputHTMLAttributes } from 'react';
+import { numberTextNote } from '@frontend/lib/field-units';
 
 interface Props extends Omit<InputHTMLAttributes<HTMLInputElement>, 'onChange' | 'value'> {
   label: string;
@@ -10,9 +11,16 @@ interface Props extends Omit<InputHTMLAttributes<HTMLInputElement>, 'onChange' |
   hint?: string;
 }
 
-/** A labelled number input in the user's units, with the unit beside it and the error where the field is. */
-export function QuantityField({ label, unit, value, onChange, error, hint, className = '', ...input }: Props) {
+/**
+ * A labelled number input in the user's units and number format, with the unit beside it and the error where the
+ * field is; a number read by the person's format (164,800 as thousands) says how it was read.
+ */
+export function QuantityField({ label, unit, value, onChange, error: formError, hint: givenHint, className = '', ...input }: Props) {
   const id = useId();
+  // text that could be two numbers is refused here, in the person's words, before the form's "Enter …"
+  const note = numberTextNote(value);
+  const error = note.error ?? formError;
+  const hint = note.hint ?? givenHint;
   const describedBy = [error ? `${id}-error` : null, hint ? `${id}-hint` : null].filter(Boolean).join(' ') || undefined;
   return (
     <div className={`flex flex-col gap-1 ${className}`}>

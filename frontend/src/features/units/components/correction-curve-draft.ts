@@ -2,6 +2,7 @@ import { GENERIC_CORRECTION_CURVE } from '@shared/domain/turbine/generic-curve';
 import type { TurbineSetup } from '@shared/schemas/unit-setup';
 import type { DisplayUnit } from '@shared/units';
 import { parseNumberText } from '@frontend/lib/field-units';
+import { writeForInput } from '@frontend/lib/number-format';
 
 type Curve = NonNullable<TurbineSetup['correctionCurve']>;
 
@@ -21,7 +22,7 @@ export interface CurveDraft {
 
 export const GENERIC_LABEL = GENERIC_CORRECTION_CURVE.label;
 
-const trim = (v: number, decimals: number) => String(Number(v.toFixed(decimals)));
+const trim = (v: number, decimals: number) => writeForInput(Number(v.toFixed(decimals)));
 
 export function draftFromCurve(curve: Curve | null, pressure: DisplayUnit): CurveDraft {
   if (!curve || curve.isGeneric) return { mode: 'generic', basis: 'heat-rate', label: '', rows: [] };
@@ -63,13 +64,14 @@ export function pointsFromCsv(text: string): { rows: CurvePointText[]; skipped: 
   let skipped = 0;
   for (const line of text.split(/\r?\n/)) {
     if (!line.trim()) continue;
-    const cells = line.split(/[\t;,]/).map((c) => c.trim().replace(/^"|"$/g, ''));
+    // a tab or semicolon between cells leaves the comma to decimals (1,5;6,8;0,4)
+    const cells = line.split(/[\t;]/.test(line) ? /[\t;]/ : /,/).map((c) => c.trim().replace(/^"|"$/g, ''));
     const [load, bp, change] = cells.map((c) => parseNumberText(c));
     if (load === undefined || bp === undefined || change === undefined || [load, bp, change].some(Number.isNaN)) {
       skipped++;
       continue;
     }
-    rows.push({ loadPct: trim(load * 100, 2), backpressure: String(bp), changePct: String(change) });
+    rows.push({ loadPct: trim(load * 100, 2), backpressure: writeForInput(bp), changePct: writeForInput(change) });
   }
   return { rows, skipped };
 }
