@@ -6,6 +6,8 @@ interface Item {
   to: string;
   label: string;
   needs?: Permission;
+  /** Only for members without a client-group limit (the page names records beyond any one group). */
+  wholeOrganisation?: boolean;
 }
 
 const items: Item[] = [
@@ -14,20 +16,23 @@ const items: Item[] = [
   { to: '/settings/members', label: 'People and roles', needs: 'members.manage' },
   { to: '/settings/client-groups', label: 'Client groups', needs: 'data.read' },
   { to: '/settings/cleaning-methods', label: 'Cleaning methods', needs: 'data.read' },
-  { to: '/settings/audit', label: 'Audit log', needs: 'audit.read' },
+  { to: '/settings/audit', label: 'Audit log', needs: 'audit.read', wholeOrganisation: true },
 ];
 
 /** Settings pages share a small side list; pages the role cannot open stay listed, greyed, with the reason. */
 export function SettingsLayout() {
   const { data: session } = useSession();
   const permissions = new Set(session?.permissions ?? []);
+  const limited = session?.memberships.find((m) => m.organisationId === session.activeOrganisationId)?.limitedToClientGroups ?? false;
+  const blockedBy = (item: Item): string | null =>
+    item.needs && !permissions.has(item.needs) ? whyNot(item.needs) : item.wholeOrganisation && limited ? 'Only for members who see every client group' : null;
   return (
     <div className="flex flex-col gap-6 md:flex-row">
       <nav aria-label="Settings" className="md:w-52 md:shrink-0">
         <p className="mb-2 px-2.5 text-2xs font-medium uppercase tracking-wide text-ink-faint">Settings</p>
         <ul className="flex flex-wrap gap-1 md:flex-col">
           {items.map((item) =>
-            !item.needs || permissions.has(item.needs) ? (
+            blockedBy(item) === null ? (
               <li key={item.to}>
                 <NavLink
                   to={item.to}
@@ -41,7 +46,7 @@ export function SettingsLayout() {
             ) : (
               <li key={item.to} aria-disabled="true" className="px-2.5 py-1.5 text-sm text-ink-faint">
                 <span className="block">{item.label}</span>
-                <span className="block text-2xs">{whyNot(item.needs)}</span>
+                <span className="block text-2xs">{blockedBy(item)}</span>
               </li>
             ),
           )}
