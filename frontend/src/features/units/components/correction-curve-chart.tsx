@@ -13,9 +13,13 @@ const LOAD_COLOURS = ['#1a4f66', '#2f7a99', '#5b9bb5', '#8fbccd', '#b9d6e1'];
 
 type CurveLine = { id: string; data: CurveLinePoint[] };
 
-/** Only the entered points get a dot; the samples between them just carry the line. */
+/**
+ * Only the entered points get a dot; the samples between them just carry the line. nivo's types call `datum` a
+ * point, but it passes the point's data item (x, y and our own fields).
+ */
 function EnteredDot({ datum, size, color }: { datum: Point<CurveLine>; size: number; color: string }) {
-  return datum.data.entered ? <circle r={size / 2} fill={color} /> : null;
+  const item = datum as unknown as Partial<CurveLinePoint> & { data?: Partial<CurveLinePoint> };
+  return (item.entered ?? item.data?.entered) ? <circle r={size / 2} fill={color} /> : null;
 }
 
 /**
