@@ -1,6 +1,6 @@
 import { NavLink, Outlet } from 'react-router-dom';
 import { whyNot, type Permission } from '@shared/permissions';
-import { useSession } from '@frontend/features/session/api/get-session';
+import { limitedToClientGroups, useSession } from '@frontend/features/session/api/get-session';
 
 interface Item {
   to: string;
@@ -23,7 +23,7 @@ const items: Item[] = [
 export function SettingsLayout() {
   const { data: session } = useSession();
   const permissions = new Set(session?.permissions ?? []);
-  const limited = session?.memberships.find((m) => m.organisationId === session.activeOrganisationId)?.limitedToClientGroups ?? false;
+  const limited = limitedToClientGroups(session);
   const blockedBy = (item: Item): string | null =>
     item.needs && !permissions.has(item.needs) ? whyNot(item.needs) : item.wholeOrganisation && limited ? 'Only for members who see every client group' : null;
   return (

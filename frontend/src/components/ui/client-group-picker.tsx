@@ -12,23 +12,32 @@ interface Props {
   onChange: (value: string[] | null) => void;
   legend?: string;
   error?: string;
+  /** false for someone limited to client groups: they can grant only groups they see, never all plants. */
+  mayChooseAll?: boolean;
 }
 
 /** "All plants" or a chosen set of client groups, as a radio pair and checkboxes (keyboard-friendly). */
-export function ClientGroupPicker({ groups, value, onChange, legend = 'Plants they can see', error }: Props) {
+export function ClientGroupPicker({ groups, value, onChange, legend = 'Plants they can see', error, mayChooseAll = true }: Props) {
   const id = useId();
-  const limited = value !== null;
+  const limited = value !== null || !mayChooseAll;
+  const chosen = value ?? [];
   return (
     <fieldset className="flex flex-col gap-1.5" aria-describedby={error ? `${id}-error` : undefined}>
       <legend className="mb-1 text-sm font-medium text-ink">{legend}</legend>
-      <label className="flex items-center gap-2 text-sm">
-        <input type="radio" name={`${id}-scope`} checked={!limited} onChange={() => onChange(null)} />
-        All plants
-      </label>
-      <label className={`flex items-center gap-2 text-sm ${groups.length === 0 ? 'text-ink-faint' : ''}`}>
-        <input type="radio" name={`${id}-scope`} checked={limited} disabled={groups.length === 0} onChange={() => onChange([])} />
-        Only plants in these client groups
-      </label>
+      {mayChooseAll ? (
+        <>
+          <label className="flex items-center gap-2 text-sm">
+            <input type="radio" name={`${id}-scope`} checked={!limited} onChange={() => onChange(null)} />
+            All plants
+          </label>
+          <label className={`flex items-center gap-2 text-sm ${groups.length === 0 ? 'text-ink-faint' : ''}`}>
+            <input type="radio" name={`${id}-scope`} checked={limited} disabled={groups.length === 0} onChange={() => onChange([])} />
+            Only plants in these client groups
+          </label>
+        </>
+      ) : (
+        <p className="text-xs text-ink-soft">Your own access is limited to client groups, so you can grant only those groups.</p>
+      )}
       {groups.length === 0 && <p className="ml-6 text-xs text-ink-faint">No client groups yet: create them under Client groups to limit access.</p>}
       {limited && (
         <div className="ml-6 flex flex-col gap-1">
@@ -36,8 +45,8 @@ export function ClientGroupPicker({ groups, value, onChange, legend = 'Plants th
             <label key={g.id} className="flex items-center gap-2 text-sm">
               <input
                 type="checkbox"
-                checked={value.includes(g.id)}
-                onChange={(e) => onChange(e.target.checked ? [...value, g.id] : value.filter((x) => x !== g.id))}
+                checked={chosen.includes(g.id)}
+                onChange={(e) => onChange(e.target.checked ? [...chosen, g.id] : chosen.filter((x) => x !== g.id))}
               />
               {g.name}
             </label>

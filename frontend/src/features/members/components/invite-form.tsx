@@ -10,11 +10,11 @@ import { ROLE_LABELS, ROLE_NOTES } from '@frontend/lib/format';
 import { formMessage, serverFieldErrors, zodFieldErrors, type FieldErrors } from '@frontend/lib/form-errors';
 import { useSendInvitation } from '../api/send-invitation';
 
-export function InviteForm({ organisationId, groups }: { organisationId: string; groups: GroupOption[] }) {
+export function InviteForm({ organisationId, groups, mayGrantAll }: { organisationId: string; groups: GroupOption[]; mayGrantAll: boolean }) {
   const send = useSendInvitation(organisationId);
   const [email, setEmail] = useState('');
   const [role, setRole] = useState<Role>('analyst');
-  const [clientGroupIds, setClientGroupIds] = useState<string[] | null>(null);
+  const [clientGroupIds, setClientGroupIds] = useState<string[] | null>(mayGrantAll ? null : []);
   const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
   const [sentTo, setSentTo] = useState<string | null>(null);
 
@@ -30,7 +30,7 @@ export function InviteForm({ organisationId, groups }: { organisationId: string;
       onSuccess: (inv) => {
         setSentTo(inv.email);
         setEmail('');
-        setClientGroupIds(null);
+        setClientGroupIds(mayGrantAll ? null : []);
       },
       onError: (e) => setFieldErrors(serverFieldErrors(e)),
     });
@@ -50,7 +50,7 @@ export function InviteForm({ organisationId, groups }: { organisationId: string;
           ))}
         </SelectField>
       </div>
-      <ClientGroupPicker groups={groups} value={clientGroupIds} onChange={setClientGroupIds} error={fieldErrors.clientGroupIds} />
+      <ClientGroupPicker groups={groups} value={clientGroupIds} onChange={setClientGroupIds} error={fieldErrors.clientGroupIds} mayChooseAll={mayGrantAll} />
       {message && <Notice tone="fault">{message}</Notice>}
       {sentTo && <Notice tone="ok">Invitation sent to {sentTo}. The link works once and for 7 days.</Notice>}
       <div>

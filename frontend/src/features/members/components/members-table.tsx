@@ -15,7 +15,7 @@ import { useMembers } from '../api/get-members';
 import { useRemoveMember } from '../api/remove-member';
 import { useUpdateMember } from '../api/update-member';
 
-export function MembersTable({ organisationId, groups, currentUserId }: { organisationId: string; groups: GroupOption[]; currentUserId: string }) {
+export function MembersTable({ organisationId, groups, currentUserId, mayGrantAll }: { organisationId: string; groups: GroupOption[]; currentUserId: string; mayGrantAll: boolean }) {
   const members = useMembers(organisationId);
   const remove = useRemoveMember(organisationId);
   const [editing, setEditing] = useState<string | null>(null);
@@ -41,7 +41,7 @@ export function MembersTable({ organisationId, groups, currentUserId }: { organi
  >
             {members.data.map((m) =>
               editing === m.membershipId ? (
-                <MemberEditor key={m.membershipId} member={m} groups={groups} organisationId={organisationId} onDone={() => setEditing(null)} />
+                <MemberEditor key={m.membershipId} member={m} groups={groups} organisationId={organisationId} mayGrantAll={mayGrantAll} onDone={() => setEditing(null)} />
               ) : (
                 <tr key={m.membershipId} className={tr}>
                   <td className={td}>
@@ -74,7 +74,7 @@ export function MembersTable({ organisationId, groups, currentUserId }: { organi
   );
 }
 
-function MemberEditor({ member, groups, organisationId, onDone }: { member: MemberView; groups: GroupOption[]; organisationId: string; onDone: () => void }) {
+function MemberEditor({ member, groups, organisationId, mayGrantAll, onDone }: { member: MemberView; groups: GroupOption[]; organisationId: string; mayGrantAll: boolean; onDone: () => void }) {
   const update = useUpdateMember(organisationId);
   const [role, setRole] = useState<Role>(member.role);
   const [clientGroupIds, setClientGroupIds] = useState<string[] | null>(member.clientGroupIds);
@@ -104,7 +104,7 @@ function MemberEditor({ member, groups, organisationId, onDone }: { member: Memb
         </SelectField>
       </td>
       <td className={td} colSpan={2}>
-        <ClientGroupPicker groups={groups} value={clientGroupIds} onChange={setClientGroupIds} error={errors.clientGroupIds} />
+        <ClientGroupPicker groups={groups} value={clientGroupIds} onChange={setClientGroupIds} error={errors.clientGroupIds} mayChooseAll={mayGrantAll} />
       </td>
       <td className={`${td} text-right`}>
         <div className="flex flex-col items-end gap-2">

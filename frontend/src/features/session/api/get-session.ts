@@ -7,6 +7,11 @@ export const sessionQueryOptions = () =>
 
 export const useSession = () => useQuery(sessionQueryOptions());
 
+/** Whether the person's access in the active organisation is limited to client groups. */
+export function limitedToClientGroups(session: SessionResponse | undefined): boolean {
+  return session?.memberships.find((m) => m.organisationId === session.activeOrganisationId)?.limitedToClientGroups ?? false;
+}
+
 /**
  * After the person or the active organisation changed: drop every cached answer (all of it may belong to
  * the previous tenant) and keep only the new session.
