@@ -3,7 +3,7 @@ import { z } from 'zod';
 export const signInRequest = z
   .object({
     email: z.email('Enter an e-mail address').max(254),
-    password: z.string().min(1, 'Enter your password').max(1024),
+    password: z.string().min(1, 'Enter your password').max(4096),
   })
   .strict();
 export type SignInRequest = z.infer<typeof signInRequest>;
