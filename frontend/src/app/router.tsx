@@ -1,3 +1,4 @@
+import type { ComponentType } from 'react';
 import type { EnsureQueryDataOptions, QueryKey } from '@tanstack/react-query';
 import { createBrowserRouter, Navigate, redirect, RouterProvider, type LoaderFunctionArgs } from 'react-router-dom';
 import type { Permission } from '@shared/permissions';
@@ -5,7 +6,7 @@ import type { SessionResponse } from '@shared/schemas/session';
 import { RouteErrorPage } from '@frontend/components/ui/error-boundary';
 import { FirstLoad } from '@frontend/components/ui/query-state';
 import { apiTokensQueryOptions } from '@frontend/features/api-tokens/api/get-api-tokens';
-import { auditEventsQueryOptions } from '@frontend/features/audit/api/get-audit-events';
+import { auditEventsQueryOptions, auditFiltersFrom } from '@frontend/features/audit/api/get-audit-events';
 import { cleaningMethodsQueryOptions } from '@frontend/features/cleaning-methods/api/get-cleaning-methods';
 import { clientGroupsQueryOptions } from '@frontend/features/client-groups/api/get-client-groups';
 import { mailboxQueryOptions } from '@frontend/features/dev-mailbox/api/get-mailbox';
@@ -20,28 +21,12 @@ import { unitImportsQueryOptions } from '@frontend/features/imports/api/get-impo
 import { signInReturningTo } from '@frontend/lib/safe-next';
 import { appQueryClient } from './app-query-client';
 import { AppLayout } from './routes/app-layout';
-import { ForgotPasswordPage } from './routes/forgot-password';
-import { InvitationPage } from './routes/invitation';
-import { MailboxPage } from './routes/mailbox';
 import { NotFoundPage } from './routes/not-found';
-import { OverviewPage } from './routes/overview';
-import { PlantsPage } from './routes/plants';
-import { ResetPasswordPage } from './routes/reset-password';
-import { ApiTokensSettingsPage } from './routes/settings-api-tokens';
-import { AuditSettingsPage, auditFiltersFrom } from './routes/settings-audit';
-import { CleaningMethodsSettingsPage } from './routes/settings-cleaning-methods';
-import { ClientGroupsSettingsPage } from './routes/settings-client-groups';
-import { SettingsLayout } from './routes/settings-layout';
-import { MembersSettingsPage } from './routes/settings-members';
-import { ProfileSettingsPage } from './routes/settings-profile';
-import { SignInPage } from './routes/sign-in';
-import { SignUpPage } from './routes/sign-up';
-import { UnitEventsPage } from './routes/unit-events';
-import { UnitImportPage } from './routes/unit-import';
-import { UnitImportsPage } from './routes/unit-imports';
-import { UnitLayout } from './routes/unit-layout';
-import { UnitOverviewPage } from './routes/unit-overview';
-import { UnitSetupPage } from './routes/unit-setup';
+
+/** A page's code is fetched when its route is first visited, so the first screen loads only what it shows. */
+function page<M>(load: () => Promise<M>, pick: (module: M) => ComponentType) {
+  return async () => ({ Component: pick(await load()) });
+}
 
 const session = () => appQueryClient.ensureQueryData(sessionQueryOptions());
 
@@ -72,13 +57,13 @@ function tenantLoader(needs: Permission, load: (organisationId: string, args: Lo
 }
 
 const router = createBrowserRouter([
-  { path: '/sign-in', element: <SignInPage />, errorElement: <RouteErrorPage /> },
-  { path: '/sign-up', element: <SignUpPage />, errorElement: <RouteErrorPage /> },
-  { path: '/forgot-password', element: <ForgotPasswordPage />, errorElement: <RouteErrorPage /> },
-  { path: '/reset-password', element: <ResetPasswordPage />, errorElement: <RouteErrorPage /> },
+  { path: '/sign-in', lazy: page(() => import('./routes/sign-in'), (m) => m.SignInPage), errorElement: <RouteErrorPage /> },
+  { path: '/sign-up', lazy: page(() => import('./routes/sign-up'), (m) => m.SignUpPage), errorElement: <RouteErrorPage /> },
+  { path: '/forgot-password', lazy: page(() => import('./routes/forgot-password'), (m) => m.ForgotPasswordPage), errorElement: <RouteErrorPage /> },
+  { path: '/reset-password', lazy: page(() => import('./routes/reset-password'), (m) => m.ResetPasswordPage), errorElement: <RouteErrorPage /> },
   {
     path: '/invitation',
-    element: <InvitationPage />,
+    lazy: page(() => import('./routes/invitation'), (m) => m.InvitationPage),
     errorElement: <RouteErrorPage />,
     hydrateFallbackElement: <FirstLoad />,
     loader: async ({ request }) => {
@@ -89,7 +74,7 @@ const router = createBrowserRouter([
   },
   {
     path: '/mailbox',
-    element: <MailboxPage />,
+    lazy: page(() => import('./routes/mailbox'), (m) => m.MailboxPage),
     errorElement: <RouteErrorPage />,
     hydrateFallbackElement: <FirstLoad />,
     loader: async () => {
@@ -105,49 +90,49 @@ const router = createBrowserRouter([
     errorElement: <RouteErrorPage />,
     hydrateFallbackElement: <FirstLoad />,
     children: [
-      { index: true, element: <OverviewPage /> },
+      { index: true, lazy: page(() => import('./routes/overview'), (m) => m.OverviewPage) },
       {
         path: 'plants',
-        element: <PlantsPage />,
+        lazy: page(() => import('./routes/plants'), (m) => m.PlantsPage),
         loader: tenantLoader('data.read', (org) => [prefetch(plantsQueryOptions(org)), prefetch(clientGroupsQueryOptions(org))]),
       },
       {
         path: 'units/:unitId',
-        element: <UnitLayout />,
+        lazy: page(() => import('./routes/unit-layout'), (m) => m.UnitLayout),
         loader: tenantLoader('data.read', (org, { params }) => [prefetch(unitQueryOptions(org, params.unitId ?? ''))]),
         children: [
-          { index: true, element: <UnitOverviewPage /> },
-          { path: 'setup', element: <UnitSetupPage /> },
-          { path: 'import', element: <UnitImportPage /> },
-          { path: 'imports', element: <UnitImportsPage />, loader: tenantLoader('data.read', (org, { params }) => [prefetch(unitImportsQueryOptions(org, params.unitId ?? ''))]) },
-          { path: 'events', element: <UnitEventsPage />, loader: tenantLoader('data.read', (org, { params }) => [prefetch(eventsQueryOptions(org, params.unitId ?? '')), prefetch(cleaningMethodsQueryOptions(org))]) },
+          { index: true, lazy: page(() => import('./routes/unit-overview'), (m) => m.UnitOverviewPage) },
+          { path: 'setup', lazy: page(() => import('./routes/unit-setup'), (m) => m.UnitSetupPage) },
+          { path: 'import', lazy: page(() => import('./routes/unit-import'), (m) => m.UnitImportPage) },
+          { path: 'imports', lazy: page(() => import('./routes/unit-imports'), (m) => m.UnitImportsPage), loader: tenantLoader('data.read', (org, { params }) => [prefetch(unitImportsQueryOptions(org, params.unitId ?? ''))]) },
+          { path: 'events', lazy: page(() => import('./routes/unit-events'), (m) => m.UnitEventsPage), loader: tenantLoader('data.read', (org, { params }) => [prefetch(eventsQueryOptions(org, params.unitId ?? '')), prefetch(cleaningMethodsQueryOptions(org))]) },
         ],
       },
       {
         path: 'settings',
-        element: <SettingsLayout />,
+        lazy: page(() => import('./routes/settings-layout'), (m) => m.SettingsLayout),
         children: [
           { index: true, element: <Navigate to="/settings/profile" replace /> },
-          { path: 'profile', element: <ProfileSettingsPage /> },
+          { path: 'profile', lazy: page(() => import('./routes/settings-profile'), (m) => m.ProfileSettingsPage) },
           {
             path: 'members',
-            element: <MembersSettingsPage />,
+            lazy: page(() => import('./routes/settings-members'), (m) => m.MembersSettingsPage),
             loader: tenantLoader('members.manage', (org) => [
               prefetch(membersQueryOptions(org)),
               prefetch(invitationsQueryOptions(org)),
               prefetch(clientGroupsQueryOptions(org)),
             ]),
           },
-          { path: 'client-groups', element: <ClientGroupsSettingsPage />, loader: tenantLoader('data.read', (org) => [prefetch(clientGroupsQueryOptions(org))]) },
+          { path: 'client-groups', lazy: page(() => import('./routes/settings-client-groups'), (m) => m.ClientGroupsSettingsPage), loader: tenantLoader('data.read', (org) => [prefetch(clientGroupsQueryOptions(org))]) },
           {
             path: 'cleaning-methods',
-            element: <CleaningMethodsSettingsPage />,
+            lazy: page(() => import('./routes/settings-cleaning-methods'), (m) => m.CleaningMethodsSettingsPage),
             loader: tenantLoader('data.read', (org) => [prefetch(cleaningMethodsQueryOptions(org))]),
           },
-          { path: 'api-tokens', element: <ApiTokensSettingsPage />, loader: tenantLoader('calc.use', (org) => [prefetch(apiTokensQueryOptions(org))]) },
+          { path: 'api-tokens', lazy: page(() => import('./routes/settings-api-tokens'), (m) => m.ApiTokensSettingsPage), loader: tenantLoader('calc.use', (org) => [prefetch(apiTokensQueryOptions(org))]) },
           {
             path: 'audit',
-            element: <AuditSettingsPage />,
+            lazy: page(() => import('./routes/settings-audit'), (m) => m.AuditSettingsPage),
             loader: tenantLoader('audit.read', (org, { request }) => [
               prefetch(auditEventsQueryOptions(org, auditFiltersFrom(new URL(request.url).searchParams))),
               prefetch(auditEventsQueryOptions(org, {})),

@@ -1,16 +1,9 @@
 import { useSearchParams } from 'react-router-dom';
 import { whyNot } from '@shared/permissions';
 import { NoOrganisation, NotPermitted } from '@frontend/components/ui/not-permitted';
-import type { AuditFilters } from '@frontend/features/audit/api/get-audit-events';
+import { auditFiltersFrom } from '@frontend/features/audit/api/get-audit-events';
 import { AuditLog } from '@frontend/features/audit/components/audit-log';
 import { useSession } from '@frontend/features/session/api/get-session';
-
-const FILTER_KEYS = ['action', 'userId', 'entityType', 'from', 'to'] as const;
-
-/** The filters live in the address, so a filtered view can be bookmarked, shared or printed. */
-export function auditFiltersFrom(params: URLSearchParams): AuditFilters {
-  return Object.fromEntries(FILTER_KEYS.flatMap((k) => (params.get(k) ? [[k, params.get(k)!]] : [])));
-}
 
 export function AuditSettingsPage() {
   const { data: session } = useSession();

@@ -10,6 +10,13 @@ export interface AuditFilters {
   to?: string;
 }
 
+const FILTER_KEYS = ['action', 'userId', 'entityType', 'from', 'to'] as const;
+
+/** The filters live in the address, so a filtered view can be bookmarked, shared or printed. */
+export function auditFiltersFrom(params: URLSearchParams): AuditFilters {
+  return Object.fromEntries(FILTER_KEYS.flatMap((k) => (params.get(k) ? [[k, params.get(k)!]] : [])));
+}
+
 const toSearch = (f: AuditFilters) =>
   new URLSearchParams(Object.entries(f).filter((e): e is [string, string] => typeof e[1] === 'string' && e[1] !== '')).toString();
 

@@ -1,12 +1,10 @@
-import { useEffect, useId, useRef, useState, type FormEvent } from 'react';
-import { createOrganisationRequest } from '@shared/schemas/accounts';
+import { lazy, Suspense, useEffect, useId, useRef, useState } from 'react';
 import type { SessionResponse } from '@shared/schemas/session';
-import { Button } from '@frontend/components/ui/button';
-import { TextField } from '@frontend/components/ui/text-field';
 import { ROLE_LABELS } from '@frontend/lib/format';
-import { formMessage, formText, serverFieldErrors, zodFieldErrors, type FieldErrors } from '@frontend/lib/form-errors';
-import { useCreateOrganisation } from '../api/create-organisation';
 import { useSwitchOrganisation } from '../api/switch-organisation';
+
+// The form (and the validation it carries) is fetched only when someone starts an organisation.
+const StartOrganisationForm = lazy(() => import('./start-organisation-form'));
 
 /**
  * The active organisation in the header; opens a list of the person's organisations and a way to start
@@ -98,7 +96,9 @@ export function OrganisationSwitcher({ session, onSwitched }: { session: Session
           )}
           <div className="mt-2 border-t border-rule pt-2">
             {starting ? (
-              <StartOrganisationForm onCreated={done} onCancel={() => setStarting(false)} />
+              <Suspense fallback={<p className="px-2 py-1.5 text-sm text-ink-soft">Loading…</p>}>
+                <StartOrganisationForm onCreated={done} onCancel={() => setStarting(false)} />
+              </Suspense>
             ) : (
               <button type="button" className="w-full rounded px-2 py-1.5 text-left text-sm text-tube-700 hover:bg-paper-sunk" onClick={() => setStarting(true)}>
                 Start another organisation…
@@ -108,36 +108,5 @@ export function OrganisationSwitcher({ session, onSwitched }: { session: Session
         </div>
       )}
     </div>
-  );
-}
-
-function StartOrganisationForm({ onCreated, onCancel }: { onCreated: () => void; onCancel: () => void }) {
-  const create = useCreateOrganisation();
-  const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
-  const onSubmit = (event: FormEvent<HTMLFormElement>) => {
-    event.preventDefault();
-    const parsed = createOrganisationRequest.safeParse(formText(event.currentTarget, 'name'));
-    if (!parsed.success) return setFieldErrors(zodFieldErrors(parsed.error));
-    setFieldErrors({});
-    create.mutate(parsed.data, { onSuccess: onCreated, onError: (e) => setFieldErrors(serverFieldErrors(e)) });
-  };
-  const message = formMessage(create.error);
-  return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-2 px-2 pb-1">
-      <TextField label="New organisation’s name" name="name" autoFocus error={fieldErrors.name} hint="Starts a 30-day trial with you as administrator." />
-      {message && (
-        <p role="alert" className="text-xs text-fault">
-          {message}
-        </p>
-      )}
-      <div className="flex justify-end gap-2">
-        <Button variant="quiet" onClick={onCancel}>
-          Cancel
-        </Button>
-        <Button type="submit" disabled={create.isPending}>
-          {create.isPending ? 'Starting…' : 'Start'}
-        </Button>
-      </div>
-    </form>
   );
 }
