@@ -4,23 +4,12 @@
  * A bad input yields {"error": "..."} in its place; exit code 1 if any input failed.
  */
 import { readFileSync } from 'node:fs';
-import { CALC_COMMANDS } from './command-registry.js';
-import { runCalc } from './run-calc.js';
-
-function main(): number {
-  const name = process.argv[2] ?? '';
-  const command = Object.hasOwn(CALC_COMMANDS, name) ? CALC_COMMANDS[name] : undefined;
-  if (!command) {
-    process.stdout.write(`${JSON.stringify({ error: `unknown command "${name}"; one of: ${Object.keys(CALC_COMMANDS).join(', ')}` })}\n`);
-    return 1;
-  }
-  const { output, failed } = runCalc(command, readFileSync(0, 'utf8'));
-  process.stdout.write(`${output}\n`);
-  return failed ? 1 : 0;
-}
+import { runCalcCli } from './run-calc-cli.js';
 
 try {
-  process.exitCode = main();
+  const { output, exitCode } = runCalcCli(process.argv[2] ?? '', readFileSync(0, 'utf8'));
+  process.stdout.write(`${output}\n`);
+  process.exitCode = exitCode;
 } catch (err) {
   process.stdout.write(`${JSON.stringify({ error: err instanceof Error ? err.message : String(err) })}\n`);
   process.exitCode = 1;

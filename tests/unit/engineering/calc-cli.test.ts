@@ -1,13 +1,17 @@
-/** The calc CLI end to end: `npx tsx backend/src/cli/calc.ts <command>` with JSON on stdin (ENGINEERING.md §8). */
+/**
+ * The calc CLI: each case runs the command runner in-process (name + stdin text → stdout text + exit code);
+ * one smoke test spawns `npm run --silent calc` to check the process wiring (ENGINEERING.md §8).
+ */
 import { describe, expect, it } from 'vitest';
 import { spawnSync } from 'node:child_process';
 import path from 'node:path';
+import { runCalcCli } from '@backend/cli/run-calc-cli.js';
 
 const ROOT = path.resolve(import.meta.dirname, '../../..');
 
-function calc(command: string, input: unknown): { status: number | null; body: unknown } {
-  const r = spawnSync('npx', ['tsx', 'backend/src/cli/calc.ts', command], { cwd: ROOT, input: JSON.stringify(input), encoding: 'utf8', timeout: 60_000 });
-  return { status: r.status, body: JSON.parse(r.stdout) };
+function calc(command: string, input: unknown): { status: number; body: unknown } {
+  const { output, exitCode } = runCalcCli(command, JSON.stringify(input));
+  return { status: exitCode, body: JSON.parse(output) };
 }
 
 const point = {
@@ -68,9 +72,20 @@ describe('calc CLI', () => {
   });
 
   it('an unknown command and bad JSON give an error object and exit 1', () => {
-    expect(calc('no-such-command', {}).status).toBe(1);
-    const r = spawnSync('npx', ['tsx', 'backend/src/cli/calc.ts', 'saturation'], { cwd: ROOT, input: '{oops', encoding: 'utf8' });
+    const unknown = calc('no-such-command', {});
+    expect(unknown.status).toBe(1);
+    expect((unknown.body as { error: string }).error).toMatch(/unknown command "no-such-command"; one of: saturation, /);
+    const bad = runCalcCli('saturation', '{oops');
+    expect(bad.exitCode).toBe(1);
+    expect(JSON.parse(bad.output)).toEqual({ error: 'stdin is not valid JSON' });
+  });
+
+  it('as a process (`npm run --silent calc`): reads stdin, prints one JSON line, exits 1 when an input failed', () => {
+    const r = spawnSync('npm', ['run', '--silent', 'calc', '--', 'saturation'], { cwd: ROOT, input: JSON.stringify([{ pressureKpa: 8 }, { pressureKpa: 'eight' }]), encoding: 'utf8', timeout: 60_000 });
     expect(r.status).toBe(1);
-    expect(JSON.parse(r.stdout)).toEqual({ error: 'stdin is not valid JSON' });
+    expect(r.stdout.trim().split('\n')).toHaveLength(1);
+    const [ok, bad] = JSON.parse(r.stdout) as [{ temperatureC: number }, { error: string }];
+    expect(ok.temperatureC).toBeCloseTo(41.51, 2);
+    expect(bad.error).toMatch(/pressureKpa/);
   });
 });

@@ -21,6 +21,8 @@ export interface DemoFileSetOptions {
   /** The day the demo is made on, for every plant (tests); without it, each plant's own today at `now`. */
   today?: string;
   now?: Date;
+  /** Days of history per unit (generateDemoUnitData); the whole story by default. */
+  days?: number;
   /** Only these units (by key); all of them by default. */
   units?: string[];
 }
@@ -30,7 +32,7 @@ export async function writeDemoFileSets(dir: string, options: DemoFileSetOptions
   const now = options.now ?? new Date();
   for (const unit of DEMO_UNITS.filter((u) => !options.units || options.units.includes(u.key))) {
     const today = options.today ?? plantToday(demoPlant(unit.plantKey).timeZone, now);
-    const data = generateDemoUnitData(unit, { today, seed: options.seed ?? DEMO_SCENARIO_SEED });
+    const data = generateDemoUnitData(unit, { today, seed: options.seed ?? DEMO_SCENARIO_SEED, days: options.days });
     const csvPath = path.join(dir, `${unit.key}.csv`);
     await writeDemoCsv(data, csvPath);
     const set: DemoFileSet = { plant: demoPlant(unit.plantKey), data, csvPath, csvMapping: demoImportMapping(data, 'csv') };

@@ -12,7 +12,8 @@
  * No value is ever missing: the file stays importable, the bad rows get validity codes.
  *
  * The story is written for 2023–2025 and played moved so that it ends the day before the given "today"
- * (demo-calendar.ts): the same seed and the same today give the same rows.
+ * (demo-calendar.ts): the same seed and the same today give the same rows. A shorter span plays only the
+ * story's last days (the same dates, cleanings and fouling state; tests use it to stay quick).
  */
 import { DateTime } from 'luxon';
 import { backpressureAtCleanlinessKpa, cwRiseK } from '@shared/domain/condenser/index.js';
@@ -68,6 +69,8 @@ export interface DemoGenerationOptions {
   /** The plant-local day the demo is made on (YYYY-MM-DD): the history ends with the day before. */
   today: string;
   seed?: number;
+  /** Days of history, ending the day before today: MIN_DEMO_SPAN_DAYS up to the whole story (the default). */
+  days?: number;
 }
 
 export interface DemoUnitData {
@@ -82,6 +85,8 @@ export interface DemoUnitData {
 }
 
 const MS_PER_HOUR = 3_600_000;
+/** The shortest span that still leaves room for the injected faults (they keep 500 hours from either end). */
+export const MIN_DEMO_SPAN_DAYS = 60;
 const AIR_REMOVAL_NORMAL_KGS = massFlowToKgS(7, 'scfm');
 const AIR_REMOVAL_LEAK_KGS = massFlowToKgS(26, 'scfm');
 
@@ -133,19 +138,30 @@ export function generateDemoUnitData(written: DemoUnitSpec, options: DemoGenerat
   const plant = demoPlant(unit.plantKey);
   const zone = plant.timeZone;
   const rng = new DemoRandom(seedFromText(unit.key, (options.seed ?? DEMO_SCENARIO_SEED) + unit.seed));
-  const startMs = DateTime.fromISO(shiftDay(DEMO_START_LOCAL, shift), { zone }).toMillis();
-  const endMs = DateTime.fromISO(shiftDay(DEMO_END_LOCAL, shift), { zone }).toMillis();
+  const storyStartDay = shiftDay(DEMO_START_LOCAL, shift);
+  const endDay = shiftDay(DEMO_END_LOCAL, shift);
+  const startDay = options.days === undefined ? storyStartDay : shiftDay(endDay, -checkedSpanDays(options.days));
+  const startMs = DateTime.fromISO(startDay, { zone }).toMillis();
+  const endMs = DateTime.fromISO(endDay, { zone }).toMillis();
   const rating = unit.turbine.ratingMw;
   const forced = forcedOutages(written, rng).map((o) => ({ ...o, start: shiftDay(o.start, shift), end: shiftDay(o.end, shift) }));
-  const outages: DemoOutage[] = [...unit.plannedOutages.map((o) => ({ start: o.start, end: o.end, kind: 'planned' as const })), ...forced].sort((a, b) => a.start.localeCompare(b.start));
+  const outages: DemoOutage[] = [...unit.plannedOutages.map((o) => ({ start: o.start, end: o.end, kind: 'planned' as const })), ...forced]
+    .filter((o) => o.end >= startDay && o.start < endDay)
+    .sort((a, b) => a.start.localeCompare(b.start));
   const cleaningByEnd = new Map(unit.plannedOutages.filter((o) => o.cleaning).map((o) => [o.end, o.cleaning!]));
   const airLeakStartUtc = DateTime.fromISO(unit.airLeak.start, { zone }).toMillis();
   const airLeakEndUtc = DateTime.fromISO(unit.airLeak.end, { zone }).plus({ days: 1 }).toMillis();
 
   const hours: DemoHour[] = [];
   const cleanings: DemoCleaning[] = [];
+  // the fouling state the story has reached by the first day played: its start, then each cleaning before that day
   let cf0 = unit.fouling.cleanCf;
-  let cleanedAtMs = startMs - unit.fouling.daysSinceCleaningAtStart * 24 * MS_PER_HOUR;
+  let cleanedAtMs = DateTime.fromISO(storyStartDay, { zone }).toMillis() - unit.fouling.daysSinceCleaningAtStart * 24 * MS_PER_HOUR;
+  for (const [end, cleaning] of [...cleaningByEnd].sort(([a], [b]) => a.localeCompare(b))) {
+    if (end >= startDay) break;
+    cf0 = cleaning.cfAfter;
+    cleanedAtMs = DateTime.fromISO(end, { zone }).toMillis();
+  }
   let weather = 0;
   let baroWeather = 0;
   let winterLineup = false;
@@ -233,6 +249,14 @@ export function generateDemoUnitData(written: DemoUnitSpec, options: DemoGenerat
     airLeak: { start: unit.airLeak.start, end: unit.airLeak.end, startUtc: airLeakStartUtc, endUtc: airLeakEndUtc },
     designBackpressureKpa: designBackpressureKpa(unit),
   };
+}
+
+/** The story's length in days (1,096: 2023-01-01 to 2026-01-01). */
+const STORY_DAYS = Math.round(DateTime.fromISO(DEMO_END_LOCAL, { zone: 'UTC' }).diff(DateTime.fromISO(DEMO_START_LOCAL, { zone: 'UTC' }), 'days').days);
+
+function checkedSpanDays(days: number): number {
+  if (!Number.isInteger(days) || days < MIN_DEMO_SPAN_DAYS || days > STORY_DAYS) throw new RangeError(`a demo span is a whole number of days from ${MIN_DEMO_SPAN_DAYS} to ${STORY_DAYS}, not ${days}`);
+  return days;
 }
 
 /** A few non-physical or faulty readings at random operating hours (values stay present). */

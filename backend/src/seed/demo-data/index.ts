@@ -5,6 +5,7 @@ export {
   designBackpressureKpa,
   dutyAtLoadMw,
   foulingCleanliness,
+  MIN_DEMO_SPAN_DAYS,
   type DemoHour,
   type DemoUnitData,
   type DemoCleaning,
