@@ -10,6 +10,9 @@ const organisationName = (empty: string) => z.string().trim().min(2, empty).max(
 const newPassword = z.string().min(1, 'Enter a password').max(4096);
 const uuid = z.uuid('Not a valid id');
 
+/** A client-group limit: each group once, whatever the client sent. */
+const groupIdList = z.array(uuid).max(200).transform((ids) => [...new Set(ids)]);
+
 export const signUpRequest = z
   .object({
     name: personName,
@@ -34,7 +37,7 @@ export const profileUpdate = z
 export const passwordChange = z.object({ currentPassword: z.string().max(4096), newPassword }).strict();
 
 export const inviteRequest = z
-  .object({ email, role: roleSchema, clientGroupIds: z.array(uuid).max(200).nullable().default(null) })
+  .object({ email, role: roleSchema, clientGroupIds: groupIdList.nullable().default(null) })
   .strict();
 export type InviteRequest = z.infer<typeof inviteRequest>;
 
@@ -43,7 +46,7 @@ export const acceptInvitationRequest = z
   .strict();
 
 export const memberUpdate = z
-  .object({ role: roleSchema.optional(), clientGroupIds: z.array(uuid).max(200).nullable().optional() })
+  .object({ role: roleSchema.optional(), clientGroupIds: groupIdList.nullable().optional() })
   .strict()
   .refine((v) => v.role !== undefined || v.clientGroupIds !== undefined, 'Nothing to change');
 

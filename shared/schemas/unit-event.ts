@@ -5,12 +5,14 @@ import { MAX_TUBE_COUNT } from '../limits.js';
 export const UNIT_EVENT_KINDS = ['cleaning', 'tube-plugging', 'air-leak-repair', 'outage', 'other'] as const;
 
 const isoDate = z.iso.date('Use a date like 2026-05-14');
+/** A day a condenser record can plausibly carry (no unit ran before 1900; plans reach a few decades ahead). */
+const eventDate = isoDate.refine((d) => d >= '1900-01-01' && d <= '2200-12-31', 'Use a date between 1900 and 2200');
 
 export const unitEventInput = z
   .object({
     kind: z.enum(UNIT_EVENT_KINDS),
-    startDate: isoDate,
-    endDate: isoDate.nullable().default(null),
+    startDate: eventDate,
+    endDate: eventDate.nullable().default(null),
     methodId: z.string().max(64).nullable().default(null),
     cost: within('the cost', 0, 1e10).nullable().default(null),
     cleanlinessBefore: cleanlinessFactor('the cleanliness before').nullable().default(null),

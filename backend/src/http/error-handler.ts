@@ -1,10 +1,20 @@
 import type { NextFunction, Request, Response } from 'express';
+import { QueryFailedError } from 'typeorm';
 import { AppError } from './app-error.js';
+
+const ER_LOCK_WAIT_TIMEOUT = 1205;
+const ER_LOCK_DEADLOCK = 1213;
 
 /** One JSON error shape; never a stack trace. */
 export function errorHandler(err: unknown, req: Request, res: Response, _next: NextFunction): void {
   if (err instanceof AppError) {
     res.status(err.status).json({ error: err.message, ...(err.details ? { details: err.details } : {}) });
+    return;
+  }
+  // Two requests changing the same rows at once: MariaDB rolled this one back whole, so nothing changed.
+  const errno = (err as { driverError?: { errno?: number } } | null)?.driverError?.errno;
+  if (err instanceof QueryFailedError && (errno === ER_LOCK_DEADLOCK || errno === ER_LOCK_WAIT_TIMEOUT)) {
+    res.status(409).json({ error: 'Someone changed the same records at the same time; nothing was changed by this request. Reload and try again.' });
     return;
   }
   const status = typeof err === 'object' && err && 'status' in err ? Number((err as { status: number }).status) : 500;

@@ -6,7 +6,7 @@
 import type { Express, NextFunction, Request, RequestHandler, Response } from 'express';
 import type { ZodType } from 'zod';
 import { PERMISSIONS, type Permission } from '@shared/permissions.js';
-import { findIllFormedText } from '@shared/well-formed-text.js';
+import { findTextProblem } from '@shared/well-formed-text.js';
 import { AppError, forbidden, unauthorised } from './app-error.js';
 import { csrfGuard } from './csrf.js';
 import { rejectPrivilegedFields } from './privileged-fields.js';
@@ -55,10 +55,14 @@ function validate(spec: RouteSpec): RequestHandler {
   return (req: Request, _res: Response, next: NextFunction) => {
     // Every route, with a schema or without: broken text never reaches a service or the database.
     for (const part of ['body', 'query'] as const) {
-      const where = findIllFormedText(req[part] ?? {});
-      if (where !== null) {
+      const found = findTextProblem(req[part] ?? {});
+      if (found?.problem === 'surrogate') {
         const message = 'This text holds a broken character (a lone UTF-16 surrogate): retype it or paste it again from its source';
-        return next(new AppError(400, 'Some text could not be read: it holds a broken character', { fieldErrors: [{ path: where, message }] }));
+        return next(new AppError(400, 'Some text could not be read: it holds a broken character', { fieldErrors: [{ path: found.path, message }] }));
+      }
+      if (found?.problem === 'control') {
+        const message = 'This text holds a control character (such as NUL or escape): only letters, digits, symbols, tabs and line breaks';
+        return next(new AppError(400, 'Some text holds a control character', { fieldErrors: [{ path: found.path, message }] }));
       }
     }
     for (const [part, schema] of [['body', spec.body], ['query', spec.query]] as const) {

@@ -26,6 +26,8 @@ export function singleFileUpload(uploadDir: string): RequestHandler {
       filename: (_req, _file, cb) => cb(null, `${Date.now()}-${Math.random().toString(36).slice(2)}.upload`),
     }),
     limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 5 },
+    // Browsers send file names in UTF-8; multer's default reads them as Latin-1 ("KÃ¼hlwasser.csv").
+    defParamCharset: 'utf8',
   }).single('file');
   return (req, res, next) =>
     upload(req, res, (err: unknown) => {

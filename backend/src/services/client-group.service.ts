@@ -2,7 +2,7 @@ import type { DataSource } from 'typeorm';
 import type { ClientGroupView } from '@shared/schemas/accounts.js';
 import { ClientGroup } from '../entities/client-group.entity.js';
 import { Membership } from '../entities/membership.entity.js';
-import { AppError, notFound } from '../http/app-error.js';
+import { AppError, forbidden, notFound } from '../http/app-error.js';
 import type { TenantScope } from '../policies/tenant-scope.js';
 import { findClientGroup, listClientGroups } from '../repositories/client-group.repository.js';
 import { recordAudit } from './audit.service.js';
@@ -46,6 +46,8 @@ export async function renameGroup(ds: DataSource, scope: TenantScope, id: string
 
 /** Removes the group and takes it out of every membership limit (a limit that becomes empty stays empty: sees nothing). */
 export async function deleteGroup(ds: DataSource, scope: TenantScope, id: string): Promise<void> {
+  // It rewrites limits and plants beyond any one group, so someone limited to groups may not do it.
+  if (scope.clientGroupIds !== null) throw forbidden('Deleting a client group changes people and plants in other groups: only members without a client-group limit can do it');
   const group = await findClientGroup(ds.manager, scope, id);
   if (!group) throw notFound('No such client group');
   await ds.transaction(async (em) => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { findIllFormedText, isWellFormedText } from '@shared/well-formed-text.js';
+import { findIllFormedText, findTextProblem, isWellFormedText } from '@shared/well-formed-text.js';
 
 describe('well-formed text', () => {
   it('accepts ordinary text, accents, CJK and emoji (a surrogate pair)', () => {
@@ -15,6 +15,14 @@ describe('well-formed text', () => {
     expect(findIllFormedText({ ['k\udc00']: 'v' })).toBe('k\ufffd');
     expect(findIllFormedText({ name: 'fine', list: [1, null, true, 'x'] })).toBeNull();
     expect(findIllFormedText('\ud800')).toBe('');
+  });
+
+  it('refuses control characters other than tab and line breaks, and says which problem it found', () => {
+    expect(findTextProblem({ name: 'Plant\u0000B' })).toEqual({ path: 'name', problem: 'control' });
+    expect(findTextProblem({ notes: 'bell\u0007' })).toEqual({ path: 'notes', problem: 'control' });
+    expect(findTextProblem({ notes: 'del\u007f' })).toEqual({ path: 'notes', problem: 'control' });
+    expect(findTextProblem({ notes: 'line one\n\tline two\r\n' })).toBeNull();
+    expect(findTextProblem({ name: 'x\ud800' })).toEqual({ path: 'name', problem: 'surrogate' });
   });
 
   it('walks a deeply nested body without running out of stack', () => {
