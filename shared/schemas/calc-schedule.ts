@@ -127,7 +127,7 @@ export const calcScheduleInput = z
             fuelPrice: range(multiplier),
             replacementPrice: range(multiplier),
             cleaningCost: range(multiplier),
-            recoveredCleanliness: range(z.number().finite().min(-1).max(1)),
+            recoveredCleanliness: range(z.number().finite().min(-1, 'a cleanliness shift is at least −1').max(1, 'a cleanliness shift is at most 1')),
             discountRate: range(z.number().finite().gt(-1, 'a discount rate must be above −1')),
           })
           .partial()

@@ -78,7 +78,9 @@ export function curveChangePct(curve: CorrectionCurve, loadFraction: number, bac
 export function curveExtrapolationWarning(curve: CorrectionCurve, loadFraction: number, backpressureKpa: number): string | undefined {
   const { loads, cubics } = compileCorrectionCurve(curve);
   const n = loads.length;
-  const used = n === 1 || loadFraction <= loads[0] ? [0] : loadFraction >= loads[n - 1] ? [n - 1] : [loads.findIndex((l) => l >= loadFraction) - 1, loads.findIndex((l) => l >= loadFraction)];
+  const above = loads.findIndex((l) => l >= loadFraction);
+  // Only the curves the reading blends: one when the load sits on a curve (or outside them all), else the two around it.
+  const used = n === 1 || loadFraction <= loads[0] ? [0] : above === -1 ? [n - 1] : loads[above] === loadFraction ? [above] : [above - 1, above];
   const lastKpa = Math.min(...used.map((i) => cubics[i].xs[cubics[i].xs.length - 1]));
   if (!(backpressureKpa > lastKpa)) return undefined;
   return `backpressure ${+backpressureKpa.toPrecision(4)} kPa is beyond the correction curve's last point (${+lastKpa.toPrecision(4)} kPa at load ${loadFraction}): the curve is continued in a straight line there`;

@@ -55,6 +55,10 @@ describe('schedule input bounds (the same as the penalty command)', () => {
     expect(refusal({ ...input, uncertainty: { ranges: { fuelPrice: { low: -0.5, base: 1, high: 1.3 } } } })).toMatch(/fuelPrice\.low/);
   });
 
+  it('says in our words why a cleanliness shift outside −1…1 is refused', () => {
+    expect(refusal({ ...input, uncertainty: { ranges: { recoveredCleanliness: { low: -1.5, base: 0, high: 0.05 } } } })).toMatch(/recoveredCleanliness\.low: a cleanliness shift is at least −1/);
+  });
+
   it('the CLI answers a negative fuel price with an error in its place, and still answers the other inputs', () => {
     const out = runCalc(schedule, JSON.stringify([withDrivers({ fuelPricePerMmbtu: -3.5 }), withDrivers({ loadFraction: 1.3 }), input]));
     expect(out.failed).toBe(true);

@@ -4,6 +4,7 @@ import {
   buildMonotoneCubic,
   evaluateMonotoneCubic,
   GENERIC_CORRECTION_CURVE,
+  curveExtrapolationWarning,
   heatRateChangePct,
   penaltyBetween,
   lostGenerationValuePerMwh,
@@ -70,6 +71,22 @@ describe('monotone cubic (PCHIP)', () => {
 });
 
 describe('exhaust-pressure correction curve', () => {
+  it('warns past the last point of the curve actually read: at exactly an inner load only that load’s curve counts', () => {
+    const three: CorrectionCurve = {
+      basis: 'heat-rate',
+      label: 'three loads',
+      isGeneric: false,
+      curves: [
+        { loadFraction: 0.5, points: [{ backpressureKpa: 4, changePct: -1 }, { backpressureKpa: 7, changePct: 0 }, { backpressureKpa: 10, changePct: 3 }] },
+        { loadFraction: 0.75, points: [{ backpressureKpa: 4, changePct: -1 }, { backpressureKpa: 8, changePct: 0 }, { backpressureKpa: 20, changePct: 8 }] },
+        { loadFraction: 1, points: [{ backpressureKpa: 4, changePct: -1 }, { backpressureKpa: 8, changePct: 0 }, { backpressureKpa: 20, changePct: 7 }] },
+      ],
+    };
+    expect(curveExtrapolationWarning(three, 0.75, 15)).toBeUndefined();
+    expect(curveExtrapolationWarning(three, 0.75, 21)).toMatch(/20 kPa at load 0.75/);
+    expect(curveExtrapolationWarning(three, 0.6, 15)).toMatch(/10 kPa/);
+  });
+
   it('is flat below the choke point (the first point of each load curve)', () => {
     expect(heatRateChangePct(TWO_LOADS, 1, 2)).toBe(-0.5);
     expect(heatRateChangePct(TWO_LOADS, 1, 3.9)).toBe(-0.5);
