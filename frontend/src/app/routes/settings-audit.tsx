@@ -3,7 +3,7 @@ import { whyNot } from '@shared/permissions';
 import { NoOrganisation, NotPermitted } from '@frontend/components/ui/not-permitted';
 import { auditFiltersFrom } from '@frontend/features/audit/api/get-audit-events';
 import { AuditLog } from '@frontend/features/audit/components/audit-log';
-import { useSession } from '@frontend/features/session/api/get-session';
+import { limitedToClientGroups, useSession } from '@frontend/features/session/api/get-session';
 
 export function AuditSettingsPage() {
   const { data: session } = useSession();
@@ -11,6 +11,7 @@ export function AuditSettingsPage() {
   const organisationId = session?.activeOrganisationId;
   if (!session?.user || !organisationId) return <NoOrganisation />;
   if (!session.permissions.includes('audit.read')) return <NotPermitted what="The audit log" reason={whyNot('audit.read')} />;
+  if (limitedToClientGroups(session)) return <NotPermitted what="The audit log" reason="It names plants and people in every client group, so only members who see every client group can read it." />;
   return (
     <section className="flex flex-col gap-4">
       <div>
