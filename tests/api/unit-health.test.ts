@@ -7,7 +7,7 @@ import ExcelJS from 'exceljs';
 import type TestAgent from 'supertest/lib/agent.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analyseCondenserPoint, backpressureAtCleanlinessKpa } from '@shared/domain/condenser/index.js';
-import { addDays, daysBetween } from '@shared/domain/decision/calendar/plant-date.js';
+import { addDays, daysBetween } from '@shared/domain/calendar/plant-date.js';
 import { analyseSample, buildUnitModel, type UnitSetupSi } from '@shared/domain/monitoring/index.js';
 import { drainJobs } from '../../backend/src/jobs/job-worker.js';
 import { JOB_HANDLERS } from '../../backend/src/jobs/job-handlers.js';

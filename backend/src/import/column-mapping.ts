@@ -151,14 +151,15 @@ const numericValues = (rows: string[][], index: number, comma: boolean): number[
     .map((c) => Number(comma ? c.replace(',', '.') : c))
     .filter(Number.isFinite);
 
-const median = (xs: number[]): number => {
+/** A typical value of a column: its upper middle value, one the file itself holds (so a message can quote it); NaN for none. */
+const typicalValue = (xs: number[]): number => {
   const s = [...xs].sort((a, b) => a - b);
   return s.length === 0 ? Number.NaN : s[Math.floor(s.length / 2)];
 };
 
 /** Unit of a column from typical magnitudes of its values [common practice, rough]. */
 function unitFromValues(quantity: GuessedQuantity, values: number[]): string | null {
-  const m = median(values);
+  const m = typicalValue(values);
   if (!Number.isFinite(m)) return null;
   if ((TEMPERATURES as readonly string[]).includes(quantity)) return m > 45 ? 'degF' : 'degC';
   if (quantity === 'backpressure') return m < 1 ? 'psi' : m < 6 ? 'inHg' : m < 30 ? 'kPa' : m < 300 ? 'mbar' : null;
@@ -198,11 +199,11 @@ function toSi(quantity: ImportQuantity, value: number, unit: string): number {
   return massFlowToKgS(value, unit);
 }
 
-/** Whether the typical value of a column (its median) is something the quantity can be in that unit. */
+/** Whether the typical value of a column (its middle value) is something the quantity can be in that unit. */
 function plausible(quantity: ImportQuantity, unit: string, values: number[]): boolean {
   if (values.length === 0) return true;
   const [min, max] = PLAUSIBLE_SI[quantity];
-  const m = toSi(quantity, median(values), unit);
+  const m = toSi(quantity, typicalValue(values), unit);
   return m >= min && m <= max;
 }
 
@@ -269,10 +270,10 @@ export function guessMapping(headers: string[], sampleRows: string[][] = [], opt
       } else note = 'unit unknown: choose it';
     }
     if (unit && units.includes(unit) && !plausible(quantity as ImportQuantity, unit, values)) {
-      return unmapped(`the values (typically ${median(values)}) are not a plausible ${quantity} in ${unit}`);
+      return unmapped(`the values (typically ${typicalValue(values)}) are not a plausible ${quantity} in ${unit}`);
     }
     if (!unit && values.length > 0 && !units.some((u) => plausible(quantity as ImportQuantity, u, values))) {
-      return unmapped(`the values (typically ${median(values)}) are not a plausible ${quantity} in any unit`);
+      return unmapped(`the values (typically ${typicalValue(values)}) are not a plausible ${quantity} in any unit`);
     }
     return { header, index, quantity, unit, confidence: Math.round(confidence * 100) / 100, ...(note ? { note } : {}) };
   });

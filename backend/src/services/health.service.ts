@@ -6,7 +6,8 @@
 import type { DataSource } from 'typeorm';
 import { backpressureAtCleanlinessKpa, expectedWithinBounds, PLAUSIBLE_CLEANLINESS } from '@shared/domain/condenser/index.js';
 import { fitFoulingTrend } from '@shared/domain/decision/fouling/fouling-trend.js';
-import { addDays } from '@shared/domain/decision/calendar/plant-date.js';
+import { addDays, daysBetween } from '@shared/domain/calendar/plant-date.js';
+import { plantDayFormatter } from '@shared/domain/calendar/plant-day.js';
 import { lttbKeepingGaps, type AirLeakPeriod } from '@shared/domain/monitoring/index.js';
 import { MAX_SERIES_POINTS } from '@shared/limits.js';
 import { BREAKDOWN_CAUSES, type HealthQuery } from '@shared/schemas/health.js';
@@ -16,7 +17,6 @@ import { UnitEvent } from '../entities/unit-event.entity.js';
 import { notFound } from '../http/app-error.js';
 import type { TenantScope } from '../policies/tenant-scope.js';
 import { findUnit } from '../repositories/plant.repository.js';
-import { daysBetween } from './derived/plant-day.js';
 import type { CleaningOutlook } from './derived/cleaning-outlook.js';
 import { eventView } from './unit-event.service.js';
 
@@ -280,11 +280,11 @@ export async function unitSamples(ds: DataSource, scope: TenantScope, unitId: st
     `SELECT timestampUtc AS ts, validity, ${cols.join(', ')} FROM performance_sample WHERE unitId = ? AND timestampUtc >= ? AND timestampUtc < ? ORDER BY timestampUtc`,
     [unitId, `${addDays(q.from, -1)} 00:00:00`, `${addDays(q.to, 2)} 00:00:00`],
   );
-  const fmt = new Intl.DateTimeFormat('en-CA', { timeZone: plant.timeZone, year: 'numeric', month: '2-digit', day: '2-digit' });
+  const dayOf = plantDayFormatter(plant.timeZone);
   const points = rows
     .map((r) => ({ t: new Date(r.ts as string).toISOString(), valid: r.validity === 'ok', ...Object.fromEntries(cols.map((c) => [c, r[c] === null ? null : Number(r[c])])) }))
     .filter((p) => {
-      const day = fmt.format(new Date(p.t));
+      const day = dayOf(Date.parse(p.t));
       return day >= q.from && day <= q.to;
     });
   const first = (p: (typeof points)[number]) => (p as Record<string, unknown>)[cols[0]] as number | null;

@@ -4,6 +4,9 @@
  * witnesses rise with it: condensate subcooling (Tsat − hotwell), dissolved oxygen, air-removal flow
  * [pub: Putman & Harpster, EPRI condenser conference papers]. Thresholds are common practice, editable.
  */
+import { dayNumber } from '../calendar/plant-date.js';
+import { median } from '../statistics.js';
+
 export interface AirLeakDay {
   day: string;
   /** median measured cleanliness of the day */
@@ -52,13 +55,6 @@ export interface AirLeakDayVerdict {
   evidence: AirLeakPeriod['evidence'];
 }
 
-function median(values: number[]): number | null {
-  if (values.length === 0) return null;
-  const s = [...values].sort((a, b) => a - b);
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
-}
-
 /** After a cleaning the reference may be this short, and is taken right up to the day before. */
 const MIN_REFERENCE_AFTER_CLEANING = 3;
 
@@ -72,7 +68,6 @@ const MAX_REFERENCE_REACH_DAYS = 60;
 /** With at least this many reference days the recent trend is extrapolated; with fewer, their median is the level. */
 const MIN_DAYS_FOR_TREND = 7;
 
-const dayNumber = (day: string) => Date.parse(`${day}T00:00:00Z`) / 86_400_000;
 
 /**
  * Cleanliness the reference days lead one to expect on day `t`: their robust straight line (Theil–Sen: median of

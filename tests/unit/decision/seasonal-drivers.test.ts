@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { expandDriver, expandMonthly, monthlyProfilesFromHistory } from '@shared/domain/decision/drivers/seasonal-drivers.js';
-import { addDays } from '@shared/domain/decision/calendar/plant-date.js';
+import { addDays } from '@shared/domain/calendar/plant-date.js';
 
 const months = [5, 6, 9, 13, 18, 23, 27, 28, 24, 18, 11, 7];
 

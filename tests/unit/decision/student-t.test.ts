@@ -1,7 +1,7 @@
 /** Student's t quantile for the forecast band with few points. */
 import { createRequire } from 'node:module';
 import { describe, expect, it } from 'vitest';
-import { normalQuantile, studentTQuantile } from '@shared/domain/decision/statistics.js';
+import { normalQuantile, studentTQuantile } from '@shared/domain/statistics.js';
 
 /** jstat (an independent implementation, installed with the project) as a cross-check. */
 const jStat = createRequire(import.meta.url)('jstat') as { studentt: { inv(p: number, dof: number): number } };

@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { airLeakPeriods, DEFAULT_AIR_LEAK_SETTINGS, judgeAirLeakDays, type AirLeakDay, type AirLeakDayVerdict } from '@shared/domain/monitoring/index.js';
-import { addDays } from '@shared/domain/decision/calendar/plant-date.js';
+import { addDays } from '@shared/domain/calendar/plant-date.js';
 
 const START = '2024-03-01';
 

@@ -7,7 +7,7 @@ import { calcScheduleInput, type CalcScheduleInput } from '@shared/schemas/calc-
 import { TYPICAL_CLEANING_METHODS, type CleaningMethod } from '@shared/schemas/cleaning-method.js';
 import { runScheduleCase, type ScheduleCaseSpec, type ScheduledCleaning } from '@shared/domain/decision/schedule/schedule-case.js';
 import type { CostTotals } from '@shared/domain/decision/schedule/schedule-pricing.js';
-import { daysBetween } from '@shared/domain/decision/calendar/plant-date.js';
+import { daysBetween } from '@shared/domain/calendar/plant-date.js';
 import { toCents } from '@shared/domain/decision/economics/cash-flow-metrics.js';
 import type { UncertaintyRanges } from '@shared/domain/decision/uncertainty/schedule-uncertainty.js';
 

@@ -3,30 +3,32 @@
  * so that its last day is the day before "today": every outage, cleaning and leak keeps its distance from
  * the end, and the demo always looks current. Tests pass a fixed day; the seed passes the plant's today.
  */
-import { DateTime } from 'luxon';
+import { addDays, daysBetween, parsePlantDate } from '@shared/domain/calendar/plant-date.js';
+import { plantDayOf } from '@shared/domain/calendar/plant-day.js';
 import { DEMO_END_LOCAL, type DemoUnitSpec } from './demo-scenario.js';
 
-const ISO_DAY = /^\d{4}-\d{2}-\d{2}$/;
-
-function parseDay(day: string): DateTime {
-  const parsed = ISO_DAY.test(day) ? DateTime.fromISO(day, { zone: 'UTC' }) : null;
-  if (!parsed?.isValid) throw new RangeError(`"${day}" is not a calendar day (YYYY-MM-DD)`);
-  return parsed;
+function checkedDay(day: string): string {
+  try {
+    parsePlantDate(day);
+    return day;
+  } catch {
+    throw new RangeError(`"${day}" is not a calendar day (YYYY-MM-DD)`);
+  }
 }
 
 /** A calendar day moved by whole days ("2024-02-28" + 2 → "2024-03-01"). */
 export function shiftDay(day: string, days: number): string {
-  return parseDay(day).plus({ days }).toISODate()!;
+  return addDays(checkedDay(day), days);
 }
 
 /** Whole days the written story moves so that it ends the day before `today`. */
 export function demoShiftDays(today: string): number {
-  return Math.round(parseDay(today).diff(parseDay(DEMO_END_LOCAL), 'days').days);
+  return daysBetween(DEMO_END_LOCAL, checkedDay(today));
 }
 
 /** The calendar day at an instant on a plant's clock. */
 export function plantToday(timeZone: string, now: Date): string {
-  return DateTime.fromJSDate(now, { zone: timeZone }).toISODate()!;
+  return plantDayOf(now.getTime(), timeZone);
 }
 
 /** The unit's story with every date moved by `days`. */

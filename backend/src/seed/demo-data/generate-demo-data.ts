@@ -18,6 +18,7 @@
 import { DateTime } from 'luxon';
 import { backpressureAtCleanlinessKpa, cwRiseK } from '@shared/domain/condenser/index.js';
 import { liquidDensityKgM3, saturationTemperatureC } from '@shared/domain/steam/index.js';
+import { daysBetween } from '@shared/domain/calendar/plant-date.js';
 import { massFlowToKgS } from '../../import/quantity-conversion.js';
 import { DemoRandom, seedFromText } from './demo-random.js';
 import { DEMO_END_LOCAL, DEMO_SCENARIO_SEED, DEMO_START_LOCAL, demoPlant, type DemoUnitSpec } from './demo-scenario.js';
@@ -252,7 +253,7 @@ export function generateDemoUnitData(written: DemoUnitSpec, options: DemoGenerat
 }
 
 /** The story's length in days (1,096: 2023-01-01 to 2026-01-01). */
-const STORY_DAYS = Math.round(DateTime.fromISO(DEMO_END_LOCAL, { zone: 'UTC' }).diff(DateTime.fromISO(DEMO_START_LOCAL, { zone: 'UTC' }), 'days').days);
+const STORY_DAYS = daysBetween(DEMO_START_LOCAL, DEMO_END_LOCAL);
 
 function checkedSpanDays(days: number): number {
   if (!Number.isInteger(days) || days < MIN_DEMO_SPAN_DAYS || days > STORY_DAYS) throw new RangeError(`a demo span is a whole number of days from ${MIN_DEMO_SPAN_DAYS} to ${STORY_DAYS}, not ${days}`);

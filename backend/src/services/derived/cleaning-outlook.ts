@@ -4,14 +4,13 @@
  * temperature and load (monthly means of its history), its prices, the planned outages on its timeline and
  * the cleaning-method library. Stored with the unit's analysis; the health view shows its first cleaning.
  */
-import { addDays } from '@shared/domain/decision/calendar/plant-date.js';
+import { addDays, daysBetween } from '@shared/domain/calendar/plant-date.js';
 import { monthlyProfilesFromHistory } from '@shared/domain/decision/drivers/seasonal-drivers.js';
 import type { FoulingModel } from '@shared/domain/decision/fouling/fouling-models.js';
 import { runScheduleCase } from '@shared/domain/decision/schedule/schedule-case.js';
 import type { UnitModel } from '@shared/domain/monitoring/index.js';
 import { TYPICAL_CLEANING_METHODS, type CleaningMethod } from '@shared/schemas/cleaning-method.js';
 import type { UnitSetupSi } from '@shared/domain/monitoring/index.js';
-import { daysBetween } from './plant-day.js';
 
 export interface CleaningOutlook {
   status: 'planned' | 'none-needed' | 'not-available';

@@ -5,7 +5,7 @@
  * interval, at most 24 h), so a day with few valid points is not costed as if it had none.
  */
 import type { DataSource } from 'typeorm';
-import { median } from './plant-day.js';
+import { median } from '@shared/domain/statistics.js';
 
 /** Per-day facts the recompute knows beyond the samples themselves. */
 export interface DayFacts {

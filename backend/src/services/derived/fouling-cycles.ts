@@ -4,7 +4,7 @@
  */
 import { fitFoulingTrend, type FoulingTrendResult } from '@shared/domain/decision/fouling/fouling-trend.js';
 import { cleanlinessAfter } from '@shared/domain/decision/fouling/fouling-models.js';
-import { daysBetween } from './plant-day.js';
+import { daysBetween } from '@shared/domain/calendar/plant-date.js';
 
 export interface CycleTrend {
   startDay: string;

@@ -2,7 +2,7 @@
  * Seasonal drivers of the fouling cost: CW inlet temperature, load and prices, as monthly profiles
  * (12 values, January first) derived from a unit's history or entered, expanded to one value per plant-local day.
  */
-import { civilFromDayNumber, dateFromDayNumber, dayNumber, dayNumberFromCivil, daysInMonth } from '../calendar/plant-date.js';
+import { civilFromDayNumber, dateFromDayNumber, dayNumber, dayNumberFromCivil, daysInMonth } from '../../calendar/plant-date.js';
 
 export type MonthlyValues = readonly number[];
 

@@ -16,7 +16,7 @@
  * start, then Levenberg–Marquardt (ml-levenberg-marquardt, analytic Jacobian) polishes all parameters.
  */
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
-import { invertMatrix, median, medianAbsoluteDeviation, solveLinear, studentTQuantile } from '../statistics.js';
+import { invertMatrix, median, medianAbsoluteDeviation, solveLinear, studentTQuantile } from '../../statistics.js';
 import {
   FOULING_MODEL_KINDS,
   foulingIndex,
@@ -322,7 +322,7 @@ function enoughData(points: CleanlinessDay[]): boolean {
 function byDay(points: readonly CleanlinessDay[]): CleanlinessDay[] {
   const groups = new Map<number, number[]>();
   for (const p of points) groups.set(p.day, [...(groups.get(p.day) ?? []), p.cleanliness]);
-  return [...groups.entries()].sort((a, b) => a[0] - b[0]).map(([day, cfs]) => ({ day, cleanliness: median(cfs) }));
+  return [...groups.entries()].sort((a, b) => a[0] - b[0]).map(([day, cfs]) => ({ day, cleanliness: median(cfs)! }));
 }
 
 export function fitFoulingTrend(input: FoulingTrendInput): FoulingTrendResult {
@@ -355,7 +355,7 @@ export function fitFoulingTrend(input: FoulingTrendInput): FoulingTrendResult {
     const best = chooseByAic(fitAll(dataOf(pts)), pts.length);
     const residuals = all.t.map((t, i) => all.z[i] - predictZ(best, t));
     const keptResiduals = residuals.filter((_, i) => keep[i]);
-    const centre = median(keptResiduals);
+    const centre = median(keptResiduals)!; // the screen always keeps the residual at the median
     let spread = 1.4826 * medianAbsoluteDeviation(keptResiduals);
     if (spread === 0) spread = 1.2533 * (keptResiduals.reduce((s, r) => s + Math.abs(r - centre), 0) / keptResiduals.length);
     const next = residuals.map((r) => spread === 0 || Math.abs(r - centre) <= threshold * spread);

@@ -4,7 +4,7 @@
  */
 import type { CleaningMethod } from '../../../schemas/cleaning-method.js';
 import { cautionsFor } from '../../../schemas/cleaning-method.js';
-import { addDays, daysBetween, horizonYearIndex } from '../calendar/plant-date.js';
+import { addDays, daysBetween, horizonYearIndex } from '../../calendar/plant-date.js';
 import { expandDrivers, type DriverSpecs, type MonthlyInterpolation } from '../drivers/seasonal-drivers.js';
 import { businessCase, type BusinessCase } from '../economics/business-case.js';
 import type { FoulingModel } from '../fouling/fouling-models.js';

@@ -6,7 +6,7 @@
  */
 import type { PlannedCleaning, PricingScenario, ScheduleProblem } from '../schedule/schedule-problem.js';
 import { compileSchedulePricer, type SchedulePricer } from '../schedule/fast-repricing.js';
-import { quantileSorted } from '../statistics.js';
+import { quantileSorted } from '../../statistics.js';
 import { mulberry32, triangularQuantile } from './seeded-random.js';
 
 export const UNCERTAIN_INPUTS = ['foulingRate', 'fuelPrice', 'replacementPrice', 'cleaningCost', 'recoveredCleanliness', 'discountRate'] as const;

@@ -1,3 +1,4 @@
+import { daysBetween } from '@shared/domain/calendar/plant-date';
 import { formatDay, formatNumber } from '@frontend/lib/format';
 import { CHART_COLOURS } from '@frontend/lib/chart-palette';
 import type { AirLeakEvidence, UnitHealth } from '../api/get-health';
@@ -9,7 +10,8 @@ const EVIDENCE_WORDS: Record<AirLeakEvidence, string> = {
   'air-removal': 'the air-removal equipment pulled more air',
 };
 
-const days = (from: string, to: string) => Math.round((Date.parse(to) - Date.parse(from)) / 86_400_000) + 1;
+/** Days in a period, both ends counted. */
+const days = (from: string, to: string) => daysBetween(from, to) + 1;
 
 /** Periods that look like air getting into the condenser, with the witnesses that say so. */
 export function AirLeakPanel({ periods }: { periods: UnitHealth['airLeakPeriods'] }) {

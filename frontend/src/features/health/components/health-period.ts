@@ -1,3 +1,5 @@
+import { addDays } from '@shared/domain/calendar/plant-date';
+import { plantDayOf } from '@shared/domain/calendar/plant-day';
 import type { HealthPeriodQuery } from '../api/get-health';
 
 export const PERIOD_CHOICES = [
@@ -37,16 +39,10 @@ export function searchFromPeriod(p: PeriodSelection): Record<string, string> {
   return out;
 }
 
-export function addDaysTo(day: string, days: number): string {
-  const d = new Date(`${day}T00:00:00Z`);
-  d.setUTCDate(d.getUTCDate() + days);
-  return d.toISOString().slice(0, 10);
-}
-
-/** A moment as the plant-local calendar day. */
+/** A moment as the plant-local calendar day; its UTC day when this browser does not know the plant's zone. */
 export function plantDay(iso: string, timeZone: string): string {
   try {
-    return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date(iso));
+    return plantDayOf(Date.parse(iso), timeZone);
   } catch {
     return iso.slice(0, 10);
   }
@@ -69,6 +65,6 @@ export function periodQuery(p: PeriodSelection, data: { firstDay: string | null;
     return q;
   }
   const days = PERIOD_CHOICES.find((c) => c.value === p.choice)?.days ?? 365;
-  if (data.lastDay) q.from = addDaysTo(data.lastDay, -(days - 1));
+  if (data.lastDay) q.from = addDays(data.lastDay, -(days - 1));
   return q;
 }

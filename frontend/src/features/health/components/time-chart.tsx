@@ -1,5 +1,6 @@
 import { ResponsiveLine, type LineCustomSvgLayerProps, type LineSvgLayer, type SliceTooltipProps } from '@nivo/line';
 import { useMemo } from 'react';
+import { addDays, daysBetween } from '@shared/domain/calendar/plant-date';
 import { CHART_COLOURS, CHART_THEME, dayToDate, timeTicks } from '@frontend/lib/chart-palette';
 import { formatDay } from '@frontend/lib/format';
 import { TooltipBox } from './chart-frame';
@@ -40,12 +41,12 @@ type Datum = { x: Date; y: number | null };
 type Series = { id: string; data: Datum[] };
 type LayerProps = LineCustomSvgLayerProps<Series>;
 
-const nextDay = (day: string) => new Date(dayToDate(day).getTime() + 86_400_000);
+const nextDay = (day: string) => dayToDate(addDays(day, 1));
 
 /** A daily time chart in the view's shared language: styled lines, band, shaded periods, cleaning markers. */
 export default function TimeChart(props: TimeChartProps) {
   const { series, band = [], shades = [], cleanings = [], reference, from, to, yLegend, yTick, yValue, yFromZero, ariaLabel, narrow } = props;
-  const spanDays = Math.max(1, (dayToDate(to).getTime() - dayToDate(from).getTime()) / 86_400_000);
+  const spanDays = Math.max(1, daysBetween(from, to));
   const ticks = timeTicks(spanDays, narrow ? 4 : 8);
 
   const data: Series[] = useMemo(() => series.map((s) => ({ id: s.id, data: s.values.map((v) => ({ x: dayToDate(v.day), y: v.y })) })), [series]);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { DateTime } from 'luxon';
-import { addDays, addYears, dateFromDayNumber, dayNumber, daysBetween, horizonYearIndex, parsePlantDate } from '@shared/domain/decision/calendar/plant-date.js';
+import { addDays, addYears, dateFromDayNumber, dayNumber, daysBetween, horizonYearIndex, parsePlantDate } from '@shared/domain/calendar/plant-date.js';
 
 describe('plant-local date arithmetic', () => {
   it('counts days since 1970-01-01 the same way luxon does in UTC, over four centuries', () => {

@@ -1,7 +1,8 @@
-/** Small statistics helpers for the decision engine (pure, deterministic). */
+/** Small statistics helpers for monitoring and the decision engine (pure, deterministic). */
 
-export function median(values: readonly number[]): number {
-  if (values.length === 0) throw new Error('median of no values');
+/** The middle value (the mean of the two middle ones for an even count); null when there are no values. */
+export function median(values: readonly number[]): number | null {
+  if (values.length === 0) return null;
   const s = [...values].sort((a, b) => a - b);
   const mid = s.length >> 1;
   return s.length % 2 ? s[mid] : (s[mid - 1] + s[mid]) / 2;
@@ -20,7 +21,8 @@ export function quantileSorted(sorted: ArrayLike<number>, p: number): number {
 /** Median absolute deviation from the median (unscaled). */
 export function medianAbsoluteDeviation(values: readonly number[]): number {
   const m = median(values);
-  return median(values.map((v) => Math.abs(v - m)));
+  if (m === null) throw new Error('median absolute deviation of no values');
+  return median(values.map((v) => Math.abs(v - m)))!;
 }
 
 /**
