@@ -1,10 +1,11 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { ApiTokenView } from '@shared/schemas/accounts';
 import { api } from '@frontend/lib/api-client';
+import { organisationKey } from '@frontend/lib/query-keys';
 
 export const apiTokensQueryOptions = (organisationId: string) =>
   queryOptions({
-    queryKey: ['organisations', organisationId, 'api-tokens'],
+    queryKey: [...organisationKey(organisationId), 'api-tokens'],
     queryFn: () => api<{ apiTokens: ApiTokenView[] }>('/api/api-tokens').then((r) => r.apiTokens),
   });
 

@@ -1,6 +1,7 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { AuditEventView } from '@shared/schemas/accounts';
 import { api } from '@frontend/lib/api-client';
+import { organisationKey } from '@frontend/lib/query-keys';
 
 export interface AuditFilters {
   action?: string;
@@ -22,7 +23,7 @@ const toSearch = (f: AuditFilters) =>
 
 export const auditEventsQueryOptions = (organisationId: string, filters: AuditFilters) =>
   queryOptions({
-    queryKey: ['organisations', organisationId, 'audit-events', filters],
+    queryKey: [...organisationKey(organisationId), 'audit-events', filters],
     queryFn: () => {
       const search = toSearch(filters);
       return api<{ events: AuditEventView[] }>(`/api/audit-events${search ? `?${search}` : ''}`).then((r) => r.events);

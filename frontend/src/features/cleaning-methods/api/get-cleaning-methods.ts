@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { CleaningMethod } from '@shared/schemas/cleaning-method';
 import { api } from '@frontend/lib/api-client';
+import { organisationKey } from '@frontend/lib/query-keys';
 
 /** One library entry as the API lists it: `recordId` addresses it, `id` is the key events refer to. */
 export type CleaningMethodView = CleaningMethod & { recordId: string; cautionTexts: string[] };
@@ -8,7 +9,7 @@ export type CleaningMethodView = CleaningMethod & { recordId: string; cautionTex
 /** Keyed by organisation, so one tenant's library can never be read from the cache under another. */
 export const cleaningMethodsQueryOptions = (organisationId: string) =>
   queryOptions({
-    queryKey: ['organisations', organisationId, 'cleaning-methods'],
+    queryKey: [...organisationKey(organisationId), 'cleaning-methods'],
     queryFn: () => api<{ methods: CleaningMethodView[] }>('/api/cleaning-methods').then((r) => r.methods),
   });
 

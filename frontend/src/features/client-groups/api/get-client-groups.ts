@@ -1,11 +1,12 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { ClientGroupView } from '@shared/schemas/accounts';
 import { api } from '@frontend/lib/api-client';
+import { organisationKey } from '@frontend/lib/query-keys';
 
 /** Keyed by organisation, so one tenant's groups can never be read from the cache under another. */
 export const clientGroupsQueryOptions = (organisationId: string) =>
   queryOptions({
-    queryKey: ['organisations', organisationId, 'client-groups'],
+    queryKey: [...organisationKey(organisationId), 'client-groups'],
     queryFn: () => api<{ clientGroups: ClientGroupView[] }>('/api/client-groups').then((r) => r.clientGroups),
   });
 

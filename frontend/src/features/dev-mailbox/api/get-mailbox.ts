@@ -10,12 +10,21 @@ export interface MailboxMessage {
   text: string;
 }
 
-/** The signed-in person's own mail in the local SMTP sink, newest first; refreshed every few seconds while the page is open. */
+export interface Mailbox {
+  /** False until the person proved the address is theirs; until then no mail is shown. */
+  addressConfirmed: boolean;
+  messages: MailboxMessage[];
+}
+
+/** The signed-in person's own mail in the local SMTP sink since they confirmed their address, newest first; refreshed every few seconds while the page is open. */
 export const mailboxQueryOptions = () =>
   queryOptions({
     queryKey: ['dev-mailbox'],
     queryFn: () =>
-      api<{ messages: MailboxMessage[] }>('/api/dev/mailbox').then((r) => [...r.messages].sort((a, b) => b.receivedAt.localeCompare(a.receivedAt) || b.id.localeCompare(a.id))),
+      api<Mailbox>('/api/dev/mailbox').then((r) => ({
+        addressConfirmed: r.addressConfirmed,
+        messages: [...r.messages].sort((a, b) => b.receivedAt.localeCompare(a.receivedAt) || b.id.localeCompare(a.id)),
+      })),
     staleTime: 0,
     refetchInterval: 5_000,
   });

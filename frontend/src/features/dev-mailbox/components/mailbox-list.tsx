@@ -9,12 +9,20 @@ export function MailboxList() {
   const mailbox = useMailbox();
   if (mailbox.isPending) return <LoadingState what="the mailbox" />;
   if (mailbox.isError) return <ErrorState what="the mailbox" error={mailbox.error} onRetry={() => mailbox.refetch()} />;
-  if (mailbox.data.length === 0) {
+  if (!mailbox.data.addressConfirmed) {
+    return (
+      <EmptyState
+        title="Your mailbox opens once your address is confirmed"
+        next="Follow the confirmation link we mailed you after sign-up (a password reset link confirms the address too). In a local run every message, that link included, is printed in the terminal where Cleancase runs. Only mail that arrives after the confirmation shows here."
+      />
+    );
+  }
+  if (mailbox.data.messages.length === 0) {
     return <EmptyState title="No mail yet" next="Invite someone or ask for a password reset; the message shows up here within a few seconds." />;
   }
   return (
     <ol className="flex flex-col gap-3" aria-label="Messages, newest first">
-      {mailbox.data.map((m) => (
+      {mailbox.data.messages.map((m) => (
         <li key={m.id} className="rounded border border-rule bg-paper-raised" data-testid="mailbox-message">
           <div className="flex flex-wrap items-baseline justify-between gap-x-4 gap-y-1 border-b border-rule bg-paper-sunk px-4 py-2">
             <h2 className="text-sm font-semibold">{m.subject || '(no subject)'}</h2>

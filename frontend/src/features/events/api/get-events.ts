@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { UNIT_EVENT_KINDS } from '@shared/schemas/unit-event';
 import { api } from '@frontend/lib/api-client';
+import { unitKey } from '@frontend/lib/query-keys';
 
 export interface UnitEventView {
   id: string;
@@ -19,7 +20,7 @@ export interface UnitEventView {
 
 export const eventsQueryOptions = (organisationId: string, unitId: string) =>
   queryOptions({
-    queryKey: ['organisations', organisationId, 'units', unitId, 'events'],
+    queryKey: [...unitKey(organisationId, unitId), 'events'],
     queryFn: () => api<{ events: UnitEventView[] }>(`/api/units/${unitId}/events`).then((r) => r.events),
   });
 

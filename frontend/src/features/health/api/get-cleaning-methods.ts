@@ -1,5 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@frontend/lib/api-client';
+import { organisationKey } from '@frontend/lib/query-keys';
 
 export interface CleaningMethodChoice {
   id: string;
@@ -9,7 +10,7 @@ export interface CleaningMethodChoice {
 /** The organisation's cleaning-method library, for naming the method of a recorded cleaning. */
 export const cleaningMethodsQueryOptions = (organisationId: string) =>
   queryOptions({
-    queryKey: ['organisations', organisationId, 'cleaning-methods'],
+    queryKey: [...organisationKey(organisationId), 'cleaning-methods'],
     queryFn: () => api<{ methods: CleaningMethodChoice[] }>('/api/cleaning-methods').then((r) => r.methods),
     staleTime: 5 * 60_000,
   });

@@ -2,6 +2,7 @@ import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query'
 import type { BreakdownCause } from '@shared/schemas/health';
 import type { UNIT_EVENT_KINDS } from '@shared/schemas/unit-event';
 import { api } from '@frontend/lib/api-client';
+import { unitKey } from '@frontend/lib/query-keys';
 
 /** The period the health view asks for; `from` and `to` are plant-local days, absent = the server's default. */
 export interface HealthPeriodQuery {
@@ -127,10 +128,13 @@ export const healthSearch = (q: HealthPeriodQuery): string => {
   return p.toString();
 };
 
+/** Every health view of a unit, whatever its period: invalidated when a recompute ends. */
+export const unitHealthKey = (organisationId: string, unitId: string) => [...unitKey(organisationId, unitId), 'health'] as const;
+
 /** The health view of one unit over a period; the previous period stays on screen while the next loads. */
 export const healthQueryOptions = (organisationId: string, unitId: string, q: HealthPeriodQuery) =>
   queryOptions({
-    queryKey: ['organisations', organisationId, 'units', unitId, 'health', q],
+    queryKey: [...unitHealthKey(organisationId, unitId), q],
     queryFn: () => api<UnitHealth>(`/api/units/${unitId}/health?${healthSearch(q)}`),
     placeholderData: keepPreviousData,
   });

@@ -2,6 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { RejectionReason } from '@shared/domain/validity/rejection-reasons';
 import type { ImportMappingInput } from '@shared/schemas/import-mapping';
 import { api } from '@frontend/lib/api-client';
+import { organisationKey } from '@frontend/lib/query-keys';
 
 export type ImportStatus = 'mapping' | 'checking' | 'rejected' | 'importing' | 'complete' | 'failed' | 'undone';
 
@@ -49,7 +50,7 @@ export const importIsRunning = (status: ImportStatus) => status === 'checking' |
 /** One import; polled each second while it is being checked or stored. */
 export const importQueryOptions = (organisationId: string, importId: string) =>
   queryOptions({
-    queryKey: ['organisations', organisationId, 'imports', importId],
+    queryKey: [...organisationKey(organisationId), 'imports', importId],
     queryFn: () => api<ImportView>(`/api/imports/${importId}`),
     refetchInterval: (query) => (query.state.data && importIsRunning(query.state.data.status) ? 1000 : false),
   });

@@ -1,10 +1,11 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { InvitationView } from '@shared/schemas/accounts';
 import { api } from '@frontend/lib/api-client';
+import { organisationKey } from '@frontend/lib/query-keys';
 
 export const invitationsQueryOptions = (organisationId: string) =>
   queryOptions({
-    queryKey: ['organisations', organisationId, 'invitations'],
+    queryKey: [...organisationKey(organisationId), 'invitations'],
     queryFn: () => api<{ invitations: InvitationView[] }>('/api/invitations').then((r) => r.invitations),
   });
 

@@ -1,10 +1,11 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { MemberView } from '@shared/schemas/accounts';
 import { api } from '@frontend/lib/api-client';
+import { organisationKey } from '@frontend/lib/query-keys';
 
 export const membersQueryOptions = (organisationId: string) =>
   queryOptions({
-    queryKey: ['organisations', organisationId, 'members'],
+    queryKey: [...organisationKey(organisationId), 'members'],
     queryFn: () => api<{ members: MemberView[] }>('/api/members').then((r) => r.members),
   });
 

@@ -1,5 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@frontend/lib/api-client';
+import { plantsKey } from '@frontend/lib/query-keys';
 
 export interface UnitListItem {
   id: string;
@@ -19,7 +20,7 @@ export interface PlantView {
 /** Keyed by organisation, so one tenant's plants can never be read from the cache under another. */
 export const plantsQueryOptions = (organisationId: string) =>
   queryOptions({
-    queryKey: ['organisations', organisationId, 'plants'],
+    queryKey: plantsKey(organisationId),
     queryFn: () => api<{ plants: PlantView[] }>('/api/plants').then((r) => r.plants),
   });
 

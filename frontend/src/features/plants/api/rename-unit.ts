@@ -1,5 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@frontend/lib/api-client';
+import { organisationKey } from '@frontend/lib/query-keys';
 import type { UnitListItem } from './get-plants';
 
 export function useRenameUnit(organisationId: string) {
@@ -7,6 +8,6 @@ export function useRenameUnit(organisationId: string) {
   return useMutation({
     mutationFn: ({ id, name }: { id: string; name: string }) => api<UnitListItem>(`/api/units/${id}`, { method: 'PATCH', body: { name } }),
     // the plant list and the unit's own page both show the name
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['organisations', organisationId] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: organisationKey(organisationId) }),
   });
 }

@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { CondenserSetup, EconomicsSetup, TurbineSetup } from '@shared/schemas/unit-setup';
 import { api } from '@frontend/lib/api-client';
+import { unitKey } from '@frontend/lib/query-keys';
 
 export interface UnitJob {
   id: string;
@@ -30,7 +31,7 @@ export const jobIsActive = (j: UnitJob) => j.status === 'queued' || j.status ===
 /** One unit; polled every 1.5 s while background work (recompute, import) is queued or running. */
 export const unitQueryOptions = (organisationId: string, unitId: string) =>
   queryOptions({
-    queryKey: ['organisations', organisationId, 'units', unitId],
+    queryKey: unitKey(organisationId, unitId),
     queryFn: () => api<UnitDetail>(`/api/units/${unitId}`),
     refetchInterval: (query) => (query.state.data?.jobs.some(jobIsActive) ? 1500 : false),
   });

@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CondenserSetup, EconomicsSetup, TurbineSetup } from '@shared/schemas/unit-setup';
 import { api } from '@frontend/lib/api-client';
+import { plantsKey } from '@frontend/lib/query-keys';
 import { unitQueryOptions, type UnitDetail } from './get-unit';
 
 type Parts = { condenser: CondenserSetup; turbine: TurbineSetup; economics: EconomicsSetup };
@@ -13,7 +14,7 @@ export function useSaveSetupPart<P extends keyof Parts>(organisationId: string, 
     onSuccess: (unit) => {
       queryClient.setQueryData(unitQueryOptions(organisationId, unitId).queryKey, unit);
       // the plant list shows rating and setup completeness
-      void queryClient.invalidateQueries({ queryKey: ['organisations', organisationId, 'plants'] });
+      void queryClient.invalidateQueries({ queryKey: plantsKey(organisationId) });
     },
   });
 }

@@ -1,0 +1,9 @@
+import { useMutation } from '@tanstack/react-query';
+import { api } from '@frontend/lib/api-client';
+
+/** Confirms the account's e-mail address with the link mailed after sign-up. */
+export function useConfirmAddress() {
+  return useMutation({
+    mutationFn: (body: { token: string }) => api<void>('/api/address-confirmations', { method: 'POST', body }),
+  });
+}
