@@ -2,6 +2,9 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useEffect, useRef } from 'react';
 import { Link } from 'react-router-dom';
 import { linkClass } from '@frontend/components/ui/public-page';
+import { useCleaningMethods } from '@frontend/features/cleaning-methods/api/get-cleaning-methods';
+import { AddCleaning } from '@frontend/features/events/components/add-cleaning';
+import { unitHealthKey } from '@frontend/features/health/api/get-health';
 import { HealthView } from '@frontend/features/health/components/health-view';
 import { jobIsActive } from '@frontend/features/units/api/get-unit';
 import { RecomputeStatus } from '@frontend/features/units/components/recompute-status';
@@ -14,10 +17,11 @@ export function UnitOverviewPage() {
   const queryClient = useQueryClient();
   const hasData = unit.samples.count > 0;
   const working = unit.jobs.some(jobIsActive);
+  const methods = useCleaningMethods(organisationId, unit.setupComplete && hasData && !cannotWrite);
   const wasWorking = useRef(working);
   useEffect(() => {
     // a recompute (after a cleaning, a setup change or an import) just ended: the health figures changed
-    if (wasWorking.current && !working) void queryClient.invalidateQueries({ queryKey: ['organisations', organisationId, 'units', unit.id, 'health'] });
+    if (wasWorking.current && !working) void queryClient.invalidateQueries({ queryKey: unitHealthKey(organisationId, unit.id) });
     wasWorking.current = working;
   }, [working, organisationId, unit.id, queryClient]);
 
@@ -31,6 +35,7 @@ export function UnitOverviewPage() {
           units={units}
           cannotWrite={cannotWrite}
           progress={working || lastJob?.status === 'failed' ? <RecomputeStatus jobs={unit.jobs} /> : null}
+          addCleaning={(p) => <AddCleaning organisationId={organisationId} unitId={unit.id} currency={unit.economics?.currency ?? 'USD'} methods={methods.data} {...p} />}
         />
         {/* the basis of the figures: design point, data span, recent background work */}
         <section aria-label="Unit basis" className="no-print border-t border-rule pt-4">

@@ -5,7 +5,6 @@ import { ErrorState, LoadingState } from '@frontend/components/ui/query-state';
 import type { FieldUnits } from '@frontend/lib/field-units';
 import { formatDateTime } from '@frontend/lib/format';
 import { useHealth } from '../api/get-health';
-import { AddCleaning } from './add-cleaning';
 import { AirLeakPanel } from './air-leak-panel';
 import { DataQualityPanel } from './data-quality-panel';
 import { EventsStrip } from './events-strip';
@@ -23,6 +22,8 @@ interface Props {
   cannotWrite: string | null;
   /** the background-work progress, shown above the figures while a recompute runs */
   progress: ReactNode;
+  /** The form that records a cleaning (from the events feature), offered to those who may write. */
+  addCleaning: (props: { lastDay: string | null; onAdded: () => void }) => ReactNode;
 }
 
 function useNarrow(): boolean {
@@ -52,7 +53,7 @@ export function ChartsSkeleton() {
 }
 
 /** The condenser health page: headline, period, charts, air in-leakage, events, data quality, downloads. */
-export function HealthView({ organisationId, unit, units, cannotWrite, progress }: Props) {
+export function HealthView({ organisationId, unit, units, cannotWrite, progress, addCleaning }: Props) {
   const [search, setSearch] = useSearchParams();
   const selection = periodFromSearch(search);
   const firstDay = unit.firstSampleUtc ? plantDay(unit.firstSampleUtc, unit.timeZone) : null;
@@ -112,7 +113,7 @@ export function HealthView({ organisationId, unit, units, cannotWrite, progress 
             {cannotWrite ? (
               <p className="text-xs text-ink-soft">{cannotWrite}: recording cleanings.</p>
             ) : (
-              <AddCleaning organisationId={organisationId} unitId={unit.id} currency={unit.currency} lastDay={lastDay} onAdded={() => setJustAdded(true)} />
+              addCleaning({ lastDay, onAdded: () => setJustAdded(true) })
             )}
           </section>
         </div>

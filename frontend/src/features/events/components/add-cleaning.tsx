@@ -8,8 +8,8 @@ import { SelectField } from '@frontend/components/ui/select-field';
 import { TextField } from '@frontend/components/ui/text-field';
 import { parseNumberText } from '@frontend/lib/field-units';
 import { formMessage, serverFieldErrors, zodFieldErrors, type FieldErrors } from '@frontend/lib/form-errors';
-import { useAddCleaning } from '../api/add-cleaning';
-import { useCleaningMethods } from '../api/get-cleaning-methods';
+import { useAddEvent } from '../api/add-event';
+import type { MethodChoice } from './event-form';
 
 interface Props {
   organisationId: string;
@@ -17,14 +17,18 @@ interface Props {
   currency: string;
   /** the last day with data, offered as the latest sensible date */
   lastDay: string | null;
+  /** The library's methods; undefined while they load (or if they could not be read). */
+  methods?: MethodChoice[];
   onAdded: () => void;
 }
 
-/** "A cleaning happened on this day": the quick way to restart the fouling trend from the health page. */
-export function AddCleaning({ organisationId, unitId, currency, lastDay, onAdded }: Props) {
+/**
+ * "A cleaning happened on this day": the quick way to restart the fouling trend from the health page. It records
+ * a cleaning event like the events form; the server queues a recompute, which the unit's jobs show.
+ */
+export function AddCleaning({ organisationId, unitId, currency, lastDay, methods, onAdded }: Props) {
   const [open, setOpen] = useState(false);
-  const methods = useCleaningMethods(organisationId, open);
-  const add = useAddCleaning(organisationId, unitId);
+  const add = useAddEvent(organisationId, unitId);
   const [date, setDate] = useState('');
   const [methodId, setMethodId] = useState('');
   const [cost, setCost] = useState('');
@@ -74,7 +78,7 @@ export function AddCleaning({ organisationId, unitId, currency, lastDay, onAdded
         <TextField label="Cleaning date" type="date" value={date} max={lastDay ?? undefined} onChange={(e) => setDate(e.target.value)} error={errors.startDate} />
         <SelectField label="Method" value={methodId} onChange={(e) => setMethodId(e.target.value)} error={errors.methodId}>
           <option value="">Not recorded</option>
-          {(methods.data ?? []).map((m) => (
+          {(methods ?? []).map((m) => (
             <option key={m.id} value={m.id}>
               {m.name}
             </option>
