@@ -72,19 +72,52 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   if (config.NODE_ENV === 'production' && config.SESSION_SECRET === schema.shape.SESSION_SECRET.parse(undefined)) {
     throw new Error('Invalid configuration in the environment:\n  SESSION_SECRET: set a secret of your own in production');
   }
-  if (!config.SMTP_URL && !isLoopback(config.HOST)) {
-    throw new Error(
-      `Invalid configuration in the environment:\n  SMTP_URL: set a real SMTP server to listen on HOST=${config.HOST}. ` +
-        'Without SMTP_URL, mail goes to the local sink and the local mailbox, which run only on a loopback address ' +
-        '(127.0.0.1, ::1, localhost) because password-reset and invitation links must not be readable from other machines.',
-    );
+  const trustProxy = trustProxyProblem(config.TRUST_PROXY);
+  if (trustProxy) throw new Error(`Invalid configuration in the environment:\n  TRUST_PROXY: ${trustProxy}`);
+  if (!config.SMTP_URL) {
+    const reason = localMailRefusal(config);
+    if (reason) {
+      throw new Error(
+        `Invalid configuration in the environment:\n  SMTP_URL: set a real SMTP server: ${reason}. ` +
+          'Without SMTP_URL, mail goes to the local sink and the local mailbox, which print and show password-reset and invitation links; ' +
+          'they run only for a local run that nobody reaches from another machine (HOST and PUBLIC_URL on a loopback address such as ' +
+          '127.0.0.1, ::1 or localhost, no TRUST_PROXY, NODE_ENV other than production).',
+      );
+    }
   }
   return config;
 }
 
-/** The local SMTP sink and mailbox run only when the app listens on a loopback address. */
+/** Why the local sink and mailbox may not run with this configuration, or null when they may. */
+function localMailRefusal(config: Config): string | null {
+  if (!isLoopback(config.HOST)) return `the app listens on HOST=${config.HOST}, which other machines can reach`;
+  if (config.NODE_ENV === 'production') return 'NODE_ENV=production is not a local run';
+  if (config.PUBLIC_URL) {
+    const host = new URL(config.PUBLIC_URL).hostname.replace(/^\[(.*)\]$/, '$1');
+    if (!isLoopback(host)) return `PUBLIC_URL names ${host}, so people reach the app from other machines`;
+  }
+  if (config.TRUST_PROXY.trim().toLowerCase() !== 'off' && config.TRUST_PROXY.trim() !== '') {
+    return `TRUST_PROXY=${config.TRUST_PROXY} means a reverse proxy forwards other machines' requests to the app`;
+  }
+  return null;
+}
+
+/** Most proxy hops anyone has in front of an app; more reads client-chosen X-Forwarded-For entries. */
+const MAX_PROXY_HOPS = 10;
+
+/** TRUST_PROXY values that would let any client choose the address it is counted under. */
+function trustProxyProblem(value: string): string | null {
+  const v = value.trim();
+  if (/^\d+$/.test(v)) return Number(v) > MAX_PROXY_HOPS ? `at most ${MAX_PROXY_HOPS} proxy hops (${v} would believe addresses the client wrote itself)` : null;
+  const everyAddress = v.split(',').map((s) => s.trim()).find((s) => /\/0+$/.test(s));
+  return everyAddress ? `${everyAddress} trusts every address, so any client could choose its own; name the proxies' addresses or subnets` : null;
+}
+
+/** A real loopback address: 127.0.0.0/8 as a dotted quad (each part 0–255), ::1 or localhost. */
 export function isLoopback(host: string): boolean {
-  return host === 'localhost' || host === '::1' || /^127(\.\d{1,3}){3}$/.test(host);
+  if (host === 'localhost' || host === '::1') return true;
+  const parts = /^127\.(\d{1,3})\.(\d{1,3})\.(\d{1,3})$/.exec(host);
+  return !!parts && parts.slice(1).every((p) => Number(p) <= 255 && (p === '0' || !p.startsWith('0')));
 }
 
 export function publicUrl(config: Config): string {

@@ -25,7 +25,7 @@ describe('sessions', () => {
   });
 
   it('adds Secure when the app is served over HTTPS through a configured proxy', async () => {
-    const secure = await createTestApp({ COOKIE_SECURE: 'true', TRUST_PROXY: 'loopback' });
+    const secure = await createTestApp({ COOKIE_SECURE: 'true', TRUST_PROXY: 'loopback', SMTP_URL: 'smtp://127.0.0.1:1' });
     try {
       const tenant2 = await createTenant(secure.dataSource, 'secure');
       const res = await request(secure.app).post('/api/session').set(CSRF).set('X-Forwarded-Proto', 'https').send({ email: tenant2.users.viewer.email, password: TEST_PASSWORD });
