@@ -29,6 +29,7 @@ export const createOrganisationRequest = z.object({ name: organisationName('Ente
 
 export const passwordResetRequest = z.object({ email }).strict();
 export const passwordResetConfirm = z.object({ token: z.string().min(10).max(200), password: newPassword }).strict();
+export const addressConfirmation = z.object({ token: z.string().min(10, 'This confirmation link is incomplete').max(200) }).strict();
 
 export const profileUpdate = z
   .object({ name: personName.optional(), unitPreference: z.enum(['us', 'si']).optional() })

@@ -196,6 +196,12 @@ describe('account flows', () => {
     expect(session.body.memberships).toEqual([]);
     const [row] = await t.dataSource.query('SELECT googleSub FROM user WHERE email = ?', [email]);
     expect(row.googleSub).toBe(`g-${email}`);
+    // Google verified the address: the local mailbox shows the person their mail from now on.
+    await request(t.app).post('/api/password-reset').set(CSRF).send({ email }).expect(202);
+    await t.deliverMail();
+    const mailbox = (await agent.get('/api/dev/mailbox').expect(200)).body;
+    expect(mailbox.addressConfirmed).toBe(true);
+    expect(mailbox.messages.map((m: { subject: string }) => m.subject)).toEqual(['Reset your Cleancase password']);
   });
 
   it('Google sign-in with a forged state is refused and signs nobody in', async () => {

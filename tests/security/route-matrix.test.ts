@@ -76,6 +76,7 @@ const MATRIX: Record<string, Entry> = {
   'POST /api/profile/password': { body: () => ({ currentPassword: 'not my password', newPassword: 'a long and unusual passphrase' }), expect: members(400) },
   'POST /api/password-reset': { body: () => ({ email: uniqueEmail('reset') }), expect: all(202) },
   'POST /api/password-reset/confirm': { body: () => ({ token: 'not-a-real-reset-token', password: 'a long and unusual passphrase' }), expect: all(400) },
+  'POST /api/address-confirmations': { body: () => ({ token: 'not-a-real-confirmation-token' }), expect: all(400) },
   'GET /api/invitations': { expect: adminsOnly(200) },
   // Without a client-group limit: an administrator limited to groups may not invite someone wider than themselves.
   'POST /api/invitations': { body: () => ({ email: uniqueEmail('invited'), role: 'viewer' }), expect: adminsOnly(201, { otherGroup: 403 }) },

@@ -77,6 +77,34 @@ describe('sign-in limits without a configured proxy', () => {
   });
 });
 
+/** The token of the reset link in the newest mail to `to`. */
+async function resetTokenMailedTo(t: TestApp, to: string): Promise<string> {
+  const [mail] = await t.mailTo(to);
+  const link = mail?.text.match(/\/reset-password\?token=([A-Za-z0-9_%-]+)/);
+  if (!link) throw new Error(`no reset link mailed to ${to}`);
+  return decodeURIComponent(link[1]);
+}
+
+describe('an account locked by someone else’s failed sign-ins', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await createTestApp();
+  });
+  afterAll(async () => t?.close());
+
+  it('opens again for its owner once they reset the password through the mailed link', async () => {
+    const victim = (await createUser(t.dataSource, 'lock-victim')).email;
+    for (let i = 0; i < ACCOUNT_FAILURES; i++) await signIn(t.app, victim, WRONG, nextForwardedFor()).expect(401);
+    await signIn(t.app, victim, TEST_PASSWORD).expect(429);
+
+    await request(t.app).post('/api/password-reset').set(CSRF).send({ email: victim }).expect(202);
+    const token = await resetTokenMailedTo(t, victim);
+    const newPassword = 'a fresh passphrase after the lock';
+    await request(t.app).post('/api/password-reset/confirm').set(CSRF).send({ token, password: newPassword }).expect(204);
+    await signIn(t.app, victim, newPassword).expect(200);
+  });
+});
+
 describe('sign-in limits per address without a configured proxy', () => {
   let t: TestApp;
   let tenant: TenantFixture;
@@ -114,7 +142,8 @@ describe('successful sign-ins', () => {
 describe('sign-in limits behind a configured proxy', () => {
   let t: TestApp;
   beforeAll(async () => {
-    t = await createTestApp({ TRUST_PROXY: 'loopback' });
+    // A proxy in front means other machines reach the app: real SMTP only (the test still delivers to its private sink).
+    t = await createTestApp({ TRUST_PROXY: 'loopback', SMTP_URL: 'smtp://127.0.0.1:1' });
   });
   afterAll(async () => t?.close());
 
@@ -185,7 +214,7 @@ describe('rate-limit counters in MariaDB', () => {
 });
 
 describe('TRUST_PROXY setting', () => {
-  const base = { NODE_ENV: 'test' };
+  const base = { NODE_ENV: 'test', SMTP_URL: 'smtp://127.0.0.1:1' };
   it('is off unless set, and takes a hop count or proxy addresses', () => {
     expect(loadConfig(base).TRUST_PROXY).toBe('off');
     expect(loadConfig({ ...base, TRUST_PROXY: '1' }).TRUST_PROXY).toBe('1');

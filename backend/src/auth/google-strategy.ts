@@ -8,6 +8,7 @@ import { Strategy as GoogleStrategy, type Profile } from 'passport-google-oauth2
 import type { DataSource } from 'typeorm';
 import type { Config } from '../config.js';
 import { User } from '../entities/user.entity.js';
+import { markAddressProven } from '../services/account.service.js';
 
 export const GOOGLE_STRATEGY = 'google';
 
@@ -17,16 +18,21 @@ export function googleConfigured(config: Config): boolean {
 
 export async function userForGoogleProfile(ds: DataSource, profile: Pick<Profile, 'id' | 'displayName' | 'emails'>): Promise<User> {
   const repo = ds.getRepository(User);
+  // Google verified the address it shares, so it counts as proven (from the first Google sign-in).
   const bySub = await repo.findOneBy({ googleSub: profile.id });
-  if (bySub) return bySub;
+  if (bySub) {
+    if (!bySub.emailProvenAt) await markAddressProven(ds, bySub);
+    return bySub;
+  }
   const email = profile.emails?.[0]?.value?.trim().toLowerCase();
   if (!email) throw new Error('Google did not share an e-mail address');
   const byEmail = await repo.findOneBy({ email });
   if (byEmail) {
     await repo.update({ id: byEmail.id }, { googleSub: profile.id });
+    await markAddressProven(ds, byEmail);
     return { ...byEmail, googleSub: profile.id };
   }
-  return repo.save({ email, name: profile.displayName || email, googleSub: profile.id, passwordHash: null, unitPreference: 'us' });
+  return repo.save({ email, name: profile.displayName || email, googleSub: profile.id, passwordHash: null, unitPreference: 'us', emailProvenAt: new Date() });
 }
 
 export function configureGoogle(instance: passport.PassportStatic, ds: DataSource, config: Config, callbackUrl: string): void {

@@ -17,15 +17,18 @@ import { UnitEvent } from './unit-event.entity.js';
 import { MailOutbox } from './mail-outbox.entity.js';
 import { SinkMessage } from './sink-message.entity.js';
 import { RateLimitCounter } from './rate-limit-counter.entity.js';
+import { AddressConfirmationToken } from './address-confirmation-token.entity.js';
 
 export { ApiToken, AuditEvent, ClientGroup, Invitation, Membership, Organisation, PasswordResetToken, User };
 export { BackgroundJob, CleaningMethodRecord, DailyAggregate, DataImport, GeneratingUnit, PerformanceSample, Plant, UnitEvent };
 export { MailOutbox, SinkMessage };
 export { RateLimitCounter };
+export { AddressConfirmationToken };
 
 export const ENTITIES = [
   Organisation, User, Membership, AuditEvent, ClientGroup, Invitation, PasswordResetToken, ApiToken,
   Plant, GeneratingUnit, DataImport, PerformanceSample, DailyAggregate, UnitEvent, CleaningMethodRecord, BackgroundJob,
   MailOutbox, SinkMessage,
   RateLimitCounter,
+  AddressConfirmationToken,
 ];

@@ -12,5 +12,10 @@ export class User {
   @Column({ type: 'varchar', length: 2, default: 'us' }) unitPreference: UnitPreference;
   /** Sessions created before this instant are no longer valid (password change, sign-out everywhere). */
   @Column({ type: 'datetime', precision: 3, nullable: true }) sessionsValidFrom: Date | null;
+  /**
+   * When the person proved they receive mail at this address (an accepted invitation, a confirmed reset, Google
+   * sign-in, an address confirmation, the demo seed); null until then. The local mailbox shows only mail after it.
+   */
+  @Column({ type: 'datetime', precision: 3, nullable: true }) emailProvenAt: Date | null;
   @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)' }) createdAt: Date;
 }

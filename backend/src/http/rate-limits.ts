@@ -30,6 +30,7 @@ const RULES = {
   signUp: { name: 'sign-up', what: 'sign-ups from this address', points: 20, windowMs: 60 * MINUTE },
   reset: { name: 'reset', what: 'password reset requests', points: 5, windowMs: 60 * MINUTE },
   resetConfirm: { name: 'reset-confirm', what: 'attempts with this reset link', points: 10, windowMs: 60 * MINUTE },
+  addressConfirm: { name: 'address-confirm', what: 'address confirmation attempts', points: 20, windowMs: 60 * MINUTE },
   passwordChange: { name: 'password-change', what: 'password change attempts', points: 10, windowMs: 15 * MINUTE },
   invite: { name: 'invite', what: 'invitations', points: 30, windowMs: 60 * MINUTE },
 } satisfies Record<string, Rule>;
@@ -117,6 +118,14 @@ function limitFailures(counters: { c: Counter; key: (req: Request) => string }[]
   };
 }
 
+/**
+ * Forgets an account's failed sign-ins: once the owner proved they hold the address (a confirmed password reset
+ * or address confirmation), someone else's guesses no longer keep them out.
+ */
+export async function clearSignInFailures(ds: DataSource, email: string): Promise<void> {
+  await counter(ds, RULES.signInAccount).limiter().delete(hashed(email.trim().toLowerCase()));
+}
+
 /** Failed sign-ins per account (from anywhere) and per address (for any account). */
 export const signInLimiter = (ds: DataSource) =>
   limitFailures([
@@ -127,6 +136,8 @@ export const signUpLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, R
 /** Address and account together: nobody locks another person out of resets from elsewhere. */
 export const resetLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, RULES.reset), (req) => `${addressOf(req)}|${emailOf(req)}`);
 export const resetConfirmLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, RULES.resetConfirm), (req) => `${addressOf(req)}|${String(req.body?.token ?? '')}`);
+/** Per address: guessing confirmation links from one place stops there. */
+export const addressConfirmLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, RULES.addressConfirm), addressOf);
 /** Keyed by the session: another person's guesses never lock this account's owner out. */
 export const passwordChangeLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, RULES.passwordChange), (req) => req.sessionID ?? '');
 export const inviteLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, RULES.invite), (req) => req.sessionID ?? '');

@@ -6,7 +6,7 @@
  */
 import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
-import { LessThan, type DataSource } from 'typeorm';
+import { LessThan, MoreThanOrEqual, type DataSource } from 'typeorm';
 import { SinkMessage } from '../entities/sink-message.entity.js';
 
 export interface SmtpSink {
@@ -65,8 +65,9 @@ export async function startSmtpSink(options: { port: number; dataSource: DataSou
   };
 }
 
-/** The mail the sink received for one person, newest first. */
-export async function sinkMessagesFor(ds: DataSource, email: string, limit = 200): Promise<SinkMessageView[]> {
-  const rows = await ds.getRepository(SinkMessage).find({ where: { recipient: email.toLowerCase() }, order: { receivedAt: 'DESC' }, take: limit });
+/** The mail the sink received for one address (only from `since` on, when given), newest first. */
+export async function sinkMessagesFor(ds: DataSource, email: string, options: { since?: Date; limit?: number } = {}): Promise<SinkMessageView[]> {
+  const where = { recipient: email.toLowerCase(), ...(options.since && { receivedAt: MoreThanOrEqual(options.since) }) };
+  const rows = await ds.getRepository(SinkMessage).find({ where, order: { receivedAt: 'DESC' }, take: options.limit ?? 200 });
   return rows.map((r) => ({ id: r.id, receivedAt: r.receivedAt.toISOString(), from: r.sender, to: [r.recipient], subject: r.subject, text: r.body }));
 }

@@ -46,3 +46,18 @@ export function accountExistsMail(p: { to: string; signInLink: string; resetLink
     ].join('\n'),
   };
 }
+
+/** Sent after self sign-up: following the link proves the person receives mail at the address. */
+export function addressConfirmationMail(p: { to: string; link: string; expiresAt: Date }): OutgoingMail {
+  return {
+    to: p.to,
+    subject: 'Confirm your e-mail address for Cleancase',
+    text: [
+      'A Cleancase account was made with this e-mail address. Confirm that the address is yours:',
+      '',
+      p.link,
+      '',
+      `The link works once and until ${p.expiresAt.toUTCString()}. If you did not make the account, ignore this message.`,
+    ].join('\n'),
+  };
+}

@@ -1,13 +1,13 @@
 import type { Request, Response } from 'express';
 import type { DataSource } from 'typeorm';
-import { createOrganisationRequest, passwordChange, passwordResetConfirm, passwordResetRequest, profileUpdate, signUpRequest } from '@shared/schemas/accounts.js';
+import { addressConfirmation, createOrganisationRequest, passwordChange, passwordResetConfirm, passwordResetRequest, profileUpdate, signUpRequest } from '@shared/schemas/accounts.js';
 import { establishSession } from '../auth/establish-session.js';
 import type { Config } from '../config.js';
 import { baseUrl } from '../http/base-url.js';
-import { passwordChangeLimiter, resetConfirmLimiter, resetLimiter, signUpLimiter } from '../http/rate-limits.js';
+import { addressConfirmLimiter, passwordChangeLimiter, resetConfirmLimiter, resetLimiter, signUpLimiter } from '../http/rate-limits.js';
 import type { RouteSpec } from '../http/route-registry.js';
 import type { Mailer } from '../mail/mailer.js';
-import { changePassword, confirmPasswordReset, createOrganisation, requestPasswordReset, SIGN_UP_ANSWER, signUp, updateProfile } from '../services/account.service.js';
+import { changePassword, confirmAddress, confirmPasswordReset, createOrganisation, requestPasswordReset, SIGN_UP_ANSWER, signUp, updateProfile } from '../services/account.service.js';
 
 export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, answerSession: (req: Request, res: Response) => Promise<void>): RouteSpec[] {
   return [
@@ -89,6 +89,19 @@ export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, an
       description: 'Set a new password with a reset link; every session of the account ends',
       handler: async (req, res) => {
         await confirmPasswordReset(ds, req.body.token, req.body.password);
+        res.status(204).end();
+      },
+    },
+      {
+      method: 'post',
+      path: '/api/address-confirmations',
+      access: 'public',
+      tenantScoped: false,
+      rateLimit: addressConfirmLimiter(ds),
+      body: addressConfirmation,
+      description: 'Confirm your e-mail address with the link mailed after sign-up (opens the local mailbox in a local run)',
+      handler: async (req, res) => {
+        await confirmAddress(ds, req.body.token);
         res.status(204).end();
       },
     },

@@ -53,7 +53,7 @@ export async function seedDemoIfEmpty(dataSource: DataSource, log: (line: string
       }
     }
     for (const person of DEMO_PEOPLE) {
-      const user = await em.getRepository(User).save({ email: person.email, name: person.name, passwordHash, unitPreference: 'us' });
+      const user = await em.getRepository(User).save({ email: person.email, name: person.name, passwordHash, unitPreference: 'us', emailProvenAt: new Date() });
       for (const m of person.memberships) {
         const clientGroupIds = m.clientGroups ? m.clientGroups.map((g) => groupIds.get(g)!) : null;
         await em.getRepository(Membership).save({ organisationId: orgIds.get(m.organisation)!, userId: user.id, role: m.role, clientGroupIds });

@@ -1,24 +1,27 @@
 /** Sign-up, own organisations, tenant switch, profile, password change and reset. */
-import type { DataSource } from 'typeorm';
+import { IsNull, type DataSource, type EntityManager } from 'typeorm';
 import type { z } from 'zod';
 import type { passwordChange, profileUpdate, SignUpRequest } from '@shared/schemas/accounts.js';
 import { assertPasswordAcceptable } from '../auth/password-rules.js';
 import { hashPassword, verifyPassword } from '../auth/password.js';
 import { hashSecretToken, newSecretToken } from '../auth/secret-token.js';
+import { AddressConfirmationToken } from '../entities/address-confirmation-token.entity.js';
 import { Membership } from '../entities/membership.entity.js';
 import { Organisation } from '../entities/organisation.entity.js';
 import { PasswordResetToken } from '../entities/password-reset-token.entity.js';
 import { User } from '../entities/user.entity.js';
 import { AppError, badRequest, notFound } from '../http/app-error.js';
+import { clearSignInFailures } from '../http/rate-limits.js';
 import type { Mailer, OutgoingMail } from '../mail/mailer.js';
 import { enqueueComposed } from '../mail/outbox.js';
-import { accountExistsMail, passwordResetMail } from '../mail/templates.js';
+import { accountExistsMail, addressConfirmationMail, passwordResetMail } from '../mail/templates.js';
 import { revokeAllApiTokensOf } from './api-token.service.js';
 import { recordAudit } from './audit.service.js';
 import { seedTypicalMethods } from './cleaning-method.service.js';
 
 export const TRIAL_DAYS = 30;
 const RESET_LIFETIME_MS = 60 * 60 * 1000;
+const CONFIRMATION_LIFETIME_MS = 24 * 60 * 60 * 1000;
 
 /** The one answer to every well-formed sign-up, whether or not the address had an account (no enumeration). */
 export const SIGN_UP_ANSWER = {
@@ -26,8 +29,9 @@ export const SIGN_UP_ANSWER = {
 };
 
 /**
- * A new address gets an account and organisation at once (it can sign in straight away); an address with an
- * account gets a notice by e-mail instead of a second account. Both take the same steps up to that point.
+ * A new address gets an account and organisation at once (it can sign in straight away) and a mail asking to
+ * confirm the address, which stays unproven until then; an address with an account gets a notice by e-mail
+ * instead of a second account. Both take the same steps up to that point, and each queues one mail.
  */
 export async function signUp(ds: DataSource, mailer: Mailer, input: SignUpRequest, baseUrl: string): Promise<void> {
   assertPasswordAcceptable(input.password, { email: input.email, name: input.name });
@@ -36,7 +40,8 @@ export async function signUp(ds: DataSource, mailer: Mailer, input: SignUpReques
   try {
     await ds.transaction(async (em) => {
       if (await em.getRepository(User).existsBy({ email: input.email })) throw new AddressTaken();
-      const user = await em.getRepository(User).save({ email: input.email, name: input.name, passwordHash, unitPreference: 'us' });
+      const user = await em.getRepository(User).save({ email: input.email, name: input.name, passwordHash, unitPreference: 'us', emailProvenAt: null });
+      await enqueueComposed(em, ADDRESS_CONFIRMATION_MAIL, input.email);
       const organisation = await em.getRepository(Organisation).save({
         name: input.organisationName,
         kind: 'utility',
@@ -57,6 +62,43 @@ export async function signUp(ds: DataSource, mailer: Mailer, input: SignUpReques
 }
 
 class AddressTaken extends Error {}
+
+export const ADDRESS_CONFIRMATION_MAIL = 'address-confirmation';
+
+/** Runs at delivery: a fresh single-use link while the address is unproven, nothing once it is proven. */
+export async function composeAddressConfirmationMail(ds: DataSource, email: string, baseUrl: string): Promise<OutgoingMail | null> {
+  const user = await ds.getRepository(User).findOneBy({ email });
+  if (!user || user.emailProvenAt) return null;
+  const { token, hash } = newSecretToken();
+  const expiresAt = new Date(Date.now() + CONFIRMATION_LIFETIME_MS);
+  await ds.getRepository(AddressConfirmationToken).insert({ userId: user.id, tokenHash: hash, expiresAt, usedAt: null });
+  return addressConfirmationMail({ to: user.email, link: `${baseUrl}/confirm-address?token=${encodeURIComponent(token)}`, expiresAt });
+}
+
+/** The link came by mail to the address: it is proven from now on (an earlier proof stands) and its failed sign-ins are forgotten. */
+export async function confirmAddress(ds: DataSource, token: string): Promise<void> {
+  const user = await ds.transaction(async (em) => {
+    const confirmation = await em
+      .getRepository(AddressConfirmationToken)
+      .createQueryBuilder('t')
+      .setLock('pessimistic_write')
+      .where('t.tokenHash = :h', { h: hashSecretToken(token) })
+      .getOne();
+    if (!confirmation || confirmation.usedAt || confirmation.expiresAt.getTime() < Date.now()) {
+      throw new AppError(400, 'This confirmation link is no longer valid; a password reset link confirms the address too');
+    }
+    await em.getRepository(AddressConfirmationToken).update({ id: confirmation.id }, { usedAt: new Date() });
+    const user = await em.getRepository(User).findOneByOrFail({ id: confirmation.userId });
+    await markAddressProven(em, user);
+    return user;
+  });
+  await clearSignInFailures(ds, user.email);
+}
+
+/** Records that the person receives mail at their address (from now, unless proven earlier). */
+export async function markAddressProven(em: DataSource | EntityManager, user: Pick<User, 'id'>): Promise<void> {
+  await em.getRepository(User).update({ id: user.id, emailProvenAt: IsNull() }, { emailProvenAt: new Date() });
+}
 
 export async function createOrganisation(ds: DataSource, userId: string, name: string): Promise<Organisation> {
   return ds.transaction(async (em) => {
@@ -119,8 +161,9 @@ export async function composePasswordResetMail(ds: DataSource, email: string, ba
   return passwordResetMail({ to: user.email, link: `${baseUrl}/reset-password?token=${encodeURIComponent(token)}`, expiresAt });
 }
 
+/** Sets the new password; the mailed link proves the address, so the account's failed sign-ins are forgotten. */
 export async function confirmPasswordReset(ds: DataSource, token: string, password: string): Promise<User> {
-  return ds.transaction(async (em) => {
+  const user = await ds.transaction(async (em) => {
     const reset = await em
       .getRepository(PasswordResetToken)
       .createQueryBuilder('t')
@@ -134,7 +177,10 @@ export async function confirmPasswordReset(ds: DataSource, token: string, passwo
     assertPasswordAcceptable(password, { email: user.email, name: user.name });
     await em.getRepository(User).update({ id: user.id }, { passwordHash: await hashPassword(password), sessionsValidFrom: new Date() });
     await em.getRepository(PasswordResetToken).update({ id: reset.id }, { usedAt: new Date() });
+    await markAddressProven(em, user);
     await revokeAllApiTokensOf(em, user.id);
     return user;
   });
+  await clearSignInFailures(ds, user.email);
+  return user;
 }

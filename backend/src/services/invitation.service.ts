@@ -14,6 +14,7 @@ import type { Mailer } from '../mail/mailer.js';
 import { invitationMail } from '../mail/templates.js';
 import { assertMayGrant, coversClientGroups, type TenantScope } from '../policies/tenant-scope.js';
 import { assertClientGroupsInTenant } from '../repositories/client-group.repository.js';
+import { markAddressProven } from './account.service.js';
 import { recordAudit } from './audit.service.js';
 
 const LIFETIME_MS = 7 * 86_400_000;
@@ -121,6 +122,8 @@ export async function acceptInvitation(
       assertPasswordAcceptable(input.password, { email: inv.email, name: input.name });
       user = await em.getRepository(User).save({ email: inv.email, name: input.name, passwordHash, unitPreference: 'us' });
     }
+    // The token came by mail to this address: the address is proven.
+    await markAddressProven(em, user);
     if (!(await em.getRepository(Membership).existsBy({ organisationId: inv.organisationId, userId: user.id }))) {
       await em.getRepository(Membership).save({ organisationId: inv.organisationId, userId: user.id, role: inv.role, clientGroupIds: inv.clientGroupIds });
     }

@@ -61,6 +61,7 @@ const router = createBrowserRouter([
   { path: '/sign-up', lazy: page(() => import('./routes/sign-up'), (m) => m.SignUpPage), errorElement: <RouteErrorPage /> },
   { path: '/forgot-password', lazy: page(() => import('./routes/forgot-password'), (m) => m.ForgotPasswordPage), errorElement: <RouteErrorPage /> },
   { path: '/reset-password', lazy: page(() => import('./routes/reset-password'), (m) => m.ResetPasswordPage), errorElement: <RouteErrorPage /> },
+  { path: '/confirm-address', lazy: page(() => import('./routes/confirm-address'), (m) => m.ConfirmAddressPage), errorElement: <RouteErrorPage /> },
   {
     path: '/invitation',
     lazy: page(() => import('./routes/invitation'), (m) => m.InvitationPage),
