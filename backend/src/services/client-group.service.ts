@@ -46,10 +46,10 @@ export async function renameGroup(ds: DataSource, scope: TenantScope, id: string
 
 /** Removes the group and takes it out of every membership limit (a limit that becomes empty stays empty: sees nothing). */
 export async function deleteGroup(ds: DataSource, scope: TenantScope, id: string): Promise<void> {
-  // It rewrites limits and plants beyond any one group, so someone limited to groups may not do it.
-  if (scope.clientGroupIds !== null) throw forbidden('Deleting a client group changes people and plants in other groups: only members without a client-group limit can do it');
   const group = await findClientGroup(ds.manager, scope, id);
   if (!group) throw notFound('No such client group');
+  // It rewrites limits and plants beyond any one group, so someone limited to groups may not do it.
+  if (scope.clientGroupIds !== null) throw forbidden('Deleting a client group changes people and plants in other groups: only members without a client-group limit can do it');
   await ds.transaction(async (em) => {
     const limited = await em.getRepository(Membership).findBy({ organisationId: scope.organisationId });
     for (const m of limited) {
