@@ -108,9 +108,15 @@ function limitFailures(counters: { c: Counter; key: (req: Request) => string }[]
           throw err;
         }
       }
-      res.on('finish', () => {
-        if (res.statusCode !== 401) giveBack().catch((err: unknown) => req.log?.warn({ err }, 'could not give back a sign-in attempt'));
-      });
+      // Given back before the answer leaves, so the next attempt (even one sent right after) sees the true count.
+      const end = res.end.bind(res) as (...args: unknown[]) => Response;
+      res.end = ((...args: unknown[]) => {
+        if (res.statusCode === 401) return end(...args);
+        giveBack()
+          .catch((err: unknown) => req.log?.warn({ err }, 'could not give back a sign-in attempt'))
+          .finally(() => end(...args));
+        return res;
+      }) as Response['end'];
       next();
     } catch (err) {
       next(err);
