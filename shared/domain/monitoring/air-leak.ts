@@ -68,6 +68,14 @@ const MAX_REFERENCE_REACH_DAYS = 60;
 /** With at least this many reference days the recent trend is extrapolated; with fewer, their median is the level. */
 const MIN_DAYS_FOR_TREND = 7;
 
+/**
+ * A leak that opens over weeks moves the recent reference along with it, so witnesses are also held against an
+ * earlier window, 30–45 days back (after the last cleaning). Two witnesses risen against it are needed, since
+ * one alone drifts with season and instruments. [common practice: engineering judgement, not from a standard]
+ */
+const EARLIER_WINDOW_DAYS = { from: 45, to: 30 } as const;
+const MIN_EARLIER_DAYS = 5;
+
 
 /**
  * Cleanliness the reference days lead one to expect on day `t`: their robust straight line (Theil–Sen: median of
@@ -82,6 +90,19 @@ function expectedCleanliness(reference: readonly AirLeakDay[], t: number): numbe
   for (let a = 0; a < ts.length; a++) for (let b = a + 1; b < ts.length; b++) if (ts[a] !== ts[b]) slopes.push((cf[b] - cf[a]) / (ts[b] - ts[a]));
   const slope = Math.min(0, median(slopes) ?? 0);
   return median(cf.map((c, k) => c - slope * (ts[k] - t)))!;
+}
+
+/** The witnesses that rose on day `d` against the medians of `reference`. */
+function witnessRises(d: AirLeakDay, reference: readonly AirLeakDay[], settings: AirLeakSettings): AirLeakPeriod['evidence'] {
+  const ref = (pick: (x: AirLeakDay) => number | null) => median(reference.map(pick).filter((v): v is number => v !== null));
+  const sub = ref((x) => x.subcoolingK);
+  const o2 = ref((x) => x.dissolvedOxygenPpb);
+  const air = ref((x) => x.airRemovalKgS);
+  const rose: AirLeakPeriod['evidence'] = [];
+  if (d.subcoolingK !== null && sub !== null && d.subcoolingK - sub >= settings.subcoolingRiseK) rose.push('subcooling');
+  if (d.dissolvedOxygenPpb !== null && o2 !== null && d.dissolvedOxygenPpb >= settings.oxygenFactor * Math.max(o2, 1)) rose.push('dissolved-oxygen');
+  if (d.airRemovalKgS !== null && air !== null && air > 0 && d.airRemovalKgS >= settings.airRemovalFactor * air) rose.push('air-removal');
+  return rose;
 }
 
 /**
@@ -121,15 +142,27 @@ export function judgeAirLeakDays(days: readonly AirLeakDay[], settings: AirLeakS
     }
     const ref = (pick: (x: AirLeakDay) => number | null) => median(reference.map(pick).filter((v): v is number => v !== null));
     const drop = expectedCleanliness(reference, t) - d.cleanliness;
-    const evidence: AirLeakPeriod['evidence'] = [];
     const sub = ref((x) => x.subcoolingK);
     const o2 = ref((x) => x.dissolvedOxygenPpb);
     const air = ref((x) => x.airRemovalKgS);
     const witnessed = (d.subcoolingK !== null && sub !== null) || (d.dissolvedOxygenPpb !== null && o2 !== null) || (d.airRemovalKgS !== null && air !== null && air > 0);
-    if (d.subcoolingK !== null && sub !== null && d.subcoolingK - sub >= settings.subcoolingRiseK) evidence.push('subcooling');
-    if (d.dissolvedOxygenPpb !== null && o2 !== null && d.dissolvedOxygenPpb >= settings.oxygenFactor * Math.max(o2, 1)) evidence.push('dissolved-oxygen');
-    if (d.airRemovalKgS !== null && air !== null && air > 0 && d.airRemovalKgS >= settings.airRemovalFactor * air) evidence.push('air-removal');
-    const suspected = witnessed ? (drop >= settings.dropWithEvidence && evidence.length > 0) || evidence.length >= 2 : drop >= settings.dropAlone;
+    const evidence = witnessRises(d, reference, settings);
+    let suspected = witnessed ? (drop >= settings.dropWithEvidence && evidence.length > 0) || evidence.length >= 2 : drop >= settings.dropAlone;
+    if (!suspected && witnessed) {
+      const earlier: AirLeakDay[] = [];
+      for (let k = i - 1; k >= 0 && days[k].day >= lastCleaning; k--) {
+        const age = t - dayNumber(days[k].day);
+        if (age > EARLIER_WINDOW_DAYS.from) break;
+        if (age >= EARLIER_WINDOW_DAYS.to && !verdicts[k].suspected) earlier.push(days[k]);
+      }
+      if (earlier.length >= MIN_EARLIER_DAYS) {
+        const rose = witnessRises(d, earlier, settings);
+        if (rose.length >= 2) {
+          suspected = true;
+          evidence.splice(0, evidence.length, ...rose);
+        }
+      }
+    }
     verdicts.push({ day: d.day, suspected, drop, evidence: suspected ? (drop >= settings.dropWithEvidence ? ['cleanliness-drop', ...evidence] : evidence) : [] });
   }
   return verdicts;

@@ -114,6 +114,24 @@ describe('suspected air in-leakage', () => {
     expect(airLeakPeriods(v)).toEqual([]);
   });
 
+  it('finds a leak that opens over three weeks (CF −0.06, subcooling +2 K, oxygen ×3, air removal ×2), which the recent reference follows', () => {
+    // The witnesses more than double while fouling leaves them alone (ENGINEERING.md §3): held against days 30–45 back.
+    const ramp = (i: number) => (i < 80 ? Math.min(1, Math.max(0, (i - 40) / 20)) : 0);
+    const v = judgeAirLeakDays(
+      series(140, {
+        ratePerDay: 0.003,
+        loss: (i) => 0.06 * ramp(i),
+        witnesses: (i) => ({ subcoolingK: 0.6 + 2 * ramp(i), dissolvedOxygenPpb: 6 * (1 + 2 * ramp(i)), airRemovalKgS: 0.012 * (1 + ramp(i)) }),
+      }),
+    );
+    const periods = airLeakPeriods(v);
+    expect(periods).toHaveLength(1);
+    expect(periods[0].from >= addDays(START, 45) && periods[0].from <= addDays(START, 55)).toBe(true);
+    expect(periods[0].to).toBe(addDays(START, 79));
+    expect(periods[0].evidence).toEqual(expect.arrayContaining(['subcooling', 'dissolved-oxygen']));
+    expect(v.slice(82).some((d) => d.suspected)).toBe(false);
+  });
+
   it('keeps a leak longer than the 14-day reference window as one period, judged against the days before it began', () => {
     expect(DEFAULT_AIR_LEAK_SETTINGS.baselineDays).toBe(14);
     const from = 30;
