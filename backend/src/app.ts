@@ -31,6 +31,7 @@ import { unitRoutes } from './routes/unit.routes.js';
 import { unitHealthRoutes } from './routes/unit-health.routes.js';
 import { invitationRoutes } from './routes/invitation.routes.js';
 import { memberRoutes } from './routes/member.routes.js';
+import { openApiRoutes } from './routes/openapi.routes.js';
 import { SESSION_COOKIE, sessionRoutes } from './routes/session.routes.js';
 import { describeSession } from './services/session.service.js';
 
@@ -125,6 +126,7 @@ export function createApp(deps: AppDeps): CleancaseApp {
     ...calcRoutes(),
     ...(withGoogle ? googleAuthRoutes(auth) : []),
     ...(devMailbox ? devMailboxRoutes(dataSource) : []),
+    ...openApiRoutes(() => routes, SESSION_COOKIE),
   ];
   mountRoutes(app, routes, authenticate);
   app.use('/api', (_req, _res, next) => next(notFound('No such API endpoint')));

@@ -66,46 +66,59 @@ export const auditQuery = z
   })
   .strict();
 
-export interface MemberView {
-  membershipId: string;
-  userId: string;
-  name: string;
-  email: string;
-  role: z.infer<typeof roleSchema>;
-  clientGroupIds: string[] | null;
-  joinedAt: string;
-}
+export const memberView = z
+  .object({
+    membershipId: z.string(),
+    userId: z.string(),
+    name: z.string(),
+    email: z.string(),
+    role: roleSchema,
+    /** null: every client group of the organisation */
+    clientGroupIds: z.array(z.string()).nullable(),
+    joinedAt: z.iso.datetime(),
+  })
+  .strict();
+export type MemberView = z.infer<typeof memberView>;
+export const membersResponse = z.object({ members: z.array(memberView) }).strict();
 
-export interface InvitationView {
-  id: string;
-  email: string;
-  role: z.infer<typeof roleSchema>;
-  clientGroupIds: string[] | null;
-  expiresAt: string;
-  createdAt: string;
-}
+export const invitationView = z
+  .object({
+    id: z.string(),
+    email: z.string(),
+    role: roleSchema,
+    clientGroupIds: z.array(z.string()).nullable(),
+    expiresAt: z.iso.datetime(),
+    createdAt: z.iso.datetime(),
+  })
+  .strict();
+export type InvitationView = z.infer<typeof invitationView>;
 
-export interface ClientGroupView {
-  id: string;
-  name: string;
-  createdAt: string;
-}
+export const clientGroupView = z.object({ id: z.string(), name: z.string(), createdAt: z.iso.datetime() }).strict();
+export type ClientGroupView = z.infer<typeof clientGroupView>;
 
-export interface ApiTokenView {
-  id: string;
-  name: string;
-  prefix: string;
-  createdAt: string;
-  lastUsedAt: string | null;
-}
+export const apiTokenView = z
+  .object({ id: z.string(), name: z.string(), prefix: z.string(), createdAt: z.iso.datetime(), lastUsedAt: z.iso.datetime().nullable() })
+  .strict();
+export type ApiTokenView = z.infer<typeof apiTokenView>;
 
-export interface AuditEventView {
-  id: string;
-  createdAt: string;
-  userId: string | null;
-  userName: string | null;
-  action: string;
-  entityType: string;
-  entityId: string | null;
-  details: Record<string, unknown> | null;
-}
+export const auditEventView = z
+  .object({
+    id: z.string(),
+    createdAt: z.iso.datetime(),
+    userId: z.string().nullable(),
+    userName: z.string().nullable(),
+    action: z.string(),
+    entityType: z.string(),
+    entityId: z.string().nullable(),
+    details: z.record(z.string(), z.unknown()).nullable(),
+  })
+  .strict();
+export type AuditEventView = z.infer<typeof auditEventView>;
+
+export const invitationsResponse = z.object({ invitations: z.array(invitationView) }).strict();
+export const clientGroupsResponse = z.object({ clientGroups: z.array(clientGroupView) }).strict();
+export const apiTokensResponse = z.object({ apiTokens: z.array(apiTokenView) }).strict();
+/** A new token: its secret is shown this once. */
+export const createdApiToken = apiTokenView.extend({ token: z.string() }).strict();
+export type CreatedApiToken = z.infer<typeof createdApiToken>;
+export const auditEventsResponse = z.object({ events: z.array(auditEventView) }).strict();

@@ -136,3 +136,15 @@ export const TYPICAL_CLEANING_METHODS: readonly CleaningMethod[] = [
 export function cautionsFor(method: Pick<CleaningMethod, 'cautions'>): string[] {
   return [GENERAL_CAUTION, ...method.cautions.map((c) => CAUTION_TEXT[c])];
 }
+
+/** A method as the library answers it: the record's id beside the method's own key, and its cautions spelled out. */
+export const cleaningMethodView = z
+  .object({
+    recordId: z.string(),
+    ...cleaningMethodSchema.shape,
+    cautionTexts: z.array(z.string()),
+  })
+  .strict();
+export type CleaningMethodView = z.infer<typeof cleaningMethodView>;
+export const cleaningMethodsResponse = z.object({ methods: z.array(cleaningMethodView) }).strict();
+export type CleaningMethodsResponse = z.infer<typeof cleaningMethodsResponse>;

@@ -29,3 +29,24 @@ export type UnitEventInput = z.infer<typeof unitEventInput>;
 export const dailyQuery = z
   .object({ from: isoDate.optional(), to: isoDate.optional() })
   .strict();
+
+export const unitEventView = z
+  .object({
+    id: z.string(),
+    unitId: z.string(),
+    kind: z.enum(UNIT_EVENT_KINDS),
+    startDate: isoDate,
+    endDate: isoDate.nullable(),
+    methodId: z.string().nullable(),
+    cost: z.number().nullable(),
+    cleanlinessBefore: z.number().nullable(),
+    cleanlinessAfter: z.number().nullable(),
+    pluggedTubesAfter: z.number().int().nullable(),
+    notes: z.string().nullable(),
+    createdAt: z.iso.datetime(),
+  })
+  .strict();
+export type UnitEventView = z.infer<typeof unitEventView>;
+
+export const unitEventsResponse = z.object({ events: z.array(unitEventView) }).strict();
+export type UnitEventsResponse = z.infer<typeof unitEventsResponse>;

@@ -58,6 +58,7 @@ const plantBody = (fx: Fixture) => ({ name: `Plant ${Math.random().toString(36).
 
 const MATRIX: Record<string, Entry> = {
   'GET /api/health': { expect: all(200) },
+  'GET /api/openapi.json': { expect: all(200) },
   'GET /api/session': { expect: all(200) },
   'POST /api/session': { body: () => ({ email: 'nobody@example.test', password: 'wrong password here' }), expect: all(401) },
   'DELETE /api/session': { changesSession: true, expect: members(204) },

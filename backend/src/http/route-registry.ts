@@ -13,6 +13,9 @@ import { rejectPrivilegedFields } from './privileged-fields.js';
 
 export type Access = 'public' | 'signed-in' | Permission;
 
+/** What a successful call answers: a JSON body (its schema), nothing (204), or a file download (its media types). */
+export type RouteResponse = ZodType | 'empty' | { file: string[] };
+
 export interface RouteSpec {
   method: 'get' | 'post' | 'put' | 'patch' | 'delete';
   path: string;
@@ -29,6 +32,10 @@ export interface RouteSpec {
   rateLimit?: RequestHandler;
   body?: ZodType;
   query?: ZodType;
+  /** The success answer, for the API description (GET /api/openapi.json) and the response-schema tests. */
+  response?: RouteResponse;
+  /** Success status when it is not 200 (201 created, 202 accepted); 'empty' answers 204. */
+  status?: 201 | 202;
   /** Extra middleware before the handler (e.g. a file upload parser). */
   before?: RequestHandler[];
   handler: (req: Request, res: Response) => unknown;

@@ -8,12 +8,16 @@ import { addressConfirmLimiter, passwordChangeLimiter, resetConfirmLimiter, rese
 import type { RouteSpec } from '../http/route-registry.js';
 import type { Mailer } from '../mail/mailer.js';
 import { changePassword, confirmAddress, confirmPasswordReset, createOrganisation, requestPasswordReset, SIGN_UP_ANSWER, signUp, updateProfile } from '../services/account.service.js';
+import { sessionResponse } from '@shared/schemas/session.js';
+import { messageResponse } from '@shared/schemas/errors.js';
 
 export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, answerSession: (req: Request, res: Response) => Promise<void>): RouteSpec[] {
   return [
     {
       method: 'post',
       path: '/api/sign-up',
+      response: messageResponse,
+      status: 201,
       access: 'public',
       tenantScoped: false,
       rateLimit: signUpLimiter(ds),
@@ -27,6 +31,8 @@ export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, an
     {
       method: 'post',
       path: '/api/organisations',
+      response: sessionResponse,
+      status: 201,
       access: 'signed-in',
       tenantScoped: false,
       body: createOrganisationRequest,
@@ -41,6 +47,7 @@ export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, an
     {
       method: 'patch',
       path: '/api/profile',
+      response: sessionResponse,
       access: 'signed-in',
       tenantScoped: false,
       body: profileUpdate,
@@ -53,6 +60,7 @@ export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, an
     {
       method: 'post',
       path: '/api/profile/password',
+      response: sessionResponse,
       access: 'signed-in',
       tenantScoped: false,
       rateLimit: passwordChangeLimiter(ds),
@@ -69,6 +77,8 @@ export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, an
     {
       method: 'post',
       path: '/api/password-reset',
+      response: messageResponse,
+      status: 202,
       access: 'public',
       tenantScoped: false,
       rateLimit: resetLimiter(ds),
@@ -82,6 +92,7 @@ export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, an
     {
       method: 'post',
       path: '/api/password-reset/confirm',
+      response: 'empty',
       access: 'public',
       tenantScoped: false,
       rateLimit: resetConfirmLimiter(ds),
@@ -95,6 +106,7 @@ export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, an
       {
       method: 'post',
       path: '/api/address-confirmations',
+      response: 'empty',
       access: 'public',
       tenantScoped: false,
       rateLimit: addressConfirmLimiter(ds),

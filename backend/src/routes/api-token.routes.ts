@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import { apiTokenCreate } from '@shared/schemas/accounts.js';
+import { apiTokenCreate, apiTokensResponse, createdApiToken } from '@shared/schemas/accounts.js';
 import { idParam } from '../http/params.js';
 import type { RouteSpec } from '../http/route-registry.js';
 import { scopeOf } from '../policies/tenant-scope.js';
@@ -10,6 +10,7 @@ export function apiTokenRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'get',
       path: '/api/api-tokens',
+      response: apiTokensResponse,
       access: 'calc.use',
       tenantScoped: true,
       description: 'Your personal API tokens in this organisation',
@@ -18,6 +19,8 @@ export function apiTokenRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'post',
       path: '/api/api-tokens',
+      response: createdApiToken,
+      status: 201,
       access: 'calc.use',
       tenantScoped: true,
       body: apiTokenCreate,
@@ -27,6 +30,7 @@ export function apiTokenRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'delete',
       path: '/api/api-tokens/:id',
+      response: 'empty',
       access: 'calc.use',
       tenantScoped: true,
       description: 'Revoke one of your API tokens',

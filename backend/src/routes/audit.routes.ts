@@ -1,6 +1,6 @@
 import type { DataSource } from 'typeorm';
 import type { z } from 'zod';
-import { auditQuery } from '@shared/schemas/accounts.js';
+import { auditEventsResponse, auditQuery } from '@shared/schemas/accounts.js';
 import type { RouteSpec } from '../http/route-registry.js';
 import { scopeOf } from '../policies/tenant-scope.js';
 import { listAuditEvents } from '../services/audit-log.service.js';
@@ -10,6 +10,7 @@ export function auditRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'get',
       path: '/api/audit-events',
+      response: auditEventsResponse,
       access: 'audit.read',
       tenantScoped: true,
       query: auditQuery,

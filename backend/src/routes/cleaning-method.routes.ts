@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import { cleaningMethodSchema } from '@shared/schemas/cleaning-method.js';
+import { cleaningMethodSchema, cleaningMethodsResponse, cleaningMethodView } from '@shared/schemas/cleaning-method.js';
 import { idParam } from '../http/params.js';
 import type { RouteSpec } from '../http/route-registry.js';
 import { scopeOf } from '../policies/tenant-scope.js';
@@ -10,6 +10,7 @@ export function cleaningMethodRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'get',
       path: '/api/cleaning-methods',
+      response: cleaningMethodsResponse,
       access: 'data.read',
       tenantScoped: true,
       description: 'The organisation’s cleaning-method library, each with its safety cautions',
@@ -18,6 +19,8 @@ export function cleaningMethodRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'post',
       path: '/api/cleaning-methods',
+      response: cleaningMethodView,
+      status: 201,
       access: 'data.write',
       tenantScoped: true,
       body: cleaningMethodSchema,
@@ -27,6 +30,7 @@ export function cleaningMethodRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'put',
       path: '/api/cleaning-methods/:id',
+      response: cleaningMethodView,
       access: 'data.write',
       tenantScoped: true,
       body: cleaningMethodSchema,
@@ -36,6 +40,7 @@ export function cleaningMethodRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'delete',
       path: '/api/cleaning-methods/:id',
+      response: 'empty',
       access: 'data.write',
       tenantScoped: true,
       description: 'Remove a cleaning method from the library',

@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import { clientGroupInput } from '@shared/schemas/accounts.js';
+import { clientGroupInput, clientGroupsResponse, clientGroupView } from '@shared/schemas/accounts.js';
 import { idParam } from '../http/params.js';
 import type { RouteSpec } from '../http/route-registry.js';
 import { scopeOf } from '../policies/tenant-scope.js';
@@ -10,6 +10,7 @@ export function clientGroupRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'get',
       path: '/api/client-groups',
+      response: clientGroupsResponse,
       access: 'data.read',
       tenantScoped: true,
       description: 'Client groups visible to you',
@@ -18,6 +19,7 @@ export function clientGroupRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'get',
       path: '/api/client-groups/:id',
+      response: clientGroupView,
       access: 'data.read',
       tenantScoped: true,
       description: 'One client group',
@@ -26,6 +28,8 @@ export function clientGroupRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'post',
       path: '/api/client-groups',
+      response: clientGroupView,
+      status: 201,
       access: 'client-groups.manage',
       tenantScoped: true,
       body: clientGroupInput,
@@ -35,6 +39,7 @@ export function clientGroupRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'patch',
       path: '/api/client-groups/:id',
+      response: clientGroupView,
       access: 'client-groups.manage',
       tenantScoped: true,
       body: clientGroupInput,
@@ -44,6 +49,7 @@ export function clientGroupRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'delete',
       path: '/api/client-groups/:id',
+      response: 'empty',
       access: 'client-groups.manage',
       tenantScoped: true,
       description: 'Delete a client group (memberships limited to it lose that group)',

@@ -1,11 +1,13 @@
 import type { DataSource } from 'typeorm';
 import type { RouteSpec } from '../http/route-registry.js';
+import { serviceHealthResponse } from '@shared/schemas/service-health.js';
 
 export function healthRoutes(dataSource: DataSource): RouteSpec[] {
   return [
     {
       method: 'get',
       path: '/api/health',
+      response: serviceHealthResponse,
       access: 'public',
       tenantScoped: false,
       description: 'Liveness and database connectivity',

@@ -9,6 +9,7 @@ import { singleFileUpload } from '../http/upload.js';
 import { scopeOf } from '../policies/tenant-scope.js';
 import { getUnitOrThrow } from '../services/plant.service.js';
 import { errorReportCsv, findImport, importView, listImports, receiveUpload, startImport, undoImport } from '../services/import.service.js';
+import { importsResponse, importView as importViewSchema, uploadResponse } from '@shared/schemas/imports.js';
 
 const startBody = z.object({ mapping: z.unknown() }).strict();
 
@@ -19,6 +20,8 @@ export function importRoutes(ds: DataSource, config: Config): RouteSpec[] {
     {
       method: 'post',
       path: '/api/units/:id/uploads',
+      response: uploadResponse,
+      status: 201,
       access: 'data.write',
       tenantScoped: true,
       // The unit is checked before a byte is stored: outside the scope answers 404 whatever is sent.
@@ -29,6 +32,7 @@ export function importRoutes(ds: DataSource, config: Config): RouteSpec[] {
     {
       method: 'get',
       path: '/api/units/:id/imports',
+      response: importsResponse,
       access: 'data.read',
       tenantScoped: true,
       description: 'Import history of a unit, newest first',
@@ -37,6 +41,7 @@ export function importRoutes(ds: DataSource, config: Config): RouteSpec[] {
     {
       method: 'get',
       path: '/api/imports/:id',
+      response: importViewSchema,
       access: 'data.read',
       tenantScoped: true,
       description: 'One import: status, progress, counts by outcome and reason, errors by row and column',
@@ -45,6 +50,8 @@ export function importRoutes(ds: DataSource, config: Config): RouteSpec[] {
     {
       method: 'post',
       path: '/api/imports/:id/start',
+      response: importViewSchema,
+      status: 202,
       access: 'data.write',
       tenantScoped: true,
       body: startBody,
@@ -54,6 +61,7 @@ export function importRoutes(ds: DataSource, config: Config): RouteSpec[] {
     {
       method: 'get',
       path: '/api/imports/:id/errors.csv',
+      response: { file: ['text/csv'] },
       access: 'data.read',
       tenantScoped: true,
       description: 'Every file error by row and column, as CSV (cells that could run as formulas are neutralised)',
@@ -67,6 +75,7 @@ export function importRoutes(ds: DataSource, config: Config): RouteSpec[] {
     {
       method: 'delete',
       path: '/api/imports/:id',
+      response: importViewSchema,
       access: 'data.write',
       tenantScoped: true,
       description: 'Undo an import: remove its rows and recompute',

@@ -1,6 +1,6 @@
 import type { Request, Response } from 'express';
 import type { DataSource } from 'typeorm';
-import { acceptInvitationRequest, inviteRequest } from '@shared/schemas/accounts.js';
+import { acceptInvitationRequest, invitationsResponse, invitationView, inviteRequest } from '@shared/schemas/accounts.js';
 import { establishSession } from '../auth/establish-session.js';
 import type { Config } from '../config.js';
 import { baseUrl } from '../http/base-url.js';
@@ -10,12 +10,14 @@ import type { RouteSpec } from '../http/route-registry.js';
 import type { Mailer } from '../mail/mailer.js';
 import { scopeOf } from '../policies/tenant-scope.js';
 import { acceptInvitation, describeInvitation, invite, listPendingInvitations, revokeInvitation } from '../services/invitation.service.js';
+import { sessionResponse } from '@shared/schemas/session.js';
 
 export function invitationRoutes(ds: DataSource, mailer: Mailer, config: Config, answerSession: (req: Request, res: Response) => Promise<void>): RouteSpec[] {
   return [
     {
       method: 'get',
       path: '/api/invitations',
+      response: invitationsResponse,
       access: 'members.manage',
       tenantScoped: true,
       description: 'Pending invitations of the organisation',
@@ -24,6 +26,8 @@ export function invitationRoutes(ds: DataSource, mailer: Mailer, config: Config,
     {
       method: 'post',
       path: '/api/invitations',
+      response: invitationView,
+      status: 201,
       access: 'members.manage',
       tenantScoped: true,
       allowsPrivilegedFields: true,
@@ -38,6 +42,7 @@ export function invitationRoutes(ds: DataSource, mailer: Mailer, config: Config,
     {
       method: 'delete',
       path: '/api/invitations/:id',
+      response: 'empty',
       access: 'members.manage',
       tenantScoped: true,
       description: 'Withdraw a pending invitation',
@@ -57,6 +62,7 @@ export function invitationRoutes(ds: DataSource, mailer: Mailer, config: Config,
     {
       method: 'post',
       path: '/api/invitation-links/:token/accept',
+      response: sessionResponse,
       access: 'public',
       tenantScoped: false,
       body: acceptInvitationRequest,

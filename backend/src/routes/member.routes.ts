@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import { memberUpdate } from '@shared/schemas/accounts.js';
+import { membersResponse, memberUpdate } from '@shared/schemas/accounts.js';
 import { idParam } from '../http/params.js';
 import type { RouteSpec } from '../http/route-registry.js';
 import { scopeOf } from '../policies/tenant-scope.js';
@@ -10,6 +10,7 @@ export function memberRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'get',
       path: '/api/members',
+      response: membersResponse,
       access: 'members.manage',
       tenantScoped: true,
       description: 'Members of the organisation with their roles and client-group limits',
@@ -18,6 +19,7 @@ export function memberRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'patch',
       path: '/api/members/:id',
+      response: 'empty',
       access: 'members.manage',
       tenantScoped: true,
       allowsPrivilegedFields: true,
@@ -31,6 +33,7 @@ export function memberRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'delete',
       path: '/api/members/:id',
+      response: 'empty',
       access: 'members.manage',
       tenantScoped: true,
       description: 'Remove a member from the organisation (their account stays)',

@@ -4,12 +4,14 @@ import { idParam } from '../http/params.js';
 import type { RouteSpec } from '../http/route-registry.js';
 import { scopeOf } from '../policies/tenant-scope.js';
 import { createPlant, createUnit, deletePlant, getPlant, listPlants, unitSummary, updatePlant } from '../services/plant.service.js';
+import { plantsResponse, plantView, unitSummary as unitSummarySchema } from '@shared/schemas/plant.js';
 
 export function plantRoutes(ds: DataSource): RouteSpec[] {
   return [
     {
       method: 'get',
       path: '/api/plants',
+      response: plantsResponse,
       access: 'data.read',
       tenantScoped: true,
       description: 'Plants you may see, with their units',
@@ -18,6 +20,8 @@ export function plantRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'post',
       path: '/api/plants',
+      response: plantView,
+      status: 201,
       access: 'data.write',
       tenantScoped: true,
       body: plantInput,
@@ -27,6 +31,7 @@ export function plantRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'get',
       path: '/api/plants/:id',
+      response: plantView,
       access: 'data.read',
       tenantScoped: true,
       description: 'One plant with its units',
@@ -35,6 +40,7 @@ export function plantRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'put',
       path: '/api/plants/:id',
+      response: plantView,
       access: 'data.write',
       tenantScoped: true,
       body: plantInput,
@@ -44,6 +50,7 @@ export function plantRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'delete',
       path: '/api/plants/:id',
+      response: 'empty',
       access: 'data.write',
       tenantScoped: true,
       description: 'Delete a plant with its units and data',
@@ -55,6 +62,8 @@ export function plantRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'post',
       path: '/api/plants/:id/units',
+      response: unitSummarySchema,
+      status: 201,
       access: 'data.write',
       tenantScoped: true,
       body: unitInput,

@@ -2,7 +2,7 @@ import type { Request, Response } from 'express';
 import type passport from 'passport';
 import type { DataSource } from 'typeorm';
 import { switchTenantRequest } from '@shared/schemas/accounts.js';
-import { signInRequest } from '@shared/schemas/session.js';
+import { sessionResponse, signInRequest } from '@shared/schemas/session.js';
 import { endSession, establishSession } from '../auth/establish-session.js';
 import { BAD_CREDENTIALS } from '../auth/passport-setup.js';
 import type { User } from '../entities/user.entity.js';
@@ -29,6 +29,7 @@ export function sessionRoutes(ds: DataSource, auth: passport.PassportStatic, ans
     {
       method: 'get',
       path: '/api/session',
+      response: sessionResponse,
       access: 'public',
       tenantScoped: false,
       description: 'Who is signed in, their organisations and what the active role may do',
@@ -37,6 +38,7 @@ export function sessionRoutes(ds: DataSource, auth: passport.PassportStatic, ans
     {
       method: 'post',
       path: '/api/session',
+      response: sessionResponse,
       access: 'public',
       tenantScoped: false,
       rateLimit: signInLimiter(ds),
@@ -51,6 +53,7 @@ export function sessionRoutes(ds: DataSource, auth: passport.PassportStatic, ans
     {
       method: 'delete',
       path: '/api/session',
+      response: 'empty',
       access: 'signed-in',
       tenantScoped: false,
       description: 'Sign out',
@@ -63,6 +66,7 @@ export function sessionRoutes(ds: DataSource, auth: passport.PassportStatic, ans
     {
       method: 'post',
       path: '/api/session/organisation',
+      response: sessionResponse,
       access: 'signed-in',
       tenantScoped: false,
       allowsPrivilegedFields: true,

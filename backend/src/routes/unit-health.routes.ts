@@ -30,6 +30,7 @@ export function unitHealthRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'get',
       path: '/api/units/:id/export',
+      response: { file: ['text/csv', 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet'] },
       access: 'data.read',
       tenantScoped: true,
       query: exportQuery,

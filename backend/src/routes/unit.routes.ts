@@ -1,6 +1,6 @@
 import type { DataSource } from 'typeorm';
 import type { ZodType } from 'zod';
-import { dailyQuery, unitEventInput } from '@shared/schemas/unit-event.js';
+import { dailyQuery, unitEventInput, unitEventsResponse, unitEventView } from '@shared/schemas/unit-event.js';
 import { condenserSetup, economicsSetup, turbineSetup, unitInput } from '@shared/schemas/unit-setup.js';
 import { idParam } from '../http/params.js';
 import type { RouteSpec } from '../http/route-registry.js';
@@ -9,6 +9,7 @@ import { dailyFigures } from '../services/daily-figures.service.js';
 import { deleteUnit, renameUnit, unitSummary } from '../services/plant.service.js';
 import { addEvent, deleteEvent, listEvents, updateEvent } from '../services/unit-event.service.js';
 import { saveSetupPart, unitDetail, type SetupPart } from '../services/unit-setup.service.js';
+import { unitDetail as unitDetailSchema, unitSummary as unitSummarySchema } from '@shared/schemas/plant.js';
 
 const SETUP_PARTS: [SetupPart, ZodType, string][] = [
   ['condenser', condenserSetup, 'Save the condenser: geometry (HEI outside surface), design point, plugged tubes'],
@@ -21,6 +22,7 @@ export function unitRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'get',
       path: '/api/units/:id',
+      response: unitDetailSchema,
       access: 'data.read',
       tenantScoped: true,
       description: 'A unit with its setup, data span and recent background work',
@@ -29,6 +31,7 @@ export function unitRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'patch',
       path: '/api/units/:id',
+      response: unitSummarySchema,
       access: 'data.write',
       tenantScoped: true,
       body: unitInput,
@@ -38,6 +41,7 @@ export function unitRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'delete',
       path: '/api/units/:id',
+      response: 'empty',
       access: 'data.write',
       tenantScoped: true,
       description: 'Delete a unit with all its data',
@@ -53,6 +57,7 @@ export function unitRoutes(ds: DataSource): RouteSpec[] {
         access: 'data.write',
         tenantScoped: true,
         body: schema,
+        response: unitDetailSchema,
         description,
         handler: async (req, res) => res.json(await saveSetupPart(ds, scopeOf(req.actor), idParam(req), part, req.body)),
       }),
@@ -69,6 +74,7 @@ export function unitRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'get',
       path: '/api/units/:id/events',
+      response: unitEventsResponse,
       access: 'data.read',
       tenantScoped: true,
       description: 'The unit’s timeline: cleanings, plugging, air in-leakage repairs, outages',
@@ -77,6 +83,8 @@ export function unitRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'post',
       path: '/api/units/:id/events',
+      response: unitEventView,
+      status: 201,
       access: 'data.write',
       tenantScoped: true,
       body: unitEventInput,
@@ -86,6 +94,7 @@ export function unitRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'put',
       path: '/api/events/:id',
+      response: unitEventView,
       access: 'data.write',
       tenantScoped: true,
       body: unitEventInput,
@@ -95,6 +104,7 @@ export function unitRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'delete',
       path: '/api/events/:id',
+      response: 'empty',
       access: 'data.write',
       tenantScoped: true,
       description: 'Delete an event',

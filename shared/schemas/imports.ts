@@ -1,0 +1,83 @@
+import { z } from 'zod';
+import { IMPORT_QUANTITY_UNITS } from './import-mapping.js';
+
+/** An import's life: mapping → checking → (rejected | importing → complete | failed); a complete one can be undone. */
+export const IMPORT_STATUSES = ['mapping', 'checking', 'rejected', 'importing', 'complete', 'failed', 'undone'] as const;
+export type ImportStatus = (typeof IMPORT_STATUSES)[number];
+
+export const rowError = z
+  .object({
+    /** 1-based line of the file (CSV) or row number of the sheet (XLSX) */
+    row: z.number().int(),
+    /** header text of the column, as in the file */
+    column: z.string(),
+    value: z.string(),
+    message: z.string(),
+  })
+  .strict();
+export type RowErrorView = z.infer<typeof rowError>;
+
+export const importView = z
+  .object({
+    id: z.string(),
+    unitId: z.string(),
+    fileName: z.string(),
+    fileBytes: z.number().int().nonnegative(),
+    fileKind: z.string().nullable(),
+    status: z.enum(IMPORT_STATUSES),
+    /** 0 to 1 */
+    progress: z.number(),
+    message: z.string().nullable(),
+    /** outcome counts: rows read, stored, by validity reason, skipped identical, conflicting */
+    counts: z.record(z.string(), z.unknown()).nullable(),
+    errorCount: z.number().int().nonnegative(),
+    /** the first errors by row and column (all of them in the CSV report) */
+    errors: z.array(rowError),
+    notes: z.object({ assumptions: z.array(z.string()), warnings: z.array(z.string()) }).strict().nullable(),
+    firstTimestamp: z.iso.datetime().nullable(),
+    lastTimestamp: z.iso.datetime().nullable(),
+    createdAt: z.iso.datetime(),
+    finishedAt: z.iso.datetime().nullable(),
+    /** the column mapping used or proposed (see the mapping request schema) */
+    mapping: z.unknown(),
+    uploadedBy: z.string().nullable(),
+  })
+  .strict();
+export type ImportView = z.infer<typeof importView>;
+
+export const importsResponse = z.object({ imports: z.array(importView) }).strict();
+export type ImportsResponse = z.infer<typeof importsResponse>;
+
+const guessedQuantity = z.enum([...(Object.keys(IMPORT_QUANTITY_UNITS) as (keyof typeof IMPORT_QUANTITY_UNITS)[]), 'timestamp']);
+
+export const uploadResponse = z
+  .object({
+    import: importView,
+    headers: z.array(z.string()),
+    /** the file's first rows, as text */
+    sampleRows: z.array(z.array(z.string())),
+    guess: z
+      .object({
+        columns: z.array(
+          z
+            .object({
+              header: z.string(),
+              index: z.number().int(),
+              quantity: guessedQuantity.nullable(),
+              unit: z.string().nullable(),
+              /** 0 to 1 */
+              confidence: z.number(),
+              note: z.string().optional(),
+            })
+            .strict(),
+        ),
+        mapping: z.unknown(),
+        complete: z.boolean(),
+        problems: z.array(z.string()),
+      })
+      .strict(),
+    proposedMapping: z.unknown(),
+    mappingSource: z.enum(['saved', 'guessed']),
+  })
+  .strict();
+export type UploadResponse = z.infer<typeof uploadResponse>;
