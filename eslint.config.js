@@ -1,6 +1,8 @@
 import { existsSync, readdirSync } from 'node:fs';
 import tseslint from 'typescript-eslint';
 import importX from 'eslint-plugin-import-x';
+import jsxA11y from 'eslint-plugin-jsx-a11y';
+import reactHooks from 'eslint-plugin-react-hooks';
 
 const boundary = (from, forbidden, message) => ({
   files: [`${from}/**/*.{ts,tsx}`],
@@ -17,6 +19,13 @@ const featureZones = features.map((f) => ({
   message: 'features do not import each other; move shared code to components/ or lib/',
 }));
 
+// One way through the front end: app → features → components and lib.
+const oneWayZones = [
+  { target: './frontend/src/features', from: './frontend/src/app', message: 'features never import the app: the app composes features' },
+  { target: './frontend/src/components', from: ['./frontend/src/app', './frontend/src/features'], message: 'components/ are shared pieces: they import only lib/ and each other' },
+  { target: './frontend/src/lib', from: ['./frontend/src/app', './frontend/src/features', './frontend/src/components'], message: 'lib/ is the bottom layer' },
+];
+
 export default tseslint.config(
   { ignores: ['node_modules/**', '**/dist/**', '.data/**', 'coverage/**'] },
   ...tseslint.configs.recommended,
@@ -25,7 +34,7 @@ export default tseslint.config(
     settings: { 'import-x/resolver': { typescript: { project: './tsconfig.json' }, node: true } },
     rules: {
       'import-x/no-cycle': ['error', { ignoreExternal: true }],
-      'import-x/no-restricted-paths': ['error', { zones: featureZones }],
+      'import-x/no-restricted-paths': ['error', { zones: [...featureZones, ...oneWayZones] }],
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
       '@typescript-eslint/no-explicit-any': 'error',
     },
@@ -46,6 +55,23 @@ export default tseslint.config(
           patterns: [{ group: ['@backend/*', '@frontend/*', '**/backend/**', '**/frontend/**'], message: 'shared/ must not import from backend/ or frontend/' }],
         },
       ],
+    },
+  },
+  // React: the rules of hooks and accessible markup.
+  { files: ['frontend/src/**/*.{ts,tsx}'], ...reactHooks.configs.flat['recommended-latest'] },
+  { files: ['frontend/src/**/*.tsx'], ...jsxA11y.flatConfigs.recommended },
+  {
+    files: ['frontend/src/**/*.tsx'],
+    rules: {
+      // Focus moves only into a form the person has just opened (a rename, a new organisation): our own components.
+      'jsx-a11y/no-autofocus': ['error', { ignoreNonDOM: true }],
+      // Escape closes an open form or confirmation: a keyboard handler on the form or group itself, not a fake button.
+      'jsx-a11y/no-noninteractive-element-interactions': [
+        'error',
+        { handlers: ['onClick', 'onMouseDown', 'onMouseUp', 'onKeyPress', 'onKeyDown', 'onKeyUp'], form: ['onKeyDown'], group: ['onKeyDown'] },
+      ],
+      // Checkbox labels carry their text and a note in nested spans.
+      'jsx-a11y/label-has-associated-control': ['error', { depth: 3 }],
     },
   },
   boundary('frontend/src', ['@backend/*', '**/backend/**'], 'the browser bundle must not import server code'),

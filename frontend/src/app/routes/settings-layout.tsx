@@ -44,7 +44,7 @@ export function SettingsLayout() {
                 </NavLink>
               </li>
             ) : (
-              <li key={item.to} aria-disabled="true" className="px-2.5 py-1.5 text-sm text-ink-faint">
+              <li key={item.to} className="px-2.5 py-1.5 text-sm text-ink-faint">
                 <span className="block">{item.label}</span>
                 <span className="block text-2xs">{blockedBy(item)}</span>
               </li>

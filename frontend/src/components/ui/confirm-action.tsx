@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState, type ReactNode } from 'react';
+import { useEffect, useRef, useState, type KeyboardEvent, type ReactNode } from 'react';
 import { Button } from './button';
 
 interface Props {
@@ -20,6 +20,7 @@ export function ConfirmAction({ label, question, confirmLabel, onConfirm, pendin
   useEffect(() => {
     if (asking) keepRef.current?.focus();
   }, [asking]);
+  const backOut = (e: KeyboardEvent) => e.key === 'Escape' && setAsking(false);
   if (!asking) {
     return (
       <Button variant="quiet" disabled={disabled || pending} title={disabled ? disabledReason : undefined} onClick={() => setAsking(true)}>
@@ -28,15 +29,16 @@ export function ConfirmAction({ label, question, confirmLabel, onConfirm, pendin
     );
   }
   return (
-    <div role="group" aria-label={label} className="flex flex-col items-end gap-2 text-left" onKeyDown={(e) => e.key === 'Escape' && setAsking(false)}>
+    <div role="group" aria-label={label} className="flex flex-col items-end gap-2 text-left">
       <p className="max-w-xs text-xs text-ink-soft">{question}</p>
       <div className="flex gap-2">
-        <Button ref={keepRef} variant="quiet" onClick={() => setAsking(false)}>
+        <Button ref={keepRef} variant="quiet" onClick={() => setAsking(false)} onKeyDown={backOut}>
           Keep
         </Button>
         <Button
           variant="danger"
           disabled={pending}
+          onKeyDown={backOut}
           onClick={() => {
             onConfirm();
             setAsking(false);

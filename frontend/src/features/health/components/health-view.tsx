@@ -73,7 +73,7 @@ export function HealthView({ organisationId, unit, units, cannotWrite, progress,
     <div className="flex flex-col gap-4" data-testid="health-view" aria-busy={health.isFetching}>
       {progress}
       {justAdded && !progress && <p className="text-sm text-ok" role="status">Cleaning recorded; the figures below include it.</p>}
-      <HealthHeadlineStrip headline={h.headline} units={units} currency={unit.currency} timeZone={unit.timeZone} now={Date.now()} />
+      <HealthHeadlineStrip headline={h.headline} units={units} currency={unit.currency} timeZone={unit.timeZone} now={health.dataUpdatedAt} />
       {h.warnings.length > 0 && (
         <Notice tone="warn">
           <ul className="flex flex-col gap-1" data-testid="health-warnings">

@@ -24,8 +24,19 @@ export function OrganisationSwitcher({ session, onSwitched }: { session: Session
     const onPointer = (e: PointerEvent) => {
       if (!rootRef.current?.contains(e.target as Node)) setOpen(false);
     };
+    // Escape closes the list from anywhere inside it and gives focus back to its button.
+    const onKey = (e: KeyboardEvent) => {
+      if (e.key !== 'Escape' || !rootRef.current?.contains(document.activeElement)) return;
+      setOpen(false);
+      setStarting(false);
+      buttonRef.current?.focus();
+    };
     document.addEventListener('pointerdown', onPointer);
-    return () => document.removeEventListener('pointerdown', onPointer);
+    document.addEventListener('keydown', onKey);
+    return () => {
+      document.removeEventListener('pointerdown', onPointer);
+      document.removeEventListener('keydown', onKey);
+    };
   }, [open]);
 
   const close = () => {
@@ -40,7 +51,7 @@ export function OrganisationSwitcher({ session, onSwitched }: { session: Session
   };
 
   return (
-    <div ref={rootRef} className="relative" onKeyDown={(e) => e.key === 'Escape' && open && close()}>
+    <div ref={rootRef} className="relative">
       <button
         ref={buttonRef}
         type="button"
