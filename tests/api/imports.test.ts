@@ -13,7 +13,7 @@ import { claimNextJob, finishJob, MAX_ATTEMPTS, reportProgress, STALE_MINUTES } 
 import { BackgroundJob } from '../../backend/src/entities/background-job.entity.js';
 import { DataImport } from '../../backend/src/entities/data-import.entity.js';
 import { JOB_HANDLERS } from '../../backend/src/jobs/job-handlers.js';
-import { importFaults } from '../../backend/src/services/import.service.js';
+import { importFaults } from '../../backend/src/services/import-job/store-rows.js';
 import type { GeneratingUnit } from '../../backend/src/entities/generating-unit.entity.js';
 import { addMember, createTenant, createUser, CSRF, signedInAgent, type TenantFixture } from '../factories/accounts.js';
 import { createPlant, createUnit, TEST_CONDENSER, TEST_TURBINE } from '../factories/units.js';

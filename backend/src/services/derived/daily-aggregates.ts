@@ -3,9 +3,12 @@
  * deviation parts of the valid points, and the day's fouling and unexplained cost. Costs: the mean cost
  * per hour of the valid points times the hours the day's points cover (points × the unit's median sampling
  * interval, at most 24 h), so a day with few valid points is not costed as if it had none.
+ * Step 7 of the recompute; every point is read (the ones left out are counted by reason), only the ones
+ * valid for the calculations (repositories/sample-validity.ts) enter the figures.
  */
 import type { DataSource } from 'typeorm';
 import { median } from '@shared/domain/statistics.js';
+import { reasonLeftOut, validForCalculations } from '../../repositories/sample-validity.js';
 
 /** Per-day facts the recompute knows beyond the samples themselves. */
 export interface DayFacts {
@@ -31,6 +34,51 @@ interface Acc {
   ttd: number[];
   sums: Record<string, number>;
 }
+
+/** One `daily_aggregate` row as written, keyed by column name. */
+export interface DailyAggregateRow {
+  unitId: string;
+  day: string;
+  pointsUsed: number;
+  pointsDropped: number;
+  /** JSON: points left out per reason */
+  droppedByReason: string;
+  medianCleanliness: number | null;
+  medianTtdK: number | null;
+  trendCleanliness: number | null;
+  meanSubcoolingK: number | null;
+  meanDissolvedOxygenPpb: number | null;
+  meanAirRemovalKgS: number | null;
+  airLeakSuspected: boolean;
+  meanDutyMw: number | null;
+  heatBalanceDutyMw: number | null;
+  /** JSON: raw sensors that never changed over the day */
+  stuckSensors: string | null;
+  meanBackpressureKpa: number | null;
+  meanExpectedBackpressureKpa: number | null;
+  meanExcessBackpressureKpa: number | null;
+  meanCwInletC: number | null;
+  meanLoadMw: number | null;
+  meanHeatRatePenaltyPct: number | null;
+  foulingKpa: number | null;
+  cwInletKpa: number | null;
+  cwFlowKpa: number | null;
+  loadKpa: number | null;
+  pluggingKpa: number | null;
+  unexplainedKpa: number | null;
+  foulingCost: number | null;
+  unexplainedCost: number | null;
+}
+
+// Every column of the row type, named once: the compiler fails if a column is added to one and not the other.
+const COLUMN_SET: Record<keyof DailyAggregateRow, true> = {
+  unitId: true, day: true, pointsUsed: true, pointsDropped: true, droppedByReason: true, medianCleanliness: true, medianTtdK: true,
+  trendCleanliness: true, meanSubcoolingK: true, meanDissolvedOxygenPpb: true, meanAirRemovalKgS: true, airLeakSuspected: true, meanDutyMw: true,
+  heatBalanceDutyMw: true, stuckSensors: true, meanBackpressureKpa: true, meanExpectedBackpressureKpa: true, meanExcessBackpressureKpa: true,
+  meanCwInletC: true, meanLoadMw: true, meanHeatRatePenaltyPct: true, foulingKpa: true, cwInletKpa: true, cwFlowKpa: true, loadKpa: true,
+  pluggingKpa: true, unexplainedKpa: true, foulingCost: true, unexplainedCost: true,
+};
+export const DAILY_AGGREGATE_COLUMNS = Object.keys(COLUMN_SET) as (keyof DailyAggregateRow)[];
 
 const MEANS = ['backpressureKpa', 'expectedBackpressureKpa', 'excessBackpressureKpa', 'cwInletC', 'loadMw', 'heatRatePenaltyPct', 'foulingKpa', 'cwInletKpa', 'cwFlowKpa', 'loadKpa', 'pluggingKpa', 'unexplainedKpa', 'foulingCostPerHour', 'unexplainedCostPerHour', 'dutyMw'] as const;
 
@@ -59,10 +107,9 @@ export async function rebuildDailyAggregates(ds: DataSource, unitId: string, day
         if (!(sensor in acc.first)) acc.first[sensor] = v;
         else if (acc.first[sensor] !== v) acc.changed.add(sensor);
       }
-      const valid = r.validity === 'ok' && r.cleanliness !== null;
-      if (!valid) {
+      if (!validForCalculations(r)) {
         acc.dropped++;
-        const reason = String(r.validity === 'ok' ? 'not-analysed' : r.validity);
+        const reason = reasonLeftOut(r);
         acc.byReason[reason] = (acc.byReason[reason] ?? 0) + 1;
         continue;
       }
@@ -74,34 +121,52 @@ export async function rebuildDailyAggregates(ds: DataSource, unitId: string, day
   }
   const intervalH = Math.min(24, (median(intervals) ?? 3_600_000) / 3_600_000);
 
+  const rows: DailyAggregateRow[] = [...days.entries()].map(([day, a]) => {
+    const mean = (m: (typeof MEANS)[number]) => (a.used ? a.sums[m] / a.used : null);
+    const hours = Math.min(24, (a.used + a.dropped) * intervalH);
+    const stuck = a.used >= STUCK_MIN_POINTS ? SENSORS.filter((sensor) => !a.changed.has(sensor)) : [];
+    const w = facts?.witnesses(day);
+    const meanLoad = mean('loadMw');
+    return {
+      unitId,
+      day,
+      pointsUsed: a.used,
+      pointsDropped: a.dropped,
+      droppedByReason: JSON.stringify(a.byReason),
+      medianCleanliness: median(a.cf),
+      medianTtdK: median(a.ttd),
+      trendCleanliness: facts?.trendCleanliness(day) ?? null,
+      meanSubcoolingK: w?.subcoolingK ?? null,
+      meanDissolvedOxygenPpb: w?.dissolvedOxygenPpb ?? null,
+      meanAirRemovalKgS: w?.airRemovalKgS ?? null,
+      airLeakSuspected: facts?.airLeakSuspected(day) ?? false,
+      meanDutyMw: mean('dutyMw'),
+      heatBalanceDutyMw: facts && meanLoad !== null ? facts.heatBalanceDutyMw(meanLoad) : null,
+      stuckSensors: stuck.length ? JSON.stringify(stuck) : null,
+      meanBackpressureKpa: mean('backpressureKpa'),
+      meanExpectedBackpressureKpa: mean('expectedBackpressureKpa'),
+      meanExcessBackpressureKpa: mean('excessBackpressureKpa'),
+      meanCwInletC: mean('cwInletC'),
+      meanLoadMw: meanLoad,
+      meanHeatRatePenaltyPct: mean('heatRatePenaltyPct'),
+      foulingKpa: mean('foulingKpa'),
+      cwInletKpa: mean('cwInletKpa'),
+      cwFlowKpa: mean('cwFlowKpa'),
+      loadKpa: mean('loadKpa'),
+      pluggingKpa: mean('pluggingKpa'),
+      unexplainedKpa: mean('unexplainedKpa'),
+      foulingCost: a.used ? mean('foulingCostPerHour')! * hours : null,
+      unexplainedCost: a.used ? mean('unexplainedCostPerHour')! * hours : null,
+    };
+  });
+
   await ds.transaction(async (em) => {
     await em.query('DELETE FROM daily_aggregate WHERE unitId = ?', [unitId]);
-    const entries = [...days.entries()];
-    for (let i = 0; i < entries.length; i += 1000) {
-      const slice = entries.slice(i, i + 1000);
-      const values: unknown[] = [];
-      for (const [day, a] of slice) {
-        const mean = (m: (typeof MEANS)[number]) => (a.used ? a.sums[m] / a.used : null);
-        const hours = Math.min(24, (a.used + a.dropped) * intervalH);
-        const stuck = a.used >= STUCK_MIN_POINTS ? SENSORS.filter((sensor) => !a.changed.has(sensor)) : [];
-        const w = facts?.witnesses(day);
-        const meanLoad = mean('loadMw');
-        values.push(
-          facts?.trendCleanliness(day) ?? null, w?.subcoolingK ?? null, w?.dissolvedOxygenPpb ?? null, w?.airRemovalKgS ?? null,
-          facts?.airLeakSuspected(day) ?? false, mean('dutyMw'), facts && meanLoad !== null ? facts.heatBalanceDutyMw(meanLoad) : null,
-          stuck.length ? JSON.stringify(stuck) : null,
-          unitId, day, a.used, a.dropped, JSON.stringify(a.byReason), median(a.cf), median(a.ttd),
-          mean('backpressureKpa'), mean('expectedBackpressureKpa'), mean('excessBackpressureKpa'), mean('cwInletC'), mean('loadMw'), mean('heatRatePenaltyPct'),
-          mean('foulingKpa'), mean('cwInletKpa'), mean('cwFlowKpa'), mean('loadKpa'), mean('pluggingKpa'), mean('unexplainedKpa'),
-          a.used ? mean('foulingCostPerHour')! * hours : null, a.used ? mean('unexplainedCostPerHour')! * hours : null,
-        );
-      }
+    for (let i = 0; i < rows.length; i += 1000) {
+      const slice = rows.slice(i, i + 1000);
       await em.query(
-        `INSERT INTO daily_aggregate (trendCleanliness, meanSubcoolingK, meanDissolvedOxygenPpb, meanAirRemovalKgS, airLeakSuspected, meanDutyMw, heatBalanceDutyMw, stuckSensors,
-           unitId, day, pointsUsed, pointsDropped, droppedByReason, medianCleanliness, medianTtdK, meanBackpressureKpa, meanExpectedBackpressureKpa,
-           meanExcessBackpressureKpa, meanCwInletC, meanLoadMw, meanHeatRatePenaltyPct, foulingKpa, cwInletKpa, cwFlowKpa, loadKpa, pluggingKpa, unexplainedKpa, foulingCost, unexplainedCost)
-         VALUES ${slice.map(() => `(${new Array(29).fill('?').join(',')})`).join(',')}`,
-        values,
+        `INSERT INTO daily_aggregate (${DAILY_AGGREGATE_COLUMNS.join(', ')}) VALUES ${slice.map(() => `(${DAILY_AGGREGATE_COLUMNS.map(() => '?').join(',')})`).join(',')}`,
+        slice.flatMap((row) => DAILY_AGGREGATE_COLUMNS.map((c) => row[c])),
       );
     }
   });

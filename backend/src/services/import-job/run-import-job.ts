@@ -1,0 +1,51 @@
+/**
+ * The import job, in order: check the file → store its rows → mark it complete and queue the recompute of
+ * derived data (as every other change does). Any failure leaves no rows and a failed import, handled in one
+ * place below. A run that takes over from a worker that died starts again from the check.
+ */
+import { rm } from 'node:fs/promises';
+import type { DataSource, EntityManager } from 'typeorm';
+import { DataImport } from '../../entities/data-import.entity.js';
+import { GeneratingUnit } from '../../entities/generating-unit.entity.js';
+import { LostJobLockError, withLease, type JobLease } from '../../jobs/job-queue.js';
+import { checkFile, rejectImport } from './check-file.js';
+import { importProgress } from './import-progress.js';
+import { completeAndQueueRecompute } from './queue-recompute.js';
+import { storeRows } from './store-rows.js';
+
+export async function runImportJob(ds: DataSource, job: JobLease, importId: string): Promise<void> {
+  const imp = await ds.getRepository(DataImport).findOneBy({ id: importId });
+  // A run after the work was finished (its worker died before saying so) or undone has nothing to do.
+  if (!imp || (imp.status !== 'checking' && imp.status !== 'importing')) return;
+  try {
+    const unit = await ds.getRepository(GeneratingUnit).findOneByOrFail({ id: imp.unitId });
+    if (!imp.storedPath) throw new Error('the uploaded file is gone');
+    const step = { importId: imp.id, storedPath: imp.storedPath, mapping: imp.mapping, progress: importProgress(ds, job, imp.id) };
+    const check = await checkFile(ds, job, step);
+    if (!check.ok) await rejectImport(ds, job, imp.id, check);
+    else await completeAndQueueRecompute(ds, job, imp, await storeRows(ds, job, { ...step, unit, check }), check);
+  } catch (err) {
+    // The worker that took the job over carries on: touch nothing.
+    if (err instanceof LostJobLockError) throw err;
+    await withLease(ds, job, (em) => failImport(em, imp.id, err instanceof Error ? err.message : String(err)));
+    if (imp.storedPath) await rm(imp.storedPath, { force: true });
+    throw err;
+  }
+  // Checked and rejected, or stored: the upload is not needed any more.
+  await rm(imp.storedPath, { force: true });
+}
+
+/** Deletes what a failed import stored and marks it failed; the rows go as a whole (one import id). */
+async function failImport(em: EntityManager, importId: string, reason: string): Promise<void> {
+  await em.query('DELETE FROM performance_sample WHERE importId = ?', [importId]);
+  await em.getRepository(DataImport).update({ id: importId }, { status: 'failed', progress: 1, message: `The import stopped and stored nothing: ${reason}`.slice(0, 500), finishedAt: new Date() });
+}
+
+/** An import job given up after its workers kept dying: nothing of it stays. */
+export async function giveUpImport(em: EntityManager, importId: string, reason: string): Promise<void> {
+  const imp = await em.getRepository(DataImport).findOneBy({ id: importId });
+  if (!imp || (imp.status !== 'checking' && imp.status !== 'importing')) return;
+  await failImport(em, importId, reason);
+  await em.getRepository(DataImport).update({ id: importId }, { storedPath: null });
+  if (imp.storedPath) await rm(imp.storedPath, { force: true });
+}

@@ -1,0 +1,108 @@
+/**
+ * Step 2 of the import job: store the checked file's rows under the import's id, in batches, each written only
+ * while this worker still holds the job. Rows identical to stored ones are skipped; rows at a stored time with
+ * other values are conflicts, counted and not stored.
+ */
+import type { DataSource } from 'typeorm';
+import { importSamples, type ImportCheck, type ImportSample, type ImportSummary } from '../../import/index.js';
+import { DataImport } from '../../entities/data-import.entity.js';
+import type { GeneratingUnit } from '../../entities/generating-unit.entity.js';
+import { withLease, type JobLease } from '../../jobs/job-queue.js';
+import type { ImportProgress } from './import-progress.js';
+
+/** Test hook: throw after this many batches to prove a failure leaves nothing behind. */
+export const importFaults = { failAfterBatches: null as number | null };
+
+const SAMPLE_COLUMNS = [
+  'unitId', 'importId', 'timestampUtc', 'loadMw', 'backpressureKpa', 'cwInletC', 'cwOutletC', 'cwFlowM3s', 'flowAssumed',
+  'hotwellC', 'dissolvedOxygenPpb', 'airRemovalKgS', 'barometerKpa', 'cwDifferentialPressureKpa', 'condensateFlowKgS', 'validity', 'setupVersion',
+] as const;
+
+/** The measured values a stored row is compared on. */
+export interface StoredReading {
+  ts: Date;
+  loadMw: number;
+  backpressureKpa: number;
+  cwInletC: number;
+  cwOutletC: number;
+  cwFlowM3s: number;
+}
+
+export interface SortedBatch {
+  fresh: ImportSample[];
+  skippedIdentical: number;
+  conflicting: ImportSample[];
+}
+
+const sameValue = (a: number | null, b: number | null | undefined) => (a === null || a === undefined ? b === null || b === undefined : b !== null && b !== undefined && Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a)));
+
+/** Sorts a batch against the rows stored at the same times: new, identical (skipped) or conflicting. */
+export function sortAgainstStored(samples: readonly ImportSample[], stored: readonly StoredReading[]): SortedBatch {
+  const byTime = new Map(stored.map((e) => [new Date(e.ts).getTime(), e]));
+  const sorted: SortedBatch = { fresh: [], skippedIdentical: 0, conflicting: [] };
+  for (const s of samples) {
+    const old = byTime.get(s.timestampUtc);
+    if (!old) sorted.fresh.push(s);
+    else if (sameValue(old.loadMw, s.loadMw) && sameValue(old.backpressureKpa, s.backpressureKpa) && sameValue(old.cwInletC, s.cwInletC) && sameValue(old.cwOutletC, s.cwOutletC) && sameValue(old.cwFlowM3s, s.cwFlowM3s)) sorted.skippedIdentical++;
+    else sorted.conflicting.push(s);
+  }
+  return sorted;
+}
+
+export interface StoreInput {
+  importId: string;
+  storedPath: string;
+  mapping: unknown;
+  unit: GeneratingUnit;
+  check: ImportCheck;
+  progress: ImportProgress;
+}
+
+export interface StoredRows {
+  summary: ImportSummary;
+  stored: number;
+  skippedIdentical: number;
+  conflicting: number;
+  /** the first 200 conflicting times */
+  conflicts: { timestampUtc: string }[];
+}
+
+export async function storeRows(ds: DataSource, job: JobLease, { importId, storedPath, mapping, unit, check, progress }: StoreInput): Promise<StoredRows> {
+  await ds.getRepository(DataImport).update({ id: importId }, { status: 'importing', notes: { assumptions: check.assumptions, warnings: check.warnings } });
+  let stored = 0;
+  let skippedIdentical = 0;
+  let conflicting = 0;
+  const conflicts: { timestampUtc: string }[] = [];
+  let batches = 0;
+  const summary = await importSamples(storedPath, {
+    mapping,
+    fileOrder: check.order,
+    steadiness: { ratingMw: unit.turbine?.ratingMw, minLoadFraction: unit.turbine?.minimumLoadFraction },
+    onBatch: async (samples: ImportSample[]) => {
+      if (importFaults.failAfterBatches !== null && batches >= importFaults.failAfterBatches) throw new Error('injected fault during import');
+      batches++;
+      const times = samples.map((s) => new Date(s.timestampUtc));
+      const existing: StoredReading[] = await ds.query(
+        `SELECT timestampUtc AS ts, loadMw, backpressureKpa, cwInletC, cwOutletC, cwFlowM3s FROM performance_sample WHERE unitId = ? AND timestampUtc BETWEEN ? AND ?`,
+        [unit.id, times[0], times[times.length - 1]],
+      );
+      const batch = sortAgainstStored(samples, existing);
+      skippedIdentical += batch.skippedIdentical;
+      conflicting += batch.conflicting.length;
+      for (const s of batch.conflicting) if (conflicts.length < 200) conflicts.push({ timestampUtc: new Date(s.timestampUtc).toISOString() });
+      if (batch.fresh.length) {
+        const values: unknown[] = [];
+        for (const s of batch.fresh) {
+          values.push(unit.id, importId, new Date(s.timestampUtc), s.loadMw, s.backpressureKpa, s.cwInletC, s.cwOutletC, s.cwFlowM3s, s.flowAssumed,
+            s.hotwellC ?? null, s.dissolvedOxygenPpb ?? null, s.airRemovalKgS ?? null, s.barometerKpa ?? null, s.cwDifferentialPressureKpa ?? null, s.condensateFlowKgS ?? null,
+            s.validity, unit.setupVersion);
+        }
+        // Written only while this worker still holds the job: a worker that lost it stores nothing more.
+        await withLease(ds, job, (em) => em.query(`INSERT INTO performance_sample (${SAMPLE_COLUMNS.join(', ')}) VALUES ${batch.fresh.map(() => `(${SAMPLE_COLUMNS.map(() => '?').join(',')})`).join(',')}`, values));
+        stored += batch.fresh.length;
+      }
+      await progress(0.05 + 0.9 * (stored + skippedIdentical + conflicting) / Math.max(1, check.dataRows), `Stored ${stored.toLocaleString('en-US')} of ${check.dataRows.toLocaleString('en-US')} rows`);
+    },
+  });
+  return { summary, stored, skippedIdentical, conflicting, conflicts };
+}
