@@ -6,7 +6,7 @@ export const openApiDocument = z
     openapi: z.literal('3.1.0'),
     info: z.object({ title: z.string(), version: z.string(), description: z.string() }).strict(),
     jsonSchemaDialect: z.string(),
-    paths: z.record(z.string(), z.record(z.enum(['get', 'post', 'put', 'patch', 'delete']), z.record(z.string(), z.unknown()))),
+    paths: z.record(z.string(), z.partialRecord(z.enum(['get', 'post', 'put', 'patch', 'delete']), z.record(z.string(), z.unknown()))),
     components: z.object({ schemas: z.record(z.string(), z.unknown()), securitySchemes: z.record(z.string(), z.unknown()) }).strict(),
   })
   .strict();

@@ -29,8 +29,6 @@ const withoutDialect = (schema: z.ZodType, io: 'input' | 'output') => {
  */
 const STILL_UNDESCRIBED = new Set<string>([
   'GET /api/invitation-links/:token',
-  'GET /api/units/:id/health',
-  'GET /api/units/:id/samples',
   'GET /api/units/:id/daily',
   'GET /api/calc',
   'POST /api/calc/:command',

@@ -1,7 +1,8 @@
 import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
 
-export type JobKind = 'import' | 'recompute';
-export type JobStatus = 'queued' | 'running' | 'done' | 'failed';
+import type { JobKind, JobStatus } from '@shared/schemas/jobs.js';
+
+export type { JobKind, JobStatus };
 
 /** Work done outside the request: claimed by any worker with SELECT … FOR UPDATE SKIP LOCKED. */
 @Entity('background_job')

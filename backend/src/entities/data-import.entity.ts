@@ -1,7 +1,9 @@
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
 import { GeneratingUnit } from './generating-unit.entity.js';
 
-export type ImportStatus = 'mapping' | 'checking' | 'rejected' | 'importing' | 'complete' | 'failed' | 'undone';
+import type { ImportStatus } from '@shared/schemas/imports.js';
+
+export type { ImportStatus };
 
 /** One historian file brought in: who, when, the mapping used, the outcome counts and the errors. */
 @Entity('data_import')

@@ -1,6 +1,6 @@
 import type { DataSource } from 'typeorm';
 import type { z } from 'zod';
-import { exportQuery, healthQuery, samplesQuery, type HealthQuery } from '@shared/schemas/health.js';
+import { exportQuery, healthQuery, samplesQuery, samplesResponse, unitHealthResponse, type HealthQuery } from '@shared/schemas/health.js';
 import { idParam } from '../http/params.js';
 import type { RouteSpec } from '../http/route-registry.js';
 import { scopeOf } from '../policies/tenant-scope.js';
@@ -12,6 +12,7 @@ export function unitHealthRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'get',
       path: '/api/units/:id/health',
+      response: unitHealthResponse,
       access: 'data.read',
       tenantScoped: true,
       query: healthQuery,
@@ -21,6 +22,7 @@ export function unitHealthRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'get',
       path: '/api/units/:id/samples',
+      response: samplesResponse,
       access: 'data.read',
       tenantScoped: true,
       query: samplesQuery,

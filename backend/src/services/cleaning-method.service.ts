@@ -3,7 +3,7 @@
  * marked typical, to be replaced by the plant's own quotes); every method carries its safety cautions.
  */
 import type { DataSource, EntityManager } from 'typeorm';
-import { cautionsFor, TYPICAL_CLEANING_METHODS, type CleaningMethod } from '@shared/schemas/cleaning-method.js';
+import { cautionsFor, TYPICAL_CLEANING_METHODS, type CleaningMethod, type CleaningMethodView } from '@shared/schemas/cleaning-method.js';
 import { CleaningMethodRecord } from '../entities/cleaning-method.entity.js';
 import { AppError, notFound } from '../http/app-error.js';
 import type { TenantScope } from '../policies/tenant-scope.js';
@@ -26,7 +26,7 @@ export function toMethod(r: CleaningMethodRecord): CleaningMethod {
   };
 }
 
-const view = (r: CleaningMethodRecord) => ({ recordId: r.id, ...toMethod(r), cautionTexts: cautionsFor(r) });
+const view = (r: CleaningMethodRecord): CleaningMethodView => ({ recordId: r.id, ...toMethod(r), cautionTexts: cautionsFor(r) });
 
 const columns = (m: CleaningMethod) => ({
   methodKey: m.id,
@@ -51,11 +51,11 @@ export async function methodsOf(em: EntityManager, organisationId: string): Prom
   return (await em.getRepository(CleaningMethodRecord).find({ where: { organisationId }, order: { name: 'ASC' } })).map(toMethod);
 }
 
-export async function listMethods(ds: DataSource, scope: TenantScope) {
+export async function listMethods(ds: DataSource, scope: TenantScope): Promise<CleaningMethodView[]> {
   return (await ds.getRepository(CleaningMethodRecord).find({ where: { organisationId: scope.organisationId }, order: { name: 'ASC' } })).map(view);
 }
 
-export async function createMethod(ds: DataSource, scope: TenantScope, m: CleaningMethod) {
+export async function createMethod(ds: DataSource, scope: TenantScope, m: CleaningMethod): Promise<CleaningMethodView> {
   if (await ds.getRepository(CleaningMethodRecord).existsBy({ organisationId: scope.organisationId, methodKey: m.id })) throw new AppError(409, `A method with the id “${m.id}” exists already`);
   return ds.transaction(async (em) => {
     const saved = await em.getRepository(CleaningMethodRecord).save({ organisationId: scope.organisationId, ...columns(m) });
@@ -64,7 +64,7 @@ export async function createMethod(ds: DataSource, scope: TenantScope, m: Cleani
   });
 }
 
-export async function updateMethod(ds: DataSource, scope: TenantScope, recordId: string, m: CleaningMethod) {
+export async function updateMethod(ds: DataSource, scope: TenantScope, recordId: string, m: CleaningMethod): Promise<CleaningMethodView> {
   const existing = await ds.getRepository(CleaningMethodRecord).findOneBy({ id: recordId, organisationId: scope.organisationId });
   if (!existing) throw notFound('No such cleaning method');
   const clash = await ds.getRepository(CleaningMethodRecord).findOneBy({ organisationId: scope.organisationId, methodKey: m.id });
@@ -76,7 +76,7 @@ export async function updateMethod(ds: DataSource, scope: TenantScope, recordId:
   });
 }
 
-export async function deleteMethod(ds: DataSource, scope: TenantScope, recordId: string) {
+export async function deleteMethod(ds: DataSource, scope: TenantScope, recordId: string): Promise<void> {
   const existing = await ds.getRepository(CleaningMethodRecord).findOneBy({ id: recordId, organisationId: scope.organisationId });
   if (!existing) throw notFound('No such cleaning method');
   await ds.transaction(async (em) => {

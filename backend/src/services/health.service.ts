@@ -8,16 +8,17 @@ import { backpressureAtCleanlinessKpa, expectedWithinBounds, PLAUSIBLE_CLEANLINE
 import { fitFoulingTrend } from '@shared/domain/decision/fouling/fouling-trend.js';
 import { addDays, daysBetween } from '@shared/domain/calendar/plant-date.js';
 import { plantDayFormatter } from '@shared/domain/calendar/plant-day.js';
-import { lttbKeepingGaps, type AirLeakPeriod } from '@shared/domain/monitoring/index.js';
+import { lttbKeepingGaps } from '@shared/domain/monitoring/index.js';
 import { MAX_SERIES_POINTS } from '@shared/limits.js';
-import { BREAKDOWN_CAUSES, type HealthQuery } from '@shared/schemas/health.js';
+import { BREAKDOWN_CAUSES, samplesQuery, type HealthQuery, type HealthTrend, type SamplesResponse, type UnitHealthResponse } from '@shared/schemas/health.js';
+import { storedUnitAnalysis, type StoredUnitAnalysis } from '@shared/schemas/unit-analysis.js';
+import type { z } from 'zod';
 import { GeneratingUnit } from '../entities/generating-unit.entity.js';
 import { Plant } from '../entities/plant.entity.js';
 import { UnitEvent } from '../entities/unit-event.entity.js';
 import { notFound } from '../http/app-error.js';
 import type { TenantScope } from '../policies/tenant-scope.js';
 import { findUnit } from '../repositories/plant.repository.js';
-import type { CleaningOutlook } from './derived/cleaning-outlook.js';
 import { eventView } from './unit-event.service.js';
 
 export interface DailyRow {
@@ -119,9 +120,17 @@ export function breakdownByPeriod(days: DailyRow[], by: 'week' | 'month') {
   }));
 }
 
-export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: string, q: HealthQuery) {
+/** The unit's stored analysis read with its schema; one that does not fit it (written by an older version) reads as unreadable. */
+function readAnalysis(stored: unknown): StoredUnitAnalysis | 'unreadable' | null {
+  if (stored === null || stored === undefined) return null;
+  const parsed = storedUnitAnalysis.safeParse(typeof stored === 'string' ? JSON.parse(stored) : stored);
+  return parsed.success ? parsed.data : 'unreadable';
+}
+
+export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: string, q: HealthQuery): Promise<UnitHealthResponse> {
   const { unit, plant } = await unitInScope(ds, scope, unitId);
-  const analysis = (unit.analysis ?? null) as { lastDay?: string | null; cycles?: Record<string, unknown>[]; airLeakPeriods?: AirLeakPeriod[]; outlook?: CleaningOutlook | null; computedAt?: string } | null;
+  const stored = readAnalysis(unit.analysis);
+  const analysis = stored === 'unreadable' ? null : stored;
   const all = await loadDailyRows(ds, unitId);
   const withData = all.filter((d) => d.pointsUsed > 0);
   const lastDay = withData.at(-1)?.day ?? null;
@@ -138,6 +147,7 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
 
   const c = unit.condenser;
   const warnings: string[] = [];
+  if (stored === 'unreadable') warnings.push('The stored trend and cleaning outlook are from an older version and cannot be read; recompute the unit.');
   let designModelKpa: number | null = null;
   if (c) {
     // The stored setup may be one the form would refuse today: the view then says so instead of failing.
@@ -162,13 +172,13 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
 
   // The forecast band: the latest cycle refitted on its daily medians (air-leak days left out).
   let forecast: { day: string; cleanliness: number; low: number; high: number }[] = [];
-  let trendFit: Record<string, unknown> | null = (analysis?.cycles?.at(-1) as Record<string, unknown> | undefined) ?? null;
+  let trendFit: HealthTrend | null = analysis?.cycles.at(-1) ?? null;
   if (lastDay && trendFit && trendFit.status === 'fitted' && (!to || to >= lastDay)) {
-    const start = String(trendFit.startDay);
+    const start = trendFit.startDay;
     const points = withData.filter((d) => d.day >= start && !d.airLeakSuspected && d.medianCleanliness !== null).map((d) => ({ day: daysBetween(start, d.day), cleanliness: d.medianCleanliness! }));
     let fit: ReturnType<typeof fitFoulingTrend> | null = null;
     try {
-      fit = fitFoulingTrend({ points, cleanlinessAfterCleaning: trendFit.cleanlinessAfterCleaning as number, forecastDays: 120 });
+      fit = fitFoulingTrend({ points, cleanlinessAfterCleaning: trendFit.cleanlinessAfterCleaning, forecastDays: 120 });
     } catch {
       warnings.push('The fouling forecast could not be drawn from the stored trend; recompute the unit.');
     }
@@ -259,15 +269,15 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
         daysOver5Pct: dutyGaps.filter((g) => Math.abs(g.gapPct) > 5).length,
         note: 'CW-side duty against the heat-balance duty at the day’s load; gaps over 5 % point to unmetered flow or a stratified outlet temperature (a 5 % flow error is a 2.5 % cleanliness error).',
       },
-      stuckSensors: Object.entries(stuck).map(([sensor, days]) => ({ sensor, days: days.length, lastDay: days.at(-1) })),
+      stuckSensors: Object.entries(stuck).map(([sensor, days]) => ({ sensor, days: days.length, lastDay: days.at(-1)! })),
     },
   };
 }
 
 /** Hourly points of one quantity over a period, downsampled (LTTB) to at most MAX_SERIES_POINTS. */
-export async function unitSamples(ds: DataSource, scope: TenantScope, unitId: string, q: { from: string; to: string; quantity: string }) {
+export async function unitSamples(ds: DataSource, scope: TenantScope, unitId: string, q: z.infer<typeof samplesQuery>): Promise<SamplesResponse> {
   const { plant } = await unitInScope(ds, scope, unitId);
-  const columns: Record<string, string[]> = {
+  const columns: Record<SamplesResponse['quantity'], SamplesResponse['columns']> = {
     backpressure: ['backpressureKpa', 'expectedBackpressureKpa'],
     cleanliness: ['cleanliness'],
     ttd: ['ttdK'],

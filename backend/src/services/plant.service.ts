@@ -1,5 +1,6 @@
 import type { DataSource } from 'typeorm';
 import type { z } from 'zod';
+import type { PlantView, UnitSummary } from '@shared/schemas/plant.js';
 import type { PlantInput, unitInput } from '@shared/schemas/unit-setup.js';
 import { GeneratingUnit } from '../entities/generating-unit.entity.js';
 import { Plant } from '../entities/plant.entity.js';
@@ -9,15 +10,9 @@ import { assertClientGroupsInTenant } from '../repositories/client-group.reposit
 import { findPlant, findUnit, plantsInScope, unitsInScope } from '../repositories/plant.repository.js';
 import { recordAudit } from './audit.service.js';
 
-export interface PlantView {
-  id: string;
-  name: string;
-  timeZone: string;
-  clientGroupId: string | null;
-  units: { id: string; name: string; ratingMw: number | null; setupComplete: boolean }[];
-}
+export type { PlantView };
 
-export const unitSummary = (u: GeneratingUnit) => ({
+export const unitSummary = (u: GeneratingUnit): UnitSummary => ({
   id: u.id,
   name: u.name,
   ratingMw: u.turbine?.ratingMw ?? null,

@@ -1,5 +1,5 @@
 import type { DataSource, EntityManager } from 'typeorm';
-import type { UnitEventInput } from '@shared/schemas/unit-event.js';
+import type { UnitEventInput, UnitEventView } from '@shared/schemas/unit-event.js';
 import { CleaningMethodRecord } from '../entities/cleaning-method.entity.js';
 import { UnitEvent } from '../entities/unit-event.entity.js';
 import { badRequest, notFound } from '../http/app-error.js';
@@ -8,7 +8,7 @@ import type { TenantScope } from '../policies/tenant-scope.js';
 import { findUnit } from '../repositories/plant.repository.js';
 import { recordAudit } from './audit.service.js';
 
-export const eventView = (e: UnitEvent) => ({
+export const eventView = (e: UnitEvent): UnitEventView => ({
   id: e.id,
   unitId: e.unitId,
   kind: e.kind,
@@ -42,13 +42,13 @@ async function assertMethodInLibrary(em: EntityManager, scope: TenantScope, meth
   }
 }
 
-export async function listEvents(ds: DataSource, scope: TenantScope, unitId: string) {
+export async function listEvents(ds: DataSource, scope: TenantScope, unitId: string): Promise<UnitEventView[]> {
   if (!(await findUnit(ds.manager, scope, unitId))) throw notFound('No such unit');
   const rows = await ds.getRepository(UnitEvent).find({ where: { unitId, organisationId: scope.organisationId }, order: { startDate: 'ASC', createdAt: 'ASC' } });
   return rows.map(eventView);
 }
 
-export async function addEvent(ds: DataSource, scope: TenantScope, unitId: string, input: UnitEventInput) {
+export async function addEvent(ds: DataSource, scope: TenantScope, unitId: string, input: UnitEventInput): Promise<UnitEventView> {
   if (!(await findUnit(ds.manager, scope, unitId))) throw notFound('No such unit');
   return ds.transaction(async (em) => {
     await assertMethodInLibrary(em, scope, input.methodId);
@@ -71,7 +71,7 @@ async function eventInScope(ds: DataSource, scope: TenantScope, id: string): Pro
   return e;
 }
 
-export async function updateEvent(ds: DataSource, scope: TenantScope, id: string, input: UnitEventInput) {
+export async function updateEvent(ds: DataSource, scope: TenantScope, id: string, input: UnitEventInput): Promise<UnitEventView> {
   const e = await eventInScope(ds, scope, id);
   return ds.transaction(async (em) => {
     await assertMethodInLibrary(em, scope, input.methodId);

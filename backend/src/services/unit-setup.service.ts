@@ -1,4 +1,5 @@
 import type { DataSource } from 'typeorm';
+import type { UnitDetail } from '@shared/schemas/plant.js';
 import type { CondenserSetup, EconomicsSetup, TurbineSetup } from '@shared/schemas/unit-setup.js';
 import { BackgroundJob } from '../entities/background-job.entity.js';
 import { GeneratingUnit } from '../entities/generating-unit.entity.js';
@@ -10,7 +11,7 @@ import { getUnitOrThrow } from './plant.service.js';
 
 export type SetupPart = 'condenser' | 'turbine' | 'economics';
 
-export async function unitDetail(ds: DataSource, scope: TenantScope, id: string) {
+export async function unitDetail(ds: DataSource, scope: TenantScope, id: string): Promise<UnitDetail> {
   const unit = await getUnitOrThrow(ds, scope, id);
   const plant = await ds.getRepository(Plant).findOneByOrFail({ id: unit.plantId });
   const jobs = await ds.getRepository(BackgroundJob).find({ where: { unitId: id }, order: { createdAt: 'DESC' }, take: 5 });
@@ -30,7 +31,7 @@ export async function unitDetail(ds: DataSource, scope: TenantScope, id: string)
 }
 
 /** Saves one part of the setup; derived data is recomputed in the background. */
-export async function saveSetupPart(ds: DataSource, scope: TenantScope, id: string, part: SetupPart, value: CondenserSetup | TurbineSetup | EconomicsSetup) {
+export async function saveSetupPart(ds: DataSource, scope: TenantScope, id: string, part: SetupPart, value: CondenserSetup | TurbineSetup | EconomicsSetup): Promise<UnitDetail> {
   const unit = await getUnitOrThrow(ds, scope, id);
   await ds.transaction(async (em) => {
     await em.getRepository(GeneratingUnit).update({ id, organisationId: scope.organisationId }, { [part]: value, setupVersion: unit.setupVersion + 1 });

@@ -1,0 +1,92 @@
+/**
+ * The unit's stored analysis (the `analysis` JSON column of generating_unit), written by the recompute and
+ * read by the health view: fouling cycles with their fitted trends, air in-leakage periods, cleaning outlook.
+ */
+import { z } from 'zod';
+
+const isoDate = z.iso.date();
+
+export const foulingModel = z.discriminatedUnion('model', [
+  z.object({ model: z.literal('linear'), ratePerDay: z.number() }).strict(),
+  z.object({ model: z.literal('asymptotic'), maxIndex: z.number(), timeConstantDays: z.number() }).strict(),
+  z.object({ model: z.literal('falling-rate'), coefficient: z.number(), exponent: z.number() }).strict(),
+]);
+
+/** One cleaning-to-cleaning cycle: its fitted trend, or why none could be fitted. */
+export const fittedCycle = z
+  .object({
+    startDay: isoDate,
+    endDay: isoDate.nullable(),
+    status: z.literal('fitted'),
+    model: foulingModel,
+    cleanlinessAfterCleaning: z.number(),
+    rSquared: z.number(),
+    residualStdCleanliness: z.number(),
+    aic: z.number(),
+    pointsUsed: z.number().int(),
+    outlierDays: z.number().int(),
+    alternatives: z.array(z.object({ model: z.enum(['linear', 'asymptotic', 'falling-rate']), aic: z.number(), rSquared: z.number() }).strict()),
+  })
+  .strict();
+export const unfittedCycle = z
+  .object({
+    startDay: isoDate,
+    endDay: isoDate.nullable(),
+    status: z.literal('not-enough-data'),
+    reason: z.string(),
+    usablePoints: z.number().int(),
+    minimumPoints: z.number().int(),
+    minimumSpanDays: z.number(),
+  })
+  .strict();
+export const foulingCycleSummary = z.discriminatedUnion('status', [fittedCycle, unfittedCycle]);
+export type FoulingCycleSummary = z.infer<typeof foulingCycleSummary>;
+
+export const airLeakPeriod = z
+  .object({
+    from: isoDate,
+    to: isoDate,
+    /** largest cleanliness drop against the reference window's trend */
+    maxDrop: z.number(),
+    evidence: z.array(z.enum(['cleanliness-drop', 'subcooling', 'dissolved-oxygen', 'air-removal'])),
+  })
+  .strict();
+
+export const cleaningOutlook = z
+  .object({
+    status: z.enum(['planned', 'none-needed', 'not-available']),
+    reason: z.string().optional(),
+    planFrom: isoDate.optional(),
+    horizonDays: z.number().int().optional(),
+    next: z
+      .object({
+        date: isoDate,
+        endDate: isoDate,
+        methodId: z.string(),
+        methodName: z.string(),
+        cleanlinessBefore: z.number(),
+        cleanlinessAfter: z.number(),
+        cleaningCost: z.number(),
+        downtimeCost: z.number(),
+        typicalValues: z.boolean(),
+      })
+      .strict()
+      .optional(),
+    cleaningsInHorizon: z.number().int().optional(),
+    savingsVersusNoCleaning: z.number().optional(),
+    methodsBasis: z.string(),
+  })
+  .strict();
+export type CleaningOutlookView = z.infer<typeof cleaningOutlook>;
+
+export const storedUnitAnalysis = z
+  .object({
+    computedAt: z.iso.datetime(),
+    setupVersion: z.number().int(),
+    lastDay: isoDate.nullable(),
+    cycles: z.array(foulingCycleSummary),
+    airLeakPeriods: z.array(airLeakPeriod),
+    outlook: cleaningOutlook.nullable(),
+  })
+  .strict();
+export type StoredUnitAnalysis = z.infer<typeof storedUnitAnalysis>;
