@@ -39,7 +39,7 @@ const errorBody = (description: string) => ({ description, content: { 'applicati
 function errors(spec: RouteSpec): Record<string, unknown> {
   const out: Record<string, unknown> = {};
   const takesInput = spec.body || spec.query || spec.method !== 'get' || spec.path.includes(':');
-  if (takesInput) out['400'] = errorBody('The request needs attention: `details.fieldErrors` names each field and what is wrong');
+  if (takesInput) out['400'] = errorBody('The request needs attention: details.fieldErrors names each field and what is wrong');
   if (spec.access !== 'public') out['401'] = errorBody('Sign in first');
   if (spec.access !== 'public' && spec.access !== 'signed-in') out['403'] = errorBody('Your role cannot do this, or no organisation is chosen');
   if (spec.method !== 'get' && spec.csrf !== false && !out['403']) out['403'] = errorBody('The request lacks the CSRF header a browser session needs');

@@ -62,6 +62,7 @@ const router = createBrowserRouter([
   { path: '/forgot-password', lazy: page(() => import('./routes/forgot-password'), (m) => m.ForgotPasswordPage), errorElement: <RouteErrorPage /> },
   { path: '/reset-password', lazy: page(() => import('./routes/reset-password'), (m) => m.ResetPasswordPage), errorElement: <RouteErrorPage /> },
   { path: '/confirm-address', lazy: page(() => import('./routes/confirm-address'), (m) => m.ConfirmAddressPage), errorElement: <RouteErrorPage /> },
+  { path: '/api-reference', lazy: page(() => import('./routes/api-reference'), (m) => m.ApiReferencePage), errorElement: <RouteErrorPage /> },
   {
     path: '/invitation',
     lazy: page(() => import('./routes/invitation'), (m) => m.InvitationPage),

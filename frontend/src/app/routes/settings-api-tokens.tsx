@@ -1,5 +1,7 @@
+import { Link } from 'react-router-dom';
 import { whyNot } from '@shared/permissions';
 import { NoOrganisation, NotPermitted } from '@frontend/components/ui/not-permitted';
+import { linkClass } from '@frontend/components/ui/public-page';
 import { ApiTokensPanel } from '@frontend/features/api-tokens/components/api-tokens-panel';
 import { useSession } from '@frontend/features/session/api/get-session';
 
@@ -14,6 +16,12 @@ export function ApiTokensSettingsPage() {
         <h1>API tokens</h1>
         <p className="mt-1 text-sm text-ink-soft">
           Personal keys for the calculation API, for scripts and spreadsheets. Each token belongs to you and this organisation; it cannot read or change plant data.
+        </p>
+        <p className="mt-1 text-sm">
+          <Link className={linkClass} to="/api-reference">
+            API reference
+          </Link>
+          <span className="text-ink-soft">: every endpoint, who may call it, what it takes and what it answers.</span>
         </p>
       </div>
       <ApiTokensPanel organisationId={organisationId} origin={window.location.origin} />
