@@ -122,3 +122,9 @@ export const apiTokensResponse = z.object({ apiTokens: z.array(apiTokenView) }).
 export const createdApiToken = apiTokenView.extend({ token: z.string() }).strict();
 export type CreatedApiToken = z.infer<typeof createdApiToken>;
 export const auditEventsResponse = z.object({ events: z.array(auditEventView) }).strict();
+
+/** What an invitation link shows before it is taken: whom it invites, to what, and whether they have an account. */
+export const invitationLinkView = z
+  .object({ email: z.string(), role: roleSchema, organisationName: z.string(), accountExists: z.boolean(), expiresAt: z.iso.datetime() })
+  .strict();
+export type InvitationLinkView = z.infer<typeof invitationLinkView>;

@@ -2,6 +2,7 @@ import { CALC_COMMANDS } from '../cli/command-registry.js';
 import { runCalcInputs } from '../cli/run-calc.js';
 import { notFound } from '../http/app-error.js';
 import type { RouteSpec } from '../http/route-registry.js';
+import { calcCommandsResponse } from '@shared/schemas/calc-commands.js';
 
 /** Maximum inputs in one batch request. */
 const MAX_BATCH = 1000;
@@ -12,6 +13,7 @@ export function calcRoutes(): RouteSpec[] {
     {
       method: 'get',
       path: '/api/calc',
+      response: calcCommandsResponse,
       access: 'calc.use',
       apiToken: true,
       tenantScoped: false,

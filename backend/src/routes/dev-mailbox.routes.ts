@@ -2,6 +2,7 @@ import type { DataSource } from 'typeorm';
 import { User } from '../entities/user.entity.js';
 import type { RouteSpec } from '../http/route-registry.js';
 import { sinkMessagesFor } from '../mail/smtp-sink.js';
+import { mailboxResponse } from '@shared/schemas/dev-mailbox.js';
 
 /**
  * Mounted only while the local SMTP sink is in use (loopback, no SMTP_URL). Holding an account with an address
@@ -13,6 +14,7 @@ export function devMailboxRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'get',
       path: '/api/dev/mailbox',
+      response: mailboxResponse,
       access: 'signed-in',
       tenantScoped: false,
       description: 'Messages the local SMTP sink received for you since you confirmed your address (local runs only)',

@@ -1,6 +1,6 @@
 import type { Request, Response } from 'express';
 import type { DataSource } from 'typeorm';
-import { acceptInvitationRequest, invitationsResponse, invitationView, inviteRequest } from '@shared/schemas/accounts.js';
+import { acceptInvitationRequest, invitationLinkView, invitationsResponse, invitationView, inviteRequest } from '@shared/schemas/accounts.js';
 import { establishSession } from '../auth/establish-session.js';
 import type { Config } from '../config.js';
 import { baseUrl } from '../http/base-url.js';
@@ -54,6 +54,7 @@ export function invitationRoutes(ds: DataSource, mailer: Mailer, config: Config,
     {
       method: 'get',
       path: '/api/invitation-links/:token',
+      response: invitationLinkView,
       access: 'public',
       tenantScoped: false,
       description: 'What an invitation link offers (organisation, role, whether the account exists)',

@@ -1,7 +1,7 @@
 /** Invitations by e-mail: accept creates the account or links an existing one, then adds the membership. */
 import type { DataSource } from 'typeorm';
 import { IsNull, MoreThan } from 'typeorm';
-import type { InvitationView, InviteRequest } from '@shared/schemas/accounts.js';
+import type { InvitationLinkView, InvitationView, InviteRequest } from '@shared/schemas/accounts.js';
 import { assertPasswordAcceptable } from '../auth/password-rules.js';
 import { hashPassword } from '../auth/password.js';
 import { hashSecretToken, newSecretToken } from '../auth/secret-token.js';
@@ -84,7 +84,7 @@ async function findUsable(ds: DataSource, token: string): Promise<Invitation> {
   return inv;
 }
 
-export async function describeInvitation(ds: DataSource, token: string) {
+export async function describeInvitation(ds: DataSource, token: string): Promise<InvitationLinkView> {
   const inv = await findUsable(ds, token);
   const organisation = await ds.getRepository(Organisation).findOneByOrFail({ id: inv.organisationId });
   const accountExists = await ds.getRepository(User).existsBy({ email: inv.email });
