@@ -128,3 +128,8 @@ export const invitationLinkView = z
   .object({ email: z.string(), role: roleSchema, organisationName: z.string(), accountExists: z.boolean(), expiresAt: z.iso.datetime() })
   .strict();
 export type InvitationLinkView = z.infer<typeof invitationLinkView>;
+export type AuditEventsResponse = z.infer<typeof auditEventsResponse>;
+export type InvitationsResponse = z.infer<typeof invitationsResponse>;
+export type ClientGroupsResponse = z.infer<typeof clientGroupsResponse>;
+export type ApiTokensResponse = z.infer<typeof apiTokensResponse>;
+export type MembersResponse = z.infer<typeof membersResponse>;

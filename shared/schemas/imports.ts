@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { IMPORT_QUANTITY_UNITS } from './import-mapping.js';
+import { REJECTION_REASONS, type RejectionReason } from '../domain/validity/rejection-reasons.js';
+import { IMPORT_QUANTITY_UNITS, type ImportMappingInput } from './import-mapping.js';
 
 /** An import's life: mapping → checking → (rejected | importing → complete | failed); a complete one can be undone. */
 export const IMPORT_STATUSES = ['mapping', 'checking', 'rejected', 'importing', 'complete', 'failed', 'undone'] as const;
@@ -17,6 +18,27 @@ export const rowError = z
   .strict();
 export type RowErrorView = z.infer<typeof rowError>;
 
+/** Outcome counts: while checking only the rows read; when stored, every outcome and reason. */
+export const importCounts = z
+  .object({
+    rowsRead: z.number().int(),
+    stored: z.number().int(),
+    skippedIdentical: z.number().int(),
+    /** rows at a stored time with other values: reported, not stored */
+    conflicting: z.number().int(),
+    /** the first conflicting times */
+    conflicts: z.array(z.object({ timestampUtc: z.iso.datetime() }).strict()),
+    rowsOk: z.number().int(),
+    rowsByReason: z.partialRecord(z.enum(Object.keys(REJECTION_REASONS) as [RejectionReason, ...RejectionReason[]]), z.number().int()),
+    flowAssumedRows: z.number().int(),
+  })
+  .partial()
+  .strict();
+export type ImportCounts = z.infer<typeof importCounts>;
+
+/** A column mapping as stored: the proposed draft may still be incomplete, so it is checked only when an import starts. */
+const storedMapping = z.custom<ImportMappingInput>((v) => typeof v === 'object' && v !== null && !Array.isArray(v), 'a mapping object');
+
 export const importView = z
   .object({
     id: z.string(),
@@ -29,7 +51,7 @@ export const importView = z
     progress: z.number(),
     message: z.string().nullable(),
     /** outcome counts: rows read, stored, by validity reason, skipped identical, conflicting */
-    counts: z.record(z.string(), z.unknown()).nullable(),
+    counts: importCounts.nullable(),
     errorCount: z.number().int().nonnegative(),
     /** the first errors by row and column (all of them in the CSV report) */
     errors: z.array(rowError),
@@ -39,7 +61,7 @@ export const importView = z
     createdAt: z.iso.datetime(),
     finishedAt: z.iso.datetime().nullable(),
     /** the column mapping used or proposed (see the mapping request schema) */
-    mapping: z.unknown(),
+    mapping: storedMapping.nullable(),
     uploadedBy: z.string().nullable(),
   })
   .strict();
@@ -71,12 +93,12 @@ export const uploadResponse = z
             })
             .strict(),
         ),
-        mapping: z.unknown(),
+        mapping: storedMapping,
         complete: z.boolean(),
         problems: z.array(z.string()),
       })
       .strict(),
-    proposedMapping: z.unknown(),
+    proposedMapping: storedMapping,
     mappingSource: z.enum(['saved', 'guessed']),
   })
   .strict();

@@ -1,15 +1,11 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import type { AuditEventView } from '@shared/schemas/accounts';
+import type { z } from 'zod';
+import type { auditQuery, AuditEventsResponse } from '@shared/schemas/accounts';
 import { api } from '@frontend/lib/api-client';
 import { organisationKey } from '@frontend/lib/query-keys';
 
-export interface AuditFilters {
-  action?: string;
-  userId?: string;
-  entityType?: string;
-  from?: string;
-  to?: string;
-}
+/** The audit query's filters (its request schema without the page size). */
+export type AuditFilters = Pick<z.input<typeof auditQuery>, 'action' | 'userId' | 'entityType' | 'from' | 'to'>;
 
 const FILTER_KEYS = ['action', 'userId', 'entityType', 'from', 'to'] as const;
 
@@ -26,7 +22,7 @@ export const auditEventsQueryOptions = (organisationId: string, filters: AuditFi
     queryKey: [...organisationKey(organisationId), 'audit-events', filters],
     queryFn: () => {
       const search = toSearch(filters);
-      return api<{ events: AuditEventView[] }>(`/api/audit-events${search ? `?${search}` : ''}`).then((r) => r.events);
+      return api<AuditEventsResponse>(`/api/audit-events${search ? `?${search}` : ''}`).then((r) => r.events);
     },
     placeholderData: keepPreviousData,
   });

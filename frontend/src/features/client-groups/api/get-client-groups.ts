@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { ClientGroupView } from '@shared/schemas/accounts';
+import type { ClientGroupsResponse } from '@shared/schemas/accounts';
 import { api } from '@frontend/lib/api-client';
 import { organisationKey } from '@frontend/lib/query-keys';
 
@@ -7,7 +7,7 @@ import { organisationKey } from '@frontend/lib/query-keys';
 export const clientGroupsQueryOptions = (organisationId: string) =>
   queryOptions({
     queryKey: [...organisationKey(organisationId), 'client-groups'],
-    queryFn: () => api<{ clientGroups: ClientGroupView[] }>('/api/client-groups').then((r) => r.clientGroups),
+    queryFn: () => api<ClientGroupsResponse>('/api/client-groups').then((r) => r.clientGroups),
   });
 
 export const useClientGroups = (organisationId: string) => useQuery(clientGroupsQueryOptions(organisationId));

@@ -1,20 +1,9 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@frontend/lib/api-client';
+import type { MailboxMessage, MailboxResponse } from '@shared/schemas/dev-mailbox';
 
-export interface MailboxMessage {
-  id: string;
-  receivedAt: string;
-  from: string;
-  to: string[];
-  subject: string;
-  text: string;
-}
-
-export interface Mailbox {
-  /** False until the person proved the address is theirs; until then no mail is shown. */
-  addressConfirmed: boolean;
-  messages: MailboxMessage[];
-}
+export type { MailboxMessage };
+export type Mailbox = MailboxResponse;
 
 /** The signed-in person's own mail in the local SMTP sink since they confirmed their address, newest first; refreshed every few seconds while the page is open. */
 export const mailboxQueryOptions = () =>

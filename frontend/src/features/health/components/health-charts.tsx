@@ -56,20 +56,20 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
         legend={[
           { label: 'Measured (daily median)', colour: CHART_COLOURS.measured, mark: 'points' },
           { label: 'Fitted trend', colour: CHART_COLOURS.fitted, mark: 'line' },
-          ...(health.forecast.length ? [{ label: `Forecast with ${Math.round((trend?.bandProbability ?? 0.9) * 100)} % band`, colour: CHART_COLOURS.forecastBand, mark: 'band' as const }] : []),
+          ...(health.forecast.length ? [{ label: `Forecast with ${Math.round(((trend?.status === 'fitted' ? trend.bandProbability : undefined) ?? 0.9) * 100)} % band`, colour: CHART_COLOURS.forecastBand, mark: 'band' as const }] : []),
           { label: 'Reference cleanliness', colour: CHART_COLOURS.reference, mark: 'dash' },
           ...common,
         ]}
         noteTestId="trend-note"
         note={
-          trend?.status === 'fitted' && trend.rSquared !== undefined ? (
+          trend?.status === 'fitted' ? (
             <>
-              Trend since {formatDay(trend.startDay)}: {trend.model?.model ?? 'fitted'} model, R² {formatNumber(trend.rSquared, 3)}, scatter ±{formatNumber((trend.residualStdCleanliness ?? 0) * 100, 1)} % CF
-              {trend.pointsUsed !== undefined && <> over {formatNumber(trend.pointsUsed)} days</>}.
+              Trend since {formatDay(trend.startDay)}: {trend.model.model} model, R² {formatNumber(trend.rSquared, 3)}, scatter ±{formatNumber(trend.residualStdCleanliness * 100, 1)} % CF over{' '}
+              {formatNumber(trend.pointsUsed)} days.
             </>
           ) : trend ? (
             <>
-              Trend since {formatDay(trend.startDay)}: {trend.reason ?? 'not fitted yet'}.
+              Trend since {formatDay(trend.startDay)}: {trend.reason}.
             </>
           ) : null
         }

@@ -1,49 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { RejectionReason } from '@shared/domain/validity/rejection-reasons';
-import type { ImportMappingInput } from '@shared/schemas/import-mapping';
 import { api } from '@frontend/lib/api-client';
 import { organisationKey } from '@frontend/lib/query-keys';
+import type { ImportCounts, ImportStatus, ImportView, RowErrorView } from '@shared/schemas/imports';
 
-export type ImportStatus = 'mapping' | 'checking' | 'rejected' | 'importing' | 'complete' | 'failed' | 'undone';
-
-export interface ImportCounts {
-  rowsRead?: number;
-  stored?: number;
-  skippedIdentical?: number;
-  conflicting?: number;
-  conflicts?: { timestampUtc: string }[];
-  rowsOk?: number;
-  rowsByReason?: Partial<Record<RejectionReason, number>>;
-  flowAssumedRows?: number;
-}
-
-export interface ImportRowError {
-  row: number;
-  column: string;
-  value: string;
-  message: string;
-}
-
-export interface ImportView {
-  id: string;
-  unitId: string;
-  fileName: string;
-  fileBytes: number;
-  fileKind: string | null;
-  status: ImportStatus;
-  progress: number;
-  message: string | null;
-  counts: ImportCounts | null;
-  errorCount: number;
-  /** The first 200; all of them are in the CSV report. */
-  errors: ImportRowError[];
-  notes: { assumptions: string[]; warnings: string[] } | null;
-  firstTimestamp: string | null;
-  lastTimestamp: string | null;
-  createdAt: string;
-  finishedAt: string | null;
-  mapping: ImportMappingInput | null;
-}
+export type { ImportCounts, ImportStatus, ImportView };
+export type ImportRowError = RowErrorView;
 
 export const importIsRunning = (status: ImportStatus) => status === 'checking' || status === 'importing';
 

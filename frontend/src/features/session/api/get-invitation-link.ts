@@ -1,14 +1,8 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Role } from '@shared/permissions';
 import { api } from '@frontend/lib/api-client';
+import type { InvitationLinkView } from '@shared/schemas/accounts';
 
-export interface InvitationLinkView {
-  email: string;
-  role: Role;
-  organisationName: string;
-  accountExists: boolean;
-  expiresAt: string;
-}
+export type { InvitationLinkView };
 
 export const invitationLinkQueryOptions = (token: string) =>
   queryOptions({

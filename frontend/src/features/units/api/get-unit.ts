@@ -1,30 +1,11 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { CondenserSetup, EconomicsSetup, TurbineSetup } from '@shared/schemas/unit-setup';
 import { api } from '@frontend/lib/api-client';
 import { unitKey } from '@frontend/lib/query-keys';
+import type { JobView } from '@shared/schemas/jobs';
+import type { UnitDetail } from '@shared/schemas/plant';
 
-export interface UnitJob {
-  id: string;
-  kind: string;
-  status: 'queued' | 'running' | 'done' | 'failed';
-  progress: number;
-  message: string | null;
-  createdAt: string;
-  finishedAt: string | null;
-}
-
-export interface UnitDetail {
-  id: string;
-  name: string;
-  plant: { id: string; name: string; timeZone: string; clientGroupId: string | null };
-  condenser: CondenserSetup | null;
-  turbine: TurbineSetup | null;
-  economics: EconomicsSetup | null;
-  setupVersion: number;
-  setupComplete: boolean;
-  samples: { count: number; first: string | null; last: string | null };
-  jobs: UnitJob[];
-}
+export type { UnitDetail };
+export type UnitJob = JobView;
 
 export const jobIsActive = (j: UnitJob) => j.status === 'queued' || j.status === 'running';
 
