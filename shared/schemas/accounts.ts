@@ -133,3 +133,15 @@ export type InvitationsResponse = z.infer<typeof invitationsResponse>;
 export type ClientGroupsResponse = z.infer<typeof clientGroupsResponse>;
 export type ApiTokensResponse = z.infer<typeof apiTokensResponse>;
 export type MembersResponse = z.infer<typeof membersResponse>;
+
+/** Request bodies as a caller writes them (defaults may be left out). */
+export type CreateOrganisationRequest = z.input<typeof createOrganisationRequest>;
+export type PasswordResetRequest = z.input<typeof passwordResetRequest>;
+export type PasswordResetConfirm = z.input<typeof passwordResetConfirm>;
+export type AddressConfirmation = z.input<typeof addressConfirmation>;
+export type ProfileUpdate = z.input<typeof profileUpdate>;
+export type PasswordChange = z.input<typeof passwordChange>;
+export type AcceptInvitationRequest = z.input<typeof acceptInvitationRequest>;
+export type MemberUpdate = z.input<typeof memberUpdate>;
+export type ClientGroupInput = z.input<typeof clientGroupInput>;
+export type ApiTokenCreate = z.input<typeof apiTokenCreate>;

@@ -55,6 +55,7 @@ export const plantInput = z
 export type PlantInput = z.infer<typeof plantInput>;
 
 export const unitInput = z.object({ name: z.string().trim().min(1, 'Enter a name').max(120) }).strict();
+export type UnitInput = z.input<typeof unitInput>;
 
 export const condenserSetup = z
   .object({

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreatedApiToken } from '@shared/schemas/accounts';
+import type { ApiTokenCreate, CreatedApiToken } from '@shared/schemas/accounts';
 import { api } from '@frontend/lib/api-client';
 import { apiTokensQueryOptions } from './get-api-tokens';
 
@@ -7,7 +7,7 @@ import { apiTokensQueryOptions } from './get-api-tokens';
 export function useCreateApiToken(organisationId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (body: { name: string }) => api<CreatedApiToken>('/api/api-tokens', { method: 'POST', body }),
+    mutationFn: (body: ApiTokenCreate) => api<CreatedApiToken>('/api/api-tokens', { method: 'POST', body }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: apiTokensQueryOptions(organisationId).queryKey }),
   });
 }

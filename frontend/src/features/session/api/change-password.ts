@@ -1,4 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { PasswordChange } from '@shared/schemas/accounts';
 import type { SessionResponse } from '@shared/schemas/session';
 import { api } from '@frontend/lib/api-client';
 import { sessionQueryOptions } from './get-session';
@@ -7,7 +8,7 @@ import { sessionQueryOptions } from './get-session';
 export function useChangePassword() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (body: { currentPassword: string; newPassword: string }) => api<SessionResponse>('/api/profile/password', { method: 'POST', body }),
+    mutationFn: (body: PasswordChange) => api<SessionResponse>('/api/profile/password', { method: 'POST', body }),
     onSuccess: (session) => queryClient.setQueryData(sessionQueryOptions().queryKey, session),
   });
 }

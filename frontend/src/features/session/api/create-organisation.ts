@@ -1,4 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { CreateOrganisationRequest } from '@shared/schemas/accounts';
 import type { SessionResponse } from '@shared/schemas/session';
 import { api } from '@frontend/lib/api-client';
 import { replaceSession } from './get-session';
@@ -7,7 +8,7 @@ import { replaceSession } from './get-session';
 export function useCreateOrganisation() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (body: { name: string }) => api<SessionResponse>('/api/organisations', { method: 'POST', body }),
+    mutationFn: (body: CreateOrganisationRequest) => api<SessionResponse>('/api/organisations', { method: 'POST', body }),
     onSuccess: (session) => replaceSession(queryClient, session),
   });
 }

@@ -1,8 +1,10 @@
 import { useMutation } from '@tanstack/react-query';
+import type { PasswordResetRequest } from '@shared/schemas/accounts';
+import type { MessageResponse } from '@shared/schemas/errors';
 import { api } from '@frontend/lib/api-client';
 
 export function useRequestPasswordReset() {
   return useMutation({
-    mutationFn: (body: { email: string }) => api<{ message: string }>('/api/password-reset', { method: 'POST', body }),
+    mutationFn: (body: PasswordResetRequest) => api<MessageResponse>('/api/password-reset', { method: 'POST', body }),
   });
 }

@@ -1,5 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { SignUpRequest } from '@shared/schemas/accounts';
+import type { MessageResponse } from '@shared/schemas/errors';
 import type { SessionResponse } from '@shared/schemas/session';
 import { api, ApiError } from '@frontend/lib/api-client';
 import { replaceSession } from './get-session';
@@ -12,7 +13,7 @@ export function useSignUp() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: async (body: SignUpRequest) => {
-      const answer = await api<{ message: string }>('/api/sign-up', { method: 'POST', body });
+      const answer = await api<MessageResponse>('/api/sign-up', { method: 'POST', body });
       try {
         return await api<SessionResponse>('/api/session', { method: 'POST', body: { email: body.email, password: body.password } });
       } catch (err) {
