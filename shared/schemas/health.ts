@@ -146,3 +146,41 @@ export const samplesResponse = z
   })
   .strict();
 export type SamplesResponse = z.infer<typeof samplesResponse>;
+
+/** One plant-local day of a unit as stored: medians and means of the valid points, deviation parts, costs summed. */
+export const dailyFigure = z
+  .object({
+    day: z.iso.date(),
+    pointsUsed: z.number().int(),
+    pointsDropped: z.number().int(),
+    droppedByReason: z.record(z.string(), z.number()).nullable(),
+    medianCleanliness: num,
+    trendCleanliness: num,
+    medianTtdK: num,
+    meanBackpressureKpa: num,
+    meanExpectedBackpressureKpa: num,
+    meanExcessBackpressureKpa: num,
+    meanCwInletC: num,
+    meanLoadMw: num,
+    meanHeatRatePenaltyPct: num,
+    cwInletKpa: num,
+    cwFlowKpa: num,
+    loadKpa: num,
+    pluggingKpa: num,
+    foulingKpa: num,
+    unexplainedKpa: num,
+    foulingCost: num,
+    unexplainedCost: num,
+    meanSubcoolingK: num,
+    meanDissolvedOxygenPpb: num,
+    meanAirRemovalKgS: num,
+    airLeakSuspected: z.boolean(),
+    meanDutyMw: num,
+    heatBalanceDutyMw: num,
+    stuckSensors: z.array(z.string()).nullable(),
+  })
+  .strict();
+export type DailyFigure = z.infer<typeof dailyFigure>;
+
+export const dailyFiguresResponse = z.object({ days: z.array(dailyFigure) }).strict();
+export type DailyFiguresResponse = z.infer<typeof dailyFiguresResponse>;

@@ -10,6 +10,7 @@ import { deleteUnit, renameUnit, unitSummary } from '../services/plant.service.j
 import { addEvent, deleteEvent, listEvents, updateEvent } from '../services/unit-event.service.js';
 import { saveSetupPart, unitDetail, type SetupPart } from '../services/unit-setup.service.js';
 import { unitDetail as unitDetailSchema, unitSummary as unitSummarySchema } from '@shared/schemas/plant.js';
+import { dailyFiguresResponse } from '@shared/schemas/health.js';
 
 const SETUP_PARTS: [SetupPart, ZodType, string][] = [
   ['condenser', condenserSetup, 'Save the condenser: geometry (HEI outside surface), design point, plugged tubes'],
@@ -65,6 +66,7 @@ export function unitRoutes(ds: DataSource): RouteSpec[] {
     {
       method: 'get',
       path: '/api/units/:id/daily',
+      response: dailyFiguresResponse,
       access: 'data.read',
       tenantScoped: true,
       query: dailyQuery,

@@ -10,7 +10,7 @@ import { addDays, daysBetween } from '@shared/domain/calendar/plant-date.js';
 import { plantDayFormatter } from '@shared/domain/calendar/plant-day.js';
 import { lttbKeepingGaps } from '@shared/domain/monitoring/index.js';
 import { MAX_SERIES_POINTS } from '@shared/limits.js';
-import { BREAKDOWN_CAUSES, samplesQuery, type HealthQuery, type HealthTrend, type SamplesResponse, type UnitHealthResponse } from '@shared/schemas/health.js';
+import { BREAKDOWN_CAUSES, samplesQuery, type DailyFigure, type HealthQuery, type HealthTrend, type SamplesResponse, type UnitHealthResponse } from '@shared/schemas/health.js';
 import { storedUnitAnalysis, type StoredUnitAnalysis } from '@shared/schemas/unit-analysis.js';
 import type { z } from 'zod';
 import { GeneratingUnit } from '../entities/generating-unit.entity.js';
@@ -21,36 +21,7 @@ import type { TenantScope } from '../policies/tenant-scope.js';
 import { findUnit } from '../repositories/plant.repository.js';
 import { eventView } from './unit-event.service.js';
 
-export interface DailyRow {
-  day: string;
-  pointsUsed: number;
-  pointsDropped: number;
-  droppedByReason: Record<string, number> | null;
-  medianCleanliness: number | null;
-  trendCleanliness: number | null;
-  medianTtdK: number | null;
-  meanBackpressureKpa: number | null;
-  meanExpectedBackpressureKpa: number | null;
-  meanExcessBackpressureKpa: number | null;
-  meanCwInletC: number | null;
-  meanLoadMw: number | null;
-  meanHeatRatePenaltyPct: number | null;
-  cwInletKpa: number | null;
-  cwFlowKpa: number | null;
-  loadKpa: number | null;
-  pluggingKpa: number | null;
-  foulingKpa: number | null;
-  unexplainedKpa: number | null;
-  foulingCost: number | null;
-  unexplainedCost: number | null;
-  meanSubcoolingK: number | null;
-  meanDissolvedOxygenPpb: number | null;
-  meanAirRemovalKgS: number | null;
-  airLeakSuspected: boolean;
-  meanDutyMw: number | null;
-  heatBalanceDutyMw: number | null;
-  stuckSensors: string[] | null;
-}
+export type DailyRow = DailyFigure;
 
 /** Points the models left out as implausible, in the words the view shows. */
 const IMPLAUSIBLE_WORDS = {
@@ -75,8 +46,8 @@ export async function loadDailyRows(ds: DataSource, unitId: string, from?: strin
     params.push(to);
   }
   const rows: Record<string, unknown>[] = await ds.query(`SELECT * FROM daily_aggregate WHERE ${where.join(' AND ')} ORDER BY day`, params);
-  return rows.map((r) => ({
-    ...(r as unknown as DailyRow),
+  return rows.map(({ unitId: _unit, ...r }) => ({
+    ...(r as Omit<DailyRow, 'day' | 'airLeakSuspected' | 'droppedByReason' | 'stuckSensors'>),
     day: dayText(r.day),
     airLeakSuspected: !!r.airLeakSuspected,
     droppedByReason: json<Record<string, number>>(r.droppedByReason),
