@@ -1,6 +1,6 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { IsNull } from 'typeorm';
-import type { ApiTokenView } from '@shared/schemas/accounts.js';
+import type { ApiTokenView, CreatedApiToken } from '@shared/schemas/accounts.js';
 import { hashSecretToken, newSecretToken } from '../auth/secret-token.js';
 import { ApiToken } from '../entities/api-token.entity.js';
 import { notFound } from '../http/app-error.js';
@@ -24,7 +24,7 @@ export async function listApiTokens(ds: DataSource, scope: TenantScope): Promise
 }
 
 /** The secret is shown once, in this answer; only its hash is kept. */
-export async function createApiToken(ds: DataSource, scope: TenantScope, name: string): Promise<ApiTokenView & { token: string }> {
+export async function createApiToken(ds: DataSource, scope: TenantScope, name: string): Promise<CreatedApiToken> {
   const { token, hash } = newSecretToken(API_TOKEN_PREFIX);
   return ds.transaction(async (em) => {
     const saved = await em.getRepository(ApiToken).save({ organisationId: scope.organisationId, userId: scope.userId, name, prefix: token.slice(0, 10), tokenHash: hash, lastUsedAt: null, revokedAt: null });

@@ -10,7 +10,7 @@ import { addDays, daysBetween } from '@shared/domain/calendar/plant-date.js';
 import { plantDayFormatter } from '@shared/domain/calendar/plant-day.js';
 import { lttbKeepingGaps } from '@shared/domain/monitoring/index.js';
 import { MAX_SERIES_POINTS } from '@shared/limits.js';
-import { BREAKDOWN_CAUSES, samplesQuery, type DailyFigure, type HealthQuery, type HealthTrend, type SamplesResponse, type UnitHealthResponse } from '@shared/schemas/health.js';
+import { BREAKDOWN_CAUSES, dailyFigure, samplesQuery, type DailyFigure, type HealthQuery, type HealthTrend, type SamplesResponse, type UnitHealthResponse } from '@shared/schemas/health.js';
 import { storedUnitAnalysis, type StoredUnitAnalysis } from '@shared/schemas/unit-analysis.js';
 import type { z } from 'zod';
 import { GeneratingUnit } from '../entities/generating-unit.entity.js';
@@ -32,7 +32,8 @@ const IMPLAUSIBLE_WORDS = {
 } as const;
 
 const dayText = (d: unknown) => (typeof d === 'string' ? d.slice(0, 10) : (d as Date).toISOString().slice(0, 10));
-const json = <T>(v: unknown): T | null => (v === null || v === undefined ? null : typeof v === 'string' ? (JSON.parse(v) as T) : (v as T));
+/** A JSON column read with its schema (MariaDB hands JSON columns back as text). */
+const readJson = <T>(schema: z.ZodType<T>, v: unknown): T => schema.parse(typeof v === 'string' ? JSON.parse(v) : (v ?? null));
 
 export async function loadDailyRows(ds: DataSource, unitId: string, from?: string, to?: string): Promise<DailyRow[]> {
   const where = ['unitId = ?'];
@@ -50,8 +51,8 @@ export async function loadDailyRows(ds: DataSource, unitId: string, from?: strin
     ...(r as Omit<DailyRow, 'day' | 'airLeakSuspected' | 'droppedByReason' | 'stuckSensors'>),
     day: dayText(r.day),
     airLeakSuspected: !!r.airLeakSuspected,
-    droppedByReason: json<Record<string, number>>(r.droppedByReason),
-    stuckSensors: json<string[]>(r.stuckSensors),
+    droppedByReason: readJson(dailyFigure.shape.droppedByReason, r.droppedByReason),
+    stuckSensors: readJson(dailyFigure.shape.stuckSensors, r.stuckSensors),
   }));
 }
 
