@@ -16,6 +16,8 @@ import { plantsQueryOptions } from '@frontend/features/plants/api/get-plants';
 import { invitationLinkQueryOptions } from '@frontend/features/session/api/get-invitation-link';
 import { sessionQueryOptions } from '@frontend/features/session/api/get-session';
 import { unitQueryOptions } from '@frontend/features/units/api/get-unit';
+import { healthQueryOptions } from '@frontend/features/health/api/get-health';
+import { healthQueryFor } from '@frontend/features/health/components/health-period';
 import { eventsQueryOptions } from '@frontend/features/events/api/get-events';
 import { unitImportsQueryOptions } from '@frontend/features/imports/api/get-imports';
 import { signInReturningTo } from '@frontend/lib/safe-next';
@@ -103,7 +105,21 @@ const router = createBrowserRouter([
         lazy: page(() => import('./routes/unit-layout'), (m) => m.UnitLayout),
         loader: tenantLoader('data.read', (org, { params }) => [prefetch(unitQueryOptions(org, params.unitId ?? ''))]),
         children: [
-          { index: true, lazy: page(() => import('./routes/unit-overview'), (m) => m.UnitOverviewPage) },
+          {
+            index: true,
+            lazy: page(() => import('./routes/unit-overview'), (m) => m.UnitOverviewPage),
+            // The health figures for the period in the address load alongside the page's code.
+            loader: tenantLoader('data.read', (org, { params, request }) => [
+              appQueryClient
+                .ensureQueryData(unitQueryOptions(org, params.unitId ?? ''))
+                .then((unit) =>
+                  prefetch(
+                    healthQueryOptions(org, unit.id, healthQueryFor(new URL(request.url).searchParams, { timeZone: unit.plant.timeZone, firstSampleUtc: unit.samples.first, lastSampleUtc: unit.samples.last })),
+                  ),
+                )
+                .catch(() => undefined),
+            ]),
+          },
           { path: 'setup', lazy: page(() => import('./routes/unit-setup'), (m) => m.UnitSetupPage) },
           { path: 'import', lazy: page(() => import('./routes/unit-import'), (m) => m.UnitImportPage) },
           { path: 'imports', lazy: page(() => import('./routes/unit-imports'), (m) => m.UnitImportsPage), loader: tenantLoader('data.read', (org, { params }) => [prefetch(unitImportsQueryOptions(org, params.unitId ?? ''))]) },

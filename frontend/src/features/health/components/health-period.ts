@@ -68,3 +68,17 @@ export function periodQuery(p: PeriodSelection, data: { firstDay: string | null;
   if (data.lastDay) q.from = addDays(data.lastDay, -(days - 1));
   return q;
 }
+
+/** Where a unit's data starts and ends, and its plant's zone: what a period needs to become a request. */
+export interface HealthUnitSpan {
+  timeZone: string;
+  firstSampleUtc: string | null;
+  lastSampleUtc: string | null;
+}
+
+/** The health request for the period in the address (one computation for the page and its loader). */
+export function healthQueryFor(search: URLSearchParams, unit: HealthUnitSpan): HealthPeriodQuery {
+  const firstDay = unit.firstSampleUtc ? plantDay(unit.firstSampleUtc, unit.timeZone) : null;
+  const lastDay = unit.lastSampleUtc ? plantDay(unit.lastSampleUtc, unit.timeZone) : null;
+  return periodQuery(periodFromSearch(search), { firstDay, lastDay });
+}

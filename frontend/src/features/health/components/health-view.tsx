@@ -10,7 +10,7 @@ import { DataQualityPanel } from './data-quality-panel';
 import { EventsStrip } from './events-strip';
 import { ExportButtons } from './export-buttons';
 import { HealthHeadlineStrip } from './health-headline';
-import { periodFromSearch, periodQuery, plantDay, searchFromPeriod, type PeriodSelection } from './health-period';
+import { healthQueryFor, periodFromSearch, plantDay, searchFromPeriod, type PeriodSelection } from './health-period';
 import { PeriodPicker } from './period-picker';
 
 const HealthCharts = lazy(() => import('./health-charts'));
@@ -56,9 +56,8 @@ export function ChartsSkeleton() {
 export function HealthView({ organisationId, unit, units, cannotWrite, progress, addCleaning }: Props) {
   const [search, setSearch] = useSearchParams();
   const selection = periodFromSearch(search);
-  const firstDay = unit.firstSampleUtc ? plantDay(unit.firstSampleUtc, unit.timeZone) : null;
   const lastDay = unit.lastSampleUtc ? plantDay(unit.lastSampleUtc, unit.timeZone) : null;
-  const query = periodQuery(selection, { firstDay, lastDay });
+  const query = healthQueryFor(search, unit);
   const health = useHealth(organisationId, unit.id, query);
   const narrow = useNarrow();
   const [justAdded, setJustAdded] = useState(false);
