@@ -11,6 +11,7 @@ import { addMember, createTenant, createUser, CSRF, signedInAgent, type TenantFi
 import { createPlant, createUnit } from '../factories/units.js';
 import { makeTempDir, writeCsvLines } from '../helpers/historian-files.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
+import { importView as importViewSchema } from '../../shared/schemas/imports.js';
 
 let t: TestApp;
 let tenant: TenantFixture;
@@ -63,6 +64,20 @@ describe('a client group named twice in a limit', () => {
     const member = await addMember(t.dataSource, tenant.organisation.id, await createUser(t.dataSource, 'twice'), 'viewer', [tenant.groups[0].id]);
     await admin.patch(`/api/members/${member.id}`).set(CSRF).send({ clientGroupIds: [tenant.groups[1].id, tenant.groups[1].id] }).expect(204);
     expect((await t.dataSource.getRepository(Membership).findOneByOrFail({ id: member.id })).clientGroupIds).toEqual([tenant.groups[1].id]);
+  });
+});
+
+describe('an import whose stored JSON does not fit its schema', () => {
+  it('answers with the shared import shape: unknown counts read as none, malformed errors as no errors', async () => {
+    const unit = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
+    const file = await writeCsvLines(tmp.file('odd.csv'), ['Timestamp,Gross MW', '2026-01-01 00:00,300']);
+    const up = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', file).expect(201);
+    await t.dataSource.query('UPDATE data_import SET counts = ?, errors = ? WHERE id = ?', [JSON.stringify({ bogus: 1 }), JSON.stringify('not a list'), up.body.import.id]);
+    const res = await analyst.get(`/api/imports/${up.body.import.id}`).expect(200);
+    const parsed = importViewSchema.safeParse(res.body);
+    expect(parsed.success, JSON.stringify(parsed.error?.issues)).toBe(true);
+    expect(res.body.counts).toBeNull();
+    expect(res.body.errors).toEqual([]);
   });
 });
 

@@ -9,7 +9,9 @@
 import { rm } from 'node:fs/promises';
 import { In, type DataSource } from 'typeorm';
 import { User } from '../entities/user.entity.js';
-import { importMappingSchema } from '@shared/schemas/import-mapping.js';
+import { z } from 'zod';
+import { importMappingSchema, type ImportMappingInput } from '@shared/schemas/import-mapping.js';
+import { importCounts, importView as importViewSchema, rowError, type ImportCounts, type ImportView } from '@shared/schemas/imports.js';
 import { formatRowErrorReportCsv, guessMapping, openTable, type RowError } from '../import/index.js';
 import { DataImport } from '../entities/data-import.entity.js';
 import { GeneratingUnit } from '../entities/generating-unit.entity.js';
@@ -25,31 +27,17 @@ export interface UploadedFile {
   size: number;
 }
 
-export interface ImportView {
-  id: string;
-  unitId: string;
-  fileName: string;
-  fileBytes: number;
-  fileKind: string | null;
-  status: DataImport['status'];
-  progress: number;
-  message: string | null;
-  counts: Record<string, unknown> | null;
-  errorCount: number;
-  errors: RowError[];
-  notes: DataImport['notes'];
-  firstTimestamp: string | null;
-  lastTimestamp: string | null;
-  createdAt: string;
-  finishedAt: string | null;
-  mapping: unknown;
-  uploadedBy: string | null;
-}
-
 const ERRORS_IN_VIEW = 200;
 
+/** The JSON columns read with their schemas: a value that does not fit is shown as none, never passed on as it is. */
+const storedErrors = z.array(rowError);
+const storedCounts = importCounts.nullable();
+const errorsOf = (i: DataImport): RowError[] => storedErrors.safeParse(i.errors ?? []).data ?? [];
+const countsOf = (i: DataImport): ImportCounts | null => storedCounts.safeParse(i.counts ?? null).data ?? null;
+const mappingOf = (i: DataImport): ImportMappingInput | null => importViewSchema.shape.mapping.safeParse(i.mapping ?? null).data ?? null;
+
 export function importView(i: DataImport, allErrors = false, uploadedBy: string | null = null): ImportView {
-  const errors = (Array.isArray(i.errors) ? i.errors : []) as RowError[];
+  const errors = errorsOf(i);
   return {
     id: i.id,
     unitId: i.unitId,
@@ -59,7 +47,7 @@ export function importView(i: DataImport, allErrors = false, uploadedBy: string 
     status: i.status,
     progress: i.progress,
     message: i.message,
-    counts: i.counts,
+    counts: countsOf(i),
     errorCount: i.errorCount,
     errors: allErrors ? errors : errors.slice(0, ERRORS_IN_VIEW),
     notes: i.notes,
@@ -67,7 +55,7 @@ export function importView(i: DataImport, allErrors = false, uploadedBy: string 
     lastTimestamp: i.lastTimestamp?.toISOString() ?? null,
     createdAt: i.createdAt.toISOString(),
     finishedAt: i.finishedAt?.toISOString() ?? null,
-    mapping: i.mapping,
+    mapping: mappingOf(i),
     uploadedBy,
   };
 }
@@ -162,7 +150,7 @@ export async function listImports(ds: DataSource, scope: TenantScope, unitId: st
 
 export async function errorReportCsv(ds: DataSource, scope: TenantScope, importId: string): Promise<{ fileName: string; csv: string }> {
   const imp = await findImport(ds, scope, importId);
-  const errors = (Array.isArray(imp.errors) ? imp.errors : []) as RowError[];
+  const errors = errorsOf(imp);
   return { fileName: `${imp.fileName.replace(/\.[^.]+$/, '')}-errors.csv`, csv: formatRowErrorReportCsv(errors, Math.max(0, imp.errorCount - errors.length)) };
 }
 
