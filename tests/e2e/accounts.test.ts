@@ -11,14 +11,15 @@ type Server = Awaited<ReturnType<typeof startTestServer>>;
  * terminal (kept in MariaDB): the addressee cannot sign in yet, so the mailbox page is not theirs to read.
  */
 async function linkMailedTo(server: Server, to: string, subject: RegExp): Promise<string> {
-  const deadline = Date.now() + 20_000;
+  // Long enough for one retried delivery (the outbox waits 30 s after a failed attempt).
+  const deadline = Date.now() + 45_000;
   while (Date.now() < deadline) {
     const message = (await server.mailTo(to)).find((m) => subject.test(m.subject));
     const link = message?.text.match(/https?:\/\/\S+/)?.[0];
     if (link) return link;
     await new Promise((r) => setTimeout(r, 250));
   }
-  throw new Error(`no message to ${to} matching ${subject}`);
+  throw new Error(`no message to ${to} matching ${subject}; waiting in the outbox: ${JSON.stringify(await server.mailWaiting())}`);
 }
 
 async function signIn(page: Page, server: Server, email: string, password: string) {
@@ -250,7 +251,7 @@ describe('account screens in a real browser', () => {
       const messages = page.getByTestId('mailbox-message');
       await messages.filter({ hasText: /Reset your Cleancase password/ }).first().waitFor();
       for (const text of await messages.allTextContents()) expect(text).toContain(email);
-    });
+    }, 120_000);
 
     it('the same reset link does not work twice', async () => {
       const page = await freshPage();
@@ -260,6 +261,6 @@ describe('account screens in a real browser', () => {
       await page.getByRole('button', { name: 'Save the new password' }).click();
       await page.getByRole('alert').waitFor();
       await page.getByRole('link', { name: 'Ask for a new link' }).waitFor();
-    });
+    }, 90_000);
   });
 });

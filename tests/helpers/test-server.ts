@@ -12,7 +12,13 @@ const distDir = path.resolve(import.meta.dirname, '..', '..', 'frontend', 'dist'
  * The whole product on a free port: fresh database with the demo seed, built front end, the local SMTP sink
  * and the mail delivery loop. `mailTo` reads the sink's mail from MariaDB, as the terminal would show it.
  */
-export async function startTestServer(options: { demoData?: 'full' | 'people' } = {}): Promise<Running & { mailTo: (to: string) => Promise<SinkMessageView[]> }> {
+export interface TestServer extends Running {
+  mailTo: (to: string) => Promise<SinkMessageView[]>;
+  /** Mail still waiting in the outbox, with the last delivery error: what a test names when a message never came. */
+  mailWaiting: () => Promise<{ kind: string; recipient: string; attempts: number; lastError: string | null }[]>;
+}
+
+export async function startTestServer(options: { demoData?: 'full' | 'people' } = {}): Promise<TestServer> {
   if (!existsSync(path.join(distDir, 'index.html'))) {
     throw new Error('frontend/dist is missing: npm test builds it first (or run `npx vite build`)');
   }
@@ -36,6 +42,7 @@ export async function startTestServer(options: { demoData?: 'full' | 'people' } 
   return {
     url: running.url,
     mailTo: (to) => sinkMessagesFor(reader, to),
+    mailWaiting: () => reader.query('SELECT kind, recipient, attempts, lastError FROM mail_outbox ORDER BY createdAt'),
     close: async () => {
       await running.close();
       await reader.destroy();
