@@ -226,6 +226,8 @@ describe('account screens in a real browser', () => {
       const page = await freshPage();
       await page.goto(`${server.url}/sign-in`);
       await page.getByRole('link', { name: 'Forgot your password?' }).click();
+      // The page loads on demand: until it shows, the sign-in form (with its own E-mail field) is still on screen.
+      await page.getByRole('heading', { name: 'Forgot your password?' }).waitFor();
       await page.getByLabel('E-mail').fill(email);
       await page.getByRole('button', { name: 'Send the reset link' }).click();
       await expect.poll(() => page.getByRole('status').textContent()).toContain('If an account uses this e-mail');
@@ -235,6 +237,8 @@ describe('account screens in a real browser', () => {
       await page.getByLabel('New password').fill(newPassword);
       await page.getByRole('button', { name: 'Save the new password' }).click();
       await page.getByRole('link', { name: 'Sign in with your new password' }).click();
+      await page.waitForURL(/\/sign-in/);
+      await page.getByRole('button', { name: 'Sign in', exact: true }).waitFor();
 
       await page.getByLabel('E-mail').fill(email);
       await page.getByLabel('Password').fill(DEMO_PASSWORD);
