@@ -5,6 +5,7 @@
  */
 import { z } from 'zod';
 import { TUBE_MATERIALS } from '../domain/condenser/hei-tables.js';
+import { UNCERTAIN_INPUTS } from '../domain/decision/uncertainty/schedule-uncertainty.js';
 import { DEFAULT_POINT_RANGES } from '../domain/validity/point-validity.js';
 import { correctionCurveSchema } from './calc-penalty.js';
 import { cleaningMethodSchema } from './cleaning-method.js';
@@ -149,3 +150,86 @@ export const calcScheduleInput = z
   });
 
 export type CalcScheduleInput = z.infer<typeof calcScheduleInput>;
+
+const money = z.number().finite();
+const costTotals = z.object({ foulingCost: money, cleaningCost: money, downtimeCost: money, total: money }).strict();
+const scheduledCleaning = z
+  .object({
+    date: isoDate,
+    endDate: isoDate,
+    methodId: z.string(),
+    methodName: z.string(),
+    cleaningCost: money,
+    downtimeCost: money,
+    foulingCostDuring: money,
+    daysInPlannedOutage: z.number().int().min(0),
+    cleanlinessBefore: z.number(),
+    cleanlinessAfter: z.number(),
+    typicalValues: z.boolean(),
+    cautions: z.array(z.string()),
+  })
+  .strict();
+
+/** What `calc schedule` answers (money rounded to cents, plant-local dates). */
+export const calcScheduleOutput = z
+  .object({
+    referenceCleanliness: z.number(),
+    cleanings: z.array(scheduledCleaning),
+    totals: costTotals,
+    discountedTotals: costTotals,
+    /** one per horizon year (year 1 first) */
+    yearly: z.array(costTotals),
+    baseline: z
+      .object({ cleanings: z.array(scheduledCleaning), totals: costTotals, discountedTotals: costTotals, ruleBreaks: z.array(z.string()) })
+      .strict(),
+    businessCase: z
+      .object({
+        /** [0] at the start (the upfront cost), [k] at the end of horizon year k */
+        cashflows: z.array(money),
+        foulingSavings: z.array(money),
+        extraCleaningCosts: z.array(money),
+        npv: money,
+        irr: z.number().nullable(),
+        irrReason: z.string().optional(),
+        paybackYears: z.number().nullable(),
+        discountedPaybackYears: z.number().nullable(),
+        benefitCostRatio: z.number().nullable(),
+        benefitCostReason: z.string().optional(),
+      })
+      .strict(),
+    sensitivity: z
+      .object({
+        baseNpv: money,
+        bars: z.array(
+          z
+            .object({
+              input: z.enum(UNCERTAIN_INPUTS),
+              low: z.number(),
+              high: z.number(),
+              npvAtLow: money,
+              npvAtHigh: money,
+              swing: money,
+            })
+            .strict(),
+        ),
+      })
+      .strict()
+      .optional(),
+    monteCarlo: z
+      .object({
+        trials: z.number().int(),
+        seed: z.number().int(),
+        p10Npv: money,
+        p50Npv: money,
+        p90Npv: money,
+        meanNpv: money,
+        probabilityNpvPositive: z.number().min(0).max(1),
+        histogram: z.array(z.object({ from: money, to: money, count: z.number().int().min(0) }).strict()),
+      })
+      .strict()
+      .optional(),
+    daily: z.array(z.object({ date: isoDate, cleanliness: z.number(), foulingCost: money, cleaningCost: money }).strict()).optional(),
+    warnings: z.array(z.string()),
+  })
+  .strict();
+export type CalcScheduleOutput = z.infer<typeof calcScheduleOutput>;

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { runCalc } from '@backend/cli/run-calc.js';
 import foulingFit from '@backend/cli/commands/fouling-fit.js';
 import schedule from '@backend/cli/commands/schedule.js';
+import { calcScheduleOutput } from '@shared/schemas/calc-schedule.js';
 import interval from '@backend/cli/commands/interval.js';
 import cashflow from '@backend/cli/commands/cashflow.js';
 import { TYPICAL_CLEANING_METHODS } from '@shared/schemas/cleaning-method.js';
@@ -131,6 +132,15 @@ describe('decision commands of the calculation CLI', () => {
     const a = schedule.run(input) as { monteCarlo: unknown; sensitivity: { bars: unknown[] } };
     expect(schedule.run(input)).toEqual(a);
     expect(a.sensitivity.bars).toHaveLength(6);
+  });
+
+  it('schedule answers the declared output schema, and its Monte Carlo histogram counts every trial between the lowest and highest NPV', () => {
+    const out = calcScheduleOutput.parse(schedule.run({ ...scheduleInput, includeDaily: true, uncertainty: { trials: 1000, seed: 5 } }));
+    const mc = out.monteCarlo!;
+    expect(mc.histogram.reduce((n, b) => n + b.count, 0)).toBe(1000);
+    expect(mc.histogram[0].from).toBeLessThanOrEqual(mc.p10Npv);
+    expect(mc.histogram[mc.histogram.length - 1].to).toBeGreaterThanOrEqual(mc.p90Npv);
+    for (let i = 1; i < mc.histogram.length; i++) expect(mc.histogram[i].from).toBeCloseTo(mc.histogram[i - 1].to, 1);
   });
 
   it('schedule accepts a simplified direct penalty curve, and refuses both models at once', () => {

@@ -133,6 +133,20 @@ export interface MonteCarloSummary {
   p90Npv: number;
   meanNpv: number;
   probabilityNpvPositive: number;
+  /** the trials' NPVs in equal-width bins from the lowest to the highest, for the distribution chart */
+  histogram: { from: number; to: number; count: number }[];
+}
+
+const HISTOGRAM_BINS = 24;
+
+function histogramOf(sorted: Float64Array): MonteCarloSummary['histogram'] {
+  const lo = sorted[0];
+  const hi = sorted[sorted.length - 1];
+  if (!(hi > lo)) return [{ from: lo, to: hi, count: sorted.length }];
+  const width = (hi - lo) / HISTOGRAM_BINS;
+  const bins = Array.from({ length: HISTOGRAM_BINS }, (_, i) => ({ from: lo + i * width, to: i === HISTOGRAM_BINS - 1 ? hi : lo + (i + 1) * width, count: 0 }));
+  for (const v of sorted) bins[Math.min(HISTOGRAM_BINS - 1, Math.floor((v - lo) / width))].count++;
+  return bins;
 }
 
 /** Seeded Monte Carlo: the same seed, ranges and schedules give the same figures. */
@@ -161,5 +175,6 @@ export function monteCarlo(c: ComparedSchedules, ranges: UncertaintyRanges, tria
     p90Npv: quantileSorted(results, 0.9),
     meanNpv: sum / trials,
     probabilityNpvPositive: positive / trials,
+    histogram: histogramOf(results),
   };
 }
