@@ -18,12 +18,15 @@ import { MailOutbox } from './mail-outbox.entity.js';
 import { SinkMessage } from './sink-message.entity.js';
 import { RateLimitCounter } from './rate-limit-counter.entity.js';
 import { AddressConfirmationToken } from './address-confirmation-token.entity.js';
+import { CaseCommentRecord } from './case-comment.entity.js';
+import { CleaningCase } from './cleaning-case.entity.js';
 
 export { ApiToken, AuditEvent, ClientGroup, Invitation, Membership, Organisation, PasswordResetToken, User };
 export { BackgroundJob, CleaningMethodRecord, DailyAggregate, DataImport, GeneratingUnit, PerformanceSample, Plant, UnitEvent };
 export { MailOutbox, SinkMessage };
 export { RateLimitCounter };
 export { AddressConfirmationToken };
+export { CaseCommentRecord, CleaningCase };
 
 export const ENTITIES = [
   Organisation, User, Membership, AuditEvent, ClientGroup, Invitation, PasswordResetToken, ApiToken,
@@ -31,4 +34,5 @@ export const ENTITIES = [
   MailOutbox, SinkMessage,
   RateLimitCounter,
   AddressConfirmationToken,
+  CleaningCase, CaseCommentRecord,
 ];

@@ -1,0 +1,39 @@
+import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import type { CalcScheduleInput, CalcScheduleOutput } from '@shared/schemas/calc-schedule.js';
+import type { CaseStatus, InputSources } from '@shared/schemas/cases.js';
+import { GeneratingUnit } from './generating-unit.entity.js';
+import { Organisation } from './organisation.entity.js';
+
+/**
+ * A cleaning case: the business case for cleaning one unit's condenser. `inputs` is a `calc schedule` input and
+ * `results` its output, kept as built; once submitted the case is a snapshot and never recomputed.
+ */
+@Entity('cleaning_case')
+@Index(['organisationId', 'status'])
+@Index(['unitId'])
+export class CleaningCase {
+  @PrimaryGeneratedColumn('uuid') id: string;
+  @Column({ type: 'uuid' }) organisationId: string;
+  @Column({ type: 'uuid' }) unitId: string;
+  @Column({ type: 'varchar', length: 120 }) title: string;
+  @Column({ type: 'varchar', length: 16 }) status: CaseStatus;
+  @Column({ type: 'uuid' }) authorId: string;
+  @Column({ type: 'json' }) inputs: CalcScheduleInput;
+  @Column({ type: 'json' }) inputSources: InputSources;
+  @Column({ type: 'json' }) results: CalcScheduleOutput;
+  @Column({ type: 'varchar', length: 32 }) engineVersion: string;
+  /** the unit's last day of data when the case was built (null: none) */
+  @Column({ type: 'date', nullable: true }) lastDataDay: string | null;
+  @Column({ type: 'int' }) setupVersion: number;
+  @Column({ type: 'uuid', nullable: true }) copiedFromId: string | null;
+  @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)' }) createdAt: Date;
+  @Column({ type: 'datetime', precision: 3 }) updatedAt: Date;
+  @Column({ type: 'datetime', precision: 3, nullable: true }) submittedAt: Date | null;
+  @Column({ type: 'datetime', precision: 3, nullable: true }) decidedAt: Date | null;
+  @Column({ type: 'datetime', precision: 3, nullable: true }) archivedAt: Date | null;
+  @Column({ type: 'uuid', nullable: true }) decidedById: string | null;
+  @Column({ type: 'varchar', length: 2000, nullable: true }) returnReason: string | null;
+
+  @ManyToOne(() => Organisation, { onDelete: 'CASCADE' }) @JoinColumn({ name: 'organisationId' }) organisation?: Organisation;
+  @ManyToOne(() => GeneratingUnit, { onDelete: 'CASCADE' }) @JoinColumn({ name: 'unitId' }) unit?: GeneratingUnit;
+}
