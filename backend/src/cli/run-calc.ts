@@ -1,5 +1,11 @@
 /** Pure part of the calculation CLI and API: run a command on each input, collect errors in place. */
+import type { ZodType } from 'zod';
+
 export interface CalcCommand {
+  /** One input as the caller writes it (for the API description; `run` checks it). */
+  input: ZodType;
+  /** One result. */
+  output: ZodType;
   /** Validates one input (throws with a user-facing message) and returns the plain-JSON result. */
   run(input: unknown): unknown;
 }

@@ -38,7 +38,7 @@ const errorBody = (description: string) => ({ description, content: { 'applicati
 
 function errors(spec: RouteSpec): Record<string, unknown> {
   const out: Record<string, unknown> = {};
-  const takesInput = spec.body || spec.query || spec.method !== 'get' || spec.path.includes(':');
+  const takesInput = spec.body || spec.bodyCheckedByHandler || spec.query || spec.method !== 'get' || spec.path.includes(':');
   if (takesInput) out['400'] = errorBody('The request needs attention: details.fieldErrors names each field and what is wrong');
   if (spec.access !== 'public') out['401'] = errorBody('Sign in first');
   if (spec.access !== 'public' && spec.access !== 'signed-in') out['403'] = errorBody('Your role cannot do this, or no organisation is chosen');
@@ -67,9 +67,16 @@ function operation(spec: RouteSpec): JsonSchema {
     'x-access': spec.access,
     security: spec.access === 'public' ? [] : spec.apiToken ? [{ session: [] }, { apiToken: [] }] : [{ session: [] }],
     parameters: parameters(spec),
-    responses: { ...success(spec), ...errors(spec) },
+    responses: {
+      ...success(spec),
+      ...errors(spec),
+      ...(spec.otherAnswer
+        ? { [spec.otherAnswer.status]: { description: spec.otherAnswer.description, content: { 'application/json': { schema: jsonSchemaOf(spec.otherAnswer.schema, 'output') } } } }
+        : {}),
+    },
   };
-  if (spec.body) op.requestBody = { required: true, content: { 'application/json': { schema: jsonSchemaOf(spec.body, 'input') } } };
+  const body = spec.body ?? spec.bodyCheckedByHandler;
+  if (body) op.requestBody = { required: true, content: { 'application/json': { schema: jsonSchemaOf(body, 'input') } } };
   return op;
 }
 

@@ -31,11 +31,15 @@ export interface RouteSpec {
   allowsPrivilegedFields?: boolean;
   rateLimit?: RequestHandler;
   body?: ZodType;
+  /** A body described in the API description but checked by the handler itself (the calculation API answers 422 per input). */
+  bodyCheckedByHandler?: ZodType;
   query?: ZodType;
   /** The success answer, for the API description (GET /api/openapi.json) and the response-schema tests. */
   response?: RouteResponse;
   /** Success status when it is not 200 (201 created, 202 accepted); 'empty' answers 204. */
   status?: 201 | 202;
+  /** An answer besides success and the common errors, e.g. 422 with each failed input's error in place. */
+  otherAnswer?: { status: 422; description: string; schema: ZodType };
   /** Extra middleware before the handler (e.g. a file upload parser). */
   before?: RequestHandler[];
   handler: (req: Request, res: Response) => unknown;

@@ -1,9 +1,11 @@
 /** `calc condenser-point`: performance of one condenser data point (ENGINEERING.md §3). */
 import type { CalcCommand } from '../run-calc.js';
-import { calcCondenserPointInput, type CalcCondenserPointOutput } from '@shared/schemas/calc-condenser-point.js';
+import { calcCondenserPointInput, calcCondenserPointOutput, type CalcCondenserPointOutput } from '@shared/schemas/calc-condenser-point.js';
 import { analyseCondenserPoint } from '@shared/domain/condenser/index.js';
 
 const command: CalcCommand = {
+  input: calcCondenserPointInput,
+  output: calcCondenserPointOutput,
   run(input: unknown): CalcCondenserPointOutput {
     const v = calcCondenserPointInput.parse(input);
     const r = analyseCondenserPoint({

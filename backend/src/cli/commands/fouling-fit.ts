@@ -1,6 +1,6 @@
 /** `calc fouling-fit`: fouling trend since the last cleaning, model chosen by AIC, forecast with a band (ENGINEERING.md §5). */
 import type { CalcCommand } from '../run-calc.js';
-import { calcFoulingFitInput, type CalcFoulingFitOutput } from '@shared/schemas/calc-fouling-fit.js';
+import { calcFoulingFitInput, calcFoulingFitOutput, type CalcFoulingFitOutput } from '@shared/schemas/calc-fouling-fit.js';
 import { fitFoulingTrend, type ModelFitSummary } from '@shared/domain/decision/fouling/fouling-trend.js';
 
 const r6 = (x: number) => Number(x.toFixed(6));
@@ -20,6 +20,8 @@ function summary(m: ModelFitSummary) {
 }
 
 const command: CalcCommand = {
+  input: calcFoulingFitInput,
+  output: calcFoulingFitOutput,
   run(input: unknown): CalcFoulingFitOutput {
     const v = calcFoulingFitInput.parse(input);
     const r = fitFoulingTrend(v);

@@ -1,12 +1,14 @@
 /** `calc penalty`: heat-rate and capacity penalty between two backpressures, and its cost per hour (§4). */
 import Decimal from 'decimal.js';
 import type { CalcCommand } from '../run-calc.js';
-import { calcPenaltyInput, type CalcPenaltyOutput } from '@shared/schemas/calc-penalty.js';
+import { calcPenaltyInput, calcPenaltyOutput, type CalcPenaltyOutput } from '@shared/schemas/calc-penalty.js';
 import { curveExtrapolationWarning, GENERIC_CORRECTION_CURVE, penaltyBetween, penaltyCostPerHour } from '@shared/domain/turbine/index.js';
 
 const cents = (x: number): number => new Decimal(x).toDecimalPlaces(2, Decimal.ROUND_HALF_UP).toNumber() || 0;
 
 const command: CalcCommand = {
+  input: calcPenaltyInput,
+  output: calcPenaltyOutput,
   run(input: unknown): CalcPenaltyOutput {
     const v = calcPenaltyInput.parse(input);
     const curve = v.curve ?? GENERIC_CORRECTION_CURVE;

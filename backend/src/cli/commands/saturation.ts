@@ -1,6 +1,6 @@
 /** `calc saturation`: saturation state from a pressure or a temperature (IAPWS-IF97 region 4). */
 import type { CalcCommand } from '../run-calc.js';
-import { calcSaturationInput, type CalcSaturationOutput } from '@shared/schemas/calc-saturation.js';
+import { calcSaturationInput, calcSaturationOutput, type CalcSaturationOutput } from '@shared/schemas/calc-saturation.js';
 import {
   saturationPressureKpa,
   saturationTemperatureC,
@@ -9,6 +9,8 @@ import {
 } from '@shared/domain/steam/index.js';
 
 const command: CalcCommand = {
+  input: calcSaturationInput,
+  output: calcSaturationOutput,
   run(input: unknown): CalcSaturationOutput {
     const v = calcSaturationInput.parse(input);
     const temperatureC = v.pressureKpa !== undefined ? saturationTemperatureC(v.pressureKpa) : v.temperatureC!;
