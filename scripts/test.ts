@@ -42,7 +42,11 @@ mkdirSync(path.dirname(resultsFile), { recursive: true });
 let ok = true;
 if (extraArgs.length === 0) {
   ok = step('lint (eslint)', bin('eslint'), ['.', '--max-warnings=0']) && ok;
-  ok = step('typecheck (tsc --noEmit)', bin('tsc'), ['--noEmit', '-p', '.']) && ok;
+  // Node code without the browser's types, browser code without Node's, shared code with neither; then the tests.
+  for (const project of ['node', 'browser', 'shared']) {
+    ok = step(`typecheck ${project} (tsc --noEmit -p tsconfig.${project}.json)`, bin('tsc'), ['--noEmit', '-p', `tsconfig.${project}.json`]) && ok;
+  }
+  ok = step('typecheck everything with the tests (tsc --noEmit)', bin('tsc'), ['--noEmit', '-p', '.']) && ok;
   ok = step('front-end build (vite)', bin('vite'), ['build', '--logLevel', 'warn']) && ok;
 } else if (!existsSync(path.join(root, 'frontend', 'dist', 'index.html'))) {
   ok = step('front-end build (vite)', bin('vite'), ['build', '--logLevel', 'warn']) && ok;
