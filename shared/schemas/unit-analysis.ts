@@ -3,6 +3,7 @@
  * read by the health view: fouling cycles with their fitted trends, air in-leakage periods, cleaning outlook.
  */
 import { z } from 'zod';
+import { UNIT_DURING_CLEANING } from './cleaning-method.js';
 
 const isoDate = z.iso.date();
 
@@ -52,11 +53,37 @@ export const airLeakPeriod = z
   })
   .strict();
 
+const outlookCleaning = z
+  .object({
+    date: isoDate,
+    endDate: isoDate,
+    methodId: z.string(),
+    methodName: z.string(),
+    unitDuringCleaning: z.enum(UNIT_DURING_CLEANING),
+  })
+  .strict();
+
+/** The best plan with one kind of method only: used while the unit runs (on line, derate) or in an outage. */
+const outlookOption = z
+  .object({
+    kind: z.enum(['while-running', 'in-an-outage']),
+    status: z.enum(['planned', 'none-needed', 'no-method']),
+    first: outlookCleaning.optional(),
+    cleaningsInHorizon: z.number().int(),
+    savingsVersusNoCleaning: z.number(),
+  })
+  .strict();
+
+/** Fields added later (dataTo, plan, options) are optional, so an analysis stored before them still reads. */
 export const cleaningOutlook = z
   .object({
     status: z.enum(['planned', 'none-needed', 'not-available']),
     reason: z.string().optional(),
     planFrom: isoDate.optional(),
+    /** the last day of data the plan was built on */
+    dataTo: isoDate.optional(),
+    plan: z.array(outlookCleaning).optional(),
+    options: z.array(outlookOption).optional(),
     horizonDays: z.number().int().optional(),
     next: z
       .object({

@@ -54,6 +54,15 @@ describe('condenser health view in a real browser (full demo data)', () => {
     expect(dollars(cost)).toBe(Math.round(api.headline.foulingCostPerDay));
     expect(api.headline.nextCleaning.status).toBe('planned');
     expect(await page.getByTestId('headline-next-cleaning').textContent()).toContain(dayText(api.headline.nextCleaning.next.date));
+    // The demo's data ended long before the machine's clock: the plan starts today, not in the past, and says
+    // what data it rests on; it lists its dates and answers with both kinds of method.
+    const today = new Date().toISOString().slice(0, 10);
+    expect(api.headline.nextCleaning.next.date >= addDays(today, -1)).toBe(true);
+    expect(await page.getByTestId('next-cleaning-stale').textContent()).toContain(`Built on data to ${dayText(api.headline.nextCleaning.dataTo)}`);
+    expect(await page.getByTestId('next-cleaning-plan').textContent()).toContain(dayText(api.headline.nextCleaning.plan[0].date));
+    const options = (await page.getByTestId('next-cleaning-options').textContent()) ?? '';
+    expect(options).toContain('While running');
+    expect(options).toContain('In an outage');
     // data of the demo ends long before the machine's clock: the freshness warning is on
     expect(await page.getByTestId('headline-freshness').textContent()).toMatch(/days old: import recent data/);
     // the default period is the last year of data, and every chart has drawn its figure

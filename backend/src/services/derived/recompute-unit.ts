@@ -7,15 +7,17 @@
  * so memory stays bounded whatever the history length.
  */
 import type { DataSource } from 'typeorm';
+import { clearAnalysesOfUnit } from '../../repositories/sample-analysis.repository.js';
+import { countSamplesOfUnit } from '../../repositories/sample.repository.js';
 import { judgeAirLeaks } from './air-leak-verdicts.js';
 import { rebuildDailyAggregates } from './daily-aggregates.js';
 import { measureDailyCleanliness, witnessMedians } from './daily-witnesses.js';
 import { fitCycles, trendCleanlinessOn, type CycleTrend } from './fouling-cycles.js';
-import { countSamples, readValidSamples } from './read-valid-samples.js';
+import { readValidSamples } from './read-valid-samples.js';
 import { analyseSamples } from './sample-analysis.js';
 import { loadUnitContext } from './unit-context.js';
 import { planCleaningOutlook, storeUnitAnalysis, unitAnalysis } from './unit-analysis.js';
-import { clearAnalyses, writeBackAnalyses } from './write-back.js';
+import { writeBackAnalyses } from './write-back.js';
 
 export interface RecomputeOutcome {
   samples: number;
@@ -28,9 +30,9 @@ type Progress = (fraction: number, message: string) => Promise<void>;
 export async function recomputeUnit(ds: DataSource, unitId: string, onProgress: Progress = async () => {}): Promise<RecomputeOutcome> {
   const ctx = await loadUnitContext(ds, unitId);
   const { unit, model, setup, dayOf, pluggedTubesOn } = ctx;
-  const total = await countSamples(ds, unitId);
+  const total = await countSamplesOfUnit(ds.manager, unitId);
   if (!model || !setup) {
-    await clearAnalyses(ds, unitId);
+    await clearAnalysesOfUnit(ds.manager, unitId);
     const days = await rebuildDailyAggregates(ds, unitId, dayOf);
     await storeUnitAnalysis(ds, unitId, null);
     return { samples: total, days, cycles: [] };
@@ -61,7 +63,7 @@ export async function recomputeUnit(ds: DataSource, unitId: string, onProgress: 
 
   await onProgress(0.97, 'Planning the next cleaning');
   const lastDay = measured.days.at(-1) ?? null;
-  const outlook = await planCleaningOutlook(ds, { organisationId: unit.organisationId, unitId, model, setup, lastDay, cycles, plannedOutages: ctx.plannedOutages });
+  const outlook = await planCleaningOutlook(ds, { organisationId: unit.organisationId, unitId, model, setup, lastDay, today: dayOf(Date.now()), cycles, plannedOutages: ctx.plannedOutages });
   await storeUnitAnalysis(ds, unitId, unitAnalysis({ setupVersion: unit.setupVersion, lastDay, cycles, airLeakPeriods: airLeaks.periods, outlook }));
   return { samples: total, days: dayCount, cycles };
 }

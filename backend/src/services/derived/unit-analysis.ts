@@ -4,6 +4,7 @@
  */
 import type { DataSource } from 'typeorm';
 import type { AirLeakPeriod, UnitModel, UnitSetupSi } from '@shared/domain/monitoring/index.js';
+import { operatingDaysOfUnit } from '../../repositories/daily-aggregate.repository.js';
 import { methodsOf } from '../cleaning-method.service.js';
 import { cleaningOutlook, type CleaningOutlook } from './cleaning-outlook.js';
 import { cycleSummary, type CycleTrend } from './fouling-cycles.js';
@@ -15,6 +16,8 @@ export interface OutlookStepInput {
   setup: UnitSetupSi;
   /** the last day with plausible data, or null when there is none */
   lastDay: string | null;
+  /** the plant's today */
+  today: string;
   cycles: CycleTrend[];
   plannedOutages: { from: string; to: string }[];
 }
@@ -23,17 +26,15 @@ export async function planCleaningOutlook(ds: DataSource, input: OutlookStepInpu
   if (!input.lastDay) return null;
   const lastCycle = input.cycles.at(-1);
   const lastFit = lastCycle?.result.status === 'fitted' ? lastCycle.result.chosen : null;
-  const history: { day: string | Date; cwInletC: number; loadMw: number }[] = await ds.query(
-    'SELECT day, meanCwInletC AS cwInletC, meanLoadMw AS loadMw FROM daily_aggregate WHERE unitId = ? AND pointsUsed > 0 ORDER BY day',
-    [input.unitId],
-  );
+  const history = await operatingDaysOfUnit(ds.manager, input.unitId);
   const libraryMethods = await methodsOf(ds.manager, input.organisationId);
   return cleaningOutlook({
     model: input.model,
     setup: input.setup,
     lastDay: input.lastDay,
+    today: input.today,
     cycle: lastCycle && lastFit ? { startDay: lastCycle.startDay, model: lastFit.model, cleanlinessAfterCleaning: lastFit.cleanlinessAfterCleaning } : null,
-    history: history.map((h) => ({ date: typeof h.day === 'string' ? h.day : h.day.toISOString().slice(0, 10), cwInletC: h.cwInletC, loadFraction: h.loadMw / input.model.ratingMw })),
+    history: history.map((h) => ({ date: h.day, cwInletC: h.cwInletC, loadFraction: h.loadMw / input.model.ratingMw })),
     plannedOutages: input.plannedOutages,
     methods: libraryMethods.length ? libraryMethods : undefined,
   });

@@ -1,7 +1,9 @@
 import type { ReactNode } from 'react';
 import { formatStored, type FieldUnits } from '@frontend/lib/field-units';
 import { formatCurrency, formatDay, formatNumber, formatPercent, formatPlantTime } from '@frontend/lib/format';
+import { plantDayOf } from '@shared/domain/calendar/plant-day';
 import type { HealthHeadline } from '../api/get-health';
+import { NextCleaningDetail } from './next-cleaning-detail';
 
 interface Props {
   headline: HealthHeadline;
@@ -43,6 +45,8 @@ export function HealthHeadlineStrip({ headline: h, units, currency, timeZone, no
   const ageDays = h.lastSampleUtc ? (now - Date.parse(h.lastSampleUtc)) / 86_400_000 : null;
   const stale = ageDays !== null && ageDays > STALE_AFTER_DAYS;
   const next = h.nextCleaning;
+  const today = plantDayOf(now, timeZone);
+  const overdue = next?.status === 'planned' && next.next !== undefined && next.next.date < today;
   // How much of the excess is fouling, in money (the two parts are costed through the same turbine curve).
   const fouling = h.foulingCostPerDay ?? 0;
   const unexplained = Math.max(0, h.unexplainedCostPerDay ?? 0);
@@ -109,30 +113,10 @@ export function HealthHeadlineStrip({ headline: h, units, currency, timeZone, no
         <Tile
           label="Next cleaning"
           value={next?.status === 'planned' && next.next ? formatDay(next.next.date) : next?.status === 'none-needed' ? 'Not needed' : 'Not available'}
+          tone={overdue ? 'warn' : 'ink'}
           testId="headline-next-cleaning"
         >
-          {next?.status === 'planned' && next.next ? (
-            <>
-              <p className="text-ink">
-                {next.next.methodName}
-                {next.next.typicalValues && (
-                  <span className="ml-1 inline-block rounded border border-warn/50 bg-ledger-50 px-1 text-2xs font-medium text-warn" title="The method still has typical values, not your own">
-                    typical values
-                  </span>
-                )}
-              </p>
-              <p>
-                CF {formatPercent(next.next.cleanlinessBefore, 0)} → {formatPercent(next.next.cleanlinessAfter, 0)}; cost {money(next.next.cleaningCost + next.next.downtimeCost)}
-              </p>
-              {next.savingsVersusNoCleaning !== undefined && (
-                <p>
-                  Plan: {formatNumber(next.cleaningsInHorizon ?? 1)} {next.cleaningsInHorizon === 1 ? 'cleaning' : 'cleanings'} this coming year, {money(next.savingsVersusNoCleaning)} less than not cleaning
-                </p>
-              )}
-            </>
-          ) : (
-            <p>{next?.reason ?? 'The outlook is made after the next recompute.'}</p>
-          )}
+          <NextCleaningDetail outlook={next} today={today} money={money} />
         </Tile>
         <Tile label="Data up to" value={h.asOf ? formatDay(h.asOf) : '—'} tone={stale ? 'warn' : 'ink'} testId="headline-freshness">
           <p>Last sample {formatPlantTime(h.lastSampleUtc, timeZone)}</p>
