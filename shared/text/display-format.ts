@@ -43,7 +43,13 @@ export function formatPlain(value: number, maxDecimals = 6): string {
 export function formatCurrency(value: number | null | undefined, currency: string, decimals = 0): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
   try {
-    return new Intl.NumberFormat('en-US', { style: 'currency', currency, minimumFractionDigits: decimals, maximumFractionDigits: decimals, signDisplay: 'negative' }).format(value);
+    return new Intl.NumberFormat('en-US', {
+      style: 'currency',
+      currency,
+      minimumFractionDigits: decimals,
+      maximumFractionDigits: decimals,
+      signDisplay: 'negative',
+    }).format(value);
   } catch {
     return `${currency} ${formatNumber(value, decimals)}`;
   }

@@ -38,7 +38,14 @@ describe('case report as a PDF', () => {
     const t = squash(text);
     for (const word of ['Measured', 'Prefilled', 'Entered']) expect(t).toContain(word);
     for (const { detail } of Object.values(SOURCES)) expect(t).toContain(squash(detail));
-    for (const name of ['Cooling-water inlet temperature', 'Fuel price', 'Condenser surface', 'Discount rate', 'Planned outage 2', 'Brush crew, Larkspur contract: fixed cost']) {
+    for (const name of [
+      'Cooling-water inlet temperature',
+      'Fuel price',
+      'Condenser surface',
+      'Discount rate',
+      'Planned outage 2',
+      'Brush crew, Larkspur contract: fixed cost',
+    ]) {
       expect(t).toContain(squash(name));
     }
     expect(t).toContain(squash('3.5 USD/MMBtu'));
@@ -49,7 +56,8 @@ describe('case report as a PDF', () => {
     const t = squash(text);
     // the recommended method needs waterbox entry and isolation (fixture's own method)
     expect(view.results.cleanings.every((c) => c.methodId === 'larkspur-brush-crew')).toBe(true);
-    for (const caution of [GENERAL_CAUTION, CAUTION_TEXT['confined-space'], CAUTION_TEXT['lockout-tagout']]) expect(t).toContain(squash(caution.replace('₂', '2')));
+    for (const caution of [GENERAL_CAUTION, CAUTION_TEXT['confined-space'], CAUTION_TEXT['lockout-tagout']])
+      expect(t).toContain(squash(caution.replace('₂', '2')));
     expect(t).toContain(squash('confined waterboxes, chemicals, high-pressure water — follows local codes'));
     expect(t).toContain(squash('Estimates from the data and assumptions shown.'));
     expect(t).toContain(squash(`Engine 1.0.0; built on data to ${formatDay('2026-09-30')}, unit setup version 4.`));
@@ -73,7 +81,12 @@ describe('case report as a PDF', () => {
   });
 
   it('a returned case is marked not approved and gives the reason', async () => {
-    const { text } = await pdfOf({ status: 'returned', decidedBy: { id: 'u-2', name: 'Tobias Renwick' }, decidedAt: '2026-10-06T16:20:00.000Z', returnReason: 'Use the 2026 fuel contract price.' });
+    const { text } = await pdfOf({
+      status: 'returned',
+      decidedBy: { id: 'u-2', name: 'Tobias Renwick' },
+      decidedAt: '2026-10-06T16:20:00.000Z',
+      returnReason: 'Use the 2026 fuel contract price.',
+    });
     expect(text).toMatch(/NOT APPROVED/);
     expect(squash(text)).toContain(squash('Returned because: Use the 2026 fuel contract price.'));
   });

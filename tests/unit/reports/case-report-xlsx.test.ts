@@ -54,7 +54,12 @@ describe('case report as a workbook', () => {
     expect(schedule.filter((r) => r[0] === 'Baseline')).toHaveLength(view.results.baseline.cleanings.length);
     const daily = rowsOf(wb.getWorksheet('Daily path')!);
     expect(daily).toHaveLength(view.results.daily!.length);
-    expect(daily[100]).toEqual([new Date(`${view.results.daily![100].date}T00:00:00.000Z`), view.results.daily![100].cleanliness, view.results.daily![100].foulingCost, view.results.daily![100].cleaningCost]);
+    expect(daily[100]).toEqual([
+      new Date(`${view.results.daily![100].date}T00:00:00.000Z`),
+      view.results.daily![100].cleanliness,
+      view.results.daily![100].foulingCost,
+      view.results.daily![100].cleaningCost,
+    ]);
   });
 
   it('lists every input with its unit and source, monthly values one per row', async () => {

@@ -111,7 +111,12 @@ export const APPROVED: Partial<CaseView> = {
 };
 
 export const COMMENTS: CaseComment[] = [
-  { id: 'c-1', author: { id: 'u-2', name: 'Tobias Renwick' }, text: 'Check the brush crew quote against last spring’s invoice.', createdAt: '2026-10-04T13:00:00.000Z' },
+  {
+    id: 'c-1',
+    author: { id: 'u-2', name: 'Tobias Renwick' },
+    text: 'Check the brush crew quote against last spring’s invoice.',
+    createdAt: '2026-10-04T13:00:00.000Z',
+  },
   { id: 'c-2', author: { id: 'u-1', name: 'Ines Calloway' }, text: '=HYPERLINK("http://example.invalid","click")', createdAt: '2026-10-05T08:10:00.000Z' },
 ];
 

@@ -207,13 +207,20 @@ function uncertaintyRows(list: RowList, v: CalcScheduleInput): void {
   for (const [input, r] of Object.entries(u.ranges ?? {})) {
     if (!r) continue;
     const label = UNCERTAIN_INPUT_LABELS[input as keyof typeof UNCERTAIN_INPUT_LABELS];
-    list.add(g, `uncertainty.${input}`, `${label.name}: low / base / high`, `${formatPlain(r.low)} / ${formatPlain(r.base)} / ${formatPlain(r.high)}`, label.unit, {
-      parts: [
-        { name: `${label.name}: low`, value: r.low },
-        { name: `${label.name}: base`, value: r.base },
-        { name: `${label.name}: high`, value: r.high },
-      ],
-    });
+    list.add(
+      g,
+      `uncertainty.${input}`,
+      `${label.name}: low / base / high`,
+      `${formatPlain(r.low)} / ${formatPlain(r.base)} / ${formatPlain(r.high)}`,
+      label.unit,
+      {
+        parts: [
+          { name: `${label.name}: low`, value: r.low },
+          { name: `${label.name}: base`, value: r.base },
+          { name: `${label.name}: high`, value: r.high },
+        ],
+      },
+    );
   }
   if (!u.ranges || Object.keys(u.ranges).length === 0) list.add(g, 'uncertainty', 'Ranges', 'the engine’s typical ranges', '');
 }

@@ -8,10 +8,14 @@ const SOURCE_WORDS = { measured: 'Measured', prefilled: 'Prefilled', entered: 'E
 
 export function inputSection(doc: PDFKit.PDFDocument, view: CaseView): void {
   heading(doc, 'Inputs and where they came from');
-  paragraph(doc, 'Measured: from the unit’s own data. Prefilled: filled in by the product from the unit’s setup, economics or the method library. Entered: typed or changed by a person.', {
-    size: SIZE.small,
-    color: COLOR.muted,
-  });
+  paragraph(
+    doc,
+    'Measured: from the unit’s own data. Prefilled: filled in by the product from the unit’s setup, economics or the method library. Entered: typed or changed by a person.',
+    {
+      size: SIZE.small,
+      color: COLOR.muted,
+    },
+  );
   const rows: TableRow[] = [];
   let group = '';
   let lastSourceKey: string | null = null;
@@ -22,7 +26,12 @@ export function inputSection(doc: PDFKit.PDFDocument, view: CaseView): void {
       rows.push({ cells: [group], band: true });
     }
     const sameAsAbove = r.sourceKey !== null && r.sourceKey === lastSourceKey;
-    const source = r.source === null ? 'No source recorded' : sameAsAbove ? `${SOURCE_WORDS[r.source]} (as above)` : `${SOURCE_WORDS[r.source]}${r.detail ? `: ${r.detail}` : ''}`;
+    const source =
+      r.source === null
+        ? 'No source recorded'
+        : sameAsAbove
+          ? `${SOURCE_WORDS[r.source]} (as above)`
+          : `${SOURCE_WORDS[r.source]}${r.detail ? `: ${r.detail}` : ''}`;
     lastSourceKey = r.sourceKey;
     rows.push({ cells: [r.name, r.text, r.unit, source] });
   }

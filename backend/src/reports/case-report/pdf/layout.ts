@@ -17,7 +17,12 @@ export function heading(doc: Doc, text: string, spaceNeeded = 90): void {
   doc.moveDown(0.8);
   doc.font(FONT.bold).fontSize(SIZE.heading).fillColor(COLOR.accent).text(pdfText(text), PAGE.marginX, doc.y, { width: CONTENT_WIDTH });
   const y = doc.y + 2;
-  doc.moveTo(PAGE.marginX, y).lineTo(PAGE.marginX + CONTENT_WIDTH, y).lineWidth(0.6).strokeColor(COLOR.rule).stroke();
+  doc
+    .moveTo(PAGE.marginX, y)
+    .lineTo(PAGE.marginX + CONTENT_WIDTH, y)
+    .lineWidth(0.6)
+    .strokeColor(COLOR.rule)
+    .stroke();
   doc.y = y + 6;
 }
 
@@ -29,7 +34,10 @@ export function subheading(doc: Doc, text: string): void {
 }
 
 export function paragraph(doc: Doc, text: string, options: { size?: number; color?: string; font?: string } = {}): void {
-  doc.font(options.font ?? FONT.regular).fontSize(options.size ?? SIZE.body).fillColor(options.color ?? COLOR.ink);
+  doc
+    .font(options.font ?? FONT.regular)
+    .fontSize(options.size ?? SIZE.body)
+    .fillColor(options.color ?? COLOR.ink);
   const t = pdfText(text);
   ensureSpace(doc, Math.min(doc.heightOfString(t, { width: CONTENT_WIDTH }), 60));
   doc.text(t, PAGE.marginX, doc.y, { width: CONTENT_WIDTH, lineGap: 1.5 });
@@ -81,7 +89,12 @@ function drawHeader(doc: Doc, columns: Column[], widths: number[], size: number)
     doc.text(pdfText(c.header), x + PAD, y + PAD, { width: widths[i] - 2 * PAD, align: c.align ?? 'left' });
     x += widths[i];
   });
-  doc.moveTo(PAGE.marginX, y + h).lineTo(PAGE.marginX + CONTENT_WIDTH, y + h).lineWidth(0.8).strokeColor(COLOR.ink).stroke();
+  doc
+    .moveTo(PAGE.marginX, y + h)
+    .lineTo(PAGE.marginX + CONTENT_WIDTH, y + h)
+    .lineWidth(0.8)
+    .strokeColor(COLOR.ink)
+    .stroke();
   doc.y = y + h + 1;
 }
 
@@ -101,10 +114,17 @@ export function table(doc: Doc, columns: Column[], rows: TableRow[], options: { 
     const y = doc.y;
     if (row.band) {
       doc.rect(PAGE.marginX, y, CONTENT_WIDTH, h).fill(COLOR.shade);
-      doc.font(FONT.semibold).fontSize(size).fillColor(COLOR.ink).text(pdfText(row.cells[0]), PAGE.marginX + PAD, y + PAD, { width: CONTENT_WIDTH - 2 * PAD });
+      doc
+        .font(FONT.semibold)
+        .fontSize(size)
+        .fillColor(COLOR.ink)
+        .text(pdfText(row.cells[0]), PAGE.marginX + PAD, y + PAD, { width: CONTENT_WIDTH - 2 * PAD });
     } else {
       if (r % 2 === 1) doc.rect(PAGE.marginX, y, CONTENT_WIDTH, h).fill(COLOR.zebra);
-      doc.font(row.bold ? FONT.semibold : FONT.regular).fontSize(size).fillColor(COLOR.ink);
+      doc
+        .font(row.bold ? FONT.semibold : FONT.regular)
+        .fontSize(size)
+        .fillColor(COLOR.ink);
       let x = PAGE.marginX;
       row.cells.forEach((cell, i) => {
         doc.text(pdfText(cell), x + PAD, y + PAD, { width: widths[i] - 2 * PAD, align: columns[i].align ?? 'left', lineGap: 0.5 });
@@ -113,7 +133,12 @@ export function table(doc: Doc, columns: Column[], rows: TableRow[], options: { 
     }
     doc.y = y + h;
   });
-  doc.moveTo(PAGE.marginX, doc.y).lineTo(PAGE.marginX + CONTENT_WIDTH, doc.y).lineWidth(0.5).strokeColor(COLOR.rule).stroke();
+  doc
+    .moveTo(PAGE.marginX, doc.y)
+    .lineTo(PAGE.marginX + CONTENT_WIDTH, doc.y)
+    .lineWidth(0.5)
+    .strokeColor(COLOR.rule)
+    .stroke();
   doc.x = PAGE.marginX;
   doc.moveDown(0.5);
 }
@@ -131,7 +156,10 @@ export function facts(doc: Doc, pairs: [string, string][]): void {
     row.forEach(([label, value], k) => {
       const x = PAGE.marginX + k * colWidth;
       doc.font(FONT.semibold).fillColor(COLOR.muted).text(pdfText(label), x, y, { width: labelWidth });
-      doc.font(FONT.regular).fillColor(COLOR.ink).text(pdfText(value), x + labelWidth, y, { width: colWidth - labelWidth - 8 });
+      doc
+        .font(FONT.regular)
+        .fillColor(COLOR.ink)
+        .text(pdfText(value), x + labelWidth, y, { width: colWidth - labelWidth - 8 });
     });
     doc.y = y + h;
   }

@@ -15,7 +15,9 @@ export function methodNotesSection(doc: Doc, view: CaseView): void {
   const chosen = new Set(chosenMethods(view).map((m) => m.id));
   for (const m of caseMethods(view)) {
     subheading(doc, `${m.name}${chosen.has(m.id) ? ' (in the recommended schedule)' : ''}`);
-    const source = m.typical ? 'Values: typical orders of magnitude (common practice), not the plant’s own quotes.' : 'Values: the organisation’s method library.';
+    const source = m.typical
+      ? 'Values: typical orders of magnitude (common practice), not the plant’s own quotes.'
+      : 'Values: the organisation’s method library.';
     paragraph(doc, m.note ? `${m.note}` : 'No note or source recorded with this method.', { size: SIZE.small });
     if (!m.note || !m.typical) paragraph(doc, source, { size: SIZE.small, color: COLOR.muted });
   }

@@ -22,16 +22,32 @@ export function framePages(doc: PDFKit.PDFDocument, view: CaseView, ctx: CaseRep
     doc.page.margins = { top: 0, bottom: 0, left: 0, right: 0 };
     if (mark) {
       doc.rect(0, 18, PAGE.width, 24).fill(COLOR.markBand);
-      doc.font(FONT.bold).fontSize(SIZE.small).fillColor(COLOR.markInk).text(pdfText(mark), PAGE.marginX, 26, { width: CONTENT_WIDTH, align: 'center', lineBreak: false });
+      doc
+        .font(FONT.bold)
+        .fontSize(SIZE.small)
+        .fillColor(COLOR.markInk)
+        .text(pdfText(mark), PAGE.marginX, 26, { width: CONTENT_WIDTH, align: 'center', lineBreak: false });
     } else {
-      doc.font(FONT.semibold).fontSize(SIZE.tiny).fillColor(COLOR.muted).text(pdfText(`Approved case · ${view.title}`), PAGE.marginX, 28, { width: CONTENT_WIDTH, lineBreak: false, ellipsis: true });
+      doc
+        .font(FONT.semibold)
+        .fontSize(SIZE.tiny)
+        .fillColor(COLOR.muted)
+        .text(pdfText(`Approved case · ${view.title}`), PAGE.marginX, 28, { width: CONTENT_WIDTH, lineBreak: false, ellipsis: true });
     }
     const y = PAGE.height - 40;
-    doc.moveTo(PAGE.marginX, y - 6).lineTo(PAGE.marginX + CONTENT_WIDTH, y - 6).lineWidth(0.5).strokeColor(COLOR.rule).stroke();
+    doc
+      .moveTo(PAGE.marginX, y - 6)
+      .lineTo(PAGE.marginX + CONTENT_WIDTH, y - 6)
+      .lineWidth(0.5)
+      .strokeColor(COLOR.rule)
+      .stroke();
     doc.font(FONT.regular).fontSize(SIZE.tiny).fillColor(COLOR.muted);
     doc.text(footerLeft, PAGE.marginX, y, { width: CONTENT_WIDTH - 90, lineBreak: false, ellipsis: true });
     doc.text(`Page ${i - range.start + 1} of ${range.count}`, PAGE.marginX + CONTENT_WIDTH - 90, y, { width: 90, align: 'right', lineBreak: false });
-    doc.text(pdfText(`${generated} · Estimates from the data and assumptions shown. · Cleancase`), PAGE.marginX, y + 10, { width: CONTENT_WIDTH, lineBreak: false });
+    doc.text(pdfText(`${generated} · Estimates from the data and assumptions shown. · Cleancase`), PAGE.marginX, y + 10, {
+      width: CONTENT_WIDTH,
+      lineBreak: false,
+    });
     doc.page.margins = margins;
   }
 }

@@ -5,7 +5,7 @@
  */
 import { coveredCodePoints } from './fonts.js';
 
-const SPELLED: Record<string, string> = { '→': '->', '←': '<-', '≥': '>=', '≤': '<=', '≈': '~', 'Δ': 'delta ', '₀': '0', 'ł': 'l', 'Ł': 'L' };
+const SPELLED: Record<string, string> = { '→': '->', '←': '<-', '≥': '>=', '≤': '<=', '≈': '~', Δ: 'delta ', '₀': '0', ł: 'l', Ł: 'L' };
 
 function drawable(cp: number): boolean {
   return coveredCodePoints().some(([from, to]) => cp >= from && cp <= to);

@@ -17,7 +17,12 @@ export function renderCasePdf(view: CaseView, ctx: CaseReportContext): Promise<B
     margins: { top: PAGE.marginTop, bottom: PAGE.marginBottom, left: PAGE.marginX, right: PAGE.marginX },
     bufferPages: true,
     font: regularFontPath(),
-    info: { Title: pdfText(view.title), Author: pdfText(view.author.name), Subject: pdfText(`Condenser cleaning case, ${view.plantName} ${view.unitName}`), Creator: 'Cleancase' },
+    info: {
+      Title: pdfText(view.title),
+      Author: pdfText(view.author.name),
+      Subject: pdfText(`Condenser cleaning case, ${view.plantName} ${view.unitName}`),
+      Creator: 'Cleancase',
+    },
   });
   registerFonts(doc);
   doc.font(FONT.regular);

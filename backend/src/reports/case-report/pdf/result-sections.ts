@@ -55,7 +55,8 @@ export function scheduleSection(doc: Doc, view: CaseView): void {
   subheading(doc, `Baseline: ${baselineText(view)}`);
   if (r.baseline.cleanings.length) table(doc, CLEANING_COLUMNS, cleaningRows(r.baseline.cleanings, view.currency));
   else paragraph(doc, 'The baseline has no cleaning in the horizon.', { size: SIZE.small });
-  if (r.baseline.ruleBreaks.length) paragraph(doc, `The baseline breaks these rules: ${r.baseline.ruleBreaks.join('; ')}`, { size: SIZE.small, color: COLOR.muted });
+  if (r.baseline.ruleBreaks.length)
+    paragraph(doc, `The baseline breaks these rules: ${r.baseline.ruleBreaks.join('; ')}`, { size: SIZE.small, color: COLOR.muted });
 
   subheading(doc, 'Costs over the horizon');
   const money = (v: number) => formatCurrency(v, view.currency);
@@ -104,9 +105,13 @@ export function cashflowSection(doc: Doc, view: CaseView): void {
       ],
     })),
   );
-  paragraph(doc, `Net present value at ${formatPercent(view.inputs.discountRate)}: ${money(view.results.businessCase.npv)} (cash flows at the end of each year, the upfront cost at the start).`, {
-    size: SIZE.small,
-  });
+  paragraph(
+    doc,
+    `Net present value at ${formatPercent(view.inputs.discountRate)}: ${money(view.results.businessCase.npv)} (cash flows at the end of each year, the upfront cost at the start).`,
+    {
+      size: SIZE.small,
+    },
+  );
 }
 
 export function uncertaintySection(doc: Doc, view: CaseView): void {
@@ -150,9 +155,13 @@ export function uncertaintySection(doc: Doc, view: CaseView): void {
         },
       ],
     );
-    paragraph(doc, 'P10 is the NPV that nine trials in ten exceed; P90 the one that one trial in ten exceeds. Inputs vary independently, each on a triangular distribution over its low, base and high values.', {
-      size: SIZE.tiny,
-      color: COLOR.muted,
-    });
+    paragraph(
+      doc,
+      'P10 is the NPV that nine trials in ten exceed; P90 the one that one trial in ten exceeds. Inputs vary independently, each on a triangular distribution over its low, base and high values.',
+      {
+        size: SIZE.tiny,
+        color: COLOR.muted,
+      },
+    );
   }
 }

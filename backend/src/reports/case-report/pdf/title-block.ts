@@ -13,7 +13,11 @@ import { COLOR, CONTENT_WIDTH, PAGE, SIZE } from './theme.js';
 type Doc = PDFKit.PDFDocument;
 
 export function titleBlock(doc: Doc, view: CaseView, ctx: CaseReportContext): void {
-  doc.font(FONT.semibold).fontSize(SIZE.small).fillColor(COLOR.accent).text(pdfText(`Condenser cleaning case · ${ctx.organisationName}`), PAGE.marginX, doc.y, { width: CONTENT_WIDTH });
+  doc
+    .font(FONT.semibold)
+    .fontSize(SIZE.small)
+    .fillColor(COLOR.accent)
+    .text(pdfText(`Condenser cleaning case · ${ctx.organisationName}`), PAGE.marginX, doc.y, { width: CONTENT_WIDTH });
   doc.moveDown(0.2);
   doc.font(FONT.bold).fontSize(SIZE.title).fillColor(COLOR.ink).text(pdfText(view.title), { width: CONTENT_WIDTH });
   doc.moveDown(0.5);
@@ -34,7 +38,11 @@ export function titleBlock(doc: Doc, view: CaseView, ctx: CaseReportContext): vo
   facts(doc, pairs);
   if (view.returnReason !== null && view.status === 'returned') paragraph(doc, `Returned because: ${view.returnReason}`, { color: COLOR.markInk });
   const mark = notApprovedMark(view);
-  if (mark) paragraph(doc, 'This case is not approved: its figures are for discussion and are not a budget document until an approver approves it.', { color: COLOR.markInk, font: FONT.semibold });
+  if (mark)
+    paragraph(doc, 'This case is not approved: its figures are for discussion and are not a budget document until an approver approves it.', {
+      color: COLOR.markInk,
+      font: FONT.semibold,
+    });
 
   heading(doc, 'Recommendation');
   paragraph(doc, recommendationText(view), { size: 10.5 });
@@ -64,8 +72,16 @@ function keyFigures(doc: Doc, view: CaseView): void {
     const x = PAGE.marginX + (i % cols) * w;
     const y = top + Math.floor(i / cols) * (h + 6);
     doc.rect(x + 2, y, w - 4, h).fill(COLOR.zebra);
-    doc.font(FONT.regular).fontSize(SIZE.tiny).fillColor(COLOR.muted).text(pdfText(label), x + 9, y + 6, { width: w - 18, lineBreak: false });
-    doc.font(FONT.bold).fontSize(12).fillColor(COLOR.ink).text(pdfText(value), x + 9, y + 17, { width: w - 18, lineBreak: false });
+    doc
+      .font(FONT.regular)
+      .fontSize(SIZE.tiny)
+      .fillColor(COLOR.muted)
+      .text(pdfText(label), x + 9, y + 6, { width: w - 18, lineBreak: false });
+    doc
+      .font(FONT.bold)
+      .fontSize(12)
+      .fillColor(COLOR.ink)
+      .text(pdfText(value), x + 9, y + 17, { width: w - 18, lineBreak: false });
   });
   doc.y = top + Math.ceil(tiles.length / cols) * (h + 6);
   doc.x = PAGE.marginX;

@@ -62,7 +62,14 @@ function summary(wb: ExcelJS.Workbook, view: CaseView, ctx: CaseReportContext): 
     ['Engine and data', dataBasisLine(view)],
     ['Report made', dayOf(ctx.generatedAt, tz)],
   );
-  fillSheet(wb.addWorksheet('Summary'), [{ header: 'Item', width: 30 }, { header: 'Value', width: 90 }], rows);
+  fillSheet(
+    wb.addWorksheet('Summary'),
+    [
+      { header: 'Item', width: 30 },
+      { header: 'Value', width: 90 },
+    ],
+    rows,
+  );
 }
 
 function inputs(wb: ExcelJS.Workbook, view: CaseView): void {

@@ -23,8 +23,21 @@ export function cashflowChart(doc: Doc, box: Box, rows: YearlyRow[], currency: s
     doc.rect(cx - barWidth / 2, top, barWidth, height).fill(r.cashflow < 0 ? COLOR.negative : COLOR.positive);
     const label = pdfText(formatCurrency(r.cashflow, currency));
     const ly = r.cashflow < 0 ? y(r.cashflow) + 2 : top - 10;
-    doc.font(FONT.semibold).fontSize(SIZE.tiny).fillColor(COLOR.ink).text(label, cx - slot / 2, ly, { width: slot, align: 'center', lineBreak: false });
+    doc
+      .font(FONT.semibold)
+      .fontSize(SIZE.tiny)
+      .fillColor(COLOR.ink)
+      .text(label, cx - slot / 2, ly, { width: slot, align: 'center', lineBreak: false });
   });
-  doc.moveTo(box.x, y(0)).lineTo(box.x + box.width, y(0)).lineWidth(0.8).strokeColor(COLOR.ink).stroke();
-  xAxis(doc, box, rows.map((r, i) => ({ at: box.x + slot * (i + 0.5), label: r.label })));
+  doc
+    .moveTo(box.x, y(0))
+    .lineTo(box.x + box.width, y(0))
+    .lineWidth(0.8)
+    .strokeColor(COLOR.ink)
+    .stroke();
+  xAxis(
+    doc,
+    box,
+    rows.map((r, i) => ({ at: box.x + slot * (i + 0.5), label: r.label })),
+  );
 }

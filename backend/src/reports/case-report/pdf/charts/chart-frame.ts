@@ -43,15 +43,31 @@ export function niceDomain(min: number, max: number, count = 5): [number, number
 /** Money on an axis, short: "$250K", "-$1.2M". */
 export function compactMoney(value: number, currency: string): string {
   try {
-    return new Intl.NumberFormat('en-US', { style: 'currency', currency, notation: 'compact', minimumFractionDigits: 0, maximumFractionDigits: 1, signDisplay: 'negative' }).format(value);
+    return new Intl.NumberFormat('en-US', {
+      style: 'currency',
+      currency,
+      notation: 'compact',
+      minimumFractionDigits: 0,
+      maximumFractionDigits: 1,
+      signDisplay: 'negative',
+    }).format(value);
   } catch {
     return `${currency} ${new Intl.NumberFormat('en-US', { notation: 'compact', maximumFractionDigits: 1 }).format(value)}`;
   }
 }
 
 export function chartTitle(doc: Doc, box: Box, title: string, note?: string): void {
-  doc.font(FONT.semibold).fontSize(SIZE.subheading).fillColor(COLOR.ink).text(pdfText(title), box.x, box.y - 30, { width: box.width, lineBreak: false });
-  if (note) doc.font(FONT.regular).fontSize(SIZE.tiny).fillColor(COLOR.muted).text(pdfText(note), box.x, box.y - 16, { width: box.width, lineBreak: false });
+  doc
+    .font(FONT.semibold)
+    .fontSize(SIZE.subheading)
+    .fillColor(COLOR.ink)
+    .text(pdfText(title), box.x, box.y - 30, { width: box.width, lineBreak: false });
+  if (note)
+    doc
+      .font(FONT.regular)
+      .fontSize(SIZE.tiny)
+      .fillColor(COLOR.muted)
+      .text(pdfText(note), box.x, box.y - 16, { width: box.width, lineBreak: false });
 }
 
 /** Horizontal grid lines with labels on the left. */
@@ -59,18 +75,39 @@ export function yAxis(doc: Doc, box: Box, ticks: number[], y: Scale, label: (v: 
   doc.lineWidth(0.4).strokeColor(COLOR.rule);
   for (const t of ticks) {
     const py = y(t);
-    doc.moveTo(box.x, py).lineTo(box.x + box.width, py).stroke();
-    doc.font(FONT.regular).fontSize(SIZE.tiny).fillColor(COLOR.muted).text(pdfText(label(t)), box.x - 52, py - 3.5, { width: 48, align: 'right', lineBreak: false });
+    doc
+      .moveTo(box.x, py)
+      .lineTo(box.x + box.width, py)
+      .stroke();
+    doc
+      .font(FONT.regular)
+      .fontSize(SIZE.tiny)
+      .fillColor(COLOR.muted)
+      .text(pdfText(label(t)), box.x - 52, py - 3.5, { width: 48, align: 'right', lineBreak: false });
   }
 }
 
 /** Vertical ticks with labels below the plot area. */
 export function xAxis(doc: Doc, box: Box, ticks: { at: number; label: string }[]): void {
   const base = box.y + box.height;
-  doc.moveTo(box.x, base).lineTo(box.x + box.width, base).lineWidth(0.6).strokeColor(COLOR.muted).stroke();
+  doc
+    .moveTo(box.x, base)
+    .lineTo(box.x + box.width, base)
+    .lineWidth(0.6)
+    .strokeColor(COLOR.muted)
+    .stroke();
   for (const t of ticks) {
-    doc.moveTo(t.at, base).lineTo(t.at, base + 3).lineWidth(0.6).strokeColor(COLOR.muted).stroke();
-    doc.font(FONT.regular).fontSize(SIZE.tiny).fillColor(COLOR.muted).text(pdfText(t.label), t.at - 30, base + 5, { width: 60, align: 'center', lineBreak: false });
+    doc
+      .moveTo(t.at, base)
+      .lineTo(t.at, base + 3)
+      .lineWidth(0.6)
+      .strokeColor(COLOR.muted)
+      .stroke();
+    doc
+      .font(FONT.regular)
+      .fontSize(SIZE.tiny)
+      .fillColor(COLOR.muted)
+      .text(pdfText(t.label), t.at - 30, base + 5, { width: 60, align: 'center', lineBreak: false });
   }
 }
 
@@ -81,7 +118,12 @@ export function legend(doc: Doc, x: number, y: number, items: { color: string; l
   for (const item of items) {
     if (item.kind === 'line' || item.kind === 'dash') {
       if (item.kind === 'dash') doc.dash(2.5, { space: 2 });
-      doc.moveTo(cx, y + 3.5).lineTo(cx + 12, y + 3.5).lineWidth(1.2).strokeColor(item.color).stroke();
+      doc
+        .moveTo(cx, y + 3.5)
+        .lineTo(cx + 12, y + 3.5)
+        .lineWidth(1.2)
+        .strokeColor(item.color)
+        .stroke();
       doc.undash();
     } else {
       doc.rect(cx, y + 0.5, 10, 6).fill(item.color);

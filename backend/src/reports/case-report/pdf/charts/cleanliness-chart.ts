@@ -46,22 +46,46 @@ export function cleanlinessChart(doc: Doc, box: Box, view: CaseView): void {
     if (to > from) doc.rect(x(from), box.y, x(to) - x(from), box.height).fill(COLOR.shade);
   }
   yAxis(doc, box, niceTicks(lo, hi, 5), y, (v) => formatNumber(v, 2));
-  xAxis(doc, box, monthTicks(startDate, horizonDays).map((t) => ({ at: x(t.day), label: t.label })));
+  xAxis(
+    doc,
+    box,
+    monthTicks(startDate, horizonDays).map((t) => ({ at: x(t.day), label: t.label })),
+  );
 
-  doc.dash(3, { space: 2 }).moveTo(box.x, y(ref)).lineTo(box.x + box.width, y(ref)).lineWidth(0.8).strokeColor(COLOR.muted).stroke().undash();
+  doc
+    .dash(3, { space: 2 })
+    .moveTo(box.x, y(ref))
+    .lineTo(box.x + box.width, y(ref))
+    .lineWidth(0.8)
+    .strokeColor(COLOR.muted)
+    .stroke()
+    .undash();
 
   if (daily.length > 0) {
     daily.forEach((d, i) => (i === 0 ? doc.moveTo(x(i + 0.5), y(d.cleanliness)) : doc.lineTo(x(i + 0.5), y(d.cleanliness))));
     doc.lineWidth(1.2).lineJoin('round').strokeColor(COLOR.accent).stroke();
   } else {
-    doc.font(FONT.regular).fontSize(SIZE.small).fillColor(COLOR.muted).text('The daily path was not kept with this case.', box.x + 10, box.y + box.height / 2, { lineBreak: false });
+    doc
+      .font(FONT.regular)
+      .fontSize(SIZE.small)
+      .fillColor(COLOR.muted)
+      .text('The daily path was not kept with this case.', box.x + 10, box.y + box.height / 2, { lineBreak: false });
   }
 
   view.results.cleanings.forEach((c, i) => {
     const at = x(daysBetween(startDate, c.date));
-    doc.moveTo(at, box.y + 8).lineTo(at, box.y + box.height).lineWidth(0.8).strokeColor(COLOR.negative).stroke();
+    doc
+      .moveTo(at, box.y + 8)
+      .lineTo(at, box.y + box.height)
+      .lineWidth(0.8)
+      .strokeColor(COLOR.negative)
+      .stroke();
     doc.circle(at, box.y + 4, 5.5).fill(COLOR.negative);
-    doc.font(FONT.bold).fontSize(SIZE.tiny).fillColor('#ffffff').text(String(i + 1), at - 5.5, box.y + 1.2, { width: 11, align: 'center', lineBreak: false });
+    doc
+      .font(FONT.bold)
+      .fontSize(SIZE.tiny)
+      .fillColor('#ffffff')
+      .text(String(i + 1), at - 5.5, box.y + 1.2, { width: 11, align: 'center', lineBreak: false });
   });
 
   legend(doc, box.x, box.y + box.height + 20, [

@@ -28,7 +28,13 @@ export function npvHistogram(doc: Doc, box: Box, mc: MonteCarlo, currency: strin
     const fill = b.to <= 0 ? COLOR.negative : COLOR.accentLight;
     if (b.count > 0) doc.rect(left + 0.4, top, w, plot.y + plot.height - top).fill(fill);
   }
-  if (from < 0 && to > 0) doc.moveTo(x(0), plot.y).lineTo(x(0), plot.y + plot.height).lineWidth(0.8).strokeColor(COLOR.ink).stroke();
+  if (from < 0 && to > 0)
+    doc
+      .moveTo(x(0), plot.y)
+      .lineTo(x(0), plot.y + plot.height)
+      .lineWidth(0.8)
+      .strokeColor(COLOR.ink)
+      .stroke();
   // P10, P50 and P90 on three label rows so close values never print over each other
   const marks: [string, number][] = [
     ['P10', mc.p10Npv],
@@ -38,12 +44,23 @@ export function npvHistogram(doc: Doc, box: Box, mc: MonteCarlo, currency: strin
   marks.forEach(([name, value], i) => {
     const at = x(value);
     const labelY = box.y + i * 10;
-    doc.moveTo(at, labelY + 9).lineTo(at, plot.y + plot.height).lineWidth(0.9).strokeColor(COLOR.ink).dash(2, { space: 1.5 }).stroke().undash();
+    doc
+      .moveTo(at, labelY + 9)
+      .lineTo(at, plot.y + plot.height)
+      .lineWidth(0.9)
+      .strokeColor(COLOR.ink)
+      .dash(2, { space: 1.5 })
+      .stroke()
+      .undash();
     const text = pdfText(`${name} ${formatCurrency(value, currency)}`);
     doc.font(FONT.semibold).fontSize(SIZE.tiny).fillColor(COLOR.ink);
     const w = doc.widthOfString(text);
     const left = Math.min(Math.max(at - w / 2, box.x), box.x + box.width - w);
     doc.text(text, left, labelY, { lineBreak: false });
   });
-  xAxis(doc, plot, niceTicks(from, to, 6).map((t) => ({ at: x(t), label: compactMoney(t, currency) })));
+  xAxis(
+    doc,
+    plot,
+    niceTicks(from, to, 6).map((t) => ({ at: x(t), label: compactMoney(t, currency) })),
+  );
 }

@@ -35,12 +35,24 @@ export function sensitivityChart(doc: Doc, outer: Box, s: Sensitivity, currency:
   const rowH = box.height / bars.length;
   const ticks = niceTicks(lo, hi, 5);
   doc.lineWidth(0.4).strokeColor(COLOR.rule);
-  for (const t of ticks) doc.moveTo(x(t), box.y).lineTo(x(t), box.y + box.height).stroke();
+  for (const t of ticks)
+    doc
+      .moveTo(x(t), box.y)
+      .lineTo(x(t), box.y + box.height)
+      .stroke();
   bars.forEach((b, i) => {
     const cy = box.y + rowH * i + rowH / 2;
     const label = UNCERTAIN_INPUT_LABELS[b.input].name;
-    doc.font(FONT.semibold).fontSize(SIZE.tiny).fillColor(COLOR.ink).text(pdfText(label), outer.x, cy - 7, { width: LABEL_WIDTH - 8, lineBreak: false });
-    doc.font(FONT.regular).fontSize(SIZE.tiny).fillColor(COLOR.muted).text(pdfText(rangeText(b)), outer.x, cy + 1, { width: LABEL_WIDTH - 8, lineBreak: false });
+    doc
+      .font(FONT.semibold)
+      .fontSize(SIZE.tiny)
+      .fillColor(COLOR.ink)
+      .text(pdfText(label), outer.x, cy - 7, { width: LABEL_WIDTH - 8, lineBreak: false });
+    doc
+      .font(FONT.regular)
+      .fontSize(SIZE.tiny)
+      .fillColor(COLOR.muted)
+      .text(pdfText(rangeText(b)), outer.x, cy + 1, { width: LABEL_WIDTH - 8, lineBreak: false });
     const base = x(s.baseNpv);
     const h = Math.min(12, rowH * 0.6);
     for (const [npv, color] of [
@@ -51,8 +63,17 @@ export function sensitivityChart(doc: Doc, outer: Box, s: Sensitivity, currency:
       doc.rect(Math.min(base, end), cy - h / 2, Math.max(0.6, Math.abs(end - base)), h).fill(color);
     }
   });
-  doc.moveTo(x(s.baseNpv), box.y - 2).lineTo(x(s.baseNpv), box.y + box.height).lineWidth(1).strokeColor(COLOR.ink).stroke();
-  xAxis(doc, box, ticks.map((t) => ({ at: x(t), label: compactMoney(t, currency) })));
+  doc
+    .moveTo(x(s.baseNpv), box.y - 2)
+    .lineTo(x(s.baseNpv), box.y + box.height)
+    .lineWidth(1)
+    .strokeColor(COLOR.ink)
+    .stroke();
+  xAxis(
+    doc,
+    box,
+    ticks.map((t) => ({ at: x(t), label: compactMoney(t, currency) })),
+  );
   legend(doc, box.x, box.y + box.height + 20, [
     { color: COLOR.accentLight, label: 'NPV with the input at its low value' },
     { color: COLOR.accent, label: 'at its high value' },
