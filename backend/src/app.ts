@@ -20,6 +20,7 @@ import { accountRoutes } from './routes/account.routes.js';
 import { apiTokenRoutes } from './routes/api-token.routes.js';
 import { auditRoutes } from './routes/audit.routes.js';
 import { calcRoutes } from './routes/calc.routes.js';
+import { caseRoutes } from './routes/case.routes.js';
 import { cleaningMethodRoutes } from './routes/cleaning-method.routes.js';
 import { clientGroupRoutes } from './routes/client-group.routes.js';
 import { devMailboxRoutes } from './routes/dev-mailbox.routes.js';
@@ -122,6 +123,7 @@ export function createApp(deps: AppDeps): CleancaseApp {
     ...cleaningMethodRoutes(dataSource),
     ...unitRoutes(dataSource),
     ...unitHealthRoutes(dataSource),
+    ...caseRoutes(dataSource, config),
     ...importRoutes(dataSource, config),
     ...calcRoutes(),
     ...(withGoogle ? googleAuthRoutes(auth) : []),

@@ -13,7 +13,9 @@ import type { GeneratingUnit } from '../../backend/src/entities/generating-unit.
 import { createMethod } from '../../backend/src/services/cleaning-method.service.js';
 import { TYPICAL_CLEANING_METHODS } from '../../shared/schemas/cleaning-method.js';
 import { addMember, createTenant, createUser, CSRF, signedInAgent, type TenantFixture } from '../factories/accounts.js';
+import { createCaseRecord } from '../factories/cases.js';
 import { createEvent, createPlant, createUnit } from '../factories/units.js';
+import { CleaningCase } from '../../backend/src/entities/cleaning-case.entity.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 
 let t: TestApp;
@@ -99,5 +101,44 @@ describe('client group named by a plant', () => {
     await limited.put(`/api/plants/${plant.id}`).set(CSRF).send(plantBody(a.groups[1].id)).expect(400);
     await limited.put(`/api/plants/${plant.id}`).set(CSRF).send(plantBody(null)).expect(400);
     expect((await t.dataSource.getRepository(Plant).findOneByOrFail({ id: plant.id })).clientGroupId).toBe(a.groups[0].id);
+  });
+});
+
+describe('cleaning case named by its id', () => {
+  const caseCalls = (id: string): [string, string, object | undefined][] => [
+    ['get', `/api/cases/${id}`, undefined],
+    ['patch', `/api/cases/${id}`, { title: 'Taken over' }],
+    ['post', `/api/cases/${id}/submit`, {}],
+    ['post', `/api/cases/${id}/approve`, {}],
+    ['post', `/api/cases/${id}/return`, { reason: 'Not yours' }],
+    ['post', `/api/cases/${id}/archive`, {}],
+    ['post', `/api/cases/${id}/copy`, {}],
+    ['get', `/api/cases/${id}/comments`, undefined],
+    ['post', `/api/cases/${id}/comments`, { text: 'Not yours' }],
+  ];
+  const call = (agent: TestAgent, [method, path, body]: [string, string, object | undefined]) => {
+    const req = (agent as unknown as Record<string, (p: string) => ReturnType<TestAgent['get']>>)[method](path);
+    return method === 'get' ? req : req.set(CSRF).send(body);
+  };
+
+  it('another tenant’s case is not found by any case route, and stays as it was', async () => {
+    const c = await createCaseRecord(t.dataSource, unit, a.users.analyst.id, 'submitted');
+    const foreignAdmin = await signedInAgent(t.app, b.users.admin.email);
+    for (const target of caseCalls(c.id)) expect((await call(foreignAdmin, target)).status, target.join(' ')).toBe(404);
+    expect((await foreignAdmin.get(`/api/units/${unit.id}/cases`)).status).toBe(404);
+    expect((await foreignAdmin.get(`/api/cases?unitId=${unit.id}`)).status).toBe(404);
+    const after = await t.dataSource.getRepository(CleaningCase).findOneByOrFail({ id: c.id });
+    expect(after.status).toBe('submitted');
+    expect(after.title).toBe(c.title);
+  });
+
+  it('a member limited to client groups does not find a case on a unit outside their groups', async () => {
+    const c = await createCaseRecord(t.dataSource, unit, a.users.analyst.id, 'submitted');
+    const user = await createUser(t.dataSource, 'limited-admin-cases');
+    await addMember(t.dataSource, a.organisation.id, user, 'admin', [a.groups[1].id]);
+    const limited = await signedInAgent(t.app, user.email);
+    for (const target of caseCalls(c.id)) expect((await call(limited, target)).status, target.join(' ')).toBe(404);
+    expect(((await limited.get('/api/cases').expect(200)).body.cases as { id: string }[]).map((x) => x.id)).not.toContain(c.id);
+    expect((await t.dataSource.getRepository(CleaningCase).findOneByOrFail({ id: c.id })).status).toBe('submitted');
   });
 });

@@ -17,6 +17,7 @@ import { startGoogleFake, type GoogleFake } from '../../scripts/lib/local-servic
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import type { GeneratingUnit } from '../../backend/src/entities/generating-unit.entity.js';
 import type { Plant } from '../../backend/src/entities/plant.entity.js';
+import { createCaseRecord } from '../factories/cases.js';
 import { createEvent, createPendingImport, createPlant, createUnit, TEST_CONDENSER, TEST_ECONOMICS, TEST_TURBINE } from '../factories/units.js';
 
 type Caller = 'anonymous' | Role | 'otherTenant' | 'otherGroup';
@@ -53,6 +54,8 @@ const writers = (ok: number, extra: Partial<Record<Caller, number>> = {}) =>
 const readers = (ok: number) => members(ok, { otherTenant: 404, otherGroup: 404 });
 const freshPlant = async (fx: Fixture) => createPlant(ds(), fx.a.organisation.id, groupOne(fx));
 const freshUnit = async (fx: Fixture) => createUnit(ds(), await freshPlant(fx));
+const freshCase = (fx: Fixture, status: 'draft' | 'submitted' | 'approved' = 'draft') => createCaseRecord(ds(), fx.unit, fx.a.users.analyst.id, status);
+const deciders = (ok: number) => members(ok, { analyst: 403, viewer: 403, otherTenant: 404, otherGroup: 404 });
 const freshMethod = (fx: Fixture) =>
   createMethod(ds(), { organisationId: fx.a.organisation.id, userId: fx.a.users.admin.id, role: 'admin', clientGroupIds: null }, { ...TYPICAL_CLEANING_METHODS[2], id: `m-${Math.random().toString(36).slice(2, 10)}` });
 const plantBody = (fx: Fixture) => ({ name: `Plant ${Math.random().toString(36).slice(2)}`, timeZone: 'Europe/Berlin', clientGroupId: groupOne(fx) });
@@ -186,6 +189,21 @@ const MATRIX: Record<string, Entry> = {
   'POST /api/imports/:id/start': { path: async (fx) => `/api/imports/${(await createPendingImport(ds(), fx.unit)).id}/start`, body: () => ({ mapping: {} }), expect: writers(400) },
   'GET /api/imports/:id/errors.csv': { path: async (fx) => `/api/imports/${(await createPendingImport(ds(), fx.unit)).id}/errors.csv`, expect: readers(200) },
   'DELETE /api/imports/:id': { path: async (fx) => `/api/imports/${(await createPendingImport(ds(), fx.unit)).id}`, expect: writers(200) },
+  // Cleaning cases: the fixture unit has setup but no history, so a case cannot be built on it (409); cases are written directly.
+  'GET /api/cases': { expect: members(200) },
+  'GET /api/units/:id/cases': { path: (fx) => `/api/units/${fx.unit.id}/cases`, expect: readers(200) },
+  'POST /api/units/:id/cases': { path: (fx) => `/api/units/${fx.unit.id}/cases`, body: () => ({ title: 'Spring cleaning' }), expect: writers(409) },
+  // A draft: viewers see approved cases only.
+  'GET /api/cases/:id': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}`, expect: members(200, { viewer: 404, otherTenant: 404, otherGroup: 404 }) },
+  'PATCH /api/cases/:id': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}`, body: () => ({ title: 'Renamed case' }), expect: writers(200) },
+  'POST /api/cases/:id/submit': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}/submit`, expect: writers(200) },
+  // Written by the analyst: approvers and administrators decide; the analyst's role cannot.
+  'POST /api/cases/:id/approve': { path: async (fx) => `/api/cases/${(await freshCase(fx, 'submitted')).id}/approve`, expect: deciders(200) },
+  'POST /api/cases/:id/return': { path: async (fx) => `/api/cases/${(await freshCase(fx, 'submitted')).id}/return`, body: () => ({ reason: 'Price it again' }), expect: deciders(200) },
+  'POST /api/cases/:id/archive': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}/archive`, expect: writers(200) },
+  'POST /api/cases/:id/copy': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}/copy`, expect: writers(409) },
+  'GET /api/cases/:id/comments': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}/comments`, expect: members(200, { viewer: 404, otherTenant: 404, otherGroup: 404 }) },
+  'POST /api/cases/:id/comments': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}/comments`, body: () => ({ text: 'Checked the outage plan' }), expect: members(201, { viewer: 404, otherTenant: 404, otherGroup: 404 }) },
 };
 
 let t: TestApp;

@@ -22,6 +22,8 @@ export class CleaningCase {
   @Column({ type: 'json' }) inputSources: InputSources;
   @Column({ type: 'json' }) results: CalcScheduleOutput;
   @Column({ type: 'varchar', length: 32 }) engineVersion: string;
+  /** the unit's currency when the case was built (ISO 4217): part of the snapshot */
+  @Column({ type: 'char', length: 3 }) currency: string;
   /** the unit's last day of data when the case was built (null: none) */
   @Column({ type: 'date', nullable: true }) lastDataDay: string | null;
   @Column({ type: 'int' }) setupVersion: number;

@@ -61,3 +61,46 @@ export function addressConfirmationMail(p: { to: string; link: string; expiresAt
     ].join('\n'),
   };
 }
+
+/** To each approver and administrator who sees the unit, when a cleaning case is submitted for a decision. */
+export function caseSubmittedMail(p: {
+  to: string;
+  caseTitle: string;
+  unitName: string;
+  plantName: string;
+  submitterName: string;
+  link: string;
+}): OutgoingMail {
+  const title = plainName(p.caseTitle, 'A cleaning case', 120);
+  const submitter = plainName(p.submitterName, 'A colleague');
+  const where = `${plainName(p.unitName, 'a unit')} at ${plainName(p.plantName, 'a plant')}`;
+  return {
+    to: p.to,
+    subject: `Cleaning case for your decision: ${title}`,
+    text: [`${submitter} submitted the cleaning case “${title}” for ${where}. Approve it or send it back with a reason:`, '', p.link].join('\n'),
+  };
+}
+
+/** To the author of a cleaning case, when an approver approves it or sends it back (with the reason). */
+export function caseDecidedMail(p: {
+  to: string;
+  caseTitle: string;
+  decision: 'approved' | 'returned';
+  deciderName: string;
+  reason: string | null;
+  link: string;
+}): OutgoingMail {
+  const title = plainName(p.caseTitle, 'Your cleaning case', 120);
+  const decider = plainName(p.deciderName, 'An approver');
+  const approved = p.decision === 'approved';
+  return {
+    to: p.to,
+    subject: approved ? `Cleaning case approved: ${title}` : `Cleaning case sent back: ${title}`,
+    text: [
+      approved ? `${decider} approved your cleaning case “${title}”.` : `${decider} sent your cleaning case “${title}” back.`,
+      ...(approved ? [] : ['', `Reason: ${plainName(p.reason ?? '', '(none given)', 2000)}`]),
+      '',
+      approved ? `The case: ${p.link}` : `Change it and submit it again: ${p.link}`,
+    ].join('\n'),
+  };
+}

@@ -1,0 +1,61 @@
+/**
+ * A case's status changes: submit (draft or returned → submitted), approve and return (submitted → approved or
+ * returned, never by the case's author), archive (draft, returned or approved → archived). Each one locks the
+ * case's row, is written to the audit log and mails the people who act next, all in one transaction.
+ */
+import type { DataSource } from 'typeorm';
+import type { CaseStatus, CaseView } from '@shared/schemas/cases.js';
+import { CleaningCase } from '../../entities/cleaning-case.entity.js';
+import type { TenantScope } from '../../policies/tenant-scope.js';
+import { recordAudit } from '../audit.service.js';
+import { assertMay, caseInScope } from './case-access.js';
+import { mailAuthor, mailDeciders } from './case-mail.js';
+import type { CaseAction } from './case-rules.js';
+import { caseViewOf, namesOf } from './case-view.js';
+
+export type Transition = 'submit' | 'approve' | 'return' | 'archive';
+
+const TARGET: Record<Transition, CaseStatus> = { submit: 'submitted', approve: 'approved', return: 'returned', archive: 'archived' };
+
+export async function changeCaseStatus(
+  ds: DataSource,
+  scope: TenantScope,
+  id: string,
+  transition: Transition,
+  opts: { reason?: string; baseUrl: string },
+): Promise<CaseView> {
+  return ds.transaction(async (em) => {
+    const found = await caseInScope(em, scope, id, true);
+    const { record } = found;
+    assertMay(transition satisfies CaseAction, record, scope);
+    const from = record.status;
+    const now = new Date();
+    record.status = TARGET[transition];
+    record.updatedAt = now;
+    if (transition === 'submit') {
+      record.submittedAt = now;
+      record.decidedAt = null;
+      record.decidedById = null;
+      record.returnReason = null;
+    }
+    if (transition === 'approve' || transition === 'return') {
+      record.decidedAt = now;
+      record.decidedById = scope.userId;
+      record.returnReason = transition === 'return' ? (opts.reason ?? null) : null;
+    }
+    if (transition === 'archive') record.archivedAt = now;
+    await em.getRepository(CleaningCase).save(record);
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: `case.${TARGET[transition]}`,
+      entityType: 'cleaning-case',
+      entityId: record.id,
+      details: { title: record.title, from, to: record.status, ...(transition === 'return' ? { reason: opts.reason } : {}) },
+    });
+    const name = (await namesOf(em, [scope.userId])).get(scope.userId) ?? 'A member';
+    if (transition === 'submit') await mailDeciders(em, found, { id: scope.userId, name }, opts.baseUrl);
+    if (transition === 'approve' || transition === 'return') await mailAuthor(em, found, record.status as 'approved' | 'returned', name, opts.baseUrl);
+    return caseViewOf(em, scope, found);
+  });
+}
