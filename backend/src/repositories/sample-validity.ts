@@ -11,6 +11,7 @@
  *  - valid for the calculations: `ok` with a measured cleanliness — the rows daily figures, trends and costs
  *    are built from (a `model:…` row has no analysis; an `ok` row without cleanliness was never analysed,
  *    e.g. while the unit has no setup).
+ * A chart of hourly points marks a third, wider set: the points that passed the checks (`ok`), analysed or not.
  */
 
 /** SQL condition on `performance_sample` (alias-free): rows the model is run on again at each recompute. */
@@ -18,6 +19,9 @@ export const REANALYSABLE_SAMPLE_SQL = `(validity = 'ok' OR validity LIKE 'model
 
 /** SQL condition on `performance_sample` (alias-free): rows the daily figures, trends and costs use. */
 export const VALID_FOR_CALCULATIONS_SQL = `(validity = 'ok' AND cleanliness IS NOT NULL)`;
+
+/** SQL condition on `performance_sample` (alias-free): rows that passed the import's and the model's checks. */
+export const PASSED_CHECKS_SQL = `(validity = 'ok')`;
 
 /** The same rule as VALID_FOR_CALCULATIONS_SQL, for a row already read. */
 export function validForCalculations(row: { validity?: unknown; cleanliness?: unknown }): boolean {

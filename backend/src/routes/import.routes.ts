@@ -7,15 +7,14 @@ import { idParam } from '../http/params.js';
 import type { RouteSpec } from '../http/route-registry.js';
 import { singleFileUpload } from '../http/upload.js';
 import { scopeOf } from '../policies/tenant-scope.js';
-import { getUnitOrThrow } from '../services/plant.service.js';
-import { errorReportCsv, findImport, importView, listImports, receiveUpload, startImport, undoImport } from '../services/import.service.js';
+import { errorReportCsv, findImport, importView, listImports, receiveUpload, startImport, undoImport, unitForUpload } from '../services/import.service.js';
 import { importsResponse, importView as importViewSchema, uploadResponse } from '@shared/schemas/imports.js';
 
 const startBody = z.object({ mapping: z.unknown() }).strict();
 
 export function importRoutes(ds: DataSource, config: Config): RouteSpec[] {
   const upload = singleFileUpload(path.resolve(config.UPLOAD_DIR));
-  const unitOrThrow = (req: Request) => getUnitOrThrow(ds, scopeOf(req.actor), idParam(req));
+  const unitOrThrow = (req: Request) => unitForUpload(ds, scopeOf(req.actor), idParam(req));
   return [
     {
       method: 'post',

@@ -9,8 +9,10 @@ import { DISPLAY_PRESETS, type DisplayUnit } from '@shared/units.js';
 import { User } from '../entities/user.entity.js';
 import { neutraliseCell } from '../import/import-errors.js';
 import type { TenantScope } from '../policies/tenant-scope.js';
-import { breakdownByPeriod, loadDailyRows, type DailyRow } from './health.service.js';
-import { getUnitOrThrow } from './plant.service.js';
+import { dailyFiguresOfUnit } from '../repositories/daily-aggregate.repository.js';
+import { foundInScope } from '../repositories/found-in-scope.js';
+import { findUnit } from '../repositories/plant.repository.js';
+import { breakdownByPeriod, type DailyRow } from './health.service.js';
 
 type Cell = string | number | boolean | null;
 type UnitSystem = 'us' | 'si';
@@ -102,19 +104,19 @@ export async function exportUnitData(
   unitId: string,
   q: { dataset: 'daily' | 'breakdown'; format: 'csv' | 'xlsx'; from?: string; to?: string },
 ): Promise<{ fileName: string; contentType: string; body: string | Buffer }> {
-  const unit = await getUnitOrThrow(ds, scope, unitId);
+  const unit = await foundInScope(findUnit(ds.manager, scope, unitId), 'No such unit');
   const person = await ds.getRepository(User).findOne({ where: { id: scope.userId }, select: { id: true, unitPreference: true } });
   const u = unitsFor(person?.unitPreference === 'si' ? 'si' : 'us');
   const currency = unit.economics?.currency ?? 'USD';
   let header: string[];
   let rows: Cell[][];
   if (q.dataset === 'daily') {
-    const days = await loadDailyRows(ds, unitId, q.from, q.to);
+    const days = await dailyFiguresOfUnit(ds.manager, unitId, q);
     const columns = dailyColumns(u, currency);
     header = columns.map(([h]) => h);
     rows = days.map((d) => columns.map(([, pick]) => pick(d)));
   } else {
-    const breakdown = breakdownByPeriod(await loadDailyRows(ds, unitId, q.from, q.to), 'month');
+    const breakdown = breakdownByPeriod(await dailyFiguresOfUnit(ds.manager, unitId, q), 'month');
     const dp = u.pressureDifference;
     const parts = ['CW inlet temperature', 'CW flow', 'Load and duty', 'Plugged tubes', 'Fouling', 'Unexplained', 'Excess backpressure'];
     header = ['Month', ...parts.map((part) => `${part} ${dp.label}`), `Fouling cost ${currency}`, `Unexplained cost ${currency}`];

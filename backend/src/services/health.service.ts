@@ -10,15 +10,15 @@ import { addDays, daysBetween } from '@shared/domain/calendar/plant-date.js';
 import { plantDayFormatter } from '@shared/domain/calendar/plant-day.js';
 import { lttbKeepingGaps } from '@shared/domain/monitoring/index.js';
 import { MAX_SERIES_POINTS } from '@shared/limits.js';
-import { BREAKDOWN_CAUSES, dailyFigure, samplesQuery, type DailyFigure, type HealthQuery, type HealthTrend, type SamplesResponse, type UnitHealthResponse } from '@shared/schemas/health.js';
+import { BREAKDOWN_CAUSES, samplesQuery, type DailyFigure, type HealthQuery, type HealthTrend, type SamplesResponse, type UnitHealthResponse } from '@shared/schemas/health.js';
 import { storedUnitAnalysis, type StoredUnitAnalysis } from '@shared/schemas/unit-analysis.js';
 import type { z } from 'zod';
-import { GeneratingUnit } from '../entities/generating-unit.entity.js';
-import { Plant } from '../entities/plant.entity.js';
-import { UnitEvent } from '../entities/unit-event.entity.js';
-import { notFound } from '../http/app-error.js';
 import type { TenantScope } from '../policies/tenant-scope.js';
-import { findUnit } from '../repositories/plant.repository.js';
+import { dailyFiguresOfUnit } from '../repositories/daily-aggregate.repository.js';
+import { eventsOfUnit } from '../repositories/event.repository.js';
+import { foundInScope } from '../repositories/found-in-scope.js';
+import { findUnitWithPlant } from '../repositories/plant.repository.js';
+import { chartPointsOfUnit, lastSampleTimeOfUnit } from '../repositories/sample.repository.js';
 import { eventView } from './unit-event.service.js';
 
 export type DailyRow = DailyFigure;
@@ -30,37 +30,6 @@ const IMPLAUSIBLE_WORDS = {
   'implausible-velocity': 'tube velocity outside its plausible band (a wrong CW flow, tube count or number of passes); check them in the setup.',
   'expected-out-of-range': 'the model’s backpressure lies outside the range a condenser may read; check the setup (design duty, CW flow, surface, tube count).',
 } as const;
-
-const dayText = (d: unknown) => (typeof d === 'string' ? d.slice(0, 10) : (d as Date).toISOString().slice(0, 10));
-/** A JSON column read with its schema (MariaDB hands JSON columns back as text). */
-const readJson = <T>(schema: z.ZodType<T>, v: unknown): T => schema.parse(typeof v === 'string' ? JSON.parse(v) : (v ?? null));
-
-export async function loadDailyRows(ds: DataSource, unitId: string, from?: string, to?: string): Promise<DailyRow[]> {
-  const where = ['unitId = ?'];
-  const params: unknown[] = [unitId];
-  if (from) {
-    where.push('day >= ?');
-    params.push(from);
-  }
-  if (to) {
-    where.push('day <= ?');
-    params.push(to);
-  }
-  const rows: Record<string, unknown>[] = await ds.query(`SELECT * FROM daily_aggregate WHERE ${where.join(' AND ')} ORDER BY day`, params);
-  return rows.map(({ unitId: _unit, ...r }) => ({
-    ...(r as Omit<DailyRow, 'day' | 'airLeakSuspected' | 'droppedByReason' | 'stuckSensors'>),
-    day: dayText(r.day),
-    airLeakSuspected: !!r.airLeakSuspected,
-    droppedByReason: readJson(dailyFigure.shape.droppedByReason, r.droppedByReason),
-    stuckSensors: readJson(dailyFigure.shape.stuckSensors, r.stuckSensors),
-  }));
-}
-
-async function unitInScope(ds: DataSource, scope: TenantScope, unitId: string): Promise<{ unit: GeneratingUnit; plant: Plant }> {
-  const unit = await findUnit(ds.manager, scope, unitId);
-  if (!unit) throw notFound('No such unit');
-  return { unit, plant: await ds.getRepository(Plant).findOneByOrFail({ id: unit.plantId }) };
-}
 
 function isoWeekStart(day: string): string {
   const d = new Date(`${day}T00:00:00Z`);
@@ -100,22 +69,21 @@ function readAnalysis(stored: unknown): StoredUnitAnalysis | 'unreadable' | null
 }
 
 export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: string, q: HealthQuery): Promise<UnitHealthResponse> {
-  const { unit, plant } = await unitInScope(ds, scope, unitId);
+  const { unit, plant } = await foundInScope(findUnitWithPlant(ds.manager, scope, unitId), 'No such unit');
   const stored = readAnalysis(unit.analysis);
   const analysis = stored === 'unreadable' ? null : stored;
-  const all = await loadDailyRows(ds, unitId);
+  const all = await dailyFiguresOfUnit(ds.manager, unitId);
   const withData = all.filter((d) => d.pointsUsed > 0);
   const lastDay = withData.at(-1)?.day ?? null;
   const to = q.to ?? lastDay ?? undefined;
   const from = q.from ?? (to ? addDays(to, -364) : undefined);
   const period = all.filter((d) => (!from || d.day >= from) && (!to || d.day <= to));
-  const events = (await ds.getRepository(UnitEvent).find({ where: { unitId }, order: { startDate: 'ASC' } })).map(eventView);
+  const events = (await eventsOfUnit(ds.manager, unitId)).map(eventView);
   const cleanings = events.filter((e) => e.kind === 'cleaning');
   const lastCleaning = cleanings.filter((e) => !lastDay || (e.endDate ?? e.startDate) <= lastDay).at(-1) ?? null;
   const sinceCleaning = withData.filter((d) => !lastCleaning || d.day >= (lastCleaning.endDate ?? lastCleaning.startDate));
   const lastWeek = withData.slice(-7);
-  const lastSample: { ts: Date | string | null }[] = await ds.query('SELECT MAX(timestampUtc) AS ts FROM performance_sample WHERE unitId = ?', [unitId]);
-  const lastSampleUtc = lastSample[0]?.ts ? new Date(lastSample[0].ts).toISOString() : null;
+  const lastSampleUtc = await lastSampleTimeOfUnit(ds.manager, unitId);
 
   const c = unit.condenser;
   const warnings: string[] = [];
@@ -248,7 +216,7 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
 
 /** Hourly points of one quantity over a period, downsampled (LTTB) to at most MAX_SERIES_POINTS. */
 export async function unitSamples(ds: DataSource, scope: TenantScope, unitId: string, q: z.infer<typeof samplesQuery>): Promise<SamplesResponse> {
-  const { plant } = await unitInScope(ds, scope, unitId);
+  const { plant } = await foundInScope(findUnitWithPlant(ds.manager, scope, unitId), 'No such unit');
   const columns: Record<SamplesResponse['quantity'], SamplesResponse['columns']> = {
     backpressure: ['backpressureKpa', 'expectedBackpressureKpa'],
     cleanliness: ['cleanliness'],
@@ -258,13 +226,10 @@ export async function unitSamples(ds: DataSource, scope: TenantScope, unitId: st
   };
   const cols = columns[q.quantity];
   // Plant-local days: widen by a day on each side in UTC, then keep what falls inside.
-  const rows: Record<string, unknown>[] = await ds.query(
-    `SELECT timestampUtc AS ts, validity, ${cols.join(', ')} FROM performance_sample WHERE unitId = ? AND timestampUtc >= ? AND timestampUtc < ? ORDER BY timestampUtc`,
-    [unitId, `${addDays(q.from, -1)} 00:00:00`, `${addDays(q.to, 2)} 00:00:00`],
-  );
+  const rows = await chartPointsOfUnit(ds.manager, unitId, cols, `${addDays(q.from, -1)} 00:00:00`, `${addDays(q.to, 2)} 00:00:00`);
   const dayOf = plantDayFormatter(plant.timeZone);
   const points = rows
-    .map((r) => ({ t: new Date(r.ts as string).toISOString(), valid: r.validity === 'ok', ...Object.fromEntries(cols.map((c) => [c, r[c] === null ? null : Number(r[c])])) }))
+    .map((r) => ({ t: new Date(r.ts).toISOString(), valid: r.passedChecks, ...r.values }))
     .filter((p) => {
       const day = dayOf(Date.parse(p.t));
       return day >= q.from && day <= q.to;

@@ -7,18 +7,20 @@
  * services/import-job/run-import-job.ts.
  */
 import { rm } from 'node:fs/promises';
-import { In, type DataSource } from 'typeorm';
-import { User } from '../entities/user.entity.js';
+import type { DataSource } from 'typeorm';
 import { z } from 'zod';
 import { importMappingSchema, type ImportMappingInput } from '@shared/schemas/import-mapping.js';
 import { importCounts, importView as importViewSchema, rowError, type ImportCounts, type ImportView } from '@shared/schemas/imports.js';
 import { formatRowErrorReportCsv, guessMapping, openTable, type RowError } from '../import/index.js';
 import { DataImport } from '../entities/data-import.entity.js';
 import { GeneratingUnit } from '../entities/generating-unit.entity.js';
-import { AppError, badRequest, notFound } from '../http/app-error.js';
+import { AppError, badRequest } from '../http/app-error.js';
 import { enqueueJob, enqueueRecompute } from '../jobs/job-queue.js';
 import type { TenantScope } from '../policies/tenant-scope.js';
+import { foundInScope } from '../repositories/found-in-scope.js';
+import { findImportInScope, importsOfUnitInScope } from '../repositories/import.repository.js';
 import { findUnit, findUnitWithPlant } from '../repositories/plant.repository.js';
+import { deleteSamplesOfImport } from '../repositories/sample.repository.js';
 import { recordAudit } from './audit.service.js';
 
 export interface UploadedFile {
@@ -60,26 +62,18 @@ export function importView(i: DataImport, allErrors = false, uploadedBy: string 
   };
 }
 
-async function unitInScope(ds: DataSource, scope: TenantScope, unitId: string): Promise<GeneratingUnit> {
-  const unit = await findUnit(ds.manager, scope, unitId);
-  if (!unit) throw notFound('No such unit');
-  return unit;
-}
+export const findImport = (ds: DataSource, scope: TenantScope, importId: string): Promise<DataImport> =>
+  foundInScope(findImportInScope(ds.manager, scope, importId), 'No such import');
 
-export async function findImport(ds: DataSource, scope: TenantScope, importId: string): Promise<DataImport> {
-  const imp = await ds.getRepository(DataImport).findOneBy({ id: importId, organisationId: scope.organisationId });
-  if (!imp || !(await findUnit(ds.manager, scope, imp.unitId))) throw notFound('No such import');
-  return imp;
-}
+/** The unit an upload goes to, checked before a byte of the file is stored. */
+export const unitForUpload = (ds: DataSource, scope: TenantScope, unitId: string): Promise<GeneratingUnit> => foundInScope(findUnit(ds.manager, scope, unitId), 'No such unit');
 
 /** Stores the upload, reads its header and first rows, and proposes a mapping (the unit's saved one when it fits). */
 export async function receiveUpload(ds: DataSource, scope: TenantScope, unitId: string, file: UploadedFile) {
-  const found = await findUnitWithPlant(ds.manager, scope, unitId);
-  if (!found) {
+  const { unit, plant } = await foundInScope(findUnitWithPlant(ds.manager, scope, unitId), 'No such unit').catch(async (err: unknown) => {
     await rm(file.path, { force: true });
-    throw notFound('No such unit');
-  }
-  const { unit, plant } = found;
+    throw err;
+  });
   let table;
   try {
     table = await openTable(file.path);
@@ -141,11 +135,8 @@ export async function startImport(ds: DataSource, scope: TenantScope, importId: 
 }
 
 export async function listImports(ds: DataSource, scope: TenantScope, unitId: string): Promise<ImportView[]> {
-  await unitInScope(ds, scope, unitId);
-  const rows = await ds.getRepository(DataImport).find({ where: { unitId, organisationId: scope.organisationId }, order: { createdAt: 'DESC' }, take: 200 });
-  const ids = [...new Set(rows.map((r) => r.uploadedByUserId).filter((id): id is string => !!id))];
-  const names = new Map((ids.length ? await ds.getRepository(User).findBy({ id: In(ids) }) : []).map((u) => [u.id, u.name]));
-  return rows.map((r) => importView(r, false, r.uploadedByUserId ? (names.get(r.uploadedByUserId) ?? null) : null));
+  const rows = await foundInScope(importsOfUnitInScope(ds.manager, scope, unitId), 'No such unit');
+  return rows.map(({ record, uploadedBy }) => importView(record, false, uploadedBy));
 }
 
 export async function errorReportCsv(ds: DataSource, scope: TenantScope, importId: string): Promise<{ fileName: string; csv: string }> {
@@ -161,7 +152,7 @@ export async function undoImport(ds: DataSource, scope: TenantScope, importId: s
     throw new AppError(409, `An import that is ${imp.status} cannot be undone`);
   }
   await ds.transaction(async (em) => {
-    await em.query('DELETE FROM performance_sample WHERE importId = ?', [imp.id]);
+    await deleteSamplesOfImport(em, imp.id);
     await em.getRepository(DataImport).update({ id: imp.id }, { status: 'undone', message: 'Undone: its rows were removed', finishedAt: new Date() });
     await enqueueRecompute(em, imp.organisationId, imp.unitId, 'import undone');
     await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'import.undone', entityType: 'import', entityId: imp.id, details: { fileName: imp.fileName } });

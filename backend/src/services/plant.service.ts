@@ -4,9 +4,10 @@ import type { PlantView, UnitSummary } from '@shared/schemas/plant.js';
 import type { PlantInput, unitInput } from '@shared/schemas/unit-setup.js';
 import { GeneratingUnit } from '../entities/generating-unit.entity.js';
 import { Plant } from '../entities/plant.entity.js';
-import { AppError, badRequest, notFound } from '../http/app-error.js';
+import { AppError, badRequest } from '../http/app-error.js';
 import { seesClientGroup, type TenantScope } from '../policies/tenant-scope.js';
 import { assertClientGroupsInTenant } from '../repositories/client-group.repository.js';
+import { foundInScope } from '../repositories/found-in-scope.js';
 import { findPlant, findUnit, plantsInScope, unitsInScope } from '../repositories/plant.repository.js';
 import { recordAudit } from './audit.service.js';
 
@@ -32,8 +33,7 @@ export async function listPlants(ds: DataSource, scope: TenantScope): Promise<Pl
 }
 
 export async function getPlant(ds: DataSource, scope: TenantScope, id: string): Promise<PlantView> {
-  const plant = await findPlant(ds.manager, scope, id);
-  if (!plant) throw notFound('No such plant');
+  const plant = await foundInScope(findPlant(ds.manager, scope, id), 'No such plant');
   const units = await unitsInScope(ds.manager, scope, plant.id);
   return { id: plant.id, name: plant.name, timeZone: plant.timeZone, clientGroupId: plant.clientGroupId, units: units.map(unitSummary) };
 }
@@ -57,8 +57,7 @@ export async function createPlant(ds: DataSource, scope: TenantScope, input: Pla
 }
 
 export async function updatePlant(ds: DataSource, scope: TenantScope, id: string, input: PlantInput): Promise<PlantView> {
-  const plant = await findPlant(ds.manager, scope, id);
-  if (!plant) throw notFound('No such plant');
+  const plant = await foundInScope(findPlant(ds.manager, scope, id), 'No such plant');
   await assertGroupUsable(ds, scope, input.clientGroupId);
   const clash = await ds.getRepository(Plant).findOneBy({ organisationId: scope.organisationId, name: input.name });
   if (clash && clash.id !== id) throw new AppError(409, `A plant named “${input.name}” exists already`);
@@ -70,8 +69,7 @@ export async function updatePlant(ds: DataSource, scope: TenantScope, id: string
 }
 
 export async function deletePlant(ds: DataSource, scope: TenantScope, id: string): Promise<void> {
-  const plant = await findPlant(ds.manager, scope, id);
-  if (!plant) throw notFound('No such plant');
+  const plant = await foundInScope(findPlant(ds.manager, scope, id), 'No such plant');
   await ds.transaction(async (em) => {
     await em.getRepository(Plant).delete({ id, organisationId: scope.organisationId });
     await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'plant.deleted', entityType: 'plant', entityId: id, details: { name: plant.name } });
@@ -79,8 +77,7 @@ export async function deletePlant(ds: DataSource, scope: TenantScope, id: string
 }
 
 export async function createUnit(ds: DataSource, scope: TenantScope, plantId: string, input: z.infer<typeof unitInput>) {
-  const plant = await findPlant(ds.manager, scope, plantId);
-  if (!plant) throw notFound('No such plant');
+  const plant = await foundInScope(findPlant(ds.manager, scope, plantId), 'No such plant');
   if (await ds.getRepository(GeneratingUnit).existsBy({ plantId, name: input.name })) throw new AppError(409, `${plant.name} has a unit named “${input.name}” already`);
   return ds.transaction(async (em) => {
     const unit = await em.getRepository(GeneratingUnit).save({ organisationId: scope.organisationId, plantId, name: input.name, condenser: null, turbine: null, economics: null, savedMapping: null });
@@ -89,14 +86,8 @@ export async function createUnit(ds: DataSource, scope: TenantScope, plantId: st
   });
 }
 
-export async function getUnitOrThrow(ds: DataSource, scope: TenantScope, id: string): Promise<GeneratingUnit> {
-  const unit = await findUnit(ds.manager, scope, id);
-  if (!unit) throw notFound('No such unit');
-  return unit;
-}
-
 export async function renameUnit(ds: DataSource, scope: TenantScope, id: string, input: z.infer<typeof unitInput>) {
-  const unit = await getUnitOrThrow(ds, scope, id);
+  const unit = await foundInScope(findUnit(ds.manager, scope, id), 'No such unit');
   const clash = await ds.getRepository(GeneratingUnit).findOneBy({ plantId: unit.plantId, name: input.name });
   if (clash && clash.id !== id) throw new AppError(409, `This plant has a unit named “${input.name}” already`);
   await ds.transaction(async (em) => {
@@ -107,7 +98,7 @@ export async function renameUnit(ds: DataSource, scope: TenantScope, id: string,
 }
 
 export async function deleteUnit(ds: DataSource, scope: TenantScope, id: string): Promise<void> {
-  const unit = await getUnitOrThrow(ds, scope, id);
+  const unit = await foundInScope(findUnit(ds.manager, scope, id), 'No such unit');
   await ds.transaction(async (em) => {
     await em.getRepository(GeneratingUnit).delete({ id, organisationId: scope.organisationId });
     await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'unit.deleted', entityType: 'unit', entityId: id, details: { name: unit.name } });

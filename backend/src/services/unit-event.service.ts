@@ -2,9 +2,11 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { UnitEventInput, UnitEventView } from '@shared/schemas/unit-event.js';
 import { CleaningMethodRecord } from '../entities/cleaning-method.entity.js';
 import { UnitEvent } from '../entities/unit-event.entity.js';
-import { badRequest, notFound } from '../http/app-error.js';
+import { badRequest } from '../http/app-error.js';
 import { enqueueRecompute } from '../jobs/job-queue.js';
 import type { TenantScope } from '../policies/tenant-scope.js';
+import { eventsOfUnitInScope, findEventInScope } from '../repositories/event.repository.js';
+import { foundInScope } from '../repositories/found-in-scope.js';
 import { findUnit } from '../repositories/plant.repository.js';
 import { recordAudit } from './audit.service.js';
 
@@ -43,13 +45,11 @@ async function assertMethodInLibrary(em: EntityManager, scope: TenantScope, meth
 }
 
 export async function listEvents(ds: DataSource, scope: TenantScope, unitId: string): Promise<UnitEventView[]> {
-  if (!(await findUnit(ds.manager, scope, unitId))) throw notFound('No such unit');
-  const rows = await ds.getRepository(UnitEvent).find({ where: { unitId, organisationId: scope.organisationId }, order: { startDate: 'ASC', createdAt: 'ASC' } });
-  return rows.map(eventView);
+  return (await foundInScope(eventsOfUnitInScope(ds.manager, scope, unitId), 'No such unit')).map(eventView);
 }
 
 export async function addEvent(ds: DataSource, scope: TenantScope, unitId: string, input: UnitEventInput): Promise<UnitEventView> {
-  if (!(await findUnit(ds.manager, scope, unitId))) throw notFound('No such unit');
+  await foundInScope(findUnit(ds.manager, scope, unitId), 'No such unit');
   return ds.transaction(async (em) => {
     await assertMethodInLibrary(em, scope, input.methodId);
     const saved = await em.getRepository(UnitEvent).save({
@@ -65,11 +65,7 @@ export async function addEvent(ds: DataSource, scope: TenantScope, unitId: strin
   });
 }
 
-async function eventInScope(ds: DataSource, scope: TenantScope, id: string): Promise<UnitEvent> {
-  const e = await ds.getRepository(UnitEvent).findOneBy({ id, organisationId: scope.organisationId });
-  if (!e || !(await findUnit(ds.manager, scope, e.unitId))) throw notFound('No such event');
-  return e;
-}
+const eventInScope = (ds: DataSource, scope: TenantScope, id: string): Promise<UnitEvent> => foundInScope(findEventInScope(ds.manager, scope, id), 'No such event');
 
 export async function updateEvent(ds: DataSource, scope: TenantScope, id: string, input: UnitEventInput): Promise<UnitEventView> {
   const e = await eventInScope(ds, scope, id);

@@ -1,21 +1,21 @@
 import type { DataSource } from 'typeorm';
 import type { UnitDetail } from '@shared/schemas/plant.js';
 import type { CondenserSetup, EconomicsSetup, TurbineSetup } from '@shared/schemas/unit-setup.js';
-import { BackgroundJob } from '../entities/background-job.entity.js';
 import { GeneratingUnit } from '../entities/generating-unit.entity.js';
-import { Plant } from '../entities/plant.entity.js';
 import { enqueueRecompute } from '../jobs/job-queue.js';
 import type { TenantScope } from '../policies/tenant-scope.js';
+import { foundInScope } from '../repositories/found-in-scope.js';
+import { recentJobsOfUnit } from '../repositories/job.repository.js';
+import { findUnit, findUnitWithPlant } from '../repositories/plant.repository.js';
+import { sampleSpanOfUnit } from '../repositories/sample.repository.js';
 import { recordAudit } from './audit.service.js';
-import { getUnitOrThrow } from './plant.service.js';
 
 export type SetupPart = 'condenser' | 'turbine' | 'economics';
 
 export async function unitDetail(ds: DataSource, scope: TenantScope, id: string): Promise<UnitDetail> {
-  const unit = await getUnitOrThrow(ds, scope, id);
-  const plant = await ds.getRepository(Plant).findOneByOrFail({ id: unit.plantId });
-  const jobs = await ds.getRepository(BackgroundJob).find({ where: { unitId: id }, order: { createdAt: 'DESC' }, take: 5 });
-  const counts = (await ds.query(`SELECT COUNT(*) AS n, MIN(timestampUtc) AS first, MAX(timestampUtc) AS last FROM performance_sample WHERE unitId = ?`, [id]))[0];
+  const { unit, plant } = await foundInScope(findUnitWithPlant(ds.manager, scope, id), 'No such unit');
+  const jobs = await recentJobsOfUnit(ds.manager, id, 5);
+  const samples = await sampleSpanOfUnit(ds.manager, id);
   return {
     id: unit.id,
     name: unit.name,
@@ -25,14 +25,14 @@ export async function unitDetail(ds: DataSource, scope: TenantScope, id: string)
     economics: unit.economics,
     setupVersion: unit.setupVersion,
     setupComplete: !!(unit.condenser && unit.turbine && unit.economics),
-    samples: { count: Number(counts.n), first: counts.first ? new Date(counts.first).toISOString() : null, last: counts.last ? new Date(counts.last).toISOString() : null },
+    samples,
     jobs: jobs.map((j) => ({ id: j.id, kind: j.kind, status: j.status, progress: j.progress, message: j.message, createdAt: j.createdAt.toISOString(), finishedAt: j.finishedAt?.toISOString() ?? null })),
   };
 }
 
 /** Saves one part of the setup; derived data is recomputed in the background. */
 export async function saveSetupPart(ds: DataSource, scope: TenantScope, id: string, part: SetupPart, value: CondenserSetup | TurbineSetup | EconomicsSetup): Promise<UnitDetail> {
-  const unit = await getUnitOrThrow(ds, scope, id);
+  const unit = await foundInScope(findUnit(ds.manager, scope, id), 'No such unit');
   await ds.transaction(async (em) => {
     await em.getRepository(GeneratingUnit).update({ id, organisationId: scope.organisationId }, { [part]: value, setupVersion: unit.setupVersion + 1 });
     await enqueueRecompute(em, scope.organisationId, id, `${part} setup changed`);

@@ -8,6 +8,9 @@
  */
 import type { DataSource } from 'typeorm';
 import { median } from '@shared/domain/statistics.js';
+import type { DailyAggregateRow } from '../../repositories/daily-aggregate-row.js';
+import { replaceDailyAggregates } from '../../repositories/daily-aggregate.repository.js';
+import { samplesAfter } from '../../repositories/sample-analysis.repository.js';
 import { reasonLeftOut, validForCalculations } from '../../repositories/sample-validity.js';
 
 /** Per-day facts the recompute knows beyond the samples themselves. */
@@ -35,52 +38,10 @@ interface Acc {
   sums: Record<string, number>;
 }
 
-/** One `daily_aggregate` row as written, keyed by column name. */
-export interface DailyAggregateRow {
-  unitId: string;
-  day: string;
-  pointsUsed: number;
-  pointsDropped: number;
-  /** JSON: points left out per reason */
-  droppedByReason: string;
-  medianCleanliness: number | null;
-  medianTtdK: number | null;
-  trendCleanliness: number | null;
-  meanSubcoolingK: number | null;
-  meanDissolvedOxygenPpb: number | null;
-  meanAirRemovalKgS: number | null;
-  airLeakSuspected: boolean;
-  meanDutyMw: number | null;
-  heatBalanceDutyMw: number | null;
-  /** JSON: raw sensors that never changed over the day */
-  stuckSensors: string | null;
-  meanBackpressureKpa: number | null;
-  meanExpectedBackpressureKpa: number | null;
-  meanExcessBackpressureKpa: number | null;
-  meanCwInletC: number | null;
-  meanLoadMw: number | null;
-  meanHeatRatePenaltyPct: number | null;
-  foulingKpa: number | null;
-  cwInletKpa: number | null;
-  cwFlowKpa: number | null;
-  loadKpa: number | null;
-  pluggingKpa: number | null;
-  unexplainedKpa: number | null;
-  foulingCost: number | null;
-  unexplainedCost: number | null;
-}
-
-// Every column of the row type, named once: the compiler fails if a column is added to one and not the other.
-const COLUMN_SET: Record<keyof DailyAggregateRow, true> = {
-  unitId: true, day: true, pointsUsed: true, pointsDropped: true, droppedByReason: true, medianCleanliness: true, medianTtdK: true,
-  trendCleanliness: true, meanSubcoolingK: true, meanDissolvedOxygenPpb: true, meanAirRemovalKgS: true, airLeakSuspected: true, meanDutyMw: true,
-  heatBalanceDutyMw: true, stuckSensors: true, meanBackpressureKpa: true, meanExpectedBackpressureKpa: true, meanExcessBackpressureKpa: true,
-  meanCwInletC: true, meanLoadMw: true, meanHeatRatePenaltyPct: true, foulingKpa: true, cwInletKpa: true, cwFlowKpa: true, loadKpa: true,
-  pluggingKpa: true, unexplainedKpa: true, foulingCost: true, unexplainedCost: true,
-};
-export const DAILY_AGGREGATE_COLUMNS = Object.keys(COLUMN_SET) as (keyof DailyAggregateRow)[];
-
+/** Columns averaged over the day's valid points. */
 const MEANS = ['backpressureKpa', 'expectedBackpressureKpa', 'excessBackpressureKpa', 'cwInletC', 'loadMw', 'heatRatePenaltyPct', 'foulingKpa', 'cwInletKpa', 'cwFlowKpa', 'loadKpa', 'pluggingKpa', 'unexplainedKpa', 'foulingCostPerHour', 'unexplainedCostPerHour', 'dutyMw'] as const;
+
+const READ = ['validity', 'cleanliness', 'ttdK', 'cwOutletC', 'cwFlowM3s', ...MEANS] as const;
 
 export async function rebuildDailyAggregates(ds: DataSource, unitId: string, dayOf: (ts: number) => string, facts?: DayFacts): Promise<number> {
   const days = new Map<string, Acc>();
@@ -88,10 +49,7 @@ export async function rebuildDailyAggregates(ds: DataSource, unitId: string, day
   let lastTs: number | null = null;
   let lastId = '0';
   for (;;) {
-    const rows: Record<string, unknown>[] = await ds.query(
-      `SELECT id, timestampUtc AS ts, validity, cleanliness, ttdK, cwOutletC, cwFlowM3s, ${MEANS.join(', ')} FROM performance_sample WHERE unitId = ? AND id > ? ORDER BY id LIMIT 20000`,
-      [unitId, lastId],
-    );
+    const rows = await samplesAfter(ds.manager, unitId, lastId, 20_000, READ);
     if (rows.length === 0) break;
     lastId = String(rows[rows.length - 1].id);
     for (const r of rows) {
@@ -160,15 +118,6 @@ export async function rebuildDailyAggregates(ds: DataSource, unitId: string, day
     };
   });
 
-  await ds.transaction(async (em) => {
-    await em.query('DELETE FROM daily_aggregate WHERE unitId = ?', [unitId]);
-    for (let i = 0; i < rows.length; i += 1000) {
-      const slice = rows.slice(i, i + 1000);
-      await em.query(
-        `INSERT INTO daily_aggregate (${DAILY_AGGREGATE_COLUMNS.join(', ')}) VALUES ${slice.map(() => `(${DAILY_AGGREGATE_COLUMNS.map(() => '?').join(',')})`).join(',')}`,
-        slice.flatMap((row) => DAILY_AGGREGATE_COLUMNS.map((c) => row[c])),
-      );
-    }
-  });
+  await replaceDailyAggregates(ds.manager, unitId, rows);
   return days.size;
 }

@@ -2,27 +2,12 @@
  * Step 5 of the recompute: each re-analysable sample's analysis with its day's trend cleanliness
  * (shared/domain/monitoring/sample-analysis.ts), or the reason the model rejects it.
  */
-import { analyseSample, type SampleAnalysis, type UnitModel } from '@shared/domain/monitoring/index.js';
+import { analyseSample, type UnitModel } from '@shared/domain/monitoring/index.js';
 import { PointRejectedError } from '@shared/domain/validity/index.js';
+import type { AnalysedSample } from '../../repositories/sample-analysis.repository.js';
 import { modelRejection } from '../../repositories/sample-validity.js';
 import { trendCleanlinessOn, type CycleTrend } from './fouling-cycles.js';
 import type { StoredSample } from './read-valid-samples.js';
-
-/** The analysis columns of `performance_sample` the recompute writes, besides `validity`. */
-export const ANALYSIS_COLUMNS = [
-  'cleanliness', 'ttdK', 'dutyMw', 'expectedBackpressureKpa', 'excessBackpressureKpa', 'foulingKpa', 'cwInletKpa', 'cwFlowKpa', 'loadKpa',
-  'pluggingKpa', 'unexplainedKpa', 'heatRatePenaltyPct', 'foulingCostPerHour', 'unexplainedCostPerHour',
-] as const satisfies readonly (keyof SampleAnalysis)[];
-
-export type AnalysisColumn = (typeof ANALYSIS_COLUMNS)[number];
-
-export interface AnalysedSample {
-  id: string;
-  /** `ok`, or `model:<reason>` when the model rejected the point */
-  validity: string;
-  /** null where the model rejected the point */
-  analysis: Pick<SampleAnalysis, AnalysisColumn> | null;
-}
 
 export interface SampleAnalysisInput {
   model: UnitModel;

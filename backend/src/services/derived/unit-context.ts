@@ -4,7 +4,8 @@ import { buildUnitModel, type UnitModel, type UnitSetupSi } from '@shared/domain
 import { plantDayFormatter } from '@shared/domain/calendar/plant-day.js';
 import { GeneratingUnit } from '../../entities/generating-unit.entity.js';
 import { Plant } from '../../entities/plant.entity.js';
-import { UnitEvent } from '../../entities/unit-event.entity.js';
+import type { UnitEvent } from '../../entities/unit-event.entity.js';
+import { eventsOfUnit } from '../../repositories/event.repository.js';
 import type { CleaningMark } from './fouling-cycles.js';
 
 export interface UnitContext {
@@ -53,7 +54,7 @@ export function plannedOutages(events: readonly EventFacts[]): { from: string; t
 export async function loadUnitContext(ds: DataSource, unitId: string): Promise<UnitContext> {
   const unit = await ds.getRepository(GeneratingUnit).findOneByOrFail({ id: unitId });
   const plant = await ds.getRepository(Plant).findOneByOrFail({ id: unit.plantId });
-  const events = await ds.getRepository(UnitEvent).findBy({ unitId });
+  const events = await eventsOfUnit(ds.manager, unitId);
   const setup = unitSetupOf(unit);
   return {
     unit,

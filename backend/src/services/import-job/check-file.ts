@@ -7,6 +7,7 @@ import type { DataSource } from 'typeorm';
 import { checkImportFile, type ImportCheck } from '../../import/index.js';
 import { DataImport } from '../../entities/data-import.entity.js';
 import { withLease, type JobLease } from '../../jobs/job-queue.js';
+import { deleteSamplesOfImport } from '../../repositories/sample.repository.js';
 import type { ImportProgress } from './import-progress.js';
 
 export interface CheckInput {
@@ -17,7 +18,7 @@ export interface CheckInput {
 }
 
 export async function checkFile(ds: DataSource, job: JobLease, { importId, storedPath, mapping, progress }: CheckInput): Promise<ImportCheck> {
-  await withLease(ds, job, (em) => em.query('DELETE FROM performance_sample WHERE importId = ?', [importId]));
+  await withLease(ds, job, (em) => deleteSamplesOfImport(em, importId));
   await progress(0.02, 'Checking every row');
   return checkImportFile(storedPath, { mapping });
 }

@@ -8,6 +8,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import { DataImport } from '../../entities/data-import.entity.js';
 import { GeneratingUnit } from '../../entities/generating-unit.entity.js';
 import { LostJobLockError, withLease, type JobLease } from '../../jobs/job-queue.js';
+import { deleteSamplesOfImport } from '../../repositories/sample.repository.js';
 import { checkFile, rejectImport } from './check-file.js';
 import { importProgress } from './import-progress.js';
 import { completeAndQueueRecompute } from './queue-recompute.js';
@@ -37,7 +38,7 @@ export async function runImportJob(ds: DataSource, job: JobLease, importId: stri
 
 /** Deletes what a failed import stored and marks it failed; the rows go as a whole (one import id). */
 async function failImport(em: EntityManager, importId: string, reason: string): Promise<void> {
-  await em.query('DELETE FROM performance_sample WHERE importId = ?', [importId]);
+  await deleteSamplesOfImport(em, importId);
   await em.getRepository(DataImport).update({ id: importId }, { status: 'failed', progress: 1, message: `The import stopped and stored nothing: ${reason}`.slice(0, 500), finishedAt: new Date() });
 }
 

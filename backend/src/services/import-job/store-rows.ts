@@ -8,25 +8,11 @@ import { importSamples, type ImportCheck, type ImportSample, type ImportSummary 
 import { DataImport } from '../../entities/data-import.entity.js';
 import type { GeneratingUnit } from '../../entities/generating-unit.entity.js';
 import { withLease, type JobLease } from '../../jobs/job-queue.js';
+import { insertSamples, storedReadingsBetween, type StoredReading } from '../../repositories/sample.repository.js';
 import type { ImportProgress } from './import-progress.js';
 
 /** Test hook: throw after this many batches to prove a failure leaves nothing behind. */
 export const importFaults = { failAfterBatches: null as number | null };
-
-const SAMPLE_COLUMNS = [
-  'unitId', 'importId', 'timestampUtc', 'loadMw', 'backpressureKpa', 'cwInletC', 'cwOutletC', 'cwFlowM3s', 'flowAssumed',
-  'hotwellC', 'dissolvedOxygenPpb', 'airRemovalKgS', 'barometerKpa', 'cwDifferentialPressureKpa', 'condensateFlowKgS', 'validity', 'setupVersion',
-] as const;
-
-/** The measured values a stored row is compared on. */
-export interface StoredReading {
-  ts: Date;
-  loadMw: number;
-  backpressureKpa: number;
-  cwInletC: number;
-  cwOutletC: number;
-  cwFlowM3s: number;
-}
 
 export interface SortedBatch {
   fresh: ImportSample[];
@@ -82,23 +68,14 @@ export async function storeRows(ds: DataSource, job: JobLease, { importId, store
       if (importFaults.failAfterBatches !== null && batches >= importFaults.failAfterBatches) throw new Error('injected fault during import');
       batches++;
       const times = samples.map((s) => new Date(s.timestampUtc));
-      const existing: StoredReading[] = await ds.query(
-        `SELECT timestampUtc AS ts, loadMw, backpressureKpa, cwInletC, cwOutletC, cwFlowM3s FROM performance_sample WHERE unitId = ? AND timestampUtc BETWEEN ? AND ?`,
-        [unit.id, times[0], times[times.length - 1]],
-      );
+      const existing = await storedReadingsBetween(ds.manager, unit.id, times[0], times[times.length - 1]);
       const batch = sortAgainstStored(samples, existing);
       skippedIdentical += batch.skippedIdentical;
       conflicting += batch.conflicting.length;
       for (const s of batch.conflicting) if (conflicts.length < 200) conflicts.push({ timestampUtc: new Date(s.timestampUtc).toISOString() });
       if (batch.fresh.length) {
-        const values: unknown[] = [];
-        for (const s of batch.fresh) {
-          values.push(unit.id, importId, new Date(s.timestampUtc), s.loadMw, s.backpressureKpa, s.cwInletC, s.cwOutletC, s.cwFlowM3s, s.flowAssumed,
-            s.hotwellC ?? null, s.dissolvedOxygenPpb ?? null, s.airRemovalKgS ?? null, s.barometerKpa ?? null, s.cwDifferentialPressureKpa ?? null, s.condensateFlowKgS ?? null,
-            s.validity, unit.setupVersion);
-        }
         // Written only while this worker still holds the job: a worker that lost it stores nothing more.
-        await withLease(ds, job, (em) => em.query(`INSERT INTO performance_sample (${SAMPLE_COLUMNS.join(', ')}) VALUES ${batch.fresh.map(() => `(${SAMPLE_COLUMNS.map(() => '?').join(',')})`).join(',')}`, values));
+        await withLease(ds, job, (em) => insertSamples(em, { unitId: unit.id, importId, setupVersion: unit.setupVersion }, batch.fresh));
         stored += batch.fresh.length;
       }
       await progress(0.05 + 0.9 * (stored + skippedIdentical + conflicting) / Math.max(1, check.dataRows), `Stored ${stored.toLocaleString('en-US')} of ${check.dataRows.toLocaleString('en-US')} rows`);
