@@ -30,5 +30,19 @@ describe('the demo seed', () => {
     // written for 3–11 May 2025, 235 days before the written end (1 Jan 2026): played 235 days before 2 Dec 2026
     expect(health.headline.lastCleaning.date).toBe('2026-04-11');
     expect(health.headline.lastSampleUtc.slice(0, 10)).toBe('2026-12-02'); // 23:00 on 1 Dec in New York is 04:00 UTC on 2 Dec
+
+    // Each demo cleaning names a method of the organisation's library and costs what the library says for this
+    // condenser's tubes in service (fixed cost + cost per tube).
+    const methods = (await admin.get('/api/cleaning-methods').expect(200)).body.methods as { id: string; name: string; fixedCost: number; costPerTube: number }[];
+    const setup = (await admin.get(`/api/units/${unit.id}`).expect(200)).body.condenser as { tubeCount: number; pluggedTubes: number };
+    const events = (await admin.get(`/api/units/${unit.id}/events`).expect(200)).body.events as { kind: string; methodId: string | null; cost: number | null; notes: string }[];
+    const cleanings = events.filter((e) => e.kind === 'cleaning');
+    expect(cleanings.length).toBeGreaterThan(0);
+    for (const c of cleanings) {
+      const method = methods.find((m) => m.id === c.methodId);
+      expect(method, `cleaning with method ${c.methodId}`).toBeDefined();
+      expect(Number(c.cost)).toBeCloseTo(method!.fixedCost + method!.costPerTube * (setup.tubeCount - setup.pluggedTubes), 2);
+      expect(c.notes).toContain(method!.name);
+    }
   }, 300_000);
 });

@@ -19,6 +19,7 @@ import { UnitEvent } from '../entities/unit-event.entity.js';
 import { JOB_HANDLERS } from '../jobs/job-handlers.js';
 import { drainJobs } from '../jobs/job-worker.js';
 import type { TenantScope } from '../policies/tenant-scope.js';
+import { methodsOf } from '../services/cleaning-method.service.js';
 import { startImport } from '../services/import.service.js';
 import { designBackpressureKpa, dutyAtLoadMw, writeDemoFileSets, type DemoFileSet } from './demo-data/index.js';
 
@@ -92,10 +93,16 @@ export async function seedDemoUnits(ds: DataSource, log: (line: string) => void,
       let plant = await ds.getRepository(Plant).findOneBy({ organisationId: organisation.id, name: set.plant.name });
       plant ??= await ds.getRepository(Plant).save({ organisationId: organisation.id, clientGroupId: group?.id ?? null, name: set.plant.name, timeZone: set.plant.timeZone });
       const unit = await ds.getRepository(GeneratingUnit).save({ organisationId: organisation.id, plantId: plant.id, name: set.data.unit.name, savedMapping: null, ...setupOf(set) });
+      // Each demo cleaning is one of the library's methods at the library's cost for this condenser's tubes in service.
+      const library = await methodsOf(ds.manager, organisation.id);
       for (const c of set.data.cleanings) {
+        const method = library.find((m) => m.id === c.method);
+        if (!method) throw new Error(`demo cleaning method "${c.method}" is not in the organisation's library`);
+        const activeTubes = set.data.unit.geometry.tubeCount - set.data.unit.pluggedTubes;
         await ds.getRepository(UnitEvent).save({
-          organisationId: organisation.id, unitId: unit.id, kind: 'cleaning', startDate: c.date, endDate: c.date, methodId: null, cost: '185000.00',
-          cleanlinessBefore: Math.round(c.cfBefore * 1000) / 1000, cleanlinessAfter: c.cfAfter, pluggedTubesAfter: null, notes: `${c.method} (demo)`, createdByUserId: admin.userId,
+          organisationId: organisation.id, unitId: unit.id, kind: 'cleaning', startDate: c.date, endDate: c.date, methodId: method.id,
+          cost: (method.fixedCost + method.costPerTube * activeTubes).toFixed(2),
+          cleanlinessBefore: Math.round(c.cfBefore * 1000) / 1000, cleanlinessAfter: c.cfAfter, pluggedTubesAfter: null, notes: `${method.name} (demo)`, createdByUserId: admin.userId,
         });
       }
       for (const o of set.data.outages) {

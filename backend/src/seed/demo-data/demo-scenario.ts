@@ -33,6 +33,7 @@ export interface DemoUnitSpec {
   barometerKpa: number;
   fouling: { cleanCf: number; asymptoticCf: number; timeConstantDays: number; daysSinceCleaningAtStart: number };
   /** Planned outages (local dates, inclusive); a cleaning is done in those marked so. */
+  /** `cleaning.method` is the id of a method in the organisation's library (the typical methods new organisations start with). */
   plannedOutages: { start: string; end: string; cleaning?: { method: string; cfAfter: number } }[];
   /** The one air in-leakage episode (local dates): extra backpressure, subcooling, dissolved O2 and air-removal flow. */
   airLeak: { start: string; end: string; cfLossFraction: number };
@@ -71,9 +72,9 @@ export const DEMO_UNITS: DemoUnitSpec[] = [
     barometerKpa: 98.9,
     fouling: { cleanCf: 0.92, asymptoticCf: 0.6, timeConstantDays: 160, daysSinceCleaningAtStart: 150 },
     plannedOutages: [
-      { start: '2023-10-14', end: '2023-10-29', cleaning: { method: 'high-pressure water jetting', cfAfter: 0.92 } },
+      { start: '2023-10-14', end: '2023-10-29', cleaning: { method: 'hp-water-lancing', cfAfter: 0.92 } },
       { start: '2024-10-12', end: '2024-10-24' },
-      { start: '2025-04-05', end: '2025-04-20', cleaning: { method: 'high-pressure water jetting', cfAfter: 0.93 } },
+      { start: '2025-04-05', end: '2025-04-20', cleaning: { method: 'hp-water-lancing', cfAfter: 0.93 } },
     ],
     airLeak: { start: '2024-07-22', end: '2024-08-12', cfLossFraction: 0.14 },
     winterFlowFraction: 0.75,
@@ -94,9 +95,9 @@ export const DEMO_UNITS: DemoUnitSpec[] = [
     barometerKpa: 98.9,
     fouling: { cleanCf: 0.86, asymptoticCf: 0.55, timeConstantDays: 120, daysSinceCleaningAtStart: 60 },
     plannedOutages: [
-      { start: '2023-04-01', end: '2023-04-16', cleaning: { method: 'mechanical tube cleaning (scrapers)', cfAfter: 0.86 } },
-      { start: '2024-04-06', end: '2024-04-19', cleaning: { method: 'mechanical tube cleaning (scrapers)', cfAfter: 0.85 } },
-      { start: '2025-03-29', end: '2025-04-13', cleaning: { method: 'mechanical tube cleaning (scrapers)', cfAfter: 0.86 } },
+      { start: '2023-04-01', end: '2023-04-16', cleaning: { method: 'shot-tube-cleaners', cfAfter: 0.86 } },
+      { start: '2024-04-06', end: '2024-04-19', cleaning: { method: 'shot-tube-cleaners', cfAfter: 0.85 } },
+      { start: '2025-03-29', end: '2025-04-13', cleaning: { method: 'shot-tube-cleaners', cfAfter: 0.86 } },
     ],
     airLeak: { start: '2025-01-13', end: '2025-02-02', cfLossFraction: 0.12 },
     winterFlowFraction: 0.75,
@@ -117,8 +118,8 @@ export const DEMO_UNITS: DemoUnitSpec[] = [
     barometerKpa: 100.2,
     fouling: { cleanCf: 0.9, asymptoticCf: 0.62, timeConstantDays: 200, daysSinceCleaningAtStart: 240 },
     plannedOutages: [
-      { start: '2023-06-03', end: '2023-06-18', cleaning: { method: 'high-pressure water jetting', cfAfter: 0.9 } },
-      { start: '2025-05-10', end: '2025-05-25', cleaning: { method: 'high-pressure water jetting', cfAfter: 0.91 } },
+      { start: '2023-06-03', end: '2023-06-18', cleaning: { method: 'hp-water-lancing', cfAfter: 0.9 } },
+      { start: '2025-05-10', end: '2025-05-25', cleaning: { method: 'hp-water-lancing', cfAfter: 0.91 } },
     ],
     airLeak: { start: '2024-03-04', end: '2024-03-22', cfLossFraction: 0.13 },
     winterFlowFraction: 0.8,
@@ -139,11 +140,11 @@ export const DEMO_UNITS: DemoUnitSpec[] = [
     barometerKpa: 101.2,
     fouling: { cleanCf: 0.85, asymptoticCf: 0.5, timeConstantDays: 90, daysSinceCleaningAtStart: 30 },
     plannedOutages: [
-      { start: '2023-05-06', end: '2023-05-14', cleaning: { method: 'on-line sponge-ball cleaning campaign', cfAfter: 0.84 } },
-      { start: '2023-11-04', end: '2023-11-12', cleaning: { method: 'high-pressure water jetting', cfAfter: 0.85 } },
-      { start: '2024-05-04', end: '2024-05-12', cleaning: { method: 'high-pressure water jetting', cfAfter: 0.85 } },
-      { start: '2024-11-02', end: '2024-11-10', cleaning: { method: 'high-pressure water jetting', cfAfter: 0.85 } },
-      { start: '2025-05-03', end: '2025-05-11', cleaning: { method: 'high-pressure water jetting', cfAfter: 0.86 } },
+      { start: '2023-05-06', end: '2023-05-14', cleaning: { method: 'shot-tube-cleaners', cfAfter: 0.84 } },
+      { start: '2023-11-04', end: '2023-11-12', cleaning: { method: 'hp-water-lancing', cfAfter: 0.85 } },
+      { start: '2024-05-04', end: '2024-05-12', cleaning: { method: 'hp-water-lancing', cfAfter: 0.85 } },
+      { start: '2024-11-02', end: '2024-11-10', cleaning: { method: 'hp-water-lancing', cfAfter: 0.85 } },
+      { start: '2025-05-03', end: '2025-05-11', cleaning: { method: 'hp-water-lancing', cfAfter: 0.86 } },
     ],
     airLeak: { start: '2025-08-11', end: '2025-08-29', cfLossFraction: 0.15 },
     winterFlowFraction: 1,
