@@ -1,7 +1,7 @@
 /** The recommendation of a case in one paragraph, with the same figures as the case page. */
 import type { CaseView } from '@shared/schemas/cases.js';
 import { addDays, daysBetween } from '@shared/domain/calendar/plant-date.js';
-import { formatCurrency, formatDay, formatPercent, formatYears } from '@shared/text/display-format.js';
+import { formatCurrency, formatDay, formatNumber, formatPercent, formatYears } from '@shared/text/display-format.js';
 import { methodName } from './case-methods.js';
 
 export function baselineText(view: CaseView): string {
@@ -19,7 +19,7 @@ export function baselineText(view: CaseView): string {
 }
 
 const unitDuring = (c: CaseView['results']['cleanings'][number], days: number) =>
-  c.daysInPlannedOutage >= days ? 'inside a planned outage' : c.daysInPlannedOutage > 0 ? 'partly inside a planned outage' : 'outside the planned outages';
+  c.daysInPlannedOutage >= days ? 'inside a planned outage' : c.daysInPlannedOutage > 0 ? 'partly inside a planned outage' : 'outside any planned outage';
 
 export function horizonText(view: CaseView): string {
   const end = addDays(view.inputs.startDate, view.inputs.horizonDays - 1);
@@ -29,7 +29,7 @@ export function horizonText(view: CaseView): string {
 export function recommendationText(view: CaseView): string {
   const { cleanings, businessCase: bc } = view.results;
   const money = (v: number) => formatCurrency(v, view.currency);
-  const horizon = `the horizon of ${view.inputs.horizonDays} days (${horizonText(view)})`;
+  const horizon = `the horizon of ${formatNumber(view.inputs.horizonDays)} days (${horizonText(view)})`;
   const first = cleanings[0];
   const plan = first
     ? (() => {

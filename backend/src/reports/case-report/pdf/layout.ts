@@ -7,6 +7,15 @@ type Doc = PDFKit.PDFDocument;
 
 const bottom = (doc: Doc) => doc.page.height - doc.page.margins.bottom;
 
+/** The text cut with "…" to fit one line of `width` points in the current font and size. */
+export function fitLine(doc: Doc, text: string, width: number): string {
+  const t = pdfText(text);
+  if (doc.widthOfString(t) <= width) return t;
+  let keep = t.length;
+  while (keep > 0 && doc.widthOfString(`${t.slice(0, keep).trimEnd()}…`) > width) keep--;
+  return `${t.slice(0, keep).trimEnd()}…`;
+}
+
 /** Starts a new page unless `height` points still fit below the current position. */
 export function ensureSpace(doc: Doc, height: number): void {
   if (doc.y + height > bottom(doc)) doc.addPage();

@@ -7,13 +7,14 @@ import { formatDayOfMoment } from '@shared/text/display-format.js';
 import { notApprovedMark } from '../approval-mark.js';
 import type { CaseReportContext } from '../report-context.js';
 import { FONT } from './fonts.js';
+import { fitLine } from './layout.js';
 import { pdfText } from './pdf-text.js';
 import { COLOR, CONTENT_WIDTH, PAGE, SIZE } from './theme.js';
 
 export function framePages(doc: PDFKit.PDFDocument, view: CaseView, ctx: CaseReportContext): void {
   const mark = notApprovedMark(view);
   const range = doc.bufferedPageRange();
-  const footerLeft = pdfText(`${ctx.organisationName} · ${view.plantName} · ${view.unitName} · ${view.title}`);
+  const footerLeft = `${ctx.organisationName} · ${view.plantName} · ${view.unitName} · ${view.title}`;
   const generated = `Report made ${formatDayOfMoment(ctx.generatedAt, view.timeZone)}`;
   for (let i = range.start; i < range.start + range.count; i++) {
     doc.switchToPage(i);
@@ -28,11 +29,8 @@ export function framePages(doc: PDFKit.PDFDocument, view: CaseView, ctx: CaseRep
         .fillColor(COLOR.markInk)
         .text(pdfText(mark), PAGE.marginX, 26, { width: CONTENT_WIDTH, align: 'center', lineBreak: false });
     } else {
-      doc
-        .font(FONT.semibold)
-        .fontSize(SIZE.tiny)
-        .fillColor(COLOR.muted)
-        .text(pdfText(`Approved case · ${view.title}`), PAGE.marginX, 28, { width: CONTENT_WIDTH, lineBreak: false, ellipsis: true });
+      doc.font(FONT.semibold).fontSize(SIZE.tiny).fillColor(COLOR.muted);
+      doc.text(fitLine(doc, `Approved case · ${view.title}`, CONTENT_WIDTH), PAGE.marginX, 28, { lineBreak: false });
     }
     const y = PAGE.height - 40;
     doc
@@ -42,7 +40,7 @@ export function framePages(doc: PDFKit.PDFDocument, view: CaseView, ctx: CaseRep
       .strokeColor(COLOR.rule)
       .stroke();
     doc.font(FONT.regular).fontSize(SIZE.tiny).fillColor(COLOR.muted);
-    doc.text(footerLeft, PAGE.marginX, y, { width: CONTENT_WIDTH - 90, lineBreak: false, ellipsis: true });
+    doc.text(fitLine(doc, footerLeft, CONTENT_WIDTH - 100), PAGE.marginX, y, { lineBreak: false });
     doc.text(`Page ${i - range.start + 1} of ${range.count}`, PAGE.marginX + CONTENT_WIDTH - 90, y, { width: 90, align: 'right', lineBreak: false });
     doc.text(pdfText(`${generated} · Estimates from the data and assumptions shown. · Cleancase`), PAGE.marginX, y + 10, {
       width: CONTENT_WIDTH,

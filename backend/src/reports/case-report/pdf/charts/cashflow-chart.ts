@@ -22,7 +22,8 @@ export function cashflowChart(doc: Doc, box: Box, rows: YearlyRow[], currency: s
     const height = Math.max(0.6, Math.abs(y(r.cashflow) - y(0)));
     doc.rect(cx - barWidth / 2, top, barWidth, height).fill(r.cashflow < 0 ? COLOR.negative : COLOR.positive);
     const label = pdfText(formatCurrency(r.cashflow, currency));
-    const ly = r.cashflow < 0 ? y(r.cashflow) + 2 : top - 10;
+    // above the bar, or above the zero line for a negative year, so the label never meets the axis below
+    const ly = (r.cashflow < 0 ? y(0) : top) - 10;
     doc
       .font(FONT.semibold)
       .fontSize(SIZE.tiny)

@@ -1,5 +1,6 @@
 /** Scales, ticks and axes shared by the report's vector charts. */
 import { FONT } from '../fonts.js';
+import { fitLine } from '../layout.js';
 import { pdfText } from '../pdf-text.js';
 import { COLOR, SIZE } from '../theme.js';
 
@@ -57,17 +58,12 @@ export function compactMoney(value: number, currency: string): string {
 }
 
 export function chartTitle(doc: Doc, box: Box, title: string, note?: string): void {
-  doc
-    .font(FONT.semibold)
-    .fontSize(SIZE.subheading)
-    .fillColor(COLOR.ink)
-    .text(pdfText(title), box.x, box.y - 30, { width: box.width, lineBreak: false });
-  if (note)
-    doc
-      .font(FONT.regular)
-      .fontSize(SIZE.tiny)
-      .fillColor(COLOR.muted)
-      .text(pdfText(note), box.x, box.y - 16, { width: box.width, lineBreak: false });
+  doc.font(FONT.semibold).fontSize(SIZE.subheading).fillColor(COLOR.ink);
+  doc.text(fitLine(doc, title, box.width), box.x, box.y - 30, { lineBreak: false });
+  if (note) {
+    doc.font(FONT.regular).fontSize(SIZE.tiny).fillColor(COLOR.muted);
+    doc.text(fitLine(doc, note, box.width), box.x, box.y - 16, { lineBreak: false });
+  }
 }
 
 /** Horizontal grid lines with labels on the left. */

@@ -72,26 +72,32 @@ export function cleanlinessChart(doc: Doc, box: Box, view: CaseView): void {
       .text('The daily path was not kept with this case.', box.x + 10, box.y + box.height / 2, { lineBreak: false });
   }
 
-  view.results.cleanings.forEach((c, i) => {
-    const at = x(daysBetween(startDate, c.date));
+  // numbered markers while they have room; a plain tick per cleaning when they would touch
+  const marks = view.results.cleanings.map((c) => x(daysBetween(startDate, c.date)));
+  const numbered = marks.every((at, i) => i === 0 || at - marks[i - 1] >= 12);
+  marks.forEach((at, i) => {
     doc
       .moveTo(at, box.y + 8)
       .lineTo(at, box.y + box.height)
-      .lineWidth(0.8)
+      .lineWidth(numbered ? 0.8 : 0.4)
       .strokeColor(COLOR.negative)
       .stroke();
-    doc.circle(at, box.y + 4, 5.5).fill(COLOR.negative);
-    doc
-      .font(FONT.bold)
-      .fontSize(SIZE.tiny)
-      .fillColor('#ffffff')
-      .text(String(i + 1), at - 5.5, box.y + 1.2, { width: 11, align: 'center', lineBreak: false });
+    if (numbered) {
+      doc.circle(at, box.y + 4, 5.5).fill(COLOR.negative);
+      doc
+        .font(FONT.bold)
+        .fontSize(SIZE.tiny)
+        .fillColor('#ffffff')
+        .text(String(i + 1), at - 5.5, box.y + 1.2, { width: 11, align: 'center', lineBreak: false });
+    } else {
+      doc.polygon([at - 2.5, box.y + 2], [at + 2.5, box.y + 2], [at, box.y + 8]).fill(COLOR.negative);
+    }
   });
 
   legend(doc, box.x, box.y + box.height + 20, [
     { color: COLOR.accent, label: 'cleanliness factor', kind: 'line' },
     { color: COLOR.muted, label: `reference cleanliness ${formatNumber(ref, 2)}`, kind: 'dash' },
-    { color: COLOR.negative, label: 'cleaning (numbered as in the schedule)', kind: 'line' },
+    { color: COLOR.negative, label: numbered ? 'cleaning (numbered as in the schedule)' : 'cleaning (listed in the schedule)', kind: 'line' },
     { color: COLOR.shade, label: 'planned outage' },
   ]);
 }
