@@ -39,7 +39,7 @@ export function readNumberText(text: string, format: NumberFormat): NumberText {
   if (commas > 0 && points > 0) {
     const decimal = body.lastIndexOf(',') > body.lastIndexOf('.') ? ',' : '.';
     const group = decimal === ',' ? '.' : ',';
-    const [whole, fraction] = body.split(decimal);
+    const [whole = '', fraction = ''] = body.split(decimal);
     if (body.split(decimal).length !== 2 || !grouped(whole, group) || !/^\d*$/.test(fraction)) return { kind: 'invalid' };
     return number(`${whole.split(group).join('')}.${fraction}`);
   }
@@ -47,7 +47,7 @@ export function readNumberText(text: string, format: NumberFormat): NumberText {
   const mark = commas > 0 ? ',' : '.';
   if (commas + points > 1) return grouped(body, mark) ? number(body.split(mark).join('')) : { kind: 'invalid' };
 
-  const [whole, fraction] = body.split(mark);
+  const [whole = '', fraction = ''] = body.split(mark); // exactly one mark here: both parts exist
   const couldBeThousands = /^[1-9]\d{0,2}$/.test(whole) && /^\d{3}$/.test(fraction);
   if (!couldBeThousands || mark === format.decimal) return number(`${whole || '0'}.${fraction || '0'}`);
   if (mark === ',') return number(`${whole}${fraction}`, `Read as ${whole}${fraction} (the comma separates thousands)`);

@@ -58,7 +58,7 @@ export function findTextProblem(value: unknown): { path: string; problem: TextPr
     } else if (v !== null && typeof v === 'object') {
       const entries = Object.entries(v as Record<string, unknown>);
       for (let i = entries.length - 1; i >= 0; i--) {
-        const [key, child] = entries[i];
+        const [key, child] = entries[i]!;
         const problem = problemOf(key);
         if (problem) return { path: pathOf({ value: child, key: printable(key), parent: step }), problem };
         stack.push({ value: child, key, parent: step });

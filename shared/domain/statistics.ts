@@ -5,7 +5,7 @@ export function median(values: readonly number[]): number | null {
   if (values.length === 0) return null;
   const s = [...values].sort((a, b) => a - b);
   const mid = s.length >> 1;
-  return s.length % 2 ? s[mid] : (s[mid - 1] + s[mid]) / 2;
+  return s.length % 2 ? s[mid]! : (s[mid - 1]! + s[mid]!) / 2;
 }
 
 /** Quantile with linear interpolation between order statistics (type 7, as in R's default). Input must be sorted. */
@@ -15,7 +15,7 @@ export function quantileSorted(sorted: ArrayLike<number>, p: number): number {
   const h = (n - 1) * p;
   const lo = Math.floor(h);
   const hi = Math.min(n - 1, lo + 1);
-  return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
+  return sorted[lo]! + (h - lo) * (sorted[hi]! - sorted[lo]!);
 }
 
 /** Median absolute deviation from the median (unscaled). */
@@ -30,10 +30,10 @@ export function medianAbsoluteDeviation(values: readonly number[]): number {
  */
 export function normalQuantile(p: number): number {
   if (!(p > 0 && p < 1)) throw new Error('normal quantile needs 0 < p < 1');
-  const a = [-39.69683028665376, 220.9460984245205, -275.9285104469687, 138.357751867269, -30.66479806614716, 2.506628277459239];
-  const b = [-54.47609879822406, 161.5858368580409, -155.6989798598866, 66.80131188771972, -13.28068155288572];
-  const c = [-0.007784894002430293, -0.3223964580411365, -2.400758277161838, -2.549732539343734, 4.374664141464968, 2.938163982698783];
-  const d = [0.007784695709041462, 0.3224671290700398, 2.445134137142996, 3.754408661907416];
+  const a = [-39.69683028665376, 220.9460984245205, -275.9285104469687, 138.357751867269, -30.66479806614716, 2.506628277459239] as const;
+  const b = [-54.47609879822406, 161.5858368580409, -155.6989798598866, 66.80131188771972, -13.28068155288572] as const;
+  const c = [-0.007784894002430293, -0.3223964580411365, -2.400758277161838, -2.549732539343734, 4.374664141464968, 2.938163982698783] as const;
+  const d = [0.007784695709041462, 0.3224671290700398, 2.445134137142996, 3.754408661907416] as const;
   const plow = 0.02425;
   let x: number;
   if (p < plow) {
@@ -104,20 +104,24 @@ export function studentTQuantile(p: number, dof: number): number {
 /** Solves the small dense system A·x = b by Gaussian elimination with partial pivoting; null when singular. */
 export function solveLinear(a: readonly number[][], b: readonly number[]): number[] | null {
   const n = b.length;
-  const m = a.map((row, i) => [...row, b[i]]);
+  // augmented rows [A | b]; every index below is within the n × (n + 1) matrix
+  const m = a.map((row, i) => [...row, b[i]!]);
   for (let col = 0; col < n; col++) {
     let pivot = col;
-    for (let r = col + 1; r < n; r++) if (Math.abs(m[r][col]) > Math.abs(m[pivot][col])) pivot = r;
-    const scale = Math.max(...m.map((row) => Math.abs(row[col])));
-    if (Math.abs(m[pivot][col]) <= 1e-14 * (scale || 1)) return null;
-    [m[col], m[pivot]] = [m[pivot], m[col]];
+    for (let r = col + 1; r < n; r++) if (Math.abs(m[r]![col]!) > Math.abs(m[pivot]![col]!)) pivot = r;
+    const scale = Math.max(...m.map((row) => Math.abs(row[col]!)));
+    const pivotRow = m[pivot]!;
+    if (Math.abs(pivotRow[col]!) <= 1e-14 * (scale || 1)) return null;
+    m[pivot] = m[col]!;
+    m[col] = pivotRow;
     for (let r = 0; r < n; r++) {
       if (r === col) continue;
-      const f = m[r][col] / m[col][col];
-      for (let c = col; c <= n; c++) m[r][c] -= f * m[col][c];
+      const row = m[r]!;
+      const f = row[col]! / pivotRow[col]!;
+      for (let c = col; c <= n; c++) row[c]! -= f * pivotRow[c]!;
     }
   }
-  return m.map((row, i) => row[n] / row[i]);
+  return m.map((row, i) => row[n]! / row[i]!);
 }
 
 /** Inverse of a small symmetric positive-definite matrix (column by column); null when singular. */
@@ -131,5 +135,5 @@ export function invertMatrix(a: readonly number[][]): number[][] | null {
     if (!x) return null;
     cols.push(x);
   }
-  return Array.from({ length: n }, (_, i) => cols.map((col) => col[i]));
+  return Array.from({ length: n }, (_, i) => cols.map((col) => col[i]!));
 }

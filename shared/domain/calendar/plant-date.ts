@@ -20,7 +20,7 @@ export function isLeapYear(year: number): boolean {
 }
 
 export function daysInMonth(year: number, month: number): number {
-  return [31, isLeapYear(year) ? 29 : 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31][month - 1];
+  return [31, isLeapYear(year) ? 29 : 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31][month - 1]!;
 }
 
 export function parsePlantDate(text: string): CivilDate {

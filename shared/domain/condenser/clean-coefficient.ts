@@ -17,8 +17,8 @@ export function tubeConstantC(tables: HeiTables, tubeOdMm: number): number {
 export function inletTemperatureFactor(tables: HeiTables, cwInletC: number): { factor: number; clamped: boolean } {
   const t = tables.inletTemperatureFactor;
   const n = t.length;
-  if (cwInletC <= t[0].inletC) return { factor: t[0].factor, clamped: cwInletC < t[0].inletC };
-  if (cwInletC >= t[n - 1].inletC) return { factor: t[n - 1].factor, clamped: cwInletC > t[n - 1].inletC };
+  if (cwInletC <= t[0]!.inletC) return { factor: t[0]!.factor, clamped: cwInletC < t[0]!.inletC };
+  if (cwInletC >= t[n - 1]!.inletC) return { factor: t[n - 1]!.factor, clamped: cwInletC > t[n - 1]!.inletC };
   return { factor: interpolateFw(t, cwInletC), clamped: false };
 }
 
@@ -26,16 +26,16 @@ export function inletTemperatureFactor(tables: HeiTables, cwInletC: number): { f
 export function inletTemperatureFactorValue(tables: HeiTables, cwInletC: number): number {
   const t = tables.inletTemperatureFactor;
   const n = t.length;
-  if (cwInletC <= t[0].inletC) return t[0].factor;
-  if (cwInletC >= t[n - 1].inletC) return t[n - 1].factor;
+  if (cwInletC <= t[0]!.inletC) return t[0]!.factor;
+  if (cwInletC >= t[n - 1]!.inletC) return t[n - 1]!.factor;
   return interpolateFw(t, cwInletC);
 }
 
 function interpolateFw(t: HeiTables['inletTemperatureFactor'], x: number): number {
   let i = 1;
-  while (x > t[i].inletC) i++;
-  const a = t[i - 1];
-  const b = t[i];
+  while (x > t[i]!.inletC) i++;
+  const a = t[i - 1]!;
+  const b = t[i]!;
   return a.factor + ((b.factor - a.factor) * (x - a.inletC)) / (b.inletC - a.inletC);
 }
 
@@ -45,8 +45,8 @@ export function materialFactor(tables: HeiTables, material: TubeMaterial, bwg: n
   if (!rows || rows.length === 0) throw new RangeError(`no Fm values for tube material "${material}"`);
   const wall = bwgWallIn(bwg);
   const byWall = rows.map((r) => ({ wall: bwgWallIn(r.bwg), factor: r.factor })).sort((p, q) => p.wall - q.wall);
-  const lo = byWall[0];
-  const hi = byWall[byWall.length - 1];
+  const lo = byWall[0]!;
+  const hi = byWall[byWall.length - 1]!;
   if (wall < lo.wall - 1e-12 || wall > hi.wall + 1e-12) {
     const gauges = rows.map((r) => r.bwg).sort((p, q) => p - q);
     throw new RangeError(
@@ -54,8 +54,8 @@ export function materialFactor(tables: HeiTables, material: TubeMaterial, bwg: n
     );
   }
   for (let i = 1; i < byWall.length; i++) {
-    const a = byWall[i - 1];
-    const b = byWall[i];
+    const a = byWall[i - 1]!;
+    const b = byWall[i]!;
     if (wall <= b.wall) return b.wall === a.wall ? b.factor : a.factor + ((b.factor - a.factor) * (wall - a.wall)) / (b.wall - a.wall);
   }
   return lo.factor;
@@ -77,7 +77,7 @@ export function inletTemperatureFactorWarning(tables: HeiTables, cwInletC: numbe
   const fw = inletTemperatureFactor(tables, cwInletC);
   if (!fw.clamped) return undefined;
   const t = tables.inletTemperatureFactor;
-  return `CW inlet ${cToF(cwInletC).toFixed(1)} °F is outside the Fw table (${cToF(t[0].inletC).toFixed(0)}–${cToF(t[t.length - 1].inletC).toFixed(0)} °F); the end value ${fw.factor} was used`;
+  return `CW inlet ${cToF(cwInletC).toFixed(1)} °F is outside the Fw table (${cToF(t[0]!.inletC).toFixed(0)}–${cToF(t[t.length - 1]!.inletC).toFixed(0)} °F); the end value ${fw.factor} was used`;
 }
 
 export interface CleanCoefficient {

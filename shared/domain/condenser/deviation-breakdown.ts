@@ -110,8 +110,8 @@ export function deviationBreakdown(input: DeviationBreakdownInput): DeviationBre
   const s4 = { ...s3, pluggedTubes: measured.pluggedTubes };
   const s5 = { ...s4, cleanliness: fouledCf };
   const chain = [s0, s1, s2, s3, s4, s5];
-  const p = chain.map(model);
-  const states = chain.map((s, k) => ({ name: `S${k}` as DeviationBreakdown['states'][number]['name'], ...s, backpressureKpa: p[k] }));
+  const states = chain.map((s, k) => ({ name: `S${k}` as DeviationBreakdown['states'][number]['name'], ...s, backpressureKpa: model(s) }));
+  const p = states.map((s) => s.backpressureKpa);
 
   // Pressures at the ends of each line, in order: datasheet → design model → S0 … S5 → measured.
   const points = [design.backpressureKpa, designFull, ...p, measured.backpressureKpa];
@@ -120,8 +120,8 @@ export function deviationBreakdown(input: DeviationBreakdownInput): DeviationBre
   const lines: DeviationLine[] = causes.map((cause, k) => ({
     cause,
     label: LABELS[cause],
-    deltaKpa: points[k + 1] - points[k],
-    ...(hr ? { heatRatePct: hr[k + 1] - hr[k] } : {}),
+    deltaKpa: points[k + 1]! - points[k]!,
+    ...(hr ? { heatRatePct: hr[k + 1]! - hr[k]! } : {}),
   }));
   return {
     datasheetDesignKpa: design.backpressureKpa,

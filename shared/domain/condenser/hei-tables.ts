@@ -88,7 +88,7 @@ export function assertHeiTables(tables: HeiTables): void {
     if (!(band.c > 0)) throw new RangeError(`C must be positive (band ${i + 1})`);
     const last = i === c.length - 1;
     if (last !== (band.odBelowMm === null)) throw new RangeError('only the last C band is open-ended (odBelowMm null)');
-    if (!last && i > 0 && !((band.odBelowMm as number) > (c[i - 1].odBelowMm as number))) {
+    if (!last && i > 0 && !((band.odBelowMm as number) > (c[i - 1]!.odBelowMm as number))) {
       throw new RangeError('C bands must be in increasing order of OD');
     }
   });
@@ -96,7 +96,7 @@ export function assertHeiTables(tables: HeiTables): void {
   if (!Array.isArray(fw) || fw.length === 0) throw new RangeError('the Fw table needs at least one row');
   fw.forEach((row, i) => {
     if (!(row.factor > 0) || !Number.isFinite(row.inletC)) throw new RangeError(`Fw row ${i + 1} needs a finite temperature and a positive factor`);
-    if (i > 0 && !(row.inletC > fw[i - 1].inletC)) throw new RangeError('Fw rows must be in increasing order of temperature');
+    if (i > 0 && !(row.inletC > fw[i - 1]!.inletC)) throw new RangeError('Fw rows must be in increasing order of temperature');
   });
   for (const material of TUBE_MATERIALS) {
     const rows = tables.materialFactor[material];

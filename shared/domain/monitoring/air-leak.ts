@@ -87,9 +87,9 @@ function expectedCleanliness(reference: readonly AirLeakDay[], t: number): numbe
   if (reference.length < MIN_DAYS_FOR_TREND) return median(cf)!;
   const ts = reference.map((r) => dayNumber(r.day));
   const slopes: number[] = [];
-  for (let a = 0; a < ts.length; a++) for (let b = a + 1; b < ts.length; b++) if (ts[a] !== ts[b]) slopes.push((cf[b] - cf[a]) / (ts[b] - ts[a]));
+  for (let a = 0; a < ts.length; a++) for (let b = a + 1; b < ts.length; b++) if (ts[a] !== ts[b]) slopes.push((cf[b]! - cf[a]!) / (ts[b]! - ts[a]!));
   const slope = Math.min(0, median(slopes) ?? 0);
-  return median(cf.map((c, k) => c - slope * (ts[k] - t)))!;
+  return median(cf.map((c, k) => c - slope * (ts[k]! - t)))!;
 }
 
 /** The witnesses that rose on day `d` against the medians of `reference`. */
@@ -117,7 +117,7 @@ export function judgeAirLeakDays(days: readonly AirLeakDay[], settings: AirLeakS
   const verdicts: AirLeakDayVerdict[] = [];
   const sortedCleanings = [...cleanings].sort();
   for (let i = 0; i < days.length; i++) {
-    const d = days[i];
+    const d = days[i]!;
     const t = dayNumber(d.day);
     const lastCleaning = sortedCleanings.filter((c) => c <= d.day).at(-1) ?? '';
     const freshlyCleaned = lastCleaning !== '' && days.slice(Math.max(0, i - settings.baselineDays - settings.gapDays), i).some((x) => x.day < lastCleaning);
@@ -126,15 +126,15 @@ export function judgeAirLeakDays(days: readonly AirLeakDay[], settings: AirLeakS
     // the reach limit; in the first weeks after a cleaning the gap is dropped and a shorter reference will do.
     const gap = freshlyCleaned ? 0 : settings.gapDays;
     const minimum = freshlyCleaned ? MIN_REFERENCE_AFTER_CLEANING : settings.baselineDays / 2;
-    const inReach = (k: number) => k >= 0 && days[k].day >= lastCleaning && t - dayNumber(days[k].day) <= MAX_REFERENCE_REACH_DAYS;
+    const inReach = (k: number) => k >= 0 && days[k]!.day >= lastCleaning && t - dayNumber(days[k]!.day) <= MAX_REFERENCE_REACH_DAYS;
     let reference: AirLeakDay[] = [];
     for (let k = i - gap - 1; inReach(k) && reference.length < settings.baselineDays; k--) {
-      if (!verdicts[k].suspected) reference.push(days[k]);
+      if (!verdicts[k]!.suspected) reference.push(days[k]!);
     }
     if (reference.length < minimum) {
       // Too few unsuspected days within reach: the latest days, suspected or not, are the new normal.
       reference = [];
-      for (let k = i - gap - 1; inReach(k) && reference.length < settings.baselineDays; k--) reference.push(days[k]);
+      for (let k = i - gap - 1; inReach(k) && reference.length < settings.baselineDays; k--) reference.push(days[k]!);
     }
     if (reference.length < minimum) {
       verdicts.push({ day: d.day, suspected: false, drop: 0, evidence: [] });
@@ -150,10 +150,10 @@ export function judgeAirLeakDays(days: readonly AirLeakDay[], settings: AirLeakS
     let suspected = witnessed ? (drop >= settings.dropWithEvidence && evidence.length > 0) || evidence.length >= 2 : drop >= settings.dropAlone;
     if (!suspected && witnessed) {
       const earlier: AirLeakDay[] = [];
-      for (let k = i - 1; k >= 0 && days[k].day >= lastCleaning; k--) {
-        const age = t - dayNumber(days[k].day);
+      for (let k = i - 1; k >= 0 && days[k]!.day >= lastCleaning; k--) {
+        const age = t - dayNumber(days[k]!.day);
         if (age > EARLIER_WINDOW_DAYS.from) break;
-        if (age >= EARLIER_WINDOW_DAYS.to && !verdicts[k].suspected) earlier.push(days[k]);
+        if (age >= EARLIER_WINDOW_DAYS.to && !verdicts[k]!.suspected) earlier.push(days[k]!);
       }
       if (earlier.length >= MIN_EARLIER_DAYS) {
         const rose = witnessRises(d, earlier, settings);

@@ -5,7 +5,7 @@
  */
 export function lttb<T>(points: readonly T[], threshold: number, x: (p: T) => number, y: (p: T) => number): T[] {
   if (threshold >= points.length || threshold < 3) return [...points];
-  const sampled: T[] = [points[0]];
+  const sampled: T[] = [points[0]!];
   const every = (points.length - 2) / (threshold - 2);
   let a = 0;
   for (let i = 0; i < threshold - 2; i++) {
@@ -14,29 +14,29 @@ export function lttb<T>(points: readonly T[], threshold: number, x: (p: T) => nu
     let avgX = 0;
     let avgY = 0;
     for (let j = nextStart; j < nextEnd; j++) {
-      avgX += x(points[j]);
-      avgY += y(points[j]);
+      avgX += x(points[j]!);
+      avgY += y(points[j]!);
     }
     const n = Math.max(1, nextEnd - nextStart);
     avgX /= n;
     avgY /= n;
     const start = Math.floor(i * every) + 1;
     const end = Math.floor((i + 1) * every) + 1;
-    const ax = x(points[a]);
-    const ay = y(points[a]);
+    const ax = x(points[a]!);
+    const ay = y(points[a]!);
     let best = start;
     let bestArea = -1;
     for (let j = start; j < end; j++) {
-      const area = Math.abs((ax - avgX) * (y(points[j]) - ay) - (ax - x(points[j])) * (avgY - ay));
+      const area = Math.abs((ax - avgX) * (y(points[j]!) - ay) - (ax - x(points[j]!)) * (avgY - ay));
       if (area > bestArea) {
         bestArea = area;
         best = j;
       }
     }
-    sampled.push(points[best]);
+    sampled.push(points[best]!);
     a = best;
   }
-  sampled.push(points[points.length - 1]);
+  sampled.push(points[points.length - 1]!);
   return sampled;
 }
 
@@ -58,11 +58,11 @@ export function lttbKeepingGaps<T>(points: readonly T[], threshold: number, x: (
   const pieces: ({ gap: T } | { run: T[] })[] = [];
   for (let i = 0; i < n; ) {
     let j = i;
-    if (missing(points[i])) {
-      while (j < n && missing(points[j])) j++;
-      if (j - i >= bucket) pieces.push({ gap: points[i] });
+    if (missing(points[i]!)) {
+      while (j < n && missing(points[j]!)) j++;
+      if (j - i >= bucket) pieces.push({ gap: points[i]! });
     } else {
-      while (j < n && !missing(points[j])) j++;
+      while (j < n && !missing(points[j]!)) j++;
       const last = pieces.at(-1);
       if (last && 'run' in last) last.run.push(...points.slice(i, j));
       else pieces.push({ run: points.slice(i, j) });
@@ -74,21 +74,21 @@ export function lttbKeepingGaps<T>(points: readonly T[], threshold: number, x: (
   const budget = threshold - gaps;
   if (budget < runs.length) {
     // Gaps alternate faster than the output can show: every n/threshold-th point, empty ones as they are.
-    return Array.from({ length: threshold }, (_, k) => points[Math.floor((k * (n - 1)) / (threshold - 1))]);
+    return Array.from({ length: threshold }, (_, k) => points[Math.floor((k * (n - 1)) / (threshold - 1))]!);
   }
   const total = runs.reduce((s, r) => s + r.length, 0);
   const alloc = runs.map((r) => Math.min(r.length, Math.max(1, Math.floor((budget * r.length) / total))));
   let sum = alloc.reduce((s, a) => s + a, 0);
   while (sum > budget) {
     const k = alloc.indexOf(Math.max(...alloc));
-    alloc[k]--;
+    alloc[k]!--;
     sum--;
   }
   while (sum < budget) {
     let k = -1;
-    for (let r = 0; r < runs.length; r++) if (alloc[r] < runs[r].length && (k < 0 || runs[r].length / alloc[r] > runs[k].length / alloc[k])) k = r;
+    for (let r = 0; r < runs.length; r++) if (alloc[r]! < runs[r]!.length && (k < 0 || runs[r]!.length / alloc[r]! > runs[k]!.length / alloc[k]!)) k = r;
     if (k < 0) break;
-    alloc[k]++;
+    alloc[k]!++;
     sum++;
   }
   const value = (p: T) => y(p) as number;
@@ -100,10 +100,10 @@ export function lttbKeepingGaps<T>(points: readonly T[], threshold: number, x: (
       continue;
     }
     const run = piece.run;
-    const k = alloc[r++];
+    const k = alloc[r++]!;
     if (k >= run.length) out.push(...run);
-    else if (k === 1) out.push(run[run.length >> 1]);
-    else if (k === 2) out.push(run[0], run[run.length - 1]);
+    else if (k === 1) out.push(run[run.length >> 1]!);
+    else if (k === 2) out.push(run[0]!, run[run.length - 1]!);
     else out.push(...lttb(run, k, x, value));
   }
   return out;

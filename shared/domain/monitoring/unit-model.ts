@@ -60,9 +60,9 @@ function linearTable(points: { loadFraction: number; dutyMw: number }[]): (x: nu
   if (sorted.length < 2) throw new RangeError('the heat-balance duty needs at least two load points');
   return (x) => {
     let i = 0;
-    while (i < sorted.length - 2 && x > sorted[i + 1].loadFraction) i++;
-    const a = sorted[i];
-    const b = sorted[i + 1];
+    while (i < sorted.length - 2 && x > sorted[i + 1]!.loadFraction) i++;
+    const a = sorted[i]!;
+    const b = sorted[i + 1]!;
     return a.dutyMw + ((b.dutyMw - a.dutyMw) * (x - a.loadFraction)) / (b.loadFraction - a.loadFraction);
   };
 }

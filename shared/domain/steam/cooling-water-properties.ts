@@ -32,10 +32,10 @@ function interpolate(table: Float64Array, tempC: number): number {
   if (i >= NODES - 1) i = NODES - 2;
   const u = x - i;
   // nodes i-1, i, i+1, i+2 sit at table indices i, i+1, i+2, i+3
-  const y0 = table[i];
-  const y1 = table[i + 1];
-  const y2 = table[i + 2];
-  const y3 = table[i + 3];
+  const y0 = table[i]!;
+  const y1 = table[i + 1]!;
+  const y2 = table[i + 2]!;
+  const y3 = table[i + 3]!;
   const um1 = u - 1;
   const um2 = u - 2;
   const up1 = u + 1;

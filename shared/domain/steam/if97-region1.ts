@@ -46,9 +46,9 @@ export function region1Unchecked(tK: number, pMpa: number): SteamProperties {
   let gTau = 0;
   let gTauTau = 0;
   for (let k = 0; k < 34; k++) {
-    const i = I[k];
-    const j = J[k];
-    const n = N[k];
+    const i = I[k]!;
+    const j = J[k]!;
+    const n = N[k]!;
     const aI1 = i === 0 ? 0 : a ** (i - 1);
     const aI = a ** i;
     const bJ2 = b ** (j - 2);
@@ -108,7 +108,7 @@ export function region1TemperatureFromPh(pMpa: number, hKjKg: number): number {
   const pi = pMpa;
   const eta1 = hKjKg / 2500 + 1;
   let theta = 0;
-  for (let k = 0; k < 20; k++) theta += NB[k] * pi ** IB[k] * eta1 ** JB[k];
+  for (let k = 0; k < 20; k++) theta += NB[k]! * pi ** IB[k]! * eta1 ** JB[k]!;
   if (theta < REGION1_T_MIN_K - 0.05 || theta > REGION1_T_MAX_K + 0.05 || pMpa < psatMpaUnchecked(Math.min(Math.max(theta, REGION1_T_MIN_K), REGION1_T_MAX_K)) * (1 - 1e-6)) {
     throw outOfRange('region 1 enthalpy (kJ/kg)', hKjKg, `liquid (region 1) enthalpies at ${pMpa} MPa`);
   }

@@ -39,8 +39,8 @@ export function region2Unchecked(tK: number, pMpa: number): SteamProperties {
   let g0Tau = 0;
   let g0TauTau = 0;
   for (let k = 0; k < 9; k++) {
-    const j = J0[k];
-    const n = N0[k];
+    const j = J0[k]!;
+    const n = N0[k]!;
     g0 += n * tau ** j;
     g0Tau += n * j * tau ** (j - 1);
     g0TauTau += n * j * (j - 1) * tau ** (j - 2);
@@ -51,9 +51,9 @@ export function region2Unchecked(tK: number, pMpa: number): SteamProperties {
   let grTau = 0;
   let grTauTau = 0;
   for (let k = 0; k < 43; k++) {
-    const i = IR[k];
-    const j = JR[k];
-    const n = NR[k];
+    const i = IR[k]!;
+    const j = JR[k]!;
+    const n = NR[k]!;
     const piI1 = pi ** (i - 1);
     const piI = piI1 * pi;
     const bJ = b ** j;

@@ -30,9 +30,9 @@ export function compileCorrectionCurve(curve: CorrectionCurve): CompiledCurve {
   if (!Array.isArray(curve.curves) || curve.curves.length === 0) throw new RangeError('a correction curve needs at least one load curve');
   const sorted = [...curve.curves].sort((a, b) => a.loadFraction - b.loadFraction);
   for (let i = 0; i < sorted.length; i++) {
-    const lf = sorted[i].loadFraction;
+    const lf = sorted[i]!.loadFraction;
     if (!(lf > 0 && lf <= 1.2)) throw new RangeError(`curve load fraction must be in (0, 1.2], got ${lf}`);
-    if (i > 0 && lf === sorted[i - 1].loadFraction) throw new RangeError(`two curves share the load fraction ${lf}`);
+    if (i > 0 && lf === sorted[i - 1]!.loadFraction) throw new RangeError(`two curves share the load fraction ${lf}`);
   }
   const cubics = sorted.map((c) => {
     const pts = [...c.points].sort((a, b) => a.backpressureKpa - b.backpressureKpa);
@@ -63,12 +63,12 @@ export function curveChangePct(curve: CorrectionCurve, loadFraction: number, bac
   }
   const { loads, cubics } = compileCorrectionCurve(curve);
   const n = loads.length;
-  if (n === 1 || loadFraction <= loads[0]) return evaluateMonotoneCubic(cubics[0], backpressureKpa);
-  if (loadFraction >= loads[n - 1]) return evaluateMonotoneCubic(cubics[n - 1], backpressureKpa);
+  if (n === 1 || loadFraction <= loads[0]!) return evaluateMonotoneCubic(cubics[0]!, backpressureKpa);
+  if (loadFraction >= loads[n - 1]!) return evaluateMonotoneCubic(cubics[n - 1]!, backpressureKpa);
   let i = 1;
-  while (loadFraction > loads[i]) i++;
-  const w = (loadFraction - loads[i - 1]) / (loads[i] - loads[i - 1]);
-  return (1 - w) * evaluateMonotoneCubic(cubics[i - 1], backpressureKpa) + w * evaluateMonotoneCubic(cubics[i], backpressureKpa);
+  while (loadFraction > loads[i]!) i++;
+  const w = (loadFraction - loads[i - 1]!) / (loads[i]! - loads[i - 1]!);
+  return (1 - w) * evaluateMonotoneCubic(cubics[i - 1]!, backpressureKpa) + w * evaluateMonotoneCubic(cubics[i]!, backpressureKpa);
 }
 
 /**
@@ -80,8 +80,8 @@ export function curveExtrapolationWarning(curve: CorrectionCurve, loadFraction: 
   const n = loads.length;
   const above = loads.findIndex((l) => l >= loadFraction);
   // Only the curves the reading blends: one when the load sits on a curve (or outside them all), else the two around it.
-  const used = n === 1 || loadFraction <= loads[0] ? [0] : above === -1 ? [n - 1] : loads[above] === loadFraction ? [above] : [above - 1, above];
-  const lastKpa = Math.min(...used.map((i) => cubics[i].xs[cubics[i].xs.length - 1]));
+  const used = n === 1 || loadFraction <= loads[0]! ? [0] : above === -1 ? [n - 1] : loads[above] === loadFraction ? [above] : [above - 1, above];
+  const lastKpa = Math.min(...used.map((i) => lastX(cubics[i]!)));
   if (!(backpressureKpa > lastKpa)) return undefined;
   return `backpressure ${+backpressureKpa.toPrecision(4)} kPa is beyond the correction curve's last point (${+lastKpa.toPrecision(4)} kPa at load ${loadFraction}): the curve is continued in a straight line there`;
 }
@@ -120,4 +120,9 @@ export function penaltyBetween(
     return { heatRatePenaltyPct: delta, outputPenaltyPct: -outputChangeFromHeatRatePct(delta) };
   }
   return { heatRatePenaltyPct: heatRateChangeFromOutputPct(delta), outputPenaltyPct: -delta };
+}
+
+/** Backpressure of a load curve's last point (a compiled curve has at least two). */
+function lastX(c: MonotoneCubic): number {
+  return c.xs[c.xs.length - 1]!;
 }

@@ -11,4 +11,6 @@ export const CO2_KG_PER_MMBTU = {
 } as const;
 
 export type Fuel = keyof typeof CO2_KG_PER_MMBTU;
-export const CO2_FACTORS_NOTE = 'US EPA 40 CFR Part 98 Subpart C, Table C-1 (from memory, verify)';
+/** Where the factors come from, as a person reads it beside the value. */
+export const CO2_FACTORS_SOURCE = 'US EPA 40 CFR Part 98 Subpart C, Table C-1';
+export const CO2_FACTORS_NOTE = `${CO2_FACTORS_SOURCE} (from memory, verify)`;

@@ -15,30 +15,30 @@ export function buildMonotoneCubic(xs: readonly number[], ys: readonly number[])
   const n = xs.length;
   if (n < 2 || ys.length !== n) throw new RangeError('a monotone cubic needs at least two points with one value each');
   for (let i = 1; i < n; i++) {
-    if (!(xs[i] > xs[i - 1])) throw new RangeError(`points must be in strictly increasing order of x (x[${i}] = ${xs[i]} ≤ ${xs[i - 1]})`);
+    if (!(xs[i]! > xs[i - 1]!)) throw new RangeError(`points must be in strictly increasing order of x (x[${i}] = ${xs[i]} ≤ ${xs[i - 1]})`);
   }
   const h = new Float64Array(n - 1);
   const d = new Float64Array(n - 1);
   for (let i = 0; i < n - 1; i++) {
-    h[i] = xs[i + 1] - xs[i];
-    d[i] = (ys[i + 1] - ys[i]) / h[i];
+    h[i] = xs[i + 1]! - xs[i]!;
+    d[i] = (ys[i + 1]! - ys[i]!) / h[i]!;
   }
   const m = new Float64Array(n);
   if (n === 2) {
-    m[0] = d[0];
-    m[1] = d[0];
+    m[0] = d[0]!;
+    m[1] = d[0]!;
   } else {
     for (let k = 1; k < n - 1; k++) {
-      if (sign(d[k - 1]) * sign(d[k]) <= 0) {
+      if (sign(d[k - 1]!) * sign(d[k]!) <= 0) {
         m[k] = 0;
       } else {
-        const w1 = 2 * h[k] + h[k - 1];
-        const w2 = h[k] + 2 * h[k - 1];
-        m[k] = (w1 + w2) / (w1 / d[k - 1] + w2 / d[k]);
+        const w1 = 2 * h[k]! + h[k - 1]!;
+        const w2 = h[k]! + 2 * h[k - 1]!;
+        m[k] = (w1 + w2) / (w1 / d[k - 1]! + w2 / d[k]!);
       }
     }
-    m[0] = endSlope(h[0], h[1], d[0], d[1]);
-    m[n - 1] = endSlope(h[n - 2], h[n - 3], d[n - 2], d[n - 3]);
+    m[0] = endSlope(h[0]!, h[1]!, d[0]!, d[1]!);
+    m[n - 1] = endSlope(h[n - 2]!, h[n - 3]!, d[n - 2]!, d[n - 3]!);
   }
   return { xs: Float64Array.from(xs), ys: Float64Array.from(ys), slopes: m };
 }
@@ -57,15 +57,15 @@ function endSlope(h0: number, h1: number, d0: number, d1: number): number {
 export function evaluateMonotoneCubic(c: MonotoneCubic, x: number): number {
   const { xs, ys, slopes } = c;
   const n = xs.length;
-  if (x <= xs[0]) return ys[0];
-  if (x >= xs[n - 1]) return ys[n - 1] + slopes[n - 1] * (x - xs[n - 1]);
+  if (x <= xs[0]!) return ys[0]!;
+  if (x >= xs[n - 1]!) return ys[n - 1]! + slopes[n - 1]! * (x - xs[n - 1]!);
   let i = 0;
-  while (x > xs[i + 1]) i++;
-  const h = xs[i + 1] - xs[i];
-  const t = (x - xs[i]) / h;
+  while (x > xs[i + 1]!) i++;
+  const h = xs[i + 1]! - xs[i]!;
+  const t = (x - xs[i]!) / h;
   const t2 = t * t;
   const t3 = t2 * t;
   return (
-    (2 * t3 - 3 * t2 + 1) * ys[i] + (t3 - 2 * t2 + t) * h * slopes[i] + (-2 * t3 + 3 * t2) * ys[i + 1] + (t3 - t2) * h * slopes[i + 1]
+    (2 * t3 - 3 * t2 + 1) * ys[i]! + (t3 - 2 * t2 + t) * h * slopes[i]! + (-2 * t3 + 3 * t2) * ys[i + 1]! + (t3 - t2) * h * slopes[i + 1]!
   );
 }

@@ -52,9 +52,9 @@ export function monthlyProfilesFromHistory(history: readonly UnitHistoryDay[]): 
   const count = new Array<number>(12).fill(0);
   for (const h of history) {
     const m = civilFromDayNumber(dayNumber(h.date)).month - 1;
-    sumT[m] += h.cwInletC;
-    sumL[m] += h.loadFraction;
-    count[m]++;
+    sumT[m]! += h.cwInletC;
+    sumL[m]! += h.loadFraction;
+    count[m]!++;
   }
   const mean = (sums: number[]) => sums.map((s, m) => (count[m] ? s / count[m] : null));
   return {
@@ -75,7 +75,7 @@ export function expandMonthly(values: MonthlyValues, startDate: string, days: nu
   const start = dayNumber(startDate);
   for (let d = 0; d < days; d++) {
     const { year, month } = civilFromDayNumber(start + d);
-    const here = values[month - 1];
+    const here = values[month - 1]!;
     if (interpolation === 'step') {
       out[d] = here;
       continue;
@@ -83,7 +83,7 @@ export function expandMonthly(values: MonthlyValues, startDate: string, days: nu
     const x = start + d + 0.5;
     const centre = monthCentre(year, month);
     const [ny, nm] = x >= centre ? (month === 12 ? [year + 1, 1] : [year, month + 1]) : month === 1 ? [year - 1, 12] : [year, month - 1];
-    const other = values[nm - 1];
+    const other = values[nm - 1]!;
     const otherCentre = monthCentre(ny, nm);
     out[d] = here + ((other - here) * (x - centre)) / (otherCentre - centre);
   }

@@ -32,12 +32,12 @@ export interface BusinessCase {
 export function businessCase(input: BusinessCaseInput): BusinessCase {
   if (input.proposedYearly.length !== input.baselineYearly.length) throw new Error('the proposal and the baseline must cover the same years');
   const upfront = new Decimal(input.upfrontCost ?? 0);
-  const foulingSavings = input.baselineYearly.map((b, y) => new Decimal(b.foulingCost).minus(input.proposedYearly[y].foulingCost));
+  const foulingSavings = input.baselineYearly.map((b, y) => new Decimal(b.foulingCost).minus(input.proposedYearly[y]!.foulingCost));
   const extraCleaningCosts = input.baselineYearly.map((b, y) => {
-    const p = input.proposedYearly[y];
+    const p = input.proposedYearly[y]!;
     return new Decimal(p.cleaningCost).plus(p.downtimeCost).minus(b.cleaningCost).minus(b.downtimeCost);
   });
-  const cashflows = [upfront.neg(), ...foulingSavings.map((s, y) => s.minus(extraCleaningCosts[y]))];
+  const cashflows = [upfront.neg(), ...foulingSavings.map((s, y) => s.minus(extraCleaningCosts[y]!))];
   const rate = input.discountRate;
   const presentBenefits = npv(rate, [0, ...foulingSavings]);
   const presentCosts = npv(rate, [upfront, ...extraCleaningCosts]);

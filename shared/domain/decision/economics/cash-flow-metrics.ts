@@ -31,7 +31,7 @@ type Poly = Decimal[]; // coefficients, lowest order first
 
 function trim(p: Poly, tolerance: Decimal): Poly {
   const out = [...p];
-  while (out.length > 0 && out[out.length - 1].abs().lte(tolerance)) out.pop();
+  while (out.length > 0 && out[out.length - 1]!.abs().lte(tolerance)) out.pop();
   return out;
 }
 
@@ -42,10 +42,10 @@ function derivative(p: Poly): Poly {
 /** Remainder of a ÷ b (b trimmed, non-empty). */
 function remainder(a: Poly, b: Poly, tolerance: Decimal): Poly {
   const r = [...a];
-  const lead = b[b.length - 1];
+  const lead = b[b.length - 1]!;
   for (let shift = r.length - b.length; shift >= 0; shift--) {
-    const q = r[shift + b.length - 1].div(lead);
-    for (let i = 0; i < b.length; i++) r[shift + i] = r[shift + i].minus(q.times(b[i]));
+    const q = r[shift + b.length - 1]!.div(lead);
+    for (let i = 0; i < b.length; i++) r[shift + i] = r[shift + i]!.minus(q.times(b[i]!));
   }
   return trim(r.slice(0, b.length - 1), tolerance);
 }
@@ -56,7 +56,7 @@ function signAtZeroPlus(p: Poly): number {
 }
 
 function signAtInfinity(p: Poly): number {
-  return p.length ? p[p.length - 1].s : 0;
+  return p.length ? p[p.length - 1]!.s : 0;
 }
 
 function signChanges(signs: number[]): number {
@@ -69,8 +69,8 @@ function signChanges(signs: number[]): number {
 /** Number of distinct real roots of p in (0, ∞) by Sturm's theorem. */
 function distinctPositiveRoots(p: Poly, tolerance: Decimal): number {
   const seq: Poly[] = [p, derivative(p)];
-  while (seq[seq.length - 1].length > 1) {
-    const r = remainder(seq[seq.length - 2], seq[seq.length - 1], tolerance);
+  while (seq[seq.length - 1]!.length > 1) {
+    const r = remainder(seq[seq.length - 2]!, seq[seq.length - 1]!, tolerance);
     if (r.length === 0) break;
     seq.push(r.map((c) => c.neg()));
   }
@@ -79,7 +79,7 @@ function distinctPositiveRoots(p: Poly, tolerance: Decimal): number {
 
 function evaluate(p: Poly, x: Decimal): Decimal {
   let s = new Precise(0);
-  for (let i = p.length - 1; i >= 0; i--) s = s.times(x).plus(p[i]);
+  for (let i = p.length - 1; i >= 0; i--) s = s.times(x).plus(p[i]!);
   return s;
 }
 
@@ -94,7 +94,7 @@ export function irr(values: readonly MoneyInput[]): IrrResult {
   if (scale.isZero()) return { irr: null, reason: 'all cash flows are zero' };
   const tolerance = scale.times('1e-40');
   p = trim(p, tolerance);
-  while (p.length > 0 && p[0].isZero()) p = p.slice(1); // a zero at t = 0 only shifts the time origin
+  while (p.length > 0 && p[0]!.isZero()) p = p.slice(1); // a zero at t = 0 only shifts the time origin
   const changes = signChanges(p.map((c) => c.s));
   if (changes === 0) return { irr: null, reason: 'the cash flows never change sign, so no rate makes the NPV zero' };
   if (changes > 1) {
@@ -105,7 +105,7 @@ export function irr(values: readonly MoneyInput[]): IrrResult {
   const lo0 = signAtZeroPlus(p);
   if (lo0 === signAtInfinity(p)) return { irr: null, reason: 'the NPV touches zero without changing sign' };
   // Cauchy bound: every root has |x| < 1 + max|a_k / a_n|.
-  const lead = p[p.length - 1].abs();
+  const lead = p[p.length - 1]!.abs();
   let hi = p.slice(0, -1).reduce((m, c) => Decimal.max(m, c.abs().div(lead)), new Precise(0)).plus(1);
   let lo = new Precise(0);
   for (let i = 0; i < 400; i++) {
@@ -136,7 +136,7 @@ function cumulativeZeroCrossing(flows: readonly Decimal[]): number | null {
   });
   if (lastNegative < 0) return 0;
   if (lastNegative === flows.length - 1) return null;
-  return new Precise(lastNegative).plus(atLastNegative.neg().div(flows[lastNegative + 1])).toNumber();
+  return new Precise(lastNegative).plus(atLastNegative.neg().div(flows[lastNegative + 1]!)).toNumber();
 }
 
 export function paybackYears(values: readonly MoneyInput[]): number | null {

@@ -62,11 +62,11 @@ export function shapeParameters(m: FoulingModel): number[] {
 export function modelFromShape(kind: FoulingModelKind, p: readonly number[]): FoulingModel {
   switch (kind) {
     case 'linear':
-      return { model: 'linear', ratePerDay: p[0] };
+      return { model: 'linear', ratePerDay: p[0]! };
     case 'asymptotic':
-      return { model: 'asymptotic', maxIndex: p[0], timeConstantDays: p[1] };
+      return { model: 'asymptotic', maxIndex: p[0]!, timeConstantDays: p[1]! };
     case 'falling-rate':
-      return { model: 'falling-rate', coefficient: p[0], exponent: p[1] };
+      return { model: 'falling-rate', coefficient: p[0]!, exponent: p[1]! };
   }
 }
 

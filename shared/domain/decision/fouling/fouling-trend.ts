@@ -123,7 +123,7 @@ function predictZ(fit: Pick<RawFit, 'kind' | 'shape' | 'intercept'>, t: number):
 
 function sseOf(data: FitData, fit: Pick<RawFit, 'kind' | 'shape' | 'intercept'>): number {
   let s = 0;
-  for (let i = 0; i < data.t.length; i++) s += (data.z[i] - predictZ(fit, data.t[i])) ** 2;
+  for (let i = 0; i < data.t.length; i++) s += (data.z[i]! - predictZ(fit, data.t[i]!)) ** 2;
   return s;
 }
 
@@ -135,8 +135,8 @@ function linearInBasis(data: FitData, basis: (t: number) => number): { a: number
     let num = 0;
     let den = 0;
     for (let i = 0; i < phi.length; i++) {
-      num += phi[i] * (data.z[i] - c);
-      den += phi[i] * phi[i];
+      num += phi[i]! * (data.z[i]! - c);
+      den += phi[i]! * phi[i]!;
     }
     return den > 0 ? { a: num / den, c } : null;
   }
@@ -146,10 +146,10 @@ function linearInBasis(data: FitData, basis: (t: number) => number): { a: number
   let sz = 0;
   let spz = 0;
   for (let i = 0; i < n; i++) {
-    sp += phi[i];
-    spp += phi[i] * phi[i];
-    sz += data.z[i];
-    spz += phi[i] * data.z[i];
+    sp += phi[i]!;
+    spp += phi[i]! * phi[i]!;
+    sz += data.z[i]!;
+    spz += phi[i]! * data.z[i]!;
   }
   const sol = solveLinear(
     [
@@ -158,7 +158,7 @@ function linearInBasis(data: FitData, basis: (t: number) => number): { a: number
     ],
     [spz, sz],
   );
-  return sol ? { a: sol[0], c: sol[1] } : null;
+  return sol ? { a: sol[0]!, c: sol[1]! } : null;
 }
 
 function fitLinear(data: FitData): RawFit | null {
@@ -195,7 +195,7 @@ function fitNonlinear(data: FitData, kind: 'asymptotic' | 'falling-rate'): RawFi
 
   const fitIntercept = data.knownIntercept === null;
   const start = fitIntercept ? [...best.shape, best.intercept] : [...best.shape];
-  const unpack = (p: number[]) => ({ kind, shape: [p[0], p[1]], intercept: fitIntercept ? p[2] : (data.knownIntercept as number) });
+  const unpack = (p: number[]) => ({ kind, shape: [p[0]!, p[1]!], intercept: fitIntercept ? p[2]! : (data.knownIntercept as number) });
   try {
     const lm = levenbergMarquardt(
       { x: data.t, y: data.z },
@@ -207,7 +207,7 @@ function fitNonlinear(data: FitData, kind: 'asymptotic' | 'falling-rate'): RawFi
         maxIterations: 200,
         errorTolerance: 1e-18,
         jacobianFunction: (p) => (t) => {
-          const g = foulingIndexGradient(modelFromShape(kind, [p[0], p[1]]), t);
+          const g = foulingIndexGradient(modelFromShape(kind, [p[0]!, p[1]!]), t);
           return fitIntercept ? [...g, 1] : g;
         },
       },
@@ -237,7 +237,7 @@ function chooseByAic(fits: RawFit[], n: number): RawFit {
     const d = aicOf(a, n) - aicOf(b, n);
     if (Math.abs(d) > 1e-9) return d;
     return a.k - b.k || order(a) - order(b);
-  })[0];
+  })[0]!;
 }
 
 function jacobianRow(fit: RawFit, t: number): number[] {
@@ -249,7 +249,7 @@ function summarise(fit: RawFit, data: FitData, uCleanWm2K: number | undefined): 
   const n = data.t.length;
   const mean = data.z.reduce((s, v) => s + v, 0) / n;
   const sst = data.z.reduce((s, v) => s + (v - mean) ** 2, 0);
-  const cfResiduals = data.t.map((t, i) => 1 / data.z[i] - 1 / predictZ(fit, t));
+  const cfResiduals = data.t.map((t, i) => 1 / data.z[i]! - 1 / predictZ(fit, t));
   const model = modelFromShape(fit.kind, fit.shape);
   const summary: ModelFitSummary = {
     model,
@@ -278,7 +278,7 @@ function forecastOf(fit: RawFit, data: FitData, lastDay: number, probability: nu
   const jtj = Array.from({ length: fit.k }, () => new Array<number>(fit.k).fill(0));
   for (const t of data.t) {
     const g = jacobianRow(fit, t);
-    for (let a = 0; a < fit.k; a++) for (let b = 0; b < fit.k; b++) jtj[a][b] += g[a] * g[b];
+    for (let a = 0; a < fit.k; a++) for (let b = 0; b < fit.k; b++) jtj[a]![b]! += g[a]! * g[b]!;
   }
   const cov = invertMatrix(jtj);
   // Student's t for the n − k degrees of freedom of the residual variance: with 10–20 daily points the normal
@@ -289,7 +289,7 @@ function forecastOf(fit: RawFit, data: FitData, lastDay: number, probability: nu
     const zHat = predictZ(fit, day);
     const g = jacobianRow(fit, day);
     let leverage = 0;
-    if (cov) for (let a = 0; a < fit.k; a++) for (let b = 0; b < fit.k; b++) leverage += g[a] * cov[a][b] * g[b];
+    if (cov) for (let a = 0; a < fit.k; a++) for (let b = 0; b < fit.k; b++) leverage += g[a]! * cov[a]![b]! * g[b]!;
     const half = zq * Math.sqrt(s2 * (1 + leverage));
     out.push({ day, cleanliness: 1 / zHat, low: 1 / (zHat + half), high: zHat - half > 0 ? 1 / (zHat - half) : Number.POSITIVE_INFINITY });
   }
@@ -353,7 +353,7 @@ export function fitFoulingTrend(input: FoulingTrendInput): FoulingTrendResult {
   for (let pass = 0; pass < MAX_SCREEN_PASSES; pass++) {
     const pts = usable.filter((_, i) => keep[i]);
     const best = chooseByAic(fitAll(dataOf(pts)), pts.length);
-    const residuals = all.t.map((t, i) => all.z[i] - predictZ(best, t));
+    const residuals = all.t.map((t, i) => all.z[i]! - predictZ(best, t));
     const keptResiduals = residuals.filter((_, i) => keep[i]);
     const centre = median(keptResiduals)!; // the screen always keeps the residual at the median
     let spread = 1.4826 * medianAbsoluteDeviation(keptResiduals);

@@ -39,9 +39,9 @@ function rate(p: FoulingCostRate, t: number): number {
       return p.maxPerDay * (1 - Math.exp(-t / p.timeConstantDays));
     case 'tabulated': {
       const v = p.costPerDay;
-      if (t >= v.length - 1) return v[v.length - 1];
+      if (t >= v.length - 1) return v[v.length - 1]!;
       const i = Math.floor(t);
-      return v[i] + (t - i) * (v[i + 1] - v[i]);
+      return v[i]! + (t - i) * (v[i + 1]! - v[i]!);
     }
   }
 }
@@ -57,7 +57,7 @@ function accumulated(p: FoulingCostRate, T: number): number {
       const v = p.costPerDay;
       let sum = 0;
       const whole = Math.min(Math.floor(T), v.length - 1);
-      for (let i = 0; i < whole; i++) sum += (v[i] + v[i + 1]) / 2;
+      for (let i = 0; i < whole; i++) sum += (v[i]! + v[i + 1]!) / 2;
       const rest = T - whole;
       if (rest > 0) sum += ((rate(p, whole) + rate(p, T)) / 2) * rest;
       return sum;
@@ -130,7 +130,7 @@ export function optimalInterval(c: CleaningCycle): IntervalOptimum {
 
   // Tabulated: scan whole days over the table, refine around the best, compare with the plateau after the table.
   const last = p.costPerDay.length - 1;
-  const longRun = p.costPerDay[last];
+  const longRun = p.costPerDay[last]!;
   const j = (t: number) => averageCostPerDay(c, t);
   let bestDay = 1;
   for (let t = 2; t <= last; t++) if (j(t) < j(bestDay)) bestDay = t;

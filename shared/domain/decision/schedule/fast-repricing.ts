@@ -18,7 +18,7 @@ export function compileSchedulePricer(problem: ScheduleProblem, cleanings: reado
   const { days, table } = problem;
   const G = table.size;
   const methods = new Map(problem.methods.map((m) => [m.id, m]));
-  const years = problem.yearIndex[days - 1] + 1;
+  const years = problem.yearIndex[days - 1]! + 1;
   const onLine = onLineDays(problem);
 
   // Per day: the segment (which cleaning the unit is running after, -1 = before the first) and the age, or
@@ -50,7 +50,7 @@ export function compileSchedulePricer(problem: ScheduleProblem, cleanings: reado
     }
     segment[d] = seg;
     age[d] = a;
-    a += onLine[d];
+    a += onLine[d]!;
     d++;
   }
   const segmentMethods = sorted.map((c) => methods.get(c.methodId)!);
@@ -65,9 +65,9 @@ export function compileSchedulePricer(problem: ScheduleProblem, cleanings: reado
     if (!onLine[d]) continue;
     const k = d * G + refPos.index;
     const w = refPos.weight;
-    refFuel[d] = table.heatRateFuel[k] + w * (table.heatRateFuel[k + 1] - table.heatRateFuel[k]);
-    refCo2[d] = table.co2[k] + w * (table.co2[k + 1] - table.co2[k]);
-    refCap[d] = table.capacity[k] + w * (table.capacity[k + 1] - table.capacity[k]);
+    refFuel[d] = table.heatRateFuel[k]! + w * (table.heatRateFuel[k + 1]! - table.heatRateFuel[k]!);
+    refCo2[d] = table.co2[k]! + w * (table.co2[k + 1]! - table.co2[k]!);
+    refCap[d] = table.capacity[k]! + w * (table.capacity[k + 1]! - table.capacity[k]!);
   }
   const lg = problem.lostGeneration;
 
@@ -79,16 +79,16 @@ export function compileSchedulePricer(problem: ScheduleProblem, cleanings: reado
       const initialInv = 1 / problem.initial.cleanlinessAfterCleaning;
       const initialMult = problem.initial.foulingRateMultiplier * s.foulingRateScale;
       const { fuel, co2, replacement } = s.prices;
-      for (const c of sorted) out[problem.yearIndex[c.startDay]] += methods.get(c.methodId)!.cleaningCost * s.cleaningCostScale;
+      for (const c of sorted) out[problem.yearIndex[c.startDay]!]! += methods.get(c.methodId)!.cleaningCost * s.cleaningCostScale;
       for (let d = 0; d < days; d++) {
-        const yr = problem.yearIndex[d];
-        if (lostMwh[d] > 0) {
-          const value = replacement * lg.replacementPricePerMwh[d] - fuel * lg.ownFuelCostPerMwh[d] - co2 * lg.ownCo2CostPerMwh[d];
-          if (value > 0) out[yr] += lostMwh[d] * value;
+        const yr = problem.yearIndex[d]!;
+        if (lostMwh[d]! > 0) {
+          const value = replacement * lg.replacementPricePerMwh[d]! - fuel * lg.ownFuelCostPerMwh[d]! - co2 * lg.ownCo2CostPerMwh[d]!;
+          if (value > 0) out[yr]! += lostMwh[d]! * value;
         }
-        if (!onLine[d] || (cleaningOf[d] >= 0 && !chargedDuring[d])) continue;
-        const sg = segment[d];
-        const cf = sg < 0 ? 1 / (initialInv + initialMult * y[age[d]]) : 1 / (invCf0[sg] + mult[sg] * y[age[d]]);
+        if (!onLine[d] || (cleaningOf[d]! >= 0 && !chargedDuring[d])) continue;
+        const sg = segment[d]!;
+        const cf = sg < 0 ? 1 / (initialInv + initialMult * y[age[d]!]!) : 1 / (invCf0[sg]! + mult[sg]! * y[age[d]!]!);
         let x = (cf - table.cfMin) / table.cfStep;
         let i: number;
         if (!(x > 0)) {
@@ -102,10 +102,10 @@ export function compileSchedulePricer(problem: ScheduleProblem, cleanings: reado
           x -= i;
         }
         const k = d * G + i;
-        const pf = table.heatRateFuel[k] + x * (table.heatRateFuel[k + 1] - table.heatRateFuel[k]);
-        const pc = table.co2[k] + x * (table.co2[k + 1] - table.co2[k]);
-        const pr = table.capacity[k] + x * (table.capacity[k + 1] - table.capacity[k]);
-        out[yr] += fuel * (pf - refFuel[d]) + co2 * (pc - refCo2[d]) + replacement * (pr - refCap[d]);
+        const pf = table.heatRateFuel[k]! + x * (table.heatRateFuel[k + 1]! - table.heatRateFuel[k]!);
+        const pc = table.co2[k]! + x * (table.co2[k + 1]! - table.co2[k]!);
+        const pr = table.capacity[k]! + x * (table.capacity[k + 1]! - table.capacity[k]!);
+        out[yr]! += fuel * (pf - refFuel[d]!) + co2 * (pc - refCo2[d]!) + replacement * (pr - refCap[d]!);
       }
       return out;
     },

@@ -53,9 +53,9 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
   const onLineBefore = onLineDaysBefore(onLine);
   for (let d = 0; d < H; d++) {
     if (!onLine[d]) continue;
-    for (let i = 0; i < G; i++) cost[d * G + i] = discount[d] * base[d * G + i];
+    for (let i = 0; i < G; i++) cost[d * G + i] = discount[d]! * base[d * G + i]!;
     const k = d * G + refPos.index;
-    ref[d] = discount[d] * (base[k] + refPos.weight * (base[k + 1] - base[k]));
+    ref[d] = discount[d]! * (base[k]! + refPos.weight * (base[k + 1]! - base[k]!));
   }
 
   const a0 = problem.initial.daysSinceCleaning;
@@ -64,7 +64,7 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
     const index = new Int32Array(ages + 1);
     const weight = new Float64Array(ages + 1);
     for (let a = 0; a <= ages; a++) {
-      const p = gridPosition(table, 1 / (1 / cf0 + multiplier * y[fromAge + a]));
+      const p = gridPosition(table, 1 / (1 / cf0 + multiplier * y[fromAge + a]!));
       index[a] = p.index;
       weight[a] = p.weight;
     }
@@ -78,8 +78,8 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
     const out = new Float64Array(H).fill(Number.POSITIVE_INFINITY);
     for (let e = 0; e < H; e++) {
       if (!mayStart(problem, m, e)) continue;
-      let c = discount[e] * m.cleaningCost;
-      for (let j = 0; j < m.durationDays; j++) c += discount[e + j] * lostMwhOnCleaningDay(problem, m, e + j) * lostMwhValue(problem.lostGeneration, e + j, UNIT_PRICE_SCALES);
+      let c = discount[e]! * m.cleaningCost;
+      for (let j = 0; j < m.durationDays; j++) c += discount[e + j]! * lostMwhOnCleaningDay(problem, m, e + j) * lostMwhValue(problem.lostGeneration, e + j, UNIT_PRICE_SCALES);
       out[e] = c;
     }
     return out;
@@ -93,8 +93,8 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
     for (let e = 0; e + m.durationDays <= H; e++) {
       for (let j = 0; j < m.durationDays; j++) {
         const row = (e + j) * G;
-        for (let i = 0; i < G; i++) sums[e * G + i] += cost[row + i];
-        refSums[e] += ref[e + j];
+        for (let i = 0; i < G; i++) sums[e * G + i]! += cost[row + i]!;
+        refSums[e]! += ref[e + j]!;
       }
     }
     return { sums, refSums };
@@ -111,7 +111,7 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
   const sdStart = stateDependent.map((k) => startCost[k]);
   const sdSums = stateDependent.map((k) => windowCost[k]!.sums);
   const sdRefSums = stateDependent.map((k) => windowCost[k]!.refSums);
-  const sdDuration = stateDependent.map((k) => methods[k].durationDays);
+  const sdDuration = stateDependent.map((k) => methods[k]!.durationDays);
   const pruning = costRisesWithAge(problem, base, y);
 
   // Walks run in step, day by day. Group g = method index (M for the walk from the initial condition); within a
@@ -127,13 +127,13 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
     curve: StateCurve;
   }
   const groups: Walk[][] = Array.from({ length: M + 1 }, () => []);
-  groups[M].push({ node: INITIAL, restartDay: 0, clockStart: 0, cost: 0, firstStart: Math.max(0, problem.minSpacingDays - a0), curve: initialCurve });
+  groups[M]!.push({ node: INITIAL, restartDay: 0, clockStart: 0, cost: 0, firstStart: Math.max(0, problem.minSpacingDays - a0), curve: initialCurve });
 
   for (let e = 0; e < H; e++) {
     for (let k = 0; k < M; k++) {
       const node = e * M + k;
-      if (best[node] < Number.POSITIVE_INFINITY) {
-        groups[k].push({ node, restartDay: e, clockStart: onLineBefore[e], cost: best[node], firstStart: e + Math.max(0, problem.minSpacingDays - methods[k].durationDays), curve: methodCurves[k] });
+      if (best[node]! < Number.POSITIVE_INFINITY) {
+        groups[k]!.push({ node, restartDay: e, clockStart: onLineBefore[e]!, cost: best[node]!, firstStart: e + Math.max(0, problem.minSpacingDays - methods[k]!.durationDays), curve: methodCurves[k]! });
       }
     }
     // Cleanings that start today.
@@ -146,17 +146,17 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
           arrive = walk.cost;
           arriveFrom = walk.node;
         }
-        const age = onLineBefore[e] - walk.clockStart;
-        const gi = walk.curve.index[age];
-        const w = walk.curve.weight[age];
+        const age = onLineBefore[e]! - walk.clockStart;
+        const gi = walk.curve.index[age]!;
+        const w = walk.curve.weight[age]!;
         for (let j = 0; j < stateDependent.length; j++) {
-          const fixed = sdStart[j][e];
+          const fixed = sdStart[j]![e]!;
           if (fixed === Number.POSITIVE_INFINITY) continue;
-          const sums = sdSums[j];
+          const sums = sdSums[j]!;
           const s = e * G + gi;
-          const c = walk.cost + fixed + sums[s] + w * (sums[s + 1] - sums[s]) - sdRefSums[j][e];
-          const target = (e + sdDuration[j]) * M + stateDependent[j];
-          if (c < best[target]) {
+          const c = walk.cost + fixed + sums[s]! + w * (sums[s + 1]! - sums[s]!) - sdRefSums[j]![e]!;
+          const target = (e + sdDuration[j]!) * M + stateDependent[j]!;
+          if (c < best[target]!) {
             best[target] = c;
             fromNode[target] = walk.node;
             fromStart[target] = e;
@@ -167,10 +167,10 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
     // Methods that stop the unit pay nothing that depends on the cleanliness found: only the cheapest arrival counts.
     if (arrive < Number.POSITIVE_INFINITY) {
       for (const k of stateFree) {
-        const fixed = startCost[k][e];
+        const fixed = startCost[k]![e]!;
         if (fixed === Number.POSITIVE_INFINITY) continue;
-        const target = (e + methods[k].durationDays) * M + k;
-        if (arrive + fixed < best[target]) {
+        const target = (e + methods[k]!.durationDays) * M + k;
+        if (arrive + fixed < best[target]!) {
           best[target] = arrive + fixed;
           fromNode[target] = arriveFrom;
           fromStart[target] = e;
@@ -178,12 +178,12 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
       }
     }
     for (let g = 0; g <= M; g++) {
-      if (groups[g].length > 1) groups[g] = dropDominated(groups[g], e, pruning);
-      for (const walk of groups[g]) {
-        const age = onLineBefore[e] - walk.clockStart;
-        const gi = walk.curve.index[age];
+      if (groups[g]!.length > 1) groups[g] = dropDominated(groups[g]!, e, pruning);
+      for (const walk of groups[g]!) {
+        const age = onLineBefore[e]! - walk.clockStart;
+        const gi = walk.curve.index[age]!;
         const s = e * G + gi;
-        walk.cost += cost[s] + walk.curve.weight[age] * (cost[s + 1] - cost[s]) - ref[e];
+        walk.cost += cost[s]! + walk.curve.weight[age]! * (cost[s + 1]! - cost[s]!) - ref[e]!;
       }
     }
   }
@@ -199,16 +199,16 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
   }
   for (let k = 0; k < M; k++) {
     const node = H * M + k;
-    if (best[node] < endBest) {
-      endBest = best[node];
+    if (best[node]! < endBest) {
+      endBest = best[node]!;
       endFrom = node;
     }
   }
 
   const cleanings: PlannedCleaning[] = [];
-  for (let node = endFrom; node !== INITIAL; node = fromNode[node]) {
+  for (let node = endFrom; node !== INITIAL; node = fromNode[node]!) {
     if (node < 0) throw new Error('no feasible schedule was found');
-    cleanings.unshift({ startDay: fromStart[node], methodId: methods[node % M].id });
+    cleanings.unshift({ startDay: fromStart[node]!, methodId: methods[node % M]!.id });
   }
   return { cleanings, objective: endBest };
 }
@@ -232,17 +232,17 @@ function dropDominated<T extends WalkOrder>(group: T[], e: number, ageRule: bool
   let bestYounger = Number.POSITIVE_INFINITY;
   for (let last = group.length - 1; last >= 0; ) {
     let first = last;
-    while (first > 0 && group[first - 1].clockStart === group[last].clockStart) first--;
+    while (first > 0 && group[first - 1]!.clockStart === group[last]!.clockStart) first--;
     let olderMin = Number.POSITIVE_INFINITY;
     for (let i = first; i <= last; i++) {
-      if (group[i].cost < olderMin) {
+      if (group[i]!.cost < olderMin) {
         keep[i] = 1;
-        olderMin = group[i].cost;
+        olderMin = group[i]!.cost;
       }
     }
     let youngerReadyMin = Number.POSITIVE_INFINITY;
     for (let i = last; i >= first; i--) {
-      const w = group[i];
+      const w = group[i]!;
       if (youngerReadyMin < w.cost || (ageRule && w.cost >= bestYounger)) keep[i] = 0;
       if (e >= w.firstStart && w.cost < youngerReadyMin) youngerReadyMin = w.cost;
     }
@@ -258,11 +258,11 @@ function dropDominated<T extends WalkOrder>(group: T[], e: number, ageRule: bool
  * without it every walk is kept (same answer, slower).
  */
 function costRisesWithAge(problem: ScheduleProblem, base: Float64Array, y: Float64Array): boolean {
-  for (let a = 1; a < y.length; a++) if (y[a] < y[a - 1]) return false;
+  for (let a = 1; a < y.length; a++) if (y[a]! < y[a - 1]!) return false;
   if (problem.initial.foulingRateMultiplier < 0 || problem.methods.some((m) => m.foulingRateMultiplier < 0)) return false;
   const G = problem.table.size;
   for (let d = 0; d < problem.days; d++) {
-    for (let i = 1; i < G; i++) if (base[d * G + i] > base[d * G + i - 1]) return false;
+    for (let i = 1; i < G; i++) if (base[d * G + i]! > base[d * G + i - 1]!) return false;
   }
   return true;
 }

@@ -71,14 +71,14 @@ export function gridPosition(table: Pick<PenaltyCostTable, 'cfMin' | 'cfStep' | 
 export function penaltyCostPerDay(table: PenaltyCostTable, day: number, cf: number, scales: PriceScales = UNIT_PRICE_SCALES): number {
   const { index, weight } = gridPosition(table, cf);
   const k = day * table.size + index;
-  const at = (a: Float64Array) => a[k] + weight * (a[k + 1] - a[k]);
+  const at = (a: Float64Array) => a[k]! + weight * (a[k + 1]! - a[k]!);
   return scales.fuel * at(table.heatRateFuel) + scales.co2 * at(table.co2) + scales.replacement * at(table.capacity);
 }
 
 /** Combined cost array [day·size + i] at given scales. */
 export function combinedCosts(table: PenaltyCostTable, scales: PriceScales = UNIT_PRICE_SCALES): Float64Array {
   const out = new Float64Array(table.heatRateFuel.length);
-  for (let k = 0; k < out.length; k++) out[k] = scales.fuel * table.heatRateFuel[k] + scales.co2 * table.co2[k] + scales.replacement * table.capacity[k];
+  for (let k = 0; k < out.length; k++) out[k] = scales.fuel * table.heatRateFuel[k]! + scales.co2 * table.co2[k]! + scales.replacement * table.capacity[k]!;
   return out;
 }
 
@@ -101,12 +101,12 @@ export function tableFromCostCurve(
   if (curve.length < 2) throw new Error('a cost curve needs at least two points');
   const pts = [...curve].sort((a, b) => a.cleanliness - b.cleanliness);
   const at = (cf: number) => {
-    if (cf <= pts[0].cleanliness) return pts[0].costPerDay;
-    if (cf >= pts[pts.length - 1].cleanliness) return pts[pts.length - 1].costPerDay;
+    if (cf <= pts[0]!.cleanliness) return pts[0]!.costPerDay;
+    if (cf >= pts[pts.length - 1]!.cleanliness) return pts[pts.length - 1]!.costPerDay;
     let i = 0;
-    while (pts[i + 1].cleanliness < cf) i++;
-    const a = pts[i];
-    const b = pts[i + 1];
+    while (pts[i + 1]!.cleanliness < cf) i++;
+    const a = pts[i]!;
+    const b = pts[i + 1]!;
     return a.costPerDay + ((b.costPerDay - a.costPerDay) * (cf - a.cleanliness)) / (b.cleanliness - a.cleanliness);
   };
   const table = emptyTable(days, grid);
@@ -114,7 +114,7 @@ export function tableFromCostCurve(
   const row = Array.from({ length: table.size }, (_, i) => at(gridCleanliness(table, i)) - top);
   for (let d = 0; d < days; d++) {
     const f = dayFactor(d);
-    for (let i = 0; i < table.size; i++) table.heatRateFuel[d * table.size + i] = f * row[i];
+    for (let i = 0; i < table.size; i++) table.heatRateFuel[d * table.size + i] = f * row[i]!;
   }
   return table;
 }

@@ -63,9 +63,9 @@ export function buildPenaltyTable(
     uCleanScale: model.uCleanScale,
   };
   for (let d = 0; d < days; d++) {
-    const load = drivers.loadFraction[d];
+    const load = drivers.loadFraction[d]!;
     if ((offline && offline[d]) || !(load > 0)) continue;
-    state.cwInletC = drivers.cwInletC[d];
+    state.cwInletC = drivers.cwInletC[d]!;
     state.dutyMw = dutyAtLoadMw(model, load);
     for (let i = 0; i < table.size; i++) {
       state.cleanliness = gridCleanliness(table, i);
@@ -81,16 +81,16 @@ export function buildPenaltyTable(
       heatRateBtuKwh: model.heatRateBtuKwh,
       heatRatePenaltyPct: 1,
       outputPenaltyPct: 1,
-      fuelPricePerMmbtu: drivers.fuelPricePerMmbtu[d],
-      co2PricePerTonne: drivers.co2PricePerTonne[d],
+      fuelPricePerMmbtu: drivers.fuelPricePerMmbtu[d]!,
+      co2PricePerTonne: drivers.co2PricePerTonne[d]!,
       co2KgPerMmbtu: model.co2KgPerMmbtu,
-      replacementPricePerMwh: drivers.replacementPricePerMwh[d],
+      replacementPricePerMwh: drivers.replacementPricePerMwh[d]!,
     });
     const fuelPerPctDay = 24 * (1 - share) * perPct.fuelCostPerHour;
     const co2PerPctDay = 24 * (1 - share) * perPct.co2CostPerHour;
     const capacityPerPctDay = 24 * share * perPct.capacityCostPerHour;
     for (let i = 0; i < table.size; i++) {
-      const penalty = penaltyBetween(curve, load, backpressures[i], referenceKpa);
+      const penalty = penaltyBetween(curve, load, backpressures[i]!, referenceKpa);
       const k = d * table.size + i;
       table.heatRateFuel[k] = fuelPerPctDay * penalty.heatRatePenaltyPct;
       table.co2[k] = co2PerPctDay * penalty.heatRatePenaltyPct;

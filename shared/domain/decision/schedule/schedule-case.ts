@@ -117,8 +117,8 @@ export function assembleCase(spec: ScheduleCaseSpec): AssembledCase {
   } else {
     const factors = spec.penalty.monthlyFactors;
     if (factors && factors.length !== 12) throw new Error('monthlyFactors needs 12 values, January first');
-    const month = (d: number) => Number(drivers.dates[d].slice(5, 7)) - 1;
-    table = tableFromCostCurve(days, spec.penalty.curve, factors ? (d) => factors[month(d)] : undefined, grid);
+    const month = (d: number) => Number(drivers.dates[d]!.slice(5, 7)) - 1;
+    table = tableFromCostCurve(days, spec.penalty.curve, factors ? (d) => factors[month(d)]! : undefined, grid);
   }
   if (spec.methods.length === 0) throw new Error('at least one cleaning method is needed');
   const methodWindows = spec.methodWindows ?? {};
@@ -129,16 +129,19 @@ export function assembleCase(spec: ScheduleCaseSpec): AssembledCase {
     lostGeneration: lostGenerationFromDrivers(spec.economics, drivers),
     fouling: spec.fouling,
     initial: spec.initial,
-    methods: spec.methods.map((m) => ({
-      id: m.id,
-      cleaningCost: m.fixedCost + m.costPerTube * spec.economics.activeTubes,
-      durationDays: m.durationDays,
-      unitDuringCleaning: m.unitDuringCleaning,
-      deratePct: m.deratePct,
-      recoveredCleanliness: m.recoveredCleanliness,
-      foulingRateMultiplier: m.foulingRateMultiplier,
-      ...(methodWindows[m.id] ? { windows: methodWindows[m.id].map((r) => toDayRange(spec.startDate, r)) } : {}),
-    })),
+    methods: spec.methods.map((m) => {
+      const windows = methodWindows[m.id];
+      return {
+        id: m.id,
+        cleaningCost: m.fixedCost + m.costPerTube * spec.economics.activeTubes,
+        durationDays: m.durationDays,
+        unitDuringCleaning: m.unitDuringCleaning,
+        deratePct: m.deratePct,
+        recoveredCleanliness: m.recoveredCleanliness,
+        foulingRateMultiplier: m.foulingRateMultiplier,
+        ...(windows ? { windows: windows.map((r) => toDayRange(spec.startDate, r)) } : {}),
+      };
+    }),
     plannedOutage,
     ...(spec.windows ? { windows: spec.windows.map((r) => toDayRange(spec.startDate, r)) } : {}),
     minSpacingDays: spec.minSpacingDays ?? 0,
@@ -152,9 +155,10 @@ export function assembleCase(spec: ScheduleCaseSpec): AssembledCase {
 function describeCleanings(a: AssembledCase, priced: PricedSchedule): ScheduledCleaning[] {
   return priced.cleanings.map((c) => {
     const m = a.methods.get(c.methodId) as CleaningMethod;
+    const date = a.dates[c.startDay]!; // a priced cleaning starts within the horizon
     return {
-      date: a.dates[c.startDay],
-      endDate: addDays(a.dates[c.startDay], m.durationDays - 1),
+      date,
+      endDate: addDays(date, m.durationDays - 1),
       methodId: m.id,
       methodName: m.name,
       cleaningCost: c.cleaningCost,
@@ -191,9 +195,9 @@ export function runScheduleCase(spec: ScheduleCaseSpec): ScheduleCaseResult {
     cleanings: describeCleanings(assembled, proposed),
     daily: assembled.dates.map((date, d) => ({
       date,
-      cleanliness: proposed.dailyCleanliness[d],
-      foulingCost: proposed.dailyFoulingCost[d],
-      cleaningCost: proposed.dailyCleaningCost[d],
+      cleanliness: proposed.dailyCleanliness[d]!,
+      foulingCost: proposed.dailyFoulingCost[d]!,
+      cleaningCost: proposed.dailyCleaningCost[d]!,
     })),
     totals: proposed.totals,
     discountedTotals: proposed.discountedTotals,

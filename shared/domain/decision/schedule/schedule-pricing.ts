@@ -97,11 +97,11 @@ export function priceSchedule(problem: ScheduleProblem, cleanings: readonly Plan
   const dailyCleaningCost = new Float64Array(days);
   const totals = zeroTotals();
   const discountedTotals = zeroTotals();
-  const yearly = Array.from({ length: problem.yearIndex[days - 1] + 1 }, zeroTotals);
+  const yearly = Array.from({ length: problem.yearIndex[days - 1]! + 1 }, zeroTotals);
   const book = (day: number, key: 'foulingCost' | 'cleaningCost' | 'downtimeCost', amount: number) => {
     totals[key] += amount;
-    discountedTotals[key] += amount * discount[day];
-    yearly[problem.yearIndex[day]][key] += amount;
+    discountedTotals[key] += amount * discount[day]!;
+    yearly[problem.yearIndex[day]!]![key] += amount;
   };
 
   const priced: PricedCleaning[] = [];
@@ -111,7 +111,7 @@ export function priceSchedule(problem: ScheduleProblem, cleanings: readonly Plan
   let next = 0;
   let d = 0;
   while (d < days) {
-    const cf = 1 / (inverseCf0 + multiplier * y[age]);
+    const cf = 1 / (inverseCf0 + multiplier * y[age]!);
     const c = sorted[next];
     if (c && c.startDay === d) {
       const m = methods.get(c.methodId) as ScheduleMethod;
@@ -125,7 +125,7 @@ export function priceSchedule(problem: ScheduleProblem, cleanings: readonly Plan
         cleanlinessBefore: cf,
       };
       book(d, 'cleaningCost', entry.cleaningCost);
-      dailyCleaningCost[d] += entry.cleaningCost;
+      dailyCleaningCost[d]! += entry.cleaningCost;
       for (let j = 0; j < m.durationDays; j++) {
         const day = d + j;
         const downtime = lostMwhOnCleaningDay(problem, m, day) * lostMwhValue(problem.lostGeneration, day, scenario.prices);
@@ -135,7 +135,7 @@ export function priceSchedule(problem: ScheduleProblem, cleanings: readonly Plan
         entry.foulingCostDuring += fouling;
         book(day, 'downtimeCost', downtime);
         book(day, 'foulingCost', fouling);
-        dailyCleaningCost[day] += downtime;
+        dailyCleaningCost[day]! += downtime;
         dailyFoulingCost[day] = fouling;
         dailyCleanliness[day] = cf;
       }
@@ -152,7 +152,7 @@ export function priceSchedule(problem: ScheduleProblem, cleanings: readonly Plan
     dailyFoulingCost[d] = fouling;
     book(d, 'foulingCost', fouling);
     // the fouling clock stops while the unit is off line
-    age += onLine[d];
+    age += onLine[d]!;
     d++;
   }
   for (const t of [totals, discountedTotals, ...yearly]) t.total = t.foulingCost + t.cleaningCost + t.downtimeCost;

@@ -116,7 +116,7 @@ export function dailyDiscountFactors(yearIndex: Int32Array, days: number, rate: 
   let factor = 1;
   for (let d = 0; d < days; d++) {
     if (yearIndex[d] !== year) {
-      year = yearIndex[d];
+      year = yearIndex[d]!;
       factor = Math.pow(1 + rate, -(year + 1));
     }
     out[d] = factor;
@@ -133,7 +133,7 @@ export function foulingIndexByAge(model: FoulingModel, maxAge: number, scale = 1
 
 /** Value of one lost MWh on a day, never below zero (a unit out of merit loses nothing by standing). */
 export function lostMwhValue(e: LostGenerationEconomics, day: number, prices: PriceScales): number {
-  return Math.max(0, prices.replacement * e.replacementPricePerMwh[day] - prices.fuel * e.ownFuelCostPerMwh[day] - prices.co2 * e.ownCo2CostPerMwh[day]);
+  return Math.max(0, prices.replacement * e.replacementPricePerMwh[day]! - prices.fuel * e.ownFuelCostPerMwh[day]! - prices.co2 * e.ownCo2CostPerMwh[day]!);
 }
 
 /**
@@ -142,7 +142,7 @@ export function lostMwhValue(e: LostGenerationEconomics, day: number, prices: Pr
  */
 export function lostMwhOnCleaningDay(p: ScheduleProblem, m: ScheduleMethod, day: number): number {
   if (p.plannedOutage[day]) return 0;
-  const load = Math.max(0, p.lostGeneration.loadFraction[day]);
+  const load = Math.max(0, p.lostGeneration.loadFraction[day]!);
   if (m.unitDuringCleaning === 'outage') return load * p.lostGeneration.ratingMw * 24;
   if (m.unitDuringCleaning === 'derate') return Math.max(0, load - (1 - m.deratePct / 100)) * p.lostGeneration.ratingMw * 24;
   return 0;
@@ -151,14 +151,14 @@ export function lostMwhOnCleaningDay(p: ScheduleProblem, m: ScheduleMethod, day:
 /** 1 on days the unit runs: not in a planned outage and with load. Fouling grows and costs only on these days. */
 export function onLineDays(p: ScheduleProblem): Uint8Array {
   const out = new Uint8Array(p.days);
-  for (let d = 0; d < p.days; d++) out[d] = !p.plannedOutage[d] && p.lostGeneration.loadFraction[d] > 0 ? 1 : 0;
+  for (let d = 0; d < p.days; d++) out[d] = !p.plannedOutage[d] && p.lostGeneration.loadFraction[d]! > 0 ? 1 : 0;
   return out;
 }
 
 /** Days on line in [0, d) for d = 0 … days: the fouling clock between two days is the difference. */
 export function onLineDaysBefore(onLine: Uint8Array): Int32Array {
   const out = new Int32Array(onLine.length + 1);
-  for (let d = 0; d < onLine.length; d++) out[d + 1] = out[d] + onLine[d];
+  for (let d = 0; d < onLine.length; d++) out[d + 1] = out[d]! + onLine[d]!;
   return out;
 }
 

@@ -75,7 +75,7 @@ function npvPrepared(p: PreparedComparison, v: InputValues): number {
   let factor = 1;
   for (let y = 0; y < proposed.length; y++) {
     factor /= 1 + v.discountRate;
-    value += (baseline[y] - proposed[y]) * factor;
+    value += (baseline[y]! - proposed[y]!) * factor;
   }
   return value;
 }
@@ -140,12 +140,12 @@ export interface MonteCarloSummary {
 const HISTOGRAM_BINS = 24;
 
 function histogramOf(sorted: Float64Array): MonteCarloSummary['histogram'] {
-  const lo = sorted[0];
-  const hi = sorted[sorted.length - 1];
+  const lo = sorted[0]!;
+  const hi = sorted[sorted.length - 1]!;
   if (!(hi > lo)) return [{ from: lo, to: hi, count: sorted.length }];
   const width = (hi - lo) / HISTOGRAM_BINS;
   const bins = Array.from({ length: HISTOGRAM_BINS }, (_, i) => ({ from: lo + i * width, to: i === HISTOGRAM_BINS - 1 ? hi : lo + (i + 1) * width, count: 0 }));
-  for (const v of sorted) bins[Math.min(HISTOGRAM_BINS - 1, Math.floor((v - lo) / width))].count++;
+  for (const v of sorted) bins[Math.min(HISTOGRAM_BINS - 1, Math.floor((v - lo) / width))]!.count++;
   return bins;
 }
 
