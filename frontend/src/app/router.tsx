@@ -19,6 +19,7 @@ import { unitQueryOptions } from '@frontend/features/units/api/get-unit';
 import { healthQueryOptions } from '@frontend/features/health/api/get-health';
 import { healthQueryFor } from '@frontend/features/health/components/health-period';
 import { eventsQueryOptions } from '@frontend/features/events/api/get-events';
+import { caseQueryOptions } from '@frontend/features/cases/api/get-case';
 import { unitImportsQueryOptions } from '@frontend/features/imports/api/get-imports';
 import { signInReturningTo } from '@frontend/lib/safe-next';
 import { appQueryClient } from './app-query-client';
@@ -77,6 +78,16 @@ const router = createBrowserRouter([
     },
   },
   {
+    path: '/cases/:caseId/print',
+    lazy: page(() => import('./routes/case-print'), (m) => m.CasePrintPage),
+    errorElement: <RouteErrorPage />,
+    hydrateFallbackElement: <FirstLoad />,
+    loader: async (args) => {
+      await requireSignedIn(args);
+      return tenantLoader('data.read', (org, { params }) => [prefetch(caseQueryOptions(org, params.caseId ?? ''))])(args);
+    },
+  },
+  {
     path: '/mailbox',
     lazy: page(() => import('./routes/mailbox'), (m) => m.MailboxPage),
     errorElement: <RouteErrorPage />,
@@ -95,6 +106,12 @@ const router = createBrowserRouter([
     hydrateFallbackElement: <FirstLoad />,
     children: [
       { index: true, lazy: page(() => import('./routes/overview'), (m) => m.OverviewPage) },
+      { path: 'cases', lazy: page(() => import('./routes/cases'), (m) => m.CasesPage) },
+      {
+        path: 'cases/:caseId',
+        lazy: page(() => import('./routes/case'), (m) => m.CasePage),
+        loader: tenantLoader('data.read', (org, { params }) => [prefetch(caseQueryOptions(org, params.caseId ?? ''))]),
+      },
       {
         path: 'plants',
         lazy: page(() => import('./routes/plants'), (m) => m.PlantsPage),
@@ -124,6 +141,7 @@ const router = createBrowserRouter([
           { path: 'import', lazy: page(() => import('./routes/unit-import'), (m) => m.UnitImportPage) },
           { path: 'imports', lazy: page(() => import('./routes/unit-imports'), (m) => m.UnitImportsPage), loader: tenantLoader('data.read', (org, { params }) => [prefetch(unitImportsQueryOptions(org, params.unitId ?? ''))]) },
           { path: 'events', lazy: page(() => import('./routes/unit-events'), (m) => m.UnitEventsPage), loader: tenantLoader('data.read', (org, { params }) => [prefetch(eventsQueryOptions(org, params.unitId ?? '')), prefetch(cleaningMethodsQueryOptions(org))]) },
+          { path: 'cases', lazy: page(() => import('./routes/cases-of-unit'), (m) => m.UnitCasesPage) },
         ],
       },
       {

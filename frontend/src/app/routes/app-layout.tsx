@@ -28,6 +28,9 @@ export function AppLayout() {
             <NavLink to="/plants" className={({ isActive }) => navClass({ isActive: isActive || onUnitPage })}>
               Plants
             </NavLink>
+            <NavLink to="/cases" className={navClass}>
+              Cases
+            </NavLink>
             <NavLink to="/settings" className={navClass}>
               Settings
             </NavLink>

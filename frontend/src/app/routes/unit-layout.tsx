@@ -67,6 +67,9 @@ export function UnitLayout() {
         <NavLink to={`${base}/events`} className={tabClass}>
           Events
         </NavLink>
+        <NavLink to={`${base}/cases`} className={tabClass}>
+          Cases
+        </NavLink>
       </nav>
       <Outlet context={context} />
     </div>
