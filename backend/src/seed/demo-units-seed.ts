@@ -3,7 +3,7 @@
  * user's file takes (upload record → mapping → check → store → recompute). The history ends the day before the
  * plant's today, so the demo looks current whenever it is seeded. Prices are DEMO VALUES.
  */
-import { mkdtemp, rm } from 'node:fs/promises';
+import { mkdtemp, rm, stat } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
 import type { DataSource } from 'typeorm';
@@ -116,7 +116,7 @@ export async function seedDemoUnits(ds: DataSource, log: (line: string) => void,
         cleanlinessBefore: null, cleanlinessAfter: null, pluggedTubesAfter: null, notes: 'Expansion-joint leak found and sealed (demo)', createdByUserId: admin.userId,
       });
       const imp = await ds.getRepository(DataImport).save({
-        organisationId: organisation.id, unitId: unit.id, uploadedByUserId: admin.userId, fileName: path.basename(set.csvPath), fileBytes: 0, fileKind: 'csv', status: 'mapping',
+        organisationId: organisation.id, unitId: unit.id, uploadedByUserId: admin.userId, fileName: path.basename(set.csvPath), fileBytes: (await stat(set.csvPath)).size, fileKind: 'csv', status: 'mapping',
         mapping: set.csvMapping, counts: null, errors: null, errorCount: 0, notes: null, progress: 0, message: null, storedPath: set.csvPath,
         firstTimestamp: null, lastTimestamp: null, finishedAt: null,
       });

@@ -1,3 +1,4 @@
+import { formatNumber } from '@shared/text/display-format';
 /** Dates and times for display: one place, so every table reads the same way. */
 const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
 const dateTimeFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' });
@@ -13,36 +14,17 @@ export const ROLE_NOTES = {
   viewer: 'reads dashboards and approved cases',
 } as const;
 
-/** A number with fixed decimals and thousands grouping, or a dash. */
-export const formatNumber = (value: number | null | undefined, decimals = 0): string =>
-  value === null || value === undefined || !Number.isFinite(value)
-    ? '—'
-    : value.toLocaleString('en-US', { minimumFractionDigits: decimals, maximumFractionDigits: decimals });
-
-/** Money with its currency code, e.g. "USD 48,200". */
-export const formatMoney = (value: number | null | undefined, currency = 'USD', decimals = 0): string =>
-  value === null || value === undefined ? '—' : `${currency} ${formatNumber(value, decimals)}`;
-
 /**
- * Money with the currency's own sign where it has one, e.g. "$48,200" or "€48,200"; an unknown code
- * falls back to "XYZ 48,200".
+ * Numbers, money, percentages and plant-local days read the same on every screen and in the reports: one
+ * implementation in shared (never "-$0", the currency's own sign, grouped thousands, "14 Mar 2026").
  */
-export function formatCurrency(value: number | null | undefined, currency = 'USD', decimals = 0): string {
-  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  try {
-    return new Intl.NumberFormat('en-US', { style: 'currency', currency, minimumFractionDigits: decimals, maximumFractionDigits: decimals }).format(value);
-  } catch {
-    return formatMoney(value, currency, decimals);
-  }
-}
+export { formatCurrency, formatDay, formatNumber, formatPercent } from '@shared/text/display-format';
+/** Money: the same as formatCurrency (one currency format everywhere). */
+export { formatCurrency as formatMoney } from '@shared/text/display-format';
 
-/** A fraction as a percentage, e.g. 0.853 → "85.3 %". */
-export const formatPercent = (fraction: number | null | undefined, decimals = 1): string =>
-  fraction === null || fraction === undefined ? '—' : `${formatNumber(fraction * 100, decimals)} %`;
-
-/** Bytes as KB/MB for file sizes. */
+/** A file size: bytes below 1 KB, then KB, then MB with one decimal. */
 export const formatBytes = (bytes: number): string =>
-  bytes >= 1024 * 1024 ? `${formatNumber(bytes / 1024 / 1024, 1)} MB` : `${formatNumber(Math.max(1, Math.round(bytes / 1024)))} KB`;
+  bytes >= 1024 * 1024 ? `${formatNumber(bytes / 1024 / 1024, 1)} MB` : bytes >= 1024 ? `${formatNumber(bytes / 1024)} KB` : `${formatNumber(bytes)} bytes`;
 
 /** A moment on a plant's own clock, with the zone's short name, e.g. "2 Jun 2025, 00:00 CDT". */
 export function formatPlantTime(iso: string | null | undefined, timeZone: string): string {
@@ -63,8 +45,3 @@ export function formatPlantDate(iso: string | null | undefined, timeZone: string
     return formatDate(iso);
   }
 }
-
-const dayFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
-
-/** A calendar day already in the plant's time ("2025-04-20") as "20 Apr 2025", with no zone shift. */
-export const formatDay = (day: string | null | undefined): string => (day ? dayFormat.format(new Date(`${day.slice(0, 10)}T00:00:00Z`)) : '—');
