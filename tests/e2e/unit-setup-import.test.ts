@@ -285,7 +285,7 @@ describe('unit setup, import and undo in a real browser', () => {
     await form.getByRole('button', { name: 'Add event' }).click();
     const row = page.getByTestId('event-row').filter({ hasText: 'Cleaning' });
     await row.waitFor();
-    expect(await row.textContent()).toContain('USD 48,200');
+    expect(await row.textContent()).toContain('$48,200');
     expect(await row.textContent()).toContain('92 %');
     await page.screenshot({ path: '/tmp/unit-events.png', fullPage: true });
     await page.getByRole('navigation', { name: 'Unit' }).getByRole('link', { name: 'Health' }).click();
