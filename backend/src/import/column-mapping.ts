@@ -154,7 +154,7 @@ const numericValues = (rows: string[][], index: number, comma: boolean): number[
 /** A typical value of a column: its upper middle value, one the file itself holds (so a message can quote it); NaN for none. */
 const typicalValue = (xs: number[]): number => {
   const s = [...xs].sort((a, b) => a - b);
-  return s.length === 0 ? Number.NaN : s[Math.floor(s.length / 2)];
+  return s.length === 0 ? Number.NaN : s[Math.floor(s.length / 2)]!;
 };
 
 /** Unit of a column from typical magnitudes of its values [common practice, rough]. */
@@ -213,12 +213,15 @@ function guessTimestamp(samples: string[]): { format: 'iso-8601-offset' | 'local
   if (texts.every((t) => /^\d{4}-\d{2}-\d{2}[T ]\d{2}:\d{2}(:\d{2}(\.\d+)?)?\s*(Z|[+-]\d{2}(:?\d{2})?)$/i.test(t))) return { format: 'iso-8601-offset', confidence: 0.95 };
   if (texts.every((t) => /^\d+(\.\d+)?$/.test(t) && +t > 20_000 && +t < 80_000)) return { format: 'excel-serial', confidence: 0.8 };
   if (!texts.every(looksLikeDateTime)) return null;
-  const parts = texts.map((t) => t.split(/[-/.T ]/));
-  if (parts.every((p) => p[0].length === 4)) return { format: 'local-text', dateOrder: 'ymd', confidence: 0.9 };
-  if (parts.some((p) => +p[0] > 12)) return { format: 'local-text', dateOrder: 'dmy', confidence: 0.85 };
-  if (parts.some((p) => +p[1] > 12)) return { format: 'local-text', dateOrder: 'mdy', confidence: 0.85 };
+  const parts = texts.map((t) => {
+    const [first = '', second = ''] = t.split(/[-/.T ]/);
+    return { first, second };
+  });
+  if (parts.every((p) => p.first.length === 4)) return { format: 'local-text', dateOrder: 'ymd', confidence: 0.9 };
+  if (parts.some((p) => +p.first > 12)) return { format: 'local-text', dateOrder: 'dmy', confidence: 0.85 };
+  if (parts.some((p) => +p.second > 12)) return { format: 'local-text', dateOrder: 'mdy', confidence: 0.85 };
   // ambiguous day/month: dots are the European habit, slashes the US one
-  return { format: 'local-text', dateOrder: texts[0].includes('.') ? 'dmy' : 'mdy', confidence: 0.5 };
+  return { format: 'local-text', dateOrder: texts[0]!.includes('.') ? 'dmy' : 'mdy', confidence: 0.5 };
 }
 
 export interface GuessOptions {
@@ -243,7 +246,7 @@ export function guessMapping(headers: string[], sampleRows: string[][] = [], opt
       return { header, index, quantity, unit: null, confidence: ts ? Math.min(0.95, ts.confidence + 0.05) : 0.6 };
     }
     if (quantity === null && fromUnit && fromUnit.kinds.length === 1) {
-      quantity = fromUnit.kinds[0];
+      quantity = fromUnit.kinds[0]!;
       confidence = 0.35;
       note = 'guessed from the unit only';
     } else if (quantity === null && fromUnit?.absolute && /\b(press(ure)?|pr|p)\b/.test(n)) {

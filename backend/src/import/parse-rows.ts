@@ -86,7 +86,7 @@ function unitWarnings(sums: Float64Array, counts: Float64Array): string[] {
   const out: string[] = [];
   for (const [field, label, min, max, hint] of PLAUSIBLE_MEAN) {
     if (counts[field] === 0) continue;
-    const mean = sums[field] / counts[field];
+    const mean = sums[field]! / counts[field]!;
     if (mean < min || mean > max) out.push(`${label} averages ${mean.toPrecision(4)} in SI units, outside ${min} to ${max}: ${hint}`);
   }
   return out;
@@ -128,7 +128,7 @@ export async function checkImportFile(filePath: string, options: ImportFileOptio
     for await (const chunk of table.chunks) for (const row of chunk) {
       result.dataRows++;
       const good = converter.convert(row.cells, row.line, record, errors);
-      const t = record[F.timestampUtc];
+      const t = record[F.timestampUtc]!;
       if (!Number.isNaN(t)) {
         if (!Number.isNaN(prev)) {
           if (!(t > prev)) ascending = false;
@@ -141,13 +141,13 @@ export async function checkImportFile(filePath: string, options: ImportFileOptio
       }
       if (good) {
         for (const f of MEAN_FIELDS) {
-          sums[f] += record[f];
-          counts[f]++;
+          sums[f]! += record[f]!;
+          counts[f]!++;
         }
       }
     }
     result.order = ascending ? 'ascending' : descending && index.n > 1 ? 'descending' : 'unordered';
-    if (!ascending && !descending) result.duplicateTimestamps = reportDuplicates(index, table.headers[compiled.timestampIndex], errors);
+    if (!ascending && !descending) result.duplicateTimestamps = reportDuplicates(index, table.headers[compiled.timestampIndex]!, errors);
     result.warnings = unitWarnings(sums, counts);
   } catch (e) {
     if (!(e instanceof ImportFileError)) throw e;
@@ -166,15 +166,15 @@ function reportDuplicates(index: TimeIndex, column: string, errors: RowErrorList
   const order = new Uint32Array(index.n);
   for (let i = 0; i < index.n; i++) order[i] = i;
   const { times, lines } = index;
-  order.sort((a, b) => times[a] - times[b] || lines[a] - lines[b]);
+  order.sort((a, b) => times[a]! - times[b]! || lines[a]! - lines[b]!);
   const found: { line: number; first: number; t: number }[] = [];
   for (let k = 1; k < order.length; k++) {
-    const a = order[k - 1];
-    const b = order[k];
+    const a = order[k - 1]!;
+    const b = order[k]!;
     if (times[a] === times[b]) {
       let first = k - 1;
-      while (first > 0 && times[order[first - 1]] === times[b]) first--;
-      found.push({ line: lines[b], first: lines[order[first]], t: times[b] });
+      while (first > 0 && times[order[first - 1]!] === times[b]) first--;
+      found.push({ line: lines[b]!, first: lines[order[first]!]!, t: times[b]! });
     }
   }
   found.sort((x, y) => x.line - y.line);
@@ -274,13 +274,13 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
     let batch: ImportSample[] = [];
     const pendingBatches: ImportSample[][] = [];
     const window = new SteadinessWindow(windowMinutes * 60_000, (r, minLoad, minT, maxLoad, maxT) => {
-      const t = r[F.timestampUtc];
+      const t = r[F.timestampUtc]!;
       const point = {
-        backpressureKpa: r[F.backpressureKpa],
-        cwInletC: r[F.cwInletC],
-        cwOutletC: r[F.cwOutletC],
-        cwFlowM3s: r[F.cwFlowM3s],
-        loadMw: r[F.loadMw],
+        backpressureKpa: r[F.backpressureKpa]!,
+        cwInletC: r[F.cwInletC]!,
+        cwOutletC: r[F.cwOutletC]!,
+        cwFlowM3s: r[F.cwFlowM3s]!,
+        loadMw: r[F.loadMw]!,
       };
       const verdict = checkPointValidity(point, {
         ratingMw: s.ratingMw,
@@ -293,8 +293,8 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
           { minutesFromPoint: (maxT - t) / 60_000, loadMw: maxLoad },
         ],
       });
-      const sample: ImportSample = { line: r[F.line], timestampUtc: t, ...point, flowAssumed: compiled.flowAssumed, validity: verdict.valid ? 'ok' : verdict.reason };
-      for (const [key, field] of OPTIONAL_FIELDS) if (!Number.isNaN(r[field])) (sample as unknown as Record<string, number>)[key] = r[field];
+      const sample: ImportSample = { line: r[F.line]!, timestampUtc: t, ...point, flowAssumed: compiled.flowAssumed, validity: verdict.valid ? 'ok' : verdict.reason };
+      for (const [key, field] of OPTIONAL_FIELDS) if (!Number.isNaN(r[field])) (sample as unknown as Record<string, number>)[key] = r[field]!;
       if (verdict.valid) summary.rowsOk++;
       else summary.rowsByReason[verdict.reason] = (summary.rowsByReason[verdict.reason] ?? 0) + 1;
       if (compiled.flowAssumed) summary.flowAssumedRows++;
@@ -316,15 +316,16 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
       const record = new Float64Array(RECORD_FIELDS);
       if (!converter.convert(row.cells, row.line, record, errors)) {
         const e = errors.errors[0];
-        throw new ImportFileError('file-changed', `line ${e.row} is wrong (${e.message}): check the file again before importing`, e.row);
+        const wrong = e ? `line ${e.row} is wrong (${e.message})` : `line ${row.line} is wrong`;
+        throw new ImportFileError('file-changed', `${wrong}: check the file again before importing`, e?.row ?? row.line);
       }
       summary.rowsRead++;
       if (sorter) await sorter.add(record);
       else {
-        if (!(record[F.timestampUtc] > lastTime)) {
+        if (!(record[F.timestampUtc]! > lastTime)) {
           throw new ImportFileError('file-changed', `line ${row.line} is not in ascending time order: check the file again before importing`, row.line);
         }
-        lastTime = record[F.timestampUtc];
+        lastTime = record[F.timestampUtc]!;
         window.push(record);
         if (pendingBatches.length > 0) await drain();
       }
@@ -335,7 +336,7 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
         if (record[F.timestampUtc] === prev) {
           throw new ImportFileError('file-changed', `line ${record[F.line]} repeats a timestamp: check the file again before importing`, record[F.line]);
         }
-        prev = record[F.timestampUtc];
+        prev = record[F.timestampUtc]!;
         window.push(record);
         if (pendingBatches.length > 0) await drain();
       }

@@ -46,7 +46,7 @@ export function locateHeader(records: string[][]): { headerIndex: number; dataIn
   let best = -1;
   for (const [w, n] of widths) if (n > best || (n === best && w > modal)) [modal, best] = [w, n];
   for (let i = 0; i < records.length; i++) {
-    const cells = records[i].map((c) => c.trim());
+    const cells = records[i]!.map((c) => c.trim());
     const named = cells.filter((c) => c !== '');
     if (named.length < 2 || named.length < Math.ceil(0.6 * modal)) continue;
     const numeric = named.filter(looksNumeric).length;
@@ -54,7 +54,7 @@ export function locateHeader(records: string[][]): { headerIndex: number; dataIn
     const headers = cells.map((c, k) => c || `(column ${k + 1})`);
     let j = i + 1;
     while (j < records.length && j <= i + 3) {
-      const extra = records[j].map((c) => c.trim());
+      const extra = records[j]!.map((c) => c.trim());
       if (extra.every((c) => !looksNumeric(c)) && extra.some((c) => c !== '') && !extra.some(looksLikeDateTime)) {
         for (let k = 0; k < headers.length; k++) if (extra[k]) headers[k] = `${headers[k]} (${extra[k]})`;
         j++;

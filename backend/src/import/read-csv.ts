@@ -179,7 +179,7 @@ export async function openCsvTable(filePath: string, options: CsvReadOptions = {
         await close();
       }
     }
-    return tableFrom('csv', located.headers, head[located.dataIndex - 1].line, buffered, chunks(), close);
+    return tableFrom('csv', located.headers, head[located.dataIndex - 1]!.line, buffered, chunks(), close);
   } catch (e) {
     await close();
     throw e;

@@ -122,7 +122,7 @@ export async function openXlsxTable(filePath: string, options: XlsxReadOptions =
         await close();
       }
     }
-    return tableFrom('xlsx', located.headers, head[located.dataIndex - 1].line, buffered, chunks(), close);
+    return tableFrom('xlsx', located.headers, head[located.dataIndex - 1]!.line, buffered, chunks(), close);
   } catch (e) {
     await close();
     throw e;

@@ -37,9 +37,9 @@ export class RecordSorter {
     const order = new Uint32Array(n);
     for (let i = 0; i < n; i++) order[i] = i;
     const c = this.chunk;
-    order.sort((a, b) => c[a * RECORD_FIELDS + F.timestampUtc] - c[b * RECORD_FIELDS + F.timestampUtc]);
+    order.sort((a, b) => c[a * RECORD_FIELDS + F.timestampUtc]! - c[b * RECORD_FIELDS + F.timestampUtc]!);
     const out = new Float64Array(n * RECORD_FIELDS);
-    for (let i = 0; i < n; i++) out.set(c.subarray(order[i] * RECORD_FIELDS, (order[i] + 1) * RECORD_FIELDS), i * RECORD_FIELDS);
+    for (let i = 0; i < n; i++) out.set(c.subarray(order[i]! * RECORD_FIELDS, (order[i]! + 1) * RECORD_FIELDS), i * RECORD_FIELDS);
     return out;
   }
 
@@ -80,14 +80,14 @@ export class RecordSorter {
       let best = -1;
       let bestT = Infinity;
       for (let k = 0; k < readers.length; k++) {
-        const r = readers[k];
-        if (r.pos < r.len && r.buf[r.pos * RECORD_FIELDS + F.timestampUtc] < bestT) {
+        const r = readers[k]!;
+        if (r.pos < r.len && r.buf[r.pos * RECORD_FIELDS + F.timestampUtc]! < bestT) {
           best = k;
-          bestT = r.buf[r.pos * RECORD_FIELDS + F.timestampUtc];
+          bestT = r.buf[r.pos * RECORD_FIELDS + F.timestampUtc]!;
         }
       }
       if (best < 0) return;
-      const r = readers[best];
+      const r = readers[best]!;
       yield r.buf.slice(r.pos * RECORD_FIELDS, (r.pos + 1) * RECORD_FIELDS);
       r.pos++;
       if (r.pos === r.len && r.next < r.count) await refill(r);

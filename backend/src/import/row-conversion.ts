@@ -62,7 +62,7 @@ export function compileMapping(mappingInput: unknown, headers: string[]): Compil
       return -1;
     }
     if (at.length > 1) throw new ImportFileError('duplicate-column', `the file has ${at.length} columns named "${column}": rename them so the mapping is unambiguous`);
-    return at[0];
+    return at[0]!;
   };
   const timestampIndex = find(mapping.timestamp.column);
   const index: Partial<Record<ImportQuantity, number>> = {};
@@ -122,20 +122,21 @@ export class RowConverter {
     out[F.timestampUtc] = Number.NaN;
     out[F.line] = line;
     if (cells.length < headers.length) {
-      errors.add(line, headers[cells.length], '', `the row has ${cells.length} column${cells.length === 1 ? '' : 's'}; the header has ${headers.length}`);
+      errors.add(line, headers[cells.length]!, '', `the row has ${cells.length} column${cells.length === 1 ? '' : 's'}; the header has ${headers.length}`);
       return false;
     }
     for (let k = headers.length; k < cells.length; k++) {
-      if (cells[k].trim() !== '') {
-        errors.add(line, `(column ${k + 1})`, cells[k], `the row has more columns than the header (${headers.length})`);
+      if (cells[k]!.trim() !== '') {
+        errors.add(line, `(column ${k + 1})`, cells[k]!, `the row has more columns than the header (${headers.length})`);
         return false;
       }
     }
+    // From here every mapped column index is below headers.length ≤ cells.length.
     this.rowOk = true;
-    const tsText = cells[this.m.timestampIndex];
+    const tsText = cells[this.m.timestampIndex]!;
     const ts = this.timestamps.parse(tsText);
     if (Number.isNaN(ts)) {
-      errors.add(line, headers[this.m.timestampIndex], tsText, `bad timestamp: ${this.timestamps.error}`);
+      errors.add(line, headers[this.m.timestampIndex]!, tsText, `bad timestamp: ${this.timestamps.error}`);
       this.rowOk = false;
     }
     out[F.timestampUtc] = ts;
@@ -156,13 +157,13 @@ export class RowConverter {
     } else {
       const vacuumKpa = pressureToKpa(this.readNumber(cells, line, errors, 'condenserVacuum', true), c.condenserVacuum!.unit);
       const baroKpa = c.barometer && !Number.isNaN(out[F.barometerKpa])
-        ? out[F.barometerKpa]
+        ? out[F.barometerKpa]!
         : pressureToKpa(mapping.fixedBarometer!.value, mapping.fixedBarometer!.unit);
       out[F.backpressureKpa] = baroKpa - vacuumKpa;
     }
     if (c.cwFlow) {
       const flow = this.readNumber(cells, line, errors, 'cwFlow', true);
-      out[F.cwFlowM3s] = Number.isNaN(flow) ? Number.NaN : cwFlowToM3s(flow, c.cwFlow.unit, out[F.cwInletC]);
+      out[F.cwFlowM3s] = Number.isNaN(flow) ? Number.NaN : cwFlowToM3s(flow, c.cwFlow.unit, out[F.cwInletC]!);
     } else {
       out[F.cwFlowM3s] = mapping.designCwFlowM3s!;
     }
@@ -180,17 +181,17 @@ export class RowConverter {
   private readNumber(cells: string[], line: number, errors: RowErrorList, q: ImportQuantity, required: boolean): number {
     const i = this.m.index[q];
     if (i === undefined) return Number.NaN;
-    const raw = cells[i];
+    const raw = cells[i]!;
     const text = raw.trim();
     if (text === '') {
       if (required) {
-        errors.add(line, this.m.headers[i], raw, `missing value: ${REQUIRED_LABEL[q] ?? q} is required in every row`);
+        errors.add(line, this.m.headers[i]!, raw, `missing value: ${REQUIRED_LABEL[q] ?? q} is required in every row`);
         this.rowOk = false;
       }
       return Number.NaN;
     }
     if (!this.numberPattern.test(text)) {
-      errors.add(line, this.m.headers[i], raw, `not a number${this.comma ? ' (decimal comma expected)' : ''}`);
+      errors.add(line, this.m.headers[i]!, raw, `not a number${this.comma ? ' (decimal comma expected)' : ''}`);
       this.rowOk = false;
       return Number.NaN;
     }

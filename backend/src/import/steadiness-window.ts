@@ -23,21 +23,22 @@ export class SteadinessWindow {
     private readonly emit: WindowEmit,
   ) {}
 
+  /** The record at a stream index still held in the window (callers only ask for those). */
   private at(streamIndex: number): Float64Array {
-    return this.records[streamIndex - this.base];
+    return this.records[streamIndex - this.base]!;
   }
 
   push(record: Float64Array): void {
-    const t = record[F.timestampUtc];
+    const t = record[F.timestampUtc]!;
     if (!(t > this.lastTime)) throw new RangeError('records must arrive in strictly ascending time order');
     this.lastTime = t;
-    while (this.center < this.base + this.records.length && t > this.at(this.center)[F.timestampUtc] + this.windowMs) this.release();
+    while (this.center < this.base + this.records.length && t > this.at(this.center)[F.timestampUtc]! + this.windowMs) this.release();
     const idx = this.base + this.records.length;
     this.records.push(record);
-    const load = record[F.loadMw];
-    while (this.minQ.length > this.minHead && this.at(this.minQ[this.minQ.length - 1])[F.loadMw] >= load) this.minQ.pop();
+    const load = record[F.loadMw]!;
+    while (this.minQ.length > this.minHead && this.at(this.minQ[this.minQ.length - 1]!)[F.loadMw]! >= load) this.minQ.pop();
     this.minQ.push(idx);
-    while (this.maxQ.length > this.maxHead && this.at(this.maxQ[this.maxQ.length - 1])[F.loadMw] <= load) this.maxQ.pop();
+    while (this.maxQ.length > this.maxHead && this.at(this.maxQ[this.maxQ.length - 1]!)[F.loadMw]! <= load) this.maxQ.pop();
     this.maxQ.push(idx);
   }
 
@@ -48,12 +49,12 @@ export class SteadinessWindow {
 
   private release(): void {
     const rec = this.at(this.center);
-    const from = rec[F.timestampUtc] - this.windowMs;
-    while (this.at(this.minQ[this.minHead])[F.timestampUtc] < from) this.minHead++;
-    while (this.at(this.maxQ[this.maxHead])[F.timestampUtc] < from) this.maxHead++;
-    const lo = this.at(this.minQ[this.minHead]);
-    const hi = this.at(this.maxQ[this.maxHead]);
-    this.emit(rec, lo[F.loadMw], lo[F.timestampUtc], hi[F.loadMw], hi[F.timestampUtc]);
+    const from = rec[F.timestampUtc]! - this.windowMs;
+    while (this.at(this.minQ[this.minHead]!)[F.timestampUtc]! < from) this.minHead++;
+    while (this.at(this.maxQ[this.maxHead]!)[F.timestampUtc]! < from) this.maxHead++;
+    const lo = this.at(this.minQ[this.minHead]!);
+    const hi = this.at(this.maxQ[this.maxHead]!);
+    this.emit(rec, lo[F.loadMw]!, lo[F.timestampUtc]!, hi[F.loadMw]!, hi[F.timestampUtc]!);
     this.center++;
     this.compact();
   }

@@ -47,7 +47,7 @@ function resolveWallClock(zone: IANAZone, naive: number): Exclude<DayResolution,
   const valid: number[] = [];
   for (const o of candidates) if (zone.offset(naive - o * MS_PER_MIN) === o) valid.push(o);
   if (valid.length === 0) return { kind: 'gap' };
-  if (valid.length === 1) return { kind: 'single', offsetMin: valid[0] };
+  if (valid.length === 1) return { kind: 'single', offsetMin: valid[0]! };
   // the larger offset gives the earlier instant
   return { kind: 'overlap', earlierUtcShiftMin: Math.max(...valid), laterUtcShiftMin: Math.min(...valid) };
 }
@@ -106,10 +106,11 @@ export class TimestampParser {
       }
       return this.fail('not an ISO 8601 timestamp with offset (e.g. 2024-03-10T14:00:00-05:00)');
     }
-    const naive = naiveMs(+m[1], +m[2], +m[3], +m[4], +m[5], m[6] ? +m[6] : 0, m[7]);
+    // groups 1–5 and 8 are not optional in ISO_OFFSET
+    const naive = naiveMs(+m[1]!, +m[2]!, +m[3]!, +m[4]!, +m[5]!, m[6] ? +m[6] : 0, m[7]);
     if (Number.isNaN(naive)) return this.fail('date or time field out of range');
     let offsetMin = 0;
-    const off = m[8];
+    const off = m[8]!;
     if (off !== 'Z' && off !== 'z') {
       const digits = off.slice(1).replace(':', '');
       const hh = +digits.slice(0, 2);
@@ -124,7 +125,7 @@ export class TimestampParser {
     const m = LOCAL_TEXT.exec(t);
     if (!m) return this.fail(`not a date and time in the stated order (${this.spec.dateOrder})`);
     let y: number, mo: number, d: number;
-    const [a, b, c] = [m[1], m[2], m[3]];
+    const [a, b, c] = [m[1]!, m[2]!, m[3]!]; // the three date groups are not optional in LOCAL_TEXT
     if (this.spec.dateOrder === 'ymd') {
       if (a.length !== 4) return this.fail('expected a four-digit year first (year-month-day)');
       [y, mo, d] = [+a, +b, +c];
