@@ -4,6 +4,8 @@
  * figures, edits, every status change by role, the snapshot, comments, copies, mail and the refusals.
  */
 import { spawnSync } from 'node:child_process';
+import ExcelJS from 'exceljs';
+import { PDFParse } from 'pdf-parse';
 import type TestAgent from 'supertest/lib/agent.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { addDays, daysBetween } from '@shared/domain/calendar/plant-date.js';
@@ -12,6 +14,7 @@ import { ENGINE_VERSION } from '@shared/domain/decision/schedule/engine-version.
 import { runScheduleCommand } from '@shared/domain/decision/schedule/schedule-command.js';
 import { caseView, type CaseView } from '@shared/schemas/cases.js';
 import { storedUnitAnalysis } from '@shared/schemas/unit-analysis.js';
+import { formatCurrency, formatDay } from '@shared/text/display-format.js';
 import { dayText } from '../../backend/src/services/cases/day-text.js';
 import { drainJobs } from '../../backend/src/jobs/job-worker.js';
 import { JOB_HANDLERS } from '../../backend/src/jobs/job-handlers.js';
@@ -428,6 +431,36 @@ describe('cleaning cases', () => {
     expect(copied.newerData).toBeNull();
     expect(copied.results).toEqual(overJson(runScheduleCommand(copied.inputs)));
   }, 240_000);
+
+  it('a viewer downloads an approved case as a PDF and a workbook, with the NPV and first cleaning date as the API gives them', async () => {
+    const c = await newCase('Report: clean in spring / "before" summer');
+    await act(agents.analyst, c.id, 'submit').expect(200);
+    await act(agents.approver, c.id, 'approve').expect(200);
+    const binary = (res: { on: (e: string, f: (b?: Buffer) => void) => void }, done: (err: Error | null, body: Buffer) => void) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (chunk?: Buffer) => chunks.push(chunk!));
+      res.on('end', () => done(null, Buffer.concat(chunks)));
+    };
+    const pdf = await agents.viewer.get(`/api/cases/${c.id}/report.pdf`).buffer(true).parse(binary);
+    expect(pdf.status).toBe(200);
+    expect(pdf.headers['content-type']).toMatch(/application\/pdf/);
+    expect(pdf.headers['content-disposition']).toMatch(/^attachment; filename="cleaning-case-report-clean-in-spring-before-summer-[0-9a-f]{8}\.pdf"$/);
+    const text = (await new PDFParse({ data: new Uint8Array(pdf.body as Buffer) }).getText()).text.replace(/\s+/g, '');
+    expect(text).toContain(formatCurrency(c.results.businessCase.npv, 'USD').replace(/\s+/g, ''));
+    const first = c.results.cleanings[0];
+    if (first) expect(text).toContain(formatDay(first.date).replace(/\s+/g, ''));
+
+    const xlsx = await agents.viewer.get(`/api/cases/${c.id}/export.xlsx`).buffer(true).parse(binary);
+    expect(xlsx.status).toBe(200);
+    expect(xlsx.headers['content-disposition']).toMatch(/\.xlsx"$/);
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(xlsx.body as ArrayBuffer);
+    expect(wb.worksheets.length).toBeGreaterThan(0);
+
+    const draft = await newCase('Not for viewers');
+    expect((await agents.viewer.get(`/api/cases/${draft.id}/report.pdf`)).status).toBe(404);
+    expect((await agents.analyst.get(`/api/cases/${draft.id}/report.pdf`)).status).toBe(200);
+  });
 
   it('comments thread on the case in the order written; viewers read them on approved cases only', async () => {
     const c = await newCase('Discussed');

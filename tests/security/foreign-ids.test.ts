@@ -115,6 +115,8 @@ describe('cleaning case named by its id', () => {
     ['post', `/api/cases/${id}/copy`, {}],
     ['get', `/api/cases/${id}/comments`, undefined],
     ['post', `/api/cases/${id}/comments`, { text: 'Not yours' }],
+    ['get', `/api/cases/${id}/report.pdf`, undefined],
+    ['get', `/api/cases/${id}/export.xlsx`, undefined],
   ];
   const call = (agent: TestAgent, [method, path, body]: [string, string, object | undefined]) => {
     const req = (agent as unknown as Record<string, (p: string) => ReturnType<TestAgent['get']>>)[method](path);

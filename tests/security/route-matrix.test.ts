@@ -203,6 +203,8 @@ const MATRIX: Record<string, Entry> = {
   'POST /api/cases/:id/archive': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}/archive`, expect: writers(200) },
   'POST /api/cases/:id/copy': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}/copy`, expect: writers(409) },
   'GET /api/cases/:id/comments': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}/comments`, expect: members(200, { viewer: 404, otherTenant: 404, otherGroup: 404 }) },
+  'GET /api/cases/:id/report.pdf': { path: async (fx) => `/api/cases/${(await freshCase(fx, 'approved')).id}/report.pdf`, expect: readers(200) },
+  'GET /api/cases/:id/export.xlsx': { path: async (fx) => `/api/cases/${(await freshCase(fx, 'approved')).id}/export.xlsx`, expect: readers(200) },
   'POST /api/cases/:id/comments': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}/comments`, body: () => ({ text: 'Checked the outage plan' }), expect: members(201, { viewer: 404, otherTenant: 404, otherGroup: 404 }) },
 };
 

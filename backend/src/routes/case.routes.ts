@@ -17,6 +17,7 @@ import { idParam } from '../http/params.js';
 import type { RouteSpec } from '../http/route-registry.js';
 import { scopeOf } from '../policies/tenant-scope.js';
 import { addComment, listComments } from '../services/cases/case-comments.js';
+import { caseFile, type CaseFileKind } from '../services/cases/case-files.js';
 import { changeCaseStatus, type Transition } from '../services/cases/case-transitions.js';
 import { copyCase } from '../services/cases/copy-case.js';
 import { createCase } from '../services/cases/create-case.js';
@@ -25,6 +26,20 @@ import { getCase } from '../services/cases/get-case.js';
 import { listCases } from '../services/cases/list-cases.js';
 
 export function caseRoutes(ds: DataSource, config: Config): RouteSpec[] {
+  const file = (kind: CaseFileKind, path: string, contentType: string, description: string): RouteSpec => ({
+    method: 'get',
+    path,
+    access: 'data.read',
+    tenantScoped: true,
+    response: { file: [contentType] },
+    description,
+    handler: async (req, res) => {
+      const f = await caseFile(ds, scopeOf(req.actor), idParam(req), kind);
+      res.setHeader('content-type', f.contentType);
+      res.setHeader('content-disposition', `attachment; filename="${f.fileName}"`);
+      res.send(f.body);
+    },
+  });
   const transition = (name: Transition, access: RouteSpec['access'], description: string, body?: RouteSpec['body']): RouteSpec => ({
     method: 'post',
     path: `/api/cases/:id/${name}`,
@@ -126,5 +141,17 @@ export function caseRoutes(ds: DataSource, config: Config): RouteSpec[] {
       description: 'Add a comment to a case (members other than viewers)',
       handler: async (req, res) => res.status(201).json(await addComment(ds, scopeOf(req.actor), idParam(req), req.body)),
     },
+    file(
+      'pdf',
+      '/api/cases/:id/report.pdf',
+      'application/pdf',
+      'The case report as a PDF: title block, recommendation, every input with its unit and source, charts, cash flows, uncertainty, method notes and cautions',
+    ),
+    file(
+      'xlsx',
+      '/api/cases/:id/export.xlsx',
+      'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
+      'The case as a workbook: inputs with units and sources, yearly cash flows, the schedule and the daily path (text cells neutralised)',
+    ),
   ];
 }

@@ -22,7 +22,7 @@ export async function changeCaseStatus(
   scope: TenantScope,
   id: string,
   transition: Transition,
-  opts: { reason?: string; baseUrl: string },
+  opts: { reason?: string; baseUrl: string | null },
 ): Promise<CaseView> {
   return ds.transaction(async (em) => {
     const found = await caseInScope(em, scope, id, true);
@@ -54,6 +54,8 @@ export async function changeCaseStatus(
       details: { title: record.title, from, to: record.status, ...(transition === 'return' ? { reason: opts.reason } : {}) },
     });
     const name = (await namesOf(em, [scope.userId])).get(scope.userId) ?? 'A member';
+    // No address to link to (the demo seed): the change is made without mail.
+    if (opts.baseUrl === null) return caseViewOf(em, scope, found);
     if (transition === 'submit') await mailDeciders(em, found, { id: scope.userId, name }, opts.baseUrl);
     if (transition === 'approve' || transition === 'return') await mailAuthor(em, found, record.status as 'approved' | 'returned', name, opts.baseUrl);
     return caseViewOf(em, scope, found);
