@@ -38,6 +38,8 @@ describe('API answers on the demo data', () => {
     await admin.post('/api/invitations').set(CSRF).send({ email: invitee, role: 'analyst' }).expect(201);
     const [mail] = await t.mailTo(invitee);
     const token = mail!.text.match(/\/invitation\?token=([A-Za-z0-9_%-]+)/)![1]!;
+    const built = (await admin.post(`/api/units/${unitId}/cases`).set(CSRF).send({ title: 'Schema check' }).expect(201)).body as { id: string };
+    await admin.post(`/api/cases/${built.id}/comments`).set(CSRF).send({ text: 'Read back by the schema test' }).expect(201);
     urls = {
       '/api/health': ['/api/health'],
       '/api/openapi.json': ['/api/openapi.json'],
@@ -61,6 +63,10 @@ describe('API answers on the demo data', () => {
       '/api/dev/mailbox': ['/api/dev/mailbox'],
       '/api/calc': ['/api/calc'],
       '/api/invitation-links/:token': [`/api/invitation-links/${token}`],
+      '/api/cases': ['/api/cases', `/api/cases?status=draft&unitId=${unitId}`],
+      '/api/units/:id/cases': [`/api/units/${unitId}/cases`],
+      '/api/cases/:id': [`/api/cases/${built.id}`],
+      '/api/cases/:id/comments': [`/api/cases/${built.id}/comments`],
     };
   }, 300_000);
   afterAll(async () => {

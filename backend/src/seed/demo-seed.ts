@@ -6,6 +6,7 @@ import { Organisation } from '../entities/organisation.entity.js';
 import { User } from '../entities/user.entity.js';
 import { DEMO_ORGANISATIONS, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people.js';
 import { seedDemoUnits, type DemoDay } from './demo-units-seed.js';
+import { seedDemoCases } from './demo-cases-seed.js';
 import { seedTypicalMethods } from '../services/cleaning-method.service.js';
 
 export interface DemoSignIn {
@@ -60,6 +61,9 @@ export async function seedDemoIfEmpty(dataSource: DataSource, log: (line: string
       }
     }
   });
-  if (withData) await seedDemoUnits(dataSource, log, day);
+  if (withData) {
+    await seedDemoUnits(dataSource, log, day);
+    await seedDemoCases(dataSource, log);
+  }
   return true;
 }
