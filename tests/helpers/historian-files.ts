@@ -70,8 +70,8 @@ export const geometryOf = (c: CondenserSetup): CondenserGeometry => ({
 function heatBalanceDutyMw(turbine: TurbineSetup, loadFraction: number): number {
   const pts = [...turbine.heatBalanceDuty].sort((a, b) => a.loadFraction - b.loadFraction);
   let i = 0;
-  while (i < pts.length - 2 && loadFraction > pts[i + 1].loadFraction) i++;
-  const [a, b] = [pts[i], pts[i + 1]];
+  while (i < pts.length - 2 && loadFraction > pts[i + 1]!.loadFraction) i++;
+  const [a, b] = [pts[i]!, pts[i + 1]!];
   return a.dutyMw + ((b.dutyMw - a.dutyMw) * (loadFraction - a.loadFraction)) / (b.loadFraction - a.loadFraction);
 }
 

@@ -42,7 +42,7 @@ describe('log lines', () => {
   it('production prints one JSON line per request without the request headers', async () => {
     const lines = await oneRequest(false);
     expect(lines).toHaveLength(1);
-    const entry = JSON.parse(lines[0]);
+    const entry = JSON.parse(lines[0]!);
     expect(entry).toMatchObject({ req: { method: 'GET', url: '/api/plants?x=1' }, res: { statusCode: 200 } });
     expect(lines[0]).not.toMatch(/probe-agent|secret-session|x-custom-header|headers/);
   });
@@ -53,6 +53,6 @@ describe('log lines', () => {
     expect(local.lines[0]).toMatch(/INFO.*migrations applied/);
     const prod = capture();
     createLogger('info', { pretty: false, destination: prod.stream }).info('migrations applied');
-    expect(JSON.parse(prod.lines[0]).msg).toBe('migrations applied');
+    expect(JSON.parse(prod.lines[0]!).msg).toBe('migrations applied');
   });
 });

@@ -70,7 +70,7 @@ describe('IF97 region 1 backward T(p, h), IAPWS R7-97(2012) Table 7', () => {
   });
 
   it('inverts the basic equation to within a few mK (the backward equation’s stated consistency)', () => {
-    for (const [tK, pMpa] of [[290, 0.2], [320, 0.1], [400, 5], [550, 20]]) {
+    for (const [tK, pMpa] of [[290, 0.2], [320, 0.1], [400, 5], [550, 20]] as const) {
       const h = region1(tK, pMpa).hKjKg;
       expect(Math.abs(region1TemperatureFromPh(pMpa, h) - tK)).toBeLessThan(0.025);
     }

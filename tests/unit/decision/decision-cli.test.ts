@@ -78,10 +78,10 @@ describe('decision commands of the calculation CLI', () => {
     };
     expect(out.cleanings.length).toBeGreaterThan(0);
     for (const c of out.cleanings) expect(c.date).toMatch(/^2027-\d{2}-\d{2}$/);
-    expect(out.cleanings[0].cautions[0]).toMatch(/local codes/);
-    expect(out.baseline.cleanings[0].date).toBe('2027-04-05');
+    expect(out.cleanings[0]?.cautions[0]).toMatch(/local codes/);
+    expect(out.baseline.cleanings[0]?.date).toBe('2027-04-05');
     expect(out.daily).toHaveLength(365);
-    expect(out.daily[364].date).toBe('2027-12-31');
+    expect(out.daily[364]?.date).toBe('2027-12-31');
     // the optimiser never does worse than the baseline, and the NPV is the difference of discounted totals
     expect(out.discountedTotals.total).toBeLessThanOrEqual(out.baseline.discountedTotals.total + 0.01);
     expect(Math.abs(out.businessCase.npv - (out.baseline.discountedTotals.total - out.discountedTotals.total))).toBeLessThanOrEqual(0.02);
@@ -104,11 +104,11 @@ describe('decision commands of the calculation CLI', () => {
     const perMwh = 60 - 9.5 * 3.5;
     const at85 = baselineOf(0.85).baseline;
     // outage: load × rating × 24 h; derate 50 %: max(0, load − 0.5) × rating × 24 h
-    expect(at85.cleanings[0].downtimeCost).toBeCloseTo(0.85 * 300 * 24 * 4 * perMwh, 2);
-    expect(at85.cleanings[1].downtimeCost).toBeCloseTo((0.85 - 0.5) * 300 * 24 * 4 * perMwh, 2);
+    expect(at85.cleanings[0]?.downtimeCost).toBeCloseTo(0.85 * 300 * 24 * 4 * perMwh, 2);
+    expect(at85.cleanings[1]?.downtimeCost).toBeCloseTo((0.85 - 0.5) * 300 * 24 * 4 * perMwh, 2);
     expect(at85.totals.downtimeCost).toBeCloseTo((0.85 + 0.35) * 300 * 24 * 4 * perMwh, 2);
     // below the derated limit the derate cleaning loses nothing
-    expect(baselineOf(0.45).baseline.cleanings[1].downtimeCost).toBe(0);
+    expect(baselineOf(0.45).baseline.cleanings[1]?.downtimeCost).toBe(0);
   });
 
   it('schedule: days without load stop the fouling clock and carry no fouling cost', () => {
@@ -120,11 +120,11 @@ describe('decision commands of the calculation CLI', () => {
     };
     expect(out.cleanings).toEqual([]);
     for (let d = 150; d < 160; d++) {
-      expect(out.daily[d].foulingCost).toBe(0);
-      expect(out.daily[d + 1].cleanliness).toBe(out.daily[150].cleanliness);
+      expect(out.daily[d]?.foulingCost).toBe(0);
+      expect(out.daily[d + 1]?.cleanliness).toBe(out.daily[150]!.cleanliness);
     }
-    expect(out.daily[149].cleanliness).toBeGreaterThan(out.daily[150].cleanliness);
-    expect(out.daily[161].cleanliness).toBeLessThan(out.daily[160].cleanliness);
+    expect(out.daily[149]?.cleanliness).toBeGreaterThan(out.daily[150]!.cleanliness);
+    expect(out.daily[161]?.cleanliness).toBeLessThan(out.daily[160]!.cleanliness);
   });
 
   it('schedule with uncertainty is reproducible for a seed', () => {
@@ -138,9 +138,9 @@ describe('decision commands of the calculation CLI', () => {
     const out = calcScheduleOutput.parse(schedule.run({ ...scheduleInput, includeDaily: true, uncertainty: { trials: 1000, seed: 5 } }));
     const mc = out.monteCarlo!;
     expect(mc.histogram.reduce((n, b) => n + b.count, 0)).toBe(1000);
-    expect(mc.histogram[0].from).toBeLessThanOrEqual(mc.p10Npv);
-    expect(mc.histogram[mc.histogram.length - 1].to).toBeGreaterThanOrEqual(mc.p90Npv);
-    for (let i = 1; i < mc.histogram.length; i++) expect(mc.histogram[i].from).toBeCloseTo(mc.histogram[i - 1].to, 1);
+    expect(mc.histogram[0]?.from).toBeLessThanOrEqual(mc.p10Npv);
+    expect(mc.histogram[mc.histogram.length - 1]?.to).toBeGreaterThanOrEqual(mc.p90Npv);
+    for (let i = 1; i < mc.histogram.length; i++) expect(mc.histogram[i]?.from).toBeCloseTo(mc.histogram[i - 1]!.to, 1);
   });
 
   it('schedule accepts a simplified direct penalty curve, and refuses both models at once', () => {

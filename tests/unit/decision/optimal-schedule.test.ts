@@ -68,7 +68,7 @@ describe('least-cost cleaning calendar (dynamic programme)', () => {
     const plannedOutage = Uint8Array.from({ length: 40 }, (_, d) => (d >= 20 && d <= 27 ? 1 : 0));
     const p = smallProblem(
       {
-        methods: [smallProblem().methods[0]],
+        methods: [smallProblem().methods[0]!],
         plannedOutage,
         yearIndex: new Int32Array(40),
         lostGeneration: { ...smallProblem().lostGeneration, ratingMw: 500, replacementPricePerMwh: new Float64Array(40).fill(200) },
@@ -78,11 +78,11 @@ describe('least-cost cleaning calendar (dynamic programme)', () => {
     );
     // with the clock stopped, every start inside the outage leaves the same cleanliness on the first day back
     const totals = [20, 22, 24, 26].map((start) => priceSchedule(p, [{ startDay: start, methodId: 'outage-wash' }], baseScenario(p)).discountedTotals.total);
-    for (const t of totals) expect(t).toBeCloseTo(totals[0], 6);
+    for (const t of totals) expect(t).toBeCloseTo(totals[0]!, 6);
     const inOutage = optimiseSchedule(p).cleanings.filter((c) => c.startDay >= 20 && c.startDay <= 27);
     expect(inOutage).toHaveLength(1);
     // among equal choices the earliest is kept, so the rest of the outage stays free for the work
-    expect(inOutage[0].startDay).toBe(20);
+    expect(inOutage[0]?.startDay).toBe(20);
   });
 
   it('matches brute force when windows restrict when each method may run', () => {
@@ -123,7 +123,7 @@ describe('least-cost cleaning calendar (dynamic programme)', () => {
     // only the outage method, cheap fouling, expensive lost generation: the outage days are the place
     const p = smallProblem(
       {
-        methods: [smallProblem().methods[0]],
+        methods: [smallProblem().methods[0]!],
         lostGeneration: { ratingMw: 500, loadFraction: new Float64Array(40).fill(1), replacementPricePerMwh: new Float64Array(40).fill(200), ownFuelCostPerMwh: new Float64Array(40).fill(20), ownCo2CostPerMwh: new Float64Array(40) },
         minSpacingDays: 8,
       },

@@ -12,8 +12,8 @@ describe('pricing a given schedule', () => {
   it('an outage method outside a planned outage at full load loses the full rating for its duration, valued at replacement less own fuel and CO2', () => {
     const priced = priceSchedule(p, [{ startDay: 5, methodId: 'outage-wash' }], base);
     // [derived] 10 MW × 24 h × 2 days × (80 − 30 − 5) $/MWh
-    expect(priced.cleanings[0].downtimeCost).toBeCloseTo(10 * 24 * 2 * 45, 9);
-    expect(priced.cleanings[0].foulingCostDuring).toBe(0);
+    expect(priced.cleanings[0]?.downtimeCost).toBeCloseTo(10 * 24 * 2 * 45, 9);
+    expect(priced.cleanings[0]?.foulingCostDuring).toBe(0);
   });
 
   it('when the unit runs part-loaded, an outage cleaning loses only the MW the unit would have made', () => {
@@ -22,14 +22,14 @@ describe('pricing a given schedule', () => {
     const partLoad = smallProblem({ lostGeneration: { ...p.lostGeneration, loadFraction: load } }, 40);
     const priced = priceSchedule(partLoad, [{ startDay: 5, methodId: 'outage-wash' }], baseScenario(partLoad));
     // [derived] lost MWh = load × rating × 24 h a day: 10 MW × (0.6 + 0.3) × 24 h × 45 $/MWh
-    expect(priced.cleanings[0].downtimeCost).toBeCloseTo(10 * (0.6 + 0.3) * 24 * 45, 9);
+    expect(priced.cleanings[0]?.downtimeCost).toBeCloseTo(10 * (0.6 + 0.3) * 24 * 45, 9);
   });
 
   it('a derate cleaning costs only the load above the derated limit, and nothing when the unit runs below it', () => {
     // 50 % derate: the unit may still make 50 % of its rating
     const at = (loadFraction: number) => {
       const q = smallProblem({ lostGeneration: { ...p.lostGeneration, loadFraction: new Float64Array(40).fill(loadFraction) } }, 40);
-      return priceSchedule(q, [{ startDay: 5, methodId: 'derate-brush' }], baseScenario(q)).cleanings[0].downtimeCost;
+      return priceSchedule(q, [{ startDay: 5, methodId: 'derate-brush' }], baseScenario(q)).cleanings[0]!.downtimeCost;
     };
     // [derived] max(0, load − (1 − derate)) × rating × 24 h × 3 days × 45 $/MWh
     expect(at(0.8)).toBeCloseTo((0.8 - 0.5) * 10 * 24 * 3 * 45, 9);
@@ -40,9 +40,9 @@ describe('pricing a given schedule', () => {
   it('at full load a derate method loses rating × derate % for its duration', () => {
     const priced = priceSchedule(p, [{ startDay: 5, methodId: 'derate-brush' }], base);
     // [derived] 10 MW × 50 % × 24 h × 3 days × 45 $/MWh
-    expect(priced.cleanings[0].downtimeCost).toBeCloseTo(10 * 0.5 * 24 * 3 * 45, 9);
+    expect(priced.cleanings[0]?.downtimeCost).toBeCloseTo(10 * 0.5 * 24 * 3 * 45, 9);
     // the unit keeps running during a derate cleaning, so fouling cost continues at the cleanliness found
-    expect(priced.cleanings[0].foulingCostDuring).toBeGreaterThan(0);
+    expect(priced.cleanings[0]?.foulingCostDuring).toBeGreaterThan(0);
   });
 
   it('a cleaning inside a planned outage costs no downtime and the outage days carry no fouling cost', () => {
@@ -54,9 +54,9 @@ describe('pricing a given schedule', () => {
   it('fouling does not grow through a planned outage: the fouling index is the same before and after it', () => {
     // outage days 20–23 of the fixture; no cleaning
     const priced = priceSchedule(p, [], base);
-    expect(priced.dailyCleanliness[19]).toBeGreaterThan(priced.dailyCleanliness[20]);
+    expect(priced.dailyCleanliness[19]).toBeGreaterThan(priced.dailyCleanliness[20]!);
     for (let d = 21; d <= 24; d++) expect(priced.dailyCleanliness[d]).toBe(priced.dailyCleanliness[20]);
-    expect(priced.dailyCleanliness[25]).toBeLessThan(priced.dailyCleanliness[24]);
+    expect(priced.dailyCleanliness[25]).toBeLessThan(priced.dailyCleanliness[24]!);
   });
 
   it('a day without load is off line: no fouling growth, no fouling cost, and a cleaning that day loses nothing', () => {
@@ -69,15 +69,15 @@ describe('pricing a given schedule', () => {
     for (const d of [8, 9, 10]) expect(priced.dailyFoulingCost[d]).toBe(0);
     // [derived] the same path with the idle days removed: day 11 is at the operating age of day 8
     const busy = priceSchedule(p, [], base);
-    expect(priced.dailyCleanliness[11]).toBeCloseTo(busy.dailyCleanliness[8], 12);
+    expect(priced.dailyCleanliness[11]).toBeCloseTo(busy.dailyCleanliness[8]!, 12);
     const cleaning = priceSchedule(idle, [{ startDay: 8, methodId: 'outage-wash' }], baseScenario(idle));
-    expect(cleaning.cleanings[0].downtimeCost).toBe(0);
+    expect(cleaning.cleanings[0]?.downtimeCost).toBe(0);
   });
 
   it('after a cleaning the cleanliness restarts at the method’s recovered value and falls again', () => {
     const priced = priceSchedule(p, [{ startDay: 5, methodId: 'outage-wash' }], base);
     expect(priced.dailyCleanliness[7]).toBeCloseTo(0.92, 12);
-    expect(priced.dailyCleanliness[8]).toBeLessThan(priced.dailyCleanliness[7]);
+    expect(priced.dailyCleanliness[8]).toBeLessThan(priced.dailyCleanliness[7]!);
     expect(priced.dailyCleanliness[4]).toBeLessThan(0.9 * 0.92);
   });
 
@@ -108,7 +108,7 @@ describe('pricing a given schedule', () => {
       const detailed = priceSchedule(p, plan, s).yearly.map((y) => y.total);
       const quick = Array.from(fast.yearlyTotals(s));
       expect(quick.length).toBe(detailed.length);
-      quick.forEach((v, i) => expect(v).toBeCloseTo(detailed[i], 6));
+      quick.forEach((v, i) => expect(v).toBeCloseTo(detailed[i]!, 6));
     }
   });
 
@@ -119,7 +119,7 @@ describe('pricing a given schedule', () => {
     const fast = compileSchedulePricer(varied, plan);
     const s: PricingScenario = { foulingRateScale: 1.3, prices: { fuel: 0.8, co2: 1, replacement: 1.4 }, cleaningCostScale: 1.2, recoveredCleanlinessShift: -0.03, discountRate: 0.12 };
     const detailed = priceSchedule(varied, plan, s).yearly.map((y) => y.total);
-    Array.from(fast.yearlyTotals(s)).forEach((v, i) => expect(v).toBeCloseTo(detailed[i], 6));
+    Array.from(fast.yearlyTotals(s)).forEach((v, i) => expect(v).toBeCloseTo(detailed[i]!, 6));
   });
 
   it('the next-planned-outage baseline cleans once at the start of the first outage long enough', () => {

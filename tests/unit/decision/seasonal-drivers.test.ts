@@ -17,13 +17,13 @@ describe('seasonal drivers', () => {
     // January has 31 days; its centre is day 15.5, the centre of 16 January (index 15)
     expect(v[15]).toBeCloseTo(5, 12);
     let maxStep = 0;
-    for (let d = 1; d < 365; d++) maxStep = Math.max(maxStep, Math.abs(v[d] - v[d - 1]));
+    for (let d = 1; d < 365; d++) maxStep = Math.max(maxStep, Math.abs(v[d]! - v[d - 1]!));
     expect(maxStep).toBeLessThan(0.25); // largest monthly change is 5 K over ~30 days
     // continuity across the year end: 31 December and 1 January (next year) lie between December and January
     const w = expandMonthly(months, '2027-12-31', 2, 'mid-month');
     expect(w[0]).toBeGreaterThan(5);
     expect(w[0]).toBeLessThan(7);
-    expect(w[1]).toBeLessThan(w[0]);
+    expect(w[1]).toBeLessThan(w[0]!);
   });
   it('a constant driver fills the horizon and a daily driver must cover it', () => {
     expect(Array.from(expandDriver(3.5, '2027-01-01', 3))).toEqual([3.5, 3.5, 3.5]);
@@ -35,7 +35,7 @@ describe('seasonal drivers', () => {
       const date = addDays('2025-01-01', d);
       const month = Number(date.slice(5, 7));
       if (month === 4) continue; // no April data at all
-      history.push({ date, cwInletC: months[month - 1], loadFraction: month === 7 ? 0.9 : 0.8 });
+      history.push({ date, cwInletC: months[month - 1]!, loadFraction: month === 7 ? 0.9 : 0.8 });
     }
     const p = monthlyProfilesFromHistory(history);
     expect(p.cwInletC[0]).toBeCloseTo(5, 12);

@@ -115,7 +115,7 @@ describe('demo data generator', () => {
     const data = dataOf('harrow-creek-1');
     // 2023-01-01 to 2026-01-01 local: 1096 days; the DST changes cancel out over whole years
     expect(data.hours).toHaveLength(1096 * 24);
-    expect(localDay(data, data.hours[0].timestampUtc)).toBe('2023-01-01');
+    expect(localDay(data, data.hours[0]!.timestampUtc)).toBe('2023-01-01');
     for (const h of data.hours) {
       for (const v of [h.loadMw, h.backpressureKpa, h.cwInletC, h.cwOutletC, h.cwFlowM3s, h.hotwellC, h.dissolvedOxygenPpb, h.airRemovalKgS, h.barometerKpa]) expect(Number.isFinite(v)).toBe(true);
     }
@@ -124,7 +124,7 @@ describe('demo data generator', () => {
   it('with a shorter span plays the story’s last days: the same true cleanliness hour by hour, and only the cleanings and outages in them', () => {
     const whole = dataOf('harrow-creek-1');
     const short = dataOf('harrow-creek-1', SPAN_DAYS);
-    const first = localDay(short, short.hours[0].timestampUtc)!;
+    const first = localDay(short, short.hours[0]!.timestampUtc)!;
     expect(first).toBe(DateTime.fromISO(TODAY).minus({ days: SPAN_DAYS }).toISODate());
     const tail = whole.hours.slice(-short.hours.length);
     expect(short.hours.map((h) => [h.timestampUtc, h.truth.cleanliness, h.truth.offline])).toEqual(tail.map((h) => [h.timestampUtc, h.truth.cleanliness, h.truth.offline]));
@@ -142,7 +142,7 @@ describe('demo data generator', () => {
   it('restores cleanliness at each cleaning it reports, inside a planned outage', () => {
     for (const u of DEMO_UNITS) {
       const data = dataOf(u.key, SPAN_DAYS);
-      const first = localDay(data, data.hours[0].timestampUtc)!;
+      const first = localDay(data, data.hours[0]!.timestampUtc)!;
       expect(data.cleanings.length).toBeGreaterThan(0);
       expect(data.cleanings.length).toBe(data.unit.plannedOutages.filter((o) => o.cleaning && o.end >= first).length);
       for (const c of data.cleanings) {
@@ -187,21 +187,21 @@ describe('the demo made on a given day', () => {
   it.each(['harrow-creek-1', 'fenwick-ridge-1'])('%s made on 2 Dec 2026 ends with the hour before midnight of 1 Dec on the plant’s clock and starts its span earlier', (key) => {
     // the last 60 days hold the end of summer time on both sides of the Atlantic (25 Oct and 1 Nov 2026)
     const data = generateDemoUnitData(demoUnit(key), { today: LATER, days: SHORT_DAYS });
-    const first = DateTime.fromMillis(data.hours[0].timestampUtc, { zone: data.timeZone });
+    const first = DateTime.fromMillis(data.hours[0]!.timestampUtc, { zone: data.timeZone });
     const last = DateTime.fromMillis(data.hours.at(-1)!.timestampUtc, { zone: data.timeZone });
     expect(last.toISODate()).toBe('2026-12-01');
     expect(last.hour).toBe(23);
     expect(first.toISODate()).toBe(DateTime.fromISO(LATER).minus({ days: SHORT_DAYS }).toISODate());
     expect(first.hour).toBe(0);
     // one row an hour throughout
-    for (let i = 1; i < data.hours.length; i++) expect(data.hours[i].timestampUtc - data.hours[i - 1].timestampUtc).toBe(3_600_000);
+    for (let i = 1; i < data.hours.length; i++) expect(data.hours[i]!.timestampUtc - data.hours[i - 1]!.timestampUtc).toBe(3_600_000);
   });
 
   it('plays the same story moved: cleanings, outages and the air leak keep their distance from the end', () => {
     const written = dataOf('harrow-creek-1');
     const moved = generateDemoUnitData(demoUnit('harrow-creek-1'), { today: LATER });
     // the whole story by default: 1,096 days up to the day before
-    expect(localDay(moved, moved.hours[0].timestampUtc)).toBe(DateTime.fromISO(LATER).minus({ days: 1096 }).toISODate());
+    expect(localDay(moved, moved.hours[0]!.timestampUtc)).toBe(DateTime.fromISO(LATER).minus({ days: 1096 }).toISODate());
     const days = DateTime.fromISO(LATER).diff(DateTime.fromISO(TODAY), 'days').days;
     const plus = (day: string) => DateTime.fromISO(day).plus({ days }).toISODate();
     expect(moved.cleanings.map((c) => [c.date, c.method, c.cfAfter])).toEqual(written.cleanings.map((c) => [plus(c.date), c.method, c.cfAfter]));
@@ -221,7 +221,7 @@ describe('the demo made on a given day', () => {
     const a = generateDemoUnitData(demoUnit('saltmarsh-point-1'), { today: LATER, days: SHORT_DAYS });
     const b = generateDemoUnitData(demoUnit('saltmarsh-point-1'), { today: LATER, days: SHORT_DAYS });
     expect(b.hours).toEqual(a.hours);
-    expect(a.hours[0].timestampUtc).not.toBe(dataOf('saltmarsh-point-1', SHORT_DAYS).hours[0].timestampUtc);
+    expect(a.hours[0]?.timestampUtc).not.toBe(dataOf('saltmarsh-point-1', SHORT_DAYS).hours[0]!.timestampUtc);
   });
 
   it('made at one instant, ends each plant’s history with the day before that plant’s own today', async () => {
@@ -270,7 +270,7 @@ describe('demo files through the import pipeline', () => {
       relErrors.push(point.cleanliness / h.truth.cleanliness - 1);
     }
     relErrors.sort((a, b) => a - b);
-    const q = (p: number) => relErrors[Math.floor(p * (relErrors.length - 1))];
+    const q = (p: number) => relErrors[Math.floor(p * (relErrors.length - 1))]!;
     // noise: ±0.06 K on each CW temperature, 0.3 % on backpressure, 0.6 % on flow → a few per cent on CF
     // most of the hours, so that the 2.5 % and 97.5 % quantiles rest on thousands of points
     expect(relErrors.length).toBeGreaterThan(0.75 * data.hours.length);
@@ -287,8 +287,8 @@ describe('demo files through the import pipeline', () => {
     expect(xlsx.summary!.rowsByReason).toEqual(csv.summary!.rowsByReason);
     expect(xlsx.samples.length).toBe(csv.samples.length);
     for (let i = 0; i < csv.samples.length; i += 97) {
-      const a = csv.samples[i];
-      const b = xlsx.samples[i];
+      const a = csv.samples[i]!;
+      const b = xlsx.samples[i]!;
       expect(b.timestampUtc).toBe(a.timestampUtc);
       expect(b.backpressureKpa).toBeCloseTo(a.backpressureKpa, 9);
       expect(b.cwOutletC).toBeCloseTo(a.cwOutletC, 9);

@@ -32,11 +32,11 @@ describe('calc CLI', () => {
     const { status, body } = calc('condenser-point', [point, { ...point, cwOutletC: 20 }, { ...point, extra: 1 }]);
     expect(status).toBe(1);
     const [ok, bad, unknownKey] = body as Record<string, unknown>[];
-    expect(Object.keys(ok).sort()).toEqual(
+    expect(Object.keys(ok ?? {}).sort()).toEqual(
       ['cleanliness', 'dutyMw', 'expectedBackpressureKpa', 'itdK', 'lmtdK', 'riseK', 'saturationC', 'ttdK', 'uCleanWm2K', 'uWm2K', 'velocityMs'],
     );
-    expect(bad.error).toMatch(/not above the inlet/);
-    expect(unknownKey.error).toMatch(/extra/);
+    expect(bad?.error).toMatch(/not above the inlet/);
+    expect(unknownKey?.error).toMatch(/extra/);
   });
 
   it('penalty: money rounded to cents, the documented keys, the generic-curve warning', () => {
@@ -58,8 +58,8 @@ describe('calc CLI', () => {
     const { status, body } = calc('condenser-point', [{ ...point, uCleanWm2K: 500 }, { ...point, uCleanWm2K: 300 }]);
     expect(status).toBe(1);
     const [warned, refused] = body as { warnings?: string[]; error?: string }[];
-    expect(warned.warnings).toEqual([expect.stringMatching(/cleanliness 3\.77 is outside 0\.2–1\.3/)]);
-    expect(refused.error).toMatch(/expected backpressure at cleanliness 0\.85 is 117\.\d kPa, outside 0\.7–50 kPa/);
+    expect(warned?.warnings).toEqual([expect.stringMatching(/cleanliness 3\.77 is outside 0\.2–1\.3/)]);
+    expect(refused?.error).toMatch(/expected backpressure at cleanliness 0\.85 is 117\.\d kPa, outside 0\.7–50 kPa/);
   });
 
   it('penalty: warns beyond the correction curve\'s last point and refuses a backpressure above 50 kPa', () => {
@@ -67,8 +67,8 @@ describe('calc CLI', () => {
     const { status, body } = calc('penalty', [{ ...input, backpressureKpa: 20 }, { ...input, backpressureKpa: 4035 }]);
     expect(status).toBe(1);
     const [beyond, refused] = body as { warnings?: string[]; error?: string }[];
-    expect(beyond.warnings).toContainEqual(expect.stringMatching(/20 kPa is beyond the correction curve's last point/));
-    expect(refused.error).toMatch(/backpressureKpa must be 0\.7–50 kPa/);
+    expect(beyond?.warnings).toContainEqual(expect.stringMatching(/20 kPa is beyond the correction curve's last point/));
+    expect(refused?.error).toMatch(/backpressureKpa must be 0\.7–50 kPa/);
   });
 
   it('an unknown command and bad JSON give an error object and exit 1', () => {

@@ -30,8 +30,8 @@ describe('correction-curve chart line', () => {
     const line = engineCurveLine(entered);
     for (const p of entered) expect(line).toContainEqual({ x: p.x, y: p.y, entered: true });
     expect(line.filter((s) => s.entered)).toHaveLength(4);
-    for (let k = 1; k < line.length; k++) expect(line[k].x).toBeGreaterThan(line[k - 1].x);
-    expect(line[0].x).toBe(1.2);
+    for (let k = 1; k < line.length; k++) expect(line[k]?.x).toBeGreaterThan(line[k - 1]!.x);
+    expect(line[0]?.x).toBe(1.2);
     expect(line.at(-1)!.x).toBe(4);
   });
 
@@ -43,7 +43,7 @@ describe('correction-curve chart line', () => {
       { x: 3, y: 5.2 },
     ];
     const line = engineCurveLine(entered);
-    for (let k = 1; k < line.length; k++) expect(line[k].y).toBeGreaterThanOrEqual(line[k - 1].y - 1e-12);
+    for (let k = 1; k < line.length; k++) expect(line[k]?.y).toBeGreaterThanOrEqual(line[k - 1]!.y - 1e-12);
     expect(Math.max(...line.map((s) => s.y))).toBeCloseTo(5.2, 12);
   });
 

@@ -53,10 +53,10 @@ describe('monotone cubic (PCHIP)', () => {
           const c = buildMonotoneCubic(xs, ys);
           let prev = -Infinity;
           for (let k = 0; k <= 100; k++) {
-            const xx = xs[0] + ((xs[xs.length - 1] - xs[0]) * k) / 100;
+            const xx = xs[0]! + ((xs[xs.length - 1]! - xs[0]!) * k) / 100;
             const v = evaluateMonotoneCubic(c, xx);
             expect(v).toBeGreaterThanOrEqual(prev - 1e-12);
-            expect(v).toBeLessThanOrEqual(ys[ys.length - 1] + 1e-12);
+            expect(v).toBeLessThanOrEqual(ys[ys.length - 1]! + 1e-12);
             prev = v;
           }
         },
@@ -129,7 +129,7 @@ describe('generic default curve [common practice]', () => {
   });
 
   it('costs about 1–2 % heat rate per inHg above design at full load', () => {
-    for (const [a, b] of [[2, 3], [2.5, 3.5], [3, 4]]) {
+    for (const [a, b] of [[2, 3], [2.5, 3.5], [3, 4]] as const) {
       const perInHg = penaltyBetween(GENERIC_CORRECTION_CURVE, 1, inHgToKpa(b), inHgToKpa(a)).heatRatePenaltyPct / (b - a);
       expect(perInHg).toBeGreaterThanOrEqual(1);
       expect(perInHg).toBeLessThanOrEqual(2);

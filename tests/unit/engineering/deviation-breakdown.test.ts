@@ -65,22 +65,22 @@ describe('deviation breakdown', () => {
   it('builds each state by replacing one factor of the previous one', () => {
     const [s0, s1, s2, s3, s4, s5] = b.states;
     expect(s0).toMatchObject({ cwInletC: DESIGN.cwInletC, cwMassFlowKgS: designMass, dutyMw: 540, pluggedTubes: 0, cleanliness: 0.85 });
-    expect(s1.cwInletC).toBe(29);
-    expect(s2.cwMassFlowKgS).toBe(today.cwMassFlowKgS);
-    expect(s3.dutyMw).toBe(today.dutyMw);
-    expect(s4.pluggedTubes).toBe(900);
-    expect(s5.cleanliness).toBe(0.62);
+    expect(s1?.cwInletC).toBe(29);
+    expect(s2?.cwMassFlowKgS).toBe(today.cwMassFlowKgS);
+    expect(s3?.dutyMw).toBe(today.dutyMw);
+    expect(s4?.pluggedTubes).toBe(900);
+    expect(s5?.cleanliness).toBe(0.62);
     expect(b.cleanlinessSource).toBe('fouling-trend');
   });
 
   it('each part is the model difference between neighbouring states', () => {
     const p = b.states.map((s) => s.backpressureKpa);
-    expect(b.lines[2].deltaKpa).toBe(p[1] - p[0]);
-    expect(b.lines[6].deltaKpa).toBe(p[5] - p[4]);
-    expect(b.lines[7].deltaKpa).toBe(10.4 - p[5]);
+    expect(b.lines[2]?.deltaKpa).toBe(p[1]! - p[0]!);
+    expect(b.lines[6]?.deltaKpa).toBe(p[5]! - p[4]!);
+    expect(b.lines[7]?.deltaKpa).toBe(10.4 - p[5]!);
     const designModel = backpressureAtCleanlinessKpa({ geometry: GEOMETRY, ...DESIGN });
-    expect(b.lines[0].deltaKpa).toBeCloseTo(designModel - 6.7, 9);
-    expect(b.lines[1].deltaKpa).toBeCloseTo(p[0] - designModel, 9);
+    expect(b.lines[0]?.deltaKpa).toBeCloseTo(designModel - 6.7, 9);
+    expect(b.lines[1]?.deltaKpa).toBeCloseTo(p[0]! - designModel, 9);
   });
 
   it('warmer water, less flow, plugging and fouling all raise backpressure; lower load lowers it', () => {
@@ -95,9 +95,9 @@ describe('deviation breakdown', () => {
   it('without a fouling trend it uses the measured CF, and the unexplained part vanishes', () => {
     const noTrend = deviationBreakdown({ ...input, trendCleanliness: undefined });
     expect(noTrend.cleanlinessSource).toBe('measured');
-    expect(noTrend.states[5].cleanliness).toBe(today.cleanliness);
+    expect(noTrend.states[5]?.cleanliness).toBe(today.cleanliness);
     // the measured CF reproduces the measured point through the model [derived]
-    expect(Math.abs(noTrend.lines[7].deltaKpa)).toBeLessThan(1e-9);
+    expect(Math.abs(noTrend.lines[7]!.deltaKpa)).toBeLessThan(1e-9);
   });
 
   it('costs causes by running each state through the turbine curve; heat-rate parts telescope', () => {
@@ -105,6 +105,6 @@ describe('deviation breakdown', () => {
     const sum = b.lines.reduce((acc, l) => acc + (l.heatRatePct ?? Number.NaN), 0);
     expect(sum).toBeCloseTo(hr(10.4) - hr(6.7), 12);
     const p = b.states.map((s) => s.backpressureKpa);
-    expect(b.lines[6].heatRatePct).toBeCloseTo(hr(p[5]) - hr(p[4]), 12);
+    expect(b.lines[6]?.heatRatePct).toBeCloseTo(hr(p[5]!) - hr(p[4]!), 12);
   });
 });

@@ -83,7 +83,7 @@ describe('plausibility of a condenser point', () => {
 
 describe('plausibility of the turbine correction', () => {
   const curve = GENERIC_CORRECTION_CURVE;
-  const lastKpa = Math.max(...curve.curves[2].points.map((p) => p.backpressureKpa));
+  const lastKpa = Math.max(...curve.curves[2]!.points.map((p) => p.backpressureKpa));
 
   it('continues the curve straight past its last point with a warning, up to 50 kPa', () => {
     expect(curveExtrapolationWarning(curve, 1, lastKpa - 0.1)).toBeUndefined();

@@ -58,9 +58,9 @@ describe('checking a file (pass 1)', () => {
       [7, 'Timestamp'],
     ]);
     expect(check.errors[0]).toMatchObject({ value: 'two', message: 'not a number' });
-    expect(check.errors[1].message).toMatch(/missing value: CW inlet temperature is required/);
-    expect(check.errors[3].message).toMatch(/the row has 3 columns; the header has 6/);
-    expect(check.errors[6].message).toBe('duplicated timestamp: the same time as line 2');
+    expect(check.errors[1]?.message).toMatch(/missing value: CW inlet temperature is required/);
+    expect(check.errors[3]?.message).toMatch(/the row has 3 columns; the header has 6/);
+    expect(check.errors[6]?.message).toBe('duplicated timestamp: the same time as line 2');
     expect(check.duplicateTimestamps).toBe(1);
   });
 
@@ -112,7 +112,7 @@ describe('checking a file (pass 1)', () => {
     const check = await checkImportFile(await writeCsv(tmp.file('many.csv'), rows), { mapping: US_MAPPING, maxErrors: 10 });
     expect(check.errors).toHaveLength(10);
     expect(check.errorsNotListed).toBe(20);
-    expect(check.errors[0].value.length).toBeLessThanOrEqual(61);
+    expect(check.errors[0]?.value.length).toBeLessThanOrEqual(61);
     expect(formatRowErrorReportCsv(check.errors, check.errorsNotListed)).toMatch(/20 more errors not listed/);
   });
 
@@ -131,7 +131,7 @@ describe('importing samples (pass 2)', () => {
   it('converts every value to SI: inHg → kPa, °F → °C, gpm → m³/s', async () => {
     const f = await writeCsv(tmp.file('si.csv'), [US_HEADER, usRow(0, 480, { bp: '2.000', t1: '77.0', t2: '95.0', flow: '100000' })]);
     const { samples } = await importAll(f, { mapping: US_MAPPING });
-    const s = samples[0];
+    const s = samples[0]!;
     // NIST SP 811: 1 inHg (0 °C) = 3.386389 kPa; 1 US gal = 3.785411784 L
     expect(s.backpressureKpa).toBeCloseTo(6.772778, 6);
     expect(s.cwInletC).toBeCloseTo(25, 10);
@@ -154,10 +154,10 @@ describe('importing samples (pass 2)', () => {
     };
     const withColumn = { ...base, columns: { ...base.columns, barometer: { column: 'Barometer inHg', unit: 'inHg' } } };
     const a = await importAll(f, { mapping: withColumn });
-    expect(a.samples[0].backpressureKpa).toBeCloseTo(2 * 3.386389, 9);
-    expect(a.samples[0].barometerKpa).toBeCloseTo(29.5 * 3.386389, 9);
+    expect(a.samples[0]?.backpressureKpa).toBeCloseTo(2 * 3.386389, 9);
+    expect(a.samples[0]?.barometerKpa).toBeCloseTo(29.5 * 3.386389, 9);
     const b = await importAll(f, { mapping: { ...base, fixedBarometer: { value: 1000, unit: 'mbar' } } });
-    expect(b.samples[0].backpressureKpa).toBeCloseTo(100 - 27.5 * 3.386389, 9);
+    expect(b.samples[0]?.backpressureKpa).toBeCloseTo(100 - 27.5 * 3.386389, 9);
     expect(b.summary.assumptions.join(' ')).toMatch(/fixed barometer 1000 mbar/);
   });
 
@@ -192,8 +192,8 @@ describe('importing samples (pass 2)', () => {
     };
     const { samples } = await importAll(f, { mapping });
     expect(samples[0]).toMatchObject({ timestampUtc: Date.UTC(2024, 5, 1), loadMw: 400.5, backpressureKpa: 6.5, cwInletC: 18.5, cwOutletC: 28, cwFlowM3s: 10, hotwellC: 37.5, dissolvedOxygenPpb: 6.5 });
-    expect(samples[0].airRemovalKgS).toBeCloseTo(0.0025, 12);
-    expect(samples[0].condensateFlowKgS).toBeCloseTo(300, 9);
+    expect(samples[0]?.airRemovalKgS).toBeCloseTo(0.0025, 12);
+    expect(samples[0]?.condensateFlowKgS).toBeCloseTo(300, 9);
   });
 
   it('keeps non-physical and low-load rows with the engineering core reason codes', async () => {
@@ -235,7 +235,7 @@ describe('importing samples (pass 2)', () => {
     for (let i = shuffled.length - 1; i > 0; i--) {
       seed = (seed * 16807) % 2147483647;
       const j = seed % (i + 1);
-      [shuffled[i], shuffled[j]] = [shuffled[j], shuffled[i]];
+      [shuffled[i], shuffled[j]] = [shuffled[j]!, shuffled[i]!];
     }
     const unsorted = await writeCsv(tmp.file('shuffled.csv'), [US_HEADER, ...shuffled]);
     const checkA = await checkImportFile(sorted, { mapping: US_MAPPING });

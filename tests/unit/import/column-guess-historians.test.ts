@@ -20,7 +20,7 @@ describe('headers of a short-tag export with US units', () => {
   const { g, col } = byHeader(headers, rows);
 
   it('reads "Stamp (local)" as the timestamp, local text month first', () => {
-    expect(col['Stamp (local)'].quantity).toBe('timestamp');
+    expect(col['Stamp (local)']?.quantity).toBe('timestamp');
     expect(g.mapping.timestamp).toMatchObject({ column: 'Stamp (local)', format: 'local-text', dateOrder: 'mdy' });
   });
 
@@ -31,12 +31,12 @@ describe('headers of a short-tag export with US units', () => {
 
   it('does not take a hotwell level in inches for the hotwell temperature, and says why', () => {
     expect(col['Hotwell lvl in']).toMatchObject({ quantity: null, unit: null, confidence: 0 });
-    expect(col['Hotwell lvl in'].note).toMatch(/level/);
+    expect(col['Hotwell lvl in']?.note).toMatch(/level/);
     expect(g.mapping.columns.hotwellTemperature).toBeUndefined();
   });
 
   it('does not take reactive power (MVAR) for the gross load', () => {
-    expect(col['Gen MVAR'].quantity).toBeNull();
+    expect(col['Gen MVAR']?.quantity).toBeNull();
     expect(g.mapping.columns.grossLoad).toEqual({ column: 'Gen Gross MW', unit: 'MW' });
   });
 
@@ -64,8 +64,8 @@ describe('headers of an underscore tag export with SI units', () => {
   });
 
   it('leaves a level and a valve position in per cent unmapped', () => {
-    expect(col.HOTWELL_LEVEL_PCT.quantity).toBeNull();
-    expect(col.CW_IN_VALVE_POS_PCT.quantity).toBeNull();
+    expect(col.HOTWELL_LEVEL_PCT?.quantity).toBeNull();
+    expect(col.CW_IN_VALVE_POS_PCT?.quantity).toBeNull();
   });
 });
 
@@ -81,7 +81,7 @@ describe('headers of a long-name export with bracketed metric units', () => {
   it('reads the temperatures and leaves the level out', () => {
     expect(col['Cooling water inlet temp. (°C)']).toMatchObject({ quantity: 'cwInletTemperature', unit: 'degC' });
     expect(col['Cooling water outlet temp. (°C)']).toMatchObject({ quantity: 'cwOutletTemperature', unit: 'degC' });
-    expect(col['Hotwell level (%)'].quantity).toBeNull();
+    expect(col['Hotwell level (%)']?.quantity).toBeNull();
     expect(g.complete).toBe(true);
   });
 });
@@ -89,24 +89,24 @@ describe('headers of a long-name export with bracketed metric units', () => {
 describe('a header whose unit or values belong to another quantity', () => {
   it('a temperature header carrying a pressure unit is not proposed', () => {
     const { col } = byHeader(['Time', 'Hotwell Temp inHg'], [['2024-03-10T13:00Z', '2.1']]);
-    expect(col['Hotwell Temp inHg'].quantity).toBeNull();
-    expect(col['Hotwell Temp inHg'].note).toMatch(/inHg/);
+    expect(col['Hotwell Temp inHg']?.quantity).toBeNull();
+    expect(col['Hotwell Temp inHg']?.note).toMatch(/inHg/);
   });
 
   it('a per-cent temperature-looking header is not a temperature', () => {
     const { col } = byHeader(['Time', 'CW Outlet Temp %'], [['2024-03-10T13:00Z', '55']]);
-    expect(col['CW Outlet Temp %'].quantity).toBeNull();
+    expect(col['CW Outlet Temp %']?.quantity).toBeNull();
   });
 
   it('values far outside what the quantity can be leave the column unproposed', () => {
     const { col } = byHeader(['Time', 'CW Inlet Temp'], [['2024-03-10T13:00Z', '250000'], ['2024-03-10T13:01Z', '251000']]);
-    expect(col['CW Inlet Temp'].quantity).toBeNull();
-    expect(col['CW Inlet Temp'].note).toMatch(/values/);
+    expect(col['CW Inlet Temp']?.quantity).toBeNull();
+    expect(col['CW Inlet Temp']?.note).toMatch(/values/);
   });
 
   it('a stated unit whose values are implausible is not proposed (a backpressure of 95 inHgA)', () => {
     const { col } = byHeader(['Time', 'BP inHgA'], [['2024-03-10T13:00Z', '95'], ['2024-03-10T13:01Z', '96']]);
-    expect(col['BP inHgA'].quantity).toBeNull();
+    expect(col['BP inHgA']?.quantity).toBeNull();
   });
 
   it('a column of date-times under a header without date words is taken as the timestamp from its values', () => {

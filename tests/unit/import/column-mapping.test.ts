@@ -34,13 +34,13 @@ describe('column mapping guesses', () => {
     ['Condensate Flow klb/h', 'condensateFlow', 'klb/h'],
   ])('reads "%s" as %s in %s', (header, quantity, unit) => {
     const g = guessOf(['Timestamp', header])[header];
-    expect(g.quantity).toBe(quantity);
-    expect(g.unit).toBe(unit);
-    expect(g.confidence).toBeGreaterThanOrEqual(0.85);
+    expect(g?.quantity).toBe(quantity);
+    expect(g?.unit).toBe(unit);
+    expect(g?.confidence).toBeGreaterThanOrEqual(0.85);
   });
 
   it('recognises the timestamp column under its usual names', () => {
-    for (const h of ['Timestamp', 'Date/Time', 'Time (UTC)', 'DateTime', 'Date Time']) expect(guessOf([h, 'Gross MW'])[h].quantity).toBe('timestamp');
+    for (const h of ['Timestamp', 'Date/Time', 'Time (UTC)', 'DateTime', 'Date Time']) expect(guessOf([h, 'Gross MW'])[h]?.quantity).toBe('timestamp');
   });
 
   it('leaves columns it cannot place unmapped, with zero confidence', () => {
@@ -52,16 +52,16 @@ describe('column mapping guesses', () => {
   it('when the header names no unit, guesses it from the values with a low confidence', () => {
     const g = guessOf(['Timestamp', 'CW Inlet Temp', 'CW Outlet Temp'], [['2024-06-01T00:00Z', '74.2', '92.9']]);
     expect(g['CW Inlet Temp']).toMatchObject({ quantity: 'cwInletTemperature', unit: 'degF' });
-    expect(g['CW Inlet Temp'].confidence).toBeLessThanOrEqual(0.5);
+    expect(g['CW Inlet Temp']?.confidence).toBeLessThanOrEqual(0.5);
     const si = guessOf(['Timestamp', 'CW Inlet Temp'], [['2024-06-01T00:00Z', '21.4']]);
-    expect(si['CW Inlet Temp'].unit).toBe('degC');
+    expect(si['CW Inlet Temp']?.unit).toBe('degC');
   });
 
   it('keeps the most confident of two columns that look like the same quantity', () => {
     const g = guessMapping(['Timestamp', 'Gross MW', 'Unit load'], []);
     const load = g.columns.filter((c) => c.quantity === 'grossLoad');
     expect(load.map((c) => c.header)).toEqual(['Gross MW']);
-    expect(g.columns[2].note).toMatch(/preferred/);
+    expect(g.columns[2]?.note).toMatch(/preferred/);
   });
 
   it('prefers an absolute backpressure over vacuum when both are present', () => {

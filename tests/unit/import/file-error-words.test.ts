@@ -45,7 +45,7 @@ describe('a workbook that cannot be read', () => {
     ['cut short after its first bytes', () => good.subarray(0, 100)],
     ['damaged inside its compressed data', () => {
       const b = Buffer.from(good);
-      for (let i = 200; i < b.length - 200; i += 7) b[i] ^= 0x55;
+      for (let i = 200; i < b.length - 200; i += 7) b[i]! ^= 0x55;
       return b;
     }],
     ['a ZIP signature followed by garbage', () => Buffer.concat([Buffer.from([0x50, 0x4b, 0x03, 0x04]), Buffer.alloc(2000, 0x41)])],

@@ -25,7 +25,7 @@ const check = (o: Partial<ImportCheck> = {}): ImportCheck => ({
 describe('storing a batch against the rows already stored', () => {
   it('stores new times, skips identical re-imports and holds back rows whose stored values differ', () => {
     const batch = [sample(0), sample(1), sample(2)];
-    const sorted = sortAgainstStored(batch, [storedAs(batch[1]), storedAs(batch[2], { backpressureKpa: 8.5 })]);
+    const sorted = sortAgainstStored(batch, [storedAs(batch[1]!), storedAs(batch[2]!, { backpressureKpa: 8.5 })]);
     expect(sorted.fresh).toEqual([batch[0]]);
     expect(sorted.skippedIdentical).toBe(1);
     expect(sorted.conflicting).toEqual([batch[2]]);

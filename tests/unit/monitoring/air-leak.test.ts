@@ -65,7 +65,7 @@ describe('suspected air in-leakage', () => {
   it('takes a large sudden drop with measured, unmoved witnesses for fouling or an instrument, not a leak', () => {
     const v = judgeAirLeakDays(series(60, { loss: (i) => (inside(i, 30, 5) ? 0.12 : 0) }));
     expect(suspectedDays(v)).toEqual([]);
-    expect(v[31].drop).toBeCloseTo(0.12, 6);
+    expect(v[31]?.drop).toBeCloseTo(0.12, 6);
   });
 
   it('does not let a flagged period freeze the reference: once the witnesses settle, fouling after a leak is not flagged', () => {
@@ -85,7 +85,7 @@ describe('suspected air in-leakage', () => {
     const v = judgeAirLeakDays(
       series(120, { loss: (i) => (i >= 20 ? 0.05 : 0), witnesses: (i) => (i >= 20 ? { ...NORMAL, subcoolingK: 2.6, dissolvedOxygenPpb: 20 } : NORMAL) }),
     );
-    expect(v[20].suspected).toBe(true);
+    expect(v[20]?.suspected).toBe(true);
     expect(v.slice(90).some((d) => d.suspected)).toBe(false);
   });
 
@@ -99,12 +99,12 @@ describe('suspected air in-leakage', () => {
     );
     const periods = airLeakPeriods(v);
     expect(periods).toHaveLength(1);
-    expect(periods[0].from).toBe(addDays(START, from));
-    expect(periods[0].to).toBe(addDays(START, from + 9));
-    expect(periods[0].evidence).toEqual(expect.arrayContaining(['cleanliness-drop', 'subcooling', 'dissolved-oxygen']));
-    expect(periods[0].evidence).not.toContain('air-removal');
+    expect(periods[0]?.from).toBe(addDays(START, from));
+    expect(periods[0]?.to).toBe(addDays(START, from + 9));
+    expect(periods[0]?.evidence).toEqual(expect.arrayContaining(['cleanliness-drop', 'subcooling', 'dissolved-oxygen']));
+    expect(periods[0]?.evidence).not.toContain('air-removal');
     // derived: judged against the straight fouling trend of the days before, the drop is the step itself.
-    expect(periods[0].maxDrop).toBeCloseTo(0.06, 6);
+    expect(periods[0]?.maxDrop).toBeCloseTo(0.06, 6);
     expect(suspectedDays(v)).toHaveLength(10);
   });
 
@@ -126,9 +126,9 @@ describe('suspected air in-leakage', () => {
     );
     const periods = airLeakPeriods(v);
     expect(periods).toHaveLength(1);
-    expect(periods[0].from >= addDays(START, 45) && periods[0].from <= addDays(START, 55)).toBe(true);
-    expect(periods[0].to).toBe(addDays(START, 79));
-    expect(periods[0].evidence).toEqual(expect.arrayContaining(['subcooling', 'dissolved-oxygen']));
+    expect(periods[0]!.from >= addDays(START, 45) && periods[0]!.from <= addDays(START, 55)).toBe(true);
+    expect(periods[0]?.to).toBe(addDays(START, 79));
+    expect(periods[0]?.evidence).toEqual(expect.arrayContaining(['subcooling', 'dissolved-oxygen']));
     expect(v.slice(82).some((d) => d.suspected)).toBe(false);
   });
 
@@ -145,9 +145,9 @@ describe('suspected air in-leakage', () => {
     const periods = airLeakPeriods(v);
     expect(periods).toHaveLength(1);
     expect(periods[0]).toMatchObject({ from: addDays(START, from), to: addDays(START, from + length - 1) });
-    expect(periods[0].evidence).toEqual(expect.arrayContaining(['cleanliness-drop', 'subcooling', 'air-removal']));
+    expect(periods[0]?.evidence).toEqual(expect.arrayContaining(['cleanliness-drop', 'subcooling', 'air-removal']));
     // Even on the leak's last day the reference is still the tight condenser before it, its trend carried forward.
-    expect(v[from + length - 1].drop).toBeCloseTo(0.06, 6);
+    expect(v[from + length - 1]?.drop).toBeCloseTo(0.06, 6);
   });
 
   it('flags a drop without any witness measured only above the drop-alone threshold', () => {
@@ -173,7 +173,7 @@ describe('suspected air in-leakage', () => {
     const v = judgeAirLeakDays(series(20, { loss: (i) => (i >= 5 ? 0.1 : 0), witnesses: (i) => (i >= 5 ? { ...NORMAL, subcoolingK: 3 } : NORMAL) }));
     expect(v.slice(0, 9).map((d) => d.suspected)).toEqual(new Array(9).fill(false));
     expect(v.slice(0, 9).every((d) => d.drop === 0 && d.evidence.length === 0)).toBe(true);
-    expect(v[9].suspected).toBe(true);
+    expect(v[9]?.suspected).toBe(true);
   });
 });
 
@@ -185,8 +185,8 @@ describe('air in-leakage periods from daily verdicts', () => {
     const p = airLeakPeriods(verdicts('...xxx..xx....'));
     expect(p).toHaveLength(1);
     expect(p[0]).toMatchObject({ from: addDays(START, 3), to: addDays(START, 9) });
-    expect(p[0].maxDrop).toBeCloseTo(0.059, 12);
-    expect(p[0].evidence.sort()).toEqual(['cleanliness-drop', 'dissolved-oxygen', 'subcooling']);
+    expect(p[0]?.maxDrop).toBeCloseTo(0.059, 12);
+    expect(p[0]?.evidence.sort()).toEqual(['cleanliness-drop', 'dissolved-oxygen', 'subcooling']);
   });
 
   it('splits at three quiet days, and closes a period still open at the end', () => {
@@ -208,8 +208,8 @@ describe('air in-leakage periods from daily verdicts', () => {
     }));
     const withCleaning = airLeakPeriods(judgeAirLeakDays(days, DEFAULT_AIR_LEAK_SETTINGS, [addDays(START, cleanedOn)]));
     expect(withCleaning).toHaveLength(1);
-    expect(withCleaning[0].from).toBe(addDays(START, cleanedOn + 3));
-    expect(withCleaning[0].evidence).toEqual(['cleanliness-drop', 'dissolved-oxygen']);
+    expect(withCleaning[0]?.from).toBe(addDays(START, cleanedOn + 3));
+    expect(withCleaning[0]?.evidence).toEqual(['cleanliness-drop', 'dissolved-oxygen']);
     // Without knowing of the cleaning, the fouled days before it hide the drop.
     const blind = airLeakPeriods(judgeAirLeakDays(days)).filter((p) => p.from >= addDays(START, cleanedOn));
     expect(blind.every((p) => p.from > addDays(START, cleanedOn + 3))).toBe(true);

@@ -28,7 +28,7 @@ describe('LTTB downsampling', () => {
           expect(out.at(-1)).toBe(points.at(-1));
           const at = out.map((p) => points.indexOf(p));
           expect(at.every((i) => i >= 0)).toBe(true);
-          for (let k = 1; k < at.length; k++) expect(at[k]).toBeGreaterThan(at[k - 1]);
+          for (let k = 1; k < at.length; k++) expect(at[k]).toBeGreaterThan(at[k - 1]!);
         },
       ),
       { numRuns: 300, seed: 2013 },
@@ -79,7 +79,7 @@ describe('LTTB downsampling of a series with missing values', () => {
     expect(out).toHaveLength(2000);
     expect(out.filter((p) => p.v === null)).toHaveLength(0);
     expect(Math.min(...out.map((p) => p.v!))).toBeGreaterThan(0.74);
-    for (let k = 1; k < out.length; k++) expect(out[k].t).toBeGreaterThan(out[k - 1].t);
+    for (let k = 1; k < out.length; k++) expect(out[k]?.t).toBeGreaterThan(out[k - 1]!.t);
   });
 
   it('keeps a gap longer than a bucket as one empty point inside it, so the chart breaks the line there', () => {
@@ -106,6 +106,6 @@ describe('LTTB downsampling of a series with missing values', () => {
     const out = lttbKeepingGaps(points, 300, QX, QY);
     expect(out.length).toBeLessThanOrEqual(300);
     expect(out.length).toBeGreaterThan(250);
-    for (let k = 1; k < out.length; k++) expect(out[k].t).toBeGreaterThan(out[k - 1].t);
+    for (let k = 1; k < out.length; k++) expect(out[k]?.t).toBeGreaterThan(out[k - 1]!.t);
   });
 });

@@ -54,10 +54,10 @@ describe('fouling cost of a sample', () => {
   it('rises as the trend cleanliness falls, by more for each further step (the model and the curve are both convex)', () => {
     const s = sampleAt(MODEL, { cleanliness: 0.7 });
     const costs = [0.9, 0.85, 0.8, 0.75, 0.7, 0.65, 0.6, 0.55].map((cf) => analyseSample(MODEL, s, PLUGGED, cf).foulingCostPerHour);
-    for (let i = 1; i < costs.length; i++) expect(costs[i]).toBeGreaterThan(costs[i - 1]);
+    for (let i = 1; i < costs.length; i++) expect(costs[i]).toBeGreaterThan(costs[i - 1]!);
     // derived: Ts = t1 + r/(1 − e^(−NTU)) with NTU ∝ CF rises ever faster as CF falls, psat is convex in T, and
     // the generic curve's slope grows with pressure (common practice: larger %/inHg at higher backpressure).
-    for (let i = 2; i < costs.length; i++) expect(costs[i] - costs[i - 1]).toBeGreaterThan(costs[i - 1] - costs[i - 2]);
+    for (let i = 2; i < costs.length; i++) expect(costs[i]! - costs[i - 1]!).toBeGreaterThan(costs[i - 1]! - costs[i - 2]!);
   });
 
   it('with a straight-line turbine curve equals the §4 fuel formula applied to the backpressure difference, so it is linear in kPa and not in cleanliness', () => {
@@ -74,7 +74,7 @@ describe('fouling cost of a sample', () => {
       perCf.push(a.foulingCostPerHour / (model.referenceCleanliness - trend));
     }
     // Cost per unit of lost cleanliness grows as the cleanliness falls: the cost is not linear in CF.
-    for (let i = 1; i < perCf.length; i++) expect(perCf[i]).toBeGreaterThan(perCf[i - 1] * 1.05);
+    for (let i = 1; i < perCf.length; i++) expect(perCf[i]).toBeGreaterThan(perCf[i - 1]! * 1.05);
   });
 });
 
