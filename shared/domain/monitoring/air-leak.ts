@@ -116,8 +116,7 @@ function witnessRises(d: AirLeakDay, reference: readonly AirLeakDay[], settings:
 export function judgeAirLeakDays(days: readonly AirLeakDay[], settings: AirLeakSettings = DEFAULT_AIR_LEAK_SETTINGS, cleanings: readonly string[] = []): AirLeakDayVerdict[] {
   const verdicts: AirLeakDayVerdict[] = [];
   const sortedCleanings = [...cleanings].sort();
-  for (let i = 0; i < days.length; i++) {
-    const d = days[i]!;
+  for (const [i, d] of days.entries()) {
     const t = dayNumber(d.day);
     const lastCleaning = sortedCleanings.filter((c) => c <= d.day).at(-1) ?? '';
     const freshlyCleaned = lastCleaning !== '' && days.slice(Math.max(0, i - settings.baselineDays - settings.gapDays), i).some((x) => x.day < lastCleaning);

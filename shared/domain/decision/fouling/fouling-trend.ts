@@ -230,7 +230,10 @@ function aicOf(fit: RawFit, n: number): number {
   return n * Math.log(Math.max(fit.sse, 1e-300) / n) + 2 * fit.k;
 }
 
-/** Lowest AIC; near-ties (within 1e-9) go to the model with fewer parameters, then to the listed order. */
+/**
+ * Lowest AIC; near-ties (within 1e-9) go to the model with fewer parameters, then to the listed order.
+ * `fits` is never empty: the straight line fits whenever the days span more than one day.
+ */
 function chooseByAic(fits: RawFit[], n: number): RawFit {
   const order = (f: RawFit) => FOULING_MODEL_KINDS.indexOf(f.kind);
   return [...fits].sort((a, b) => {
