@@ -39,7 +39,7 @@ export function UnitOverviewPage() {
         />
         {/* the basis of the figures: design point, data span, recent background work */}
         <section aria-label="Unit basis" className="no-print border-t border-rule pt-4">
-          <UnitSummary unit={unit} units={units} showStatus={false} />
+          <UnitSummary unit={unit} units={units} showStatus={false} cannotWrite={cannotWrite} />
         </section>
       </div>
     );
@@ -63,7 +63,7 @@ export function UnitOverviewPage() {
         Before cleanliness and cost can be shown: {next[0]}
         {next.length > 1 && <> and {next[1]}</>}.
       </p>
-      <UnitSummary unit={unit} units={units} />
+      <UnitSummary unit={unit} units={units} cannotWrite={cannotWrite} />
     </section>
   );
 }

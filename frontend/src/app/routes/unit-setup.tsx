@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { ReadOnlyReason } from '@frontend/components/ui/read-only';
 import { CondenserForm } from '@frontend/features/units/components/condenser-form';
 import { EconomicsForm } from '@frontend/features/units/components/economics-form';
 import { RecomputeStatus } from '@frontend/features/units/components/recompute-status';
@@ -24,11 +25,11 @@ export function UnitSetupPage() {
   return (
     <div className="flex flex-col gap-4">
       <p className="text-sm text-ink-soft">
-        Values in {system === 'us' ? 'US customary' : 'SI'} units (change under your profile). Each section saves on its own; every save recomputes the unit’s derived
-        data.
+        Values in {system === 'us' ? 'US customary' : 'SI'} units (change under your profile).
+        {cannotWrite ? '' : ' Each section saves on its own; every save recomputes the unit’s derived data.'}
       </p>
       <RecomputeStatus jobs={unit.jobs} />
-      {cannotWrite && <p className="text-sm text-ink-soft">{cannotWrite}: changing the setup.</p>}
+      {cannotWrite && <ReadOnlyReason reason={cannotWrite} action="change this unit’s setup" />}
       <Section id="condenser-heading" title="Condenser" done={!!unit.condenser}>
         <CondenserForm key={key} organisationId={organisationId} unitId={unit.id} saved={unit.condenser} units={units} system={system} cannotWrite={cannotWrite} />
       </Section>

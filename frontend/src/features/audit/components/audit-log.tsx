@@ -1,4 +1,4 @@
-import { useId, useMemo, type FormEvent } from 'react';
+import { useMemo, type FormEvent } from 'react';
 import type { AuditEventView } from '@shared/schemas/accounts';
 import { Button } from '@frontend/components/ui/button';
 import { DataTable, td, th, tr } from '@frontend/components/ui/data-table';
@@ -9,24 +9,26 @@ import { TextField } from '@frontend/components/ui/text-field';
 import { formatDateTime } from '@frontend/lib/format';
 import { formText } from '@frontend/lib/form-errors';
 import { useAuditEvents, type AuditFilters } from '../api/get-audit-events';
+import { AUDIT_AREAS, auditSentence, NO_NAMES, type AuditNames } from './audit-words';
 
 interface Props {
   organisationId: string;
   filters: AuditFilters;
   onFiltersChange: (filters: AuditFilters) => void;
+  /** unit and client group names for the ids the log holds */
+  names?: AuditNames;
 }
 
-/** Who changed what, newest first. Filter choices come from what the unfiltered log contains. */
-export function AuditLog({ organisationId, filters, onFiltersChange }: Props) {
+/** Who changed what, newest first, each entry a sentence with names. Filter choices come from what the unfiltered log contains. */
+export function AuditLog({ organisationId, filters, onFiltersChange, names = NO_NAMES }: Props) {
   const events = useAuditEvents(organisationId, filters);
   const everything = useAuditEvents(organisationId, {});
   const choices = useMemo(() => filterChoices(everything.data ?? []), [everything.data]);
-  const listId = useId();
   const filtered = Object.values(filters).some(Boolean);
 
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
-    const f = formText(event.currentTarget, 'action', 'userId', 'entityType', 'from', 'to');
+    const f = formText(event.currentTarget, 'action', 'userId', 'from', 'to');
     onFiltersChange(Object.fromEntries(Object.entries(f).filter(([, v]) => v.trim() !== '').map(([k, v]) => [k, v.trim()])));
   };
 
@@ -36,28 +38,22 @@ export function AuditLog({ organisationId, filters, onFiltersChange }: Props) {
         key={JSON.stringify(filters)}
         onSubmit={onSubmit}
         noValidate
-        className="no-print grid grid-cols-2 items-end gap-3 rounded border border-rule bg-paper-raised p-4 md:grid-cols-6"
+        className="no-print grid grid-cols-2 items-end gap-3 rounded border border-rule bg-paper-raised p-4 md:grid-cols-5"
         aria-label="Filter the audit log"
       >
-        <TextField label="Action starts with" name="action" list={`${listId}-actions`} defaultValue={filters.action} placeholder="e.g. member." />
-        <datalist id={`${listId}-actions`}>
-          {choices.actionPrefixes.map((a) => (
-            <option key={a} value={a} />
+        <SelectField label="About" name="action" defaultValue={filters.action ?? ''}>
+          <option value="">Anything</option>
+          {AUDIT_AREAS.filter((a) => choices.actionPrefixes.includes(a.prefix) || filters.action === a.prefix).map((a) => (
+            <option key={a.prefix} value={a.prefix}>
+              {a.label}
+            </option>
           ))}
-        </datalist>
+        </SelectField>
         <SelectField label="Person" name="userId" defaultValue={filters.userId ?? ''}>
           <option value="">Anyone</option>
           {choices.people.map((p) => (
             <option key={p.id} value={p.id}>
               {p.name}
-            </option>
-          ))}
-        </SelectField>
-        <SelectField label="Record type" name="entityType" defaultValue={filters.entityType ?? ''}>
-          <option value="">Any</option>
-          {choices.entityTypes.map((t) => (
-            <option key={t} value={t}>
-              {t}
             </option>
           ))}
         </SelectField>
@@ -92,23 +88,14 @@ export function AuditLog({ organisationId, filters, onFiltersChange }: Props) {
             head={
               <>
                 <th className={th}>When</th>
-                <th className={th}>Person</th>
-                <th className={th}>Action</th>
-                <th className={th}>Record</th>
-                <th className={th}>Details</th>
+                <th className={th}>What happened</th>
               </>
             }
           >
             {events.data.map((e) => (
-              <tr key={e.id} className={tr}>
+              <tr key={e.id} className={tr} data-testid="audit-entry">
                 <td className={`${td} whitespace-nowrap`}>{formatDateTime(e.createdAt)}</td>
-                <td className={td}>{e.userName ?? <span className="text-ink-faint">system</span>}</td>
-                <td className={`${td} font-mono text-xs`}>{e.action}</td>
-                <td className={td}>
-                  {e.entityType}
-                  {e.entityId && <span className="ml-1 font-mono text-2xs text-ink-faint" title={e.entityId}>{e.entityId.slice(0, 8)}</span>}
-                </td>
-                <td className={`${td} max-w-md break-words font-mono text-2xs text-ink-soft`}>{describeDetails(e.details)}</td>
+                <td className={td}>{auditSentence(e, names)}</td>
               </tr>
             ))}
           </DataTable>
@@ -120,23 +107,13 @@ export function AuditLog({ organisationId, filters, onFiltersChange }: Props) {
 
 function filterChoices(events: AuditEventView[]) {
   const people = new Map<string, string>();
-  const entityTypes = new Set<string>();
   const actionPrefixes = new Set<string>();
   for (const e of events) {
     if (e.userId) people.set(e.userId, e.userName ?? e.userId);
-    entityTypes.add(e.entityType);
     actionPrefixes.add(`${e.action.split('.')[0]}.`);
   }
   return {
     people: [...people].map(([id, name]) => ({ id, name })).sort((a, b) => a.name.localeCompare(b.name)),
-    entityTypes: [...entityTypes].sort(),
     actionPrefixes: [...actionPrefixes].sort(),
   };
-}
-
-function describeDetails(details: Record<string, unknown> | null): string {
-  if (!details) return '';
-  return Object.entries(details)
-    .map(([k, v]) => `${k}: ${typeof v === 'string' ? v : JSON.stringify(v)}`)
-    .join(' · ');
 }

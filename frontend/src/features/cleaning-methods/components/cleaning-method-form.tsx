@@ -10,6 +10,7 @@ import { formMessage, serverFieldErrors, zodFieldErrors, type FieldErrors } from
 import { useCreateCleaningMethod } from '../api/create-cleaning-method';
 import type { CleaningMethodView } from '../api/get-cleaning-methods';
 import { useUpdateCleaningMethod } from '../api/update-cleaning-method';
+import { methodKeyFrom } from './method-key';
 import { TYPICAL_VALUES_TITLE, UNIT_DURING_CLEANING_LABELS } from './method-labels';
 
 type UnitDuringCleaning = CleaningMethod['unitDuringCleaning'];
@@ -29,15 +30,16 @@ const pct = (fraction: number | undefined) => (fraction === undefined ? '' : Str
 interface Props {
   organisationId: string;
   method?: CleaningMethodView;
+  /** keys the library holds already: a new method's key, made from its name, avoids them */
+  takenKeys?: string[];
   onDone?: () => void;
 }
 
-/** Add a method to the library, or change one; the key (`id`) is set once, when the method is added. */
-export function CleaningMethodForm({ organisationId, method, onDone }: Props) {
+/** Add a method to the library, or change one; the key (`id`) is made from the name once, when the method is added. */
+export function CleaningMethodForm({ organisationId, method, takenKeys = [], onDone }: Props) {
   const create = useCreateCleaningMethod(organisationId);
   const update = useUpdateCleaningMethod(organisationId);
   const mutation = method ? update : create;
-  const [id, setId] = useState(method?.id ?? '');
   const [name, setName] = useState(method?.name ?? '');
   const [fixedCost, setFixedCost] = useState(text(method?.fixedCost));
   const [costPerTube, setCostPerTube] = useState(text(method?.costPerTube));
@@ -53,12 +55,13 @@ export function CleaningMethodForm({ organisationId, method, onDone }: Props) {
   const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
   const [added, setAdded] = useState(false);
   const fieldId = useId();
+  const newKey = methodKeyFrom(name.trim(), takenKeys);
 
   const onSubmit = (e: FormEvent<HTMLFormElement>) => {
     e.preventDefault();
     const num = (t: string) => parseNumberText(t) ?? Number.NaN;
     const parsed = cleaningMethodSchema.safeParse({
-      id: method ? method.id : id.trim(),
+      id: method ? method.id : newKey,
       name: name.trim(),
       fixedCost: num(fixedCost),
       costPerTube: num(costPerTube),
@@ -80,7 +83,6 @@ export function CleaningMethodForm({ organisationId, method, onDone }: Props) {
       create.mutate(parsed.data, {
         onSuccess: () => {
           setAdded(true);
-          setId('');
           setName('');
           setFixedCost('');
           setCostPerTube('');
@@ -109,16 +111,15 @@ export function CleaningMethodForm({ organisationId, method, onDone }: Props) {
     >
       {!method && <h2>Add a cleaning method</h2>}
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-        {method ? (
-          <div className="flex flex-col gap-1">
-            <span className="text-sm font-medium text-ink">Key</span>
-            <span className="py-1.5 font-mono text-sm text-ink-soft">{method.id}</span>
-          </div>
-        ) : (
-          <TextField label="Key" value={id} onChange={(e) => setId(e.target.value)} error={fieldErrors.id} hint="Lower-case letters, digits and dashes; events refer to it" />
-        )}
         <div className="sm:col-span-1 lg:col-span-3">
           <TextField label="Name" value={name} onChange={(e) => setName(e.target.value)} maxLength={120} error={fieldErrors.name} />
+        </div>
+        <div className="flex flex-col gap-1" data-testid="method-key">
+          <span className="text-sm font-medium text-ink">Key</span>
+          <span className="py-1.5 font-mono text-sm text-ink-soft">{method ? method.id : name.trim() ? newKey : '—'}</span>
+          <span className={`text-xs ${fieldErrors.id ? 'text-fault' : 'text-ink-faint'}`}>
+            {fieldErrors.id ?? (method ? 'Set when the method was added; events and cases refer to it' : 'Made from the name; events and cases refer to it')}
+          </span>
         </div>
         <QuantityField label="Fixed cost" unit="per cleaning" value={fixedCost} onChange={setFixedCost} error={fieldErrors.fixedCost} hint="In the plant’s currency" />
         <QuantityField label="Cost per tube" unit="per tube" value={costPerTube} onChange={setCostPerTube} error={fieldErrors.costPerTube} hint="Per active tube cleaned" />

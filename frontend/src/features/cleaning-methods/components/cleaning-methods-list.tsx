@@ -1,10 +1,12 @@
 import { Fragment, useState } from 'react';
+import { GENERAL_CAUTION } from '@shared/schemas/cleaning-method';
 import { Button } from '@frontend/components/ui/button';
 import { ConfirmAction } from '@frontend/components/ui/confirm-action';
 import { DataTable, td, th, tr } from '@frontend/components/ui/data-table';
 import { EmptyState } from '@frontend/components/ui/empty-state';
 import { Notice } from '@frontend/components/ui/notice';
 import { ErrorState, LoadingState } from '@frontend/components/ui/query-state';
+import { ReadOnlyReason } from '@frontend/components/ui/read-only';
 import { SafetyCautions } from '@frontend/components/ui/safety-cautions';
 import { formatNumber, formatPercent } from '@frontend/lib/format';
 import { useDeleteCleaningMethod } from '../api/delete-cleaning-method';
@@ -18,22 +20,28 @@ interface Props {
   cannotWrite: string | null;
 }
 
-const COLUMNS = 8;
+const columnsFor = (cannotWrite: string | null) => (cannotWrite ? 7 : 8);
 const money = (v: number) => formatNumber(v, v % 1 === 0 ? 0 : 2);
 
-/** The organisation's cleaning methods; each row opens to show its safety cautions. */
+/**
+ * The organisation's cleaning methods, the library cleaning work is planned from: the general caution stands
+ * above it, and each row opens to show the method's own cautions.
+ */
 export function CleaningMethodsList({ organisationId, cannotWrite }: Props) {
   const methods = useCleaningMethods(organisationId);
   const remove = useDeleteCleaningMethod(organisationId);
   const [open, setOpen] = useState<string | null>(null);
   const [editing, setEditing] = useState<string | null>(null);
+  const columns = columnsFor(cannotWrite);
+  const takenKeys = methods.data?.map((m) => m.id) ?? [];
 
   return (
     <div className="flex flex-col gap-4">
+      <SafetyCautions texts={[GENERAL_CAUTION]} testId="library-caution" />
       {cannotWrite ? (
-        <p className="text-sm text-ink-soft">{cannotWrite}: adding, changing and deleting cleaning methods.</p>
+        <ReadOnlyReason reason={cannotWrite} action="add, change and delete cleaning methods" />
       ) : (
-        <CleaningMethodForm organisationId={organisationId} />
+        <CleaningMethodForm organisationId={organisationId} takenKeys={takenKeys} />
       )}
       {remove.isError && <Notice tone="fault">{remove.error.message}</Notice>}
       {methods.isPending ? (
@@ -57,16 +65,18 @@ export function CleaningMethodsList({ organisationId, cannotWrite }: Props) {
               <th className={`${th} text-right`}>Cost per tube</th>
               <th className={`${th} text-right`}>Cleanliness recovered</th>
               <th className={`${th} text-right`}>Fouling-rate multiplier</th>
-              <th className={th}>
-                <span className="sr-only">Actions</span>
-              </th>
+              {!cannotWrite && (
+                <th className={th}>
+                  <span className="sr-only">Actions</span>
+                </th>
+              )}
             </>
           }
         >
           {methods.data.map((m) =>
             editing === m.recordId ? (
               <tr key={m.recordId} className={`${tr} bg-tube-50/40`}>
-                <td className={td} colSpan={COLUMNS}>
+                <td className={td} colSpan={columns}>
                   <CleaningMethodForm organisationId={organisationId} method={m} onDone={() => setEditing(null)} />
                 </td>
               </tr>
@@ -83,7 +93,7 @@ export function CleaningMethodsList({ organisationId, cannotWrite }: Props) {
                 />
                 {open === m.recordId && (
                   <tr className={tr} id={`method-${m.recordId}-details`}>
-                    <td className={`${td} bg-paper-sunk/40`} colSpan={COLUMNS}>
+                    <td className={`${td} bg-paper-sunk/40`} colSpan={columns}>
                       <SafetyCautions texts={m.cautionTexts} testId="method-cautions" />
                       {m.note && <p className="mt-2 text-xs text-ink-soft">{m.note}</p>}
                     </td>
@@ -138,22 +148,22 @@ function MethodRow({ method: m, expanded, onToggle, cannotWrite, onEdit, deletin
       <td className={`${td} text-right tabular-nums whitespace-nowrap text-ledger-700`}>{money(m.costPerTube)}</td>
       <td className={`${td} text-right tabular-nums`}>{formatPercent(m.recoveredCleanliness, 0)}</td>
       <td className={`${td} text-right tabular-nums`}>{formatNumber(m.foulingRateMultiplier, 2)}</td>
-      <td className={`${td} text-right`}>
-        <div className="flex items-start justify-end gap-2">
-          <Button variant="quiet" disabled={!!cannotWrite} title={cannotWrite ?? undefined} onClick={onEdit} aria-label={`Change ${m.name}`}>
-            Change
-          </Button>
-          <ConfirmAction
-            label="Delete"
-            question={`Delete “${m.name}” from the library? Events already recorded keep its key; new cleaning cases can no longer pick it.`}
-            confirmLabel="Delete method"
-            disabled={!!cannotWrite}
-            disabledReason={cannotWrite ?? undefined}
-            pending={deleting}
-            onConfirm={onDelete}
-          />
-        </div>
-      </td>
+      {!cannotWrite && (
+        <td className={`${td} text-right`}>
+          <div className="flex items-start justify-end gap-2">
+            <Button variant="quiet" onClick={onEdit} aria-label={`Change ${m.name}`}>
+              Change
+            </Button>
+            <ConfirmAction
+              label="Delete"
+              question={`Delete “${m.name}” from the library? Events already recorded keep its key; new cleaning cases can no longer pick it.`}
+              confirmLabel="Delete method"
+              pending={deleting}
+              onConfirm={onDelete}
+            />
+          </div>
+        </td>
+      )}
     </tr>
   );
 }

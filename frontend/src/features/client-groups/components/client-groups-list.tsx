@@ -5,6 +5,7 @@ import { ConfirmAction } from '@frontend/components/ui/confirm-action';
 import { DataTable, td, th, tr } from '@frontend/components/ui/data-table';
 import { EmptyState } from '@frontend/components/ui/empty-state';
 import { Notice } from '@frontend/components/ui/notice';
+import { ReadOnlyReason } from '@frontend/components/ui/read-only';
 import { RenameRow } from '@frontend/components/ui/rename-row';
 import { ErrorState, LoadingState } from '@frontend/components/ui/query-state';
 import { TextField } from '@frontend/components/ui/text-field';
@@ -29,7 +30,7 @@ export function ClientGroupsList({ organisationId, cannotManage }: Props) {
   return (
     <div className="flex flex-col gap-4">
       {cannotManage ? (
-        <p className="text-sm text-ink-soft">{cannotManage}: creating, renaming and deleting client groups.</p>
+        <ReadOnlyReason reason={cannotManage} action="create, rename and delete client groups" />
       ) : (
         <CreateClientGroupForm organisationId={organisationId} />
       )}
@@ -48,7 +49,20 @@ export function ClientGroupsList({ organisationId, cannotManage }: Props) {
           }
         />
       ) : (
-        <DataTable caption="Client groups" head={<><th className={th}>Name</th><th className={th}>Created</th><th className={th}><span className="sr-only">Actions</span></th></>}>
+        <DataTable
+          caption="Client groups"
+          head={
+            <>
+              <th className={th}>Name</th>
+              <th className={th}>Created</th>
+              {!cannotManage && (
+                <th className={th}>
+                  <span className="sr-only">Actions</span>
+                </th>
+              )}
+            </>
+          }
+        >
           {groups.data.map((g) =>
             renaming === g.id ? (
               <RenameGroupRow key={g.id} group={g} organisationId={organisationId} onDone={() => setRenaming(null)} />
@@ -56,22 +70,22 @@ export function ClientGroupsList({ organisationId, cannotManage }: Props) {
               <tr key={g.id} className={tr} data-testid="client-group-row">
                 <td className={`${td} font-medium`}>{g.name}</td>
                 <td className={`${td} whitespace-nowrap text-ink-soft`}>{formatDate(g.createdAt)}</td>
-                <td className={`${td} text-right`}>
-                  <div className="flex items-start justify-end gap-2">
-                    <Button variant="quiet" disabled={!!cannotManage} title={cannotManage ?? undefined} onClick={() => setRenaming(g.id)} aria-label={`Rename ${g.name}`}>
-                      Rename
-                    </Button>
-                    <ConfirmAction
-                      label="Delete"
-                      question={`Delete “${g.name}”? Members limited to this group lose access to its plants; members with other groups keep those.`}
-                      confirmLabel="Delete group"
-                      disabled={!!cannotManage}
-                      disabledReason={cannotManage ?? undefined}
-                      pending={remove.isPending && remove.variables === g.id}
-                      onConfirm={() => remove.mutate(g.id)}
-                    />
-                  </div>
-                </td>
+                {!cannotManage && (
+                  <td className={`${td} text-right`}>
+                    <div className="flex items-start justify-end gap-2">
+                      <Button variant="quiet" onClick={() => setRenaming(g.id)} aria-label={`Rename ${g.name}`}>
+                        Rename
+                      </Button>
+                      <ConfirmAction
+                        label="Delete"
+                        question={`Delete “${g.name}”? Members limited to this group lose access to its plants; members with other groups keep those.`}
+                        confirmLabel="Delete group"
+                        pending={remove.isPending && remove.variables === g.id}
+                        onConfirm={() => remove.mutate(g.id)}
+                      />
+                    </div>
+                  </td>
+                )}
               </tr>
             ),
           )}

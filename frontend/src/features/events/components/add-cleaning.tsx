@@ -1,5 +1,4 @@
 import { useState, type FormEvent } from 'react';
-import { GENERAL_CAUTION } from '@shared/schemas/cleaning-method';
 import { unitEventInput } from '@shared/schemas/unit-event';
 import { Button } from '@frontend/components/ui/button';
 import { Notice } from '@frontend/components/ui/notice';
@@ -88,10 +87,6 @@ export function AddCleaning({ organisationId, unitId, currency, lastDay, methods
         <QuantityField label="Cleanliness after (if measured)" unit="%" value={after} onChange={setAfter} error={errors.cleanlinessAfter} />
       </div>
       <p className="text-xs text-ink-soft">The fouling trend restarts from this date; the unit’s figures are recomputed, which takes a little while.</p>
-      <p className="rounded border border-warn/40 bg-ledger-50 px-2 py-1.5 text-xs text-warn">
-        <strong className="font-semibold">Safety: </strong>
-        {GENERAL_CAUTION}
-      </p>
       {message && <Notice tone="fault">{message}</Notice>}
       <div className="flex gap-2">
         <Button type="submit" disabled={add.isPending}>

@@ -1,9 +1,7 @@
 import { useState, type FormEvent } from 'react';
-import { GENERAL_CAUTION } from '@shared/schemas/cleaning-method';
 import { UNIT_EVENT_KINDS, unitEventInput } from '@shared/schemas/unit-event';
 import { FormActions } from '@frontend/components/ui/form-actions';
 import { Notice } from '@frontend/components/ui/notice';
-import { SafetyCautions } from '@frontend/components/ui/safety-cautions';
 import { QuantityField } from '@frontend/components/ui/quantity-field';
 import { SelectField } from '@frontend/components/ui/select-field';
 import { TextField } from '@frontend/components/ui/text-field';
@@ -33,7 +31,7 @@ const KIND_NOTES: Partial<Record<Kind, string>> = {
 export interface MethodChoice {
   id: string;
   name: string;
-  /** the general caution first */
+  /** the general caution first; shown where cleaning work is planned, not on this record of past work */
   cautionTexts: string[];
 }
 
@@ -172,9 +170,6 @@ export function EventForm({ organisationId, unitId, currency, methods, event, on
         <textarea value={notes} onChange={(e) => setNotes(e.target.value)} rows={2} maxLength={2000} className="rounded border border-rule bg-paper-raised px-2.5 py-1.5 text-sm font-normal" />
       </label>
       {KIND_NOTES[kind] && <p className="text-xs text-ink-soft">{KIND_NOTES[kind]}</p>}
-      {kind === 'cleaning' && (
-        <SafetyCautions texts={chosenMethod?.cautionTexts ?? [GENERAL_CAUTION]} testId="cleaning-caution" />
-      )}
       {message && <Notice tone="fault">{message}</Notice>}
       {added && !event && <Notice tone="ok">Event added.</Notice>}
       <FormActions editing={!!event} pending={mutation.isPending} addLabel="Add event" saveLabel="Save event" onCancel={onDone} />

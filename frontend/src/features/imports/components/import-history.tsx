@@ -5,6 +5,7 @@ import { EmptyState } from '@frontend/components/ui/empty-state';
 import { Notice } from '@frontend/components/ui/notice';
 import { linkClass } from '@frontend/components/ui/public-page';
 import { ErrorState, LoadingState } from '@frontend/components/ui/query-state';
+import { ReadOnlyReason } from '@frontend/components/ui/read-only';
 import { formatBytes, formatDateTime, formatNumber, formatPlantDate } from '@frontend/lib/format';
 import { importIsRunning, type ImportView } from '../api/get-import';
 import { useUnitImports } from '../api/get-imports';
@@ -21,15 +22,25 @@ export function ImportHistory({ organisationId, unitId, plantTimeZone, cannotWri
   if (imports.isError) return <ErrorState what="the import history" error={imports.error} onRetry={() => imports.refetch()} />;
   if (imports.data.length === 0) {
     return (
-      <EmptyState title="No imports yet" next="Import a historian export (CSV or XLSX) to bring in this unit’s performance data.">
-        <Link className={linkClass} to={`/units/${unitId}/import`}>
-          Import data
-        </Link>
+      <EmptyState
+        title="No imports yet"
+        next={
+          cannotWrite
+            ? 'Historian files appear here once an analyst or administrator imports them.'
+            : 'Import a historian export (CSV or XLSX) to bring in this unit’s performance data.'
+        }
+      >
+        {!cannotWrite && (
+          <Link className={linkClass} to={`/units/${unitId}/import`}>
+            Import data
+          </Link>
+        )}
       </EmptyState>
     );
   }
   return (
     <div className="flex flex-col gap-2">
+      {cannotWrite && <ReadOnlyReason reason={cannotWrite} action="import files and undo imports" />}
       {undo.isError && <Notice tone="fault">{undo.error.message}</Notice>}
       <DataTable
         caption="Import history"
@@ -41,9 +52,11 @@ export function ImportHistory({ organisationId, unitId, plantTimeZone, cannotWri
             <th className={`${th} text-right`}>Rows stored</th>
             <th className={`${th} text-right`}>Left out</th>
             <th className={th}>Data from – to (plant days)</th>
-            <th className={th}>
-              <span className="sr-only">Actions</span>
-            </th>
+            {!cannotWrite && (
+              <th className={th}>
+                <span className="sr-only">Actions</span>
+              </th>
+            )}
           </>
         }
       >
@@ -66,19 +79,19 @@ export function ImportHistory({ organisationId, unitId, plantTimeZone, cannotWri
             <td className={`${td} text-right tabular-nums`}>{i.status === 'complete' ? formatNumber(i.counts?.stored ?? 0) : '—'}</td>
             <td className={`${td} text-right tabular-nums`}>{i.status === 'complete' ? formatNumber(leftOut(i)) : '—'}</td>
             <td className={`${td} whitespace-nowrap`}>{i.firstTimestamp ? `${formatPlantDate(i.firstTimestamp, plantTimeZone)} – ${formatPlantDate(i.lastTimestamp, plantTimeZone)}` : '—'}</td>
-            <td className={`${td} text-right`}>
-              {canUndo(i) && (
-                <ConfirmAction
-                  label="Undo"
-                  question={`Undo “${i.fileName}”? This removes the rows this import brought and recomputes the unit’s derived data.`}
-                  confirmLabel="Undo import"
-                  disabled={!!cannotWrite}
-                  disabledReason={cannotWrite ?? undefined}
-                  pending={undo.isPending && undo.variables === i.id}
-                  onConfirm={() => undo.mutate(i.id)}
-                />
-              )}
-            </td>
+            {!cannotWrite && (
+              <td className={`${td} text-right`}>
+                {canUndo(i) && (
+                  <ConfirmAction
+                    label="Undo"
+                    question={`Undo “${i.fileName}”? This removes the rows this import brought and recomputes the unit’s derived data.`}
+                    confirmLabel="Undo import"
+                    pending={undo.isPending && undo.variables === i.id}
+                    onConfirm={() => undo.mutate(i.id)}
+                  />
+                )}
+              </td>
+            )}
           </tr>
         ))}
       </DataTable>

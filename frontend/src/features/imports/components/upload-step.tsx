@@ -3,14 +3,34 @@ import { MAX_UPLOAD_BYTES } from '@shared/limits';
 import { Button } from '@frontend/components/ui/button';
 import { Notice } from '@frontend/components/ui/notice';
 import { ProgressBar } from '@frontend/components/ui/progress-bar';
+import { ReadOnlyReason } from '@frontend/components/ui/read-only';
 import type { UploadHandle } from '@frontend/lib/api-client';
 import { formatBytes } from '@frontend/lib/format';
 import { uploadHistorianFile, type UploadResponse } from '../api/upload-historian-file';
 
 const MAX_MB = MAX_UPLOAD_BYTES / 1024 / 1024;
 
+interface Props {
+  unitId: string;
+  onUploaded: (r: UploadResponse) => void;
+  /** null when the person may import; otherwise why not, shown instead of the file picker */
+  disabledReason: string | null;
+}
+
+/** Step 1 for people who may import; for the rest, who may, and where the imported files are listed. */
+export function UploadStep(props: Props) {
+  if (!props.disabledReason) return <UploadForm {...props} />;
+  return (
+    <section aria-label="Import data" className="flex flex-col gap-2 rounded border border-rule bg-paper-raised p-4">
+      <h2>Import data</h2>
+      <ReadOnlyReason reason={props.disabledReason} action="import historian data" />
+      <p className="text-sm text-ink-soft">The files already imported for this unit, with their dates and counts, are in the import history.</p>
+    </section>
+  );
+}
+
 /** Step 1: choose a historian export and send it, with a progress bar. */
-export function UploadStep({ unitId, onUploaded, disabledReason }: { unitId: string; onUploaded: (r: UploadResponse) => void; disabledReason: string | null }) {
+function UploadForm({ unitId, onUploaded }: Omit<Props, 'disabledReason'>) {
   const [file, setFile] = useState<File | null>(null);
   const [progress, setProgress] = useState<number | null>(null);
   const [error, setError] = useState<string | null>(null);
@@ -60,7 +80,7 @@ export function UploadStep({ unitId, onUploaded, disabledReason }: { unitId: str
           type="file"
           name="file"
           accept=".csv,.txt,.xlsx,text/csv,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet"
-          disabled={!!disabledReason || progress !== null}
+          disabled={progress !== null}
           onChange={(e) => choose(e.target.files?.[0] ?? null)}
           className="text-sm font-normal"
         />
@@ -69,7 +89,7 @@ export function UploadStep({ unitId, onUploaded, disabledReason }: { unitId: str
       {progress !== null && <ProgressBar fraction={progress} label="Uploading" message={progress < 1 ? `Uploading ${file?.name}` : 'Reading the columns…'} />}
       {error && <Notice tone="fault">{error}</Notice>}
       <div className="flex gap-2">
-        <Button type="submit" disabled={!!disabledReason || !file || progress !== null} title={disabledReason ?? undefined}>
+        <Button type="submit" disabled={!file || progress !== null}>
           {progress !== null ? 'Uploading…' : 'Upload and map columns'}
         </Button>
         {progress !== null && (
@@ -78,7 +98,6 @@ export function UploadStep({ unitId, onUploaded, disabledReason }: { unitId: str
           </Button>
         )}
       </div>
-      {disabledReason && <p className="text-xs text-ink-faint">{disabledReason}: importing data.</p>}
     </form>
   );
 }

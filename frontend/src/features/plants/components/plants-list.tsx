@@ -9,6 +9,7 @@ import { EmptyState } from '@frontend/components/ui/empty-state';
 import { Notice } from '@frontend/components/ui/notice';
 import { linkClass } from '@frontend/components/ui/public-page';
 import { ErrorState, LoadingState } from '@frontend/components/ui/query-state';
+import { ReadOnlyReason } from '@frontend/components/ui/read-only';
 import { RenameRow } from '@frontend/components/ui/rename-row';
 import { TextField } from '@frontend/components/ui/text-field';
 import { formatNumber } from '@frontend/lib/format';
@@ -49,7 +50,7 @@ export function PlantsList({ organisationId, groups, cannotWrite }: Props) {
   return (
     <div className="flex flex-col gap-6">
       {cannotWrite ? (
-        <p className="text-sm text-ink-soft">{cannotWrite}: creating, changing and deleting plants and units.</p>
+        <ReadOnlyReason reason={cannotWrite} action="create, change and delete plants and units" />
       ) : (
         <PlantForm organisationId={organisationId} groups={groups} />
       )}
@@ -85,20 +86,20 @@ function PlantCard({ plant, organisationId, groups, cannotWrite }: { plant: Plan
           <h3 className="text-base font-semibold">{plant.name}</h3>
           <p className="text-xs text-ink-soft">Local time: {plant.timeZone.replace(/_/g, ' ')}</p>
         </div>
-        <div className="flex items-start gap-2">
-          <Button variant="quiet" disabled={!!cannotWrite} title={cannotWrite ?? undefined} onClick={() => setEditing(true)} aria-label={`Change ${plant.name}`}>
-            Change
-          </Button>
-          <ConfirmAction
-            label="Delete plant"
-            question={`Delete “${plant.name}” with its ${plant.units.length} unit${plant.units.length === 1 ? '' : 's'} and all their data, imports and events? This cannot be undone.`}
-            confirmLabel="Delete plant and data"
-            disabled={!!cannotWrite}
-            disabledReason={cannotWrite ?? undefined}
-            pending={remove.isPending}
-            onConfirm={() => remove.mutate(plant.id)}
-          />
-        </div>
+        {!cannotWrite && (
+          <div className="flex items-start gap-2">
+            <Button variant="quiet" onClick={() => setEditing(true)} aria-label={`Change ${plant.name}`}>
+              Change
+            </Button>
+            <ConfirmAction
+              label="Delete plant"
+              question={`Delete “${plant.name}” with its ${plant.units.length} unit${plant.units.length === 1 ? '' : 's'} and all their data, imports and events? This cannot be undone.`}
+              confirmLabel="Delete plant and data"
+              pending={remove.isPending}
+              onConfirm={() => remove.mutate(plant.id)}
+            />
+          </div>
+        )}
       </div>
       {remove.isError && <Notice tone="fault">{remove.error.message}</Notice>}
       {removeUnit.isError && <Notice tone="fault">{removeUnit.error.message}</Notice>}
@@ -112,9 +113,11 @@ function PlantCard({ plant, organisationId, groups, cannotWrite }: { plant: Plan
               <th className={th}>Unit</th>
               <th className={`${th} text-right`}>Rating</th>
               <th className={th}>Setup</th>
-              <th className={th}>
-                <span className="sr-only">Actions</span>
-              </th>
+              {!cannotWrite && (
+                <th className={th}>
+                  <span className="sr-only">Actions</span>
+                </th>
+              )}
             </>
           }
         >
@@ -132,28 +135,30 @@ function PlantCard({ plant, organisationId, groups, cannotWrite }: { plant: Plan
                 <td className={td}>
                   {u.setupComplete ? (
                     <span className="text-ok">Complete</span>
+                  ) : cannotWrite ? (
+                    <span className="text-warn">Not complete</span>
                   ) : (
                     <Link className={linkClass} to={`/units/${u.id}/setup`}>
                       Needs setup
                     </Link>
                   )}
                 </td>
-                <td className={`${td} text-right`}>
-                  <div className="flex items-start justify-end gap-2">
-                    <Button variant="quiet" disabled={!!cannotWrite} title={cannotWrite ?? undefined} onClick={() => setRenamingUnit(u.id)} aria-label={`Rename ${u.name}`}>
-                      Rename
-                    </Button>
-                    <ConfirmAction
-                      label="Delete"
-                      question={`Delete ${u.name} with its setup, imported data, events and derived figures? This cannot be undone.`}
-                      confirmLabel="Delete unit and data"
-                      disabled={!!cannotWrite}
-                      disabledReason={cannotWrite ?? undefined}
-                      pending={removeUnit.isPending && removeUnit.variables === u.id}
-                      onConfirm={() => removeUnit.mutate(u.id)}
-                    />
-                  </div>
-                </td>
+                {!cannotWrite && (
+                  <td className={`${td} text-right`}>
+                    <div className="flex items-start justify-end gap-2">
+                      <Button variant="quiet" onClick={() => setRenamingUnit(u.id)} aria-label={`Rename ${u.name}`}>
+                        Rename
+                      </Button>
+                      <ConfirmAction
+                        label="Delete"
+                        question={`Delete ${u.name} with its setup, imported data, events and derived figures? This cannot be undone.`}
+                        confirmLabel="Delete unit and data"
+                        pending={removeUnit.isPending && removeUnit.variables === u.id}
+                        onConfirm={() => removeUnit.mutate(u.id)}
+                      />
+                    </div>
+                  </td>
+                )}
               </tr>
             ),
           )}

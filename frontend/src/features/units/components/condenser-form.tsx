@@ -9,15 +9,9 @@ import { SelectField } from '@frontend/components/ui/select-field';
 import type { FieldUnits, UnitSystem } from '@frontend/lib/field-units';
 import { formMessage, serverFieldErrors, zodFieldErrors, type FieldErrors } from '@frontend/lib/form-errors';
 import { useSaveSetupPart } from '../api/save-setup-part';
+import { CondenserValues } from './condenser-values';
 import { storedFromText, storedValues, textFromStored, unitLabel, type FieldKind } from './setup-fields';
-
-export const TUBE_MATERIAL_LABELS: Record<(typeof TUBE_MATERIALS)[number], string> = {
-  admiralty: 'Admiralty brass',
-  'cuni-90-10': '90-10 copper-nickel',
-  'cuni-70-30': '70-30 copper-nickel',
-  stainless: 'Stainless steel',
-  titanium: 'Titanium',
-};
+import { TUBE_MATERIAL_LABELS } from './tube-materials';
 
 const NUMBER_FIELDS = [
   'shells', 'passes', 'tubeCount', 'tubeOdMm', 'tubeLengthM', 'surfaceM2', 'pluggedTubes', 'designPluggedTubes',
@@ -53,7 +47,12 @@ interface Props {
   cannotWrite: string | null;
 }
 
-export function CondenserForm({ organisationId, unitId, saved, units, system, cannotWrite }: Props) {
+/** The condenser section: the form for people who may change the unit, its saved values as text for the rest. */
+export function CondenserForm(props: Props) {
+  return props.cannotWrite ? <CondenserValues saved={props.saved} units={props.units} system={props.system} /> : <CondenserEditor {...props} />;
+}
+
+function CondenserEditor({ organisationId, unitId, saved, units, system }: Omit<Props, 'cannotWrite'>) {
   const kinds = useMemo(() => kindsFor(units), [units]);
   const save = useSaveSetupPart(organisationId, unitId, 'condenser');
   const [texts, setTexts] = useState<Record<NumberField, string>>(() => {
@@ -90,7 +89,7 @@ export function CondenserForm({ organisationId, unitId, saved, units, system, ca
   };
 
   const field = (name: NumberField, label: string, hint?: string) => (
-    <QuantityField label={label} unit={unitLabel(kinds[name])} value={texts[name]} onChange={set(name)} error={fieldErrors[name]} hint={hint} disabled={!!cannotWrite} />
+    <QuantityField label={label} unit={unitLabel(kinds[name])} value={texts[name]} onChange={set(name)} error={fieldErrors[name]} hint={hint} />
   );
   const message = formMessage(save.error);
   const wallHint = tubeBwg ? `Wall ${system === 'us' ? `${BWG_WALL_IN[Number(tubeBwg)].toFixed(3)} in` : `${inToMm(BWG_WALL_IN[Number(tubeBwg)]).toFixed(2)} mm`}` : undefined;
@@ -104,7 +103,7 @@ export function CondenserForm({ organisationId, unitId, saved, units, system, ca
           {field('passes', 'Passes')}
           {field('tubeCount', 'Tube count')}
           {field('tubeOdMm', 'Tube outside diameter')}
-          <SelectField label="Wall gauge (BWG)" value={tubeBwg} onChange={(e) => setTubeBwg(e.target.value)} error={fieldErrors.tubeBwg} hint={wallHint} disabled={!!cannotWrite}>
+          <SelectField label="Wall gauge (BWG)" value={tubeBwg} onChange={(e) => setTubeBwg(e.target.value)} error={fieldErrors.tubeBwg} hint={wallHint}>
             <option value="">Choose…</option>
             {Object.keys(BWG_WALL_IN).map((g) => (
               <option key={g} value={g}>
@@ -112,7 +111,7 @@ export function CondenserForm({ organisationId, unitId, saved, units, system, ca
               </option>
             ))}
           </SelectField>
-          <SelectField label="Tube material" value={tubeMaterial} onChange={(e) => setTubeMaterial(e.target.value)} error={fieldErrors.tubeMaterial} disabled={!!cannotWrite}>
+          <SelectField label="Tube material" value={tubeMaterial} onChange={(e) => setTubeMaterial(e.target.value)} error={fieldErrors.tubeMaterial}>
             <option value="">Choose…</option>
             {TUBE_MATERIALS.map((m) => (
               <option key={m} value={m}>
@@ -132,7 +131,7 @@ export function CondenserForm({ organisationId, unitId, saved, units, system, ca
             <div>
               <Button
                 variant="quiet"
-                disabled={!!cannotWrite || computed === null}
+                disabled={computed === null}
                 title={computed === null ? 'Enter tube count, outside diameter and effective length first' : undefined}
                 onClick={() => computed !== null && set('surfaceM2')(textFromStored(computed, kinds.surfaceM2))}
               >
@@ -166,7 +165,7 @@ export function CondenserForm({ organisationId, unitId, saved, units, system, ca
       {message && <Notice tone="fault">{message}</Notice>}
       {savedAt && !save.isPending && !save.isError && <Notice tone="ok">Condenser saved. The unit’s derived data is being recomputed.</Notice>}
       <div>
-        <Button type="submit" disabled={!!cannotWrite || save.isPending} title={cannotWrite ?? undefined}>
+        <Button type="submit" disabled={save.isPending}>
           {save.isPending ? 'Saving…' : 'Save condenser'}
         </Button>
       </div>

@@ -1,5 +1,5 @@
 import { useState, type FormEvent } from 'react';
-import { CO2_FACTORS_NOTE, CO2_KG_PER_MMBTU, type Fuel } from '@shared/domain/turbine/emission-factors';
+import { CO2_KG_PER_MMBTU, type Fuel } from '@shared/domain/turbine/emission-factors';
 import { economicsSetup, FUELS, type EconomicsSetup } from '@shared/schemas/unit-setup';
 import { Button } from '@frontend/components/ui/button';
 import { Notice } from '@frontend/components/ui/notice';
@@ -9,15 +9,9 @@ import { TextField } from '@frontend/components/ui/text-field';
 import type { FieldUnits } from '@frontend/lib/field-units';
 import { formMessage, serverFieldErrors, zodFieldErrors, type FieldErrors } from '@frontend/lib/form-errors';
 import { useSaveSetupPart } from '../api/save-setup-part';
+import { EconomicsValues } from './economics-values';
+import { CO2_FACTOR_NOTE, FUEL_LABELS } from './fuel-words';
 import { storedValues, textFromStored, type FieldKind } from './setup-fields';
-
-export const FUEL_LABELS: Record<Fuel, string> = {
-  'natural-gas': 'Natural gas',
-  'bituminous-coal': 'Bituminous coal',
-  'sub-bituminous-coal': 'Sub-bituminous coal',
-  lignite: 'Lignite',
-  'distillate-oil-no2': 'Distillate oil (No. 2)',
-};
 
 const FIELDS = ['co2KgPerMmbtu', 'fuelPricePerMmbtu', 'replacementPricePerMwh', 'capacityLimitedShare', 'co2PricePerTonne', 'discountRate'] as const;
 type Field = (typeof FIELDS)[number];
@@ -30,7 +24,12 @@ interface Props {
   cannotWrite: string | null;
 }
 
-export function EconomicsForm({ organisationId, unitId, saved, units, cannotWrite }: Props) {
+/** The economics section: the form for people who may change the unit, its saved values as text for the rest. */
+export function EconomicsForm(props: Props) {
+  return props.cannotWrite ? <EconomicsValues saved={props.saved} units={props.units} /> : <EconomicsEditor {...props} />;
+}
+
+function EconomicsEditor({ organisationId, unitId, saved, units }: Omit<Props, 'cannotWrite'>) {
   const save = useSaveSetupPart(organisationId, unitId, 'economics');
   const kinds: Record<Field, FieldKind> = {
     co2KgPerMmbtu: { unit: units.co2KgPerMmbtu },
@@ -65,12 +64,11 @@ export function EconomicsForm({ organisationId, unitId, saved, units, cannotWrit
   };
 
   const money = (label: string) => label.replace('$', currency.trim().toUpperCase() || '$');
-  const disabled = !!cannotWrite;
   const message = formMessage(save.error);
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Economics" className="flex flex-col gap-4">
       <div className="grid gap-3 sm:grid-cols-3">
-        <SelectField label="Fuel" value={fuel} onChange={(e) => chooseFuel(e.target.value)} error={fieldErrors.fuel} disabled={disabled}>
+        <SelectField label="Fuel" value={fuel} onChange={(e) => chooseFuel(e.target.value)} error={fieldErrors.fuel}>
           <option value="">Choose…</option>
           {FUELS.map((f) => (
             <option key={f} value={f}>
@@ -84,13 +82,12 @@ export function EconomicsForm({ organisationId, unitId, saved, units, cannotWrit
           value={texts.co2KgPerMmbtu}
           onChange={set('co2KgPerMmbtu')}
           error={fieldErrors.co2KgPerMmbtu}
-          hint={`Filled from the fuel: ${CO2_FACTORS_NOTE}. Heat input on the higher heating value.`}
-          disabled={disabled}
+          hint={`Filled in from the fuel. ${CO2_FACTOR_NOTE}`}
         />
-        <TextField label="Currency" value={currency} maxLength={3} onChange={(e) => setCurrency(e.target.value)} error={fieldErrors.currency} hint="Three-letter code, e.g. USD" disabled={disabled} />
+        <TextField label="Currency" value={currency} maxLength={3} onChange={(e) => setCurrency(e.target.value)} error={fieldErrors.currency} hint="Three-letter code, e.g. USD" />
       </div>
       <div className="grid gap-3 sm:grid-cols-3">
-        <QuantityField label="Fuel price" unit={money(units.fuelPricePerMmbtu.label)} value={texts.fuelPricePerMmbtu} onChange={set('fuelPricePerMmbtu')} error={fieldErrors.fuelPricePerMmbtu} disabled={disabled} />
+        <QuantityField label="Fuel price" unit={money(units.fuelPricePerMmbtu.label)} value={texts.fuelPricePerMmbtu} onChange={set('fuelPricePerMmbtu')} error={fieldErrors.fuelPricePerMmbtu} />
         <QuantityField
           label="Replacement power price"
           unit={money('$/MWh')}
@@ -98,7 +95,6 @@ export function EconomicsForm({ organisationId, unitId, saved, units, cannotWrit
           onChange={set('replacementPricePerMwh')}
           error={fieldErrors.replacementPricePerMwh}
           hint="What lost output costs when it must be bought or made elsewhere"
-          disabled={disabled}
         />
         <QuantityField
           label="Capacity-limited share of hours"
@@ -107,15 +103,14 @@ export function EconomicsForm({ organisationId, unitId, saved, units, cannotWrit
           onChange={set('capacityLimitedShare')}
           error={fieldErrors.capacityLimitedShare}
           hint="Hours when backpressure limits the output the unit could sell"
-          disabled={disabled}
         />
-        <QuantityField label="CO2 price" unit={money('$/t')} value={texts.co2PricePerTonne} onChange={set('co2PricePerTonne')} error={fieldErrors.co2PricePerTonne} disabled={disabled} />
-        <QuantityField label="Discount rate" unit="% a year" value={texts.discountRate} onChange={set('discountRate')} error={fieldErrors.discountRate} disabled={disabled} />
+        <QuantityField label="CO2 price" unit={money('$/t')} value={texts.co2PricePerTonne} onChange={set('co2PricePerTonne')} error={fieldErrors.co2PricePerTonne} />
+        <QuantityField label="Discount rate" unit="% a year" value={texts.discountRate} onChange={set('discountRate')} error={fieldErrors.discountRate} />
       </div>
       {message && <Notice tone="fault">{message}</Notice>}
       {savedAt && !save.isPending && !save.isError && <Notice tone="ok">Economics saved. The unit’s derived data is being recomputed.</Notice>}
       <div>
-        <Button type="submit" disabled={disabled || save.isPending} title={cannotWrite ?? undefined}>
+        <Button type="submit" disabled={save.isPending}>
           {save.isPending ? 'Saving…' : 'Save economics'}
         </Button>
       </div>

@@ -10,6 +10,7 @@ import { useSaveSetupPart } from '../api/save-setup-part';
 import { curveFromDraft, draftFromCurve, type CurveDraft } from './correction-curve-draft';
 import { CorrectionCurveEditor } from './correction-curve-editor';
 import { textFromStored } from './setup-fields';
+import { TurbineValues } from './turbine-values';
 
 interface Props {
   organisationId: string;
@@ -26,7 +27,12 @@ interface DutyRow {
 
 const cellInput = 'w-28 rounded border border-rule bg-paper-raised px-2 py-1 text-right text-sm tabular-nums';
 
-export function TurbineForm({ organisationId, unitId, saved, units, cannotWrite }: Props) {
+/** The turbine section: the form for people who may change the unit, its saved values as text for the rest. */
+export function TurbineForm(props: Props) {
+  return props.cannotWrite ? <TurbineValues saved={props.saved} units={props.units} /> : <TurbineEditor {...props} />;
+}
+
+function TurbineEditor({ organisationId, unitId, saved, units }: Omit<Props, 'cannotWrite'>) {
   const save = useSaveSetupPart(organisationId, unitId, 'turbine');
   const [rating, setRating] = useState(textFromStored(saved?.ratingMw, { unit: units.powerMw }));
   const [heatRate, setHeatRate] = useState(textFromStored(saved?.designHeatRateBtuKwh, { unit: units.heatRateBtuKwh }));
@@ -72,13 +78,12 @@ export function TurbineForm({ organisationId, unitId, saved, units, cannotWrite 
     save.mutate(parsed.data, { onSuccess: () => setSavedAt(Date.now()), onError: (e) => setFieldErrors(serverFieldErrors(e)) });
   };
 
-  const disabled = !!cannotWrite;
   const message = formMessage(save.error);
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Turbine" className="flex flex-col gap-5">
       <div className="grid gap-3 sm:grid-cols-3">
-        <QuantityField label="Rating" unit={units.powerMw.label} value={rating} onChange={setRating} error={fieldErrors.ratingMw} disabled={disabled} />
-        <QuantityField label="Design heat rate" unit={units.heatRateBtuKwh.label} value={heatRate} onChange={setHeatRate} error={fieldErrors.designHeatRateBtuKwh} disabled={disabled} />
+        <QuantityField label="Rating" unit={units.powerMw.label} value={rating} onChange={setRating} error={fieldErrors.ratingMw} />
+        <QuantityField label="Design heat rate" unit={units.heatRateBtuKwh.label} value={heatRate} onChange={setHeatRate} error={fieldErrors.designHeatRateBtuKwh} />
         <QuantityField
           label="Minimum load for a valid point"
           unit="% of rating"
@@ -86,7 +91,6 @@ export function TurbineForm({ organisationId, unitId, saved, units, cannotWrite 
           onChange={setMinimumLoad}
           error={fieldErrors.minimumLoadFraction}
           hint="Points below it are stored but left out"
-          disabled={disabled}
         />
       </div>
 
@@ -111,13 +115,13 @@ export function TurbineForm({ organisationId, unitId, saved, units, cannotWrite 
             {duty.map((d, i) => (
               <tr key={i} className={tr} data-testid="duty-row">
                 <td className={`${td} text-right`}>
-                  <input aria-label={`Load of duty row ${i + 1}`} className={cellInput} inputMode="decimal" value={d.loadPct} disabled={disabled} onChange={(e) => setDuty(duty.map((x, k) => (k === i ? { ...x, loadPct: e.target.value } : x)))} />
+                  <input aria-label={`Load of duty row ${i + 1}`} className={cellInput} inputMode="decimal" value={d.loadPct} onChange={(e) => setDuty(duty.map((x, k) => (k === i ? { ...x, loadPct: e.target.value } : x)))} />
                 </td>
                 <td className={`${td} text-right`}>
-                  <input aria-label={`Duty at row ${i + 1}`} className={cellInput} inputMode="decimal" value={d.duty} disabled={disabled} onChange={(e) => setDuty(duty.map((x, k) => (k === i ? { ...x, duty: e.target.value } : x)))} />
+                  <input aria-label={`Duty at row ${i + 1}`} className={cellInput} inputMode="decimal" value={d.duty} onChange={(e) => setDuty(duty.map((x, k) => (k === i ? { ...x, duty: e.target.value } : x)))} />
                 </td>
                 <td className={`${td} text-right`}>
-                  <Button variant="quiet" disabled={disabled} aria-label={`Remove duty row ${i + 1}`} onClick={() => setDuty(duty.filter((_, k) => k !== i))}>
+                  <Button variant="quiet" aria-label={`Remove duty row ${i + 1}`} onClick={() => setDuty(duty.filter((_, k) => k !== i))}>
                     Remove
                   </Button>
                 </td>
@@ -126,7 +130,7 @@ export function TurbineForm({ organisationId, unitId, saved, units, cannotWrite 
           </DataTable>
         </div>
         <div>
-          <Button variant="quiet" disabled={disabled} onClick={() => setDuty([...duty, { loadPct: '', duty: '' }])}>
+          <Button variant="quiet" onClick={() => setDuty([...duty, { loadPct: '', duty: '' }])}>
             Add load
           </Button>
         </div>
@@ -136,13 +140,13 @@ export function TurbineForm({ organisationId, unitId, saved, units, cannotWrite 
       <fieldset className="flex flex-col gap-2">
         <legend className="mb-1 text-sm font-semibold text-ink">Exhaust-pressure correction curves</legend>
         <p className="text-xs text-ink-soft">How heat rate (or output) changes with backpressure at each load; turns a backpressure deviation into fuel and money. Saved with the turbine.</p>
-        <CorrectionCurveEditor draft={curve} onChange={setCurve} pressure={units.pressureKpa} error={fieldErrors.correctionCurve} disabled={disabled} />
+        <CorrectionCurveEditor draft={curve} onChange={setCurve} pressure={units.pressureKpa} error={fieldErrors.correctionCurve} />
       </fieldset>
 
       {message && <Notice tone="fault">{message}</Notice>}
       {savedAt && !save.isPending && !save.isError && <Notice tone="ok">Turbine saved. The unit’s derived data is being recomputed.</Notice>}
       <div>
-        <Button type="submit" disabled={disabled || save.isPending} title={cannotWrite ?? undefined}>
+        <Button type="submit" disabled={save.isPending}>
           {save.isPending ? 'Saving…' : 'Save turbine'}
         </Button>
       </div>

@@ -2,6 +2,7 @@ import { Link } from 'react-router-dom';
 import { DataTable, td, th, tr } from '@frontend/components/ui/data-table';
 import { EmptyState } from '@frontend/components/ui/empty-state';
 import { linkClass } from '@frontend/components/ui/public-page';
+import { readOnlyLine } from '@frontend/components/ui/read-only';
 import { formatStored, type FieldUnits } from '@frontend/lib/field-units';
 import { formatDateTime, formatNumber, formatPercent, formatPlantTime } from '@frontend/lib/format';
 import type { UnitDetail } from '../api/get-unit';
@@ -10,7 +11,19 @@ import { RecomputeStatus } from './recompute-status';
 const JOB_STATUS_WORDS = { queued: 'Waiting', running: 'Running', done: 'Done', failed: 'Failed' } as const;
 
 /** A short page about the unit: what its setup still lacks, what data it holds, what ran lately. */
-export function UnitSummary({ unit, units, showStatus = true }: { unit: UnitDetail; units: FieldUnits; /** off where the page shows the progress itself */ showStatus?: boolean }) {
+export function UnitSummary({
+  unit,
+  units,
+  showStatus = true,
+  cannotWrite = null,
+}: {
+  unit: UnitDetail;
+  units: FieldUnits;
+  /** off where the page shows the progress itself */
+  showStatus?: boolean;
+  /** null when the person may change the unit: only then are the links to set up or import offered */
+  cannotWrite?: string | null;
+}) {
   const missing = [
     !unit.condenser && 'the condenser (geometry and design point)',
     !unit.turbine && 'the turbine (rating, heat rate, heat-balance duty)',
@@ -48,9 +61,13 @@ export function UnitSummary({ unit, units, showStatus = true }: { unit: UnitDeta
                 <li key={m}>{m}</li>
               ))}
             </ul>
-            <Link className={`${linkClass} mt-1 inline-block`} to={`/units/${unit.id}/setup`}>
-              Set up the unit
-            </Link>
+            {cannotWrite ? (
+              <p className="mt-1 text-ink-soft">{readOnlyLine(cannotWrite, 'set up a unit')}</p>
+            ) : (
+              <Link className={`${linkClass} mt-1 inline-block`} to={`/units/${unit.id}/setup`}>
+                Set up the unit
+              </Link>
+            )}
           </div>
         )}
       </section>
@@ -58,17 +75,31 @@ export function UnitSummary({ unit, units, showStatus = true }: { unit: UnitDeta
       <section aria-labelledby="data-heading" className="flex flex-col gap-2">
         <h2 id="data-heading">Performance data</h2>
         {unit.samples.count === 0 ? (
-          <EmptyState title="No performance data yet" next="Import a CSV or XLSX export from the plant historian: hourly rows of load, backpressure and CW temperatures and flow.">
-            <Link className={linkClass} to={`/units/${unit.id}/import`}>
-              Import data
-            </Link>
+          <EmptyState
+            title="No performance data yet"
+            next={
+              cannotWrite
+                ? readOnlyLine(cannotWrite, 'import the plant historian’s data')
+                : 'Import a CSV or XLSX export from the plant historian: hourly rows of load, backpressure and CW temperatures and flow.'
+            }
+          >
+            {!cannotWrite && (
+              <Link className={linkClass} to={`/units/${unit.id}/import`}>
+                Import data
+              </Link>
+            )}
           </EmptyState>
         ) : (
           <p className="text-sm" data-testid="data-span">
-            {formatNumber(unit.samples.count)} rows from {formatPlantTime(unit.samples.first, unit.plant.timeZone)} to {formatPlantTime(unit.samples.last, unit.plant.timeZone)} (plant time).{' '}
-            <Link className={linkClass} to={`/units/${unit.id}/import`}>
-              Import more
-            </Link>
+            {formatNumber(unit.samples.count)} rows from {formatPlantTime(unit.samples.first, unit.plant.timeZone)} to {formatPlantTime(unit.samples.last, unit.plant.timeZone)} (plant time).
+            {!cannotWrite && (
+              <>
+                {' '}
+                <Link className={linkClass} to={`/units/${unit.id}/import`}>
+                  Import more
+                </Link>
+              </>
+            )}
           </p>
         )}
       </section>
