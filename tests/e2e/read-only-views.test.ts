@@ -70,12 +70,12 @@ describe('read-only views: a viewer and an approver see values and reasons, not 
     expect(upload.status()).toBe(201);
     const importId = ((await upload.json()) as { import: { id: string } }).import.id;
     expect((await api.post(`${server.url}/api/imports/${importId}/start`, { headers: CSRF, data: { mapping: US_MAPPING } })).status()).toBe(202);
-    let status = '';
-    for (let tries = 0; tries < 120 && status !== 'complete'; tries++) {
-      status = ((await (await api.get(`${server.url}/api/imports/${importId}`)).json()) as { status: string }).status;
-      if (status !== 'complete') await new Promise((r) => setTimeout(r, 500));
+    let found = { status: '', message: null as string | null };
+    for (let tries = 0; tries < 120 && !['complete', 'failed', 'rejected'].includes(found.status); tries++) {
+      found = (await (await api.get(`${server.url}/api/imports/${importId}`)).json()) as typeof found;
+      if (found.status !== 'complete') await new Promise((r) => setTimeout(r, 500));
     }
-    expect(status, 'the import finishes').toBe('complete');
+    expect(found.status, `the import finishes (${found.message ?? 'no message'})`).toBe('complete');
     const event = await api.post(`${server.url}/api/units/${unitId}/events`, {
       headers: CSRF,
       data: { kind: 'cleaning', startDate: '2025-06-03', methodId: 'hp-water-lancing', cost: 48_200, cleanlinessBefore: 0.71, cleanlinessAfter: 0.92 },
