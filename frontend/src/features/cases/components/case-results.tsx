@@ -82,6 +82,7 @@ export function CaseResults({ results, inputs, currency, uncertaintyUpdating, pr
             caption="Cleanings of the recommended schedule"
             head={
               <>
+                <th className={th}>#</th>
                 <th className={th}>Dates</th>
                 <th className={th}>Method</th>
                 <th className={`${th} text-right`}>Cleaning</th>
@@ -90,8 +91,9 @@ export function CaseResults({ results, inputs, currency, uncertaintyUpdating, pr
               </>
             }
           >
-            {results.cleanings.map((c) => (
+            {results.cleanings.map((c, i) => (
               <tr key={c.date} className={tr}>
+                <td className={`${td} tabular-nums text-ink-soft`}>{i + 1}</td>
                 <td className={`${td} whitespace-nowrap`}>
                   {formatDay(c.date)}
                   {c.endDate !== c.date && ` – ${formatDay(c.endDate)}`}

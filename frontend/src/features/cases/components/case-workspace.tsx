@@ -31,7 +31,7 @@ export function CaseWorkspace({ organisationId, view, system, me, narrow }: Prop
   const [draft, setDraft] = useState<CalcScheduleInput | null>(null);
   // a new key remounts the fields, so after a save or a discard they show the stored values again
   const [fieldsKey, setFieldsKey] = useState(0);
-  const whatIf = useWhatIf(draft);
+  const whatIf = useWhatIf(draft, view.actions.edit ? view.inputs : null);
   const update = useUpdateCase(organisationId, view.id);
   // while the uncertainty of the newest edit is computed, the last one computed stays on screen, faded
   const previousUncertainty: Uncertainty | null = draft && !draft.uncertainty ? null : (whatIf.full ?? view.results);
@@ -52,7 +52,12 @@ export function CaseWorkspace({ organisationId, view, system, me, narrow }: Prop
           data-testid="case-unsaved"
         >
           <span className="font-medium text-ledger-700">Unsaved changes</span>
-          <span className="text-xs text-ink-soft" data-testid="case-what-if-timing" data-ms={whatIf.figuresMs === null ? '' : whatIf.figuresMs.toFixed(0)}>
+          <span
+            className="text-xs text-ink-soft"
+            data-testid="case-what-if-timing"
+            data-ms={whatIf.figuresMs === null ? '' : whatIf.figuresMs.toFixed(0)}
+            data-compute-ms={whatIf.figuresComputeMs === null ? '' : whatIf.figuresComputeMs.toFixed(0)}
+          >
             {whatIf.computingFigures ? 'computing here…' : whatIf.figuresMs !== null ? `figures computed here in ${formatNumber(whatIf.figuresMs)} ms` : ''}
             {whatIf.computingUncertainty
               ? ' · uncertainty updating…'

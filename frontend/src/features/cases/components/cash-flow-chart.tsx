@@ -1,7 +1,7 @@
 import { ResponsiveBar } from '@nivo/bar';
 import type { CalcScheduleOutput } from '@shared/schemas/calc-schedule';
 import { CHART_COLOURS, CHART_THEME } from '@frontend/lib/chart-palette';
-import { formatCurrency } from '@frontend/lib/format';
+import { compactMoney } from './compact-money';
 
 type Row = { year: string; savings: number; costs: number };
 
@@ -21,9 +21,9 @@ export default function CashFlowChart({ businessCase, currency }: { businessCase
         padding={0.35}
         colors={({ id }) => COLOURS[id as keyof typeof COLOURS]}
         enableLabel={false}
-        valueScale={{ type: 'linear', nice: true }}
+        valueScale={{ type: 'linear', min: 'auto', max: 'auto', nice: true }}
         axisBottom={{ tickSize: 4 }}
-        axisLeft={{ tickSize: 4, tickValues: 5, format: (v: number) => formatCurrency(v, currency) }}
+        axisLeft={{ tickSize: 4, tickValues: 5, format: (v: number) => compactMoney(v, currency) }}
         markers={[{ axis: 'y', value: 0, lineStyle: { stroke: '#1d1f23', strokeWidth: 1 } }]}
         isInteractive={false}
         animate={false}

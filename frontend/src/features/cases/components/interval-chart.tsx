@@ -1,6 +1,6 @@
 import { ResponsiveLine, type LineCustomSvgLayerProps, type LineSvgLayer } from '@nivo/line';
 import { CHART_COLOURS, CHART_THEME } from '@frontend/lib/chart-palette';
-import { formatCurrency } from '@frontend/lib/format';
+import { compactMoney } from './compact-money';
 import type { IntervalCurve } from './interval-curve';
 
 type Series = { id: string; data: { x: number; y: number }[] };
@@ -32,7 +32,7 @@ export default function IntervalChart({ curve, currency }: { curve: Extract<Inte
         axisLeft={{
           tickValues: 5,
           tickSize: 4,
-          format: (v: number) => formatCurrency(v, currency),
+          format: (v: number) => compactMoney(v, currency),
           legend: 'Cost per day',
           legendOffset: -62,
           legendPosition: 'middle',

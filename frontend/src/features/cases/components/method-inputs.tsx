@@ -85,7 +85,12 @@ export function MethodInputs(props: InputGroupProps) {
                   />
                 </div>
               )}
-              {on && <SafetyCautions texts={cautionsFor(method)} />}
+              {on && (
+                <details className="text-xs print:open">
+                  <summary className="cursor-pointer text-warn">Safety cautions for this method ({cautionsFor(method).length})</summary>
+                  <SafetyCautions texts={cautionsFor(method)} className="mt-1" />
+                </details>
+              )}
             </li>
           );
         })}

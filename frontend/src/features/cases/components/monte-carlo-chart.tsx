@@ -1,18 +1,16 @@
 import { ResponsiveBar, type BarCustomLayerProps } from '@nivo/bar';
 import type { CalcScheduleOutput } from '@shared/schemas/calc-schedule';
 import { CHART_COLOURS, CHART_THEME } from '@frontend/lib/chart-palette';
-import { formatCurrency } from '@frontend/lib/format';
+import { compactMoney } from './compact-money';
 
 type MonteCarlo = NonNullable<CalcScheduleOutput['monteCarlo']>;
 type Row = { bin: string; trials: number };
-
-const compact = (v: number, currency: string) => formatCurrency(Math.abs(v) >= 1e6 ? Math.round(v / 1e5) * 1e5 : Math.round(v / 1e3) * 1e3, currency);
 
 /** The Monte Carlo NPVs as a histogram, with P10, P50 and P90 marked where they fall. */
 export default function MonteCarloChart({ monteCarlo, currency }: { monteCarlo: MonteCarlo; currency: string }) {
   const bins = monteCarlo.histogram;
   const rows: Row[] = bins.map((b, i) => ({ bin: String(i), trials: b.count }));
-  const every = Math.max(1, Math.ceil(bins.length / 6));
+  const every = Math.max(1, Math.ceil(bins.length / 4));
   const Markers = ({ xScale, innerHeight }: BarCustomLayerProps<Row>) => {
     const band = (xScale as unknown as { bandwidth: () => number; step: () => number }).step?.() ?? 0;
     const x0 = xScale('0' as never) as number;
@@ -51,7 +49,7 @@ export default function MonteCarloChart({ monteCarlo, currency }: { monteCarlo: 
         axisBottom={{
           tickSize: 4,
           tickValues: rows.filter((_, i) => i % every === 0).map((r) => r.bin),
-          format: (v: string) => compact(bins[Number(v)]?.from ?? 0, currency),
+          format: (v: string) => compactMoney(bins[Number(v)]?.from ?? 0, currency),
           legend: 'NPV',
           legendOffset: 32,
           legendPosition: 'middle',

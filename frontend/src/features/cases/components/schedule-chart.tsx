@@ -13,7 +13,7 @@ const CLEANING_SHADE = 'rgba(184, 102, 28, 0.35)';
 
 /**
  * The recommended schedule on the horizon's timeline: cleanliness day by day along the schedule, planned
- * outages shaded grey, each cleaning a warm block from its first to its last day with the method named.
+ * outages shaded grey, each cleaning a warm block from its first to its last day, numbered as in the table.
  */
 export default function ScheduleChart({
   results,
@@ -50,8 +50,8 @@ export default function ScheduleChart({
           return (
             <g key={`c-${c.date}`}>
               <rect {...b} y={0} height={innerHeight} fill={CLEANING_SHADE} />
-              <text x={b.x + 3} y={12 + (i % 2) * 12} fontSize={10} fill={CHART_COLOURS.cleaning}>
-                {c.methodName}
+              <text x={b.x + b.width / 2} y={-6} textAnchor="middle" fontSize={10} fontWeight={600} fill={CHART_COLOURS.cleaning}>
+                {i + 1}
               </text>
             </g>
           );

@@ -1,7 +1,7 @@
 import { ResponsiveBar } from '@nivo/bar';
 import type { CalcScheduleOutput } from '@shared/schemas/calc-schedule';
 import { CHART_COLOURS, CHART_THEME } from '@frontend/lib/chart-palette';
-import { formatCurrency } from '@frontend/lib/format';
+import { compactMoney } from './compact-money';
 
 export const UNCERTAIN_LABELS: Record<NonNullable<CalcScheduleOutput['sensitivity']>['bars'][number]['input'], string> = {
   foulingRate: 'Fouling rate',
@@ -19,6 +19,8 @@ export default function SensitivityChart({ sensitivity, currency }: { sensitivit
   const rows: Row[] = [...sensitivity.bars]
     .sort((a, b) => a.swing - b.swing)
     .map((b) => ({ input: UNCERTAIN_LABELS[b.input], low: b.npvAtLow - sensitivity.baseNpv, high: b.npvAtHigh - sensitivity.baseNpv }));
+  // symmetric about the base NPV, so a bar's length reads the same either side
+  const reach = Math.max(1, ...rows.flatMap((r) => [Math.abs(r.low), Math.abs(r.high)])) * 1.05;
   return (
     <div className="h-56 w-full print:h-48" role="img" aria-label="Change of the NPV from its base for each input at its low and high">
       <ResponsiveBar<Row>
@@ -31,11 +33,11 @@ export default function SensitivityChart({ sensitivity, currency }: { sensitivit
         padding={0.3}
         colors={({ id }) => (id === 'low' ? CHART_COLOURS.reference : CHART_COLOURS.fitted)}
         enableLabel={false}
-        valueScale={{ type: 'linear', nice: true }}
+        valueScale={{ type: 'linear', min: -reach, max: reach }}
         axisBottom={{
           tickSize: 4,
           tickValues: 5,
-          format: (v: number) => formatCurrency(v, currency),
+          format: (v: number) => compactMoney(v, currency),
           legend: 'Change of NPV from its base',
           legendOffset: 30,
           legendPosition: 'middle',
