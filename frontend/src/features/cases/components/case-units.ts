@@ -32,6 +32,8 @@ export function caseUnits(system: UnitSystem, currency: string) {
     perDay: fixed('per day', 5),
     factor: fixed('×', 2),
     count: fixed('', 0),
+    /** the fouling index and the models' coefficients: small numbers without a unit */
+    index: fixed('', 4),
   } satisfies Record<string, DisplayUnit>;
 }
 

@@ -97,7 +97,8 @@ export function CaseWorkspace({ organisationId, view, system, me, narrow }: Prop
             change={(edit) => setDraft((d) => edit(d ?? view.inputs))}
           />
         </section>
-        <section aria-label="Results" className="flex flex-col gap-2">
+        {/* on a narrow screen the figures come first: most readers decide from them */}
+        <section aria-label="Results" className="order-first flex flex-col gap-2 lg:order-none">
           <h2 className="text-base font-semibold">Results {draft && <span className="text-xs font-normal text-ledger-700">for the unsaved changes</span>}</h2>
           <CaseResults
             results={shown}

@@ -34,7 +34,7 @@ export function FoulingInputs(props: InputGroupProps) {
           <>
             <CaseNumberField
               label="Ceiling of the index"
-              unit={units.count}
+              unit={units.index}
               value={f.maxIndex}
               min={0}
               editable={editable}
@@ -55,7 +55,7 @@ export function FoulingInputs(props: InputGroupProps) {
           <>
             <CaseNumberField
               label="Coefficient"
-              unit={units.count}
+              unit={units.index}
               value={f.coefficient}
               min={0}
               editable={editable}
@@ -63,7 +63,7 @@ export function FoulingInputs(props: InputGroupProps) {
             />
             <CaseNumberField
               label="Exponent"
-              unit={units.count}
+              unit={units.index}
               value={f.exponent}
               min={0}
               minExclusive
