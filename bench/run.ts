@@ -1,8 +1,10 @@
 /**
  * `npm run bench`: runs every bench/cases/*.ts (each default-exports an async function returning rows)
  * and prints one table. Targets are printed beside the figures; the script exits 1 if a target is missed.
+ * The rows go to bench/results.json as `[{name, value, unit, target}]`. `npm run bench -- import` runs only
+ * the cases whose file name starts with one of the given words; rows of the cases not run stay in the file.
  */
-import { readdirSync } from 'node:fs';
+import { existsSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 
 export interface BenchRow {
@@ -14,11 +16,17 @@ export interface BenchRow {
 }
 
 const dir = path.join(import.meta.dirname, 'cases');
+const only = process.argv.slice(2);
 const rows: BenchRow[] = [];
-for (const file of readdirSync(dir).filter((f) => f.endsWith('.ts')).sort()) {
+for (const file of readdirSync(dir).filter((f) => f.endsWith('.ts') && (only.length === 0 || only.some((w) => f.startsWith(w)))).sort()) {
   const mod = await import(path.join(dir, file));
   rows.push(...((await mod.default()) as BenchRow[]));
 }
+const resultsFile = path.join(import.meta.dirname, 'results.json');
+const earlier: BenchRow[] = only.length && existsSync(resultsFile) ? JSON.parse(readFileSync(resultsFile, 'utf8')) : [];
+const ran = new Set(rows.map((r) => r.name));
+const results = [...earlier.filter((r) => !ran.has(r.name)), ...rows].map((r) => ({ name: r.name, value: r.value, unit: r.unit, target: r.target ?? null }));
+writeFileSync(resultsFile, `${JSON.stringify(results, null, 2)}\n`);
 let missed = 0;
 const fmt = (v: number) => (Math.abs(v) >= 1000 ? Math.round(v).toLocaleString('en-US') : v.toPrecision(4));
 console.log(['benchmark'.padEnd(72), 'result'.padStart(16), 'unit'.padEnd(14), 'target'.padStart(16), 'ok'].join('  '));
