@@ -1,8 +1,8 @@
 import { Link, NavLink, Outlet, useLocation, useNavigate, useNavigation } from 'react-router-dom';
-import { Button } from '@frontend/components/ui/button';
 import { useSession } from '@frontend/features/session/api/get-session';
 import { useSignOut } from '@frontend/features/session/api/sign-out';
 import { OrganisationSwitcher } from '@frontend/features/session/components/organisation-switcher';
+import { PersonMenu } from '../components/person-menu';
 
 const navClass = ({ isActive }: { isActive: boolean }) =>
   `rounded px-2.5 py-1 text-sm ${isActive ? 'bg-tube-50 text-tube-700 font-medium' : 'text-ink-soft hover:text-ink'}`;
@@ -34,20 +34,10 @@ export function AppLayout() {
             <NavLink to="/settings" className={navClass}>
               Settings
             </NavLink>
-            {session?.devMailbox && (
-              <NavLink to="/mailbox" className={navClass}>
-                Mailbox
-              </NavLink>
-            )}
           </nav>
           <div className="ml-auto flex items-center gap-3 text-sm">
             {session?.user && <OrganisationSwitcher session={session} onSwitched={() => navigate('/')} />}
-            <Link to="/settings/profile" className="hidden text-ink-soft hover:text-ink sm:inline" title="Your profile">
-              {session?.user?.name}
-            </Link>
-            <Button variant="quiet" onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in') })}>
-              Sign out
-            </Button>
+            {session?.user && <PersonMenu session={session} onSignOut={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in') })} />}
           </div>
         </div>
         <div className={`h-0.5 ${navigation.state === 'loading' ? 'animate-pulse bg-tube-500' : 'bg-transparent'}`} role="presentation" />
