@@ -43,10 +43,10 @@ export const CHART_THEME = {
 const TICK_STEPS = [
   { days: 7, tickValues: 'every 7 days', format: '%-d %b' },
   { days: 14, tickValues: 'every 14 days', format: '%-d %b' },
-  { days: 30.4, tickValues: 'every month', format: '%b %y' },
-  { days: 61, tickValues: 'every 2 months', format: '%b %y' },
-  { days: 91, tickValues: 'every 3 months', format: '%b %y' },
-  { days: 182, tickValues: 'every 6 months', format: '%b %y' },
+  { days: 30.4, tickValues: 'every month', format: '%b %Y' },
+  { days: 61, tickValues: 'every 2 months', format: '%b %Y' },
+  { days: 91, tickValues: 'every 3 months', format: '%b %Y' },
+  { days: 182, tickValues: 'every 6 months', format: '%b %Y' },
   { days: 365, tickValues: 'every year', format: '%Y' },
 ] as const;
 

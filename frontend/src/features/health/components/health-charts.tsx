@@ -3,7 +3,7 @@ import { useMemo } from 'react';
 import { BREAKDOWN_CAUSES } from '@shared/schemas/health';
 import { CAUSE_STYLES, CHART_COLOURS, CHART_THEME } from '@frontend/lib/chart-palette';
 import { formatStored, type FieldUnits } from '@frontend/lib/field-units';
-import { formatCurrency, formatDay, formatNumber } from '@frontend/lib/format';
+import { formatCurrency, formatDay, formatMonth, formatNumber } from '@frontend/lib/format';
 import type { UnitHealth } from '../api/get-health';
 import { ChartFrame, TooltipBox, type LegendItem } from './chart-frame';
 import TimeChart, { type TimeSeriesSpec } from './time-chart';
@@ -179,7 +179,7 @@ function DeviationChart({ health, units, narrow }: { health: UnitHealth; units: 
     [health.breakdown, dp],
   );
   const label = (period: string) =>
-    byWeek ? shortDay(period) : new Intl.DateTimeFormat('en-US', { month: 'short', year: '2-digit', timeZone: 'UTC' }).format(new Date(`${period}-01T00:00:00Z`));
+    byWeek ? shortDay(period) : formatMonth(period);
   const every = Math.max(1, Math.ceil(rows.length / (narrow ? 5 : 10)));
   const offset = health.design?.modelOffsetKpa ?? null;
   const Tip = ({ indexValue, data }: BarTooltipProps<BarRow>) => {

@@ -3,9 +3,10 @@ import { plantDayOf } from '@shared/domain/calendar/plant-day';
 import type { HealthPeriodQuery } from '../api/get-health';
 
 export const PERIOD_CHOICES = [
-  { value: '30d', label: 'Last 30 days', days: 30 },
-  { value: '90d', label: 'Last 90 days', days: 90 },
-  { value: '1y', label: 'Last year', days: 365 },
+  // counted back from the last day of data, which may be months ago: the names say so
+  { value: '30d', label: 'Last 30 days of data', days: 30 },
+  { value: '90d', label: 'Last 90 days of data', days: 90 },
+  { value: '1y', label: 'Last 365 days of data', days: 365 },
   { value: 'all', label: 'All data', days: null },
   { value: 'custom', label: 'From – to', days: null },
 ] as const;

@@ -87,7 +87,7 @@ export function HealthView({ organisationId, unit, units, cannotWrite, progress,
         <PeriodPicker selection={selection} shown={h.period} onChange={choose} />
         <div className="flex flex-wrap items-center justify-between gap-2">
           <ExportButtons unitId={unit.id} from={h.period.from} to={h.period.to} />
-          {h.analysedAt && <p className="text-2xs text-ink-faint">Figures computed {formatDateTime(h.analysedAt)}</p>}
+          {h.analysedAt && <p className="text-2xs text-ink-faint" data-testid="figures-computed">Figures computed {formatDateTime(h.analysedAt)}</p>}
         </div>
       </div>
 

@@ -33,8 +33,8 @@ export function PeriodPicker({ selection, shown, onChange }: Props) {
     <div className="flex flex-col gap-2 rounded border border-rule bg-paper-raised px-3 py-2" data-testid="period-picker">
       <div className="flex flex-wrap items-center gap-x-4 gap-y-2">
         <div className="flex items-center gap-2">
-          <span className="text-xs font-medium uppercase tracking-wide text-ink-soft" id="period-label">
-            Period
+          <span className="text-sm font-medium text-ink-soft" id="period-label">
+            Days of data
           </span>
           <span className="hidden text-sm print:inline">{PERIOD_CHOICES.find((c) => c.value === selection.choice)?.label}</span>
           <div role="group" aria-labelledby="period-label" className="no-print inline-flex overflow-hidden rounded border border-rule">
@@ -55,7 +55,7 @@ export function PeriodPicker({ selection, shown, onChange }: Props) {
           </div>
         </div>
         <div className="flex items-center gap-2">
-          <span className="text-xs font-medium uppercase tracking-wide text-ink-soft" id="breakdown-label">
+          <span className="text-sm font-medium text-ink-soft" id="breakdown-label">
             Breakdown by
           </span>
           <span className="hidden text-sm print:inline">{selection.breakdownBy === 'week' ? 'Week' : 'Month'}</span>
@@ -79,8 +79,9 @@ export function PeriodPicker({ selection, shown, onChange }: Props) {
       </div>
       {custom && (
         <form onSubmit={apply} className="no-print flex flex-wrap items-end gap-3" aria-label="Custom period">
-          <TextField label="From" type="date" value={from} onChange={(e) => setFrom(e.target.value)} />
-          <TextField label="To" type="date" value={to} onChange={(e) => setTo(e.target.value)} error={error ?? undefined} />
+          {/* the browser writes a date field in its own way; the hint reads it back as every date on the page reads */}
+          <TextField label="From" type="date" value={from} onChange={(e) => setFrom(e.target.value)} hint={from ? formatDay(from) : undefined} />
+          <TextField label="To" type="date" value={to} onChange={(e) => setTo(e.target.value)} error={error ?? undefined} hint={to ? formatDay(to) : undefined} />
           <Button type="submit" variant="quiet">
             Show period
           </Button>
