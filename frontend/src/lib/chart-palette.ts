@@ -2,16 +2,21 @@
  * What each colour means on every chart, defined once. The cool accent ("tube") is the measured
  * condenser, the warm accent ("ledger") is money, grey dashes are what a condenser at the reference
  * cleanliness would do, plum is air in-leakage (and the unexplained part it usually is), ink is a
- * cleaning. Every stroke and bar colour has at least 3:1 contrast on paper (WCAG 2.2, 1.4.11).
+ * cleaning. Fouling is rust, set apart from the cooling water's blues, and its excess backpressure is
+ * shaded in the same rust. Every stroke and bar colour has at least 3:1 contrast on paper (WCAG 2.2, 1.4.11).
  */
 export const CHART_COLOURS = {
   measured: '#2f7a99',
   fitted: '#1a4f66',
   forecast: '#1a4f66',
-  forecastBand: '#d6e7ee',
+  forecastBand: 'rgba(26, 79, 102, 0.22)',
   reference: '#6b6f78',
   expected: '#4a4e57',
   cost: '#b8661c',
+  /** actual backpressure above expected (the excess), and below it */
+  excessFill: 'rgba(178, 58, 22, 0.42)',
+  shortfallFill: 'rgba(47, 122, 153, 0.28)',
+  excessEdge: '#8a3a1c',
   cleaning: '#1d1f23',
   airLeak: '#7b4f9e',
   airLeakShade: 'rgba(123, 79, 158, 0.13)',
@@ -19,11 +24,11 @@ export const CHART_COLOURS = {
 
 /** The deviation breakdown's causes, in the calculation's fixed order, each with its colour and words. */
 export const CAUSE_STYLES = {
-  cwInletKpa: { label: 'CW inlet temperature', colour: '#55606e' },
-  cwFlowKpa: { label: 'CW flow', colour: '#7f8b99' },
+  cwInletKpa: { label: 'CW inlet temperature', colour: '#2f5f80' },
+  cwFlowKpa: { label: 'CW flow', colour: '#6b93ae' },
   loadKpa: { label: 'Load and duty', colour: '#6b7a3a' },
-  pluggingKpa: { label: 'Plugged tubes', colour: '#8f6a3e' },
-  foulingKpa: { label: 'Fouling (recoverable by cleaning)', colour: '#22647f' },
+  pluggingKpa: { label: 'Plugged tubes', colour: '#5c5f66' },
+  foulingKpa: { label: 'Fouling (recoverable by cleaning)', colour: '#b23a16' },
   unexplainedKpa: { label: 'Unexplained (air in-leakage, instruments)', colour: '#7b4f9e' },
 } as const;
 

@@ -1,6 +1,7 @@
 import { ResponsiveBar, type BarTooltipProps } from '@nivo/bar';
 import { useMemo } from 'react';
 import { BREAKDOWN_CAUSES } from '@shared/schemas/health';
+import { costCycles } from '@frontend/lib/chart-cycles';
 import { CAUSE_STYLES, CHART_COLOURS, CHART_THEME } from '@frontend/lib/chart-palette';
 import { formatStored, type FieldUnits } from '@frontend/lib/field-units';
 import { formatCurrency, formatDay, formatMonth, formatNumber } from '@frontend/lib/format';
@@ -93,23 +94,24 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
       <ChartFrame
         testId="chart-backpressure"
         points={health.series.length}
-        title="Backpressure: actual against expected"
-        subtitle={`Daily means. Expected is what the condenser would hold at the reference cleanliness${ref === null ? '' : ` (${formatNumber(ref * 100, 0)} %)`} with the same CW and load; the gap is the excess.`}
+        title="Backpressure above what a clean condenser would hold"
+        subtitle={`Daily means. The line is what the condenser would hold at the reference cleanliness${ref === null ? '' : ` (${formatNumber(ref * 100, 0)} %)`} with the same CW and load; the shading is how far the actual backpressure sits above it (fouling and any unexplained part) or below it.`}
         legend={[
-          { label: 'Actual', colour: CHART_COLOURS.measured, mark: 'line' },
-          { label: 'Expected at reference cleanliness', colour: CHART_COLOURS.expected, mark: 'dash' },
+          { label: 'Expected at reference cleanliness', colour: CHART_COLOURS.expected, mark: 'line' },
+          { label: 'Actual above expected (excess)', colour: CHART_COLOURS.excessFill, mark: 'shade' },
+          { label: 'Actual below expected', colour: CHART_COLOURS.shortfallFill, mark: 'shade' },
           ...common,
         ]}
       >
         <TimeChart
           series={[
-            { id: 'actual', label: 'Actual', colour: CHART_COLOURS.measured, style: 'line', width: 1.75, values: health.series.map((d) => ({ day: d.day, y: d.backpressureKpa === null ? null : p.fromSi(d.backpressureKpa) })) },
+            { id: 'actual', label: 'Actual', colour: CHART_COLOURS.excessEdge, style: 'line', width: 0.75, values: health.series.map((d) => ({ day: d.day, y: d.backpressureKpa === null ? null : p.fromSi(d.backpressureKpa) })) },
             {
               id: 'expected',
               label: 'Expected',
               colour: CHART_COLOURS.expected,
-              style: 'dash',
-              width: 1.5,
+              style: 'line',
+              width: 1.75,
               values: health.series.map((d) => ({ day: d.day, y: d.expectedBackpressureKpa === null ? null : p.fromSi(d.expectedBackpressureKpa) })),
             },
           ]}
@@ -121,40 +123,85 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
           yTick={(v) => formatNumber(v, p.decimals - 1)}
           yValue={(v) => `${formatNumber(v, p.decimals)} ${p.label}`}
           ariaLabel="Actual and expected backpressure by day"
+          gap={{ upper: 'actual', lower: 'expected', aboveFill: CHART_COLOURS.excessFill, belowFill: CHART_COLOURS.shortfallFill }}
           narrow={narrow}
         />
       </ChartFrame>
 
       <DeviationChart health={health} units={units} narrow={narrow} />
 
-      <ChartFrame
-        testId="chart-cost"
-        points={health.series.length}
-        title="Fouling cost, running total over the period"
-        subtitle="Extra fuel and replacement power because the tubes are dirtier than the reference. Cleanings are marked; the total does not reset."
-        legend={[{ label: `Cumulative fouling cost (${currency})`, colour: CHART_COLOURS.cost, mark: 'line' }, ...common]}
-        note={
-          <>
-            Over the period: <span className="font-medium text-ledger-700">{formatCurrency(health.series.at(-1)?.cumulativeFoulingCost ?? 0, currency)}</span>; the unexplained part (
-            {formatCurrency(health.series.reduce((a, d) => a + (d.unexplainedCost ?? 0), 0), currency)}) is not included.
-          </>
-        }
-      >
-        <TimeChart
-          series={[{ id: 'cost', label: 'Cumulative fouling cost', colour: CHART_COLOURS.cost, style: 'line', width: 2.5, values: health.series.map((d) => ({ day: d.day, y: d.cumulativeFoulingCost })) }]}
-          shades={shades}
-          cleanings={cleanings}
-          from={from}
-          to={lastDataDay}
-          yFromZero
-          yLegend={`Cost (${currency})`}
-          yTick={(v) => compactMoney(v, currency)}
-          yValue={(v) => formatCurrency(v, currency)}
-          ariaLabel="Cumulative fouling cost by day"
-          narrow={narrow}
-        />
-      </ChartFrame>
+      <CostChart health={health} currency={currency} cleanings={cleanings} common={common} shades={shades} from={from} to={lastDataDay} narrow={narrow} />
     </div>
+  );
+}
+
+/** The fouling cost run up in each cleaning cycle: the running cost restarts at every cleaning, each cycle labelled with its total. */
+function CostChart({
+  health,
+  currency,
+  cleanings,
+  common,
+  shades,
+  from,
+  to,
+  narrow,
+}: {
+  health: UnitHealth;
+  currency: string;
+  cleanings: { day: string; label: string }[];
+  common: LegendItem[];
+  shades: UnitHealth['airLeakPeriods'];
+  from: string;
+  to: string;
+  narrow: boolean;
+}) {
+  const cycles = useMemo(() => costCycles(health.series, cleanings.map((c) => c.day)), [health.series, cleanings]);
+  const total = cycles.reduce((a, c) => a + c.cost, 0);
+  const money = (v: number) => formatCurrency(v, currency);
+  const series: TimeSeriesSpec[] = cycles.map((c, i) => ({
+    id: `cycle-${i}`,
+    label: c.startsAtCleaning ? `Since the cleaning on ${formatDay(c.from)}` : `Since ${formatDay(c.from)} (start of the period)`,
+    colour: CHART_COLOURS.cost,
+    style: 'line',
+    width: 2.5,
+    values: c.running,
+  }));
+  return (
+    <ChartFrame
+      testId="chart-cost"
+      points={health.series.length}
+      title="Fouling cost, cleaning cycle by cycle"
+      subtitle="Extra fuel and replacement power because the tubes are dirtier than the reference. The running cost starts again at each cleaning; each cycle is labelled with what it cost in this period."
+      legend={[{ label: `Fouling cost since the last cleaning (${currency})`, colour: CHART_COLOURS.cost, mark: 'line' }, ...common]}
+      note={
+        <>
+          <span data-testid="cost-cycles">
+            {cycles.map((c, i) => (
+              <span key={c.from} className="whitespace-nowrap">
+                {i > 0 && ' · '}
+                {formatDay(c.from)} – {formatDay(c.to)}: <span className="font-medium text-ledger-700">{money(c.cost)}</span>
+              </span>
+            ))}
+          </span>
+          . Whole period: <span className="font-medium text-ledger-700">{money(total)}</span>; the unexplained part ({money(health.series.reduce((a, d) => a + (d.unexplainedCost ?? 0), 0))}) is not included.
+        </>
+      }
+    >
+      <TimeChart
+        series={series}
+        shades={shades}
+        cleanings={cleanings}
+        from={from}
+        to={to}
+        yFromZero
+        yLegend={`Cost (${currency})`}
+        yTick={(v) => compactMoney(v, currency)}
+        yValue={(v) => money(v)}
+        ariaLabel="Fouling cost since the last cleaning, by day, restarting at each cleaning"
+        narrow={narrow}
+        annotations={cycles.filter((c) => c.running.length > 0).map((c) => ({ day: c.to, y: c.cost, label: compactMoney(c.cost, currency) }))}
+      />
+    </ChartFrame>
   );
 }
 

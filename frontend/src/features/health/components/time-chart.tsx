@@ -1,6 +1,7 @@
 import { ResponsiveLine, type LineCustomSvgLayerProps, type LineSvgLayer, type SliceTooltipProps } from '@nivo/line';
 import { useMemo } from 'react';
 import { addDays, daysBetween } from '@shared/domain/calendar/plant-date';
+import { gapShapes } from '@frontend/lib/chart-cycles';
 import { CHART_COLOURS, CHART_THEME, dayToDate, timeTicks } from '@frontend/lib/chart-palette';
 import { formatDay } from '@frontend/lib/format';
 import { TooltipBox } from './chart-frame';
@@ -35,6 +36,10 @@ export interface TimeChartProps {
   yFromZero?: boolean;
   ariaLabel: string;
   narrow?: boolean;
+  /** shade the area between two series (by id): where `upper` is above `lower`, and where below */
+  gap?: { upper: string; lower: string; aboveFill: string; belowFill: string };
+  /** short labels at points (each cleaning cycle's cost at its end) */
+  annotations?: { day: string; y: number; label: string }[];
 }
 
 type Datum = { x: Date; y: number | null };
@@ -45,7 +50,7 @@ const nextDay = (day: string) => dayToDate(addDays(day, 1));
 
 /** A daily time chart in the view's shared language: styled lines, band, shaded periods, cleaning markers. */
 export default function TimeChart(props: TimeChartProps) {
-  const { series, band = [], shades = [], cleanings = [], reference, from, to, yLegend, yTick, yValue, yFromZero, ariaLabel, narrow } = props;
+  const { series, band = [], shades = [], cleanings = [], reference, from, to, yLegend, yTick, yValue, yFromZero, ariaLabel, narrow, gap, annotations = [] } = props;
   const spanDays = Math.max(1, daysBetween(from, to));
   const ticks = timeTicks(spanDays, narrow ? 4 : 8);
 
@@ -78,8 +83,31 @@ export default function TimeChart(props: TimeChartProps) {
       if (band.length < 2) return null;
       const top = band.map((b) => `${xScale(dayToDate(b.day))},${yScale(b.high)}`);
       const bottom = [...band].reverse().map((b) => `${xScale(dayToDate(b.day))},${yScale(b.low)}`);
-      return <polygon aria-hidden points={[...top, ...bottom].join(' ')} fill={CHART_COLOURS.forecastBand} stroke="none" />;
+      return <polygon aria-hidden points={[...top, ...bottom].join(' ')} fill={CHART_COLOURS.forecastBand} stroke={CHART_COLOURS.forecast} strokeWidth={1} strokeDasharray="3 3" />;
     };
+    const Gap = ({ xScale, yScale }: LayerProps) => {
+      if (!gap) return null;
+      const upper = styleOf.get(gap.upper)?.values ?? [];
+      const lower = new Map((styleOf.get(gap.lower)?.values ?? []).map((v) => [v.day, v.y]));
+      const shapes = gapShapes(upper.map((v) => ({ x: xScale(dayToDate(v.day)), actual: v.y === null ? null : yScale(v.y), expected: lower.get(v.day) == null ? null : yScale(lower.get(v.day)!) })));
+      // in screen coordinates a higher value is a smaller y: "above" on screen is where actual is below expected
+      return (
+        <g aria-hidden>
+          {shapes.map((sh, i) => (
+            <polygon key={i} points={sh.points.map((p) => `${p[0].toFixed(1)},${p[1].toFixed(1)}`).join(' ')} fill={sh.side === 'below' ? gap.aboveFill : gap.belowFill} stroke="none" />
+          ))}
+        </g>
+      );
+    };
+    const Annotations = ({ xScale, yScale }: LayerProps) => (
+      <g aria-hidden>
+        {annotations.map((a) => (
+          <text key={a.day} x={xScale(dayToDate(a.day)) - 3} y={yScale(a.y) - 6} textAnchor="end" fontSize={10.5} fontWeight={600} fill="#1d1f23" paintOrder="stroke" stroke="#fbfaf7" strokeWidth={3}>
+            {a.label}
+          </text>
+        ))}
+      </g>
+    );
     const Lines = ({ series: computed, xScale, yScale }: LayerProps) => (
       <g aria-hidden>
         {/* lines first, measured points on top, so the measurement is never hidden under its own trend */}
@@ -149,8 +177,8 @@ export default function TimeChart(props: TimeChartProps) {
           })}
       </g>
     );
-    return ['grid', Shades, Band, 'axes', Reference, Cleanings, Lines, 'crosshair', 'slices'] as LineSvgLayer<Series>[];
-  }, [series, band, shades, cleanings, reference, from, to]);
+    return ['grid', Shades, Band, Gap, 'axes', Reference, Cleanings, Lines, Annotations, 'crosshair', 'slices'] as LineSvgLayer<Series>[];
+  }, [series, band, shades, cleanings, reference, from, to, gap, annotations]);
 
   const SliceTip = ({ slice }: SliceTooltipProps<Series>) => {
     const day = (slice.points[0]?.data.x as Date | undefined)?.toISOString().slice(0, 10);
