@@ -72,13 +72,14 @@ export async function claimNextJob(ds: DataSource, workerId: string, options: { 
         `SELECT id FROM background_job WHERE unitId = ? AND (${RUNNABLE}) ORDER BY createdAt ASC LIMIT 1`,
         [unitId],
       );
-      if (next.length === 0) continue;
+      const [oldest] = next;
+      if (!oldest) continue;
       const claimed = await em.query(
         `UPDATE background_job SET status = 'running', lockedBy = ?, lockedAt = NOW(3), attempts = attempts + 1 WHERE id = ? AND (${RUNNABLE})`,
-        [workerId, next[0].id],
+        [workerId, oldest.id],
       );
       if (affectedRows(claimed) === 0) continue;
-      return em.getRepository(BackgroundJob).findOneByOrFail({ id: next[0].id });
+      return em.getRepository(BackgroundJob).findOneByOrFail({ id: oldest.id });
     }
     return null;
   });
@@ -100,8 +101,9 @@ async function giveUpExhaustedJobs(ds: DataSource, onGiveUp?: GiveUpHook): Promi
         `SELECT id FROM background_job WHERE status = 'running' AND lockedAt < ${STALE} AND attempts >= ${MAX_ATTEMPTS}
           ORDER BY createdAt ASC LIMIT 1 FOR UPDATE SKIP LOCKED`,
       );
-      if (rows.length === 0) return false;
-      const job = await em.getRepository(BackgroundJob).findOneByOrFail({ id: rows[0].id });
+      const [stale] = rows;
+      if (!stale) return false;
+      const job = await em.getRepository(BackgroundJob).findOneByOrFail({ id: stale.id });
       const lastStep = job.message ? ` (last step: ${job.message})` : '';
       const message = `Stopped after ${job.attempts} attempts that did not finish${lastStep}`.slice(0, 500);
       await em.query(`UPDATE background_job SET status = 'failed', message = ?, finishedAt = ?, lockedBy = NULL WHERE id = ?`, [message, new Date(), job.id]);

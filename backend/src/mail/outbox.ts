@@ -40,9 +40,10 @@ async function claimNext(ds: DataSource, claimant: string): Promise<MailOutbox |
           AND (claimedAt IS NULL OR claimedAt < NOW(3) - INTERVAL ${STALE_CLAIM_MINUTES} MINUTE)
         ORDER BY availableAt ASC LIMIT 1 FOR UPDATE SKIP LOCKED`,
     );
-    if (rows.length === 0) return null;
-    await em.query('UPDATE mail_outbox SET claimedBy = ?, claimedAt = NOW(3), attempts = attempts + 1 WHERE id = ?', [claimant, rows[0].id]);
-    return em.getRepository(MailOutbox).findOneByOrFail({ id: rows[0].id });
+    const [due] = rows;
+    if (!due) return null;
+    await em.query('UPDATE mail_outbox SET claimedBy = ?, claimedAt = NOW(3), attempts = attempts + 1 WHERE id = ?', [claimant, due.id]);
+    return em.getRepository(MailOutbox).findOneByOrFail({ id: due.id });
   });
 }
 
