@@ -262,33 +262,35 @@ function checkedSpanDays(days: number): number {
 
 /** A few non-physical or faulty readings at random operating hours (values stay present). */
 function injectFaults(hours: DemoHour[], rng: DemoRandom): void {
+  // An index from 500 to length − 500 inclusive: always an hour, as a span holds at least 60 × 24 of them.
   const pick = (): number => {
     for (;;) {
       const i = rng.integer(500, hours.length - 500);
-      if (!hours[i].truth.offline && !hours[i].truth.airLeak && hours[i].truth.fault === null) return i;
+      const truth = hours[i]!.truth;
+      if (!truth.offline && !truth.airLeak && truth.fault === null) return i;
     }
   };
   for (let k = 0; k < 4; k++) {
-    const h = hours[pick()];
+    const h = hours[pick()]!;
     h.cwOutletC = h.cwInletC - rng.uniform(0, 0.4);
     h.truth.fault = 'outlet-not-above-inlet';
   }
   for (let k = 0; k < 3; k++) {
-    const h = hours[pick()];
+    const h = hours[pick()]!;
     h.cwOutletC = saturationTemperatureC(h.backpressureKpa) + rng.uniform(0.3, 1.5);
     h.truth.fault = 'outlet-above-saturation';
   }
   for (let k = 0; k < 2; k++) {
-    const h = hours[pick()];
+    const h = hours[pick()]!;
     h.backpressureKpa = rng.uniform(55, 70);
     h.truth.fault = 'pressure-spike';
   }
   const stuckFrom = pick();
-  const stuckValue = hours[stuckFrom].cwOutletC;
-  for (let i = stuckFrom; i < Math.min(hours.length, stuckFrom + 36); i++) {
-    if (hours[i].truth.fault !== null) continue;
-    hours[i].cwOutletC = stuckValue;
-    hours[i].truth.fault = 'stuck-outlet-sensor';
+  const stuckValue = hours[stuckFrom]!.cwOutletC;
+  for (const h of hours.slice(stuckFrom, stuckFrom + 36)) {
+    if (h.truth.fault !== null) continue;
+    h.cwOutletC = stuckValue;
+    h.truth.fault = 'stuck-outlet-sensor';
   }
 }
 
