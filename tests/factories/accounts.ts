@@ -30,7 +30,7 @@ export async function addMember(ds: DataSource, organisationId: string, user: Us
 
 export interface TenantFixture {
   organisation: Organisation;
-  groups: ClientGroup[];
+  groups: [ClientGroup, ClientGroup];
   users: Record<Role, User>;
   memberships: Record<Role, Membership>;
 }
@@ -38,7 +38,7 @@ export interface TenantFixture {
 /** A tenant with two client groups and one unrestricted member for each role. */
 export async function createTenant(ds: DataSource, label = 'tenant'): Promise<TenantFixture> {
   const organisation = await ds.getRepository(Organisation).save({ name: `${label} ${randomBytes(3).toString('hex')}`, kind: 'consultancy', plan: 'trial', subscriptionStatus: 'trialing', trialEndsAt: null });
-  const groups = [
+  const groups: TenantFixture['groups'] = [
     await ds.getRepository(ClientGroup).save({ organisationId: organisation.id, name: 'Group One' }),
     await ds.getRepository(ClientGroup).save({ organisationId: organisation.id, name: 'Group Two' }),
   ];
