@@ -23,7 +23,7 @@ describe('the demo seed', () => {
     expect(await seedDemoIfEmpty(t.dataSource, () => {}, true, { today: '2026-12-02', units: ['saltmarsh-point-1'] })).toBe(true);
     const admin = await signedInAgent(t.app, 'admin@tidewater.example', DEMO_PASSWORD);
     const plants = (await admin.get('/api/plants').expect(200)).body.plants as { name: string; units: { id: string; name: string }[] }[];
-    const unit = plants.find((p) => p.name === 'Saltmarsh Point')!.units[0];
+    const unit = plants.find((p) => p.name === 'Saltmarsh Point')!.units[0]!;
 
     const health = (await admin.get(`/api/units/${unit.id}/health`).expect(200)).body;
     expect(health.headline.asOf).toBe('2026-12-01');

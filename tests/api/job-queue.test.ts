@@ -35,9 +35,11 @@ describe('background jobs with two workers', () => {
   });
 
   const newUnit = async (): Promise<GeneratingUnit> => createUnit(dsA, await createPlant(dsA, tenant.organisation.id));
-  const queue = async (unit: GeneratingUnit, n: number): Promise<BackgroundJob[]> => {
-    const jobs: BackgroundJob[] = [];
-    for (let i = 0; i < n; i++) jobs.push(await enqueueJob(dsA.manager, { organisationId: unit.organisationId, unitId: unit.id, kind: 'recompute', payload: { n: i } }));
+  /** Queues `n` (at least one) jobs of the unit, oldest first. */
+  const queue = async (unit: GeneratingUnit, n: number): Promise<[BackgroundJob, ...BackgroundJob[]]> => {
+    const enqueue = (i: number) => enqueueJob(dsA.manager, { organisationId: unit.organisationId, unitId: unit.id, kind: 'recompute', payload: { n: i } });
+    const jobs: [BackgroundJob, ...BackgroundJob[]] = [await enqueue(0)];
+    for (let i = 1; i < n; i++) jobs.push(await enqueue(i));
     return jobs;
   };
   const jobsOf = (unit: GeneratingUnit) => dsA.getRepository(BackgroundJob).find({ where: { unitId: unit.id }, order: { createdAt: 'ASC' } });
@@ -57,7 +59,7 @@ describe('background jobs with two workers', () => {
       const running = (await jobsOf(busy)).filter((j) => j.status === 'running');
       expect(running).toHaveLength(1);
       // the oldest job of the unit goes first
-      expect(running[0].payload).toEqual({ n: 0 });
+      expect(running[0]?.payload).toEqual({ n: 0 });
     }
   });
 
@@ -92,7 +94,7 @@ describe('background jobs with two workers', () => {
   });
 
   it('two workers draining two units’ queues never run two jobs of one unit at once, and finish them all', async () => {
-    const units = [await newUnit(), await newUnit()];
+    const units: [GeneratingUnit, GeneratingUnit] = [await newUnit(), await newUnit()];
     for (const u of units) await queue(u, 6);
     const runningNow = new Map<string, number>();
     const most = new Map<string, number>();
@@ -112,9 +114,9 @@ describe('background jobs with two workers', () => {
     try {
       const deadline = Date.now() + 30_000;
       for (;;) {
-        const left = await dsA.query(`SELECT COUNT(*) AS n FROM background_job WHERE unitId IN (?, ?) AND status <> 'done'`, [units[0].id, units[1].id]);
-        if (Number(left[0].n) === 0) break;
-        if (Date.now() > deadline) throw new Error(`${left[0].n} jobs still not done`);
+        const [left] = await dsA.query(`SELECT COUNT(*) AS n FROM background_job WHERE unitId IN (?, ?) AND status <> 'done'`, [units[0].id, units[1].id]);
+        if (Number(left.n) === 0) break;
+        if (Date.now() > deadline) throw new Error(`${left.n} jobs still not done`);
         await sleep(20);
       }
     } finally {

@@ -67,10 +67,11 @@ const NO_RISE_HOURS = [50 * H + 8, 50 * H + 20];
 const STUCK_DAY = 45;
 const STUCK_DATE = addDays(FIRST_DAY, STUCK_DAY);
 
+/** The middle value of a day's readings (the callers always pass its 24 hours). */
 function median(xs: number[]): number {
   const s = [...xs].sort((a, b) => a - b);
   const m = s.length >> 1;
-  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
+  return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
 }
 
 function mainHistory(): WitnessRow[] {
@@ -82,13 +83,14 @@ function mainHistory(): WitnessRow[] {
     cleanlinessAt: (h) => foulingCf(h) - (leaking(h) ? LEAK_CF_LOSS : 0),
   });
   const rows = withWitnesses(plain, (h) => (leaking(h) ? LEAK_WITNESSES : tight(h)));
-  for (const h of LOW_LOAD_HOURS) refreshCells(Object.assign(rows[h], { loadMw: 0.3 * TEST_TURBINE.ratingMw, cleanliness: Number.NaN }));
-  for (const h of NO_RISE_HOURS) refreshCells(Object.assign(rows[h], { cwOutletC: rows[h].cwInletC, cleanliness: Number.NaN }));
+  // Every hour changed below lies within the DAYS × 24 hours of the history.
+  for (const h of LOW_LOAD_HOURS) refreshCells(Object.assign(rows[h]!, { loadMw: 0.3 * TEST_TURBINE.ratingMw, cleanliness: Number.NaN }));
+  for (const h of NO_RISE_HOURS) refreshCells(Object.assign(rows[h]!, { cwOutletC: rows[h]!.cwInletC, cleanliness: Number.NaN }));
   // Frozen at the day's median reading: frozen higher, the cool night hours would read as a sudden loss of
   // cleanliness with subcooling (Tsat(p) − hotwell) up, i.e. look like air in-leakage — which the health
   // view's note covers with "check the instruments".
   const frozen = median(rows.slice(STUCK_DAY * H, (STUCK_DAY + 1) * H).map((r) => r.backpressureKpa));
-  for (let h = STUCK_DAY * H; h < (STUCK_DAY + 1) * H; h++) refreshCells(Object.assign(rows[h], { backpressureKpa: frozen }));
+  for (let h = STUCK_DAY * H; h < (STUCK_DAY + 1) * H; h++) refreshCells(Object.assign(rows[h]!, { backpressureKpa: frozen }));
   return rows;
 }
 
@@ -161,6 +163,7 @@ async function readXlsx(body: Buffer): Promise<unknown[][]> {
   const wb = new ExcelJS.Workbook();
   await wb.xlsx.load(body as unknown as ArrayBuffer);
   const ws = wb.worksheets[0];
+  if (!ws) throw new Error('the workbook has no sheet');
   const out: unknown[][] = [];
   ws.eachRow({ includeEmpty: true }, (row) => {
     const values: unknown[] = [];
@@ -458,10 +461,11 @@ describe('condenser health API', () => {
       expect(res.total).toBe(1440);
       expect(res.points).toHaveLength(1440);
       expect(res.columns).toEqual(['backpressureKpa', 'expectedBackpressureKpa']);
-      res.points.forEach((p: { t: string; backpressureKpa: number }, i: number) => {
-        expect(p.t).toBe(new Date(rows[i].timestampUtc).toISOString());
+      rows.slice(0, 1440).forEach((r, i) => {
+        const p: { t: string; backpressureKpa: number } = res.points[i];
+        expect(p.t).toBe(new Date(r.timestampUtc).toISOString());
         // NIST SP 811: 1 inHg = 3.386389 kPa; the file carries 6 decimals of inHg.
-        expect(p.backpressureKpa).toBeCloseTo(rows[i].backpressureKpa, 5);
+        expect(p.backpressureKpa).toBeCloseTo(r.backpressureKpa, 5);
       });
     });
 
@@ -489,10 +493,10 @@ describe('condenser health API', () => {
       const res = (await analyst.get(`/api/units/${longUnit.id}/samples`).query({ from: FIRST_DAY, to: addDays(FIRST_DAY, 89), quantity: 'backpressure' }).expect(200)).body;
       expect(res.total).toBe(hours);
       expect(res.points).toHaveLength(2000);
-      expect(res.points[0].t).toBe(new Date(long[0].timestampUtc).toISOString());
+      expect(res.points[0].t).toBe(new Date(long[0]!.timestampUtc).toISOString());
       expect(res.points.at(-1).t).toBe(new Date(long.at(-1)!.timestampUtc).toISOString());
       // pub: Steinarsson (2013), LTTB keeps the point with the largest triangle in its bucket: an isolated spike.
-      expect(res.points.map((p: { t: string }) => p.t)).toContain(new Date(long[spikeHour].timestampUtc).toISOString());
+      expect(res.points.map((p: { t: string }) => p.t)).toContain(new Date(long[spikeHour]!.timestampUtc).toISOString());
     });
   });
 
@@ -506,7 +510,7 @@ describe('condenser health API', () => {
       const res = await analyst.get(`/api/units/${unit.id}/export`).query({ dataset: 'daily', format: 'csv' }).expect(200);
       expect(res.headers['content-type']).toMatch(/^text\/csv/);
       expect(res.headers['content-disposition']).toMatch(/^attachment; filename=".+-daily\.csv"$/);
-      const [header, ...body] = parseCsv(res.text);
+      const [header = [], ...body] = parseCsv(res.text);
       for (const h of ['Backpressure kPa(a)', 'Expected backpressure at reference cleanliness kPa(a)', 'TTD (median) K', 'CW inlet °C', 'Load MW', 'Heat-rate penalty %', 'Deviation: load and duty kPa', 'Subcooling K', 'Dissolved oxygen ppb', 'Air-removal flow kg/s']) {
         expect(header).toContain(h);
       }
@@ -514,19 +518,19 @@ describe('condenser health API', () => {
       const col = (name: string) => header.indexOf(name);
       body.forEach((r, i) => {
         const d = daily[i];
-        expect(r[col('Day (plant local)')]).toBe(d.day);
+        expect(r[col('Day (plant local)')]).toBe(d?.day);
         // String(number) round-trips a double exactly (ECMAScript Number::toString).
-        expect(Number(r[col('Backpressure kPa(a)')])).toBe(d.meanBackpressureKpa);
-        expect(Number(r[col('Fouling cost USD/day')])).toBe(d.foulingCost);
-        expect(r[col('Air in-leakage suspected')]).toBe(String(Boolean(d.airLeakSuspected)));
+        expect(Number(r[col('Backpressure kPa(a)')])).toBe(d?.meanBackpressureKpa);
+        expect(Number(r[col('Fouling cost USD/day')])).toBe(d?.foulingCost);
+        expect(r[col('Air in-leakage suspected')]).toBe(String(Boolean(d?.airLeakSuspected)));
       });
       // derived (§3): at 88 % load the heat-balance duty is below the full-load design duty, so the load-and-duty part is negative.
       const loadCells = body.map((r) => r[col('Deviation: load and duty kPa')]);
-      expect(loadCells.every((c) => /^-\d/.test(c))).toBe(true);
+      expect(loadCells.every((c) => /^-\d/.test(c ?? ''))).toBe(true);
       // No text here needs neutralising, and numbers are never given the apostrophe.
       expect(body.flat().some((c) => c.startsWith("'"))).toBe(false);
-      expect(body[10][col('Left out by reason')]).toBe('low-load: 3');
-      expect(body[STUCK_DAY][col('Sensors not changing all day')]).toBe('backpressureKpa');
+      expect(body[10]?.[col('Left out by reason')]).toBe('low-load: 3');
+      expect(body[STUCK_DAY]?.[col('Sensors not changing all day')]).toBe('backpressureKpa');
     });
 
     it('writes the same daily rows as XLSX that exceljs opens, numbers as numbers', async () => {
@@ -538,14 +542,14 @@ describe('condenser health API', () => {
       expect(sheet[0]).toEqual(csv[0]);
       sheet.slice(1).forEach((r, i) => {
         r.forEach((v, k) => {
-          const c = csv[i + 1][k];
+          const c = csv[i + 1]?.[k];
           if (typeof v === 'number') expect(v).toBe(Number(c));
           else if (typeof v === 'boolean') expect(String(v)).toBe(c);
           else if (v === null) expect(c).toBe('');
           else expect(v).toBe(c);
         });
       });
-      const bpCol = csv[0].indexOf('Backpressure kPa(a)');
+      const bpCol = csv[0]?.indexOf('Backpressure kPa(a)') ?? -1;
       expect(sheet.slice(1).every((r) => typeof r[bpCol] === 'number')).toBe(true);
     });
 
@@ -571,14 +575,14 @@ describe('condenser health API', () => {
         [planted.id, '2024-06-01', 20, 4, JSON.stringify({ [formula]: 4 }), JSON.stringify(['-2+3', '@SUM(A1)']), -0.5, 0.8],
       );
       const csv = parseCsv((await analyst.get(`/api/units/${planted.id}/export`).query({ dataset: 'daily', format: 'csv' }).expect(200)).text);
-      const col = (name: string) => csv[0].indexOf(name);
-      expect(csv[1][col('Left out by reason')]).toBe(`'${formula}: 4`);
-      expect(csv[1][col('Sensors not changing all day')]).toBe("'-2+3; @SUM(A1)");
-      expect(csv[1][col('Deviation: load and duty kPa')]).toBe('-0.5');
+      const col = (name: string) => csv[0]?.indexOf(name) ?? -1;
+      expect(csv[1]?.[col('Left out by reason')]).toBe(`'${formula}: 4`);
+      expect(csv[1]?.[col('Sensors not changing all day')]).toBe("'-2+3; @SUM(A1)");
+      expect(csv[1]?.[col('Deviation: load and duty kPa')]).toBe('-0.5');
       const xlsx = await readXlsx((await analyst.get(`/api/units/${planted.id}/export`).query({ dataset: 'daily', format: 'xlsx' }).buffer(true).parse(binary).expect(200)).body);
-      expect(xlsx[1][col('Left out by reason')]).toBe(`'${formula}: 4`);
-      expect(xlsx[1][col('Sensors not changing all day')]).toBe("'-2+3; @SUM(A1)");
-      expect(xlsx[1][col('Deviation: load and duty kPa')]).toBe(-0.5);
+      expect(xlsx[1]?.[col('Left out by reason')]).toBe(`'${formula}: 4`);
+      expect(xlsx[1]?.[col('Sensors not changing all day')]).toBe("'-2+3; @SUM(A1)");
+      expect(xlsx[1]?.[col('Deviation: load and duty kPa')]).toBe(-0.5);
     });
   });
 

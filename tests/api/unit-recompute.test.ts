@@ -77,13 +77,13 @@ describe('recompute of derived data', () => {
     const saved = await analyst.put(`/api/units/${unit.id}/condenser`).set(CSRF).send(bigger);
     expect(saved.status).toBe(200);
     expect(saved.body.condenser.surfaceM2).toBeCloseTo(bigger.surfaceM2, 9);
-    expect(saved.body.setupVersion).toBe(before[0].setupVersion + 1);
+    expect(saved.body.setupVersion - 1).toBe(before[0]?.setupVersion);
     expect(await drain()).toBeGreaterThanOrEqual(1);
 
     const after = await derivedOf(unit.id);
     expect(after).toHaveLength(before.length);
     after.forEach((a, i) => {
-      const b = before[i];
+      const b = before[i]!;
       expect(a.id).toBe(b.id);
       // derived: CF = U/U_clean with U = Q/(A_eff·LMTD); Q and LMTD come from the measured temperatures and
       // U_clean = C·√V·Fw·Fm does not depend on the surface, so CF_new/CF_old = A_old/A_new = 1/1.1.
@@ -95,7 +95,7 @@ describe('recompute of derived data', () => {
       expect(a.setupVersion).toBe(saved.body.setupVersion);
     });
     const dailyAfter = await dailyOf(unit.id);
-    dailyAfter.forEach((d, i) => expect(Number(d.medianCleanliness) / Number(dailyBefore[i].medianCleanliness)).toBeCloseTo(1 / 1.1, 10));
+    dailyAfter.forEach((d, i) => expect(Number(d.medianCleanliness) / Number(dailyBefore[i]?.medianCleanliness)).toBeCloseTo(1 / 1.1, 10));
   });
 
   it('a setup the schema refuses changes nothing and queues no recompute', async () => {
@@ -121,8 +121,9 @@ describe('recompute of derived data', () => {
     // pass), so CF ∝ (N − Np)^(−1/2): from 120 to 1,200 plugged tubes CF rises by √((N − 120)/(N − 1200)).
     const ratio = Math.sqrt((n - np0) / (n - 1200));
     let changed = 0;
+    expect(after).toHaveLength(before.length);
     after.forEach((a, i) => {
-      const b = before[i];
+      const b = before[i]!;
       if (chicagoJuneDay(new Date(a.ts).getTime()) >= '2024-06-04') {
         changed++;
         expect(a.cleanliness / b.cleanliness).toBeCloseTo(ratio, 10);
