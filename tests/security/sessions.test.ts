@@ -5,7 +5,7 @@ import { createTestApp, type TestApp } from '../helpers/test-app.js';
 
 const sessionCookie = (res: request.Response): string | undefined =>
   ([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('cleancase.sid='));
-const cookieValue = (setCookie: string) => setCookie.split(';')[0];
+const cookieValue = (setCookie: string) => setCookie.split(';')[0]!;
 
 describe('sessions', () => {
   let t: TestApp;
