@@ -8,7 +8,7 @@ type Server = Awaited<ReturnType<typeof startTestServer>>;
 
 const dayText = (day: string) => new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(new Date(`${day}T00:00:00Z`));
 const addDays = (day: string, n: number) => new Date(Date.parse(`${day}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
-const dollars = (text: string) => Number(/\$([\d,]+)/.exec(text)?.[1].replace(/,/g, '') ?? Number.NaN);
+const dollars = (text: string) => Number(/\$([\d,]+)/.exec(text)?.[1]?.replace(/,/g, '') ?? Number.NaN);
 
 async function signIn(page: Page, server: Server, email: string) {
   await page.goto(`${server.url}/sign-in`);
@@ -72,6 +72,9 @@ describe('condenser health view in a real browser (full demo data)', () => {
     }
     expect(await page.getByTestId('chart-cleanliness').getAttribute('data-points')).toBe('365');
     expect(await page.getByTestId('chart-backpressure').textContent()).toContain('Backpressure (inHgA)');
+    // one way to show time: the figures' moment names its zone, month axes carry the full year
+    expect(await page.getByTestId('figures-computed').textContent()).toMatch(/Figures computed \d{1,2} \w{3,4} \d{4}, \d\d:\d\d UTC/);
+    expect(await page.getByTestId('chart-breakdown').textContent()).toMatch(/[A-Z][a-z]{2} 20\d\d/);
   });
 
   it('takes screenshots at desktop and tablet widths', async () => {
@@ -116,7 +119,7 @@ describe('condenser health view in a real browser (full demo data)', () => {
   });
 
   it('after a cleaning is added a week before the last data day, the recompute runs and the trend restarts from it', async () => {
-    await page.getByRole('button', { name: 'Last year' }).click();
+    await page.getByRole('button', { name: 'Last 365 days of data' }).click();
     await page.waitForURL(/period=1y/);
     const sinceBefore = (await page.getByTestId('since-cleaning').textContent()) ?? '';
     const cleaningDay = addDays(lastDay, -7);

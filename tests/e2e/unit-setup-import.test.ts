@@ -88,6 +88,7 @@ describe('unit setup, import and undo in a real browser', () => {
   it('the analyst creates a plant in its own time zone and adds a unit from the Plants page', async () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Plants' }).click();
     await page.waitForURL('**/plants');
+    await page.getByRole('button', { name: 'New plant' }).click();
     const form = page.getByRole('form', { name: 'New plant' });
     await form.getByLabel('Plant name').fill('Larchmoor Station');
     await form.getByLabel('Search time zone').fill('Chicago');
@@ -105,7 +106,7 @@ describe('unit setup, import and undo in a real browser', () => {
     await page.screenshot({ path: '/tmp/plants.png', fullPage: true });
     await row.getByRole('link', { name: 'Unit 1' }).click();
     await page.waitForURL(/\/units\/[0-9a-f-]{36}$/);
-    unitId = page.url().split('/units/')[1];
+    unitId = page.url().split('/units/')[1]!;
     await expect.poll(() => page.getByTestId('setup-missing').textContent()).toContain('the condenser');
   });
 
@@ -202,7 +203,7 @@ describe('unit setup, import and undo in a real browser', () => {
   });
 
   it('uploads a historian CSV, maps its columns and imports it; the summary counts the left-out row by its reason', async () => {
-    await page.getByRole('navigation', { name: 'Unit' }).getByRole('link', { name: 'Import', exact: true }).click();
+    await page.getByRole('navigation', { name: 'Unit' }).getByRole('link', { name: 'Data files' }).click();
     await page.getByLabel(/Historian file/).setInputFiles({ name: 'larchmoor-u1-june.csv', mimeType: 'text/csv', buffer: Buffer.from(historianCsv()) });
     await page.getByRole('button', { name: 'Upload and map columns' }).click();
 
@@ -235,7 +236,7 @@ describe('unit setup, import and undo in a real browser', () => {
   });
 
   it('lists the import in the history and undoes it: its rows are gone', async () => {
-    await page.getByRole('navigation', { name: 'Unit' }).getByRole('link', { name: 'Imports' }).click();
+    await page.getByRole('navigation', { name: 'Unit' }).getByRole('link', { name: 'Data files' }).click();
     const row = page.getByTestId('import-row').filter({ hasText: 'larchmoor-u1-june.csv' });
     await row.waitFor();
     expect(await row.textContent()).toContain('Imported');
@@ -249,7 +250,7 @@ describe('unit setup, import and undo in a real browser', () => {
   });
 
   it('a file with text in a number is refused whole: the error is listed by row and column and nothing is stored', async () => {
-    await page.getByRole('navigation', { name: 'Unit' }).getByRole('link', { name: 'Import', exact: true }).click();
+    await page.getByRole('navigation', { name: 'Unit' }).getByRole('link', { name: 'Data files' }).click();
     await page.getByLabel(/Historian file/).setInputFiles({ name: 'larchmoor-bad.csv', mimeType: 'text/csv', buffer: Buffer.from(historianCsv({ textInNumberAtRow: 10 })) });
     await page.getByRole('button', { name: 'Upload and map columns' }).click();
     const mapping = page.getByRole('region', { name: 'Map the columns' });
@@ -302,6 +303,7 @@ describe('unit setup, import and undo in a real browser', () => {
     const card = viewer.getByRole('article', { name: 'Larchmoor Station' });
     await card.waitFor();
     expect(await viewer.getByRole('form', { name: 'New plant' }).count()).toBe(0);
+    expect(await viewer.getByRole('button', { name: 'New plant' }).count()).toBe(0);
     expect(await viewer.getByText('Only administrators and analysts create, change and delete plants and units.').isVisible()).toBe(true);
     expect(await card.getByRole('button', { name: 'Delete plant' }).count()).toBe(0);
     await viewer.goto(`${server.url}/units/${unitId}/setup`);
