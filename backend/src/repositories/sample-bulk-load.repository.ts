@@ -26,16 +26,31 @@ export interface SampleOwner {
 /** `\N` is LOAD DATA's NULL; a finite number as JavaScript prints it reads back as the same double. */
 const num = (v: number | undefined | null): string => (v === undefined || v === null || !Number.isFinite(v) ? '\\N' : String(v));
 /** Escapes what LOAD DATA's default field rules treat specially (backslash, tab, newline). */
-const text = (v: string): string => v.replace(/[\\\t\n\r]/g, (c) => (c === '\\' ? '\\\\' : c === '\t' ? '\\t' : c === '\n' ? '\\n' : '\\r'));
-/** UTC wall-clock time with milliseconds, as a `datetime(3)` column holds it (the connection runs in UTC). */
-const datetime = (ms: number): string => new Date(ms).toISOString().slice(0, 23).replace('T', ' ');
+const text = (v: string): string => (/[\\\t\n\r]/.test(v) ? v.replace(/[\\\t\n\r]/g, (c) => (c === '\\' ? '\\\\' : c === '\t' ? '\\t' : c === '\n' ? '\\n' : '\\r')) : v);
+const pad2 = (n: number) => (n < 10 ? `0${n}` : String(n));
+const DAY_MS = 86_400_000;
+let cachedDay = Number.NaN;
+let cachedDayText = '';
+/**
+ * UTC wall-clock time with milliseconds, as a `datetime(3)` column holds it (the connection runs in UTC).
+ * Rows come in time order, so the date part is formatted once a day.
+ */
+function datetime(time: number): string {
+  const ms = Math.round(time);
+  const day = Math.floor(ms / DAY_MS);
+  if (day !== cachedDay) {
+    cachedDay = day;
+    cachedDayText = new Date(day * DAY_MS).toISOString().slice(0, 11).replace('T', ' ');
+  }
+  const inDay = ms - day * DAY_MS;
+  const milli = inDay % 1000;
+  const secs = (inDay - milli) / 1000;
+  return `${cachedDayText}${pad2(Math.floor(secs / 3600))}:${pad2(Math.floor(secs / 60) % 60)}:${pad2(secs % 60)}.${milli < 10 ? '00' : milli < 100 ? '0' : ''}${milli}`;
+}
 
 /** One sample as a tab-separated line in LOADED_COLUMNS order. */
 export function sampleLine(owner: SampleOwner, s: ImportSample): string {
-  return [
-    owner.unitId, owner.importId, datetime(s.timestampUtc), num(s.loadMw), num(s.backpressureKpa), num(s.cwInletC), num(s.cwOutletC), num(s.cwFlowM3s), s.flowAssumed ? '1' : '0',
-    num(s.hotwellC), num(s.dissolvedOxygenPpb), num(s.airRemovalKgS), num(s.barometerKpa), num(s.cwDifferentialPressureKpa), num(s.condensateFlowKgS), text(s.validity), String(owner.setupVersion),
-  ].join('\t') + '\n';
+  return `${owner.unitId}\t${owner.importId}\t${datetime(s.timestampUtc)}\t${num(s.loadMw)}\t${num(s.backpressureKpa)}\t${num(s.cwInletC)}\t${num(s.cwOutletC)}\t${num(s.cwFlowM3s)}\t${s.flowAssumed ? '1' : '0'}\t${num(s.hotwellC)}\t${num(s.dissolvedOxygenPpb)}\t${num(s.airRemovalKgS)}\t${num(s.barometerKpa)}\t${num(s.cwDifferentialPressureKpa)}\t${num(s.condensateFlowKgS)}\t${text(s.validity)}\t${owner.setupVersion}\n`;
 }
 
 /** Lines of ~1,000 samples per stream chunk (bytes: the driver copies buffers): few calls, flat memory. */
