@@ -173,6 +173,32 @@ function describeCleanings(a: AssembledCase, priced: PricedSchedule): ScheduledC
   });
 }
 
+/** Common practice: a cleaning that returns more than ten times what it costs is rare enough to check the inputs. */
+const PLAUSIBLE_BENEFIT_COST = 10;
+
+/** The unit's fuel bill over a year of the horizon's load and fuel price: rating × load × 24 h × heat rate × price. */
+function yearlyFuelBill(problem: ScheduleProblem): number {
+  const g = problem.lostGeneration;
+  let sum = 0;
+  for (let d = 0; d < problem.days; d++) sum += g.ratingMw * g.loadFraction[d]! * 24 * g.ownFuelCostPerMwh[d]!;
+  return (sum * 365.25) / problem.days;
+}
+
+/** Warnings for business-case figures outside the band a plant sees. */
+function implausibleResults(bc: BusinessCase, problem: ScheduleProblem): string[] {
+  const out: string[] = [];
+  const ratio = bc.benefitCostRatio === null ? null : bc.benefitCostRatio.toNumber();
+  if (ratio !== null && ratio > PLAUSIBLE_BENEFIT_COST) {
+    out.push(`the benefit–cost ratio ${ratio.toFixed(1)} is above ${PLAUSIBLE_BENEFIT_COST}: check the fouling trend, the baseline and the penalty before relying on it`);
+  }
+  const bill = yearlyFuelBill(problem);
+  const npv = bc.npv.toNumber();
+  if (bill > 0 && npv > bill) {
+    out.push(`the NPV ${Math.round(npv).toLocaleString('en-US')} is above the unit’s yearly fuel bill (about ${Math.round(bill).toLocaleString('en-US')}): cleaning rarely saves more than the fuel burnt; check the inputs`);
+  }
+  return out;
+}
+
 export function runScheduleCase(spec: ScheduleCaseSpec): ScheduleCaseResult {
   const assembled = assembleCase(spec);
   const { problem } = assembled;
@@ -186,9 +212,15 @@ export function runScheduleCase(spec: ScheduleCaseSpec): ScheduleCaseResult {
   const proposed = priceSchedule(problem, optimum.cleanings, scenario);
   const baselinePlan: PlannedCleaning[] = baselineCleanings(problem, spec.baseline ?? { kind: 'never' });
   const baseline = priceSchedule(problem, baselinePlan, scenario);
-  const minCf = Math.min(...proposed.dailyCleanliness, ...baseline.dailyCleanliness);
   const gridMin = (spec.grid ?? DEFAULT_CLEANLINESS_GRID).cfMin;
-  if (minCf < gridMin) warnings.push(`cleanliness falls to ${minCf.toFixed(3)}, below the table's lowest point ${gridMin}: the penalty there is held at that point's value`);
+  const minProposed = Math.min(...proposed.dailyCleanliness);
+  const minBaseline = Math.min(...baseline.dailyCleanliness);
+  if (minProposed < gridMin) warnings.push(`cleanliness falls to ${minProposed.toFixed(3)}, below the table's lowest point ${gridMin}: the penalty there is held at that point's value`);
+  if (minBaseline < gridMin) {
+    warnings.push(
+      `the baseline's cleanliness falls to ${minBaseline.toFixed(3)}, below the table's lowest point ${gridMin}: a condenser rarely runs that dirty, so the savings against this baseline are doubtful; compare with a baseline that cleans at planned outages`,
+    );
+  }
 
   const result: ScheduleCaseResult = {
     referenceCleanliness: problem.referenceCleanliness,
@@ -206,6 +238,7 @@ export function runScheduleCase(spec: ScheduleCaseSpec): ScheduleCaseResult {
     businessCase: businessCase({ proposedYearly: proposed.yearly, baselineYearly: baseline.yearly, discountRate: spec.discountRate, upfrontCost: spec.upfrontCost }),
     warnings,
   };
+  warnings.push(...implausibleResults(result.businessCase, problem));
   if (spec.uncertainty) {
     const ranges = { ...typicalRanges(spec.discountRate), ...(spec.uncertainty.ranges ?? {}) };
     const compared = { problem, proposed: optimum.cleanings, baseline: baselinePlan, upfrontCost: spec.upfrontCost };
