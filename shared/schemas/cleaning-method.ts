@@ -132,9 +132,26 @@ export const TYPICAL_CLEANING_METHODS: readonly CleaningMethod[] = [
   },
 ];
 
-/** All caution texts that apply to a method, the general one first. */
-export function cautionsFor(method: Pick<CleaningMethod, 'cautions'>): string[] {
-  return [GENERAL_CAUTION, ...method.cautions.map((c) => CAUTION_TEXT[c])];
+/**
+ * The cautions a method carries whatever its list says, from what the unit does and what the method is called
+ * (common practice): an outage means opening the waterboxes (confined space, lock-out/tag-out); a derate means
+ * isolating a half on line and entering it; acids and chemicals mean chemical handling; jetting and lancing mean
+ * high-pressure water.
+ */
+export function minimumCautions(method: Pick<CleaningMethod, 'unitDuringCleaning' | 'name' | 'id'>): CautionKey[] {
+  const out: CautionKey[] = [];
+  if (method.unitDuringCleaning === 'outage') out.push('confined-space', 'lockout-tagout');
+  if (method.unitDuringCleaning === 'derate') out.push('online-isolation', 'confined-space', 'lockout-tagout');
+  const words = `${method.name} ${method.id}`.toLowerCase();
+  if (/chemi|acid|descal|pickl|biocid|chlorin/.test(words)) out.push('chemical');
+  if (/jet|lanc|hydro|high-pressure water|high pressure water/.test(words)) out.push('water-jetting');
+  return out;
+}
+
+/** All caution texts that apply to a method, the general one first: its own list and its minimum ones, each once. */
+export function cautionsFor(method: Pick<CleaningMethod, 'cautions' | 'unitDuringCleaning' | 'name' | 'id'>): string[] {
+  const keys = new Set<CautionKey>([...method.cautions, ...minimumCautions(method)]);
+  return [GENERAL_CAUTION, ...CAUTION_KEYS.filter((k) => keys.has(k)).map((c) => CAUTION_TEXT[c])];
 }
 
 /** A method as the library answers it: the record's id beside the method's own key, and its cautions spelled out. */
