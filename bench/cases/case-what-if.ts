@@ -53,7 +53,7 @@ function medianMs(f: (run: number) => unknown): number {
     f(run);
     times.push(performance.now() - t0);
   }
-  return times.sort((a, b) => a - b)[2];
+  return times.sort((a, b) => a - b)[2]!;
 }
 
 export default async (): Promise<BenchRow[]> => [

@@ -55,7 +55,7 @@ function medianMs(runs: number, f: () => unknown): number {
     times.push(performance.now() - t0);
   }
   times.sort((a, b) => a - b);
-  return times[runs >> 1];
+  return times[runs >> 1]!;
 }
 
 export default async (): Promise<BenchRow[]> => {

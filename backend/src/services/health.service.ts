@@ -234,7 +234,7 @@ export async function unitSamples(ds: DataSource, scope: TenantScope, unitId: st
       const day = dayOf(Date.parse(p.t));
       return day >= q.from && day <= q.to;
     });
-  const first = (p: (typeof points)[number]) => (p as Record<string, unknown>)[cols[0]] as number | null;
+  const first = (p: (typeof points)[number]) => (p as Record<string, unknown>)[cols[0]!] as number | null; // every quantity has at least one column
   const sampled = points.length > MAX_SERIES_POINTS ? lttbKeepingGaps(points, MAX_SERIES_POINTS, (p) => Date.parse(p.t), first) : points;
   return { quantity: q.quantity, columns: cols, total: points.length, points: sampled };
 }

@@ -8,7 +8,7 @@ const entry = (action: string, details: Record<string, unknown> | null, more: Pa
   userId: 'u1',
   userName: 'Priya Ramanathan',
   action,
-  entityType: action.split('.')[0],
+  entityType: action.split('.')[0] ?? action,
   entityId: '6f1c2d3e-0000-4000-8000-000000000001',
   details,
   ...more,

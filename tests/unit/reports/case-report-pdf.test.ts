@@ -27,7 +27,7 @@ describe('case report as a PDF', () => {
     expect(t).toContain(squash(CONTEXT.organisationName));
     expect(t).toContain(squash(view.plantName));
     expect(t).toContain(squash(`NPV against the baseline ${formatCurrency(view.results.businessCase.npv, 'USD')}`));
-    expect(t).toContain(squash(`first on ${formatDay(view.results.cleanings[0].date)} by ${view.results.cleanings[0].methodName}`));
+    expect(t).toContain(squash(`first on ${formatDay(view.results.cleanings[0]?.date)} by ${view.results.cleanings[0]?.methodName}`));
     // the uncertainty figures as on screen
     expect(t).toContain(squash(formatCurrency(view.results.monteCarlo!.p10Npv, 'USD')));
     expect(t).toContain(squash(formatCurrency(view.results.monteCarlo!.p90Npv, 'USD')));

@@ -40,7 +40,7 @@ describe('what the case report says', () => {
     const view = caseViewFixture();
     const bc = view.results.businessCase;
     const text = recommendationText(view);
-    expect(text).toContain(`first on ${formatDay(view.results.cleanings[0].date)} by Brush crew, Larkspur contract (4 days, inside a planned outage)`);
+    expect(text).toContain(`first on ${formatDay(view.results.cleanings[0]?.date)} by Brush crew, Larkspur contract (4 days, inside a planned outage)`);
     expect(text).toContain(`It is the first of ${view.results.cleanings.length} cleanings`);
     expect(text).toContain(`net present value is ${formatCurrency(bc.npv, 'USD')} at a discount rate of 8.0 %`);
     expect(bc.paybackYears).toBe(0);
@@ -57,8 +57,8 @@ describe('what the case report says', () => {
       ['Year 2', '2028-01-01', '2028-12-30'],
     ]);
     const cf = view.results.businessCase.cashflows;
-    expect(rows[2].cumulative).toBeCloseTo(cf[0] + cf[1] + cf[2], 2);
-    expect(rows[1].planCosts).toEqual(view.results.yearly[0]);
+    expect(rows[2]?.cumulative).toBeCloseTo(cf[0]! + cf[1]! + cf[2]!, 2);
+    expect(rows[1]?.planCosts).toEqual(view.results.yearly[0]);
   });
 
   it('an input without its own source entry takes the source of the input it belongs to', () => {

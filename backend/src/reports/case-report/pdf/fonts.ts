@@ -26,8 +26,10 @@ let covered: [number, number][] | null = null;
 export function coveredCodePoints(): [number, number][] {
   if (covered) return covered;
   const list = JSON.parse(readFileSync(require.resolve('@fontsource/inter/unicode.json'), 'utf8')) as Record<string, string>;
-  covered = list.latin.split(',').map((part) => {
-    const [from, to] = part.trim().replace(/^U\+/, '').split('-');
+  const latin = list.latin;
+  if (!latin) throw new Error('@fontsource/inter/unicode.json lists no latin subset');
+  covered = latin.split(',').map((part) => {
+    const [from = '', to] = part.trim().replace(/^U\+/, '').split('-');
     return [parseInt(from, 16), parseInt(to ?? from, 16)];
   });
   return covered;

@@ -85,18 +85,18 @@ const PAD = 3;
 
 function rowHeight(doc: Doc, columns: Column[], widths: number[], row: TableRow, size: number): number {
   doc.font(row.bold || row.band ? FONT.semibold : FONT.regular).fontSize(size);
-  if (row.band) return doc.heightOfString(pdfText(row.cells[0]), { width: CONTENT_WIDTH - 2 * PAD }) + 2 * PAD;
-  return Math.max(...row.cells.map((c, i) => doc.heightOfString(pdfText(c), { width: widths[i] - 2 * PAD, lineGap: 0.5 }))) + 2 * PAD;
+  if (row.band) return doc.heightOfString(pdfText(row.cells[0] ?? ''), { width: CONTENT_WIDTH - 2 * PAD }) + 2 * PAD;
+  return Math.max(...row.cells.map((c, i) => doc.heightOfString(pdfText(c), { width: widths[i]! - 2 * PAD, lineGap: 0.5 }))) + 2 * PAD;
 }
 
 function drawHeader(doc: Doc, columns: Column[], widths: number[], size: number): void {
   doc.font(FONT.semibold).fontSize(size).fillColor(COLOR.muted);
-  const h = Math.max(...columns.map((c, i) => doc.heightOfString(pdfText(c.header), { width: widths[i] - 2 * PAD }))) + 2 * PAD;
+  const h = Math.max(...columns.map((c, i) => doc.heightOfString(pdfText(c.header), { width: widths[i]! - 2 * PAD }))) + 2 * PAD;
   const y = doc.y;
   let x = PAGE.marginX;
   columns.forEach((c, i) => {
-    doc.text(pdfText(c.header), x + PAD, y + PAD, { width: widths[i] - 2 * PAD, align: c.align ?? 'left' });
-    x += widths[i];
+    doc.text(pdfText(c.header), x + PAD, y + PAD, { width: widths[i]! - 2 * PAD, align: c.align ?? 'left' });
+    x += widths[i]!;
   });
   doc
     .moveTo(PAGE.marginX, y + h)
@@ -127,7 +127,7 @@ export function table(doc: Doc, columns: Column[], rows: TableRow[], options: { 
         .font(FONT.semibold)
         .fontSize(size)
         .fillColor(COLOR.ink)
-        .text(pdfText(row.cells[0]), PAGE.marginX + PAD, y + PAD, { width: CONTENT_WIDTH - 2 * PAD });
+        .text(pdfText(row.cells[0] ?? ''), PAGE.marginX + PAD, y + PAD, { width: CONTENT_WIDTH - 2 * PAD });
     } else {
       if (r % 2 === 1) doc.rect(PAGE.marginX, y, CONTENT_WIDTH, h).fill(COLOR.zebra);
       doc
@@ -136,8 +136,8 @@ export function table(doc: Doc, columns: Column[], rows: TableRow[], options: { 
         .fillColor(COLOR.ink);
       let x = PAGE.marginX;
       row.cells.forEach((cell, i) => {
-        doc.text(pdfText(cell), x + PAD, y + PAD, { width: widths[i] - 2 * PAD, align: columns[i].align ?? 'left', lineGap: 0.5 });
-        x += widths[i];
+        doc.text(pdfText(cell), x + PAD, y + PAD, { width: widths[i]! - 2 * PAD, align: columns[i]?.align ?? 'left', lineGap: 0.5 });
+        x += widths[i]!;
       });
     }
     doc.y = y + h;

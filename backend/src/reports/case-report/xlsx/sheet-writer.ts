@@ -42,7 +42,7 @@ export function fillSheet(ws: ExcelJS.Worksheet, columns: SheetColumn[], rows: (
   for (const r of rows) {
     const row = ws.addRow([]);
     r.forEach((cell, i) => {
-      const [value, fmt] = Array.isArray(cell) ? cell : [cell, columns[i].numFmt];
+      const [value, fmt] = Array.isArray(cell) ? cell : [cell, columns[i]?.numFmt];
       write(row.getCell(i + 1), value, fmt);
     });
   }

@@ -37,8 +37,10 @@ export function niceTicks(min: number, max: number, count = 5): number[] {
 export function niceDomain(min: number, max: number, count = 5): [number, number] {
   if (!(max > min)) return [min - 1, max + 1];
   const ticks = niceTicks(min, max, count);
-  const step = ticks.length > 1 ? ticks[1] - ticks[0] : (max - min) / count;
-  return [Math.min(ticks[0], Math.floor(min / step) * step), Math.max(ticks[ticks.length - 1], Math.ceil(max / step) * step)];
+  const [firstTick = min, secondTick] = ticks;
+  const lastTick = ticks.at(-1) ?? max;
+  const step = secondTick !== undefined ? secondTick - firstTick : (max - min) / count;
+  return [Math.min(firstTick, Math.floor(min / step) * step), Math.max(lastTick, Math.ceil(max / step) * step)];
 }
 
 /** Money on an axis, short: "$250K", "-$1.2M". */

@@ -74,7 +74,7 @@ export function cleanlinessChart(doc: Doc, box: Box, view: CaseView): void {
 
   // numbered markers while they have room; a plain tick per cleaning when they would touch
   const marks = view.results.cleanings.map((c) => x(daysBetween(startDate, c.date)));
-  const numbered = marks.every((at, i) => i === 0 || at - marks[i - 1] >= 12);
+  const numbered = marks.every((at, i) => i === 0 || at - marks[i - 1]! >= 12);
   marks.forEach((at, i) => {
     doc
       .moveTo(at, box.y + 8)

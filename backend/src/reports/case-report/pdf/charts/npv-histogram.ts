@@ -12,14 +12,16 @@ type MonteCarlo = NonNullable<CaseView['results']['monteCarlo']>;
 export function npvHistogram(doc: Doc, box: Box, mc: MonteCarlo, currency: string): void {
   chartTitle(doc, box, 'Distribution of the NPV', `${formatNumber(mc.trials)} trials (seed ${mc.seed}); P10, P50 and P90 marked`);
   const bins = mc.histogram;
-  if (bins.length === 0) return;
-  const from = Math.min(bins[0].from, mc.p10Npv);
-  const to = Math.max(bins[bins.length - 1].to, mc.p90Npv);
+  const firstBin = bins[0];
+  const lastBin = bins.at(-1);
+  if (!firstBin || !lastBin) return;
+  const from = Math.min(firstBin.from, mc.p10Npv);
+  const to = Math.max(lastBin.to, mc.p90Npv);
   const plot = { ...box, y: box.y + 30, height: box.height - 30 };
   const x = linear([from, to], [plot.x, plot.x + plot.width]);
   const maxCount = Math.max(...bins.map((b) => b.count), 1);
   const yTicks = niceTicks(0, maxCount, 3);
-  const y = linear([0, Math.max(maxCount, yTicks[yTicks.length - 1])], [plot.y + plot.height, plot.y]);
+  const y = linear([0, Math.max(maxCount, yTicks.at(-1) ?? maxCount)], [plot.y + plot.height, plot.y]);
   yAxis(doc, plot, yTicks, y, (v) => formatNumber(v));
   for (const b of bins) {
     const left = x(b.from);
