@@ -45,8 +45,20 @@ export const casePatch = z
   .refine((v) => v.title !== undefined || v.inputs !== undefined, { message: 'Change the title or the inputs' });
 export type CasePatch = z.infer<typeof casePatch>;
 
+/**
+ * The case's `updatedAt` as the approver read it: a decision on a version older than the stored one is refused.
+ * Optional so screens that do not send it yet keep working.
+ */
+const seenUpdatedAt = z.iso.datetime({ error: 'seenUpdatedAt is the case’s updatedAt as you read it (an ISO date and time)' }).optional();
+
+export const caseApprove = z.object({ seenUpdatedAt }).strict();
+export type CaseApprove = z.infer<typeof caseApprove>;
+
 export const caseReturn = z
-  .object({ reason: z.string({ error: 'Say why the case goes back' }).trim().min(1, 'Say why the case goes back').max(2000, 'A reason is at most 2000 characters') })
+  .object({
+    reason: z.string({ error: 'Say why the case goes back' }).trim().min(1, 'Say why the case goes back').max(2000, 'A reason is at most 2000 characters'),
+    seenUpdatedAt,
+  })
   .strict();
 export type CaseReturn = z.infer<typeof caseReturn>;
 

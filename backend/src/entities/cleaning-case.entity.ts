@@ -35,7 +35,15 @@ export class CleaningCase {
   @Column({ type: 'datetime', precision: 3, nullable: true }) archivedAt: Date | null;
   @Column({ type: 'uuid', nullable: true }) decidedById: string | null;
   @Column({ type: 'varchar', length: 2000, nullable: true }) returnReason: string | null;
+  /** who changed the title or inputs last, and everyone who changed them since the last decision: none of them decides */
+  @Column({ type: 'uuid', nullable: true }) lastEditedById: string | null;
+  @Column({ type: 'json', nullable: true }) editorIdsSinceDecision: string[] | null;
+  @Column({ type: 'uuid', nullable: true }) submittedById: string | null;
+  /** the unit's and plant's names when the case was last submitted: part of the snapshot */
+  @Column({ type: 'varchar', length: 120, nullable: true }) unitNameAtSubmit: string | null;
+  @Column({ type: 'varchar', length: 120, nullable: true }) plantNameAtSubmit: string | null;
 
   @ManyToOne(() => Organisation, { onDelete: 'CASCADE' }) @JoinColumn({ name: 'organisationId' }) organisation?: Organisation;
-  @ManyToOne(() => GeneratingUnit, { onDelete: 'CASCADE' }) @JoinColumn({ name: 'unitId' }) unit?: GeneratingUnit;
+  /** A unit with cases other than drafts is never deleted (plant.service.ts says why); drafts are deleted first. */
+  @ManyToOne(() => GeneratingUnit, { onDelete: 'RESTRICT' }) @JoinColumn({ name: 'unitId' }) unit?: GeneratingUnit;
 }

@@ -33,6 +33,11 @@ const RULES = {
   addressConfirm: { name: 'address-confirm', what: 'address confirmation attempts', points: 20, windowMs: 60 * MINUTE },
   passwordChange: { name: 'password-change', what: 'password change attempts', points: 10, windowMs: 15 * MINUTE },
   invite: { name: 'invite', what: 'invitations', points: 30, windowMs: 60 * MINUTE },
+  /**
+   * Case creations, edits and copies: each may run a calculation of seconds. A person saves a case a few times a
+   * minute at most (what-ifs run in the browser); 60 in 10 minutes leaves room for that and stops a loop.
+   */
+  caseWrite: { name: 'case-write', what: 'case calculations (new cases, edits and copies)', points: 60, windowMs: 10 * MINUTE },
 } satisfies Record<string, Rule>;
 
 type Counter = { rule: Rule; limiter: () => RateLimiterMySQL };
@@ -147,3 +152,8 @@ export const addressConfirmLimiter = (ds: DataSource) => limitEveryRequest(count
 /** Keyed by the session: another person's guesses never lock this account's owner out. */
 export const passwordChangeLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, RULES.passwordChange), (req) => req.sessionID ?? '');
 export const inviteLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, RULES.invite), (req) => req.sessionID ?? '');
+/**
+ * Per member (after authentication, so an API token and every session of the same person share one count): one
+ * member's loop of saves cannot hold the server's calculation time, and other members are not slowed.
+ */
+export const caseWriteLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, RULES.caseWrite), (req) => `member:${req.actor?.user.id ?? req.sessionID ?? ''}`);

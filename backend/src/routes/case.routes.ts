@@ -1,5 +1,6 @@
 import type { DataSource } from 'typeorm';
 import {
+  caseApprove,
   caseCommentCreate,
   caseComment,
   caseCommentsResponse,
@@ -13,6 +14,7 @@ import {
 } from '@shared/schemas/cases.js';
 import type { Config } from '../config.js';
 import { baseUrl } from '../http/base-url.js';
+import { caseWriteLimiter } from '../http/rate-limits.js';
 import { idParam } from '../http/params.js';
 import type { RouteSpec } from '../http/route-registry.js';
 import { scopeOf } from '../policies/tenant-scope.js';
@@ -26,6 +28,8 @@ import { getCase } from '../services/cases/get-case.js';
 import { listCases } from '../services/cases/list-cases.js';
 
 export function caseRoutes(ds: DataSource, config: Config): RouteSpec[] {
+  /** One count for creating, editing and copying cases, each a calculation (after sign-in: counted per member). */
+  const calculationLimit = [caseWriteLimiter(ds)];
   const file = (kind: CaseFileKind, path: string, contentType: string, description: string): RouteSpec => ({
     method: 'get',
     path,
@@ -52,6 +56,7 @@ export function caseRoutes(ds: DataSource, config: Config): RouteSpec[] {
       res.json(
         await changeCaseStatus(ds, scopeOf(req.actor), idParam(req), name, {
           reason: (req.body as { reason?: string } | undefined)?.reason,
+          seenUpdatedAt: (req.body as { seenUpdatedAt?: string } | undefined)?.seenUpdatedAt,
           baseUrl: baseUrl(config, req),
         }),
       ),
@@ -82,6 +87,7 @@ export function caseRoutes(ds: DataSource, config: Config): RouteSpec[] {
       access: 'data.write',
       tenantScoped: true,
       body: caseCreate,
+      before: calculationLimit,
       response: caseView,
       status: 201,
       description:
@@ -103,19 +109,31 @@ export function caseRoutes(ds: DataSource, config: Config): RouteSpec[] {
       access: 'data.write',
       tenantScoped: true,
       body: casePatch,
+      before: calculationLimit,
       response: caseView,
       description: 'Change a draft or returned case’s title or inputs; results are recomputed and changed inputs marked entered (409 in any other status)',
       handler: async (req, res) => res.json(await editCase(ds, scopeOf(req.actor), idParam(req), req.body)),
     },
     transition('submit', 'data.write', 'Submit a draft or returned case for a decision; approvers and administrators who see the unit get an e-mail'),
-    transition('approve', 'cases.approve', 'Approve a submitted case (never one’s own); the author gets an e-mail'),
-    transition('return', 'cases.approve', 'Send a submitted case back with a reason (never one’s own); the author gets an e-mail', caseReturn),
+    transition(
+      'approve',
+      'cases.approve',
+      'Approve a submitted case (never one the member wrote, changed since the last decision or submitted); with seenUpdatedAt, 409 when the case changed since; the author gets an e-mail',
+      caseApprove,
+    ),
+    transition(
+      'return',
+      'cases.approve',
+      'Send a submitted case back with a reason (never one the member wrote, changed since the last decision or submitted); with seenUpdatedAt, 409 when the case changed since; the author gets an e-mail',
+      caseReturn,
+    ),
     transition('archive', 'data.write', 'Archive a draft, returned or approved case'),
     {
       method: 'post',
       path: '/api/cases/:id/copy',
       access: 'data.write',
       tenantScoped: true,
+      before: calculationLimit,
       response: caseView,
       status: 201,
       description: 'Copy a case as a new draft: entered inputs kept, measured and prefilled ones refreshed from the unit’s current data',

@@ -10,6 +10,13 @@ import { assertClientGroupsInTenant } from '../repositories/client-group.reposit
 import { foundInScope } from '../repositories/found-in-scope.js';
 import { findPlant, findUnit, plantsInScope, unitsInScope } from '../repositories/plant.repository.js';
 import { recordAudit } from './audit.service.js';
+import { dropDraftCasesOrRefuse, isCaseStillReferencing } from './cases/cases-of-deleted-units.js';
+
+/** A case written between the check and the delete: the foreign key refuses, answered as the check would. */
+const refuseWhileCasesRemain = (what: 'unit' | 'plant') => (err: unknown) => {
+  if (isCaseStillReferencing(err)) throw new AppError(409, `This ${what} cannot be deleted: a cleaning case was started on it meanwhile; try again`);
+  throw err;
+};
 
 export type { PlantView };
 
@@ -70,10 +77,14 @@ export async function updatePlant(ds: DataSource, scope: TenantScope, id: string
 
 export async function deletePlant(ds: DataSource, scope: TenantScope, id: string): Promise<void> {
   const plant = await foundInScope(findPlant(ds.manager, scope, id), 'No such plant');
-  await ds.transaction(async (em) => {
-    await em.getRepository(Plant).delete({ id, organisationId: scope.organisationId });
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'plant.deleted', entityType: 'plant', entityId: id, details: { name: plant.name } });
-  });
+  await ds
+    .transaction(async (em) => {
+      const unitIds = (await em.getRepository(GeneratingUnit).find({ where: { plantId: id, organisationId: scope.organisationId }, select: { id: true } })).map((u) => u.id);
+      const draftCasesDeleted = await dropDraftCasesOrRefuse(em, scope.organisationId, unitIds, 'plant');
+      await em.getRepository(Plant).delete({ id, organisationId: scope.organisationId });
+      await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'plant.deleted', entityType: 'plant', entityId: id, details: { name: plant.name, ...(draftCasesDeleted.length ? { draftCasesDeleted } : {}) } });
+    })
+    .catch(refuseWhileCasesRemain('plant'));
 }
 
 export async function createUnit(ds: DataSource, scope: TenantScope, plantId: string, input: z.infer<typeof unitInput>) {
@@ -99,8 +110,11 @@ export async function renameUnit(ds: DataSource, scope: TenantScope, id: string,
 
 export async function deleteUnit(ds: DataSource, scope: TenantScope, id: string): Promise<void> {
   const unit = await foundInScope(findUnit(ds.manager, scope, id), 'No such unit');
-  await ds.transaction(async (em) => {
-    await em.getRepository(GeneratingUnit).delete({ id, organisationId: scope.organisationId });
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'unit.deleted', entityType: 'unit', entityId: id, details: { name: unit.name } });
-  });
+  await ds
+    .transaction(async (em) => {
+      const draftCasesDeleted = await dropDraftCasesOrRefuse(em, scope.organisationId, [id], 'unit');
+      await em.getRepository(GeneratingUnit).delete({ id, organisationId: scope.organisationId });
+      await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'unit.deleted', entityType: 'unit', entityId: id, details: { name: unit.name, ...(draftCasesDeleted.length ? { draftCasesDeleted } : {}) } });
+    })
+    .catch(refuseWhileCasesRemain('unit'));
 }

@@ -21,6 +21,17 @@ describe('who may do what with a cleaning case', () => {
     expect(refusal('approve', { status: 'submitted', authorId: AUTHOR }, other('analyst'))?.status).toBe(403);
   });
 
+  it('a member who changed the case since its last decision, or submitted it, does not decide it; others do', () => {
+    const c = { status: 'submitted' as const, authorId: AUTHOR, submittedById: 'submitter', editorIdsSinceDecision: ['editor-1', 'editor-2'] };
+    for (const userId of ['editor-1', 'editor-2', 'submitter']) {
+      expect(refusal('approve', c, { userId, role: 'admin' })).toEqual({ status: 403, message: expect.stringMatching(/changed|submitted/) });
+      expect(refusal('return', c, { userId, role: 'approver' })?.status).toBe(403);
+      expect(actionsFor(c, { userId, role: 'admin' })).toMatchObject({ approve: false, return: false });
+    }
+    expect(refusal('approve', c, other('approver'))).toBeNull();
+    expect(refusal('approve', { ...c, editorIdsSinceDecision: [] }, { userId: 'editor-1', role: 'admin' })).toBeNull();
+  });
+
   it('draft, returned and approved cases may be archived; a submitted or archived one may not', () => {
     const archivable = CASE_STATUSES.filter((status) => refusal('archive', { status, authorId: AUTHOR }, other('analyst')) === null);
     expect(archivable).toEqual(['draft', 'approved', 'returned']);

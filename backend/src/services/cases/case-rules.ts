@@ -24,8 +24,18 @@ export function visibleTo(role: Role, status: CaseStatus): boolean {
   return role !== 'viewer' || status === 'approved';
 }
 
+/** What the rules read of a case: its status and the people who wrote, changed and submitted it. */
+export interface CaseParties {
+  status: CaseStatus;
+  authorId: string;
+  /** who submitted it last */
+  submittedById?: string | null;
+  /** everyone who changed its title or inputs since the last decision (or since it was created) */
+  editorIdsSinceDecision?: string[] | null;
+}
+
 /** Why the member may not take the action now, or null when they may. */
-export function refusal(action: CaseAction, c: { status: CaseStatus; authorId: string }, who: { userId: string; role: Role }): Refusal | null {
+export function refusal(action: CaseAction, c: CaseParties, who: { userId: string; role: Role }): Refusal | null {
   const writer = can(who.role, 'data.write');
   const decider = can(who.role, 'cases.approve');
   const status = c.status;
@@ -44,6 +54,9 @@ export function refusal(action: CaseAction, c: { status: CaseStatus; authorId: s
       const verb = action === 'approve' ? 'approved' : 'sent back';
       if (!decider) return { status: 403, message: 'Only approvers and administrators decide on a case' };
       if (c.authorId === who.userId) return { status: 403, message: 'You wrote this case: another approver or administrator decides on it' };
+      if (c.editorIdsSinceDecision?.includes(who.userId))
+        return { status: 403, message: 'You changed this case since its last decision: another approver or administrator decides on it' };
+      if (c.submittedById === who.userId) return { status: 403, message: 'You submitted this case: another approver or administrator decides on it' };
       if (status !== 'submitted') return { status: 409, message: `Only a submitted case can be ${verb}: ${WHY_LOCKED[status]}` };
       return null;
     }
@@ -59,7 +72,7 @@ export function refusal(action: CaseAction, c: { status: CaseStatus; authorId: s
   }
 }
 
-export function actionsFor(c: { status: CaseStatus; authorId: string }, who: { userId: string; role: Role }): CaseActions {
+export function actionsFor(c: CaseParties, who: { userId: string; role: Role }): CaseActions {
   const ok = (a: CaseAction) => refusal(a, c, who) === null;
   return {
     edit: ok('edit'),

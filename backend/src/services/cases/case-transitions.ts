@@ -1,11 +1,13 @@
 /**
  * A case's status changes: submit (draft or returned → submitted), approve and return (submitted → approved or
- * returned, never by the case's author), archive (draft, returned or approved → archived). Each one locks the
+ * returned, never by the case's author, its submitter or anyone who changed it since the last decision; a decision
+ * naming the version it read is refused when the case changed since), archive (draft, returned or approved → archived). Each one locks the
  * case's row, is written to the audit log and mails the people who act next, all in one transaction.
  */
 import type { DataSource } from 'typeorm';
 import type { CaseStatus, CaseView } from '@shared/schemas/cases.js';
 import { CleaningCase } from '../../entities/cleaning-case.entity.js';
+import { AppError } from '../../http/app-error.js';
 import type { TenantScope } from '../../policies/tenant-scope.js';
 import { recordAudit } from '../audit.service.js';
 import { assertMay, caseInScope } from './case-access.js';
@@ -22,18 +24,24 @@ export async function changeCaseStatus(
   scope: TenantScope,
   id: string,
   transition: Transition,
-  opts: { reason?: string; baseUrl: string | null },
+  opts: { reason?: string; seenUpdatedAt?: string; baseUrl: string | null },
 ): Promise<CaseView> {
   return ds.transaction(async (em) => {
     const found = await caseInScope(em, scope, id, true);
     const { record } = found;
     assertMay(transition satisfies CaseAction, record, scope);
+    if (opts.seenUpdatedAt !== undefined && new Date(opts.seenUpdatedAt).getTime() !== record.updatedAt.getTime()) {
+      throw new AppError(409, 'The case changed since you opened it: reload it and read it again before deciding');
+    }
     const from = record.status;
     const now = new Date();
     record.status = TARGET[transition];
     record.updatedAt = now;
     if (transition === 'submit') {
       record.submittedAt = now;
+      record.submittedById = scope.userId;
+      record.unitNameAtSubmit = found.unit.name;
+      record.plantNameAtSubmit = found.plant.name;
       record.decidedAt = null;
       record.decidedById = null;
       record.returnReason = null;
@@ -41,6 +49,7 @@ export async function changeCaseStatus(
     if (transition === 'approve' || transition === 'return') {
       record.decidedAt = now;
       record.decidedById = scope.userId;
+      record.editorIdsSinceDecision = [];
       record.returnReason = transition === 'return' ? (opts.reason ?? null) : null;
     }
     if (transition === 'archive') record.archivedAt = now;

@@ -25,6 +25,15 @@ export function newerDataOf(builtOn: string | null, lastNow: string | null): Cas
   return { lastDataDay: lastNow, days: daysBetween(builtOn, lastNow) };
 }
 
+/** The unit's and plant's names as the case shows them: as they were when submitted, once it was; a draft shows today's. */
+export function namesShown(record: Pick<CleaningCase, 'status' | 'unitNameAtSubmit' | 'plantNameAtSubmit'>, unit: { name: string }, plant: { name: string }) {
+  const kept = record.status !== 'draft';
+  return {
+    unitName: (kept ? record.unitNameAtSubmit : null) ?? unit.name,
+    plantName: (kept ? record.plantNameAtSubmit : null) ?? plant.name,
+  };
+}
+
 export async function caseViewOf(em: EntityManager, scope: TenantScope, { record, unit, plant }: CaseInScope): Promise<CaseView> {
   const names = await namesOf(em, [record.authorId, record.decidedById]);
   const person = (id: string) => ({ id, name: names.get(id) ?? 'a former member' });
@@ -32,9 +41,9 @@ export async function caseViewOf(em: EntityManager, scope: TenantScope, { record
     id: record.id,
     organisationId: record.organisationId,
     unitId: unit.id,
-    unitName: unit.name,
+    unitName: namesShown(record, unit, plant).unitName,
     plantId: plant.id,
-    plantName: plant.name,
+    plantName: namesShown(record, unit, plant).plantName,
     timeZone: plant.timeZone,
     currency: record.currency,
     title: record.title,

@@ -2,7 +2,7 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { ENGINE_VERSION } from '@shared/domain/decision/schedule/engine-version.js';
 import type { CaseCreate, CaseView, InputSources } from '@shared/schemas/cases.js';
-import type { CalcScheduleInput } from '@shared/schemas/calc-schedule.js';
+import type { CalcScheduleInput, CalcScheduleOutput } from '@shared/schemas/calc-schedule.js';
 import { CleaningCase } from '../../entities/cleaning-case.entity.js';
 import type { GeneratingUnit } from '../../entities/generating-unit.entity.js';
 import type { Plant } from '../../entities/plant.entity.js';
@@ -22,15 +22,21 @@ export interface NewCase {
   copiedFromId: string | null;
 }
 
-/** Computes and stores a new draft; the audit entry goes in the same transaction. */
+const computeNewCase = (inputs: CalcScheduleInput) => calculateCase(inputs, 409, 'The case cannot be calculated from the unit’s data');
+
+/**
+ * Stores a new draft; the audit entry goes in the same transaction. Pass `results` computed before the
+ * transaction opened (the calculation may take seconds); without them they are computed here.
+ */
 export async function storeNewCase(
   em: EntityManager,
   scope: TenantScope,
   found: { unit: GeneratingUnit; plant: Plant },
   c: NewCase,
   action: string,
+  computed?: CalcScheduleOutput,
 ): Promise<CaseView> {
-  const results = calculateCase(c.inputs, 409, 'The case cannot be calculated from the unit’s data');
+  const results = computed ?? computeNewCase(c.inputs);
   const now = new Date();
   const record = await em.getRepository(CleaningCase).save(
     em.getRepository(CleaningCase).create({
@@ -53,6 +59,11 @@ export async function storeNewCase(
       archivedAt: null,
       decidedById: null,
       returnReason: null,
+      lastEditedById: null,
+      editorIdsSinceDecision: [],
+      submittedById: null,
+      unitNameAtSubmit: null,
+      plantNameAtSubmit: null,
     }),
   );
   await recordAudit(em, {
@@ -66,10 +77,10 @@ export async function storeNewCase(
   return caseViewOf(em, scope, { unit: found.unit, plant: found.plant, record });
 }
 
+/** The prefill reads and the calculation happen before the transaction that writes the case. */
 export async function createCase(ds: DataSource, scope: TenantScope, unitId: string, body: CaseCreate): Promise<CaseView> {
-  return ds.transaction(async (em) => {
-    const found = await unitForCases(em, scope, unitId);
-    const prefill = await prefillCase(em, found.unit, found.plant);
-    return storeNewCase(em, scope, found, { title: body.title, ...prefill, copiedFromId: null }, 'case.created');
-  });
+  const found = await unitForCases(ds.manager, scope, unitId);
+  const prefill = await prefillCase(ds.manager, found.unit, found.plant);
+  const results = computeNewCase(prefill.inputs);
+  return ds.transaction((em) => storeNewCase(em, scope, found, { title: body.title, ...prefill, copiedFromId: null }, 'case.created', results));
 }

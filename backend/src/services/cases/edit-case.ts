@@ -1,5 +1,6 @@
 /** Changing a draft or returned case: a new title, or a new input set recomputed with changed inputs marked entered. */
 import type { DataSource } from 'typeorm';
+import { ENGINE_VERSION } from '@shared/domain/decision/schedule/engine-version.js';
 import type { CasePatch, CaseView } from '@shared/schemas/cases.js';
 import { CleaningCase } from '../../entities/cleaning-case.entity.js';
 import type { TenantScope } from '../../policies/tenant-scope.js';
@@ -10,7 +11,15 @@ import { calculateCase } from './calculate-case.js';
 import { canonical, markEntered } from './input-sources.js';
 import { dayText } from './day-text.js';
 
+/**
+ * The calculation runs first, outside any transaction (it may take seconds); the transaction then locks the row,
+ * checks again that the case may still be changed (409 when it was submitted meanwhile) and writes.
+ */
 export async function editCase(ds: DataSource, scope: TenantScope, id: string, patch: CasePatch): Promise<CaseView> {
+  const before = await caseInScope(ds.manager, scope, id);
+  assertMay('edit', before.record, scope);
+  const newInputs = patch.inputs !== undefined && canonical(patch.inputs) !== canonical(before.record.inputs) ? patch.inputs : undefined;
+  const results = newInputs ? calculateCase(newInputs, 400, 'These inputs cannot be calculated') : undefined;
   return ds.transaction(async (em) => {
     const found = await caseInScope(em, scope, id, true);
     const { record } = found;
@@ -20,21 +29,18 @@ export async function editCase(ds: DataSource, scope: TenantScope, id: string, p
       record.title = patch.title;
       changed.push('title');
     }
-    if (patch.inputs !== undefined && canonical(patch.inputs) !== canonical(record.inputs)) {
-      const results = calculateCase(patch.inputs, 400, 'These inputs cannot be calculated');
+    if (newInputs && results && canonical(newInputs) !== canonical(record.inputs)) {
       const name = (await namesOf(em, [scope.userId])).get(scope.userId) ?? 'a member';
-      record.inputSources = markEntered(
-        record.inputs,
-        patch.inputs,
-        record.inputSources,
-        `entered by ${name} on ${dayText(new Date().toISOString().slice(0, 10))}`,
-      );
-      record.inputs = patch.inputs;
+      record.inputSources = markEntered(record.inputs, newInputs, record.inputSources, `entered by ${name} on ${dayText(new Date().toISOString().slice(0, 10))}`);
+      record.inputs = newInputs;
       record.results = results;
+      record.engineVersion = ENGINE_VERSION;
       changed.push('inputs');
     }
     if (changed.length) {
       record.updatedAt = new Date();
+      record.lastEditedById = scope.userId;
+      record.editorIdsSinceDecision = [...new Set([...(record.editorIdsSinceDecision ?? []), scope.userId])];
       await em.getRepository(CleaningCase).save(record);
       await recordAudit(em, {
         organisationId: scope.organisationId,

@@ -39,9 +39,10 @@ export async function listCases(ds: DataSource, scope: TenantScope, q: CaseListQ
     .select([
       'c.id AS id',
       'c.unitId AS unitId',
-      'u.name AS unitName',
+      // a case once submitted keeps the names it was submitted under (case-view.ts namesShown)
+      `CASE WHEN c.status <> 'draft' AND c.unitNameAtSubmit IS NOT NULL THEN c.unitNameAtSubmit ELSE u.name END AS unitName`,
       'p.id AS plantId',
-      'p.name AS plantName',
+      `CASE WHEN c.status <> 'draft' AND c.plantNameAtSubmit IS NOT NULL THEN c.plantNameAtSubmit ELSE p.name END AS plantName`,
       'c.currency AS currency',
       'c.title AS title',
       'c.status AS status',
