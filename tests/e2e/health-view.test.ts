@@ -29,7 +29,7 @@ describe('condenser health view in a real browser (full demo data)', () => {
   beforeAll(async () => {
     server = await startTestServer({ demoData: 'full' });
     browser = await launchBrowser();
-    page = await (await browser.newContext({ viewport: { width: 1440, height: 900 } })).newPage();
+    page = await (await browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
     await signIn(page, server, 'analyst@northmere.example');
     const plants = (await (await page.request.get(`${server.url}/api/plants`)).json()) as { plants: { name: string; units: { id: string; name: string }[] }[] };
     unitId = plants.plants.find((p) => p.name === 'Harrow Creek Station')!.units.find((u) => u.name === 'Unit 1')!.id;
@@ -50,10 +50,19 @@ describe('condenser health view in a real browser (full demo data)', () => {
     const cleanliness = page.getByTestId('headline-cleanliness');
     await expect.poll(() => cleanliness.textContent()).toContain(`${(api.headline.cleanliness * 100).toFixed(1)} %`);
     const cost = (await page.getByTestId('headline-fouling-cost').textContent()) ?? '';
-    expect(cost).toMatch(/\$[\d,]+\s*\/day/);
+    expect(cost).toMatch(/\$[\d,]+\s*a day/);
     expect(dollars(cost)).toBe(Math.round(api.headline.foulingCostPerDay));
     expect(api.headline.nextCleaning.status).toBe('planned');
     expect(await page.getByTestId('headline-next-cleaning').textContent()).toContain(dayText(api.headline.nextCleaning.next.date));
+    // the head opens with one sentence: condition, cost per day, what to do by the plan's first date; then two groups, no all-caps labels
+    const sentence = (await page.getByTestId('headline-sentence').textContent()) ?? '';
+    expect(sentence).toContain(`cleanliness was ${Math.round(api.headline.cleanliness * 100)} %`);
+    expect(dollars(sentence)).toBe(Math.round(api.headline.foulingCostPerDay));
+    expect(sentence).toContain(`by ${dayText(api.headline.nextCleaning.plan[0].date)}`);
+    expect(await page.getByTestId('headline-condition').getByRole('heading').textContent()).toBe('Condition of the tubes');
+    expect(await page.getByTestId('headline-money').getByRole('heading').textContent()).toBe('Money and the next cleaning');
+    expect(await page.locator('[data-testid="health-view"] .uppercase').count()).toBe(0);
+    expect(await page.getByRole('navigation', { name: 'Unit' }).getByRole('link', { name: 'Condition and cost' }).getAttribute('href')).toBe(unitPath);
     // The demo's data ended long before the machine's clock: the plan starts today, not in the past, and says
     // what data it rests on; it lists its dates and answers with both kinds of method.
     const today = new Date().toISOString().slice(0, 10);
@@ -75,11 +84,16 @@ describe('condenser health view in a real browser (full demo data)', () => {
     // one way to show time: the figures' moment names its zone, month axes carry the full year
     expect(await page.getByTestId('figures-computed').textContent()).toMatch(/Figures computed \d{1,2} \w{3,4} \d{4}, \d\d:\d\d UTC/);
     expect(await page.getByTestId('chart-breakdown').textContent()).toMatch(/[A-Z][a-z]{2} 20\d\d/);
+    // charts at a glance: the forecast band is labelled with its width, the fouling cost is given per cleaning cycle
+    expect(await page.getByTestId('chart-cleanliness').textContent()).toMatch(/90 % band \d+\.\d–\d+\.\d %/);
+    const cycles = (await page.getByTestId('cost-cycles').textContent()) ?? '';
+    const cleaningInPeriod = api.headline.lastCleaning.date;
+    expect(cycles).toContain(`${dayText(cleaningInPeriod)} – ${dayText(lastDay)}: $${Math.round(api.headline.foulingCostSinceCleaning).toLocaleString('en-US')}`);
   });
 
   it('takes screenshots at desktop and tablet widths', async () => {
     await page.screenshot({ path: '/tmp/health-desktop.png', fullPage: true });
-    const tablet = await browser.newContext({ viewport: { width: 820, height: 1180 } });
+    const tablet = await browser.newContext({ viewport: { width: 800, height: 1180 } });
     const tabletPage = await tablet.newPage();
     await signIn(tabletPage, server, 'analyst@northmere.example');
     await tabletPage.goto(`${server.url}${unitPath}`);
@@ -91,7 +105,8 @@ describe('condenser health view in a real browser (full demo data)', () => {
   it('when the period changes to 90 days, the address and the charts follow', async () => {
     await page.getByRole('button', { name: 'Last 90 days' }).click();
     await page.waitForURL(/period=90d/);
-    await expect.poll(() => page.getByTestId('period-span').textContent()).toBe(`${dayText(addDays(lastDay, -89))} – ${dayText(lastDay)}`);
+    // the new period's figures come from the server; on a busy machine that can take a few seconds
+    await expect.poll(() => page.getByTestId('period-span').textContent(), { timeout: 15_000 }).toBe(`${dayText(addDays(lastDay, -89))} – ${dayText(lastDay)}`);
     await expect.poll(() => page.getByTestId('chart-cleanliness').getAttribute('data-points')).toBe('90');
     await page.getByRole('button', { name: 'Week' }).click();
     await page.waitForURL(/by=week/);

@@ -289,7 +289,7 @@ describe('unit setup, import and undo in a real browser', () => {
     expect(await row.textContent()).toContain('$48,200');
     expect(await row.textContent()).toContain('92 %');
     await page.screenshot({ path: '/tmp/unit-events.png', fullPage: true });
-    await page.getByRole('navigation', { name: 'Unit' }).getByRole('link', { name: 'Health' }).click();
+    await page.getByRole('navigation', { name: 'Unit' }).getByRole('link', { name: 'Condition and cost' }).click();
     await page.getByTestId('setup-summary').waitFor();
     await page.screenshot({ path: '/tmp/unit-summary.png', fullPage: true });
   });

@@ -9,7 +9,7 @@ export function ExportButtons({ unitId, from, to }: { unitId: string; from: stri
   const link = 'inline-flex items-center rounded border border-rule bg-paper-raised px-2.5 py-1 text-sm text-ink hover:bg-paper-sunk';
   return (
     <div className="no-print flex flex-wrap items-center gap-2" data-testid="exports">
-      <span className="text-xs font-medium uppercase tracking-wide text-ink-soft">Download</span>
+      <span className="text-sm font-medium text-ink-soft">Downloads</span>
       <a className={link} href={href('daily', 'csv')} download>
         Daily figures (CSV)
       </a>

@@ -37,7 +37,7 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
   const cleanlinessSeries: TimeSeriesSpec[] = [
     { id: 'measured', label: 'Measured (daily median)', colour: CHART_COLOURS.measured, style: 'points', values: health.series.map((d) => ({ day: d.day, y: pct(d.cleanliness) })) },
     { id: 'trend', label: 'Fitted trend', colour: CHART_COLOURS.fitted, style: 'line', width: 2.5, values: health.series.map((d) => ({ day: d.day, y: pct(d.trendCleanliness) })) },
-    { id: 'forecast', label: 'Forecast', colour: CHART_COLOURS.forecast, style: 'dash', values: health.forecast.map((f) => ({ day: f.day, y: f.cleanliness * 100 })) },
+    { id: 'forecast', label: 'Forecast', colour: CHART_COLOURS.forecast, style: 'dash', width: 1.25, values: health.forecast.map((f) => ({ day: f.day, y: f.cleanliness * 100 })) },
   ];
   const hasLeak = shades.length > 0;
   const hasCleaning = cleanings.some((c) => c.day >= from && c.day <= to);
@@ -46,6 +46,12 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
     ...(hasLeak ? [{ label: 'Suspected air in-leakage (left out of the trend)', colour: CHART_COLOURS.airLeakShade, mark: 'shade' as const }] : []),
   ];
   const trend = health.trend;
+  const bandPercent = Math.round(((trend?.status === 'fitted' ? trend.bandProbability : undefined) ?? 0.9) * 100);
+  // a narrow band (a tight fit) is hard to see under its line: its end is labelled with its width in words
+  const bandEnd = health.forecast.at(-1);
+  const bandLabel = bandEnd
+    ? [{ day: bandEnd.day, y: bandEnd.low * 100, below: true, label: `${bandPercent} % band ${formatNumber(bandEnd.low * 100, 1)}–${formatNumber(bandEnd.high * 100, 1)} %` }]
+    : [];
 
   return (
     <div className="grid gap-3 xl:grid-cols-2">
@@ -57,7 +63,7 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
         legend={[
           { label: 'Measured (daily median)', colour: CHART_COLOURS.measured, mark: 'points' },
           { label: 'Fitted trend', colour: CHART_COLOURS.fitted, mark: 'line' },
-          ...(health.forecast.length ? [{ label: `Forecast with ${Math.round(((trend?.status === 'fitted' ? trend.bandProbability : undefined) ?? 0.9) * 100)} % band`, colour: CHART_COLOURS.forecastBand, mark: 'band' as const }] : []),
+          ...(health.forecast.length ? [{ label: `Forecast with ${bandPercent} % band`, colour: CHART_COLOURS.forecastBand, mark: 'band' as const }] : []),
           { label: 'Reference cleanliness', colour: CHART_COLOURS.reference, mark: 'dash' },
           ...common,
         ]}
@@ -87,6 +93,7 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
           yTick={(v) => formatNumber(v, 0)}
           yValue={(v) => `${formatNumber(v, 1)} %`}
           ariaLabel="Cleanliness factor by day: measured, fitted trend and forecast"
+          annotations={bandLabel}
           narrow={narrow}
         />
       </ChartFrame>

@@ -1,12 +1,12 @@
 import { daysBetween } from '@shared/domain/calendar/plant-date';
 import { formatDay, formatNumber, formatPercent } from '@frontend/lib/format';
 import type { HealthHeadline } from '../api/get-health';
+// a plan built on data older than this is flagged: the fouling since then is extrapolated, not measured
+import { STALE_PLAN_DAYS } from './health-sentence';
 
 type Outlook = NonNullable<HealthHeadline['nextCleaning']>;
 type Option = NonNullable<Outlook['options']>[number];
 
-/** A plan built on data older than this is flagged: the fouling since then is extrapolated, not measured. */
-const STALE_PLAN_DAYS = 14;
 /** Dates listed in the tile; the rest are counted. */
 const LISTED_DATES = 4;
 

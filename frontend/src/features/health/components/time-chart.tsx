@@ -39,7 +39,7 @@ export interface TimeChartProps {
   /** shade the area between two series (by id): where `upper` is above `lower`, and where below */
   gap?: { upper: string; lower: string; aboveFill: string; belowFill: string };
   /** short labels at points (each cleaning cycle's cost at its end) */
-  annotations?: { day: string; y: number; label: string }[];
+  annotations?: { day: string; y: number; label: string; below?: boolean }[];
 }
 
 type Datum = { x: Date; y: number | null };
@@ -102,7 +102,7 @@ export default function TimeChart(props: TimeChartProps) {
     const Annotations = ({ xScale, yScale }: LayerProps) => (
       <g aria-hidden>
         {annotations.map((a) => (
-          <text key={a.day} x={xScale(dayToDate(a.day)) - 3} y={yScale(a.y) - 6} textAnchor="end" fontSize={10.5} fontWeight={600} fill="#1d1f23" paintOrder="stroke" stroke="#fbfaf7" strokeWidth={3}>
+          <text key={a.day} x={xScale(dayToDate(a.day)) - 3} y={yScale(a.y) + (a.below ? 14 : -6)} textAnchor="end" fontSize={10.5} fontWeight={600} fill="#1d1f23" paintOrder="stroke" stroke="#fbfaf7" strokeWidth={3}>
             {a.label}
           </text>
         ))}
