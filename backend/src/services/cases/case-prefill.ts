@@ -11,7 +11,7 @@ import { monthlyProfilesFromHistory } from '@shared/domain/decision/drivers/seas
 import { buildUnitModel } from '@shared/domain/monitoring/index.js';
 import { calcScheduleInput, type CalcScheduleInput } from '@shared/schemas/calc-schedule.js';
 import type { InputSources } from '@shared/schemas/cases.js';
-import { TYPICAL_CLEANING_METHODS } from '@shared/schemas/cleaning-method.js';
+import { TYPICAL_CLEANING_METHODS, type CleaningMethod } from '@shared/schemas/cleaning-method.js';
 import { storedUnitAnalysis } from '@shared/schemas/unit-analysis.js';
 import type { GeneratingUnit } from '../../entities/generating-unit.entity.js';
 import type { Plant } from '../../entities/plant.entity.js';
@@ -24,6 +24,14 @@ import { dailyMeansOf, lastDataDayOf } from './unit-history.js';
 
 export const CASE_HORIZON_DAYS = 730;
 export const CASE_TRIALS = 5000;
+/** Planned outages are prefilled as far as the longest horizon a case may have, so lengthening it brings them in. */
+export const OUTAGE_LOOKAHEAD_DAYS = 1830;
+/** Most methods one case compares (the schedule input's limit). */
+export const MAX_CASE_METHODS = 12;
+/** Fewer measured months than this make the seasonal profile mostly design values (common practice: three quarters of a year). */
+const MIN_MEASURED_MONTHS = 9;
+/** A trend used beyond three times the span it was fitted on is an extrapolation to flag (common practice). */
+const MAX_EXTRAPOLATION = 3;
 const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
 
 export interface Prefill {
@@ -31,6 +39,88 @@ export interface Prefill {
   inputSources: InputSources;
   lastDataDay: string;
   currency: string;
+  /** what the case rests on that its results should say (caseWarnings); to be added to the results' warnings */
+  warnings: string[];
+}
+
+type Method = CleaningMethod;
+const costOf = (m: Method, activeTubes: number) => m.fixedCost + m.costPerTube * activeTubes;
+
+/**
+ * The methods a new case compares: the whole library when it fits in a case; else every on-line and derate method
+ * (they need no outage) and the cheapest outage methods, up to twelve, in the library's order.
+ */
+export function chooseMethods(library: readonly Method[], activeTubes: number): { methods: Method[]; left: number } {
+  if (library.length <= MAX_CASE_METHODS) return { methods: [...library], left: 0 };
+  const withoutOutage = library.filter((m) => m.unitDuringCleaning !== 'outage');
+  const outage = library.filter((m) => m.unitDuringCleaning === 'outage').sort((a, b) => costOf(a, activeTubes) - costOf(b, activeTubes));
+  const picked = new Set([...withoutOutage, ...outage].slice(0, MAX_CASE_METHODS));
+  const methods = library.filter((m) => picked.has(m));
+  return { methods, left: library.length - methods.length };
+}
+
+/**
+ * The baseline a plant would follow without the case: with a planned outage in the horizon, cleaning at every
+ * planned outage with the cheapest outage method (what a plant normally does); else no cleaning.
+ */
+export function baselineFor(
+  outages: readonly { from: string; to: string }[],
+  methods: readonly Method[],
+  activeTubes: number,
+  startDate: string,
+  horizonDays: number,
+): { baseline: CalcScheduleInput['baseline']; detail: string } {
+  const end = addDays(startDate, horizonDays - 1);
+  const inHorizon = outages.some((o) => o.from >= startDate && o.from <= end);
+  const cheapest = methods.filter((m) => m.unitDuringCleaning === 'outage').sort((a, b) => costOf(a, activeTubes) - costOf(b, activeTubes))[0];
+  if (inHorizon && cheapest) {
+    return {
+      baseline: { kind: 'every-planned-outage', methodId: cheapest.id },
+      detail: `compared with cleaning at every planned outage with ${cheapest.name}, the cheapest outage method of the library (what a plant would normally do)`,
+    };
+  }
+  return {
+    baseline: { kind: 'never' },
+    detail: inHorizon
+      ? 'compared with no cleaning within the horizon: the library has no outage method to clean at the planned outages'
+      : 'compared with no cleaning within the horizon: no planned outage falls within it',
+  };
+}
+
+export { alignInitialToStart } from './input-sources.js';
+
+const MEASURED_MONTHS = /measured in (\d+) of 12 months/;
+const FITTED_SPAN = /a fit over (\d+) days/;
+
+/**
+ * What a case rests on that the calculation cannot see: a start before the last data or more than a year ahead,
+ * seasonal drivers mostly from design values, a fouling trend extrapolated far beyond its data. The counts come from
+ * the prefill's source details when not given, and count only while the input is still the prefilled one.
+ */
+export function caseWarnings(
+  c: { inputs: CalcScheduleInput; inputSources: InputSources; lastDataDay: string; measuredMonths?: number; fittedSpanDays?: number },
+  today: string,
+): string[] {
+  const out: string[] = [];
+  const { inputs, inputSources: sources } = c;
+  if (inputs.startDate <= c.lastDataDay) {
+    out.push(`the case starts on ${dayText(inputs.startDate)}, before the last day of data (${dayText(c.lastDataDay)}): the days since the cleaning and the fouling there are already measured`);
+  }
+  if (daysBetween(today, inputs.startDate) > 366) out.push(`the case starts on ${dayText(inputs.startDate)}, more than a year ahead: prices, outages and the fouling trend may have changed by then`);
+  const cw = sources['drivers.cwInletC'];
+  const months = c.measuredMonths ?? (cw && cw.source !== 'entered' ? Number(MEASURED_MONTHS.exec(cw.detail)?.[1] ?? 12) : 12);
+  if (months < MIN_MEASURED_MONTHS) {
+    out.push(`the seasonal CW inlet and load are measured in ${months} of 12 months only; the other months are design values: enter them if the plant has them`);
+  }
+  const fouling = sources.fouling;
+  const span = c.fittedSpanDays ?? (fouling && fouling.source !== 'entered' ? Number(FITTED_SPAN.exec(fouling.detail)?.[1] ?? 0) : 0);
+  const reach = inputs.initial.daysSinceCleaning + inputs.horizonDays;
+  if (span > 0 && reach > MAX_EXTRAPOLATION * span) {
+    out.push(
+      `the fouling trend was fitted over ${span} days and is extrapolated to ${reach} days after the cleaning over the ${inputs.horizonDays}-day horizon: treat the later years with caution`,
+    );
+  }
+  return out;
 }
 
 const conflict = (message: string) => new AppError(409, message);
@@ -56,12 +146,17 @@ export async function prefillCase(em: EntityManager, unit: GeneratingUnit, plant
   if (!lastDataDay) throw conflict(`${unit.name} has no valid data yet: import its history first`);
 
   const model = buildUnitModel(setup);
-  const history = await dailyMeansOf(em, unit.id, model.ratingMw);
-  const profiles = monthlyProfilesFromHistory(history);
+  const history = await dailyMeansOf(em, unit.id, model.ratingMw, model.minimumLoadFraction);
+  const onLine = history.filter((h) => h.loadFraction > 0);
+  // months without history: the design CW inlet, and the mean load of the days on line (availability aside)
+  const meanLoad = onLine.length ? onLine.reduce((a, h) => a + h.loadFraction, 0) / onLine.length : 1;
+  const profiles = monthlyProfilesFromHistory(history, { cwInletC: setup.condenser.designCwInletC, loadFraction: meanLoad });
+  const measuredMonths = 12 - profiles.filledMonths.length;
+  const offLine = history.length - onLine.length;
   const tomorrow = addDays(plantDayOf(now.getTime(), plant.timeZone), 1);
   const afterData = addDays(lastDataDay, 1);
   const startDate = tomorrow > afterData ? tomorrow : afterData;
-  const endDate = addDays(startDate, CASE_HORIZON_DAYS - 1);
+  const endDate = addDays(startDate, OUTAGE_LOOKAHEAD_DAYS - 1);
   const events = await em.getRepository(UnitEvent).findBy({ unitId: unit.id });
   const outages = plannedOutages(events)
     .filter((o) => o.to >= startDate && o.from <= endDate)
@@ -69,9 +164,12 @@ export async function prefillCase(em: EntityManager, unit: GeneratingUnit, plant
     .slice(0, 100);
   const plugged = pluggedTubesOn(events, setup.condenser.pluggedTubes)(lastDataDay);
   const library = await methodsOf(em, unit.organisationId);
-  const methods = library.length ? library : [...TYPICAL_CLEANING_METHODS];
   const e = setup.economics;
   const c = setup.condenser;
+  const activeTubes = c.tubeCount - plugged;
+  const chosen = chooseMethods(library.length ? library : [...TYPICAL_CLEANING_METHODS], activeTubes);
+  const methods = chosen.methods;
+  const baseline = baselineFor(outages, methods, activeTubes, startDate, CASE_HORIZON_DAYS);
   const currency = unit.economics?.currency ?? 'USD';
   const curve = setup.turbine.correctionCurve;
 
@@ -113,6 +211,7 @@ export async function prefillCase(em: EntityManager, unit: GeneratingUnit, plant
     plannedOutages: outages,
     discountRate: e.discountRate,
     referenceCleanliness: model.referenceCleanliness,
+    baseline: baseline.baseline,
     uncertainty: { trials: CASE_TRIALS, seed: 1 },
   };
   const checked = calcScheduleInput.safeParse(raw);
@@ -123,13 +222,19 @@ export async function prefillCase(em: EntityManager, unit: GeneratingUnit, plant
   const inputs = checked.data;
 
   const historyText = `${history.length} days of history to ${dayText(lastDataDay)}`;
-  const filled = profiles.filledMonths.length ? `; ${profiles.filledMonths.map((m) => MONTHS[m - 1]).join(', ')} had no data and were interpolated` : '';
+  const filledNames = profiles.filledMonths.map((m) => MONTHS[m - 1]).join(', ');
+  const measured = `measured in ${measuredMonths} of 12 months`;
+  const driverSource = profiles.filledMonths.length ? ('prefilled' as const) : ('measured' as const);
+  const cwFill = profiles.filledMonths.length ? `; ${filledNames} had no data and take the design CW inlet (${c.designCwInletC} °C)` : '';
+  const loadFill = profiles.filledMonths.length ? `; ${filledNames} had no data and take the mean load on line (${(meanLoad * 100).toFixed(0)} %)` : '';
+  const availability = `, ${offLine} days off line (no valid point or below the minimum load) counted as load 0, so the profile carries the history’s availability`;
+  const fittedSpan = daysBetween(cycle.startDay, cycle.endDay ?? lastDataDay) + 1;
   const economics = `the unit’s economics setup`;
   const sources: InputSources = {
     startDate: { source: 'prefilled', detail: startDate === tomorrow ? 'tomorrow at the plant' : `the day after the last data (${dayText(lastDataDay)})` },
     horizonDays: { source: 'prefilled', detail: 'two years from the start' },
-    'drivers.cwInletC': { source: 'measured', detail: `monthly means of the CW inlet temperature over ${historyText}${filled}` },
-    'drivers.loadFraction': { source: 'measured', detail: `monthly means of the load over ${historyText}${filled}` },
+    'drivers.cwInletC': { source: driverSource, detail: `${measured}: monthly means of the CW inlet temperature over ${historyText}${cwFill}` },
+    'drivers.loadFraction': { source: driverSource, detail: `${measured}: monthly means of the load over ${historyText}${availability}${loadFill}` },
     'drivers.fuelPricePerMmbtu': { source: 'prefilled', detail: `${economics} (${currency} per MMBtu)` },
     'drivers.replacementPricePerMwh': { source: 'prefilled', detail: `${economics} (${currency} per MWh)` },
     'drivers.co2PricePerTonne': { source: 'prefilled', detail: `${economics} (${currency} per tonne)` },
@@ -140,7 +245,7 @@ export async function prefillCase(em: EntityManager, unit: GeneratingUnit, plant
     },
     fouling: {
       source: 'measured',
-      detail: `fitted to ${cycle.pointsUsed} days of the current cycle, since ${dayText(cycle.startDay)} (${cycle.model.model}, R² ${cycle.rSquared.toFixed(2)})`,
+      detail: `fitted to ${cycle.pointsUsed} days of the current cycle, a fit over ${fittedSpan} days since ${dayText(cycle.startDay)} (${cycle.model.model}, R² ${cycle.rSquared.toFixed(2)})`,
     },
     initial: {
       source: 'measured',
@@ -149,7 +254,9 @@ export async function prefillCase(em: EntityManager, unit: GeneratingUnit, plant
     methods: library.length
       ? {
           source: 'prefilled',
-          detail: `the organisation’s ${library.length} cleaning methods${library.some((m) => m.typical) ? ' (some still at typical values)' : ''}`,
+          detail: chosen.left
+            ? `${methods.length} of the organisation’s ${library.length} cleaning methods (a case compares at most ${MAX_CASE_METHODS}): every on-line and derate method and the cheapest outage ones; ${chosen.left} left out can be added in place of others${methods.some((m) => m.typical) ? '; some still at typical values' : ''}`
+            : `the organisation’s ${library.length} cleaning methods${library.some((m) => m.typical) ? ' (some still at typical values)' : ''}`,
         }
       : {
           source: 'prefilled',
@@ -159,8 +266,8 @@ export async function prefillCase(em: EntityManager, unit: GeneratingUnit, plant
     plannedOutages: {
       source: 'prefilled',
       detail: outages.length
-        ? `${outages.length} planned outage${outages.length > 1 ? 's' : ''} from the unit’s timeline within the two years`
-        : 'no planned outage on the unit’s timeline within the two years',
+        ? `${outages.length} planned outage${outages.length > 1 ? 's' : ''} from the unit’s timeline within five years of the start (those beyond the horizon are not used)`
+        : 'no planned outage on the unit’s timeline within five years of the start',
     },
     minSpacingDays: { source: 'prefilled', detail: 'no minimum spacing between cleanings (the calculation’s default)' },
     discountRate: { source: 'prefilled', detail: economics },
@@ -168,7 +275,7 @@ export async function prefillCase(em: EntityManager, unit: GeneratingUnit, plant
       source: 'prefilled',
       detail: c.referenceCleanliness !== null ? 'the condenser setup’s reference cleanliness' : 'the condenser’s design cleanliness',
     },
-    baseline: { source: 'prefilled', detail: 'compared with no cleaning within the horizon (the calculation’s default)' },
+    baseline: { source: 'prefilled', detail: baseline.detail },
     upfrontCost: { source: 'prefilled', detail: 'no upfront cost (the calculation’s default)' },
     uncertainty: {
       source: 'prefilled',
@@ -176,7 +283,8 @@ export async function prefillCase(em: EntityManager, unit: GeneratingUnit, plant
     },
     includeDaily: { source: 'prefilled', detail: 'the daily path is kept with the results' },
   };
-  return { inputs, inputSources: sources, lastDataDay, currency };
+  const warnings = caseWarnings({ inputs, inputSources: sources, lastDataDay, measuredMonths, fittedSpanDays: fittedSpan }, addDays(tomorrow, -1));
+  return { inputs, inputSources: sources, lastDataDay, currency, warnings };
 }
 
 const round3 = (x: number) => Math.round(x * 1000) / 1000;

@@ -2,7 +2,8 @@
  * Where each input of a case came from. Keys are the top-level inputs and each driver (`drivers.cwInletC`); an
  * input a person changed becomes `entered`, and a copy keeps entered values while refreshing the rest.
  */
-import type { CalcScheduleInput } from '@shared/schemas/calc-schedule.js';
+import { daysBetween } from '@shared/domain/calendar/plant-date.js';
+import { MAX_DAYS_SINCE_CLEANING, type CalcScheduleInput } from '@shared/schemas/calc-schedule.js';
 import type { InputSources } from '@shared/schemas/cases.js';
 
 type Values = Record<string, unknown>;
@@ -46,7 +47,28 @@ export function markEntered(before: CalcScheduleInput, after: CalcScheduleInput,
   return out;
 }
 
-/** A copy's inputs: the fresh prefill, with every input the original marked `entered` carried over as entered. */
+/**
+ * After the start of a case moved: the days since the cleaning move with it when they were not entered by a person
+ * (and were not changed in the same edit), so the condenser's state still matches the new start.
+ */
+export function alignInitialToStart(inputs: CalcScheduleInput, previous: CalcScheduleInput, sources: InputSources): CalcScheduleInput {
+  const moved = daysBetween(previous.startDate, inputs.startDate);
+  if (moved === 0 || sources.initial?.source === 'entered' || canonical(inputs.initial) !== canonical(previous.initial)) return inputs;
+  const days = Math.min(MAX_DAYS_SINCE_CLEANING, Math.max(0, previous.initial.daysSinceCleaning + moved));
+  return { ...inputs, initial: { ...inputs.initial, daysSinceCleaning: days } };
+}
+
+/**
+ * Inputs that only make sense together. The first of a pair follows the second when only the second was entered
+ * (entered outages keep the horizon they were entered for); an entered start instead moves the fresh days since the
+ * cleaning with it (alignInitialToStart), and an entered initial condition keeps the start it was entered for.
+ */
+const CARRIED_WITH: Record<string, string> = { initial: 'startDate', plannedOutages: 'horizonDays' };
+
+/**
+ * A copy's inputs: the fresh prefill, with every input the original marked `entered` carried over as entered, and
+ * the inputs that depend on them moved with them.
+ */
 export function carryEntered(
   original: { inputs: CalcScheduleInput; inputSources: InputSources },
   fresh: { inputs: CalcScheduleInput; inputSources: InputSources },
@@ -54,6 +76,7 @@ export function carryEntered(
   const old = inputsByKey(original.inputs);
   const values = inputsByKey(fresh.inputs);
   const sources: InputSources = { ...fresh.inputSources };
+  const entered = (key: string) => original.inputSources[key]?.source === 'entered';
   for (const [key, entry] of Object.entries(original.inputSources)) {
     if (entry.source !== 'entered') continue;
     if (key in old) {
@@ -63,6 +86,18 @@ export function carryEntered(
       delete values[key];
       delete sources[key];
     }
+  }
+  for (const [key, partner] of Object.entries(CARRIED_WITH)) {
+    if (!entered(key) || entered(partner) || !(partner in old)) continue;
+    values[partner] = old[partner];
+    const was = original.inputSources[partner];
+    sources[partner] = { source: was?.source ?? 'prefilled', detail: `kept from the original case with the entered ${key === 'initial' ? 'initial condition' : 'planned outages'}` };
+  }
+  if (entered('startDate') && !entered('initial')) {
+    const moved = alignInitialToStart({ ...fresh.inputs, startDate: original.inputs.startDate }, fresh.inputs, fresh.inputSources);
+    values.initial = moved.initial;
+    const was = fresh.inputSources.initial;
+    if (was) sources.initial = { ...was, detail: `${was.detail}; moved to the entered start`.slice(0, 400) };
   }
   return { inputs: inputsFromKeys(values), inputSources: sources };
 }

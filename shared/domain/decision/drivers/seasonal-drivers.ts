@@ -14,15 +14,22 @@ export type MonthlyInterpolation = 'step' | 'mid-month';
 
 export interface UnitHistoryDay {
   date: string;
-  cwInletC: number;
+  /** null on a day off line without a CW inlet mean: the day counts for the load only */
+  cwInletC: number | null;
   loadFraction: number;
 }
 
 export interface MonthlyProfiles {
   cwInletC: number[];
   loadFraction: number[];
-  /** months (1..12) with no history, filled by cyclic interpolation between the nearest observed months */
+  /** months (1..12) with no history: from the design fill when given, else interpolated cyclically between observed months */
   filledMonths: number[];
+}
+
+/** Values for months without history (the design CW inlet and a typical load) instead of interpolating across a gap. */
+export interface MonthFill {
+  cwInletC: number;
+  loadFraction: number;
 }
 
 function assertTwelve(values: MonthlyValues): void {
@@ -45,21 +52,29 @@ function fillCyclic(values: (number | null)[]): number[] {
   });
 }
 
-/** Monthly means of a unit's daily history, pooled over the years present. */
-export function monthlyProfilesFromHistory(history: readonly UnitHistoryDay[]): MonthlyProfiles {
+/** Monthly means of a unit's daily history, pooled over the years present; months without history from `fill` when given. */
+export function monthlyProfilesFromHistory(history: readonly UnitHistoryDay[], fill?: MonthFill): MonthlyProfiles {
   const sumT = new Array<number>(12).fill(0);
+  const countT = new Array<number>(12).fill(0);
   const sumL = new Array<number>(12).fill(0);
   const count = new Array<number>(12).fill(0);
   for (const h of history) {
     const m = civilFromDayNumber(dayNumber(h.date)).month - 1;
-    sumT[m]! += h.cwInletC;
+    if (h.cwInletC !== null) {
+      sumT[m]! += h.cwInletC;
+      countT[m]!++;
+    }
     sumL[m]! += h.loadFraction;
     count[m]!++;
   }
-  const mean = (sums: number[]) => sums.map((s, m) => (count[m] ? s / count[m] : null));
+  const mean = (sums: number[], n: number[]) => sums.map((s, m) => (n[m] ? s / n[m]! : null));
+  const filled = (values: (number | null)[], value: number | undefined) => (value === undefined ? fillCyclic(values) : values.map((v) => v ?? value));
+  const cw = mean(sumT, countT);
+  // a month whose days were all off line has a load (0) but no CW inlet: fill its CW inlet from its neighbours
+  const cwFilled = fill ? fillCyclic(cw.map((v, m) => (v === null && count[m] ? null : (v ?? fill.cwInletC)))) : fillCyclic(cw);
   return {
-    cwInletC: fillCyclic(mean(sumT)),
-    loadFraction: fillCyclic(mean(sumL)),
+    cwInletC: cwFilled,
+    loadFraction: filled(mean(sumL, count), fill?.loadFraction),
     filledMonths: count.flatMap((c, m) => (c ? [] : [m + 1])),
   };
 }
