@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@frontend/lib/api-client';
-import type { CaseReturn, CaseView } from '@shared/schemas/cases';
+import type { CaseApprove, CaseReturn, CaseView } from '@shared/schemas/cases';
 import { caseKey, casesKey } from './case-keys';
 
 export type CaseStep = 'submit' | 'approve' | 'return' | 'archive' | 'copy';
@@ -12,7 +12,7 @@ export type CaseStep = 'submit' | 'approve' | 'return' | 'archive' | 'copy';
 export function useChangeCaseStatus(organisationId: string, caseId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ step, body }: { step: CaseStep; body?: CaseReturn }) => api<CaseView>(`/api/cases/${caseId}/${step}`, { method: 'POST', body: body ?? {} }),
+    mutationFn: ({ step, body }: { step: CaseStep; body?: CaseReturn | CaseApprove | { reason: string } }) => api<CaseView>(`/api/cases/${caseId}/${step}`, { method: 'POST', body: body ?? {} }),
     onSuccess: async (answered) => {
       queryClient.setQueryData(caseKey(organisationId, answered.id), answered);
       await queryClient.invalidateQueries({ queryKey: casesKey(organisationId) });

@@ -35,9 +35,10 @@ export function ApprovalBar({ organisationId, view, me, unsaved }: Props) {
   const [reason, setReason] = useState('');
   const [reasonError, setReasonError] = useState<string | undefined>();
   const a = view.actions;
+  // A decision names the version the approver read: if the case changed since, the server refuses it (409).
   const run = (step: CaseStep, body?: { reason: string }) =>
     change.mutate(
-      { step, body },
+      { step, body: step === 'approve' || step === 'return' ? { ...body, seenUpdatedAt: view.updatedAt } : body },
       {
         onSuccess: (answered) => {
           setReturning(false);
