@@ -132,18 +132,11 @@ describe('read-only views: a viewer and an approver see values and reasons, not 
       expect(await page.getByTestId('read-only-reason').textContent()).toBe(`${WRITE_REASON} change this unit’s setup.`);
     });
 
-    it('the import page offers no file picker or upload, only who may import', async () => {
+    it('the data files tab lists the file and its counts with no file picker, upload or undo, and says who may import', async () => {
       const page = pages[who];
-      await open(page, `/units/${unitId}/import`, (p) => p.getByRole('heading', { name: 'Import data' }));
+      await open(page, `/units/${unitId}/data`, (p) => p.getByTestId('import-row'));
       expect(await controls(page).count(), (await Promise.all(await controlNames(page))).join(', ')).toBe(0);
       expect(await page.locator('input[type=file]').count()).toBe(0);
-      expect(await page.getByTestId('read-only-reason').textContent()).toBe(`${WRITE_REASON} import historian data.`);
-    });
-
-    it('the import history lists the file and its counts with no undo', async () => {
-      const page = pages[who];
-      await open(page, `/units/${unitId}/imports`, (p) => p.getByTestId('import-row'));
-      expect(await controls(page).count(), (await Promise.all(await controlNames(page))).join(', ')).toBe(0);
       const row = (await page.getByTestId('import-row').textContent()) ?? '';
       expect(row).toContain(FILE);
       expect(row).toContain('48'); // rows stored
@@ -222,7 +215,7 @@ describe('read-only views: a viewer and an approver see values and reasons, not 
 
   it('an analyst still has every control: add and change plants, save the setup, pick a file, undo, record and change events, change methods', async () => {
     const page = pages.analyst;
-    await open(page, '/plants', (p) => p.getByRole('form', { name: 'New plant' }));
+    await open(page, '/plants', (p) => p.getByRole('button', { name: 'New plant' }));
     const card = page.getByRole('article', { name: PLANT });
     expect(await card.getByRole('button', { name: `Change ${PLANT}` }).isEnabled()).toBe(true);
     expect(await card.getByRole('button', { name: 'Delete plant' }).isEnabled()).toBe(true);
@@ -233,10 +226,8 @@ describe('read-only views: a viewer and an approver see values and reasons, not 
     for (const part of ['condenser', 'turbine', 'economics']) expect(await page.getByRole('button', { name: `Save ${part}` }).isEnabled()).toBe(true);
     expect(await page.getByRole('form', { name: 'Economics' }).textContent()).toContain('check it against your fuel’s analysis');
 
-    await open(page, `/units/${unitId}/import`, (p) => p.getByRole('form', { name: 'Choose a file' }));
+    await open(page, `/units/${unitId}/data`, (p) => p.getByTestId('import-row'));
     expect(await page.locator('input[type=file]').isEnabled()).toBe(true);
-
-    await open(page, `/units/${unitId}/imports`, (p) => p.getByTestId('import-row'));
     expect(await page.getByRole('button', { name: 'Undo' }).isEnabled()).toBe(true);
 
     await open(page, `/units/${unitId}/events`, (p) => p.getByTestId('event-row'));

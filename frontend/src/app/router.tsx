@@ -25,6 +25,7 @@ import { signInReturningTo } from '@frontend/lib/safe-next';
 import { appQueryClient } from './app-query-client';
 import { AppLayout } from './routes/app-layout';
 import { NotFoundPage } from './routes/not-found';
+import { documentTitle, routeTitle } from './page-title';
 
 /** A page's code is fetched when its route is first visited, so the first screen loads only what it shows. */
 function page<M>(load: () => Promise<M>, pick: (module: M) => ComponentType) {
@@ -59,15 +60,20 @@ function tenantLoader(needs: Permission, load: (organisationId: string, args: Lo
   };
 }
 
+/** The old upload and import-history addresses of a unit lead to its data page, keeping a running import's id. */
+function toDataPage({ params, request }: LoaderFunctionArgs) {
+  return redirect(`/units/${params.unitId ?? ''}/data${new URL(request.url).search}`);
+}
+
 const router = createBrowserRouter([
-  { path: '/sign-in', lazy: page(() => import('./routes/sign-in'), (m) => m.SignInPage), errorElement: <RouteErrorPage /> },
-  { path: '/sign-up', lazy: page(() => import('./routes/sign-up'), (m) => m.SignUpPage), errorElement: <RouteErrorPage /> },
-  { path: '/forgot-password', lazy: page(() => import('./routes/forgot-password'), (m) => m.ForgotPasswordPage), errorElement: <RouteErrorPage /> },
-  { path: '/reset-password', lazy: page(() => import('./routes/reset-password'), (m) => m.ResetPasswordPage), errorElement: <RouteErrorPage /> },
-  { path: '/confirm-address', lazy: page(() => import('./routes/confirm-address'), (m) => m.ConfirmAddressPage), errorElement: <RouteErrorPage /> },
-  { path: '/api-reference', lazy: page(() => import('./routes/api-reference'), (m) => m.ApiReferencePage), errorElement: <RouteErrorPage /> },
+  { path: '/sign-in', handle: { title: 'Sign in' }, lazy: page(() => import('./routes/sign-in'), (m) => m.SignInPage), errorElement: <RouteErrorPage /> },
+  { path: '/sign-up', handle: { title: 'Create an account' }, lazy: page(() => import('./routes/sign-up'), (m) => m.SignUpPage), errorElement: <RouteErrorPage /> },
+  { path: '/forgot-password', handle: { title: 'Forgotten password' }, lazy: page(() => import('./routes/forgot-password'), (m) => m.ForgotPasswordPage), errorElement: <RouteErrorPage /> },
+  { path: '/reset-password', handle: { title: 'New password' }, lazy: page(() => import('./routes/reset-password'), (m) => m.ResetPasswordPage), errorElement: <RouteErrorPage /> },
+  { path: '/confirm-address', handle: { title: 'Confirm your address' }, lazy: page(() => import('./routes/confirm-address'), (m) => m.ConfirmAddressPage), errorElement: <RouteErrorPage /> },
+  { path: '/api-reference', handle: { title: 'API reference' }, lazy: page(() => import('./routes/api-reference'), (m) => m.ApiReferencePage), errorElement: <RouteErrorPage /> },
   {
-    path: '/invitation',
+    path: '/invitation', handle: { title: 'Invitation' },
     lazy: page(() => import('./routes/invitation'), (m) => m.InvitationPage),
     errorElement: <RouteErrorPage />,
     hydrateFallbackElement: <FirstLoad />,
@@ -78,7 +84,7 @@ const router = createBrowserRouter([
     },
   },
   {
-    path: '/cases/:caseId/print',
+    path: '/cases/:caseId/print', handle: { title: 'Case for printing' },
     lazy: page(() => import('./routes/case-print'), (m) => m.CasePrintPage),
     errorElement: <RouteErrorPage />,
     hydrateFallbackElement: <FirstLoad />,
@@ -88,7 +94,7 @@ const router = createBrowserRouter([
     },
   },
   {
-    path: '/mailbox',
+    path: '/mailbox', handle: { title: 'Local mailbox' },
     lazy: page(() => import('./routes/mailbox'), (m) => m.MailboxPage),
     errorElement: <RouteErrorPage />,
     hydrateFallbackElement: <FirstLoad />,
@@ -105,25 +111,32 @@ const router = createBrowserRouter([
     errorElement: <RouteErrorPage />,
     hydrateFallbackElement: <FirstLoad />,
     children: [
-      { index: true, lazy: page(() => import('./routes/overview'), (m) => m.OverviewPage) },
-      { path: 'cases', lazy: page(() => import('./routes/cases'), (m) => m.CasesPage) },
+      { index: true, handle: { title: 'Overview' }, lazy: page(() => import('./routes/overview'), (m) => m.OverviewPage) },
+      { path: 'cases', handle: { title: 'Cases' }, lazy: page(() => import('./routes/cases'), (m) => m.CasesPage) },
       {
-        path: 'cases/:caseId',
+        path: 'cases/:caseId', handle: { title: 'Case' },
         lazy: page(() => import('./routes/case'), (m) => m.CasePage),
         loader: tenantLoader('data.read', (org, { params }) => [prefetch(caseQueryOptions(org, params.caseId ?? ''))]),
       },
       {
-        path: 'plants',
+        path: 'plants', handle: { title: 'Plants' },
         lazy: page(() => import('./routes/plants'), (m) => m.PlantsPage),
         loader: tenantLoader('data.read', (org) => [prefetch(plantsQueryOptions(org)), prefetch(clientGroupsQueryOptions(org))]),
       },
       {
-        path: 'units/:unitId',
+        path: 'plants/:plantId',
+        handle: { title: 'Plant' },
+        lazy: page(() => import('./routes/plant'), (m) => m.PlantPage),
+        loader: tenantLoader('data.read', (org) => [prefetch(plantsQueryOptions(org))]),
+      },
+      {
+        path: 'units/:unitId', handle: { title: 'Unit' },
         lazy: page(() => import('./routes/unit-layout'), (m) => m.UnitLayout),
         loader: tenantLoader('data.read', (org, { params }) => [prefetch(unitQueryOptions(org, params.unitId ?? ''))]),
         children: [
           {
             index: true,
+            handle: { title: 'Condition and cost' },
             lazy: page(() => import('./routes/unit-overview'), (m) => m.UnitOverviewPage),
             // The health figures for the period in the address load alongside the page's code.
             loader: tenantLoader('data.read', (org, { params, request }) => [
@@ -137,21 +150,23 @@ const router = createBrowserRouter([
                 .catch(() => undefined),
             ]),
           },
-          { path: 'setup', lazy: page(() => import('./routes/unit-setup'), (m) => m.UnitSetupPage) },
-          { path: 'import', lazy: page(() => import('./routes/unit-import'), (m) => m.UnitImportPage) },
-          { path: 'imports', lazy: page(() => import('./routes/unit-imports'), (m) => m.UnitImportsPage), loader: tenantLoader('data.read', (org, { params }) => [prefetch(unitImportsQueryOptions(org, params.unitId ?? ''))]) },
-          { path: 'events', lazy: page(() => import('./routes/unit-events'), (m) => m.UnitEventsPage), loader: tenantLoader('data.read', (org, { params }) => [prefetch(eventsQueryOptions(org, params.unitId ?? '')), prefetch(cleaningMethodsQueryOptions(org))]) },
-          { path: 'cases', lazy: page(() => import('./routes/cases-of-unit'), (m) => m.UnitCasesPage) },
+          { path: 'setup', handle: { title: 'Setup' }, lazy: page(() => import('./routes/unit-setup'), (m) => m.UnitSetupPage) },
+          { path: 'data', handle: { title: 'Data files' }, lazy: page(() => import('./routes/unit-data'), (m) => m.UnitDataPage), loader: tenantLoader('data.read', (org, { params }) => [prefetch(unitImportsQueryOptions(org, params.unitId ?? ''))]) },
+          // the unit's upload and its import history were two pages once; scripts and bookmarks may still use those addresses
+          { path: 'import', loader: toDataPage },
+          { path: 'imports', loader: toDataPage },
+          { path: 'events', handle: { title: 'Events' }, lazy: page(() => import('./routes/unit-events'), (m) => m.UnitEventsPage), loader: tenantLoader('data.read', (org, { params }) => [prefetch(eventsQueryOptions(org, params.unitId ?? '')), prefetch(cleaningMethodsQueryOptions(org))]) },
+          { path: 'cases', handle: { title: 'Cases' }, lazy: page(() => import('./routes/cases-of-unit'), (m) => m.UnitCasesPage) },
         ],
       },
       {
-        path: 'settings',
+        path: 'settings', handle: { title: 'Settings' },
         lazy: page(() => import('./routes/settings-layout'), (m) => m.SettingsLayout),
         children: [
           { index: true, element: <Navigate to="/settings/profile" replace /> },
-          { path: 'profile', lazy: page(() => import('./routes/settings-profile'), (m) => m.ProfileSettingsPage) },
+          { path: 'profile', handle: { title: 'Your profile' }, lazy: page(() => import('./routes/settings-profile'), (m) => m.ProfileSettingsPage) },
           {
-            path: 'members',
+            path: 'members', handle: { title: 'Members' },
             lazy: page(() => import('./routes/settings-members'), (m) => m.MembersSettingsPage),
             loader: tenantLoader('members.manage', (org) => [
               prefetch(membersQueryOptions(org)),
@@ -159,15 +174,15 @@ const router = createBrowserRouter([
               prefetch(clientGroupsQueryOptions(org)),
             ]),
           },
-          { path: 'client-groups', lazy: page(() => import('./routes/settings-client-groups'), (m) => m.ClientGroupsSettingsPage), loader: tenantLoader('data.read', (org) => [prefetch(clientGroupsQueryOptions(org))]) },
+          { path: 'client-groups', handle: { title: 'Client groups' }, lazy: page(() => import('./routes/settings-client-groups'), (m) => m.ClientGroupsSettingsPage), loader: tenantLoader('data.read', (org) => [prefetch(clientGroupsQueryOptions(org))]) },
           {
-            path: 'cleaning-methods',
+            path: 'cleaning-methods', handle: { title: 'Cleaning methods' },
             lazy: page(() => import('./routes/settings-cleaning-methods'), (m) => m.CleaningMethodsSettingsPage),
             loader: tenantLoader('data.read', (org) => [prefetch(cleaningMethodsQueryOptions(org))]),
           },
-          { path: 'api-tokens', lazy: page(() => import('./routes/settings-api-tokens'), (m) => m.ApiTokensSettingsPage), loader: tenantLoader('calc.use', (org) => [prefetch(apiTokensQueryOptions(org))]) },
+          { path: 'api-tokens', handle: { title: 'API tokens' }, lazy: page(() => import('./routes/settings-api-tokens'), (m) => m.ApiTokensSettingsPage), loader: tenantLoader('calc.use', (org) => [prefetch(apiTokensQueryOptions(org))]) },
           {
-            path: 'audit',
+            path: 'audit', handle: { title: 'Audit log' },
             lazy: page(() => import('./routes/settings-audit'), (m) => m.AuditSettingsPage),
             loader: tenantLoader('audit.read', (org, { request }) => [
               prefetch(auditEventsQueryOptions(org, auditFiltersFrom(new URL(request.url).searchParams))),
@@ -178,8 +193,14 @@ const router = createBrowserRouter([
       },
     ],
   },
-  { path: '*', element: <NotFoundPage /> },
+  { path: '*', handle: { title: 'Page not found' }, element: <NotFoundPage /> },
 ]);
+
+// Every page names itself in the browser's tab: the route's own name at once, a page with a subject adds it (usePageTitle).
+document.title = documentTitle(routeTitle(router.state.matches));
+router.subscribe((state) => {
+  if (state.navigation.state === 'idle') document.title = documentTitle(routeTitle(state.matches));
+});
 
 export function AppRouter() {
   return <RouterProvider router={router} />;

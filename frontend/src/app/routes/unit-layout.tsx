@@ -5,6 +5,7 @@ import { ErrorState, LoadingState } from '@frontend/components/ui/query-state';
 import { useSession } from '@frontend/features/session/api/get-session';
 import { useUnit, type UnitDetail } from '@frontend/features/units/api/get-unit';
 import { fieldUnits, type FieldUnits, type UnitSystem } from '@frontend/lib/field-units';
+import { usePageTitle, useRouteTitle } from '../page-title';
 
 export interface UnitPageContext {
   organisationId: string;
@@ -26,6 +27,8 @@ export function UnitLayout() {
   const { data: session } = useSession();
   const organisationId = session?.activeOrganisationId ?? '';
   const unit = useUnit(organisationId, unitId);
+  const tab = useRouteTitle();
+  usePageTitle(unit.data ? `${tab ?? 'Unit'} — ${unit.data.name}, ${unit.data.plant.name}` : tab);
   if (!session?.user || !organisationId) return <NoOrganisation />;
   if (unit.isPending) return <LoadingState what="the unit" />;
   if (unit.isError) return <ErrorState what="the unit" error={unit.error} onRetry={() => unit.refetch()} />;
@@ -45,7 +48,10 @@ export function UnitLayout() {
           <Link to="/plants" className="hover:text-ink hover:underline">
             Plants
           </Link>{' '}
-          › {unit.data.plant.name}
+          ›{' '}
+          <Link to={`/plants/${unit.data.plant.id}`} className="hover:text-ink hover:underline">
+            {unit.data.plant.name}
+          </Link>
         </p>
         <h1>
           {unit.data.plant.name} — {unit.data.name}
@@ -53,16 +59,13 @@ export function UnitLayout() {
       </div>
       <nav aria-label="Unit" className="flex flex-wrap gap-1 border-b border-rule">
         <NavLink to={base} end className={tabClass}>
-          Health
+          Condition and cost
         </NavLink>
         <NavLink to={`${base}/setup`} className={tabClass}>
           Setup
         </NavLink>
-        <NavLink to={`${base}/import`} className={tabClass}>
-          Import
-        </NavLink>
-        <NavLink to={`${base}/imports`} className={tabClass}>
-          Imports
+        <NavLink to={`${base}/data`} className={tabClass}>
+          Data files
         </NavLink>
         <NavLink to={`${base}/events`} className={tabClass}>
           Events

@@ -52,7 +52,7 @@ export function UnitOverviewPage() {
       </Link>
     ),
     !hasData && (
-      <Link key="import" className={linkClass} to={`/units/${unit.id}/import`}>
+      <Link key="import" className={linkClass} to={`/units/${unit.id}/data`}>
         import its performance data
       </Link>
     ),

@@ -6,17 +6,24 @@ interface Props extends InputHTMLAttributes<HTMLInputElement> {
   hint?: string;
 }
 
-/** A labelled input with its error shown where the field is. */
-export function TextField({ label, error, hint, ...input }: Props) {
+/** A labelled input with its error shown where the field is; a required one is marked with an asterisk beside its label. */
+export function TextField({ label, error, hint, required, ...input }: Props) {
   const id = useId();
   const describedBy = [error ? `${id}-error` : null, hint ? `${id}-hint` : null].filter(Boolean).join(' ') || undefined;
   return (
     <div className="flex flex-col gap-1">
       <label htmlFor={id} className="text-sm font-medium text-ink">
         {label}
+        {required && (
+          <span aria-hidden="true" className="ml-0.5 text-fault" title="required">
+            *
+          </span>
+        )}
       </label>
       <input
         id={id}
+        required={required}
+        aria-required={required || undefined}
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy}
         className={`rounded border bg-paper-raised px-2.5 py-1.5 text-sm ${error ? 'border-fault' : 'border-rule'}`}

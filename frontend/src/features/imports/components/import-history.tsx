@@ -1,4 +1,3 @@
-import { Link } from 'react-router-dom';
 import { ConfirmAction } from '@frontend/components/ui/confirm-action';
 import { DataTable, td, th, tr } from '@frontend/components/ui/data-table';
 import { EmptyState } from '@frontend/components/ui/empty-state';
@@ -27,15 +26,9 @@ export function ImportHistory({ organisationId, unitId, plantTimeZone, cannotWri
         next={
           cannotWrite
             ? 'Historian files appear here once an analyst or administrator imports them.'
-            : 'Import a historian export (CSV or XLSX) to bring in this unit’s performance data.'
+            : 'Choose a historian export (CSV or XLSX) above to bring in this unit’s performance data.'
         }
-      >
-        {!cannotWrite && (
-          <Link className={linkClass} to={`/units/${unitId}/import`}>
-            Import data
-          </Link>
-        )}
-      </EmptyState>
+      />
     );
   }
   return (

@@ -24,7 +24,7 @@ export function UploadStep(props: Props) {
     <section aria-label="Import data" className="flex flex-col gap-2 rounded border border-rule bg-paper-raised p-4">
       <h2>Import data</h2>
       <ReadOnlyReason reason={props.disabledReason} action="import historian data" />
-      <p className="text-sm text-ink-soft">The files already imported for this unit, with their dates and counts, are in the import history.</p>
+      <p className="text-sm text-ink-soft">The files already imported for this unit, with their dates and counts, are listed under Imported files.</p>
     </section>
   );
 }

@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import { useRef, useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
 import { unitInput } from '@shared/schemas/unit-setup';
 import { Button } from '@frontend/components/ui/button';
@@ -6,6 +6,7 @@ import type { GroupOption } from '@frontend/components/ui/client-group-picker';
 import { ConfirmAction } from '@frontend/components/ui/confirm-action';
 import { DataTable, td, th, tr } from '@frontend/components/ui/data-table';
 import { EmptyState } from '@frontend/components/ui/empty-state';
+import { useFocusFirstProblem } from '@frontend/components/ui/form-problems';
 import { Notice } from '@frontend/components/ui/notice';
 import { linkClass } from '@frontend/components/ui/public-page';
 import { ErrorState, LoadingState } from '@frontend/components/ui/query-state';
@@ -52,12 +53,12 @@ export function PlantsList({ organisationId, groups, cannotWrite }: Props) {
       {cannotWrite ? (
         <ReadOnlyReason reason={cannotWrite} action="create, change and delete plants and units" />
       ) : (
-        <PlantForm organisationId={organisationId} groups={groups} />
+        <NewPlant organisationId={organisationId} groups={groups} />
       )}
       {sections.length === 0 ? (
         <EmptyState
           title="No plants yet"
-          next={cannotWrite ? 'An analyst or administrator sets up plants and their units.' : 'Create a plant above, then add its generating units and set up each condenser.'}
+          next={cannotWrite ? 'An analyst or administrator sets up plants and their units.' : 'Start with New plant above, then add its generating units and set up each condenser.'}
         />
       ) : (
         sections.map((s) => (
@@ -83,7 +84,11 @@ function PlantCard({ plant, organisationId, groups, cannotWrite }: { plant: Plan
     <article className="flex flex-col gap-3 rounded border border-rule bg-paper-raised p-4" data-testid="plant-card" aria-label={plant.name}>
       <div className="flex flex-wrap items-start justify-between gap-3">
         <div>
-          <h3 className="text-base font-semibold">{plant.name}</h3>
+          <h3 className="text-base font-semibold">
+            <Link className={linkClass} to={`/plants/${plant.id}`} title={`${plant.name}: its units and their condition`}>
+              {plant.name}
+            </Link>
+          </h3>
           <p className="text-xs text-ink-soft">Local time: {plant.timeZone.replace(/_/g, ' ')}</p>
         </div>
         {!cannotWrite && (
@@ -169,9 +174,24 @@ function PlantCard({ plant, organisationId, groups, cannotWrite }: { plant: Plan
   );
 }
 
+/** The new-plant form opens from its button and closes again when the plant is created or the person cancels. */
+function NewPlant({ organisationId, groups }: { organisationId: string; groups: GroupOption[] }) {
+  const [open, setOpen] = useState(false);
+  if (!open) {
+    return (
+      <div>
+        <Button onClick={() => setOpen(true)}>New plant</Button>
+      </div>
+    );
+  }
+  return <PlantForm organisationId={organisationId} groups={groups} onDone={() => setOpen(false)} onCancel={() => setOpen(false)} />;
+}
+
 function AddUnitForm({ plant, organisationId }: { plant: PlantView; organisationId: string }) {
   const create = useCreateUnit(organisationId);
   const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
+  const formRef = useRef<HTMLFormElement>(null);
+  useFocusFirstProblem(formRef, fieldErrors);
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
     const form = event.currentTarget;
@@ -182,9 +202,9 @@ function AddUnitForm({ plant, organisationId }: { plant: PlantView; organisation
   };
   const message = formMessage(create.error);
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-wrap items-start gap-3" aria-label={`Add a unit to ${plant.name}`}>
+    <form ref={formRef} onSubmit={onSubmit} noValidate className="flex flex-wrap items-start gap-3" aria-label={`Add a unit to ${plant.name}`}>
       <div className="min-w-56">
-        <TextField label="New unit" name="name" placeholder="e.g. Unit 3" error={fieldErrors.name ?? message ?? undefined} />
+        <TextField label="New unit" name="name" placeholder="e.g. Unit 3" required error={fieldErrors.name ?? message ?? undefined} />
       </div>
       <Button type="submit" variant="quiet" className="mt-6" disabled={create.isPending}>
         {create.isPending ? 'Adding…' : 'Add unit'}

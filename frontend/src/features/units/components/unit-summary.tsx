@@ -84,7 +84,7 @@ export function UnitSummary({
             }
           >
             {!cannotWrite && (
-              <Link className={linkClass} to={`/units/${unit.id}/import`}>
+              <Link className={linkClass} to={`/units/${unit.id}/data`}>
                 Import data
               </Link>
             )}
@@ -95,7 +95,7 @@ export function UnitSummary({
             {!cannotWrite && (
               <>
                 {' '}
-                <Link className={linkClass} to={`/units/${unit.id}/import`}>
+                <Link className={linkClass} to={`/units/${unit.id}/data`}>
                   Import more
                 </Link>
               </>
