@@ -7,9 +7,12 @@
 
 const dayFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
 
+/** Three letters for every month, as on the chart axes: recent ICU writes September "Sept" in en-GB. */
+export const threeLetterMonths = (text: string): string => text.replace(/\bSept\b/g, 'Sep');
+
 /** A plant-local calendar day ("2026-03-14") as "14 Mar 2026"; a dash when there is none. */
 export function formatDay(day: string | null | undefined): string {
-  return day ? dayFormat.format(new Date(`${day.slice(0, 10)}T00:00:00Z`)) : '—';
+  return day ? threeLetterMonths(dayFormat.format(new Date(`${day.slice(0, 10)}T00:00:00Z`))) : '—';
 }
 
 /** A moment (ISO timestamp) as the calendar day it falls on in a time zone, e.g. the plant's; "14 Mar 2026". */
@@ -17,9 +20,9 @@ export function formatDayOfMoment(iso: string | Date | null | undefined, timeZon
   if (!iso) return '—';
   const at = typeof iso === 'string' ? new Date(iso) : iso;
   try {
-    return new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone }).format(at);
+    return threeLetterMonths(new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone }).format(at));
   } catch {
-    return dayFormat.format(at);
+    return threeLetterMonths(dayFormat.format(at));
   }
 }
 

@@ -1,4 +1,4 @@
-import { formatNumber } from '@shared/text/display-format';
+import { formatNumber, threeLetterMonths } from '@shared/text/display-format';
 /**
  * Dates and times for display: one place, so every screen reads the same way. A day reads "14 Mar 2026"; a
  * moment reads "14 Mar 2026, 09:05 UTC+1" and always names its zone, in one style everywhere: the offset from
@@ -15,10 +15,10 @@ export function zoneName(at: Date, timeZone: string): string {
 
 function moment(at: Date, timeZone: string): string {
   const text = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZone }).format(at);
-  return `${text} ${zoneName(at, timeZone)}`;
+  return `${threeLetterMonths(text)} ${zoneName(at, timeZone)}`;
 }
 
-export const formatDate = (iso: string | null | undefined): string => (iso ? dateFormat.format(new Date(iso)) : '—');
+export const formatDate = (iso: string | null | undefined): string => (iso ? threeLetterMonths(dateFormat.format(new Date(iso))) : '—');
 
 /** A moment of the records (an import, a recompute, an audit entry) on the reader's clock, or a given zone's, with the zone named. */
 export function formatDateTime(iso: string | null | undefined, timeZone?: string): string {
@@ -70,7 +70,7 @@ export function formatPlantTime(iso: string | null | undefined, timeZone: string
 export function formatPlantDate(iso: string | null | undefined, timeZone: string): string {
   if (!iso) return '—';
   try {
-    return new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone }).format(new Date(iso));
+    return threeLetterMonths(new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone }).format(new Date(iso)));
   } catch {
     return formatDate(iso);
   }

@@ -20,3 +20,12 @@ describe('display formats on the screens', () => {
     expect(formatBytes(3 * 1024 * 1024)).toBe('3.0 MB');
   });
 });
+
+describe('months', () => {
+  it('writes every month with three letters, September too, in days and moments alike', async () => {
+    const { formatDay, formatDateTime, formatMonth } = await import('@frontend/lib/format');
+    expect(formatDay('2025-09-14')).toBe('14 Sep 2025');
+    expect(formatDateTime('2025-09-14T12:00:00Z', 'UTC')).toBe('14 Sep 2025, 12:00 UTC');
+    expect(formatMonth('2025-09')).toBe('Sep 2025');
+  });
+});
