@@ -83,8 +83,7 @@ export async function storeRows(ds: DataSource, job: JobLease, { importId, store
     await inFlight;
     if (importFaults.failAfterBatches !== null && batches >= importFaults.failAfterBatches) throw new Error('injected fault during import');
     batches++;
-    const times = samples.map((s) => new Date(s.timestampUtc));
-    const existing = await storedReadingsBetween(ds.manager, unit.id, times[0], times[times.length - 1]);
+    const existing = await storedReadingsBetween(ds.manager, unit.id, new Date(samples[0]!.timestampUtc), new Date(samples[samples.length - 1]!.timestampUtc));
     const batch = sortAgainstStored(samples, existing);
     skippedIdentical += batch.skippedIdentical;
     conflicting += batch.conflicting.length;
