@@ -174,6 +174,26 @@ describe('finding one’s way: plant page, one data tab, page names, form proble
     await page.getByRole('heading', { name: 'Local mailbox' }).waitFor();
   });
 
+  it('the cleanliness and breakdown charts open as tables from the keyboard, one row per day or month drawn', async () => {
+    await page.goto(`${server.url}/units/${unitId}`);
+    const chart = page.getByTestId('chart-cleanliness');
+    await chart.waitFor();
+    const toggle = chart.getByRole('button', { name: 'Show as a table' });
+    await toggle.focus();
+    await page.keyboard.press('Enter');
+    const table = chart.getByTestId('chart-table');
+    await table.waitFor();
+    const points = Number(await chart.getAttribute('data-points'));
+    // one row per day drawn, then the forecast's days
+    expect(await table.locator('tbody tr').count()).toBeGreaterThanOrEqual(points);
+    expect(await table.locator('tbody tr').first().textContent()).toMatch(/\d+\.\d %/);
+    expect(await chart.getByRole('button', { name: 'Hide the table' }).getAttribute('aria-expanded')).toBe('true');
+    const breakdown = page.getByTestId('chart-breakdown');
+    await breakdown.getByRole('button', { name: 'Show as a table' }).click();
+    expect(await breakdown.getByTestId('chart-table').locator('tbody tr').count()).toBe(Number(await breakdown.getAttribute('data-points')));
+    await page.screenshot({ path: '/tmp/nav-chart-table-1280.png', fullPage: true });
+  });
+
   it('at tablet width the plant page, the data tab and the overview still read (screenshots)', async () => {
     const tablet = await newPage(800);
     await tablet.goto(`${server.url}/plants/${plant.id}`);

@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { ChartTable, type ChartTableData } from '@frontend/components/ui/chart-table';
 
 export type LegendMark = 'line' | 'dash' | 'points' | 'band' | 'shade' | 'marker' | 'bar';
 
@@ -38,6 +39,7 @@ export function ChartFrame({
   testId,
   noteTestId,
   points,
+  table,
 }: {
   title: string;
   subtitle?: ReactNode;
@@ -48,6 +50,8 @@ export function ChartFrame({
   noteTestId?: string;
   /** how many points or bars are drawn; read by the browser test to see the chart follow the period */
   points: number;
+  /** the values drawn, for the chart's "Show as a table" */
+  table?: ChartTableData;
 }) {
   return (
     <figure className="chart-frame flex min-w-0 flex-col gap-2 rounded border border-rule bg-paper-raised p-3" data-testid={testId} data-points={points}>
@@ -64,6 +68,7 @@ export function ChartFrame({
         </ul>
       </figcaption>
       {children}
+      {table && <ChartTable table={table} />}
       {note && (
         <p className="text-2xs text-ink-faint" data-testid={noteTestId}>
           {note}

@@ -58,6 +58,14 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
       <ChartFrame
         testId="chart-cleanliness"
         points={health.series.length}
+        table={{
+          caption: 'Cleanliness factor by day: measured daily median and fitted trend, then the forecast with its band',
+          columns: ['Day', 'Measured', 'Fitted trend', 'Forecast', 'Band'],
+          rows: [
+            ...health.series.map((d) => [formatDay(d.day), d.cleanliness === null ? '—' : `${formatNumber(d.cleanliness * 100, 1)} %`, d.trendCleanliness === null ? '—' : `${formatNumber(d.trendCleanliness * 100, 1)} %`, '', '']),
+            ...health.forecast.map((f) => [formatDay(f.day), '', '', `${formatNumber(f.cleanliness * 100, 1)} %`, `${formatNumber(f.low * 100, 1)}–${formatNumber(f.high * 100, 1)} %`]),
+          ],
+        }}
         title="Cleanliness factor over time"
         subtitle="How clean the tubes are: 100 % is a new, clean condenser. The trend restarts at each cleaning."
         legend={[
@@ -254,6 +262,11 @@ function DeviationChart({ health, units, narrow }: { health: UnitHealth; units: 
     <ChartFrame
       testId="chart-breakdown"
       points={rows.length}
+      table={{
+        caption: `Why backpressure differs from design, each cause's mean by ${byWeek ? 'week' : 'month'} (${dp.label})`,
+        columns: [byWeek ? 'Week of' : 'Month', ...BREAKDOWN_CAUSES.map((c) => CAUSE_STYLES[c].label)],
+        rows: rows.map((r) => [byWeek ? formatDay(r.period) : formatMonth(r.period), ...BREAKDOWN_CAUSES.map((c) => signed(r[c], dp.decimals, dp.label))]),
+      }}
       title={`Why backpressure differs from design, by ${byWeek ? 'week' : 'month'}`}
       subtitle={
         health.design
