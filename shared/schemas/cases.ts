@@ -104,6 +104,11 @@ export const caseView = z
     inputs: calcScheduleInput,
     inputSources,
     results: calcScheduleOutput,
+    /**
+     * What the case rests on that a reader should weigh (a start before the data ends, few measured months, a trend
+     * extrapolated far past its fit): beside `results.warnings`, which stay exactly the calculation's own.
+     */
+    caseWarnings: z.array(z.string()).optional(),
     engineVersion: z.string(),
     builtFrom: z.object({ lastDataDay: isoDate.nullable(), setupVersion: z.number().int() }).strict(),
     /** the unit has data after `builtFrom.lastDataDay`: its last day and how many days later it is */

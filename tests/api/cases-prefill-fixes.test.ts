@@ -94,4 +94,19 @@ describe('a new case’s prefill', () => {
     expect(view.inputs.baseline).toEqual({ kind: 'every-planned-outage', methodId: 'shot-tube-cleaners' });
     expect(view.inputSources.baseline.detail).toMatch(/cheapest outage method/);
   });
+
+  it('moving a case’s start moves the measured days since the cleaning with it, and the case warns of what it rests on', async () => {
+    const made = caseView.parse((await analyst.post(`/api/units/${unit.id}/cases`).set(CSRF).send({ title: 'Moved start' }).expect(201)).body);
+    expect(made.caseWarnings?.join(' ')).toMatch(/measured/); // few months of history: the case says so beside its results
+    const later = addDays(made.inputs.startDate, 30);
+    const res = await analyst.patch(`/api/cases/${made.id}`).set(CSRF).send({ inputs: { ...made.inputs, startDate: later } });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    const moved = caseView.parse(res.body);
+    expect(moved.inputs.initial.daysSinceCleaning).toBe(made.inputs.initial.daysSinceCleaning + 30);
+    expect(moved.inputSources.startDate?.source).toBe('entered');
+    expect(moved.inputSources.initial?.source).toBe(made.inputSources.initial?.source);
+    expect(moved.inputSources.initial?.detail).toMatch(/moved with the start/);
+    // the results stay exactly the calculation's own for the stored inputs; the case's warnings stand beside them
+    expect(moved.results.warnings.join(' ')).not.toMatch(/measured in/);
+  });
 });

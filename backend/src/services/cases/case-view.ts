@@ -8,6 +8,7 @@ import { User } from '../../entities/user.entity.js';
 import type { TenantScope } from '../../policies/tenant-scope.js';
 import type { CaseInScope } from './case-access.js';
 import { actionsFor } from './case-rules.js';
+import { caseWarnings } from './case-prefill.js';
 import { lastDataDayOf } from './unit-history.js';
 
 const iso = (d: Date | null) => (d ? d.toISOString() : null);
@@ -51,6 +52,8 @@ export async function caseViewOf(em: EntityManager, scope: TenantScope, { record
     inputs: record.inputs,
     inputSources: record.inputSources,
     results: record.results,
+    // judged on the day the case was last changed, so a submitted case reads the same on any later day
+    caseWarnings: record.lastDataDay ? caseWarnings({ inputs: record.inputs, inputSources: record.inputSources, lastDataDay: record.lastDataDay }, record.updatedAt.toISOString().slice(0, 10)) : [],
     engineVersion: record.engineVersion,
     builtFrom: { lastDataDay: record.lastDataDay, setupVersion: record.setupVersion },
     newerData: newerDataOf(record.lastDataDay, await lastDataDayOf(em, unit.id)),

@@ -8,7 +8,7 @@ import { recordAudit } from '../audit.service.js';
 import { assertMay, caseInScope } from './case-access.js';
 import { caseViewOf, namesOf } from './case-view.js';
 import { calculateCase } from './calculate-case.js';
-import { canonical, markEntered } from './input-sources.js';
+import { alignInitialToStart, canonical, markEntered } from './input-sources.js';
 import { dayText } from './day-text.js';
 
 /**
@@ -18,7 +18,9 @@ import { dayText } from './day-text.js';
 export async function editCase(ds: DataSource, scope: TenantScope, id: string, patch: CasePatch): Promise<CaseView> {
   const before = await caseInScope(ds.manager, scope, id);
   assertMay('edit', before.record, scope);
-  const newInputs = patch.inputs !== undefined && canonical(patch.inputs) !== canonical(before.record.inputs) ? patch.inputs : undefined;
+  // A moved start moves the measured days since the cleaning with it (unless the initial condition was entered).
+  const aligned = patch.inputs !== undefined ? alignInitialToStart(patch.inputs, before.record.inputs, before.record.inputSources) : undefined;
+  const newInputs = aligned !== undefined && canonical(aligned) !== canonical(before.record.inputs) ? aligned : undefined;
   const results = newInputs ? calculateCase(newInputs, 400, 'These inputs cannot be calculated') : undefined;
   return ds.transaction(async (em) => {
     const found = await caseInScope(em, scope, id, true);
@@ -31,7 +33,12 @@ export async function editCase(ds: DataSource, scope: TenantScope, id: string, p
     }
     if (newInputs && results && canonical(newInputs) !== canonical(record.inputs)) {
       const name = (await namesOf(em, [scope.userId])).get(scope.userId) ?? 'a member';
-      record.inputSources = markEntered(record.inputs, newInputs, record.inputSources, `entered by ${name} on ${dayText(new Date().toISOString().slice(0, 10))}`);
+      const sources = markEntered(record.inputs, newInputs, record.inputSources, `entered by ${name} on ${dayText(new Date().toISOString().slice(0, 10))}`);
+      const previousInitial = record.inputSources.initial;
+      if (patch.inputs && canonical(newInputs.initial) !== canonical(patch.inputs.initial) && previousInitial) {
+        sources.initial = { ...previousInitial, detail: `${previousInitial.detail}; moved with the start` };
+      }
+      record.inputSources = sources;
       record.inputs = newInputs;
       record.results = results;
       record.engineVersion = ENGINE_VERSION;

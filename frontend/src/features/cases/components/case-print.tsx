@@ -51,7 +51,7 @@ export function CasePrint({ view, system }: { view: CaseView; system: UnitSystem
       </section>
       <section className="flex flex-col gap-2">
         <h2 className="text-base font-semibold">Figures</h2>
-        <CaseResults results={view.results} inputs={view.inputs} currency={view.currency} />
+        <CaseResults results={view.results} inputs={view.inputs} currency={view.currency} caseWarnings={view.caseWarnings} />
       </section>
       <section className="flex flex-col gap-2">
         <h2 className="text-base font-semibold">Inputs and where they came from</h2>

@@ -21,6 +21,8 @@ export interface CaseResultsProps {
   /** sensitivity and Monte Carlo from the last full computation, while `results` has none yet */
   previousUncertainty?: Pick<CalcScheduleOutput, 'sensitivity' | 'monteCarlo'> | null;
   narrow?: boolean;
+  /** what the case rests on (the case's own warnings), shown with the calculation's */
+  caseWarnings?: string[];
 }
 
 function Figure({ label, value, note, testId }: { label: string; value: string; note?: string; testId?: string }) {
@@ -38,7 +40,8 @@ function Figure({ label, value, note, testId }: { label: string; value: string; 
 const years = (v: number | null) => (v === null ? 'not within the horizon' : `${formatNumber(v, 1)} years`);
 
 /** The case's figures: what to do and when, what it is worth, and how sure that is. */
-export function CaseResults({ results, inputs, currency, uncertaintyUpdating, previousUncertainty, narrow }: CaseResultsProps) {
+export function CaseResults({ results, inputs, currency, uncertaintyUpdating, previousUncertainty, narrow, caseWarnings = [] }: CaseResultsProps) {
+  const warnings = [...caseWarnings, ...results.warnings];
   const bc = results.businessCase;
   const money = (v: number) => formatCurrency(v, currency);
   const first = results.cleanings[0];
@@ -184,11 +187,11 @@ export function CaseResults({ results, inputs, currency, uncertaintyUpdating, pr
       )}
 
       <SafetyCautions texts={cautions} testId="case-cautions" />
-      {results.warnings.length > 0 && (
+      {warnings.length > 0 && (
         <div className="rounded border border-warn/40 bg-ledger-50 px-3 py-2 text-xs text-warn" data-testid="case-warnings">
           <p className="font-semibold">Read these with the figures</p>
           <ul className="mt-1 list-disc space-y-0.5 pl-5">
-            {results.warnings.map((w) => (
+            {warnings.map((w) => (
               <li key={w}>{w}</li>
             ))}
           </ul>

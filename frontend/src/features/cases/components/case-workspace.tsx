@@ -107,6 +107,7 @@ export function CaseWorkspace({ organisationId, view, system, me, narrow }: Prop
             uncertaintyUpdating={draft !== null && whatIf.computingUncertainty}
             previousUncertainty={previousUncertainty}
             narrow={narrow}
+            caseWarnings={draft ? [] : view.caseWarnings}
           />
         </section>
       </div>
