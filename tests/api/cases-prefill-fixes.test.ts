@@ -47,7 +47,7 @@ describe('a new case’s prefill', () => {
     const plant = await createPlant(t.dataSource, tenant.organisation.id, tenant.groups[0].id);
     unit = await createUnit(t.dataSource, plant);
     const today = plantDayOf(Date.now(), TIME_ZONE);
-    const [y, m, d] = addDays(today, -DAYS - 1).split('-').map(Number);
+    const [y = 0, m = 1, d = 1] = addDays(today, -DAYS - 1).split('-').map(Number);
     const rows = physicalHistory({
       startUtc: Date.UTC(y, m - 1, d, 6, 0),
       hours: DAYS * H,
@@ -78,21 +78,21 @@ describe('a new case’s prefill', () => {
     expect(ids).toContain('sponge-ball-campaign');
     expect(ids).toContain('half-condenser-online');
     expect(ids).not.toContain('dear-outage-10');
-    expect(view.inputSources.methods.detail).toMatch(/12 of the organisation’s 16 cleaning methods/);
+    expect(view.inputSources.methods?.detail).toMatch(/12 of the organisation’s 16 cleaning methods/);
 
     // outages beyond the two-year horizon are prefilled too, so a longer horizon finds them
     expect(view.inputs.plannedOutages).toContainEqual(farOutage);
 
     // six weeks of history cover two or three months: the rest are marked, named and taken from the design CW inlet
     const cw = view.inputs.drivers.cwInletC as { monthly: number[] };
-    expect(view.inputSources['drivers.cwInletC'].source).toBe('prefilled');
-    expect(view.inputSources['drivers.cwInletC'].detail).toMatch(/measured in [23] of 12 months/);
+    expect(view.inputSources['drivers.cwInletC']?.source).toBe('prefilled');
+    expect(view.inputSources['drivers.cwInletC']?.detail).toMatch(/measured in [23] of 12 months/);
     expect(cw.monthly.filter((v) => v === TEST_CONDENSER.designCwInletC).length).toBeGreaterThanOrEqual(9);
-    expect(view.inputSources['drivers.loadFraction'].detail).toMatch(/off line .* counted as load 0/);
+    expect(view.inputSources['drivers.loadFraction']?.detail).toMatch(/off line .* counted as load 0/);
 
     // a plant cleans at its planned outages anyway: that is the baseline, with the cheapest outage method
     expect(view.inputs.baseline).toEqual({ kind: 'every-planned-outage', methodId: 'shot-tube-cleaners' });
-    expect(view.inputSources.baseline.detail).toMatch(/cheapest outage method/);
+    expect(view.inputSources.baseline?.detail).toMatch(/cheapest outage method/);
   });
 
   it('moving a case’s start moves the measured days since the cleaning with it, and the case warns of what it rests on', async () => {

@@ -72,7 +72,7 @@ describe('cleaning cases: review fixes', () => {
     plant = await createPlant(t.dataSource, tenant.organisation.id, tenant.groups[0].id);
     unit = await createUnit(t.dataSource, plant);
     const today = plantDayOf(Date.now(), TIME_ZONE);
-    const [y, m, d] = addDays(today, -DAYS - 1).split('-').map(Number);
+    const [y = 0, m = 1, d = 1] = addDays(today, -DAYS - 1).split('-').map(Number);
     const rows = physicalHistory({ startUtc: Date.UTC(y, m - 1, d, 6, 0), hours: DAYS * H, condenser: TEST_CONDENSER, turbine: TEST_TURBINE, cleanlinessAt });
     const up = await agents.analyst
       .post(`/api/units/${unit.id}/uploads`)

@@ -33,7 +33,7 @@ describe('demo cleaning cases', () => {
       .save({ organisationId: org.id, clientGroupId: null, name: 'Harrow Creek Station', timeZone: 'America/Chicago' });
     const analyst = await signedInAgent(t.app, 'analyst@northmere.example', DEMO_PASSWORD);
     const first = addDays(plantDayOf(Date.now(), 'America/Chicago'), -31);
-    const [y, m, d] = first.split('-').map(Number);
+    const [y = 0, m = 1, d = 1] = first.split('-').map(Number);
     for (const name of ['Unit 1', 'Unit 2']) {
       const unit = await t.dataSource
         .getRepository(GeneratingUnit)

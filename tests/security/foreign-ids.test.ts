@@ -27,7 +27,7 @@ let ownMethodKey: string;
 let foreignMethodKey: string;
 
 const addLibraryMethod = async (tenant: TenantFixture, key: string) =>
-  createMethod(t.dataSource, { organisationId: tenant.organisation.id, userId: tenant.users.admin.id, role: 'admin', clientGroupIds: null }, { ...TYPICAL_CLEANING_METHODS[1], id: key });
+  createMethod(t.dataSource, { organisationId: tenant.organisation.id, userId: tenant.users.admin.id, role: 'admin', clientGroupIds: null }, { ...TYPICAL_CLEANING_METHODS[1]!, id: key });
 
 beforeAll(async () => {
   t = await createTestApp();
@@ -119,7 +119,9 @@ describe('cleaning case named by its id', () => {
     ['get', `/api/cases/${id}/export.xlsx`, undefined],
   ];
   const call = (agent: TestAgent, [method, path, body]: [string, string, object | undefined]) => {
-    const req = (agent as unknown as Record<string, (p: string) => ReturnType<TestAgent['get']>>)[method](path);
+    const send = (agent as unknown as Record<string, ((p: string) => ReturnType<TestAgent['get']>) | undefined>)[method];
+    if (!send) throw new Error(`no request method ${method}`);
+    const req = send.call(agent, path);
     return method === 'get' ? req : req.set(CSRF).send(body);
   };
 

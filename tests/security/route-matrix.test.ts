@@ -57,7 +57,7 @@ const freshUnit = async (fx: Fixture) => createUnit(ds(), await freshPlant(fx));
 const freshCase = (fx: Fixture, status: 'draft' | 'submitted' | 'approved' = 'draft') => createCaseRecord(ds(), fx.unit, fx.a.users.analyst.id, status);
 const deciders = (ok: number) => members(ok, { analyst: 403, viewer: 403, otherTenant: 404, otherGroup: 404 });
 const freshMethod = (fx: Fixture) =>
-  createMethod(ds(), { organisationId: fx.a.organisation.id, userId: fx.a.users.admin.id, role: 'admin', clientGroupIds: null }, { ...TYPICAL_CLEANING_METHODS[2], id: `m-${Math.random().toString(36).slice(2, 10)}` });
+  createMethod(ds(), { organisationId: fx.a.organisation.id, userId: fx.a.users.admin.id, role: 'admin', clientGroupIds: null }, { ...TYPICAL_CLEANING_METHODS[2]!, id: `m-${Math.random().toString(36).slice(2, 10)}` });
 const plantBody = (fx: Fixture) => ({ name: `Plant ${Math.random().toString(36).slice(2)}`, timeZone: 'Europe/Berlin', clientGroupId: groupOne(fx) });
 
 const MATRIX: Record<string, Entry> = {

@@ -32,7 +32,7 @@ describe('where each input of a case came from', () => {
     const after = { ...base, discountRate: 0.1, drivers: { ...base.drivers, fuelPricePerMmbtu: 4 } };
     const marked = markEntered(base, after, sources, 'entered by Ann');
     expect(marked['drivers.fuelPricePerMmbtu']).toEqual({ source: 'entered', detail: 'entered by Ann' });
-    expect(marked.discountRate.source).toBe('entered');
+    expect(marked.discountRate?.source).toBe('entered');
     expect(marked['drivers.cwInletC']).toEqual(sources['drivers.cwInletC']);
     expect(marked.fouling).toEqual(sources.fouling);
   });
@@ -50,6 +50,6 @@ describe('where each input of a case came from', () => {
     expect(parsed.discountRate).toBe(0.11);
     expect(parsed.drivers.fuelPricePerMmbtu).toBe(5);
     expect(parsed.drivers.cwInletC).toBe(21);
-    expect(copy.inputSources.discountRate.source).toBe('entered');
+    expect(copy.inputSources.discountRate?.source).toBe('entered');
   });
 });

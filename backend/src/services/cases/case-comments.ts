@@ -46,6 +46,6 @@ export async function addComment(ds: DataSource, scope: TenantScope, caseId: str
       entityId: record.id,
       details: { commentId: saved.id },
     });
-    return (await views(em, [stored]))[0];
+    return (await views(em, [stored]))[0]!; // one stored comment in, one view out
   });
 }

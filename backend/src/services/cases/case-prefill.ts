@@ -217,7 +217,7 @@ export async function prefillCase(em: EntityManager, unit: GeneratingUnit, plant
   const checked = calcScheduleInput.safeParse(raw);
   if (!checked.success) {
     const issue = checked.error.issues[0];
-    throw conflict(`The unit's data does not make a case yet: ${issue.path.join('.')} ${issue.message}`);
+    throw conflict(`The unit's data does not make a case yet: ${issue ? `${issue.path.join('.')} ${issue.message}` : 'its inputs do not check'}`);
   }
   const inputs = checked.data;
 

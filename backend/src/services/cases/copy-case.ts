@@ -21,7 +21,8 @@ export async function copyCase(ds: DataSource, scope: TenantScope, id: string): 
     const checked = calcScheduleInput.safeParse(merged.inputs);
     if (!checked.success) {
       const issue = checked.error.issues[0];
-      throw new AppError(409, `The entered inputs no longer fit the unit’s current data (${issue.path.join('.')}: ${issue.message}); start a new case instead`);
+      const why = issue ? ` (${issue.path.join('.')}: ${issue.message})` : '';
+      throw new AppError(409, `The entered inputs no longer fit the unit’s current data${why}; start a new case instead`);
     }
     const title = `${found.record.title.slice(0, 113)} (copy)`;
     return storeNewCase(

@@ -2,6 +2,6 @@ const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', '
 
 /** A plant-local date for a sentence: 2026-03-14 → "14 Mar 2026". */
 export function dayText(isoDate: string): string {
-  const [y, m, d] = isoDate.split('-').map(Number);
+  const [y, m = 1, d] = isoDate.split('-').map(Number);
   return `${d} ${MONTHS[m - 1]} ${y}`;
 }

@@ -41,8 +41,8 @@ export function markEntered(before: CalcScheduleInput, after: CalcScheduleInput,
   const now = inputsByKey(after);
   const out: InputSources = {};
   for (const [key, value] of Object.entries(now)) {
-    const unchanged = key in was && canonical(was[key]) === canonical(value) && sources[key];
-    out[key] = unchanged ? sources[key] : { source: 'entered', detail };
+    const kept = key in was && canonical(was[key]) === canonical(value) ? sources[key] : undefined;
+    out[key] = kept ?? { source: 'entered', detail };
   }
   return out;
 }

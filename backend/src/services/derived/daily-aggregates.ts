@@ -51,7 +51,7 @@ export async function rebuildDailyAggregates(ds: DataSource, unitId: string, day
   for (;;) {
     const rows = await samplesAfter(ds.manager, unitId, lastId, 20_000, READ);
     if (rows.length === 0) break;
-    lastId = String(rows[rows.length - 1].id);
+    lastId = String(rows[rows.length - 1]!.id); // rows is not empty here
     for (const r of rows) {
       const ts = new Date(r.ts as string).getTime();
       if (lastTs !== null && intervals.length < 5000 && ts > lastTs) intervals.push(ts - lastTs);
@@ -74,13 +74,13 @@ export async function rebuildDailyAggregates(ds: DataSource, unitId: string, day
       acc.used++;
       acc.cf.push(Number(r.cleanliness));
       acc.ttd.push(Number(r.ttdK));
-      for (const m of MEANS) acc.sums[m] += Number(r[m] ?? 0);
+      for (const m of MEANS) acc.sums[m] = (acc.sums[m] ?? 0) + Number(r[m] ?? 0);
     }
   }
   const intervalH = Math.min(24, (median(intervals) ?? 3_600_000) / 3_600_000);
 
   const rows: DailyAggregateRow[] = [...days.entries()].map(([day, a]) => {
-    const mean = (m: (typeof MEANS)[number]) => (a.used ? a.sums[m] / a.used : null);
+    const mean = (m: (typeof MEANS)[number]) => (a.used ? (a.sums[m] ?? 0) / a.used : null);
     const hours = Math.min(24, (a.used + a.dropped) * intervalH);
     const stuck = a.used >= STUCK_MIN_POINTS ? SENSORS.filter((sensor) => !a.changed.has(sensor)) : [];
     const w = facts?.witnesses(day);

@@ -20,12 +20,13 @@ export interface CleaningMark {
 
 export function fitCycles(dailyCleanliness: Map<string, number>, cleanings: CleaningMark[], excludedDays: Set<string>): CycleTrend[] {
   const days = [...dailyCleanliness.keys()].sort();
-  if (days.length === 0) return [];
+  const firstDay = days[0];
+  if (firstDay === undefined) return [];
   const sorted = [...cleanings].sort((a, b) => a.date.localeCompare(b.date));
-  const before = sorted.filter((c) => c.date <= days[0]).at(-1);
+  const before = sorted.filter((c) => c.date <= firstDay).at(-1);
   const cycles: { start: string; end: string | null; cf0?: number }[] = [];
-  let current = { start: before?.date ?? days[0], cf0: before?.cleanlinessAfter ?? undefined };
-  for (const c of sorted.filter((c) => c.date > days[0])) {
+  let current = { start: before?.date ?? firstDay, cf0: before?.cleanlinessAfter ?? undefined };
+  for (const c of sorted.filter((c) => c.date > firstDay)) {
     cycles.push({ ...current, end: c.date });
     current = { start: c.date, cf0: c.cleanlinessAfter ?? undefined };
   }

@@ -11,7 +11,7 @@ export async function* readValidSamples(ds: DataSource, unitId: string): AsyncGe
   for (;;) {
     const rows = await reanalysableSamplesAfter(ds.manager, unitId, lastId, CHUNK);
     if (rows.length === 0) return;
-    lastId = String(rows[rows.length - 1].id);
+    lastId = String(rows[rows.length - 1]!.id); // rows is not empty here
     yield rows;
   }
 }
