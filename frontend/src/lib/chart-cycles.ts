@@ -25,7 +25,8 @@ export function costCycles(days: { day: string; foulingCost: number | null }[], 
   let cut = 0;
   for (const d of days) {
     let startsAtCleaning = false;
-    while (cut < cuts.length && cuts[cut] <= d.day) {
+    // the loop bound guarantees cuts[cut]
+    while (cut < cuts.length && cuts[cut]! <= d.day) {
       startsAtCleaning = true;
       cut += 1;
     }
@@ -50,8 +51,9 @@ export type GapSide = 'above' | 'below';
 export function gapShapes(points: { x: number; actual: number | null; expected: number | null }[]): { side: GapSide; points: [number, number][] }[] {
   const out: { side: GapSide; points: [number, number][] }[] = [];
   for (let i = 0; i + 1 < points.length; i += 1) {
-    const a = points[i];
-    const b = points[i + 1];
+    // the loop bound guarantees both days of the pair
+    const a = points[i]!;
+    const b = points[i + 1]!;
     if (a.actual === null || a.expected === null || b.actual === null || b.expected === null) continue;
     const da = a.actual - a.expected;
     const db = b.actual - b.expected;

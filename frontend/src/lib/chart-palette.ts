@@ -45,6 +45,7 @@ export const CHART_THEME = {
   crosshair: { line: { stroke: '#1d1f23', strokeWidth: 1, strokeOpacity: 0.5 } },
 } as const;
 
+const COARSEST_TICK_STEP = { days: 365, tickValues: 'every year', format: '%Y' } as const;
 const TICK_STEPS = [
   { days: 7, tickValues: 'every 7 days', format: '%-d %b' },
   { days: 14, tickValues: 'every 14 days', format: '%-d %b' },
@@ -52,12 +53,12 @@ const TICK_STEPS = [
   { days: 61, tickValues: 'every 2 months', format: '%b %Y' },
   { days: 91, tickValues: 'every 3 months', format: '%b %Y' },
   { days: 182, tickValues: 'every 6 months', format: '%b %Y' },
-  { days: 365, tickValues: 'every year', format: '%Y' },
+  COARSEST_TICK_STEP,
 ] as const;
 
 /** Ticks on a time axis: the finest step that keeps at most `maxTicks` labels (about one per 70 px). */
 export function timeTicks(spanDays: number, maxTicks = 8): { tickValues: string; format: string } {
-  const step = TICK_STEPS.find((s) => spanDays / s.days <= maxTicks) ?? TICK_STEPS[TICK_STEPS.length - 1];
+  const step = TICK_STEPS.find((s) => spanDays / s.days <= maxTicks) ?? COARSEST_TICK_STEP;
   return { tickValues: step.tickValues, format: step.format };
 }
 

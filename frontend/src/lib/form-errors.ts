@@ -17,7 +17,10 @@ export function zodFieldErrors(error: z.ZodError): FieldErrors {
 export function serverFieldErrors(error: unknown): FieldErrors {
   if (!(error instanceof ApiError)) return {};
   const out: FieldErrors = {};
-  for (const fe of error.details?.fieldErrors ?? []) out[String(fe.path).split('.')[0]] ??= fe.message;
+  for (const fe of error.details?.fieldErrors ?? []) {
+    const [field = ''] = String(fe.path).split('.');
+    out[field] ??= fe.message;
+  }
   return out;
 }
 
@@ -28,10 +31,10 @@ export function formMessage(error: unknown): string | null {
   return error instanceof Error ? error.message : 'Something went wrong';
 }
 
-/** Reads a form's text fields as strings. */
-export function formText(form: HTMLFormElement, ...names: string[]): Record<string, string> {
+/** Reads a form's text fields as strings, one per name asked for. */
+export function formText<Name extends string>(form: HTMLFormElement, ...names: Name[]): Record<Name, string> {
   const data = new FormData(form);
-  return Object.fromEntries(names.map((n) => [n, String(data.get(n) ?? '')]));
+  return Object.fromEntries(names.map((n) => [n, String(data.get(n) ?? '')])) as Record<Name, string>;
 }
 
 /** Like zodFieldErrors, but a problem inside a list says which row (1-based) and which column it is in. */

@@ -14,7 +14,7 @@ describe('fouling cost by cleaning cycle', () => {
       [day(4), day(7), 400, true],
       [day(8), day(10), 300, true],
     ]);
-    expect(cycles[1].running.map((r) => r.y)).toEqual([100, 200, 300, 400]);
+    expect(cycles[1]?.running.map((r) => r.y)).toEqual([100, 200, 300, 400]);
   });
 
   it('adds up to the period total, whatever the cleanings, and counts a missing day as nothing', () => {
@@ -26,12 +26,12 @@ describe('fouling cost by cleaning cycle', () => {
   it('keeps one cycle when no cleaning falls in the period, and ignores cleanings before it', () => {
     const cycles = costCycles(days, ['2025-01-10']);
     expect(cycles).toHaveLength(1);
-    expect(cycles[0].startsAtCleaning).toBe(false);
-    expect(cycles[0].cost).toBe(1000);
+    expect(cycles[0]?.startsAtCleaning).toBe(false);
+    expect(cycles[0]?.cost).toBe(1000);
   });
 
   it('marks the first cycle as starting at a cleaning when the period opens on a cleaning day', () => {
-    expect(costCycles(days, [day(1)])[0].startsAtCleaning).toBe(true);
+    expect(costCycles(days, [day(1)])[0]?.startsAtCleaning).toBe(true);
   });
 });
 
@@ -52,7 +52,7 @@ describe('gap between actual and expected backpressure', () => {
       { x: 10, actual: 6, expected: 8 },
     ]);
     expect(shapes).toHaveLength(2);
-    expect(shapes[0].points[1]).toEqual([5, 8]);
+    expect(shapes[0]?.points[1]).toEqual([5, 8]);
   });
 
   it('leaves a gap where either value is missing', () => {

@@ -4,6 +4,7 @@ import type { HealthHeadline } from '@frontend/features/health/api/get-health';
 import { healthSentence } from '@frontend/features/health/components/health-sentence';
 
 // demo-style figures, invented for the test
+const plannedStep = { date: '2026-12-20', endDate: '2026-12-21', methodId: 'm1', methodName: 'Brush sweep', unitDuringCleaning: 'online' as const };
 const base: HealthHeadline = {
   asOf: '2026-11-30',
   cleanliness: 0.712,
@@ -22,7 +23,7 @@ const base: HealthHeadline = {
     status: 'planned',
     planFrom: '2026-12-02',
     dataTo: '2026-11-30',
-    plan: [{ date: '2026-12-20', endDate: '2026-12-21', methodId: 'm1', methodName: 'Brush sweep', unitDuringCleaning: 'online' }],
+    plan: [plannedStep],
     next: { date: '2026-12-20', endDate: '2026-12-21', methodId: 'm1', methodName: 'Brush sweep', cleanlinessBefore: 0.7, cleanlinessAfter: 0.84, cleaningCost: 30_000, downtimeCost: 0, typicalValues: false },
     methodsBasis: 'the library',
   },
@@ -53,7 +54,7 @@ describe('the health view’s opening sentence', () => {
   });
 
   it('says an outage method is done in an outage, and a clean condenser is at its reference', () => {
-    const outage = { ...base, cleanliness: 0.86, nextCleaning: { ...base.nextCleaning!, plan: [{ ...base.nextCleaning!.plan![0], unitDuringCleaning: 'outage' as const }] } };
+    const outage = { ...base, cleanliness: 0.86, nextCleaning: { ...base.nextCleaning!, plan: [{ ...plannedStep, unitDuringCleaning: 'outage' as const }] } };
     const text = healthSentence(outage, '2026-12-02', 'USD');
     expect(text).toContain('at or above the 85 % reference');
     expect(text).toContain('clean in an outage (Brush sweep) by 20 Dec 2026');

@@ -56,7 +56,7 @@ export function CaseResults({ results, inputs, currency, uncertaintyUpdating, pr
         c.cautions.filter((t) => t !== GENERAL_CAUTION),
       );
   const cautions = [GENERAL_CAUTION, ...[...methodCautions].flatMap(([name, texts]) => texts.map((t) => `${name}: ${t}`))];
-  const cumulative = bc.cashflows.map((_, i) => bc.cashflows.slice(0, i + 1).reduce((a, b) => a + b, 0));
+  const yearlyCash = bc.cashflows.map((net, i) => ({ net, cumulative: bc.cashflows.slice(0, i + 1).reduce((a, b) => a + b, 0) }));
   return (
     <div className="flex flex-col gap-4">
       <div className="grid grid-cols-2 gap-2 sm:grid-cols-3 xl:grid-cols-3">
@@ -150,11 +150,11 @@ export function CaseResults({ results, inputs, currency, uncertaintyUpdating, pr
               </>
             }
           >
-            {bc.cashflows.map((v, i) => (
+            {yearlyCash.map(({ net, cumulative }, i) => (
               <tr key={i === 0 ? 'start' : `y${i}`} className={tr}>
                 <td className={td}>{i === 0 ? 'Start (up-front)' : `Year ${i}`}</td>
-                <td className={`${td} text-right tabular-nums`}>{money(v)}</td>
-                <td className={`${td} text-right tabular-nums`}>{money(cumulative[i])}</td>
+                <td className={`${td} text-right tabular-nums`}>{money(net)}</td>
+                <td className={`${td} text-right tabular-nums`}>{money(cumulative)}</td>
               </tr>
             ))}
           </DataTable>

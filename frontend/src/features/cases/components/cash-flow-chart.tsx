@@ -9,7 +9,7 @@ const COLOURS = { savings: CHART_COLOURS.measured, costs: CHART_COLOURS.cost };
 
 /** Each horizon year's fouling savings against the baseline (up) and the extra cleaning and downtime cost (down). */
 export default function CashFlowChart({ businessCase, currency }: { businessCase: CalcScheduleOutput['businessCase']; currency: string }) {
-  const rows: Row[] = businessCase.foulingSavings.map((s, i) => ({ year: `Year ${i + 1}`, savings: s, costs: -businessCase.extraCleaningCosts[i] }));
+  const rows: Row[] = businessCase.foulingSavings.map((s, i) => ({ year: `Year ${i + 1}`, savings: s, costs: -(businessCase.extraCleaningCosts[i] ?? 0) }));
   return (
     <div className="h-52 w-full print:h-44" role="img" aria-label="Yearly cash flows of the recommended schedule against the baseline">
       <ResponsiveBar<Row>

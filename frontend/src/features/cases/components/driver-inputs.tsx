@@ -50,7 +50,7 @@ function DriverField({ driver, value, props }: { driver: (typeof DRIVERS)[number
           {value.monthly.map((v, i) => (
             <CaseNumberField
               key={MONTHS[i]}
-              label={MONTHS[i]}
+              label={MONTHS[i] ?? `Month ${i + 1}`}
               value={v}
               onValue={(next) => set({ monthly: value.monthly.map((old, j) => (j === i ? next : old)) })}
               {...bounds}

@@ -18,8 +18,10 @@ export function intervalCurve(results: CalcScheduleOutput, inputs: CalcScheduleI
   const start = daily.findIndex((d) => d.date > first.endDate);
   const next = results.cleanings[1];
   const stop = next ? daily.findIndex((d) => d.date >= next.date) : daily.length;
-  const costPerDay = start < 0 ? [] : daily.slice(start, stop < 0 ? daily.length : stop).map((d) => d.foulingCost);
-  if (costPerDay.length < 14) return { ok: false, reason: 'The cycle after the first cleaning is shorter than two weeks in this schedule: too short to draw.' };
+  const cycleDays = start < 0 ? [] : daily.slice(start, stop < 0 ? daily.length : stop);
+  const costPerDay = cycleDays.map((d) => d.foulingCost);
+  const [cycleStart] = cycleDays;
+  if (!cycleStart || costPerDay.length < 14) return { ok: false, reason: 'The cycle after the first cleaning is shorter than two weeks in this schedule: too short to draw.' };
   const method = inputs.methods.map(resolveMethod).find((m) => m?.id === first.methodId);
   const cycle = {
     cleaningCost: first.cleaningCost,
@@ -30,7 +32,7 @@ export function intervalCurve(results: CalcScheduleOutput, inputs: CalcScheduleI
   };
   try {
     const points = costVersusInterval(cycle, costPerDay.length - 1, costPerDay.length > 200 ? 2 : 1);
-    return { ok: true, methodName: first.methodName, cycleDays: costPerDay.length, from: daily[start].date, points, optimum: optimalInterval(cycle) };
+    return { ok: true, methodName: first.methodName, cycleDays: costPerDay.length, from: cycleStart.date, points, optimum: optimalInterval(cycle) };
   } catch (error) {
     return { ok: false, reason: error instanceof Error ? error.message : 'The interval could not be computed.' };
   }

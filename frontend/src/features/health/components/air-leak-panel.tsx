@@ -15,13 +15,14 @@ const days = (from: string, to: string) => daysBetween(from, to) + 1;
 
 /** Periods that look like air getting into the condenser, with the witnesses that say so. */
 export function AirLeakPanel({ periods }: { periods: UnitHealth['airLeakPeriods'] }) {
+  const [firstPeriod] = periods;
   return (
     <section aria-labelledby="air-heading" className="flex flex-col gap-2 rounded border border-rule bg-paper-raised p-3" data-testid="air-leak-panel">
       <h2 id="air-heading" className="flex items-center gap-2 text-base">
         <span className="inline-block h-3 w-3 rounded-sm" style={{ background: CHART_COLOURS.airLeak }} aria-hidden />
         Suspected air in-leakage
       </h2>
-      {periods.length === 0 ? (
+      {!firstPeriod ? (
         <p className="text-sm text-ink-soft">None in this period. Sudden cleanliness drops with rising subcooling, dissolved oxygen or air-removal flow would be listed here.</p>
       ) : (
         <>
@@ -39,7 +40,7 @@ export function AirLeakPanel({ periods }: { periods: UnitHealth['airLeakPeriods'
               </li>
             ))}
           </ul>
-          <p className="text-xs text-ink">{periods[0].note}</p>
+          <p className="text-xs text-ink">{firstPeriod.note}</p>
         </>
       )}
     </section>

@@ -117,7 +117,7 @@ function NotesList({ view }: { view: ImportView }) {
 
 function RejectedImport({ view }: { view: ImportView }) {
   // a file-level error (unreadable, no header…) comes as one error without a column
-  const fileLevel = view.errors.length === 1 && !view.errors[0].column;
+  const fileLevel = view.errors.length === 1 && !view.errors[0]?.column;
   return (
     <div className="flex flex-col gap-3" data-testid="import-rejected">
       <Notice tone="fault">

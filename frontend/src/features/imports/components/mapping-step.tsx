@@ -38,6 +38,8 @@ interface Props {
   onCancel: () => void;
 }
 
+const UNASSIGNED: Assignment = { role: '', unit: '' };
+
 const selectClass = 'w-full rounded border border-rule bg-paper-raised px-2 py-1 text-sm';
 
 function initialAssignments(upload: UploadResponse): Record<string, Assignment> {
@@ -52,7 +54,7 @@ function initialAssignments(upload: UploadResponse): Record<string, Assignment> 
 }
 
 const defaultUnit = (q: ImportQuantity, guessed: string | null | undefined): string => {
-  const allowed = IMPORT_QUANTITY_UNITS[q] as readonly string[];
+  const allowed: readonly [string, ...string[]] = IMPORT_QUANTITY_UNITS[q];
   return guessed && allowed.includes(guessed) ? guessed : allowed[0];
 };
 
@@ -77,7 +79,7 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
     setAssignments((current) => {
       const next = { ...current };
       // one column per quantity: choosing it here takes it from another column
-      if (role) for (const h of Object.keys(next)) if (h !== header && next[h].role === role) next[h] = { role: '', unit: '' };
+      if (role) for (const [h, other] of Object.entries(next)) if (h !== header && other.role === role) next[h] = UNASSIGNED;
       next[header] = { role, unit: role && role !== 'timestamp' ? defaultUnit(role, guessByHeader.get(header)?.unit) : '' };
       return next;
     });
@@ -86,9 +88,9 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
     setVacuum(on);
     setAssignments((current) => {
       const next = { ...current };
-      for (const h of Object.keys(next)) {
-        if (on && next[h].role === 'backpressure') next[h] = { ...next[h], role: 'condenserVacuum' };
-        if (!on && next[h].role === 'condenserVacuum') next[h] = { ...next[h], role: 'backpressure' };
+      for (const [h, a] of Object.entries(next)) {
+        if (on && a.role === 'backpressure') next[h] = { ...a, role: 'condenserVacuum' };
+        if (!on && a.role === 'condenserVacuum') next[h] = { ...a, role: 'backpressure' };
       }
       return next;
     });
@@ -156,7 +158,8 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
         }
       >
         {upload.headers.map((header, index) => {
-          const a = assignments[header];
+          // every header has an assignment from the start; one missing is simply not imported
+          const a = assignments[header] ?? UNASSIGNED;
           const guess = guessByHeader.get(header);
           const samples = upload.sampleRows.slice(0, 3).map((r) => r[index] ?? '');
           return (

@@ -92,7 +92,8 @@ function CondenserEditor({ organisationId, unitId, saved, units, system }: Omit<
     <QuantityField label={label} unit={unitLabel(kinds[name])} value={texts[name]} onChange={set(name)} error={fieldErrors[name]} hint={hint} />
   );
   const message = formMessage(save.error);
-  const wallHint = tubeBwg ? `Wall ${system === 'us' ? `${BWG_WALL_IN[Number(tubeBwg)].toFixed(3)} in` : `${inToMm(BWG_WALL_IN[Number(tubeBwg)]).toFixed(2)} mm`}` : undefined;
+  const wallIn = tubeBwg ? BWG_WALL_IN[Number(tubeBwg)] : undefined;
+  const wallHint = wallIn === undefined ? undefined : `Wall ${system === 'us' ? `${wallIn.toFixed(3)} in` : `${inToMm(wallIn).toFixed(2)} mm`}`;
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Condenser" className="flex flex-col gap-5">

@@ -17,21 +17,25 @@ export interface CurveLinePoint {
 export function engineCurveLine(entered: readonly { x: number; y: number }[], samplesPerSegment = 32): CurveLinePoint[] {
   const points = [...entered].sort((a, b) => a.x - b.x);
   const asEntered = points.map((p) => ({ x: p.x, y: p.y, entered: true }));
-  if (points.length < 2 || points.some((p, i) => i > 0 && !(p.x > points[i - 1].x))) return asEntered;
+  const rising = points.every((p, i) => {
+    const before = points[i - 1];
+    return before === undefined || p.x > before.x;
+  });
+  if (points.length < 2 || !rising) return asEntered;
   const cubic = buildMonotoneCubic(
     points.map((p) => p.x),
     points.map((p) => p.y),
   );
   const line: CurveLinePoint[] = [];
-  for (let i = 0; i < points.length - 1; i++) {
-    line.push(asEntered[i]);
-    const from = points[i].x;
-    const step = (points[i + 1].x - from) / samplesPerSegment;
+  for (const [i, point] of asEntered.entries()) {
+    line.push(point);
+    const next = points[i + 1];
+    if (!next) break;
+    const step = (next.x - point.x) / samplesPerSegment;
     for (let k = 1; k < samplesPerSegment; k++) {
-      const x = from + k * step;
+      const x = point.x + k * step;
       line.push({ x, y: evaluateMonotoneCubic(cubic, x), entered: false });
     }
   }
-  line.push(asEntered[points.length - 1]);
   return line;
 }
