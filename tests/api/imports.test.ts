@@ -47,7 +47,7 @@ function goodWeek(): HistorianRow[] {
     turbine: TEST_TURBINE,
     loadAt: (h) => (h === LOW_LOAD_ROW ? 0.3 * TEST_TURBINE.ratingMw : 0.88 * TEST_TURBINE.ratingMw + 4 * Math.sin((2 * Math.PI * h) / 24)),
   });
-  const r = rows[RISE_ROW];
+  const r = rows[RISE_ROW]!; // a fixed row inside the made-up week
   r.cwOutletC = r.cwInletC;
   r.cleanliness = Number.NaN;
   r.cells = usCells(r);
@@ -163,7 +163,7 @@ describe('historian imports through the API', () => {
       const stored = await samplesOf(unit.id);
       expect(stored).toHaveLength(168);
       stored.forEach((s, i) => {
-        const truth = rows[i];
+        const truth = rows[i]!; // stored has as many rows as the file (asserted above)
         expect(new Date(s.ts).getTime()).toBe(truth.timestampUtc);
         expect(s.importId).toBe(imp.id);
         // US units back to SI with the NIST SP 811 factors the file was written with (6-7 significant digits kept).
@@ -215,11 +215,12 @@ describe('historian imports through the API', () => {
       expect(b).toHaveLength(168);
       const fields = ['loadMw', 'backpressureKpa', 'cwInletC', 'cwOutletC', 'cwFlowM3s', 'cleanliness', 'ttdK', 'expectedBackpressureKpa'] as const;
       b.forEach((s, i) => {
-        expect(new Date(s.ts).getTime()).toBe(new Date(a[i].ts).getTime());
-        expect(s.validity).toBe(a[i].validity);
+        const twin = a[i]!; // both imports hold 168 rows (asserted above)
+        expect(new Date(s.ts).getTime()).toBe(new Date(twin.ts).getTime());
+        expect(s.validity).toBe(twin.validity);
         for (const f of fields) {
-          if (a[i][f] === null) expect(s[f]).toBeNull();
-          else expect(relClose(s[f]!, a[i][f]!, 1e-12)).toBe(true);
+          if (twin[f] === null) expect(s[f]).toBeNull();
+          else expect(relClose(s[f]!, twin[f]!, 1e-12)).toBe(true);
         }
       });
       expect((await dailyOf(xlsxUnit.id)).map((d) => [d.day, d.pointsUsed, d.pointsDropped])).toEqual((await dailyOf(csvUnit.id)).map((d) => [d.day, d.pointsUsed, d.pointsDropped]));
@@ -244,8 +245,8 @@ describe('historian imports through the API', () => {
       const stored = await samplesOf(unit.id);
       expect(stored.map((s) => new Date(s.ts).getTime())).toEqual(rows.map((r) => r.timestampUtc));
       // '2024-06-03 23:00' in Chicago is 04:00 UTC on 4 June and belongs to the plant day 3 June.
-      expect(rows[28].cells[0]).toBe('2024-06-03 23:00');
-      expect(new Date(stored[28].ts).toISOString()).toBe('2024-06-04T04:00:00.000Z');
+      expect(rows[28]?.cells[0]).toBe('2024-06-03 23:00');
+      expect(new Date(stored[28]!.ts).toISOString()).toBe('2024-06-04T04:00:00.000Z');
       const days = await dailyOf(unit.id);
       expect(days.find((d) => d.day === '2024-06-03')).toMatchObject({ pointsUsed: 24 });
     });
@@ -263,7 +264,7 @@ describe('historian imports through the API', () => {
       const unit = await newUnit();
       const lines = csvLines(goodWeek().slice(0, 48));
       // Data row k sits on file line k + 2 (line 1 is the header).
-      const cells = (line: number) => lines[line - 1].split(',');
+      const cells = (line: number) => (lines[line - 1] ?? '').split(',');
       const setCell = (line: number, col: number, value: string) => {
         const c = cells(line);
         c[col] = value;
@@ -272,7 +273,7 @@ describe('historian imports through the API', () => {
       setCell(5, 2, 'abc'); // text in BP inHgA
       setCell(9, 5, 'n/a'); // text in CW Flow gpm
       setCell(12, 3, '=1+2'); // a formula in CW In Temp F
-      setCell(16, 0, cells(15)[0]); // line 16 repeats the time of line 15
+      setCell(16, 0, cells(15)[0] ?? ''); // line 16 repeats the time of line 15
       const { imp } = await importFile(unit.id, await writeCsvLines(tmp.file('wrong-cells.csv'), lines), US_MAPPING);
 
       expect(imp.status).toBe('rejected');
@@ -364,7 +365,7 @@ describe('historian imports through the API', () => {
     it('a line over 100,000 characters is refused at upload when it is among the first rows, and rejects the import when it comes later', async () => {
       const unit = await newUnit();
       const widen = (lines: string[], index: number) => {
-        const c = lines[index].split(',');
+        const c = (lines[index] ?? '').split(',');
         c[1] = '9'.repeat(100_000);
         lines[index] = c.join(',');
         return lines;
@@ -410,17 +411,17 @@ describe('historian imports through the API', () => {
       expect(again.imp.counts).toMatchObject({ rowsRead: 168, stored: 0, skippedIdentical: 168, conflicting: 0 });
 
       const changed = rows.map((r) => ({ cells: [...r.cells] }));
-      changed[100].cells[2] = (Number(changed[100].cells[2]) + 0.1).toFixed(6);
+      changed[100]!.cells[2] = (Number(changed[100]!.cells[2]) + 0.1).toFixed(6);
       const extra = physicalHistory({ startUtc: START_UTC + 168 * 3_600_000, hours: 1, condenser: TEST_CONDENSER, turbine: TEST_TURBINE });
       const third = await importFile(unit.id, await writeHistorianCsv(tmp.file('again-3.csv'), [...changed, ...extra]));
       expect(third.imp.status).toBe('complete');
-      expect(third.imp.counts).toMatchObject({ rowsRead: 169, stored: 1, skippedIdentical: 167, conflicting: 1, conflicts: [{ timestampUtc: isoUtc(rows[100].timestampUtc).replace('Z', '.000Z') }] });
+      expect(third.imp.counts).toMatchObject({ rowsRead: 169, stored: 1, skippedIdentical: 167, conflicting: 1, conflicts: [{ timestampUtc: isoUtc(rows[100]!.timestampUtc).replace('Z', '.000Z') }] });
 
       const after = await samplesOf(unit.id);
       expect(after).toHaveLength(169);
-      expect(after[100].backpressureKpa).toBe(before[100].backpressureKpa);
-      expect(after[100].importId).toBe(first.imp.id);
-      expect(after[168].importId).toBe(third.imp.id);
+      expect(after[100]?.backpressureKpa).toBe(before[100]?.backpressureKpa);
+      expect(after[100]?.importId).toBe(first.imp.id);
+      expect(after[168]?.importId).toBe(third.imp.id);
     });
   });
 
@@ -486,7 +487,7 @@ describe('historian imports through the API', () => {
     const unit = await newUnit();
     await importFile(unit.id, await writeHistorianCsv(tmp.file('spot.csv'), goodWeek()));
     const valid = (await samplesOf(unit.id)).filter((s) => s.validity === 'ok');
-    const picks = [valid[0], valid[37], valid[90], valid.at(-1)!];
+    const picks = [valid[0]!, valid[37]!, valid[90]!, valid.at(-1)!]; // a week of hourly rows, most of them valid
     const c = TEST_CONDENSER;
     const inputs = picks.map((s) => ({
       backpressureKpa: s.backpressureKpa,
@@ -507,9 +508,9 @@ describe('historian imports through the API', () => {
     expect(out).toHaveLength(picks.length);
     picks.forEach((s, i) => {
       // Stored cleanliness is the measured CF (CF = U/U_clean, U = Q/(A_eff·LMTD)); the trend CF only enters the breakdown and costs.
-      expect(relClose(s.cleanliness!, out[i].cleanliness, 5e-4)).toBe(true);
-      expect(relClose(s.ttdK!, out[i].ttdK, 5e-4)).toBe(true);
-      expect(relClose(s.expectedBackpressureKpa!, out[i].expectedBackpressureKpa, 5e-4)).toBe(true);
+      expect(relClose(s.cleanliness!, out[i]!.cleanliness, 5e-4)).toBe(true);
+      expect(relClose(s.ttdK!, out[i]!.ttdK, 5e-4)).toBe(true);
+      expect(relClose(s.expectedBackpressureKpa!, out[i]!.expectedBackpressureKpa, 5e-4)).toBe(true);
     });
   });
 
@@ -551,7 +552,7 @@ describe('historian imports through the API', () => {
       const dead = await claimNextJob(t.dataSource, 'died-mid-import');
       expect(dead).toMatchObject({ kind: 'import', unitId: unit.id });
       // what the dead worker had stored before it died: the file's first row
-      const r = rows[0];
+      const r = rows[0]!;
       await t.dataSource.query(
         `INSERT INTO performance_sample (unitId, importId, timestampUtc, loadMw, backpressureKpa, cwInletC, cwOutletC, cwFlowM3s, validity) VALUES (?, ?, ?, ?, ?, ?, ?, ?, 'ok')`,
         [unit.id, importId, new Date(r.timestampUtc), r.loadMw, r.backpressureKpa, r.cwInletC, r.cwOutletC, r.cwFlowM3s],

@@ -7,9 +7,9 @@ import { giveUpImport, runImportJob } from '../services/import-job/run-import-jo
 const importJob: JobHandler = (ds, job) => runImportJob(ds, job, String(job.payload?.importId));
 importJob.giveUp = (em, job) => giveUpImport(em, String(job.payload?.importId), job.message ?? 'the import stopped');
 
-export const JOB_HANDLERS: Record<string, JobHandler> = {
+export const JOB_HANDLERS = {
   import: importJob,
   recompute: async (ds, job) => {
     await recomputeUnit(ds, job.unitId, (f, m) => reportProgress(ds, job, f, m));
   },
-};
+} satisfies Record<string, JobHandler>;
