@@ -22,7 +22,11 @@ const featureZones = features.map((f) => ({
 // One way through the front end: app → features → components and lib.
 const oneWayZones = [
   { target: './frontend/src/features', from: './frontend/src/app', message: 'features never import the app: the app composes features' },
-  { target: './frontend/src/components', from: ['./frontend/src/app', './frontend/src/features'], message: 'components/ are shared pieces: they import only lib/ and each other' },
+  {
+    target: './frontend/src/components',
+    from: ['./frontend/src/app', './frontend/src/features'],
+    message: 'components/ are shared pieces: they import only lib/ and each other',
+  },
   { target: './frontend/src/lib', from: ['./frontend/src/app', './frontend/src/features', './frontend/src/components'], message: 'lib/ is the bottom layer' },
 ];
 
@@ -52,7 +56,9 @@ export default tseslint.config(
             name,
             message: 'shared/domain is pure: no I/O',
           })),
-          patterns: [{ group: ['@backend/*', '@frontend/*', '**/backend/**', '**/frontend/**'], message: 'shared/ must not import from backend/ or frontend/' }],
+          patterns: [
+            { group: ['@backend/*', '@frontend/*', '**/backend/**', '**/frontend/**'], message: 'shared/ must not import from backend/ or frontend/' },
+          ],
         },
       ],
     },

@@ -18,7 +18,9 @@ export interface BenchRow {
 const dir = path.join(import.meta.dirname, 'cases');
 const only = process.argv.slice(2);
 const rows: BenchRow[] = [];
-for (const file of readdirSync(dir).filter((f) => f.endsWith('.ts') && (only.length === 0 || only.some((w) => f.startsWith(w)))).sort()) {
+for (const file of readdirSync(dir)
+  .filter((f) => f.endsWith('.ts') && (only.length === 0 || only.some((w) => f.startsWith(w))))
+  .sort()) {
   const mod = await import(path.join(dir, file));
   rows.push(...((await mod.default()) as BenchRow[]));
 }

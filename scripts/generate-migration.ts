@@ -29,8 +29,18 @@ try {
     const stamp = Date.now();
     const esc = (q: string) => q.replace(/\\/g, '\\\\').replace(/`/g, '\\`');
     const up = log.upQueries.map((q) => `    await q.query(\`${esc(q.query)}\`);`).join('\n');
-    const down = [...log.downQueries].reverse().map((q) => `    await q.query(\`${esc(q.query)}\`);`).join('\n');
-    const file = path.join(import.meta.dirname, '..', 'backend', 'src', 'migrations', `${stamp}-${name.replace(/([a-z0-9])([A-Z])/g, '$1-$2').toLowerCase()}.ts`);
+    const down = [...log.downQueries]
+      .reverse()
+      .map((q) => `    await q.query(\`${esc(q.query)}\`);`)
+      .join('\n');
+    const file = path.join(
+      import.meta.dirname,
+      '..',
+      'backend',
+      'src',
+      'migrations',
+      `${stamp}-${name.replace(/([a-z0-9])([A-Z])/g, '$1-$2').toLowerCase()}.ts`,
+    );
     writeFileSync(
       file,
       `import type { MigrationInterface, QueryRunner } from 'typeorm';\n\nexport class ${name}${stamp} implements MigrationInterface {\n  name = '${name}${stamp}';\n\n  async up(q: QueryRunner): Promise<void> {\n${up}\n  }\n\n  async down(q: QueryRunner): Promise<void> {\n${down}\n  }\n}\n`,

@@ -11,7 +11,13 @@ import { startMariaDb } from './lib/mariadb.js';
 const config = loadConfig();
 const db = config.DB_EXTERNAL
   ? null
-  : await startMariaDb({ dataDir: path.resolve(import.meta.dirname, '..', config.DB_DATA_DIR), port: config.DB_PORT, database: config.DB_NAME, user: config.DB_USER, password: config.DB_PASSWORD });
+  : await startMariaDb({
+      dataDir: path.resolve(import.meta.dirname, '..', config.DB_DATA_DIR),
+      port: config.DB_PORT,
+      database: config.DB_NAME,
+      user: config.DB_USER,
+      password: config.DB_PASSWORD,
+    });
 const ds = buildDataSource({ host: config.DB_HOST, port: config.DB_PORT, database: config.DB_NAME, user: config.DB_USER, password: config.DB_PASSWORD });
 await ds.initialize();
 try {
@@ -20,7 +26,9 @@ try {
   for (const u of units) {
     const started = Date.now();
     const outcome = await recomputeUnit(ds, u.id);
-    console.log(`${u.name}: ${outcome.samples} samples, ${outcome.days} days, ${outcome.cycles.length} cleaning cycles in ${((Date.now() - started) / 1000).toFixed(1)} s`);
+    console.log(
+      `${u.name}: ${outcome.samples} samples, ${outcome.days} days, ${outcome.cycles.length} cleaning cycles in ${((Date.now() - started) / 1000).toFixed(1)} s`,
+    );
   }
 } finally {
   await ds.destroy();

@@ -86,7 +86,11 @@ try {
   const distDir = path.resolve(root, config.FRONTEND_DIST_DIR);
   await build({ configFile: path.join(root, 'vite.config.ts'), logLevel: 'warn', mode: 'production', build: { outDir: distDir } });
 
-  const running: Running = await bootstrap(config, { staticDir: distDir, log, printMail: (text) => console.log(`[cleancase] ${text.replaceAll('\n', '\n[cleancase] ')}`) });
+  const running: Running = await bootstrap(config, {
+    staticDir: distDir,
+    log,
+    printMail: (text) => console.log(`[cleancase] ${text.replaceAll('\n', '\n[cleancase] ')}`),
+  });
   // Its own steps are time-limited; this limit covers them all.
   const appLimit = Object.values(STOP_LIMITS_MS).reduce((a, b) => a + b, 0) + 1_000;
   steps.push({ label: 'stopping the app', limitMs: appLimit, run: running.close });

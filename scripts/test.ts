@@ -16,7 +16,11 @@ const extraArgs = process.argv.slice(2);
 function step(title: string, command: string, args: string[]): boolean {
   console.log(`\n=== ${title}`);
   const started = Date.now();
-  const r = spawnSync(command, args, { cwd: root, stdio: 'inherit', env: { ...process.env, CLEANCASE_TEST_RUN: runId, FORCE_COLOR: process.env.CI ? '0' : process.env.FORCE_COLOR } });
+  const r = spawnSync(command, args, {
+    cwd: root,
+    stdio: 'inherit',
+    env: { ...process.env, CLEANCASE_TEST_RUN: runId, FORCE_COLOR: process.env.CI ? '0' : process.env.FORCE_COLOR },
+  });
   console.log(`=== ${title}: ${r.status === 0 ? 'ok' : 'FAILED'} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
   return r.status === 0;
 }
@@ -42,6 +46,7 @@ mkdirSync(path.dirname(resultsFile), { recursive: true });
 let ok = true;
 if (extraArgs.length === 0) {
   ok = step('lint (eslint)', bin('eslint'), ['.', '--max-warnings=0']) && ok;
+  ok = step('format (prettier --check)', bin('prettier'), ['--check', '.', '--log-level', 'warn']) && ok;
   // Node code without the browser's types, browser code without Node's, shared code with neither; then the tests.
   for (const project of ['node', 'browser', 'shared']) {
     ok = step(`typecheck ${project} (tsc --noEmit -p tsconfig.${project}.json)`, bin('tsc'), ['--noEmit', '-p', `tsconfig.${project}.json`]) && ok;

@@ -51,7 +51,10 @@ export function readNumberText(text: string, format: NumberFormat): NumberText {
   const couldBeThousands = /^[1-9]\d{0,2}$/.test(whole) && /^\d{3}$/.test(fraction);
   if (!couldBeThousands || mark === format.decimal) return number(`${whole || '0'}.${fraction || '0'}`);
   if (mark === ',') return number(`${whole}${fraction}`, `Read as ${whole}${fraction} (the comma separates thousands)`);
-  return { kind: 'ambiguous', message: `“${text.trim()}” could be ${whole}${fraction} or ${whole},${fraction}: write ${whole}${fraction} for the whole number, or ${whole},${fraction} with a decimal comma` };
+  return {
+    kind: 'ambiguous',
+    message: `“${text.trim()}” could be ${whole}${fraction} or ${whole},${fraction}: write ${whole}${fraction} for the whole number, or ${whole},${fraction} with a decimal comma`,
+  };
 }
 
 /** A number for an input: the person's decimal mark, no grouping, so it reads back to the same value. */

@@ -32,8 +32,7 @@ export const mpaToKpa = (mpa: number): number => mpa * 1000;
 export const kpaToMpa = (kpa: number): number => kpa / 1000;
 /** Absolute pressure = barometer − vacuum (both in the same unit). */
 export const absoluteFromVacuum = (barometer: number, vacuum: number): number => barometer - vacuum;
-export const absoluteKpaFromVacuumInHg = (barometerInHg: number, vacuumInHg: number): number =>
-  inHgToKpa(barometerInHg - vacuumInHg);
+export const absoluteKpaFromVacuumInHg = (barometerInHg: number, vacuumInHg: number): number => inHgToKpa(barometerInHg - vacuumInHg);
 export const absoluteKpaFromVacuumKpa = (barometerKpa: number, vacuumKpa: number): number => barometerKpa - vacuumKpa;
 
 // Temperature
@@ -109,18 +108,7 @@ export const bwgWallMm = (bwg: number): number => inToMm(bwgWallIn(bwg));
 // Display presets -----------------------------------------------------------------------------
 
 export type QuantityKind =
-  | 'pressure'
-  | 'temperature'
-  | 'temperatureDifference'
-  | 'flow'
-  | 'massFlow'
-  | 'heatRate'
-  | 'htc'
-  | 'power'
-  | 'length'
-  | 'area'
-  | 'velocity'
-  | 'money';
+  'pressure' | 'temperature' | 'temperatureDifference' | 'flow' | 'massFlow' | 'heatRate' | 'htc' | 'power' | 'length' | 'area' | 'velocity' | 'money';
 
 /** Internal (domain) unit of each quantity kind, the "SI" side of every preset entry. */
 export const INTERNAL_UNITS: Readonly<Record<QuantityKind, string>> = {

@@ -51,8 +51,6 @@ export interface CleancaseApp extends Express {
   locals: Express['locals'] & { routes: RouteSpec[]; close: () => Promise<void> };
 }
 
-
-
 export function createApp(deps: AppDeps): CleancaseApp {
   const { config, dataSource, logger } = deps;
   const app = express() as CleancaseApp;

@@ -36,7 +36,13 @@ export const STOP_LIMITS_MS = { http: 3_000, jobs: 5_000, mail: 3_000, sessions:
 export async function bootstrap(config: Config, options: BootstrapOptions = {}): Promise<Running> {
   const logger = createLogger(config.LOG_LEVEL, { pretty: config.NODE_ENV !== 'production' });
   const log = options.log ?? ((line: string) => logger.info(line));
-  const dataSource = buildDataSource({ host: config.DB_HOST, port: config.DB_PORT, database: config.DB_NAME, user: config.DB_USER, password: config.DB_PASSWORD });
+  const dataSource = buildDataSource({
+    host: config.DB_HOST,
+    port: config.DB_PORT,
+    database: config.DB_NAME,
+    user: config.DB_USER,
+    password: config.DB_PASSWORD,
+  });
   await dataSource.initialize();
   const applied = await dataSource.runMigrations({ transaction: 'each' });
   if (applied.length) logger.info({ migrations: applied.map((m) => m.name) }, 'migrations applied');
@@ -77,11 +83,16 @@ export async function bootstrap(config: Config, options: BootstrapOptions = {}):
     url: publicUrl(config),
     close: async () => {
       // Stop taking requests; open keep-alive and in-flight connections are closed, not waited for.
-      await withinTime('closing the HTTP server', STOP_LIMITS_MS.http, () => {
-        const closed = new Promise<void>((resolve) => server.close(() => resolve()));
-        server.closeAllConnections();
-        return closed;
-      }, report);
+      await withinTime(
+        'closing the HTTP server',
+        STOP_LIMITS_MS.http,
+        () => {
+          const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+          server.closeAllConnections();
+          return closed;
+        },
+        report,
+      );
       // A job still running keeps its lock and is taken over after a restart; it is not waited for beyond the limit.
       if (worker) await withinTime('stopping the job worker', STOP_LIMITS_MS.jobs, () => worker.stop(), report);
       if (outbox) await withinTime('stopping mail delivery', STOP_LIMITS_MS.mail, () => outbox.stop(STOP_LIMITS_MS.mail - 500), report);

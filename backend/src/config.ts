@@ -24,12 +24,18 @@ const schema = z.object({
   /** Reverse proxies whose X-Forwarded-For names the client: off, a hop count, or their addresses/subnets (loopback, 10.0.0.0/8). */
   TRUST_PROXY: z
     .string()
-    .regex(/^\s*(off|\d{1,2}|(loopback|linklocal|uniquelocal|[0-9a-f.:]+(\/\d{1,3})?)(\s*,\s*(loopback|linklocal|uniquelocal|[0-9a-f.:]+(\/\d{1,3})?))*)\s*$/i, 'off, a hop count, or the proxies’ addresses and subnets such as loopback, 10.0.0.0/8 (never every address: any client could then choose its own)')
+    .regex(
+      /^\s*(off|\d{1,2}|(loopback|linklocal|uniquelocal|[0-9a-f.:]+(\/\d{1,3})?)(\s*,\s*(loopback|linklocal|uniquelocal|[0-9a-f.:]+(\/\d{1,3})?))*)\s*$/i,
+      'off, a hop count, or the proxies’ addresses and subnets such as loopback, 10.0.0.0/8 (never every address: any client could then choose its own)',
+    )
     .default('off'),
 
   DB_HOST: z.string().default('127.0.0.1'),
   DB_PORT: z.coerce.number().int().min(1).max(65535).default(3307),
-  DB_NAME: z.string().regex(/^[A-Za-z0-9_]+$/, 'letters, digits and _ only').default('cleancase'),
+  DB_NAME: z
+    .string()
+    .regex(/^[A-Za-z0-9_]+$/, 'letters, digits and _ only')
+    .default('cleancase'),
   DB_USER: z.string().default('cleancase'),
   DB_PASSWORD: z.string().default('cleancase-local'),
   /** Folder of the private MariaDB instance started by `npm start`. Empty: use an external server. */
@@ -109,7 +115,10 @@ const MAX_PROXY_HOPS = 10;
 function trustProxyProblem(value: string): string | null {
   const v = value.trim();
   if (/^\d+$/.test(v)) return Number(v) > MAX_PROXY_HOPS ? `at most ${MAX_PROXY_HOPS} proxy hops (${v} would believe addresses the client wrote itself)` : null;
-  const everyAddress = v.split(',').map((s) => s.trim()).find((s) => /\/0+$/.test(s));
+  const everyAddress = v
+    .split(',')
+    .map((s) => s.trim())
+    .find((s) => /\/0+$/.test(s));
   return everyAddress ? `${everyAddress} trusts every address, so any client could choose its own; name the proxies' addresses or subnets` : null;
 }
 

@@ -57,7 +57,8 @@ export function createHttpLogger(logger: Logger) {
       req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, url: scrubUrl(req.url) }),
       res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
     },
-    customSuccessMessage: (req: IncomingMessage, res: ServerResponse, responseTime: number) => `${req.method} ${pathOf(req)} ${res.statusCode} ${Math.round(responseTime)} ms`,
+    customSuccessMessage: (req: IncomingMessage, res: ServerResponse, responseTime: number) =>
+      `${req.method} ${pathOf(req)} ${res.statusCode} ${Math.round(responseTime)} ms`,
     customErrorMessage: (req: IncomingMessage, res: ServerResponse, err: Error) => `${req.method} ${pathOf(req)} ${res.statusCode} failed: ${err.message}`,
   });
 }

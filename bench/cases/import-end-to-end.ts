@@ -32,11 +32,43 @@ const ROWS = 525_600;
 
 /** Bench setup values (invented, plausible for a ~500 MW unit). */
 const CONDENSER = {
-  shells: 1, passes: 2, tubeCount: 22000, tubeOdMm: 25.4, tubeBwg: 22, tubeMaterial: 'titanium' as const, tubeLengthM: 13.7, surfaceM2: 24050,
-  pluggedTubes: 100, designCwFlowM3s: 15.8, designCwInletC: 21, designDutyMw: 560, designBackpressureKpa: 7.5, designCleanliness: 0.9, designPluggedTubes: 0, referenceCleanliness: null,
+  shells: 1,
+  passes: 2,
+  tubeCount: 22000,
+  tubeOdMm: 25.4,
+  tubeBwg: 22,
+  tubeMaterial: 'titanium' as const,
+  tubeLengthM: 13.7,
+  surfaceM2: 24050,
+  pluggedTubes: 100,
+  designCwFlowM3s: 15.8,
+  designCwInletC: 21,
+  designDutyMw: 560,
+  designBackpressureKpa: 7.5,
+  designCleanliness: 0.9,
+  designPluggedTubes: 0,
+  referenceCleanliness: null,
 };
-const TURBINE = { ratingMw: 500, designHeatRateBtuKwh: 9600, heatBalanceDuty: [{ loadFraction: 0.4, dutyMw: 240 }, { loadFraction: 1, dutyMw: 560 }], correctionCurve: null, minimumLoadFraction: 0.4 };
-const ECONOMICS = { fuel: 'bituminous-coal', co2KgPerMmbtu: 93.28, fuelPricePerMmbtu: 2.5, replacementPricePerMwh: 50, capacityLimitedShare: 0.2, co2PricePerTonne: 0, discountRate: 0.08, currency: 'USD' };
+const TURBINE = {
+  ratingMw: 500,
+  designHeatRateBtuKwh: 9600,
+  heatBalanceDuty: [
+    { loadFraction: 0.4, dutyMw: 240 },
+    { loadFraction: 1, dutyMw: 560 },
+  ],
+  correctionCurve: null,
+  minimumLoadFraction: 0.4,
+};
+const ECONOMICS = {
+  fuel: 'bituminous-coal',
+  co2KgPerMmbtu: 93.28,
+  fuelPricePerMmbtu: 2.5,
+  replacementPricePerMwh: 50,
+  capacityLimitedShare: 0.2,
+  co2PricePerTonne: 0,
+  discountRate: 0.08,
+  currency: 'USD',
+};
 
 /** The year's rows as the store would write them, to a tab-separated file for the reference load. */
 async function writeLoadFile(csv: string, tsv: string, owner: { unitId: string; importId: string; setupVersion: number }): Promise<number> {
@@ -82,22 +114,57 @@ export default async function importEndToEnd(): Promise<BenchRow[]> {
   try {
     await ds.initialize();
     await ds.runMigrations({ transaction: 'each' });
-    const org = await ds.getRepository(Organisation).save({ name: 'Bench Generating', kind: 'utility', plan: 'trial', subscriptionStatus: 'trialing', trialEndsAt: null });
+    const org = await ds
+      .getRepository(Organisation)
+      .save({ name: 'Bench Generating', kind: 'utility', plan: 'trial', subscriptionStatus: 'trialing', trialEndsAt: null });
     const plant = await ds.getRepository(Plant).save({ organisationId: org.id, clientGroupId: null, name: 'Bench Plant', timeZone: 'America/Chicago' });
-    const unit = await ds.getRepository(GeneratingUnit).save({ organisationId: org.id, plantId: plant.id, name: 'Unit B', condenser: CONDENSER, turbine: TURBINE, economics: ECONOMICS, savedMapping: null } as Partial<GeneratingUnit>);
+    const unit = await ds.getRepository(GeneratingUnit).save({
+      organisationId: org.id,
+      plantId: plant.id,
+      name: 'Unit B',
+      condenser: CONDENSER,
+      turbine: TURBINE,
+      economics: ECONOMICS,
+      savedMapping: null,
+    } as Partial<GeneratingUnit>);
     const csv = path.join(dir, 'year.csv');
     await writeYearCsv(csv);
     const bytes = (await stat(csv)).size;
 
-    const refUnit = await ds.getRepository(GeneratingUnit).save({ organisationId: org.id, plantId: plant.id, name: 'Unit R', condenser: CONDENSER, turbine: TURBINE, economics: ECONOMICS, savedMapping: null } as Partial<GeneratingUnit>);
+    const refUnit = await ds.getRepository(GeneratingUnit).save({
+      organisationId: org.id,
+      plantId: plant.id,
+      name: 'Unit R',
+      condenser: CONDENSER,
+      turbine: TURBINE,
+      economics: ECONOMICS,
+      savedMapping: null,
+    } as Partial<GeneratingUnit>);
     const tsv = path.join(dir, 'year.tsv');
-    if ((await writeLoadFile(csv, tsv, { unitId: refUnit.id, importId: '00000000-0000-4000-8000-000000000000', setupVersion: refUnit.setupVersion })) !== ROWS) throw new Error('reference file is short');
+    if ((await writeLoadFile(csv, tsv, { unitId: refUnit.id, importId: '00000000-0000-4000-8000-000000000000', setupVersion: refUnit.setupVersion })) !== ROWS)
+      throw new Error('reference file is short');
     const loadSeconds = await referenceLoadSeconds(ds, tsv, refUnit.id);
     await rm(tsv);
 
     const imp = await ds.getRepository(DataImport).save({
-      organisationId: org.id, unitId: unit.id, uploadedByUserId: null, fileName: 'year.csv', fileBytes: bytes, fileKind: 'csv', status: 'checking', mapping: MAPPING,
-      counts: null, errors: null, errorCount: 0, notes: null, progress: 0, message: null, storedPath: csv, firstTimestamp: null, lastTimestamp: null, finishedAt: null,
+      organisationId: org.id,
+      unitId: unit.id,
+      uploadedByUserId: null,
+      fileName: 'year.csv',
+      fileBytes: bytes,
+      fileKind: 'csv',
+      status: 'checking',
+      mapping: MAPPING,
+      counts: null,
+      errors: null,
+      errorCount: 0,
+      notes: null,
+      progress: 0,
+      message: null,
+      storedPath: csv,
+      firstTimestamp: null,
+      lastTimestamp: null,
+      finishedAt: null,
     });
     global.gc?.();
     const base = process.memoryUsage().rss;
@@ -105,10 +172,13 @@ export default async function importEndToEnd(): Promise<BenchRow[]> {
     const timer = setInterval(() => (peak = Math.max(peak, process.memoryUsage().rss)), 50);
     const t0 = performance.now();
     let storedAt = Number.NaN;
-    const handlers = { ...JOB_HANDLERS, import: async (...args: Parameters<typeof JOB_HANDLERS.import>) => {
-      await JOB_HANDLERS.import(...args);
-      storedAt = performance.now();
-    } };
+    const handlers = {
+      ...JOB_HANDLERS,
+      import: async (...args: Parameters<typeof JOB_HANDLERS.import>) => {
+        await JOB_HANDLERS.import(...args);
+        storedAt = performance.now();
+      },
+    };
     await enqueueJob(ds.manager, { organisationId: org.id, unitId: unit.id, kind: 'import', payload: { importId: imp.id } });
     // the import job, then the recompute it queues (until the daily figures are written)
     await drainJobs(ds, handlers);

@@ -97,7 +97,12 @@ export default async (): Promise<BenchRow[]> => {
     });
     if (rows !== ROWS || samples !== ROWS) throw new Error(`expected ${ROWS} rows, checked ${rows}, imported ${samples}`);
     return [
-      { name: `import check, 1-min year CSV (${(size / 1e6).toFixed(0)} MB)`, value: ROWS / pass1.seconds, unit: 'rows/s', target: { value: 50_000, higherIsBetter: true } },
+      {
+        name: `import check, 1-min year CSV (${(size / 1e6).toFixed(0)} MB)`,
+        value: ROWS / pass1.seconds,
+        unit: 'rows/s',
+        target: { value: 50_000, higherIsBetter: true },
+      },
       { name: 'import check, per CPU second (all threads)', value: ROWS / pass1.cpuSeconds, unit: 'rows/CPU-s' },
       { name: 'import check, peak RSS growth', value: pass1.peakMb, unit: 'MB' },
       { name: 'import samples (convert, validity, batches)', value: ROWS / pass2.seconds, unit: 'rows/s', target: { value: 50_000, higherIsBetter: true } },

@@ -21,10 +21,14 @@ const root = path.resolve(import.meta.dirname, '..', '..');
 export default async function initialBundle(): Promise<BenchRow[]> {
   const outDir = mkdtempSync(path.join(os.tmpdir(), 'cleancase-bundle-'));
   try {
-    const built = spawnSync(path.join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'error', '--manifest', '--outDir', outDir, '--emptyOutDir'], {
-      cwd: root,
-      stdio: ['ignore', 'ignore', 'inherit'],
-    });
+    const built = spawnSync(
+      path.join(root, 'node_modules', '.bin', 'vite'),
+      ['build', '--logLevel', 'error', '--manifest', '--outDir', outDir, '--emptyOutDir'],
+      {
+        cwd: root,
+        stdio: ['ignore', 'ignore', 'inherit'],
+      },
+    );
     if (built.status !== 0) throw new Error('vite build failed');
     const manifest = JSON.parse(readFileSync(path.join(outDir, '.vite', 'manifest.json'), 'utf8')) as Record<string, ManifestChunk>;
     const seen = new Set<string>();
@@ -39,7 +43,14 @@ export default async function initialBundle(): Promise<BenchRow[]> {
       const file = manifest[key]?.file;
       if (file?.endsWith('.js')) gzipBytes += gzipSync(readFileSync(path.join(outDir, file)), { level: 9 }).length;
     }
-    return [{ name: 'front end: initial route JavaScript (entry + static imports, gzip)', value: gzipBytes / 1024, unit: 'KB', target: { value: 120, higherIsBetter: false } }];
+    return [
+      {
+        name: 'front end: initial route JavaScript (entry + static imports, gzip)',
+        value: gzipBytes / 1024,
+        unit: 'KB',
+        target: { value: 120, higherIsBetter: false },
+      },
+    ];
   } finally {
     rmSync(outDir, { recursive: true, force: true });
   }

@@ -146,7 +146,7 @@ export async function startMariaDb(options: MariaDbOptions): Promise<MariaDbInst
 
   const pid = child.pid!;
   const waitForExit = async (ms: number) => {
-    for (const end = Date.now() + ms; !exited && Date.now() < end; ) await sleep(100);
+    for (const end = Date.now() + ms; !exited && Date.now() < end;) await sleep(100);
     return exited;
   };
   /**
@@ -157,7 +157,10 @@ export async function startMariaDb(options: MariaDbOptions): Promise<MariaDbInst
   const stop = async () => {
     if (exited) return;
     await new Promise<void>((resolve) => {
-      const admin = spawn(binary('mariadb-admin'), ['--protocol=socket', `--socket=${socket}`, '-uroot', '--connect-timeout=5', 'shutdown'], { stdio: 'ignore', timeout: 10_000 });
+      const admin = spawn(binary('mariadb-admin'), ['--protocol=socket', `--socket=${socket}`, '-uroot', '--connect-timeout=5', 'shutdown'], {
+        stdio: 'ignore',
+        timeout: 10_000,
+      });
       admin.once('exit', () => resolve());
       admin.once('error', () => resolve());
     });

@@ -1,7 +1,10 @@
 import { z } from 'zod';
 import { roleSchema } from './session.js';
 
-const email = z.email('Enter an e-mail address').max(254).transform((e) => e.trim().toLowerCase());
+const email = z
+  .email('Enter an e-mail address')
+  .max(254)
+  .transform((e) => e.trim().toLowerCase());
 /** Names go into e-mails: plain text, no markup, no links (the mail templates strip them too). */
 const plainText = (s: string) => !/[<>]|:\/\/|\bwww\./i.test(s);
 const PLAIN_TEXT_MESSAGE = 'Use plain text: no links and no < or >';
@@ -11,7 +14,10 @@ const newPassword = z.string().min(1, 'Enter a password').max(4096);
 const uuid = z.uuid('Not a valid id');
 
 /** A client-group limit: each group once, whatever the client sent. */
-const groupIdList = z.array(uuid).max(200).transform((ids) => [...new Set(ids)]);
+const groupIdList = z
+  .array(uuid)
+  .max(200)
+  .transform((ids) => [...new Set(ids)]);
 
 export const signUpRequest = z
   .object({
@@ -37,14 +43,10 @@ export const profileUpdate = z
   .refine((v) => v.name !== undefined || v.unitPreference !== undefined, 'Nothing to change');
 export const passwordChange = z.object({ currentPassword: z.string().max(4096), newPassword }).strict();
 
-export const inviteRequest = z
-  .object({ email, role: roleSchema, clientGroupIds: groupIdList.nullable().default(null) })
-  .strict();
+export const inviteRequest = z.object({ email, role: roleSchema, clientGroupIds: groupIdList.nullable().default(null) }).strict();
 export type InviteRequest = z.infer<typeof inviteRequest>;
 
-export const acceptInvitationRequest = z
-  .object({ name: personName.optional(), password: newPassword.optional() })
-  .strict();
+export const acceptInvitationRequest = z.object({ name: personName.optional(), password: newPassword.optional() }).strict();
 
 export const memberUpdate = z
   .object({ role: roleSchema.optional(), clientGroupIds: groupIdList.nullable().optional() })

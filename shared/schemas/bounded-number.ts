@@ -11,9 +11,13 @@ export function within(what: string, min: number, max: number, unit = '', alsoIn
   const u = unit ? ` ${unit}` : '';
   const other = alsoIn ? ` (${plain(Number(alsoIn.fromSi(min).toPrecision(3)))} to ${plain(Number(alsoIn.fromSi(max).toPrecision(3)))} ${alsoIn.unit})` : '';
   const message = `${what.charAt(0).toUpperCase()}${what.slice(1)} must be between ${plain(min)} and ${plain(max)}${u}${other}`;
-  return z.number({ error: `Enter ${what}` }).min(min, message).max(max, message);
+  return z
+    .number({ error: `Enter ${what}` })
+    .min(min, message)
+    .max(max, message);
 }
-export const count = (what: string, min: number, max: number) => within(what, min, max).int(`${what.charAt(0).toUpperCase()}${what.slice(1)} is a whole number`);
+export const count = (what: string, min: number, max: number) =>
+  within(what, min, max).int(`${what.charAt(0).toUpperCase()}${what.slice(1)} is a whole number`);
 
 /** Cleanliness factor: the plausibility band of a physically possible condenser (common practice), capped at 1.2. */
 export const CLEANLINESS_RANGE = { min: 0.2, max: 1.2 } as const;

@@ -3,8 +3,7 @@ import { z } from 'zod';
 import { TUBE_MATERIALS } from '../domain/condenser/hei-tables.js';
 
 /** A number field with messages that name the unit. */
-const num = (unit: string) =>
-  z.number({ error: (iss) => (iss.input === undefined ? `required (${unit})` : `must be a number (${unit})`) });
+const num = (unit: string) => z.number({ error: (iss) => (iss.input === undefined ? `required (${unit})` : `must be a number (${unit})`) });
 
 const positive = (name: string, unit: string) => num(unit).positive(`${name} must be positive (${unit})`);
 

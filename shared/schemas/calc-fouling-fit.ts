@@ -8,7 +8,11 @@ export const calcFoulingFitInput = z
         z
           .object({
             day: z.number({ error: 'day must be a number (days since the cleaning)' }).finite().min(0, 'day cannot be negative'),
-            cleanliness: z.number({ error: 'cleanliness must be a number (fraction)' }).finite().gt(0, 'cleanliness must be above 0').max(1.5, 'cleanliness is a fraction, at most 1.5'),
+            cleanliness: z
+              .number({ error: 'cleanliness must be a number (fraction)' })
+              .finite()
+              .gt(0, 'cleanliness must be above 0')
+              .max(1.5, 'cleanliness is a fraction, at most 1.5'),
           })
           .strict(),
       )
@@ -16,7 +20,12 @@ export const calcFoulingFitInput = z
     cleanlinessAfterCleaning: z.number().finite().gt(0).max(1.5).optional(),
     uCleanWm2K: z.number().finite().positive('uCleanWm2K must be above 0 (W/(m²·K))').optional(),
     excludedPeriods: z
-      .array(z.object({ fromDay: z.number().finite(), toDay: z.number().finite() }).strict().refine((r) => r.toDay >= r.fromDay, 'toDay must not be before fromDay'))
+      .array(
+        z
+          .object({ fromDay: z.number().finite(), toDay: z.number().finite() })
+          .strict()
+          .refine((r) => r.toDay >= r.fromDay, 'toDay must not be before fromDay'),
+      )
       .max(1000)
       .optional(),
     forecastDays: z.number().int().min(0).max(1830).optional(),

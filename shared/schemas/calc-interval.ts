@@ -1,7 +1,11 @@
 /** `calc interval` contract (ENGINEERING.md §8): optimal interval of a repeating cleaning cycle (§6). */
 import { z } from 'zod';
 
-const money = (name: string) => z.number({ error: `${name} must be a number (money)` }).finite().min(0, `${name} cannot be negative`);
+const money = (name: string) =>
+  z
+    .number({ error: `${name} must be a number (money)` })
+    .finite()
+    .min(0, `${name} cannot be negative`);
 
 export const calcIntervalInput = z
   .object({

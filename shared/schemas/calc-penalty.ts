@@ -3,8 +3,7 @@ import { z } from 'zod';
 import { BACKPRESSURE_BOUNDS_KPA } from '../domain/validity/rejection-reasons.js';
 
 /** A number field with messages that name the unit. */
-const num = (unit: string) =>
-  z.number({ error: (iss) => (iss.input === undefined ? `required (${unit})` : `must be a number (${unit})`) });
+const num = (unit: string) => z.number({ error: (iss) => (iss.input === undefined ? `required (${unit})` : `must be a number (${unit})`) });
 
 export const correctionCurveSchema = z
   .object({
@@ -29,8 +28,14 @@ export const correctionCurveSchema = z
 /** A backpressure a condenser may read: 0.7–50 kPa(a), the bounds of a measured point (BACKPRESSURE_BOUNDS_KPA). */
 const backpressure = (name: string) =>
   num('kPa absolute')
-    .min(BACKPRESSURE_BOUNDS_KPA.min, `${name} must be ${BACKPRESSURE_BOUNDS_KPA.min}–${BACKPRESSURE_BOUNDS_KPA.max} kPa absolute, the range a condenser may read`)
-    .max(BACKPRESSURE_BOUNDS_KPA.max, `${name} must be ${BACKPRESSURE_BOUNDS_KPA.min}–${BACKPRESSURE_BOUNDS_KPA.max} kPa absolute, the range a condenser may read`);
+    .min(
+      BACKPRESSURE_BOUNDS_KPA.min,
+      `${name} must be ${BACKPRESSURE_BOUNDS_KPA.min}–${BACKPRESSURE_BOUNDS_KPA.max} kPa absolute, the range a condenser may read`,
+    )
+    .max(
+      BACKPRESSURE_BOUNDS_KPA.max,
+      `${name} must be ${BACKPRESSURE_BOUNDS_KPA.min}–${BACKPRESSURE_BOUNDS_KPA.max} kPa absolute, the range a condenser may read`,
+    );
 
 export const calcPenaltyInput = z
   .object({

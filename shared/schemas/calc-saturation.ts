@@ -2,8 +2,7 @@
 import { z } from 'zod';
 
 /** A number field with messages that name the unit. */
-const num = (unit: string) =>
-  z.number({ error: (iss) => (iss.input === undefined ? `required (${unit})` : `must be a number (${unit})`) });
+const num = (unit: string) => z.number({ error: (iss) => (iss.input === undefined ? `required (${unit})` : `must be a number (${unit})`) });
 
 export const calcSaturationInput = z
   .object({

@@ -77,9 +77,15 @@ const cwInlet = DEFAULT_POINT_RANGES.cwInletC;
 const driverValues = {
   cwInletC: z.number().finite().min(cwInlet.min, `cwInletC must be ${cwInlet.min} °C or more`).max(cwInlet.max, `cwInletC is at most ${cwInlet.max} °C`),
   loadFraction: z.number().finite().min(0, 'loadFraction cannot be negative (0 = off line)').max(1.2, 'loadFraction is a fraction of rating, at most 1.2'),
-  fuelPricePerMmbtu: asInSetup('fuelPricePerMmbtu', economics.fuelPricePerMmbtu, 'per MMBtu').min(0, 'fuelPricePerMmbtu cannot be negative (it must be between 0 and 500 per MMBtu)'),
+  fuelPricePerMmbtu: asInSetup('fuelPricePerMmbtu', economics.fuelPricePerMmbtu, 'per MMBtu').min(
+    0,
+    'fuelPricePerMmbtu cannot be negative (it must be between 0 and 500 per MMBtu)',
+  ),
   replacementPricePerMwh: asInSetup('replacementPricePerMwh', economics.replacementPricePerMwh, 'per MWh'),
-  co2PricePerTonne: asInSetup('co2PricePerTonne', economics.co2PricePerTonne, 'per tonne').min(0, 'co2PricePerTonne cannot be negative (it must be between 0 and 1,000 per tonne)'),
+  co2PricePerTonne: asInSetup('co2PricePerTonne', economics.co2PricePerTonne, 'per tonne').min(
+    0,
+    'co2PricePerTonne cannot be negative (it must be between 0 and 1,000 per tonne)',
+  ),
 };
 
 const foulingModel = z.discriminatedUnion(
@@ -90,7 +96,11 @@ const foulingModel = z.discriminatedUnion(
       .object({
         model: z.literal('asymptotic'),
         maxIndex: z.number().finite().min(0),
-        timeConstantDays: z.number().finite().positive().max(MAX_TIME_CONSTANT_DAYS, `timeConstantDays is at most ${plain(MAX_TIME_CONSTANT_DAYS)}`),
+        timeConstantDays: z
+          .number()
+          .finite()
+          .positive()
+          .max(MAX_TIME_CONSTANT_DAYS, `timeConstantDays is at most ${plain(MAX_TIME_CONSTANT_DAYS)}`),
       })
       .strict()
       .refine((m) => m.maxIndex / m.timeConstantDays <= MAX_FOULING_INDEX, { message: `the early growth maxIndex / timeConstantDays is ${foulingPerDay}` }),
@@ -161,7 +171,10 @@ export const calcScheduleInput = z
           )
           .min(2)
           .max(50),
-        monthlyFactors: z.array(between('a monthly factor', 0, MAX_MULTIPLIER)).length(12).optional(),
+        monthlyFactors: z
+          .array(between('a monthly factor', 0, MAX_MULTIPLIER))
+          .length(12)
+          .optional(),
       })
       .strict()
       .optional(),
@@ -174,7 +187,10 @@ export const calcScheduleInput = z
         foulingRateMultiplier: z.number().finite().positive().max(10).default(1),
       })
       .strict(),
-    methods: z.array(z.union([z.string(), cleaningMethodSchema])).min(1).max(12),
+    methods: z
+      .array(z.union([z.string(), cleaningMethodSchema]))
+      .min(1)
+      .max(12),
     plannedOutages: z.array(dateRange).max(100).optional(),
     windows: z.array(dateRange).max(500).optional(),
     methodWindows: z.record(z.string(), z.array(dateRange).max(500)).optional(),
@@ -257,9 +273,7 @@ export const calcScheduleOutput = z
     discountedTotals: costTotals,
     /** one per horizon year (year 1 first) */
     yearly: z.array(costTotals),
-    baseline: z
-      .object({ cleanings: z.array(scheduledCleaning), totals: costTotals, discountedTotals: costTotals, ruleBreaks: z.array(z.string()) })
-      .strict(),
+    baseline: z.object({ cleanings: z.array(scheduledCleaning), totals: costTotals, discountedTotals: costTotals, ruleBreaks: z.array(z.string()) }).strict(),
     businessCase: z
       .object({
         /** [0] at the start (the upfront cost), [k] at the end of horizon year k */

@@ -29,11 +29,7 @@ export const inputSourceEntry = z
 export const inputSources = z.record(z.string().max(80), inputSourceEntry);
 export type InputSources = z.infer<typeof inputSources>;
 
-const title = z
-  .string({ error: 'Give the case a title' })
-  .trim()
-  .min(1, 'Give the case a title')
-  .max(120, 'A title is at most 120 characters');
+const title = z.string({ error: 'Give the case a title' }).trim().min(1, 'Give the case a title').max(120, 'A title is at most 120 characters');
 
 export const caseCreate = z.object({ title }).strict();
 export type CaseCreate = z.infer<typeof caseCreate>;

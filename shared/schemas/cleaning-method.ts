@@ -16,8 +16,7 @@ export const GENERAL_CAUTION =
 export const CAUTION_TEXT: Record<CautionKey, string> = {
   'confined-space':
     'Entering a waterbox is permit-required confined-space entry (OSHA 29 CFR 1910.146): test the air for oxygen, H₂S and residual biocide, post an attendant and have a rescue plan.',
-  'lockout-tagout':
-    'Isolate the circulating water by lock-out/tag-out (29 CFR 1910.147) with double isolation, then drain and vent before opening.',
+  'lockout-tagout': 'Isolate the circulating water by lock-out/tag-out (29 CFR 1910.147) with double isolation, then drain and vent before opening.',
   'online-isolation':
     'Half-condenser cleaning on line keeps the unit running under vacuum: prove the isolation of the half being cleaned and expect load limits.',
   'water-jetting':

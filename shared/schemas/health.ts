@@ -99,7 +99,12 @@ export type HealthTrend = z.infer<typeof healthTrend>;
 export const unitHealthResponse = z
   .object({
     unit: z
-      .object({ id: z.string(), name: z.string(), plant: z.object({ id: z.string(), name: z.string(), timeZone: z.string() }).strict(), setupComplete: z.boolean() })
+      .object({
+        id: z.string(),
+        name: z.string(),
+        plant: z.object({ id: z.string(), name: z.string(), timeZone: z.string() }).strict(),
+        setupComplete: z.boolean(),
+      })
       .strict(),
     period: z.object({ from: z.iso.date().nullable(), to: z.iso.date().nullable(), breakdownBy: z.enum(['week', 'month']) }).strict(),
     analysedAt: z.iso.datetime().nullable(),
@@ -140,7 +145,11 @@ export const samplesResponse = z
     total: z.number().int(),
     points: z.array(
       z
-        .object({ t: z.iso.datetime(), valid: z.boolean(), ...(Object.fromEntries(SAMPLE_COLUMNS.map((c) => [c, num.optional()])) as Record<(typeof SAMPLE_COLUMNS)[number], z.ZodOptional<typeof num>>) })
+        .object({
+          t: z.iso.datetime(),
+          valid: z.boolean(),
+          ...(Object.fromEntries(SAMPLE_COLUMNS.map((c) => [c, num.optional()])) as Record<(typeof SAMPLE_COLUMNS)[number], z.ZodOptional<typeof num>>),
+        })
         .strict(),
     ),
   })

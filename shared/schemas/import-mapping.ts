@@ -81,7 +81,8 @@ export const importTimestampSchema = z
   .strict()
   .superRefine((t, ctx) => {
     if (t.format !== 'iso-8601-offset') {
-      if (!t.timeZone) ctx.addIssue({ code: 'custom', path: ['timeZone'], message: `a time zone (IANA name such as America/Chicago) is required for ${t.format} timestamps` });
+      if (!t.timeZone)
+        ctx.addIssue({ code: 'custom', path: ['timeZone'], message: `a time zone (IANA name such as America/Chicago) is required for ${t.format} timestamps` });
       else if (!isIanaTimeZone(t.timeZone)) ctx.addIssue({ code: 'custom', path: ['timeZone'], message: `unknown time zone "${t.timeZone}"` });
     }
     if (t.format === 'local-text' && !t.dateOrder) {
@@ -100,7 +101,10 @@ export const importMappingSchema = z
     /** CW flow not metered: every row uses the design flow, recorded as an assumption. */
     designCwFlowM3s: z.number().positive('the design CW flow must be positive (m³/s)').max(200, 'the design CW flow is at most 200 m³/s').optional(),
     /** A fixed barometer for condenser vacuum when there is no barometer column, recorded as an assumption. */
-    fixedBarometer: z.object({ value: z.number().positive('the barometer must be positive'), unit: pressureUnit }).strict().optional(),
+    fixedBarometer: z
+      .object({ value: z.number().positive('the barometer must be positive'), unit: pressureUnit })
+      .strict()
+      .optional(),
   })
   .strict()
   .superRefine((m, ctx) => {
@@ -111,7 +115,11 @@ export const importMappingSchema = z
     if (c.backpressure && c.condenserVacuum) {
       ctx.addIssue({ code: 'custom', path: ['columns', 'condenserVacuum'], message: 'map either the absolute backpressure or the condenser vacuum, not both' });
     } else if (!c.backpressure && !c.condenserVacuum) {
-      ctx.addIssue({ code: 'custom', path: ['columns', 'backpressure'], message: 'map the backpressure column (absolute), or the condenser vacuum with a barometer' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['columns', 'backpressure'],
+        message: 'map the backpressure column (absolute), or the condenser vacuum with a barometer',
+      });
     }
     if (c.condenserVacuum && !c.barometer && !m.fixedBarometer) {
       ctx.addIssue({ code: 'custom', path: ['columns', 'barometer'], message: 'condenser vacuum needs a barometer column or a fixed barometer value' });
@@ -119,7 +127,11 @@ export const importMappingSchema = z
     if (c.cwFlow && m.designCwFlowM3s !== undefined) {
       ctx.addIssue({ code: 'custom', path: ['designCwFlowM3s'], message: 'the CW flow is mapped to a column: leave the design flow out' });
     } else if (!c.cwFlow && m.designCwFlowM3s === undefined) {
-      ctx.addIssue({ code: 'custom', path: ['columns', 'cwFlow'], message: 'map the CW flow column, or state that it is not metered and give the design flow' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['columns', 'cwFlow'],
+        message: 'map the CW flow column, or state that it is not metered and give the design flow',
+      });
     }
     const seen = new Map<string, string>();
     const refs: [string, string][] = [['timestamp', m.timestamp.column]];

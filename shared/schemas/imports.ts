@@ -55,7 +55,10 @@ export const importView = z
     errorCount: z.number().int().nonnegative(),
     /** the first errors by row and column (all of them in the CSV report) */
     errors: z.array(rowError),
-    notes: z.object({ assumptions: z.array(z.string()), warnings: z.array(z.string()) }).strict().nullable(),
+    notes: z
+      .object({ assumptions: z.array(z.string()), warnings: z.array(z.string()) })
+      .strict()
+      .nullable(),
     firstTimestamp: z.iso.datetime().nullable(),
     lastTimestamp: z.iso.datetime().nullable(),
     createdAt: z.iso.datetime(),

@@ -2,9 +2,7 @@ import { z } from 'zod';
 import { condenserSetup, economicsSetup, turbineSetup } from './unit-setup.js';
 import { jobView } from './jobs.js';
 
-export const unitSummary = z
-  .object({ id: z.string(), name: z.string(), ratingMw: z.number().nullable(), setupComplete: z.boolean() })
-  .strict();
+export const unitSummary = z.object({ id: z.string(), name: z.string(), ratingMw: z.number().nullable(), setupComplete: z.boolean() }).strict();
 export type UnitSummary = z.infer<typeof unitSummary>;
 
 export const plantView = z

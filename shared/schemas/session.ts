@@ -9,7 +9,16 @@ export const signInRequest = z
 export type SignInRequest = z.infer<typeof signInRequest>;
 
 export const roleSchema = z.enum(['admin', 'analyst', 'approver', 'viewer']);
-const permissionSchema = z.enum(['data.read', 'data.write', 'cases.approve', 'members.manage', 'client-groups.manage', 'billing.manage', 'audit.read', 'calc.use']);
+const permissionSchema = z.enum([
+  'data.read',
+  'data.write',
+  'cases.approve',
+  'members.manage',
+  'client-groups.manage',
+  'billing.manage',
+  'audit.read',
+  'calc.use',
+]);
 
 export const membershipSummary = z
   .object({

@@ -22,13 +22,14 @@ export const unitEventInput = z
   })
   .strict()
   .refine((e) => e.endDate === null || e.endDate >= e.startDate, { message: 'The end is before the start', path: ['endDate'] })
-  .refine((e) => e.kind !== 'tube-plugging' || e.pluggedTubesAfter !== null, { message: 'Give the plugged-tube count after the plugging', path: ['pluggedTubesAfter'] })
+  .refine((e) => e.kind !== 'tube-plugging' || e.pluggedTubesAfter !== null, {
+    message: 'Give the plugged-tube count after the plugging',
+    path: ['pluggedTubesAfter'],
+  })
   .refine((e) => e.kind !== 'outage' || e.endDate !== null, { message: 'Give the last day of the outage', path: ['endDate'] });
 export type UnitEventInput = z.infer<typeof unitEventInput>;
 
-export const dailyQuery = z
-  .object({ from: isoDate.optional(), to: isoDate.optional() })
-  .strict();
+export const dailyQuery = z.object({ from: isoDate.optional(), to: isoDate.optional() }).strict();
 
 export const unitEventView = z
   .object({

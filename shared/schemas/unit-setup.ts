@@ -12,7 +12,11 @@ import { correctionCurveSchema } from './calc-penalty.js';
 
 const uuid = z.uuid('Not a valid id');
 
-const fraction = (what: string) => z.number({ error: `Enter ${what}` }).min(0, `${what} cannot be below 0`).max(1, `${what} is at most 1 (100 %)`);
+const fraction = (what: string) =>
+  z
+    .number({ error: `Enter ${what}` })
+    .min(0, `${what} cannot be below 0`)
+    .max(1, `${what} is at most 1 (100 %)`);
 
 /*
  * Physical ranges of setup numbers. Wide on purpose: they refuse typing slips (a tube count of 100,000,000), not
@@ -63,7 +67,11 @@ export const condenserSetup = z
     passes: count('the number of passes', 1, 4),
     tubeCount: count('the tube count', 50, MAX_TUBE_COUNT),
     tubeOdMm: within('the tube outside diameter', 12, 60, 'mm', alsoIn.tubeOd),
-    tubeBwg: z.number({ error: 'Choose a wall gauge' }).int('Choose a wall gauge').min(12, 'Choose a wall gauge from 12 to 24 BWG').max(24, 'Choose a wall gauge from 12 to 24 BWG'),
+    tubeBwg: z
+      .number({ error: 'Choose a wall gauge' })
+      .int('Choose a wall gauge')
+      .min(12, 'Choose a wall gauge from 12 to 24 BWG')
+      .max(24, 'Choose a wall gauge from 12 to 24 BWG'),
     tubeMaterial: z.enum(TUBE_MATERIALS, { error: `Choose one of ${TUBE_MATERIALS.join(', ')}` }),
     tubeLengthM: within('the effective tube length', 1, 40, 'm', alsoIn.length).nullable().default(null),
     /** HEI basis: outside surface between the tubesheets, N·π·OD·L. */
@@ -94,7 +102,11 @@ const setupCorrectionCurve = correctionCurveSchema.superRefine((curve, ctx) => {
     if (c.points.length > 50) ctx.addIssue({ code: 'custom', path: ['curves', i, 'points'], message: 'At most 50 points per load curve' });
     c.points.forEach((p, j) => {
       if (p.backpressureKpa < 1 || p.backpressureKpa > 50) {
-        ctx.addIssue({ code: 'custom', path: ['curves', i, 'points', j, 'backpressureKpa'], message: 'Backpressure must be between 1 and 50 kPa(a) (0.295 to 14.8 inHgA)' });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['curves', i, 'points', j, 'backpressureKpa'],
+          message: 'Backpressure must be between 1 and 50 kPa(a) (0.295 to 14.8 inHgA)',
+        });
       }
       if (p.changePct < -100 || p.changePct > 100) {
         ctx.addIssue({ code: 'custom', path: ['curves', i, 'points', j, 'changePct'], message: 'The change must be between −100 and 100 %' });
@@ -140,7 +152,10 @@ export const economicsSetup = z
     capacityLimitedShare: fraction('the capacity-limited share'),
     co2PricePerTonne: within('the CO2 price', 0, 1_000, 'per tonne'),
     discountRate: within('the discount rate', 0, 0.5, '', { unit: '%', fromSi: (v) => v * 100 }),
-    currency: z.string().regex(/^[A-Z]{3}$/, 'Use a three-letter currency code (ISO 4217) such as USD or EUR').default('USD'),
+    currency: z
+      .string()
+      .regex(/^[A-Z]{3}$/, 'Use a three-letter currency code (ISO 4217) such as USD or EUR')
+      .default('USD'),
   })
   .strict();
 export type EconomicsSetup = z.infer<typeof economicsSetup>;

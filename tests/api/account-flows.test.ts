@@ -44,7 +44,10 @@ describe('account flows', () => {
 
   it('sign-up creates a person and an organisation on a 30-day trial with them as administrator; they can sign in at once', async () => {
     const email = uniqueEmail('founder');
-    const res = await request(t.app).post('/api/sign-up').set(CSRF).send({ name: 'Ada Founder', email, password: 'tube bundles need cleaning', organisationName: 'Lakeside Generating' });
+    const res = await request(t.app)
+      .post('/api/sign-up')
+      .set(CSRF)
+      .send({ name: 'Ada Founder', email, password: 'tube bundles need cleaning', organisationName: 'Lakeside Generating' });
     expect(res.status).toBe(201);
     const agent = await signedInAgent(t.app, email, 'tube bundles need cleaning');
     const session = (await agent.get('/api/session').expect(200)).body;
@@ -61,7 +64,10 @@ describe('account flows', () => {
   it('sign-up answers the same whether or not the address has an account; an existing address gets a notice, not a second account', async () => {
     const existing = await createUser(t.dataSource, 'taken');
     const body = (email: string) => ({ name: 'Someone', email, password: 'tube bundles need cleaning', organisationName: 'Some Utility' });
-    const fresh = await request(t.app).post('/api/sign-up').set(CSRF).send(body(uniqueEmail('fresh')));
+    const fresh = await request(t.app)
+      .post('/api/sign-up')
+      .set(CSRF)
+      .send(body(uniqueEmail('fresh')));
     const taken = await request(t.app).post('/api/sign-up').set(CSRF).send(body(existing.email));
     expect(taken.status).toBe(fresh.status);
     expect(taken.status).toBe(201);
@@ -81,13 +87,22 @@ describe('account flows', () => {
 
   it('refuses short and common passwords, and accepts a long passphrase (OWASP ASVS 2.1)', async () => {
     const base = { name: 'P', organisationName: 'Org P' };
-    const short = await request(t.app).post('/api/sign-up').set(CSRF).send({ ...base, email: uniqueEmail('p'), password: 'short' });
+    const short = await request(t.app)
+      .post('/api/sign-up')
+      .set(CSRF)
+      .send({ ...base, email: uniqueEmail('p'), password: 'short' });
     expect(short.status).toBe(400);
     expect(short.body.details.fieldErrors[0]).toEqual({ path: 'password', message: 'Use at least 8 characters' });
-    const common = await request(t.app).post('/api/sign-up').set(CSRF).send({ ...base, email: uniqueEmail('p'), password: 'password1' });
+    const common = await request(t.app)
+      .post('/api/sign-up')
+      .set(CSRF)
+      .send({ ...base, email: uniqueEmail('p'), password: 'password1' });
     expect(common.status).toBe(400);
     expect(common.body.details.fieldErrors[0].message).toMatch(/most common/);
-    const long = await request(t.app).post('/api/sign-up').set(CSRF).send({ ...base, email: uniqueEmail('p'), password: 'x'.repeat(3) + ' a very long passphrase '.repeat(20) });
+    const long = await request(t.app)
+      .post('/api/sign-up')
+      .set(CSRF)
+      .send({ ...base, email: uniqueEmail('p'), password: 'x'.repeat(3) + ' a very long passphrase '.repeat(20) });
     expect(long.status).toBe(201);
   });
 
@@ -95,7 +110,11 @@ describe('account flows', () => {
     const tenant = await createTenant(t.dataSource, 'invite');
     const admin = await signedInAgent(t.app, tenant.users.admin.email);
     const email = uniqueEmail('colleague');
-    await admin.post('/api/invitations').set(CSRF).send({ email, role: 'approver', clientGroupIds: [tenant.groups[0].id] }).expect(201);
+    await admin
+      .post('/api/invitations')
+      .set(CSRF)
+      .send({ email, role: 'approver', clientGroupIds: [tenant.groups[0].id] })
+      .expect(201);
     const token = await linkMailedTo(t, email, '/invitation');
 
     const offer = await request(t.app).get(`/api/invitation-links/${token}`).expect(200);
@@ -105,7 +124,9 @@ describe('account flows', () => {
     const accepted = await colleague.post(`/api/invitation-links/${token}/accept`).set(CSRF).send({ name: 'Col League', password: 'condenser tubes are long' });
     expect(accepted.status).toBe(200);
     expect(accepted.body.user.email).toBe(email);
-    expect(accepted.body.memberships).toEqual([expect.objectContaining({ organisationId: tenant.organisation.id, role: 'approver', limitedToClientGroups: true })]);
+    expect(accepted.body.memberships).toEqual([
+      expect.objectContaining({ organisationId: tenant.organisation.id, role: 'approver', limitedToClientGroups: true }),
+    ]);
     const groups = await colleague.get('/api/client-groups').expect(200);
     expect(groups.body.clientGroups.map((g: { id: string }) => g.id)).toEqual([tenant.groups[0].id]);
 
@@ -191,7 +212,9 @@ describe('account flows', () => {
     const authorize = redirectTarget(start);
     expect(authorize.origin + authorize.pathname).toBe(google.authUrl);
     expect(authorize.searchParams.get('client_id')).toBe(t.config.GOOGLE_CLIENT_ID);
-    const consent = await request(authorize.origin).get(authorize.pathname + authorize.search).redirects(0);
+    const consent = await request(authorize.origin)
+      .get(authorize.pathname + authorize.search)
+      .redirects(0);
     expect(consent.status).toBe(302);
     const back = redirectTarget(consent);
     expect(back.pathname).toBe('/api/auth/google/callback');
@@ -241,7 +264,11 @@ describe('account flows', () => {
     const adminMembership = tenant.memberships.admin.id;
     const demote = await admin.patch(`/api/members/${adminMembership}`).set(CSRF).send({ role: 'viewer' });
     expect(demote.status).toBe(409);
-    await admin.patch(`/api/members/${adminMembership}`).set(CSRF).send({ clientGroupIds: [tenant.groups[0].id] }).expect(409);
+    await admin
+      .patch(`/api/members/${adminMembership}`)
+      .set(CSRF)
+      .send({ clientGroupIds: [tenant.groups[0].id] })
+      .expect(409);
     await admin.delete(`/api/members/${adminMembership}`).set(CSRF).expect(409);
     await admin.patch(`/api/members/${tenant.memberships.viewer.id}`).set(CSRF).send({ role: 'admin' }).expect(204);
     await admin.patch(`/api/members/${adminMembership}`).set(CSRF).send({ role: 'analyst' }).expect(204);
@@ -258,7 +285,10 @@ describe('account flows', () => {
     const [stored] = await t.dataSource.query('SELECT tokenHash FROM api_token WHERE id = ?', [created.body.id]);
     expect(stored.tokenHash).not.toContain(token.slice(4));
 
-    const calc = await request(t.app).post('/api/calc/saturation').set('Authorization', `Bearer ${token}`).send([{ pressureKpa: 8 }, { pressureKpa: -1 }]);
+    const calc = await request(t.app)
+      .post('/api/calc/saturation')
+      .set('Authorization', `Bearer ${token}`)
+      .send([{ pressureKpa: 8 }, { pressureKpa: -1 }]);
     expect(calc.status).toBe(422);
     expect(calc.body[0].temperatureC).toBeCloseTo(41.51, 2); // IF97 region 4 at 8 kPa: Tsat = 41.51 °C (from memory; checked in tests/reference)
     expect(calc.body[1].error).toBeTruthy();
@@ -274,7 +304,11 @@ describe('account flows', () => {
     const analyst = await signedInAgent(t.app, tenant.users.analyst.email);
     const first = (await analyst.post('/api/api-tokens').set(CSRF).send({ name: 'before the change' }).expect(201)).body.token as string;
     await request(t.app).get('/api/calc').set('Authorization', `Bearer ${first}`).expect(200);
-    await analyst.post('/api/profile/password').set(CSRF).send({ currentPassword: TEST_PASSWORD, newPassword: 'a changed passphrase for the pumps' }).expect(200);
+    await analyst
+      .post('/api/profile/password')
+      .set(CSRF)
+      .send({ currentPassword: TEST_PASSWORD, newPassword: 'a changed passphrase for the pumps' })
+      .expect(200);
     await request(t.app).get('/api/calc').set('Authorization', `Bearer ${first}`).expect(401);
     expect((await analyst.get('/api/api-tokens').expect(200)).body.apiTokens).toEqual([]);
 

@@ -34,7 +34,11 @@ afterAll(async () => {
 describe('text that is not well-formed Unicode (a lone surrogate)', () => {
   it('in a plant name answers 400 naming the field, and no plant is stored', async () => {
     const before = await t.dataSource.getRepository(Plant).countBy({ organisationId: tenant.organisation.id });
-    const res = await analyst.post('/api/plants').set(CSRF).set('content-type', 'application/json').send('{"name":"Plant \\ud800","timeZone":"America/Chicago"}');
+    const res = await analyst
+      .post('/api/plants')
+      .set(CSRF)
+      .set('content-type', 'application/json')
+      .send('{"name":"Plant \\ud800","timeZone":"America/Chicago"}');
     expect(res.status).toBe(400);
     expect(res.body.error).toMatch(/character/i);
     expect(res.body.details.fieldErrors).toEqual([{ path: 'name', message: expect.stringMatching(/broken character/) }]);
@@ -54,7 +58,10 @@ describe('text that is not well-formed Unicode (a lone surrogate)', () => {
 
   it('in a sign-up (no session yet) answers 400 and creates no account', async () => {
     const email = uniqueEmail('surrogate');
-    const res = await request(t.app).post('/api/sign-up').set(CSRF).send({ name: '\ud800', email, password: 'a long enough password 42', organisationName: 'Org \udfff' });
+    const res = await request(t.app)
+      .post('/api/sign-up')
+      .set(CSRF)
+      .send({ name: '\ud800', email, password: 'a long enough password 42', organisationName: 'Org \udfff' });
     expect(res.status).toBe(400);
     expect(await t.dataSource.getRepository(User).countBy({ email })).toBe(0);
   });
@@ -63,7 +70,15 @@ describe('text that is not well-formed Unicode (a lone surrogate)', () => {
 describe('a multipart upload that is cut off before its end', () => {
   it('answers 400 with a message, keeps no import and no file', async () => {
     const unit = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
-    const body = ['--cut', 'Content-Disposition: form-data; name="file"; filename="history.csv"', 'Content-Type: text/csv', '', 'Timestamp,Gross MW', '2024-01-01T00:00Z,480', '2024-01-01T00:01Z,4'].join('\r\n');
+    const body = [
+      '--cut',
+      'Content-Disposition: form-data; name="file"; filename="history.csv"',
+      'Content-Type: text/csv',
+      '',
+      'Timestamp,Gross MW',
+      '2024-01-01T00:00Z,480',
+      '2024-01-01T00:01Z,4',
+    ].join('\r\n');
     const res = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).set('content-type', 'multipart/form-data; boundary=cut').send(body);
     expect(res.status).toBe(400);
     expect(res.body.error).toMatch(/upload .*(cut off|incomplete)/i);
@@ -76,13 +91,23 @@ describe('an upload that is not a readable table', () => {
   const LIBRARY_TEXT = /Cannot read|undefined|FILE_ENDED|invalid distance|Error:|errno/i;
 
   it.each([
-    ['a workbook cut short', 'cut.xlsx', () => Buffer.concat([Buffer.from([0x50, 0x4b, 0x03, 0x04]), Buffer.alloc(3000, 0x41)]), /not a readable XLSX workbook/],
-    ['binary data named .csv', 'binary.csv', () => {
-      const b = Buffer.alloc(4096);
-      let x = 11;
-      for (let i = 0; i < b.length; i++) b[i] = x = (x * 1103515245 + 12345) & 0xff;
-      return b;
-    }, /binary data.*not CSV text/],
+    [
+      'a workbook cut short',
+      'cut.xlsx',
+      () => Buffer.concat([Buffer.from([0x50, 0x4b, 0x03, 0x04]), Buffer.alloc(3000, 0x41)]),
+      /not a readable XLSX workbook/,
+    ],
+    [
+      'binary data named .csv',
+      'binary.csv',
+      () => {
+        const b = Buffer.alloc(4096);
+        let x = 11;
+        for (let i = 0; i < b.length; i++) b[i] = x = (x * 1103515245 + 12345) & 0xff;
+        return b;
+      },
+      /binary data.*not CSV text/,
+    ],
   ])('%s answers 400 saying what is wrong in our words, and keeps no import and no file', async (_label, name, bytes, words) => {
     const unit = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
     const res = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', bytes(), name);
@@ -106,8 +131,39 @@ describe('setup numbers outside a physical range', () => {
     ['condenser', 'pluggedTubes', { ...TEST_CONDENSER, pluggedTubes: 1e12 }, /./],
     ['turbine', 'ratingMw', { ...TEST_TURBINE, ratingMw: 1e9 }, /MW/],
     ['turbine', 'designHeatRateBtuKwh', { ...TEST_TURBINE, designHeatRateBtuKwh: 10 }, /Btu\/kWh/],
-    ['turbine', 'heatBalanceDuty', { ...TEST_TURBINE, heatBalanceDuty: [{ loadFraction: 0.5, dutyMw: 1e9 }, { loadFraction: 1, dutyMw: 520 }] }, /MW/],
-    ['turbine', 'correctionCurve', { ...TEST_TURBINE, correctionCurve: { basis: 'heat-rate', label: 'x', curves: [{ loadFraction: 1, points: [{ backpressureKpa: 1e6, changePct: 0 }, { backpressureKpa: 2e6, changePct: 1e9 }] }] } }, /kPa|%/],
+    [
+      'turbine',
+      'heatBalanceDuty',
+      {
+        ...TEST_TURBINE,
+        heatBalanceDuty: [
+          { loadFraction: 0.5, dutyMw: 1e9 },
+          { loadFraction: 1, dutyMw: 520 },
+        ],
+      },
+      /MW/,
+    ],
+    [
+      'turbine',
+      'correctionCurve',
+      {
+        ...TEST_TURBINE,
+        correctionCurve: {
+          basis: 'heat-rate',
+          label: 'x',
+          curves: [
+            {
+              loadFraction: 1,
+              points: [
+                { backpressureKpa: 1e6, changePct: 0 },
+                { backpressureKpa: 2e6, changePct: 1e9 },
+              ],
+            },
+          ],
+        },
+      },
+      /kPa|%/,
+    ],
     ['economics', 'currency', { ...TEST_ECONOMICS, currency: '$$$' }, /currency/i],
   ])('%s %s is refused with the range named, and the saved setup is unchanged', async (part, field, body, range) => {
     const unit = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
@@ -129,7 +185,10 @@ describe('setup numbers outside a physical range', () => {
 describe('event and cleaning-method numbers outside a physical range', () => {
   it('an event with 10 million plugged tubes or a cleanliness of 0.01 is refused with the range, and no event is stored', async () => {
     const unit = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
-    const plugged = await analyst.post(`/api/units/${unit.id}/events`).set(CSRF).send({ kind: 'tube-plugging', startDate: '2026-01-05', pluggedTubesAfter: 10_000_000 });
+    const plugged = await analyst
+      .post(`/api/units/${unit.id}/events`)
+      .set(CSRF)
+      .send({ kind: 'tube-plugging', startDate: '2026-01-05', pluggedTubesAfter: 10_000_000 });
     expect(plugged.status).toBe(400);
     expect(plugged.body.details.fieldErrors[0]).toEqual({ path: 'pluggedTubesAfter', message: expect.stringMatching(/between 0 and 200,000/) });
     const dirty = await analyst.post(`/api/units/${unit.id}/events`).set(CSRF).send({ kind: 'other', startDate: '2026-01-05', cleanlinessBefore: 0.01 });

@@ -41,13 +41,20 @@ describe('a new case’s prefill', () => {
     const scope = { organisationId: tenant.organisation.id, userId: tenant.users.admin.id, role: 'admin', clientGroupIds: null } as never;
     // eleven more outage methods, dearer than the typical ones, so the library holds sixteen
     for (let i = 0; i < 11; i++) {
-      await createMethod(t.dataSource, scope, { ...TYPICAL_CLEANING_METHODS[2]!, id: `dear-outage-${i}`, name: `Dear outage method ${i}`, fixedCost: 500_000 + i });
+      await createMethod(t.dataSource, scope, {
+        ...TYPICAL_CLEANING_METHODS[2]!,
+        id: `dear-outage-${i}`,
+        name: `Dear outage method ${i}`,
+        fixedCost: 500_000 + i,
+      });
     }
     analyst = await signedInAgent(t.app, tenant.users.analyst.email);
     const plant = await createPlant(t.dataSource, tenant.organisation.id, tenant.groups[0].id);
     unit = await createUnit(t.dataSource, plant);
     const today = plantDayOf(Date.now(), TIME_ZONE);
-    const [y = 0, m = 1, d = 1] = addDays(today, -DAYS - 1).split('-').map(Number);
+    const [y = 0, m = 1, d = 1] = addDays(today, -DAYS - 1)
+      .split('-')
+      .map(Number);
     const rows = physicalHistory({
       startUtc: Date.UTC(y, m - 1, d, 6, 0),
       hours: DAYS * H,
@@ -55,7 +62,11 @@ describe('a new case’s prefill', () => {
       turbine: TEST_TURBINE,
       cleanlinessAt: (h) => 1 / (1 / CF0 + (K * h) / H),
     });
-    const up = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', await writeHistorianCsv(tmp.file('h.csv'), rows)).expect(201);
+    const up = await analyst
+      .post(`/api/units/${unit.id}/uploads`)
+      .set(CSRF)
+      .attach('file', await writeHistorianCsv(tmp.file('h.csv'), rows))
+      .expect(201);
     await analyst.post(`/api/imports/${up.body.import.id}/start`).set(CSRF).send({ mapping: US_MAPPING }).expect(202);
     await drainJobs(t.dataSource, JOB_HANDLERS);
     farOutage = { from: addDays(today, 900), to: addDays(today, 910) };
@@ -99,7 +110,10 @@ describe('a new case’s prefill', () => {
     const made = caseView.parse((await analyst.post(`/api/units/${unit.id}/cases`).set(CSRF).send({ title: 'Moved start' }).expect(201)).body);
     expect(made.caseWarnings?.join(' ')).toMatch(/measured/); // few months of history: the case says so beside its results
     const later = addDays(made.inputs.startDate, 30);
-    const res = await analyst.patch(`/api/cases/${made.id}`).set(CSRF).send({ inputs: { ...made.inputs, startDate: later } });
+    const res = await analyst
+      .patch(`/api/cases/${made.id}`)
+      .set(CSRF)
+      .send({ inputs: { ...made.inputs, startDate: later } });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     const moved = caseView.parse(res.body);
     expect(moved.inputs.initial.daysSinceCleaning).toBe(made.inputs.initial.daysSinceCleaning + 30);

@@ -72,7 +72,9 @@ describe('cleaning cases: review fixes', () => {
     plant = await createPlant(t.dataSource, tenant.organisation.id, tenant.groups[0].id);
     unit = await createUnit(t.dataSource, plant);
     const today = plantDayOf(Date.now(), TIME_ZONE);
-    const [y = 0, m = 1, d = 1] = addDays(today, -DAYS - 1).split('-').map(Number);
+    const [y = 0, m = 1, d = 1] = addDays(today, -DAYS - 1)
+      .split('-')
+      .map(Number);
     const rows = physicalHistory({ startUtc: Date.UTC(y, m - 1, d, 6, 0), hours: DAYS * H, condenser: TEST_CONDENSER, turbine: TEST_TURBINE, cleanlinessAt });
     const up = await agents.analyst
       .post(`/api/units/${unit.id}/uploads`)
@@ -131,7 +133,12 @@ describe('cleaning cases: review fixes', () => {
     const view = await newCase('Saved again and again', agents.busyAnalyst);
     let last = 0;
     for (let i = 0; i < 80 && last !== 429; i++) {
-      last = (await agents.busyAnalyst.patch(`/api/cases/${view.id}`).set(CSRF).send({ title: `Saved again ${i}` })).status;
+      last = (
+        await agents.busyAnalyst
+          .patch(`/api/cases/${view.id}`)
+          .set(CSRF)
+          .send({ title: `Saved again ${i}` })
+      ).status;
       if (last !== 429) expect(last).toBe(200);
     }
     expect(last).toBe(429);

@@ -35,17 +35,15 @@ describe('demo cleaning cases', () => {
     const first = addDays(plantDayOf(Date.now(), 'America/Chicago'), -31);
     const [y = 0, m = 1, d = 1] = first.split('-').map(Number);
     for (const name of ['Unit 1', 'Unit 2']) {
-      const unit = await t.dataSource
-        .getRepository(GeneratingUnit)
-        .save({
-          organisationId: org.id,
-          plantId: plant.id,
-          name,
-          condenser: TEST_CONDENSER,
-          turbine: TEST_TURBINE,
-          economics: TEST_ECONOMICS,
-          savedMapping: null,
-        });
+      const unit = await t.dataSource.getRepository(GeneratingUnit).save({
+        organisationId: org.id,
+        plantId: plant.id,
+        name,
+        condenser: TEST_CONDENSER,
+        turbine: TEST_TURBINE,
+        economics: TEST_ECONOMICS,
+        savedMapping: null,
+      });
       // cleanliness falling from 0.90 by a linear fouling resistance (made-up test data)
       const rows = physicalHistory({
         startUtc: Date.UTC(y, m - 1, d, 6, 0),

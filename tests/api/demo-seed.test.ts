@@ -33,9 +33,19 @@ describe('the demo seed', () => {
 
     // Each demo cleaning names a method of the organisation's library and costs what the library says for this
     // condenser's tubes in service (fixed cost + cost per tube).
-    const methods = (await admin.get('/api/cleaning-methods').expect(200)).body.methods as { id: string; name: string; fixedCost: number; costPerTube: number }[];
+    const methods = (await admin.get('/api/cleaning-methods').expect(200)).body.methods as {
+      id: string;
+      name: string;
+      fixedCost: number;
+      costPerTube: number;
+    }[];
     const setup = (await admin.get(`/api/units/${unit.id}`).expect(200)).body.condenser as { tubeCount: number; pluggedTubes: number };
-    const events = (await admin.get(`/api/units/${unit.id}/events`).expect(200)).body.events as { kind: string; methodId: string | null; cost: number | null; notes: string }[];
+    const events = (await admin.get(`/api/units/${unit.id}/events`).expect(200)).body.events as {
+      kind: string;
+      methodId: string | null;
+      cost: number | null;
+      notes: string;
+    }[];
     const cleanings = events.filter((e) => e.kind === 'cleaning');
     expect(cleanings.length).toBeGreaterThan(0);
     for (const c of cleanings) {

@@ -73,7 +73,11 @@ describe('local mailbox', () => {
     const printed: string[] = [];
     const sink = await startSmtpSink({ port: 0, dataSource: t.dataSource, print: (text) => printed.push(text) });
     try {
-      await createMailer({ sinkPort: sink.port, from: t.config.MAIL_FROM }).send({ to: 'locked.out@example.test', subject: 'Reset your Cleancase password', text: 'Choose a new password: http://127.0.0.1:3000/reset-password?token=abc' });
+      await createMailer({ sinkPort: sink.port, from: t.config.MAIL_FROM }).send({
+        to: 'locked.out@example.test',
+        subject: 'Reset your Cleancase password',
+        text: 'Choose a new password: http://127.0.0.1:3000/reset-password?token=abc',
+      });
       expect(printed.join('\n')).toContain('locked.out@example.test');
       expect(printed.join('\n')).toContain('http://127.0.0.1:3000/reset-password?token=abc');
     } finally {
@@ -101,7 +105,8 @@ describe('local mailbox', () => {
     return decodeURIComponent(token);
   }
 
-  const mailbox = async (agent: Awaited<ReturnType<typeof signedInAgent>>) => (await agent.get('/api/dev/mailbox').expect(200)).body as { messages: MailboxMessage[]; addressConfirmed: boolean };
+  const mailbox = async (agent: Awaited<ReturnType<typeof signedInAgent>>) =>
+    (await agent.get('/api/dev/mailbox').expect(200)).body as { messages: MailboxMessage[]; addressConfirmed: boolean };
   const signUp = (email: string, password = TEST_PASSWORD) =>
     request(t.app).post('/api/sign-up').set(CSRF).send({ name: 'Self Signed', email, password, organisationName: 'Own Utility' }).expect(201);
 
@@ -162,7 +167,11 @@ describe('local mailbox', () => {
     const invitee = uniqueEmail('invitee');
     await admin.post('/api/invitations').set(CSRF).send({ email: invitee, role: 'viewer' }).expect(201);
     const token = await tokenMailedTo(invitee, 'invitation');
-    await request(t.app).post(`/api/invitation-links/${encodeURIComponent(token)}/accept`).set(CSRF).send({ name: 'Ivy Invitee', password: TEST_PASSWORD }).expect(200);
+    await request(t.app)
+      .post(`/api/invitation-links/${encodeURIComponent(token)}/accept`)
+      .set(CSRF)
+      .send({ name: 'Ivy Invitee', password: TEST_PASSWORD })
+      .expect(200);
     const agent = await signedInAgent(t.app, invitee);
     await request(t.app).post('/api/password-reset').set(CSRF).send({ email: invitee }).expect(202);
     await t.deliverMail();

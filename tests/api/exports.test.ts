@@ -19,7 +19,18 @@ let siPerson: TestAgent;
 let unit: GeneratingUnit;
 
 /** One stored day (invented figures). */
-const DAY = { day: '2024-06-01', pointsUsed: 20, pointsDropped: 4, meanBackpressureKpa: 6.8, meanExcessBackpressureKpa: 0.9, meanCwInletC: 21.5, medianTtdK: 4.2, loadKpa: -0.35, foulingCost: 1234.5, meanAirRemovalKgS: 0.01 };
+const DAY = {
+  day: '2024-06-01',
+  pointsUsed: 20,
+  pointsDropped: 4,
+  meanBackpressureKpa: 6.8,
+  meanExcessBackpressureKpa: 0.9,
+  meanCwInletC: 21.5,
+  medianTtdK: 4.2,
+  loadKpa: -0.35,
+  foulingCost: 1234.5,
+  meanAirRemovalKgS: 0.01,
+};
 
 const binary = (res: { on: (e: string, f: (b?: Buffer) => void) => void }, done: (err: Error | null, body: Buffer) => void) => {
   const chunks: Buffer[] = [];
@@ -37,7 +48,11 @@ const fields = (line: string): string[] =>
 const csvOf = async (agent: TestAgent, dataset: 'daily' | 'breakdown') => {
   const res = await agent.get(`/api/units/${unit.id}/export`).query({ dataset, format: 'csv' }).buffer(true).parse(binary).expect(200);
   const bytes = res.body as Buffer;
-  const lines = bytes.toString('utf8').replace(/^\uFEFF/, '').trim().split('\r\n');
+  const lines = bytes
+    .toString('utf8')
+    .replace(/^\uFEFF/, '')
+    .trim()
+    .split('\r\n');
   return { bytes, header: fields(lines[0]!), rows: lines.slice(1).map(fields) };
 };
 
@@ -51,7 +66,19 @@ beforeAll(async () => {
   unit = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
   await t.dataSource.query(
     'INSERT INTO daily_aggregate (unitId, day, pointsUsed, pointsDropped, meanBackpressureKpa, meanExcessBackpressureKpa, meanCwInletC, medianTtdK, loadKpa, foulingCost, meanAirRemovalKgS) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)',
-    [unit.id, DAY.day, DAY.pointsUsed, DAY.pointsDropped, DAY.meanBackpressureKpa, DAY.meanExcessBackpressureKpa, DAY.meanCwInletC, DAY.medianTtdK, DAY.loadKpa, DAY.foulingCost, DAY.meanAirRemovalKgS],
+    [
+      unit.id,
+      DAY.day,
+      DAY.pointsUsed,
+      DAY.pointsDropped,
+      DAY.meanBackpressureKpa,
+      DAY.meanExcessBackpressureKpa,
+      DAY.meanCwInletC,
+      DAY.medianTtdK,
+      DAY.loadKpa,
+      DAY.foulingCost,
+      DAY.meanAirRemovalKgS,
+    ],
   );
 });
 afterAll(async () => t?.close());
@@ -94,8 +121,14 @@ describe('the daily export', () => {
   it('names another currency when the unit’s economics use it, in CSV and XLSX', async () => {
     const euro = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
     await t.dataSource.query('UPDATE generating_unit SET economics = ? WHERE id = ?', [JSON.stringify({ ...TEST_ECONOMICS, currency: 'EUR' }), euro.id]);
-    const csv = (await siPerson.get(`/api/units/${euro.id}/export`).query({ dataset: 'breakdown', format: 'csv' }).buffer(true).parse(binary).expect(200)).body as Buffer;
-    const header = fields(csv.toString('utf8').replace(/^\uFEFF/, '').split('\r\n')[0]!);
+    const csv = (await siPerson.get(`/api/units/${euro.id}/export`).query({ dataset: 'breakdown', format: 'csv' }).buffer(true).parse(binary).expect(200))
+      .body as Buffer;
+    const header = fields(
+      csv
+        .toString('utf8')
+        .replace(/^\uFEFF/, '')
+        .split('\r\n')[0]!,
+    );
     expect(header).toContain('Fouling cost EUR');
     const res = await siPerson.get(`/api/units/${euro.id}/export`).query({ dataset: 'daily', format: 'xlsx' }).buffer(true).parse(binary).expect(200);
     const wb = new ExcelJS.Workbook();
@@ -109,7 +142,18 @@ describe('the daily export', () => {
 describe('the monthly breakdown export', () => {
   it('for a person who works in US units: pressures in inHg, costs with the currency', async () => {
     const { header, rows } = await csvOf(usPerson, 'breakdown');
-    expect(header).toEqual(['Month', 'CW inlet temperature inHg', 'CW flow inHg', 'Load and duty inHg', 'Plugged tubes inHg', 'Fouling inHg', 'Unexplained inHg', 'Excess backpressure inHg', 'Fouling cost USD', 'Unexplained cost USD']);
+    expect(header).toEqual([
+      'Month',
+      'CW inlet temperature inHg',
+      'CW flow inHg',
+      'Load and duty inHg',
+      'Plugged tubes inHg',
+      'Fouling inHg',
+      'Unexplained inHg',
+      'Excess backpressure inHg',
+      'Fouling cost USD',
+      'Unexplained cost USD',
+    ]);
     expect(Number(rows[0]?.[header.indexOf('Load and duty inHg')])).toBeCloseTo(kpaToInHg(DAY.loadKpa), 9);
   });
 });

@@ -18,7 +18,16 @@ import { makeTempDir, physicalHistory, writeHistorianCsv } from '../helpers/hist
 const START_UTC = Date.UTC(2023, 0, 2, 0, 0);
 
 const sample = (timestampUtc: number, extra: Partial<ImportSample> = {}): ImportSample => ({
-  line: 2, timestampUtc, loadMw: 480.5, backpressureKpa: 8.1, cwInletC: 21.3, cwOutletC: 31.2, cwFlowM3s: 15.2, flowAssumed: false, validity: 'ok', ...extra,
+  line: 2,
+  timestampUtc,
+  loadMw: 480.5,
+  backpressureKpa: 8.1,
+  cwInletC: 21.3,
+  cwOutletC: 31.2,
+  cwFlowM3s: 15.2,
+  flowAssumed: false,
+  validity: 'ok',
+  ...extra,
 });
 
 describe('the import’s bulk load', () => {
@@ -54,8 +63,15 @@ describe('the import’s bulk load', () => {
     const unit = await newUnit();
     const imp = await createPendingImport(t.dataSource, unit);
     const awkward = sample(START_UTC + 123, {
-      loadMw: 0.1 + 0.2, backpressureKpa: 1e-7, cwInletC: -0.000123456789012345, cwOutletC: 123456.78901234567, cwFlowM3s: 15.199999999999999,
-      flowAssumed: true, hotwellC: 40.00000000000001, barometerKpa: 101.325, validity: 'unsteady-load',
+      loadMw: 0.1 + 0.2,
+      backpressureKpa: 1e-7,
+      cwInletC: -0.000123456789012345,
+      cwOutletC: 123456.78901234567,
+      cwFlowM3s: 15.199999999999999,
+      flowAssumed: true,
+      hotwellC: 40.00000000000001,
+      barometerKpa: 101.325,
+      validity: 'unsteady-load',
     });
     await t.dataSource.transaction((em) => loadSamples(em, { unitId: unit.id, importId: imp.id, setupVersion: 7 }, [awkward]));
     const [row] = await t.dataSource.query(
@@ -64,7 +80,13 @@ describe('the import’s bulk load', () => {
       [unit.id],
     );
     expect(new Date(row.ts).getTime()).toBe(START_UTC + 123);
-    expect([row.loadMw, row.backpressureKpa, row.cwInletC, row.cwOutletC, row.cwFlowM3s]).toEqual([awkward.loadMw, awkward.backpressureKpa, awkward.cwInletC, awkward.cwOutletC, awkward.cwFlowM3s]);
+    expect([row.loadMw, row.backpressureKpa, row.cwInletC, row.cwOutletC, row.cwFlowM3s]).toEqual([
+      awkward.loadMw,
+      awkward.backpressureKpa,
+      awkward.cwInletC,
+      awkward.cwOutletC,
+      awkward.cwFlowM3s,
+    ]);
     expect([Number(row.flowAssumed), row.hotwellC, row.barometerKpa]).toEqual([1, awkward.hotwellC, 101.325]);
     expect([row.dissolvedOxygenPpb, row.airRemovalKgS, row.cwDifferentialPressureKpa, row.condensateFlowKgS]).toEqual([null, null, null, null]);
     expect([row.validity, row.setupVersion, row.importId]).toEqual(['unsteady-load', 7, imp.id]);
@@ -77,7 +99,9 @@ describe('the import’s bulk load', () => {
     await t.dataSource.transaction((em) => loadSamples(em, { unitId: unit.id, importId: first.id, setupVersion: 1 }, [sample(START_UTC + 3_600_000)]));
     // LOAD DATA LOCAL turns a duplicate key into a warning and goes on; the load must not pass for complete.
     const racing = [sample(START_UTC), sample(START_UTC + 3_600_000, { loadMw: 300 }), sample(START_UTC + 7_200_000)];
-    await expect(t.dataSource.transaction((em) => loadSamples(em, { unitId: unit.id, importId: second.id, setupVersion: 1 }, racing))).rejects.toThrow(/stored 2 of 3 rows.*Duplicate entry/);
+    await expect(t.dataSource.transaction((em) => loadSamples(em, { unitId: unit.id, importId: second.id, setupVersion: 1 }, racing))).rejects.toThrow(
+      /stored 2 of 3 rows.*Duplicate entry/,
+    );
     expect(await countOf('SELECT COUNT(*) AS n FROM performance_sample WHERE importId = ?', [second.id])).toBe(0);
     expect(await countOf('SELECT COUNT(*) AS n FROM performance_sample WHERE unitId = ? AND loadMw = 480.5', [unit.id])).toBe(1);
   });
@@ -118,7 +142,13 @@ describe('the import’s bulk load', () => {
     later[1_000]!.cells[2] = (Number(later[1_000]!.cells[2]) + 0.1).toFixed(6);
     const third = await importFile(unit.id, await writeHistorianCsv(tmp.file('overlap-2.csv'), later));
     expect(third.status).toBe('complete');
-    expect(third.counts).toMatchObject({ rowsRead: 6_000, stored: 3_000, skippedIdentical: 2_999, conflicting: 1, conflicts: [{ timestampUtc: new Date(rows[4_000]!.timestampUtc).toISOString() }] });
+    expect(third.counts).toMatchObject({
+      rowsRead: 6_000,
+      stored: 3_000,
+      skippedIdentical: 2_999,
+      conflicting: 1,
+      conflicts: [{ timestampUtc: new Date(rows[4_000]!.timestampUtc).toISOString() }],
+    });
     expect(await countOf('SELECT COUNT(*) AS n FROM performance_sample WHERE unitId = ?', [unit.id])).toBe(9_000);
     expect(await countOf('SELECT COUNT(*) AS n FROM performance_sample WHERE unitId = ? AND importId = ?', [unit.id, third.id])).toBe(3_000);
   });

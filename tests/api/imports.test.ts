@@ -109,7 +109,8 @@ describe('historian imports through the API', () => {
     await tmp?.cleanup();
   });
 
-  const newUnit = async (clientGroupId: string | null = null): Promise<GeneratingUnit> => createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id, clientGroupId));
+  const newUnit = async (clientGroupId: string | null = null): Promise<GeneratingUnit> =>
+    createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id, clientGroupId));
 
   const drain = () => drainJobs(t.dataSource, JOB_HANDLERS);
 
@@ -117,7 +118,10 @@ describe('historian imports through the API', () => {
   async function importFile(unitId: string, filePath: string, mapping?: unknown) {
     const up = await analyst.post(`/api/units/${unitId}/uploads`).set(CSRF).attach('file', filePath);
     expect(up.status, JSON.stringify(up.body)).toBe(201);
-    const started = await analyst.post(`/api/imports/${up.body.import.id}/start`).set(CSRF).send({ mapping: mapping ?? up.body.proposedMapping });
+    const started = await analyst
+      .post(`/api/imports/${up.body.import.id}/start`)
+      .set(CSRF)
+      .send({ mapping: mapping ?? up.body.proposedMapping });
     expect(started.status, JSON.stringify(started.body)).toBe(202);
     await drain();
     const res = await analyst.get(`/api/imports/${up.body.import.id}`).expect(200);
@@ -153,7 +157,14 @@ describe('historian imports through the API', () => {
 
       const imp = (await analyst.get(`/api/imports/${up.body.import.id}`).expect(200)).body;
       expect(imp.status).toBe('complete');
-      expect(imp.counts).toMatchObject({ rowsRead: 168, stored: 168, skippedIdentical: 0, conflicting: 0, rowsOk: 166, rowsByReason: { 'rise-not-positive': 1, 'low-load': 1 } });
+      expect(imp.counts).toMatchObject({
+        rowsRead: 168,
+        stored: 168,
+        skippedIdentical: 0,
+        conflicting: 0,
+        rowsOk: 166,
+        rowsByReason: { 'rise-not-positive': 1, 'low-load': 1 },
+      });
       expect(imp.firstTimestamp).toBe(new Date(START_UTC).toISOString());
       expect(imp.lastTimestamp).toBe(new Date(START_UTC + 167 * 3_600_000).toISOString());
       expect(imp.errorCount).toBe(0);
@@ -223,7 +234,9 @@ describe('historian imports through the API', () => {
           else expect(relClose(s[f]!, twin[f]!, 1e-12)).toBe(true);
         }
       });
-      expect((await dailyOf(xlsxUnit.id)).map((d) => [d.day, d.pointsUsed, d.pointsDropped])).toEqual((await dailyOf(csvUnit.id)).map((d) => [d.day, d.pointsUsed, d.pointsDropped]));
+      expect((await dailyOf(xlsxUnit.id)).map((d) => [d.day, d.pointsUsed, d.pointsDropped])).toEqual(
+        (await dailyOf(csvUnit.id)).map((d) => [d.day, d.pointsUsed, d.pointsDropped]),
+      );
     });
   });
 
@@ -235,7 +248,11 @@ describe('historian imports through the API', () => {
     it('imports each local time as the right UTC instant when the mapping names the plant’s zone', async () => {
       const unit = await newUnit();
       const rows = localWeek();
-      const up = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', await writeHistorianCsv(tmp.file('local-week.csv'), rows)).expect(201);
+      const up = await analyst
+        .post(`/api/units/${unit.id}/uploads`)
+        .set(CSRF)
+        .attach('file', await writeHistorianCsv(tmp.file('local-week.csv'), rows))
+        .expect(201);
       expect(up.body.proposedMapping.timestamp).toMatchObject({ column: 'Timestamp', format: 'local-text', dateOrder: 'ymd' });
       const mapping = { ...up.body.proposedMapping, timestamp: { ...up.body.proposedMapping.timestamp, timeZone: 'America/Chicago' } };
       await analyst.post(`/api/imports/${up.body.import.id}/start`).set(CSRF).send({ mapping }).expect(202);
@@ -253,7 +270,11 @@ describe('historian imports through the API', () => {
 
     it('the proposed mapping for local times carries the plant’s time zone', async () => {
       const unit = await newUnit();
-      const up = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', await writeHistorianCsv(tmp.file('local-week-2.csv'), localWeek())).expect(201);
+      const up = await analyst
+        .post(`/api/units/${unit.id}/uploads`)
+        .set(CSRF)
+        .attach('file', await writeHistorianCsv(tmp.file('local-week-2.csv'), localWeek()))
+        .expect(201);
       expect(up.body.proposedMapping.timestamp.timeZone).toBe('America/Chicago');
       await analyst.post(`/api/imports/${up.body.import.id}/start`).set(CSRF).send({ mapping: up.body.proposedMapping }).expect(202);
     });
@@ -324,10 +345,16 @@ describe('historian imports through the API', () => {
     it('headers the guess does not recognise leave the proposal incomplete, and starting with it answers 400 naming the missing quantities', async () => {
       const unit = await newUnit();
       const bare = ['Timestamp', 'Gross MW', 'BP inHgA', 'CW In F', 'CW Out F', 'CW Flow gpm'];
-      const up = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', await writeHistorianCsv(tmp.file('bare-headers.csv'), goodWeek().slice(0, 24), bare)).expect(201);
+      const up = await analyst
+        .post(`/api/units/${unit.id}/uploads`)
+        .set(CSRF)
+        .attach('file', await writeHistorianCsv(tmp.file('bare-headers.csv'), goodWeek().slice(0, 24), bare))
+        .expect(201);
       const res = await analyst.post(`/api/imports/${up.body.import.id}/start`).set(CSRF).send({ mapping: up.body.proposedMapping });
       expect(res.status).toBe(400);
-      expect(res.body.details.fieldErrors.map((e: { path: string }) => e.path)).toEqual(expect.arrayContaining(['columns.cwInletTemperature', 'columns.cwOutletTemperature']));
+      expect(res.body.details.fieldErrors.map((e: { path: string }) => e.path)).toEqual(
+        expect.arrayContaining(['columns.cwInletTemperature', 'columns.cwOutletTemperature']),
+      );
     });
 
     it('an empty (0-byte) file is refused at upload and leaves no import behind', async () => {
@@ -350,13 +377,20 @@ describe('historian imports through the API', () => {
     it('a refused file that is not a table is not kept on disk', async () => {
       const unit = await newUnit();
       const before = await readdir(tmp.file('uploads'));
-      await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', await writeCsvLines(tmp.file('header-only-2.csv'), [US_HEADERS.join(',')])).expect(400);
+      await analyst
+        .post(`/api/units/${unit.id}/uploads`)
+        .set(CSRF)
+        .attach('file', await writeCsvLines(tmp.file('header-only-2.csv'), [US_HEADERS.join(',')]))
+        .expect(400);
       expect(await readdir(tmp.file('uploads'))).toEqual(before);
     });
 
     it('a file with a header and no rows is refused at upload', async () => {
       const unit = await newUnit();
-      const res = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', await writeCsvLines(tmp.file('header-only.csv'), [US_HEADERS.join(',')]));
+      const res = await analyst
+        .post(`/api/units/${unit.id}/uploads`)
+        .set(CSRF)
+        .attach('file', await writeCsvLines(tmp.file('header-only.csv'), [US_HEADERS.join(',')]));
       expect(res.status).toBe(400);
       expect(JSON.stringify(res.body)).toMatch(/no data rows/);
       expect((await analyst.get(`/api/units/${unit.id}/imports`).expect(200)).body.imports).toEqual([]);
@@ -371,7 +405,10 @@ describe('historian imports through the API', () => {
         return lines;
       };
       const early = widen(csvLines(goodWeek().slice(0, 60)), 41);
-      const refused = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', await writeCsvLines(tmp.file('long-line-early.csv'), early));
+      const refused = await analyst
+        .post(`/api/units/${unit.id}/uploads`)
+        .set(CSRF)
+        .attach('file', await writeCsvLines(tmp.file('long-line-early.csv'), early));
       expect(refused.status).toBe(400);
       expect(refused.body.error).toMatch(/line 42 is longer than 100,000 characters/);
 
@@ -387,7 +424,11 @@ describe('historian imports through the API', () => {
 
     it('a mapping naming a unit that does not exist is refused at start with the units allowed', async () => {
       const unit = await newUnit();
-      const up = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', await writeHistorianCsv(tmp.file('unit-typo.csv'), goodWeek().slice(0, 24))).expect(201);
+      const up = await analyst
+        .post(`/api/units/${unit.id}/uploads`)
+        .set(CSRF)
+        .attach('file', await writeHistorianCsv(tmp.file('unit-typo.csv'), goodWeek().slice(0, 24)))
+        .expect(201);
       const mapping = { ...US_MAPPING, columns: { ...US_MAPPING.columns, cwFlow: { column: 'CW Flow gpm', unit: 'gal/hour' } } };
       const res = await analyst.post(`/api/imports/${up.body.import.id}/start`).set(CSRF).send({ mapping });
       expect(res.status).toBe(400);
@@ -415,7 +456,13 @@ describe('historian imports through the API', () => {
       const extra = physicalHistory({ startUtc: START_UTC + 168 * 3_600_000, hours: 1, condenser: TEST_CONDENSER, turbine: TEST_TURBINE });
       const third = await importFile(unit.id, await writeHistorianCsv(tmp.file('again-3.csv'), [...changed, ...extra]));
       expect(third.imp.status).toBe('complete');
-      expect(third.imp.counts).toMatchObject({ rowsRead: 169, stored: 1, skippedIdentical: 167, conflicting: 1, conflicts: [{ timestampUtc: isoUtc(rows[100]!.timestampUtc).replace('Z', '.000Z') }] });
+      expect(third.imp.counts).toMatchObject({
+        rowsRead: 169,
+        stored: 1,
+        skippedIdentical: 167,
+        conflicting: 1,
+        conflicts: [{ timestampUtc: isoUtc(rows[100]!.timestampUtc).replace('Z', '.000Z') }],
+      });
 
       const after = await samplesOf(unit.id);
       expect(after).toHaveLength(169);
@@ -523,7 +570,8 @@ describe('historian imports through the API', () => {
     }
     const jobsOf = (unitId: string) => t.dataSource.getRepository(BackgroundJob).find({ where: { unitId }, order: { createdAt: 'ASC' } });
     /** What a worker that died leaves behind once the stale time has passed. */
-    const ageLock = (jobId: string) => t.dataSource.query(`UPDATE background_job SET lockedAt = NOW(3) - INTERVAL ${STALE_MINUTES + 1} MINUTE WHERE id = ?`, [jobId]);
+    const ageLock = (jobId: string) =>
+      t.dataSource.query(`UPDATE background_job SET lockedAt = NOW(3) - INTERVAL ${STALE_MINUTES + 1} MINUTE WHERE id = ?`, [jobId]);
 
     it('stores the rows and queues a recompute of the unit like every other change, and draining the queue builds the daily figures', async () => {
       const unit = await newUnit();
@@ -535,13 +583,25 @@ describe('historian imports through the API', () => {
       const imp = (await analyst.get(`/api/imports/${importId}`).expect(200)).body;
       expect(imp.status).toBe('complete');
       expect(imp.counts.stored).toBe(168);
-      expect((await jobsOf(unit.id)).map((j) => [j.kind, j.status])).toEqual([['import', 'running'], ['recompute', 'queued']]);
+      expect((await jobsOf(unit.id)).map((j) => [j.kind, j.status])).toEqual([
+        ['import', 'running'],
+        ['recompute', 'queued'],
+      ]);
       expect(await dailyOf(unit.id)).toEqual([]);
       expect((await samplesOf(unit.id)).every((s) => s.cleanliness === null)).toBe(true);
 
       expect(await finishJob(t.dataSource, job!, { ok: true })).toBe(true);
       expect(await drain()).toBe(1);
-      expect((await dailyOf(unit.id)).map((d) => d.day)).toEqual(['2024-06-02', '2024-06-03', '2024-06-04', '2024-06-05', '2024-06-06', '2024-06-07', '2024-06-08', '2024-06-09']);
+      expect((await dailyOf(unit.id)).map((d) => d.day)).toEqual([
+        '2024-06-02',
+        '2024-06-03',
+        '2024-06-04',
+        '2024-06-05',
+        '2024-06-06',
+        '2024-06-07',
+        '2024-06-08',
+        '2024-06-09',
+      ]);
       expect((await samplesOf(unit.id)).filter((s) => s.validity === 'ok').every((s) => s.cleanliness !== null)).toBe(true);
     });
 
@@ -566,7 +626,10 @@ describe('historian imports through the API', () => {
       const samples = await samplesOf(unit.id);
       expect(samples).toHaveLength(168);
       expect(samples.every((s) => s.importId === importId)).toBe(true);
-      expect((await jobsOf(unit.id)).map((j) => [j.kind, j.status, j.attempts])).toEqual([['import', 'done', 2], ['recompute', 'done', 1]]);
+      expect((await jobsOf(unit.id)).map((j) => [j.kind, j.status, j.attempts])).toEqual([
+        ['import', 'done', 2],
+        ['recompute', 'done', 1],
+      ]);
     });
 
     it('finished just before its worker died, keeps its rows when the job is taken over', async () => {
@@ -613,7 +676,11 @@ describe('historian imports through the API', () => {
   describe('scope', () => {
     it('another organisation’s import answers 404 to read, start, undo and the error report', async () => {
       const unit = await newUnit();
-      const up = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', await writeHistorianCsv(tmp.file('scope-1.csv'), goodWeek().slice(0, 24))).expect(201);
+      const up = await analyst
+        .post(`/api/units/${unit.id}/uploads`)
+        .set(CSRF)
+        .attach('file', await writeHistorianCsv(tmp.file('scope-1.csv'), goodWeek().slice(0, 24)))
+        .expect(201);
       const id = up.body.import.id;
       const other = await createTenant(t.dataSource, 'outsider');
       const outsider = await signedInAgent(t.app, other.users.admin.email);
@@ -628,7 +695,11 @@ describe('historian imports through the API', () => {
 
     it('a member limited to another client group gets 404; one limited to the plant’s group sees it', async () => {
       const unit = await newUnit(tenant.groups[0].id);
-      const up = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', await writeHistorianCsv(tmp.file('scope-2.csv'), goodWeek().slice(0, 24))).expect(201);
+      const up = await analyst
+        .post(`/api/units/${unit.id}/uploads`)
+        .set(CSRF)
+        .attach('file', await writeHistorianCsv(tmp.file('scope-2.csv'), goodWeek().slice(0, 24)))
+        .expect(201);
       const id = up.body.import.id;
       const limitedElsewhere = await createUser(t.dataSource, 'group-two-analyst');
       await addMember(t.dataSource, tenant.organisation.id, limitedElsewhere, 'analyst', [tenant.groups[1].id]);

@@ -42,7 +42,10 @@ describe('control characters in text', () => {
 
   it('notes keep their line breaks and tabs', async () => {
     const unit = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
-    const res = await analyst.post(`/api/units/${unit.id}/events`).set(CSRF).send({ kind: 'other', startDate: '2026-01-05', notes: 'line one\n\tline two\r\n' });
+    const res = await analyst
+      .post(`/api/units/${unit.id}/events`)
+      .set(CSRF)
+      .send({ kind: 'other', startDate: '2026-01-05', notes: 'line one\n\tline two\r\n' });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
   });
 });
@@ -50,8 +53,15 @@ describe('control characters in text', () => {
 describe('event dates', () => {
   it('a date outside 1900–2200 is refused: no condenser record reaches back to year 0 or ahead to 9999', async () => {
     const unit = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
-    for (const [startDate, endDate] of [['0000-01-01', null], ['2026-01-01', '9999-12-31'], ['1899-12-31', null]] as const) {
-      const res = await analyst.post(`/api/units/${unit.id}/events`).set(CSRF).send({ kind: 'outage', startDate, endDate: endDate ?? '2026-02-01' });
+    for (const [startDate, endDate] of [
+      ['0000-01-01', null],
+      ['2026-01-01', '9999-12-31'],
+      ['1899-12-31', null],
+    ] as const) {
+      const res = await analyst
+        .post(`/api/units/${unit.id}/events`)
+        .set(CSRF)
+        .send({ kind: 'outage', startDate, endDate: endDate ?? '2026-02-01' });
       expect(res.status).toBe(400);
       expect(JSON.stringify(res.body.details.fieldErrors)).toMatch(/1900.*2200/);
     }
@@ -62,7 +72,11 @@ describe('event dates', () => {
 describe('a client group named twice in a limit', () => {
   it('is stored once', async () => {
     const member = await addMember(t.dataSource, tenant.organisation.id, await createUser(t.dataSource, 'twice'), 'viewer', [tenant.groups[0].id]);
-    await admin.patch(`/api/members/${member.id}`).set(CSRF).send({ clientGroupIds: [tenant.groups[1].id, tenant.groups[1].id] }).expect(204);
+    await admin
+      .patch(`/api/members/${member.id}`)
+      .set(CSRF)
+      .send({ clientGroupIds: [tenant.groups[1].id, tenant.groups[1].id] })
+      .expect(204);
     expect((await t.dataSource.getRepository(Membership).findOneByOrFail({ id: member.id })).clientGroupIds).toEqual([tenant.groups[1].id]);
   });
 });
@@ -72,7 +86,11 @@ describe('an import whose stored JSON does not fit its schema', () => {
     const unit = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
     const file = await writeCsvLines(tmp.file('odd.csv'), ['Timestamp,Gross MW', '2026-01-01 00:00,300']);
     const up = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', file).expect(201);
-    await t.dataSource.query('UPDATE data_import SET counts = ?, errors = ? WHERE id = ?', [JSON.stringify({ bogus: 1 }), JSON.stringify('not a list'), up.body.import.id]);
+    await t.dataSource.query('UPDATE data_import SET counts = ?, errors = ? WHERE id = ?', [
+      JSON.stringify({ bogus: 1 }),
+      JSON.stringify('not a list'),
+      up.body.import.id,
+    ]);
     const res = await analyst.get(`/api/imports/${up.body.import.id}`).expect(200);
     const parsed = importViewSchema.safeParse(res.body);
     expect(parsed.success, JSON.stringify(parsed.error?.issues)).toBe(true);

@@ -54,8 +54,14 @@ describe('background jobs with two workers', () => {
       await queue(other, 1);
       const claims = await Promise.all(Array.from({ length: 8 }, (_, i) => claimNextJob(i % 2 === 0 ? dsA : dsB, `racer-${round}-${i}`)));
       const claimed = claims.filter((j): j is BackgroundJob => j !== null);
-      expect(claimed.filter((j) => j.unitId === busy.id), `round ${round}`).toHaveLength(1);
-      expect(claimed.filter((j) => j.unitId === other.id), `round ${round}`).toHaveLength(1);
+      expect(
+        claimed.filter((j) => j.unitId === busy.id),
+        `round ${round}`,
+      ).toHaveLength(1);
+      expect(
+        claimed.filter((j) => j.unitId === other.id),
+        `round ${round}`,
+      ).toHaveLength(1);
       const running = (await jobsOf(busy)).filter((j) => j.status === 'running');
       expect(running).toHaveLength(1);
       // the oldest job of the unit goes first
@@ -141,9 +147,12 @@ describe('background jobs with two workers', () => {
     }
     const givenUp: string[] = [];
     const handlers: Record<string, JobHandler> = {
-      recompute: Object.assign(async () => {
-        throw new Error('must not run a fourth time');
-      }, { giveUp: async (_em: unknown, j: BackgroundJob) => void givenUp.push(j.id) }),
+      recompute: Object.assign(
+        async () => {
+          throw new Error('must not run a fourth time');
+        },
+        { giveUp: async (_em: unknown, j: BackgroundJob) => void givenUp.push(j.id) },
+      ),
     };
     expect(await drainJobs(dsB, handlers)).toBe(0);
     const after = await dsA.getRepository(BackgroundJob).findOneByOrFail({ id: job.id });

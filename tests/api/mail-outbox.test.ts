@@ -29,7 +29,10 @@ describe('mail outbox', () => {
     const port = (hung.address() as net.AddressInfo).port;
     const stuck = mailDelivery(t.config, createMailer({ sinkPort: port, from: t.config.MAIL_FROM, timeoutMs: 300 }));
     await drainOutbox(t.dataSource, stuck);
-    const [row] = await t.dataSource.query('SELECT attempts, lastError, claimedBy, failedAt, availableAt > NOW(3) AS later FROM mail_outbox WHERE recipient = ?', [to]);
+    const [row] = await t.dataSource.query(
+      'SELECT attempts, lastError, claimedBy, failedAt, availableAt > NOW(3) AS later FROM mail_outbox WHERE recipient = ?',
+      [to],
+    );
     expect(row).toMatchObject({ attempts: 1, claimedBy: null, failedAt: null });
     expect(row.lastError).toMatch(/timeout|greeting/i);
     expect(Number(row.later)).toBe(1);

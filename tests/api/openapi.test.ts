@@ -56,7 +56,10 @@ describe('the API description', () => {
       expect(op, key(route)).toBeDefined();
       expect(op!['x-access'], key(route)).toBe(route.access);
       const pathParams = [...route.path.matchAll(/:(\w+)/g)].map((m) => m[1]);
-      expect(op!.parameters.filter((p) => p.in === 'path').map((p) => p.name), key(route)).toEqual(pathParams);
+      expect(
+        op!.parameters.filter((p) => p.in === 'path').map((p) => p.name),
+        key(route),
+      ).toEqual(pathParams);
     }
   });
 
@@ -71,7 +74,12 @@ describe('the API description', () => {
 
   it('describes query parameters of a route from its query schema', () => {
     const health = doc.paths['/api/units/{id}/health']!.get!;
-    expect(health.parameters.map((p) => `${p.in}:${p.name}:${p.required}`)).toEqual(['path:id:true', 'query:from:false', 'query:to:false', 'query:breakdownBy:false']);
+    expect(health.parameters.map((p) => `${p.in}:${p.name}:${p.required}`)).toEqual([
+      'path:id:true',
+      'query:from:false',
+      'query:to:false',
+      'query:breakdownBy:false',
+    ]);
   });
 
   it('gives every route that answers JSON its response schema (except those still listed as undescribed)', () => {
@@ -104,7 +112,11 @@ describe('the API description', () => {
 
   it('describes each calculation command at its own path: its input, its result, and the 422 answer with errors in place', () => {
     const calcPaths = Object.keys(doc.paths).filter((p) => p.startsWith('/api/calc/'));
-    expect(calcPaths.sort()).toEqual(Object.keys(CALC_COMMANDS).map((n) => `/api/calc/${n}`).sort());
+    expect(calcPaths.sort()).toEqual(
+      Object.keys(CALC_COMMANDS)
+        .map((n) => `/api/calc/${n}`)
+        .sort(),
+    );
     const schedule = doc.paths['/api/calc/schedule']!.post!;
     expect(JSON.stringify(schedule.requestBody!.content['application/json']!.schema)).toContain('horizonDays');
     expect(JSON.stringify(schedule.responses['200']!.content!['application/json']!.schema)).toContain('businessCase');
@@ -112,7 +124,10 @@ describe('the API description', () => {
   });
 
   it('describes a created plant: its units and time zone are required fields', () => {
-    const schema = doc.paths['/api/plants']!.post!.responses['201']!.content!['application/json']!.schema as { required: string[]; additionalProperties: unknown };
+    const schema = doc.paths['/api/plants']!.post!.responses['201']!.content!['application/json']!.schema as {
+      required: string[];
+      additionalProperties: unknown;
+    };
     expect(schema.required).toEqual(expect.arrayContaining(['id', 'name', 'timeZone', 'clientGroupId', 'units']));
     expect(schema.additionalProperties).toBe(false);
   });

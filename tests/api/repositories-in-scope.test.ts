@@ -40,19 +40,59 @@ let inNoGroup: UnitRecords;
 /** tenant B */
 let foreign: UnitRecords;
 
-const scope = (tenant: TenantFixture, clientGroupIds: string[] | null): TenantScope => ({ organisationId: tenant.organisation.id, userId: tenant.users.analyst.id, role: 'analyst', clientGroupIds });
+const scope = (tenant: TenantFixture, clientGroupIds: string[] | null): TenantScope => ({
+  organisationId: tenant.organisation.id,
+  userId: tenant.users.analyst.id,
+  role: 'analyst',
+  clientGroupIds,
+});
 const wholeTenantA = () => scope(a, null);
 const limitedToGroupTwo = () => scope(a, [a.groups[1].id]);
 const wholeTenantB = () => scope(b, null);
 
 const dayRow = (unitId: string): DailyAggregateRow => ({
-  unitId, day: DAY, pointsUsed: 20, pointsDropped: 4, droppedByReason: JSON.stringify({ 'low-load': 4 }), medianCleanliness: 0.81, medianTtdK: 4.2, trendCleanliness: null,
-  meanSubcoolingK: null, meanDissolvedOxygenPpb: null, meanAirRemovalKgS: null, airLeakSuspected: false, meanDutyMw: null, heatBalanceDutyMw: null, stuckSensors: null,
-  meanBackpressureKpa: 7.1, meanExpectedBackpressureKpa: 6.6, meanExcessBackpressureKpa: 0.5, meanCwInletC: 21, meanLoadMw: 300, meanHeatRatePenaltyPct: 0.4,
-  foulingKpa: 0.4, cwInletKpa: 0, cwFlowKpa: 0, loadKpa: 0, pluggingKpa: 0, unexplainedKpa: 0.1, foulingCost: 900, unexplainedCost: 200,
+  unitId,
+  day: DAY,
+  pointsUsed: 20,
+  pointsDropped: 4,
+  droppedByReason: JSON.stringify({ 'low-load': 4 }),
+  medianCleanliness: 0.81,
+  medianTtdK: 4.2,
+  trendCleanliness: null,
+  meanSubcoolingK: null,
+  meanDissolvedOxygenPpb: null,
+  meanAirRemovalKgS: null,
+  airLeakSuspected: false,
+  meanDutyMw: null,
+  heatBalanceDutyMw: null,
+  stuckSensors: null,
+  meanBackpressureKpa: 7.1,
+  meanExpectedBackpressureKpa: 6.6,
+  meanExcessBackpressureKpa: 0.5,
+  meanCwInletC: 21,
+  meanLoadMw: 300,
+  meanHeatRatePenaltyPct: 0.4,
+  foulingKpa: 0.4,
+  cwInletKpa: 0,
+  cwFlowKpa: 0,
+  loadKpa: 0,
+  pluggingKpa: 0,
+  unexplainedKpa: 0.1,
+  foulingCost: 900,
+  unexplainedCost: 200,
 });
 
-const sample = (timestampUtc: number): ImportSample => ({ line: 2, timestampUtc, loadMw: 300, backpressureKpa: 7, cwInletC: 21, cwOutletC: 30, cwFlowM3s: 14, flowAssumed: false, validity: 'ok' });
+const sample = (timestampUtc: number): ImportSample => ({
+  line: 2,
+  timestampUtc,
+  loadMw: 300,
+  backpressureKpa: 7,
+  cwInletC: 21,
+  cwOutletC: 30,
+  cwFlowM3s: 14,
+  flowAssumed: false,
+  validity: 'ok',
+});
 
 async function unitWithRecords(tenant: TenantFixture, clientGroupId: string | null): Promise<UnitRecords> {
   const ds = t.dataSource;
@@ -85,7 +125,8 @@ const LOOKUPS: [string, (s: TenantScope, r: UnitRecords) => Promise<string | nul
   ['event', async (s, r) => (await findEventInScope(t.dataSource.manager, s, r.eventId))?.id ?? null],
   ['job', async (s, r) => (await findJobInScope(t.dataSource.manager, s, r.jobId))?.id ?? null],
 ];
-const idOf = (kind: string, r: UnitRecords) => ({ sample: r.sampleId, 'daily figure': `${r.unit.id}/${DAY}`, import: r.importId, event: r.eventId, job: r.jobId })[kind];
+const idOf = (kind: string, r: UnitRecords) =>
+  ({ sample: r.sampleId, 'daily figure': `${r.unit.id}/${DAY}`, import: r.importId, event: r.eventId, job: r.jobId })[kind];
 
 describe.each(LOOKUPS)('a %s looked up within a scope', (kind, lookup) => {
   it('is found by a member of its tenant without a client-group limit', async () => {
@@ -108,7 +149,11 @@ describe.each(LOOKUPS)('a %s looked up within a scope', (kind, lookup) => {
 
 describe('a unit’s records listed within a scope', () => {
   const lists = (s: TenantScope, unitId: string) =>
-    Promise.all([dailyFiguresInScope(t.dataSource.manager, s, unitId), eventsOfUnitInScope(t.dataSource.manager, s, unitId), importsOfUnitInScope(t.dataSource.manager, s, unitId)]);
+    Promise.all([
+      dailyFiguresInScope(t.dataSource.manager, s, unitId),
+      eventsOfUnitInScope(t.dataSource.manager, s, unitId),
+      importsOfUnitInScope(t.dataSource.manager, s, unitId),
+    ]);
 
   it('are listed for a unit in scope', async () => {
     const [days, events, imports] = await lists(limitedToGroupTwo(), inGroupTwo.unit.id);

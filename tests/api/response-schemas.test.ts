@@ -48,7 +48,10 @@ describe('API answers on the demo data', () => {
       '/api/plants/:id': [`/api/plants/${plant.id}`],
       '/api/units/:id': [`/api/units/${unitId}`],
       '/api/units/:id/health': [`/api/units/${unitId}/health`, `/api/units/${unitId}/health?breakdownBy=week&from=2026-01-01&to=2026-06-30`],
-      '/api/units/:id/samples': [`/api/units/${unitId}/samples?from=2026-11-25&to=2026-12-01`, `/api/units/${unitId}/samples?from=2026-11-25&to=2026-12-01&quantity=cleanliness`],
+      '/api/units/:id/samples': [
+        `/api/units/${unitId}/samples?from=2026-11-25&to=2026-12-01`,
+        `/api/units/${unitId}/samples?from=2026-11-25&to=2026-12-01&quantity=cleanliness`,
+      ],
       '/api/units/:id/events': [`/api/units/${unitId}/events`],
       '/api/units/:id/daily': [`/api/units/${unitId}/daily`, `/api/units/${unitId}/daily?from=2026-11-01&to=2026-11-30`],
       '/api/units/:id/imports': [`/api/units/${unitId}/imports`],
@@ -74,7 +77,10 @@ describe('API answers on the demo data', () => {
     await tmp?.cleanup();
   });
 
-  const jsonGets = () => t.app.locals.routes.filter((r): r is RouteSpec & { response: ZodType } => r.method === 'get' && !!r.response && typeof r.response === 'object' && !('file' in r.response));
+  const jsonGets = () =>
+    t.app.locals.routes.filter(
+      (r): r is RouteSpec & { response: ZodType } => r.method === 'get' && !!r.response && typeof r.response === 'object' && !('file' in r.response),
+    );
 
   it('reads every GET route that declares a JSON schema (a new one must be added here)', () => {
     const declared = jsonGets().map((r) => r.path);
@@ -122,7 +128,10 @@ describe('API answers on the demo data', () => {
       expect(health.headline.nextCleaning).toBeNull();
       expect(health.warnings).toContain('The stored trend and cleaning outlook are from an older version and cannot be read; recompute the unit.');
     } finally {
-      await t.dataSource.query('UPDATE generating_unit SET analysis = ? WHERE id = ?', [typeof analysis === 'string' ? analysis : JSON.stringify(analysis), unitId]);
+      await t.dataSource.query('UPDATE generating_unit SET analysis = ? WHERE id = ?', [
+        typeof analysis === 'string' ? analysis : JSON.stringify(analysis),
+        unitId,
+      ]);
     }
   });
 

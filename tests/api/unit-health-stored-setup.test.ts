@@ -39,8 +39,18 @@ describe('health view with an implausible stored setup', () => {
   /** A unit with a plausible history, then its condenser setup overwritten in the database and recomputed. */
   async function unitWithStoredCondenser(name: string, change: Partial<typeof TEST_CONDENSER>): Promise<GeneratingUnit> {
     const unit = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
-    const rows = physicalHistory({ startUtc: START_UTC, hours: DAYS * 24, condenser: TEST_CONDENSER, turbine: TEST_TURBINE, cleanlinessAt: (h) => 0.88 - (0.002 * h) / 24 });
-    const up = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', await writeHistorianCsv(tmp.file(`${name}.csv`), rows)).expect(201);
+    const rows = physicalHistory({
+      startUtc: START_UTC,
+      hours: DAYS * 24,
+      condenser: TEST_CONDENSER,
+      turbine: TEST_TURBINE,
+      cleanlinessAt: (h) => 0.88 - (0.002 * h) / 24,
+    });
+    const up = await analyst
+      .post(`/api/units/${unit.id}/uploads`)
+      .set(CSRF)
+      .attach('file', await writeHistorianCsv(tmp.file(`${name}.csv`), rows))
+      .expect(201);
     await analyst.post(`/api/imports/${up.body.import.id}/start`).set(CSRF).send({ mapping: US_MAPPING }).expect(202);
     await drain();
     await t.dataSource.getRepository(GeneratingUnit).update(unit.id, { condenser: { ...TEST_CONDENSER, ...change } });

@@ -98,7 +98,12 @@ function mainHistory(): WitnessRow[] {
 function frozenImplausibleHours(): number {
   const hours = mainHistory().slice(STUCK_DAY * H, (STUCK_DAY + 1) * H);
   return hours.filter((r) => {
-    const point = analyseCondenserPoint({ ...r, pluggedTubes: TEST_CONDENSER.pluggedTubes, geometry: geometryOf(TEST_CONDENSER), referenceCleanliness: TEST_CONDENSER.designCleanliness });
+    const point = analyseCondenserPoint({
+      ...r,
+      pluggedTubes: TEST_CONDENSER.pluggedTubes,
+      geometry: geometryOf(TEST_CONDENSER),
+      referenceCleanliness: TEST_CONDENSER.designCleanliness,
+    });
     return point.cleanliness > 1.3;
   }).length;
 }
@@ -213,7 +218,11 @@ describe('condenser health API', () => {
     rows = mainHistory();
     await importInto(unit, 'main', rows, WITNESS_MAPPING, WITNESS_HEADERS);
     // The cleaning is on the timeline before the background work runs.
-    await analyst.post(`/api/units/${unit.id}/events`).set(CSRF).send({ kind: 'cleaning', startDate: CLEANING_DATE, endDate: CLEANING_DATE, notes: 'high-pressure water' }).expect(201);
+    await analyst
+      .post(`/api/units/${unit.id}/events`)
+      .set(CSRF)
+      .send({ kind: 'cleaning', startDate: CLEANING_DATE, endDate: CLEANING_DATE, notes: 'high-pressure water' })
+      .expect(201);
     await drain();
     daily = (await analyst.get(`/api/units/${unit.id}/daily`).expect(200)).body.days;
     byDay = new Map(daily.map((d) => [d.day, d]));
@@ -229,7 +238,12 @@ describe('condenser health API', () => {
     const imports = (await analyst.get(`/api/units/${unit.id}/imports`).expect(200)).body;
     const list = imports.imports ?? imports;
     expect(list[0].status).toBe('complete');
-    expect(list[0].counts).toMatchObject({ rowsRead: DAYS * H, stored: DAYS * H, rowsOk: DAYS * H - 5, rowsByReason: { 'low-load': 3, 'rise-not-positive': 2 } });
+    expect(list[0].counts).toMatchObject({
+      rowsRead: DAYS * H,
+      stored: DAYS * H,
+      rowsOk: DAYS * H - 5,
+      rowsByReason: { 'low-load': 3, 'rise-not-positive': 2 },
+    });
     expect(daily.map((d) => d.day)).toEqual(Array.from({ length: DAYS }, (_, i) => addDays(FIRST_DAY, i)));
   });
 
@@ -411,7 +425,10 @@ describe('condenser health API', () => {
       expect(july.airLeakPeriods).toEqual([]);
       expect(july.forecast).toEqual([]);
       expect(july.dataQuality.daysInPeriod).toBe(31);
-      expect(july.dataQuality.droppedByReason).toEqual({ 'rise-not-positive': NO_RISE_HOURS.length, 'model:implausible-cleanliness': frozenImplausibleHours() });
+      expect(july.dataQuality.droppedByReason).toEqual({
+        'rise-not-positive': NO_RISE_HOURS.length,
+        'model:implausible-cleanliness': frozenImplausibleHours(),
+      });
       expect(july.events.map((e: { kind: string }) => e.kind)).toEqual(['cleaning']);
       // Weeks that start in late June still count only their July days.
       expect(july.breakdown[0].period).toBe('2024-07-01');
@@ -432,7 +449,11 @@ describe('condenser health API', () => {
       expect(q.pointsUsed).toBe(sum(daily.map((d) => d.pointsUsed)));
       expect(q.pointsDropped).toBe(sum(daily.map((d) => d.pointsDropped)));
       expect(q.pointsUsed + q.pointsDropped).toBe(DAYS * H);
-      expect(q.droppedByReason).toEqual({ 'low-load': LOW_LOAD_HOURS.length, 'rise-not-positive': NO_RISE_HOURS.length, 'model:implausible-cleanliness': frozenImplausibleHours() });
+      expect(q.droppedByReason).toEqual({
+        'low-load': LOW_LOAD_HOURS.length,
+        'rise-not-positive': NO_RISE_HOURS.length,
+        'model:implausible-cleanliness': frozenImplausibleHours(),
+      });
       expect(byDay.get(addDays(FIRST_DAY, 10))!.droppedByReason).toEqual({ 'low-load': 3 });
     });
 
@@ -472,10 +493,21 @@ describe('condenser health API', () => {
     it('downsamples cleanliness with 2 % of the hours refused (low load) without scoring them as 0: no empty hour among the 2,000', async () => {
       const gappy = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
       const hours = 90 * H;
-      const rowsWithGaps = physicalHistory({ startUtc: START_UTC, hours, condenser: TEST_CONDENSER, turbine: TEST_TURBINE, loadAt: (h) => (h % 50 === 7 ? 0.3 : 0.88) * TEST_TURBINE.ratingMw });
+      const rowsWithGaps = physicalHistory({
+        startUtc: START_UTC,
+        hours,
+        condenser: TEST_CONDENSER,
+        turbine: TEST_TURBINE,
+        loadAt: (h) => (h % 50 === 7 ? 0.3 : 0.88) * TEST_TURBINE.ratingMw,
+      });
       await importInto(gappy, 'gappy', rowsWithGaps);
       await drain();
-      const res = (await analyst.get(`/api/units/${gappy.id}/samples`).query({ from: FIRST_DAY, to: addDays(FIRST_DAY, 89), quantity: 'cleanliness' }).expect(200)).body;
+      const res = (
+        await analyst
+          .get(`/api/units/${gappy.id}/samples`)
+          .query({ from: FIRST_DAY, to: addDays(FIRST_DAY, 89), quantity: 'cleanliness' })
+          .expect(200)
+      ).body;
       expect(res.total).toBe(hours);
       expect(res.points).toHaveLength(2000);
       // Each output point stands for about an hour here, so a single refused hour is no visible gap.
@@ -487,10 +519,21 @@ describe('condenser health API', () => {
       const longUnit = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
       const hours = 90 * H;
       const spikeHour = 1234;
-      const long = physicalHistory({ startUtc: START_UTC, hours, condenser: TEST_CONDENSER, turbine: TEST_TURBINE, cleanlinessAt: (h) => (h === spikeHour ? 0.5 : 0.85) });
+      const long = physicalHistory({
+        startUtc: START_UTC,
+        hours,
+        condenser: TEST_CONDENSER,
+        turbine: TEST_TURBINE,
+        cleanlinessAt: (h) => (h === spikeHour ? 0.5 : 0.85),
+      });
       await importInto(longUnit, 'long', long);
       await drain();
-      const res = (await analyst.get(`/api/units/${longUnit.id}/samples`).query({ from: FIRST_DAY, to: addDays(FIRST_DAY, 89), quantity: 'backpressure' }).expect(200)).body;
+      const res = (
+        await analyst
+          .get(`/api/units/${longUnit.id}/samples`)
+          .query({ from: FIRST_DAY, to: addDays(FIRST_DAY, 89), quantity: 'backpressure' })
+          .expect(200)
+      ).body;
       expect(res.total).toBe(hours);
       expect(res.points).toHaveLength(2000);
       expect(res.points[0].t).toBe(new Date(long[0]!.timestampUtc).toISOString());
@@ -511,7 +554,18 @@ describe('condenser health API', () => {
       expect(res.headers['content-type']).toMatch(/^text\/csv/);
       expect(res.headers['content-disposition']).toMatch(/^attachment; filename=".+-daily\.csv"$/);
       const [header = [], ...body] = parseCsv(res.text);
-      for (const h of ['Backpressure kPa(a)', 'Expected backpressure at reference cleanliness kPa(a)', 'TTD (median) K', 'CW inlet °C', 'Load MW', 'Heat-rate penalty %', 'Deviation: load and duty kPa', 'Subcooling K', 'Dissolved oxygen ppb', 'Air-removal flow kg/s']) {
+      for (const h of [
+        'Backpressure kPa(a)',
+        'Expected backpressure at reference cleanliness kPa(a)',
+        'TTD (median) K',
+        'CW inlet °C',
+        'Load MW',
+        'Heat-rate penalty %',
+        'Deviation: load and duty kPa',
+        'Subcooling K',
+        'Dissolved oxygen ppb',
+        'Air-removal flow kg/s',
+      ]) {
         expect(header).toContain(h);
       }
       expect(body).toHaveLength(DAYS);
@@ -555,13 +609,36 @@ describe('condenser health API', () => {
 
     it('writes the monthly breakdown as CSV and XLSX with the figures of the health view', async () => {
       const csv = parseCsv((await analyst.get(`/api/units/${unit.id}/export`).query({ dataset: 'breakdown', format: 'csv' }).expect(200)).text);
-      expect(csv[0]).toEqual(['Month', 'CW inlet temperature kPa', 'CW flow kPa', 'Load and duty kPa', 'Plugged tubes kPa', 'Fouling kPa', 'Unexplained kPa', 'Excess backpressure kPa', 'Fouling cost USD', 'Unexplained cost USD']);
+      expect(csv[0]).toEqual([
+        'Month',
+        'CW inlet temperature kPa',
+        'CW flow kPa',
+        'Load and duty kPa',
+        'Plugged tubes kPa',
+        'Fouling kPa',
+        'Unexplained kPa',
+        'Excess backpressure kPa',
+        'Fouling cost USD',
+        'Unexplained cost USD',
+      ]);
       expect(csv.slice(1).map((r) => r[0])).toEqual(['2024-06', '2024-07', '2024-08']);
       csv.slice(1).forEach((r, i) => {
         const b = health.breakdown[i];
-        [b.cwInletKpa, b.cwFlowKpa, b.loadKpa, b.pluggingKpa, b.foulingKpa, b.unexplainedKpa, b.meanExcessBackpressureKpa, b.foulingCost, b.unexplainedCost].forEach((v, k) => expect(Number(r[k + 1])).toBeCloseTo(v, 9));
+        [
+          b.cwInletKpa,
+          b.cwFlowKpa,
+          b.loadKpa,
+          b.pluggingKpa,
+          b.foulingKpa,
+          b.unexplainedKpa,
+          b.meanExcessBackpressureKpa,
+          b.foulingCost,
+          b.unexplainedCost,
+        ].forEach((v, k) => expect(Number(r[k + 1])).toBeCloseTo(v, 9));
       });
-      const xlsx = await readXlsx((await analyst.get(`/api/units/${unit.id}/export`).query({ dataset: 'breakdown', format: 'xlsx' }).buffer(true).parse(binary).expect(200)).body);
+      const xlsx = await readXlsx(
+        (await analyst.get(`/api/units/${unit.id}/export`).query({ dataset: 'breakdown', format: 'xlsx' }).buffer(true).parse(binary).expect(200)).body,
+      );
       expect(xlsx.map((r) => r.map((v) => (v === null ? '' : String(v))))).toEqual(csv);
     });
 
@@ -579,7 +656,9 @@ describe('condenser health API', () => {
       expect(csv[1]?.[col('Left out by reason')]).toBe(`'${formula}: 4`);
       expect(csv[1]?.[col('Sensors not changing all day')]).toBe("'-2+3; @SUM(A1)");
       expect(csv[1]?.[col('Deviation: load and duty kPa')]).toBe('-0.5');
-      const xlsx = await readXlsx((await analyst.get(`/api/units/${planted.id}/export`).query({ dataset: 'daily', format: 'xlsx' }).buffer(true).parse(binary).expect(200)).body);
+      const xlsx = await readXlsx(
+        (await analyst.get(`/api/units/${planted.id}/export`).query({ dataset: 'daily', format: 'xlsx' }).buffer(true).parse(binary).expect(200)).body,
+      );
       expect(xlsx[1]?.[col('Left out by reason')]).toBe(`'${formula}: 4`);
       expect(xlsx[1]?.[col('Sensors not changing all day')]).toBe("'-2+3; @SUM(A1)");
       expect(xlsx[1]?.[col('Deviation: load and duty kPa')]).toBe(-0.5);
@@ -595,7 +674,13 @@ describe('condenser health API', () => {
       const leakFrom = cleaningDay + 3;
       const inLeak = (h: number) => h >= leakFrom * H && h < (leakFrom + LEAK_DAYS) * H;
       const cf = (h: number) => 1 / (1 / CF0 + K * (h / H - (h >= cleaningDay * H ? cleaningDay : 0)));
-      const plain = physicalHistory({ startUtc: START_UTC, hours: 55 * H, condenser: TEST_CONDENSER, turbine: TEST_TURBINE, cleanlinessAt: (h) => cf(h) - (inLeak(h) ? LEAK_CF_LOSS : 0) });
+      const plain = physicalHistory({
+        startUtc: START_UTC,
+        hours: 55 * H,
+        condenser: TEST_CONDENSER,
+        turbine: TEST_TURBINE,
+        cleanlinessAt: (h) => cf(h) - (inLeak(h) ? LEAK_CF_LOSS : 0),
+      });
       const data = withWitnesses(plain, (h) => ({ ...tight(h), dissolvedOxygenPpb: inLeak(h) ? 24 : tight(h).dissolvedOxygenPpb }));
       await importInto(u, 'after-cleaning', data, WITNESS_MAPPING, WITNESS_HEADERS);
       const date = addDays(FIRST_DAY, cleaningDay);
@@ -610,7 +695,13 @@ describe('condenser health API', () => {
   describe('steady fouling with flat witnesses', () => {
     it('flags no day as air in-leakage and fits the fouling trend on every day (CF falling 0.009 per day for 60 days)', async () => {
       const u = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
-      const plain = physicalHistory({ startUtc: START_UTC, hours: 60 * H, condenser: TEST_CONDENSER, turbine: TEST_TURBINE, cleanlinessAt: (h) => 0.9 - (0.009 * h) / H });
+      const plain = physicalHistory({
+        startUtc: START_UTC,
+        hours: 60 * H,
+        condenser: TEST_CONDENSER,
+        turbine: TEST_TURBINE,
+        cleanlinessAt: (h) => 0.9 - (0.009 * h) / H,
+      });
       await importInto(u, 'steady-fouling', withWitnesses(plain, tight), WITNESS_MAPPING, WITNESS_HEADERS);
       await drain();
       const body = (await analyst.get(`/api/units/${u.id}/health`).expect(200)).body;

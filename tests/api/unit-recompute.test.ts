@@ -51,7 +51,11 @@ describe('recompute of derived data', () => {
   async function unitWithHistory(name: string, options: Partial<HistoryOptions> & { hours: number }): Promise<GeneratingUnit> {
     const unit = await createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id));
     const rows = physicalHistory({ startUtc: START_UTC, condenser: TEST_CONDENSER, turbine: TEST_TURBINE, ...options });
-    const up = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', await writeHistorianCsv(tmp.file(`${name}.csv`), rows)).expect(201);
+    const up = await analyst
+      .post(`/api/units/${unit.id}/uploads`)
+      .set(CSRF)
+      .attach('file', await writeHistorianCsv(tmp.file(`${name}.csv`), rows))
+      .expect(201);
     await analyst.post(`/api/imports/${up.body.import.id}/start`).set(CSRF).send({ mapping: US_MAPPING }).expect(202);
     await drain();
     const imp = (await analyst.get(`/api/imports/${up.body.import.id}`).expect(200)).body;
@@ -101,7 +105,10 @@ describe('recompute of derived data', () => {
   it('a setup the schema refuses changes nothing and queues no recompute', async () => {
     const unit = await unitWithHistory('bad-setup', { hours: 24 });
     const before = await derivedOf(unit.id);
-    const res = await analyst.put(`/api/units/${unit.id}/condenser`).set(CSRF).send({ ...TEST_CONDENSER, pluggedTubes: TEST_CONDENSER.tubeCount });
+    const res = await analyst
+      .put(`/api/units/${unit.id}/condenser`)
+      .set(CSRF)
+      .send({ ...TEST_CONDENSER, pluggedTubes: TEST_CONDENSER.tubeCount });
     expect(res.status).toBe(400);
     expect(await drain()).toBe(0);
     expect(await derivedOf(unit.id)).toEqual(before);
@@ -160,13 +167,15 @@ describe('recompute of derived data', () => {
     // The data itself steps up at the cleaning (generated that way).
     expect(Number(withCleaning.get('2024-06-21')!.medianCleanliness) - Number(withCleaning.get('2024-06-20')!.medianCleanliness)).toBeGreaterThan(0.15);
 
-    const step = (days: Map<string, Record<string, number | string>>) => Number(days.get('2024-06-20')!.foulingKpa) - Number(days.get('2024-06-21')!.foulingKpa);
+    const step = (days: Map<string, Record<string, number | string>>) =>
+      Number(days.get('2024-06-20')!.foulingKpa) - Number(days.get('2024-06-21')!.foulingKpa);
     // One trend through the whole sawtooth is smooth across 20/21 June; two trends drop the fouling part at the cleaning.
     expect(Math.abs(step(without))).toBeLessThan(0.2 * step(withCleaning));
     expect(step(withCleaning)).toBeGreaterThan(0.3);
 
     // With the cleaning each cycle's trend follows the data, so what the trend leaves unexplained shrinks.
-    const worstUnexplained = (days: Map<string, Record<string, number | string>>) => Math.max(...[...days.values()].map((d) => Math.abs(Number(d.unexplainedKpa))));
+    const worstUnexplained = (days: Map<string, Record<string, number | string>>) =>
+      Math.max(...[...days.values()].map((d) => Math.abs(Number(d.unexplainedKpa))));
     expect(worstUnexplained(withCleaning)).toBeLessThan(0.25 * worstUnexplained(without));
 
     // Deleting the cleaning brings the single trend back.

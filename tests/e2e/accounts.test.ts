@@ -32,7 +32,10 @@ async function signIn(page: Page, server: Server, email: string, password: strin
 
 async function switchOrganisation(page: Page, name: string) {
   await page.getByTestId('active-organisation').click();
-  await page.getByRole('list', { name: 'Your organisations' }).getByRole('button', { name: new RegExp(name) }).click();
+  await page
+    .getByRole('list', { name: 'Your organisations' })
+    .getByRole('button', { name: new RegExp(name) })
+    .click();
   await page.waitForURL(/\/$/);
   await expect.poll(() => page.getByTestId('active-organisation').textContent()).toContain(name);
 }
@@ -101,9 +104,9 @@ describe('account screens in a real browser', () => {
       const editor = founder.getByRole('row').filter({ hasText: 'aino@estuary.example' });
       await editor.getByLabel('Role').selectOption('viewer');
       await editor.getByRole('button', { name: 'Save', exact: true }).click();
-      await expect.poll(() => founder.getByRole('alert').filter({ hasText: 'at least one administrator' }).textContent()).toContain(
-        'needs at least one administrator',
-      );
+      await expect
+        .poll(() => founder.getByRole('alert').filter({ hasText: 'at least one administrator' }).textContent())
+        .toContain('needs at least one administrator');
       await editor.getByRole('button', { name: 'Cancel' }).click();
     });
 
@@ -253,7 +256,10 @@ describe('account screens in a real browser', () => {
       // Signed in, the addressee finds the same mail on the local mailbox page, and only their own.
       await page.goto(`${server.url}/mailbox`);
       const messages = page.getByTestId('mailbox-message');
-      await messages.filter({ hasText: /Reset your Cleancase password/ }).first().waitFor();
+      await messages
+        .filter({ hasText: /Reset your Cleancase password/ })
+        .first()
+        .waitFor();
       for (const text of await messages.allTextContents()) expect(text).toContain(email);
     }, 120_000);
 

@@ -86,14 +86,18 @@ describe('the cleaning-method library in a real browser', () => {
     expect(await lancing().getByTestId('typical-tag').count()).toBe(0);
     expect(await page.getByTestId('typical-tag').count()).toBe(TYPICAL_CLEANING_METHODS.length - 1);
     // what the server kept, not only what the page shows
-    const listed = (await (await page.request.get(`${server.url}/api/cleaning-methods`)).json()) as { methods: { id: string; fixedCost: number; typical: boolean; recoveredCleanliness: number }[] };
+    const listed = (await (await page.request.get(`${server.url}/api/cleaning-methods`)).json()) as {
+      methods: { id: string; fixedCost: number; typical: boolean; recoveredCleanliness: number }[];
+    };
     const saved = listed.methods.find((m) => m.id === 'hp-water-lancing');
     expect(saved).toMatchObject({ fixedCost: 31_500, typical: false, recoveredCleanliness: 0.92 });
   });
 
   it('recording a past cleaning offers the library’s methods, without the safety banner kept for planned work', async () => {
     const headers = { 'x-cleancase-request': '1' };
-    const plant = (await (await page.request.post(`${server.url}/api/plants`, { headers, data: { name: 'Fenwick Bay', timeZone: 'Europe/London' } })).json()) as { id: string };
+    const plant = (await (
+      await page.request.post(`${server.url}/api/plants`, { headers, data: { name: 'Fenwick Bay', timeZone: 'Europe/London' } })
+    ).json()) as { id: string };
     const unitResponse = await page.request.post(`${server.url}/api/plants/${plant.id}/units`, { headers, data: { name: 'Unit 1' } });
     expect(unitResponse.status()).toBe(201);
     const unit = (await unitResponse.json()) as { id: string };

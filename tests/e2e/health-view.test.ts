@@ -6,7 +6,8 @@ import { startTestServer } from '../helpers/test-server.js';
 
 type Server = Awaited<ReturnType<typeof startTestServer>>;
 
-const dayText = (day: string) => new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(new Date(`${day}T00:00:00Z`));
+const dayText = (day: string) =>
+  new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(new Date(`${day}T00:00:00Z`));
 const addDays = (day: string, n: number) => new Date(Date.parse(`${day}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
 const dollars = (text: string) => Number(/\$([\d,]+)/.exec(text)?.[1]?.replace(/,/g, '') ?? Number.NaN);
 
@@ -88,7 +89,9 @@ describe('condenser health view in a real browser (full demo data)', () => {
     expect(await page.getByTestId('chart-cleanliness').textContent()).toMatch(/90 % band \d+\.\d–\d+\.\d %/);
     const cycles = (await page.getByTestId('cost-cycles').textContent()) ?? '';
     const cleaningInPeriod = api.headline.lastCleaning.date;
-    expect(cycles).toContain(`${dayText(cleaningInPeriod)} – ${dayText(lastDay)}: $${Math.round(api.headline.foulingCostSinceCleaning).toLocaleString('en-US')}`);
+    expect(cycles).toContain(
+      `${dayText(cleaningInPeriod)} – ${dayText(lastDay)}: $${Math.round(api.headline.foulingCostSinceCleaning).toLocaleString('en-US')}`,
+    );
   });
 
   it('takes screenshots at desktop and tablet widths', async () => {
@@ -159,7 +162,9 @@ describe('condenser health view in a real browser (full demo data)', () => {
     expect(api.headline.lastCleaning.date).toBe(cleaningDay);
     expect(api.trend.startDay).toBe(cleaningDay);
     // the new cleaning is on the chart and in the events list
-    expect(await page.getByTestId('chart-cleanliness').textContent()).toContain(`Cleaning ${new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', timeZone: 'UTC' }).format(new Date(`${cleaningDay}T00:00:00Z`))}`);
+    expect(await page.getByTestId('chart-cleanliness').textContent()).toContain(
+      `Cleaning ${new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', timeZone: 'UTC' }).format(new Date(`${cleaningDay}T00:00:00Z`))}`,
+    );
     expect(await page.getByTestId('events-strip').textContent()).toContain(dayText(cleaningDay));
   }, 240_000);
 });

@@ -61,7 +61,9 @@ describe('finding one’s way: plant page, one data tab, page names, form proble
     await expect.poll(() => cards.count()).toBe(unitCount);
     await expect.poll(() => page.getByTestId('unit-data-age').count()).toBe(unitCount);
     const card = cards.filter({ hasText: PLANT }).filter({ has: page.getByRole('link', { name: 'Unit 1', exact: true }) });
-    const health = (await (await page.request.get(`${server.url}/api/units/${unitId}/health`)).json()) as { headline: { cleanliness: number; foulingCostPerDay: number } };
+    const health = (await (await page.request.get(`${server.url}/api/units/${unitId}/health`)).json()) as {
+      headline: { cleanliness: number; foulingCostPerDay: number };
+    };
     expect(await card.getByTestId('unit-cleanliness').textContent()).toBe(`${(health.headline.cleanliness * 100).toFixed(1)} %`);
     const cost = (await card.getByTestId('unit-cost-per-day').textContent()) ?? '';
     expect(Number(/\$([\d,]+)/.exec(cost)?.[1]?.replace(/,/g, ''))).toBe(Math.round(Math.abs(health.headline.foulingCostPerDay)));

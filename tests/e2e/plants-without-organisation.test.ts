@@ -30,7 +30,9 @@ describe('Plants for a person in no organisation', () => {
     browser = await launchBrowser();
     page = await browser.newPage();
     await page.route('**/api/session', (route) =>
-      route.request().method() === 'GET' ? route.fulfill({ status: 200, contentType: 'application/json', body: JSON.stringify(NO_ORGANISATION) }) : route.continue(),
+      route.request().method() === 'GET'
+        ? route.fulfill({ status: 200, contentType: 'application/json', body: JSON.stringify(NO_ORGANISATION) })
+        : route.continue(),
     );
     page.on('request', (r) => {
       const url = new URL(r.url());

@@ -78,10 +78,12 @@ describe('npm start lifecycle', () => {
       // A keep-alive connection left open by a browser.
       const agent = new http.Agent({ keepAlive: true, maxSockets: 1 });
       await new Promise<void>((resolve, reject) =>
-        http.get({ host: '127.0.0.1', port: Number(env.PORT), path: '/api/health', agent }, (res) => {
-          res.resume();
-          res.on('end', () => resolve());
-        }).on('error', reject),
+        http
+          .get({ host: '127.0.0.1', port: Number(env.PORT), path: '/api/health', agent }, (res) => {
+            res.resume();
+            res.on('end', () => resolve());
+          })
+          .on('error', reject),
       );
 
       // A recompute of a unit with years of hourly data, running when Ctrl-C comes.

@@ -163,9 +163,9 @@ describe('unit setup, import and undo in a real browser', () => {
     await turbine.locator('svg').first().waitFor();
 
     await turbine.getByText('Paste or upload points (CSV)').click();
-    await turbine.getByLabel('Pasted curve points').fill(
-      ['load fraction,backpressure,change %', '1.0,1.5,-0.6', '1.0,2.0,0', '1.0,3.0,1.5', '0.5,1.5,-0.8', '0.5,2.0,0', '0.5,3.0,2.2'].join('\n'),
-    );
+    await turbine
+      .getByLabel('Pasted curve points')
+      .fill(['load fraction,backpressure,change %', '1.0,1.5,-0.6', '1.0,2.0,0', '1.0,3.0,1.5', '0.5,1.5,-0.8', '0.5,2.0,0', '0.5,3.0,2.2'].join('\n'));
     await turbine.getByRole('button', { name: 'Read pasted points' }).click();
     await expect.poll(() => turbine.getByTestId('curve-point').count()).toBe(6);
     expect(await turbine.getByRole('status').filter({ hasText: 'Read 6 points' }).textContent()).toContain('1 line without three numbers skipped');
@@ -227,7 +227,16 @@ describe('unit setup, import and undo in a real browser', () => {
     const summary = page.getByTestId('import-summary');
     await summary.waitFor({ timeout: 45_000 });
     await page.screenshot({ path: '/tmp/unit-import-summary.png', fullPage: true });
-    const count = async (label: string) => Number(((await summary.locator('dt').filter({ hasText: new RegExp(`^${label}$`) }).locator('xpath=following-sibling::dd').textContent()) ?? '').replace(/,/g, ''));
+    const count = async (label: string) =>
+      Number(
+        (
+          (await summary
+            .locator('dt')
+            .filter({ hasText: new RegExp(`^${label}$`) })
+            .locator('xpath=following-sibling::dd')
+            .textContent()) ?? ''
+        ).replace(/,/g, ''),
+      );
     expect(await count('Rows read')).toBe(ROWS);
     expect(await count('Stored')).toBe(ROWS);
     const riseRow = summary.getByTestId('reason-row').filter({ hasText: 'CW outlet temperature is not above the inlet temperature' });
@@ -251,7 +260,9 @@ describe('unit setup, import and undo in a real browser', () => {
 
   it('a file with text in a number is refused whole: the error is listed by row and column and nothing is stored', async () => {
     await page.getByRole('navigation', { name: 'Unit' }).getByRole('link', { name: 'Data files' }).click();
-    await page.getByLabel(/Historian file/).setInputFiles({ name: 'larchmoor-bad.csv', mimeType: 'text/csv', buffer: Buffer.from(historianCsv({ textInNumberAtRow: 10 })) });
+    await page
+      .getByLabel(/Historian file/)
+      .setInputFiles({ name: 'larchmoor-bad.csv', mimeType: 'text/csv', buffer: Buffer.from(historianCsv({ textInNumberAtRow: 10 })) });
     await page.getByRole('button', { name: 'Upload and map columns' }).click();
     const mapping = page.getByRole('region', { name: 'Map the columns' });
     await mapping.waitFor();

@@ -21,7 +21,9 @@ export const uniqueEmail = (label: string) => `${label}.${randomBytes(4).toStrin
 
 /** A person as invitations and the seed make them: their address proven from now (self sign-up goes through the API). */
 export async function createUser(ds: DataSource, label: string): Promise<User> {
-  return ds.getRepository(User).save({ email: uniqueEmail(label), name: `Test ${label}`, passwordHash: await passwordHash(), unitPreference: 'us', emailProvenAt: new Date() });
+  return ds
+    .getRepository(User)
+    .save({ email: uniqueEmail(label), name: `Test ${label}`, passwordHash: await passwordHash(), unitPreference: 'us', emailProvenAt: new Date() });
 }
 
 export async function addMember(ds: DataSource, organisationId: string, user: User, role: Role, clientGroupIds: string[] | null = null): Promise<Membership> {
@@ -37,7 +39,9 @@ export interface TenantFixture {
 
 /** A tenant with two client groups and one unrestricted member for each role. */
 export async function createTenant(ds: DataSource, label = 'tenant'): Promise<TenantFixture> {
-  const organisation = await ds.getRepository(Organisation).save({ name: `${label} ${randomBytes(3).toString('hex')}`, kind: 'consultancy', plan: 'trial', subscriptionStatus: 'trialing', trialEndsAt: null });
+  const organisation = await ds
+    .getRepository(Organisation)
+    .save({ name: `${label} ${randomBytes(3).toString('hex')}`, kind: 'consultancy', plan: 'trial', subscriptionStatus: 'trialing', trialEndsAt: null });
   const groups: TenantFixture['groups'] = [
     await ds.getRepository(ClientGroup).save({ organisationId: organisation.id, name: 'Group One' }),
     await ds.getRepository(ClientGroup).save({ organisationId: organisation.id, name: 'Group Two' }),

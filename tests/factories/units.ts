@@ -69,14 +69,42 @@ export async function createUnit(ds: DataSource, plant: Plant, withSetup = true)
 }
 
 export async function createEvent(ds: DataSource, unit: GeneratingUnit): Promise<UnitEvent> {
-  return ds.getRepository(UnitEvent).save({ organisationId: unit.organisationId, unitId: unit.id, kind: 'other', startDate: '2026-01-05', endDate: null, methodId: null, cost: null, cleanlinessBefore: null, cleanlinessAfter: null, pluggedTubesAfter: null, notes: 'test', createdByUserId: null });
+  return ds.getRepository(UnitEvent).save({
+    organisationId: unit.organisationId,
+    unitId: unit.id,
+    kind: 'other',
+    startDate: '2026-01-05',
+    endDate: null,
+    methodId: null,
+    cost: null,
+    cleanlinessBefore: null,
+    cleanlinessAfter: null,
+    pluggedTubesAfter: null,
+    notes: 'test',
+    createdByUserId: null,
+  });
 }
 
 /** An import record waiting for its mapping (no file behind it). */
 export async function createPendingImport(ds: DataSource, unit: GeneratingUnit): Promise<DataImport> {
   return ds.getRepository(DataImport).save({
-    organisationId: unit.organisationId, unitId: unit.id, uploadedByUserId: null, fileName: 'history.csv', fileBytes: 10, fileKind: 'csv', status: 'mapping',
-    mapping: {}, counts: null, errors: [{ row: 3, column: 'BP', value: "'=1+2", message: 'not a number' }], errorCount: 1, notes: null, progress: 0, message: null,
-    storedPath: null, firstTimestamp: null, lastTimestamp: null, finishedAt: null,
+    organisationId: unit.organisationId,
+    unitId: unit.id,
+    uploadedByUserId: null,
+    fileName: 'history.csv',
+    fileBytes: 10,
+    fileKind: 'csv',
+    status: 'mapping',
+    mapping: {},
+    counts: null,
+    errors: [{ row: 3, column: 'BP', value: "'=1+2", message: 'not a number' }],
+    errorCount: 1,
+    notes: null,
+    progress: 0,
+    message: null,
+    storedPath: null,
+    firstTimestamp: null,
+    lastTimestamp: null,
+    finishedAt: null,
   });
 }

@@ -9,10 +9,7 @@ import { existsSync } from 'node:fs';
 export const DEBIAN_PYTHON = '/usr/bin/python3';
 
 export type IapwsQuery =
-  | { kind: 'psat'; tK: number }
-  | { kind: 'tsat'; pMpa: number }
-  | { kind: 'region1'; tK: number; pMpa: number }
-  | { kind: 'region2'; tK: number; pMpa: number };
+  { kind: 'psat'; tK: number } | { kind: 'tsat'; pMpa: number } | { kind: 'region1'; tK: number; pMpa: number } | { kind: 'region2'; tK: number; pMpa: number };
 
 export interface IapwsAnswer {
   /** psat in MPa, or Tsat in K */

@@ -18,8 +18,14 @@ afterAll(async () => t?.close());
 describe('audit log and client-group limits', () => {
   it('a member limited to client groups reads no entry about plants or people outside their groups', async () => {
     const admin = await signedInAgent(t.app, a.users.admin.email);
-    const plant = (await admin.post('/api/plants').set(CSRF).send({ name: 'Riverbend outside', timeZone: 'Europe/Berlin', clientGroupId: a.groups[0].id }).expect(201)).body;
-    await admin.patch(`/api/members/${a.memberships.viewer.id}`).set(CSRF).send({ clientGroupIds: [a.groups[0].id] }).expect(204);
+    const plant = (
+      await admin.post('/api/plants').set(CSRF).send({ name: 'Riverbend outside', timeZone: 'Europe/Berlin', clientGroupId: a.groups[0].id }).expect(201)
+    ).body;
+    await admin
+      .patch(`/api/members/${a.memberships.viewer.id}`)
+      .set(CSRF)
+      .send({ clientGroupIds: [a.groups[0].id] })
+      .expect(204);
     for (const role of ['admin', 'approver'] as const) {
       const user = await createUser(t.dataSource, `limited-${role}`);
       await addMember(t.dataSource, a.organisation.id, user, role, [a.groups[1].id]);

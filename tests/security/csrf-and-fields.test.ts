@@ -5,7 +5,8 @@ import { createTenant, CSRF, signedInAgent, type TenantFixture } from '../factor
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 
 /** A concrete path for a registered pattern (ids that do not exist are fine: the guards answer first). */
-const concrete = (path: string) => path.replace(':id', '00000000-0000-4000-8000-000000000000').replace(':token', 'x'.repeat(20)).replace(':command', 'saturation');
+const concrete = (path: string) =>
+  path.replace(':id', '00000000-0000-4000-8000-000000000000').replace(':token', 'x'.repeat(20)).replace(':command', 'saturation');
 
 describe('CSRF defence on every state-changing route', () => {
   let t: TestApp;
@@ -77,7 +78,9 @@ describe('tenant, role and billing fields in a request body', () => {
     const routes = t.app.locals.routes.filter((r) => r.method !== 'get' && !r.allowsPrivilegedFields);
     for (const route of routes) {
       for (const field of ['organisationId', 'role', 'subscriptionStatus']) {
-        const res = await admin[route.method](concrete(route.path)).set(CSRF).send({ [field]: 'x' });
+        const res = await admin[route.method](concrete(route.path))
+          .set(CSRF)
+          .send({ [field]: 'x' });
         expect(res.status, `${route.method} ${route.path} with ${field}`).toBe(400);
         expect(res.body.error).toContain(field);
       }
@@ -85,7 +88,10 @@ describe('tenant, role and billing fields in a request body', () => {
   });
 
   it('lists the endpoints that may set them: invite, change role, switch tenant', () => {
-    const allowed = t.app.locals.routes.filter((r) => r.allowsPrivilegedFields).map((r) => `${r.method.toUpperCase()} ${r.path}`).sort();
+    const allowed = t.app.locals.routes
+      .filter((r) => r.allowsPrivilegedFields)
+      .map((r) => `${r.method.toUpperCase()} ${r.path}`)
+      .sort();
     expect(allowed).toEqual(['PATCH /api/members/:id', 'POST /api/invitations', 'POST /api/session/organisation']);
     expect(PRIVILEGED_FIELDS).toEqual(expect.arrayContaining(['organisationId', 'role', 'plan', 'stripeCustomerId']));
   });

@@ -27,7 +27,11 @@ let ownMethodKey: string;
 let foreignMethodKey: string;
 
 const addLibraryMethod = async (tenant: TenantFixture, key: string) =>
-  createMethod(t.dataSource, { organisationId: tenant.organisation.id, userId: tenant.users.admin.id, role: 'admin', clientGroupIds: null }, { ...TYPICAL_CLEANING_METHODS[1]!, id: key });
+  createMethod(
+    t.dataSource,
+    { organisationId: tenant.organisation.id, userId: tenant.users.admin.id, role: 'admin', clientGroupIds: null },
+    { ...TYPICAL_CLEANING_METHODS[1]!, id: key },
+  );
 
 beforeAll(async () => {
   t = await createTestApp();

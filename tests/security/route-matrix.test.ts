@@ -12,7 +12,17 @@ import { createApiToken } from '../../backend/src/services/api-token.service.js'
 import { createMethod } from '../../backend/src/services/cleaning-method.service.js';
 import { TYPICAL_CLEANING_METHODS } from '../../shared/schemas/cleaning-method.js';
 import type { Role } from '../../shared/permissions.js';
-import { addMember, createClientGroup, createInvitation, createTenant, createUser, CSRF, signedInAgent, type TenantFixture, uniqueEmail } from '../factories/accounts.js';
+import {
+  addMember,
+  createClientGroup,
+  createInvitation,
+  createTenant,
+  createUser,
+  CSRF,
+  signedInAgent,
+  type TenantFixture,
+  uniqueEmail,
+} from '../factories/accounts.js';
 import { startGoogleFake, type GoogleFake } from '../../scripts/lib/local-services.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import type { GeneratingUnit } from '../../backend/src/entities/generating-unit.entity.js';
@@ -44,8 +54,7 @@ interface Entry {
 
 const all = (status: number): Record<Caller, number> => Object.fromEntries(CALLERS.map((c) => [c, status])) as Record<Caller, number>;
 const members = (ok: number, extra: Partial<Record<Caller, number>> = {}): Record<Caller, number> => ({ ...all(ok), anonymous: 401, ...extra });
-const adminsOnly = (ok: number, extra: Partial<Record<Caller, number>> = {}) =>
-  members(ok, { analyst: 403, approver: 403, viewer: 403, ...extra });
+const adminsOnly = (ok: number, extra: Partial<Record<Caller, number>> = {}) => members(ok, { analyst: 403, approver: 403, viewer: 403, ...extra });
 
 const groupOne = (fx: Fixture) => fx.a.groups[0].id;
 /** Writers are admins and analysts; a record of tenant A in group One is out of scope for the other two callers. */
@@ -57,7 +66,11 @@ const freshUnit = async (fx: Fixture) => createUnit(ds(), await freshPlant(fx));
 const freshCase = (fx: Fixture, status: 'draft' | 'submitted' | 'approved' = 'draft') => createCaseRecord(ds(), fx.unit, fx.a.users.analyst.id, status);
 const deciders = (ok: number) => members(ok, { analyst: 403, viewer: 403, otherTenant: 404, otherGroup: 404 });
 const freshMethod = (fx: Fixture) =>
-  createMethod(ds(), { organisationId: fx.a.organisation.id, userId: fx.a.users.admin.id, role: 'admin', clientGroupIds: null }, { ...TYPICAL_CLEANING_METHODS[2]!, id: `m-${Math.random().toString(36).slice(2, 10)}` });
+  createMethod(
+    ds(),
+    { organisationId: fx.a.organisation.id, userId: fx.a.users.admin.id, role: 'admin', clientGroupIds: null },
+    { ...TYPICAL_CLEANING_METHODS[2]!, id: `m-${Math.random().toString(36).slice(2, 10)}` },
+  );
 const plantBody = (fx: Fixture) => ({ name: `Plant ${Math.random().toString(36).slice(2)}`, timeZone: 'Europe/Berlin', clientGroupId: groupOne(fx) });
 
 const MATRIX: Record<string, Entry> = {
@@ -147,13 +160,19 @@ const MATRIX: Record<string, Entry> = {
   'GET /api/dev/mailbox': { expect: members(200) },
   'GET /api/plants': { expect: members(200) },
   'GET /api/cleaning-methods': { expect: members(200) },
-  'POST /api/cleaning-methods': { body: () => ({ ...TYPICAL_CLEANING_METHODS[0], id: `m-${Math.random().toString(36).slice(2, 10)}` }), expect: members(201, { approver: 403, viewer: 403 }) },
+  'POST /api/cleaning-methods': {
+    body: () => ({ ...TYPICAL_CLEANING_METHODS[0], id: `m-${Math.random().toString(36).slice(2, 10)}` }),
+    expect: members(201, { approver: 403, viewer: 403 }),
+  },
   'PUT /api/cleaning-methods/:id': {
     path: async (fx) => `/api/cleaning-methods/${(await freshMethod(fx)).recordId}`,
     body: () => ({ ...TYPICAL_CLEANING_METHODS[1], id: `m-${Math.random().toString(36).slice(2, 10)}`, typical: false }),
     expect: members(200, { approver: 403, viewer: 403, otherTenant: 404 }),
   },
-  'DELETE /api/cleaning-methods/:id': { path: async (fx) => `/api/cleaning-methods/${(await freshMethod(fx)).recordId}`, expect: members(204, { approver: 403, viewer: 403, otherTenant: 404 }) },
+  'DELETE /api/cleaning-methods/:id': {
+    path: async (fx) => `/api/cleaning-methods/${(await freshMethod(fx)).recordId}`,
+    expect: members(204, { approver: 403, viewer: 403, otherTenant: 404 }),
+  },
   'POST /api/plants': {
     // With no client group: a member limited to groups may not create a plant they could not see.
     body: () => ({ name: `Plant ${Math.random().toString(36).slice(2)}`, timeZone: 'America/Chicago', clientGroupId: null }),
@@ -162,7 +181,11 @@ const MATRIX: Record<string, Entry> = {
   'GET /api/plants/:id': { path: (fx) => `/api/plants/${fx.plant.id}`, expect: readers(200) },
   'PUT /api/plants/:id': { path: async (fx) => `/api/plants/${(await freshPlant(fx)).id}`, body: plantBody, expect: writers(200) },
   'DELETE /api/plants/:id': { path: async (fx) => `/api/plants/${(await freshPlant(fx)).id}`, expect: writers(204) },
-  'POST /api/plants/:id/units': { path: (fx) => `/api/plants/${fx.plant.id}/units`, body: () => ({ name: `Unit ${Math.random().toString(36).slice(2)}` }), expect: writers(201) },
+  'POST /api/plants/:id/units': {
+    path: (fx) => `/api/plants/${fx.plant.id}/units`,
+    body: () => ({ name: `Unit ${Math.random().toString(36).slice(2)}` }),
+    expect: writers(201),
+  },
   'GET /api/units/:id': { path: (fx) => `/api/units/${fx.unit.id}`, expect: readers(200) },
   'PATCH /api/units/:id': { path: async (fx) => `/api/units/${(await freshUnit(fx)).id}`, body: () => ({ name: 'Renamed unit' }), expect: writers(200) },
   'DELETE /api/units/:id': { path: async (fx) => `/api/units/${(await freshUnit(fx)).id}`, expect: writers(204) },
@@ -171,7 +194,11 @@ const MATRIX: Record<string, Entry> = {
   'PUT /api/units/:id/economics': { path: (fx) => `/api/units/${fx.unit.id}/economics`, body: () => TEST_ECONOMICS, expect: writers(200) },
   'GET /api/units/:id/daily': { path: (fx) => `/api/units/${fx.unit.id}/daily`, expect: readers(200) },
   'GET /api/units/:id/events': { path: (fx) => `/api/units/${fx.unit.id}/events`, expect: readers(200) },
-  'POST /api/units/:id/events': { path: (fx) => `/api/units/${fx.unit.id}/events`, body: () => ({ kind: 'other', startDate: '2026-02-01', notes: 'walkdown' }), expect: writers(201) },
+  'POST /api/units/:id/events': {
+    path: (fx) => `/api/units/${fx.unit.id}/events`,
+    body: () => ({ kind: 'other', startDate: '2026-02-01', notes: 'walkdown' }),
+    expect: writers(201),
+  },
   'PUT /api/events/:id': {
     path: async (fx) => `/api/events/${(await createEvent(ds(), fx.unit)).id}`,
     body: () => ({ kind: 'air-leak-repair', startDate: '2026-02-02' }),
@@ -186,7 +213,11 @@ const MATRIX: Record<string, Entry> = {
   'GET /api/units/:id/imports': { path: (fx) => `/api/units/${fx.unit.id}/imports`, expect: readers(200) },
   'GET /api/imports/:id': { path: async (fx) => `/api/imports/${(await createPendingImport(ds(), fx.unit)).id}`, expect: readers(200) },
   // An empty mapping is refused with the fields it lacks.
-  'POST /api/imports/:id/start': { path: async (fx) => `/api/imports/${(await createPendingImport(ds(), fx.unit)).id}/start`, body: () => ({ mapping: {} }), expect: writers(400) },
+  'POST /api/imports/:id/start': {
+    path: async (fx) => `/api/imports/${(await createPendingImport(ds(), fx.unit)).id}/start`,
+    body: () => ({ mapping: {} }),
+    expect: writers(400),
+  },
   'GET /api/imports/:id/errors.csv': { path: async (fx) => `/api/imports/${(await createPendingImport(ds(), fx.unit)).id}/errors.csv`, expect: readers(200) },
   'DELETE /api/imports/:id': { path: async (fx) => `/api/imports/${(await createPendingImport(ds(), fx.unit)).id}`, expect: writers(200) },
   // Cleaning cases: the fixture unit has setup but no history, so a case cannot be built on it (409); cases are written directly.
@@ -194,18 +225,32 @@ const MATRIX: Record<string, Entry> = {
   'GET /api/units/:id/cases': { path: (fx) => `/api/units/${fx.unit.id}/cases`, expect: readers(200) },
   'POST /api/units/:id/cases': { path: (fx) => `/api/units/${fx.unit.id}/cases`, body: () => ({ title: 'Spring cleaning' }), expect: writers(409) },
   // A draft: viewers see approved cases only.
-  'GET /api/cases/:id': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}`, expect: members(200, { viewer: 404, otherTenant: 404, otherGroup: 404 }) },
+  'GET /api/cases/:id': {
+    path: async (fx) => `/api/cases/${(await freshCase(fx)).id}`,
+    expect: members(200, { viewer: 404, otherTenant: 404, otherGroup: 404 }),
+  },
   'PATCH /api/cases/:id': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}`, body: () => ({ title: 'Renamed case' }), expect: writers(200) },
   'POST /api/cases/:id/submit': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}/submit`, expect: writers(200) },
   // Written by the analyst: approvers and administrators decide; the analyst's role cannot.
   'POST /api/cases/:id/approve': { path: async (fx) => `/api/cases/${(await freshCase(fx, 'submitted')).id}/approve`, expect: deciders(200) },
-  'POST /api/cases/:id/return': { path: async (fx) => `/api/cases/${(await freshCase(fx, 'submitted')).id}/return`, body: () => ({ reason: 'Price it again' }), expect: deciders(200) },
+  'POST /api/cases/:id/return': {
+    path: async (fx) => `/api/cases/${(await freshCase(fx, 'submitted')).id}/return`,
+    body: () => ({ reason: 'Price it again' }),
+    expect: deciders(200),
+  },
   'POST /api/cases/:id/archive': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}/archive`, expect: writers(200) },
   'POST /api/cases/:id/copy': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}/copy`, expect: writers(409) },
-  'GET /api/cases/:id/comments': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}/comments`, expect: members(200, { viewer: 404, otherTenant: 404, otherGroup: 404 }) },
+  'GET /api/cases/:id/comments': {
+    path: async (fx) => `/api/cases/${(await freshCase(fx)).id}/comments`,
+    expect: members(200, { viewer: 404, otherTenant: 404, otherGroup: 404 }),
+  },
   'GET /api/cases/:id/report.pdf': { path: async (fx) => `/api/cases/${(await freshCase(fx, 'approved')).id}/report.pdf`, expect: readers(200) },
   'GET /api/cases/:id/export.xlsx': { path: async (fx) => `/api/cases/${(await freshCase(fx, 'approved')).id}/export.xlsx`, expect: readers(200) },
-  'POST /api/cases/:id/comments': { path: async (fx) => `/api/cases/${(await freshCase(fx)).id}/comments`, body: () => ({ text: 'Checked the outage plan' }), expect: members(201, { viewer: 404, otherTenant: 404, otherGroup: 404 }) },
+  'POST /api/cases/:id/comments': {
+    path: async (fx) => `/api/cases/${(await freshCase(fx)).id}/comments`,
+    body: () => ({ text: 'Checked the outage plan' }),
+    expect: members(201, { viewer: 404, otherTenant: 404, otherGroup: 404 }),
+  },
 };
 
 let t: TestApp;

@@ -41,7 +41,10 @@ describe('a group-limited administrator changing memberships', () => {
   });
 
   it('cannot widen their own limit to a group they cannot see', async () => {
-    const res = await limited.patch(`/api/members/${limitedMembership.id}`).set(CSRF).send({ clientGroupIds: [groupTwo(), groupOne()] });
+    const res = await limited
+      .patch(`/api/members/${limitedMembership.id}`)
+      .set(CSRF)
+      .send({ clientGroupIds: [groupTwo(), groupOne()] });
     expect(res.status).toBe(400);
     expect(res.body.error).toMatch(/client group/i);
     expect((await membershipOf(limitedMembership.id)).clientGroupIds).toEqual([groupTwo()]);
@@ -49,7 +52,11 @@ describe('a group-limited administrator changing memberships', () => {
 
   it('cannot give a member of their group access to another group, nor lift that member’s limit', async () => {
     const member = await addMember(t.dataSource, a.organisation.id, await createUser(t.dataSource, 'in-two'), 'viewer', [groupTwo()]);
-    await limited.patch(`/api/members/${member.id}`).set(CSRF).send({ clientGroupIds: [groupOne()] }).expect(400);
+    await limited
+      .patch(`/api/members/${member.id}`)
+      .set(CSRF)
+      .send({ clientGroupIds: [groupOne()] })
+      .expect(400);
     await limited.patch(`/api/members/${member.id}`).set(CSRF).send({ clientGroupIds: null }).expect(403);
     expect((await membershipOf(member.id)).clientGroupIds).toEqual([groupTwo()]);
   });
@@ -80,8 +87,16 @@ describe('a group-limited administrator changing memberships', () => {
 
   it('cannot give a member another tenant’s client group', async () => {
     const member = await addMember(t.dataSource, a.organisation.id, await createUser(t.dataSource, 'foreign-group'), 'viewer', [groupTwo()]);
-    await limited.patch(`/api/members/${member.id}`).set(CSRF).send({ clientGroupIds: [b.groups[0].id] }).expect(400);
-    await unlimited.patch(`/api/members/${member.id}`).set(CSRF).send({ clientGroupIds: [b.groups[0].id] }).expect(400);
+    await limited
+      .patch(`/api/members/${member.id}`)
+      .set(CSRF)
+      .send({ clientGroupIds: [b.groups[0].id] })
+      .expect(400);
+    await unlimited
+      .patch(`/api/members/${member.id}`)
+      .set(CSRF)
+      .send({ clientGroupIds: [b.groups[0].id] })
+      .expect(400);
     expect((await membershipOf(member.id)).clientGroupIds).toEqual([groupTwo()]);
   });
 });
@@ -105,14 +120,23 @@ describe('a group-limited administrator inviting', () => {
   });
 
   it('can invite someone to their own group', async () => {
-    const res = await limited.post('/api/invitations').set(CSRF).send({ email: uniqueEmail('inside-invitee'), role: 'admin', clientGroupIds: [groupTwo()] });
+    const res = await limited
+      .post('/api/invitations')
+      .set(CSRF)
+      .send({ email: uniqueEmail('inside-invitee'), role: 'admin', clientGroupIds: [groupTwo()] });
     expect(res.status).toBe(201);
     expect(res.body.clientGroupIds).toEqual([groupTwo()]);
   });
 
   it('sees and withdraws only invitations within their groups', async () => {
     const outside = await createInvitation(t.dataSource, a.organisation.id);
-    const inside = (await limited.post('/api/invitations').set(CSRF).send({ email: uniqueEmail('listed'), role: 'viewer', clientGroupIds: [groupTwo()] }).expect(201)).body;
+    const inside = (
+      await limited
+        .post('/api/invitations')
+        .set(CSRF)
+        .send({ email: uniqueEmail('listed'), role: 'viewer', clientGroupIds: [groupTwo()] })
+        .expect(201)
+    ).body;
     const listed = ((await limited.get('/api/invitations').expect(200)).body.invitations as { id: string }[]).map((i) => i.id);
     expect(listed).toContain(inside.id);
     expect(listed).not.toContain(outside.invitation.id);
@@ -127,12 +151,20 @@ describe('an administrator without a limit', () => {
     const member = await addMember(t.dataSource, a.organisation.id, await createUser(t.dataSource, 'lifted'), 'analyst', [groupTwo()]);
     await unlimited.patch(`/api/members/${member.id}`).set(CSRF).send({ clientGroupIds: null }).expect(204);
     expect((await membershipOf(member.id)).clientGroupIds).toBeNull();
-    await unlimited.post('/api/invitations').set(CSRF).send({ email: uniqueEmail('full'), role: 'admin', clientGroupIds: null }).expect(201);
+    await unlimited
+      .post('/api/invitations')
+      .set(CSRF)
+      .send({ email: uniqueEmail('full'), role: 'admin', clientGroupIds: null })
+      .expect(201);
   });
 
   it('cannot invite someone to another tenant’s client group', async () => {
     const email = uniqueEmail('foreign-invitee');
-    await unlimited.post('/api/invitations').set(CSRF).send({ email, role: 'viewer', clientGroupIds: [b.groups[0].id] }).expect(400);
+    await unlimited
+      .post('/api/invitations')
+      .set(CSRF)
+      .send({ email, role: 'viewer', clientGroupIds: [b.groups[0].id] })
+      .expect(400);
     expect(await t.dataSource.getRepository(Invitation).existsBy({ email })).toBe(false);
   });
 });

@@ -28,7 +28,11 @@ describe('sessions', () => {
     const secure = await createTestApp({ COOKIE_SECURE: 'true', TRUST_PROXY: 'loopback', SMTP_URL: 'smtp://127.0.0.1:1' });
     try {
       const tenant2 = await createTenant(secure.dataSource, 'secure');
-      const res = await request(secure.app).post('/api/session').set(CSRF).set('X-Forwarded-Proto', 'https').send({ email: tenant2.users.viewer.email, password: TEST_PASSWORD });
+      const res = await request(secure.app)
+        .post('/api/session')
+        .set(CSRF)
+        .set('X-Forwarded-Proto', 'https')
+        .send({ email: tenant2.users.viewer.email, password: TEST_PASSWORD });
       expect(res.status).toBe(200);
       expect(sessionCookie(res)).toMatch(/Secure/);
     } finally {
@@ -39,7 +43,11 @@ describe('sessions', () => {
   it('gives a new session id at sign-in; the old id no longer signs anyone in', async () => {
     const first = await request(t.app).post('/api/session').set(CSRF).send({ email: tenant.users.analyst.email, password: TEST_PASSWORD });
     const oldCookie = cookieValue(sessionCookie(first)!);
-    const second = await request(t.app).post('/api/session').set(CSRF).set('Cookie', oldCookie).send({ email: tenant.users.analyst.email, password: TEST_PASSWORD });
+    const second = await request(t.app)
+      .post('/api/session')
+      .set(CSRF)
+      .set('Cookie', oldCookie)
+      .send({ email: tenant.users.analyst.email, password: TEST_PASSWORD });
     const newCookie = cookieValue(sessionCookie(second)!);
     expect(newCookie).not.toBe(oldCookie);
     const withOld = await request(t.app).get('/api/session').set('Cookie', oldCookie);
@@ -113,7 +121,11 @@ describe('rate limits', () => {
     const tenant = await createTenant(t.dataSource, 'invites');
     const admin = await signedInAgent(t.app, tenant.users.admin.email);
     for (let i = 0; i < 30; i++) {
-      await admin.post('/api/invitations').set(CSRF).send({ email: `invitee${i}@example.test`, role: 'viewer' }).expect(201);
+      await admin
+        .post('/api/invitations')
+        .set(CSRF)
+        .send({ email: `invitee${i}@example.test`, role: 'viewer' })
+        .expect(201);
     }
     const limited = await admin.post('/api/invitations').set(CSRF).send({ email: 'one-more@example.test', role: 'viewer' });
     expect(limited.status).toBe(429);

@@ -36,7 +36,14 @@ function signInFrom(port: number, localAddress: string, email: string, password:
   const body = JSON.stringify({ email, password });
   return new Promise((resolve, reject) => {
     const req = http.request(
-      { host: '127.0.0.1', port, localAddress, method: 'POST', path: '/api/session', headers: { ...CSRF, 'content-type': 'application/json', 'content-length': Buffer.byteLength(body) } },
+      {
+        host: '127.0.0.1',
+        port,
+        localAddress,
+        method: 'POST',
+        path: '/api/session',
+        headers: { ...CSRF, 'content-type': 'application/json', 'content-length': Buffer.byteLength(body) },
+      },
       (res) => {
         res.resume();
         res.on('end', () => resolve(res.statusCode ?? 0));
@@ -119,7 +126,7 @@ describe('sign-in limits per address without a configured proxy', () => {
       await signIn(t.app, `guess-${i}-${randomBytes(3).toString('hex')}@example.test`, WRONG, nextForwardedFor()).expect(401);
     }
     await signIn(t.app, tenant.users.viewer.email, TEST_PASSWORD, nextForwardedFor()).expect(429);
-    }, 180_000);
+  }, 180_000);
 });
 
 describe('successful sign-ins', () => {
@@ -136,7 +143,7 @@ describe('successful sign-ins', () => {
     await signIn(t.app, email, TEST_PASSWORD).expect(200);
     await signIn(t.app, email, WRONG).expect(401);
     await signIn(t.app, email, TEST_PASSWORD).expect(429);
-    }, 180_000);
+  }, 180_000);
 });
 
 describe('sign-in limits behind a configured proxy', () => {
@@ -159,7 +166,7 @@ describe('sign-in limits behind a configured proxy', () => {
     const someone = (await createUser(t.dataSource, 'someone')).email;
     await signIn(t.app, someone, TEST_PASSWORD, stopped).expect(429);
     await signIn(t.app, someone, TEST_PASSWORD, '198.51.100.8').expect(200);
-    }, 180_000);
+  }, 180_000);
 });
 
 describe('rate-limit counters in MariaDB', () => {
@@ -169,7 +176,13 @@ describe('rate-limit counters in MariaDB', () => {
 
   /** Another app process on the same database (its own connection pool), as after a restart or beside the first. */
   const anotherApp = async () => {
-    const dataSource = buildDataSource({ host: t.config.DB_HOST, port: t.config.DB_PORT, database: t.config.DB_NAME, user: t.config.DB_USER, password: t.config.DB_PASSWORD });
+    const dataSource = buildDataSource({
+      host: t.config.DB_HOST,
+      port: t.config.DB_PORT,
+      database: t.config.DB_NAME,
+      user: t.config.DB_USER,
+      password: t.config.DB_PASSWORD,
+    });
     await dataSource.initialize();
     const app = createApp({ config: t.config, dataSource, logger: createLogger('silent'), mailer: noMail });
     others.push({ app, dataSource });

@@ -26,7 +26,9 @@ describe('log lines', () => {
     server = http.createServer((req, res) => middleware(req, res, () => res.end('ok')));
     await new Promise<void>((resolve) => server!.listen(0, '127.0.0.1', () => resolve()));
     const { port } = server.address() as { port: number };
-    await fetch(`http://127.0.0.1:${port}/api/plants?x=1`, { headers: { cookie: 'cleancase.sid=secret-session', 'user-agent': 'probe-agent/1.0', 'x-custom-header': 'noise' } }).then((r) => r.text());
+    await fetch(`http://127.0.0.1:${port}/api/plants?x=1`, {
+      headers: { cookie: 'cleancase.sid=secret-session', 'user-agent': 'probe-agent/1.0', 'x-custom-header': 'noise' },
+    }).then((r) => r.text());
     await new Promise((r) => setTimeout(r, 50));
     return out.lines;
   }

@@ -55,7 +55,12 @@ function success(spec: RouteSpec): Record<string, unknown> {
   const status = String(spec.status ?? 200);
   if (!response) return { [status]: { description: 'Success' } };
   if ('file' in response) {
-    return { [status]: { description: 'A file download', content: Object.fromEntries(response.file.map((t) => [t, { schema: { type: 'string', format: 'binary' } }])) } };
+    return {
+      [status]: {
+        description: 'A file download',
+        content: Object.fromEntries(response.file.map((t) => [t, { schema: { type: 'string', format: 'binary' } }])),
+      },
+    };
   }
   return { [status]: { description: 'Success', content: { 'application/json': { schema: jsonSchemaOf(response, 'output') } } } };
 }
@@ -71,7 +76,12 @@ function operation(spec: RouteSpec): JsonSchema {
       ...success(spec),
       ...errors(spec),
       ...(spec.otherAnswer
-        ? { [spec.otherAnswer.status]: { description: spec.otherAnswer.description, content: { 'application/json': { schema: jsonSchemaOf(spec.otherAnswer.schema, 'output') } } } }
+        ? {
+            [spec.otherAnswer.status]: {
+              description: spec.otherAnswer.description,
+              content: { 'application/json': { schema: jsonSchemaOf(spec.otherAnswer.schema, 'output') } },
+            },
+          }
         : {}),
     },
   };
@@ -88,8 +98,7 @@ export function buildOpenApi(routes: readonly RouteSpec[], sessionCookie: string
     info: {
       title: 'Cleancase API',
       version: '1',
-      description:
-        `Condenser health, cleaning decisions and the records behind them. A browser session signs in with POST /api/session; unsafe methods then need the header “${CSRF_HEADER}: 1”. Personal API tokens (Authorization: Bearer) call only the calculation API.`,
+      description: `Condenser health, cleaning decisions and the records behind them. A browser session signs in with POST /api/session; unsafe methods then need the header “${CSRF_HEADER}: 1”. Personal API tokens (Authorization: Bearer) call only the calculation API.`,
     },
     jsonSchemaDialect: 'https://json-schema.org/draft/2020-12/schema',
     paths,

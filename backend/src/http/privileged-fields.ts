@@ -3,8 +3,17 @@ import { AppError } from './app-error.js';
 
 /** Fields a client may never set through an ordinary endpoint: the tenant, a role, billing. */
 export const PRIVILEGED_FIELDS = [
-  'organisationId', 'tenantId', 'role', 'roles', 'membershipId', 'clientGroupIds',
-  'plan', 'subscriptionStatus', 'stripeCustomerId', 'stripeSubscriptionId', 'trialEndsAt',
+  'organisationId',
+  'tenantId',
+  'role',
+  'roles',
+  'membershipId',
+  'clientGroupIds',
+  'plan',
+  'subscriptionStatus',
+  'stripeCustomerId',
+  'stripeSubscriptionId',
+  'trialEndsAt',
 ];
 
 export function rejectPrivilegedFields(req: Request, _res: Response, next: NextFunction): void {

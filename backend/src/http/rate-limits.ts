@@ -65,7 +65,10 @@ function counter(ds: DataSource, rule: Rule, clearsExpiredRows = false): Counter
 
 const hashed = (key: string) => createHash('sha256').update(key).digest('hex');
 const addressOf = (req: Request) => ipKeyGenerator(req.ip ?? '');
-const emailOf = (req: Request) => String(req.body?.email ?? '').trim().toLowerCase();
+const emailOf = (req: Request) =>
+  String(req.body?.email ?? '')
+    .trim()
+    .toLowerCase();
 
 function tooMany(res: Response, next: NextFunction, rule: Rule, msBeforeNext: number) {
   const seconds = Math.max(1, Math.ceil(msBeforeNext / 1000));
@@ -146,7 +149,8 @@ export const signInLimiter = (ds: DataSource) =>
 export const signUpLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, RULES.signUp), addressOf);
 /** Address and account together: nobody locks another person out of resets from elsewhere. */
 export const resetLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, RULES.reset), (req) => `${addressOf(req)}|${emailOf(req)}`);
-export const resetConfirmLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, RULES.resetConfirm), (req) => `${addressOf(req)}|${String(req.body?.token ?? '')}`);
+export const resetConfirmLimiter = (ds: DataSource) =>
+  limitEveryRequest(counter(ds, RULES.resetConfirm), (req) => `${addressOf(req)}|${String(req.body?.token ?? '')}`);
 /** Per address: guessing confirmation links from one place stops there. */
 export const addressConfirmLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, RULES.addressConfirm), addressOf);
 /** Keyed by the session: another person's guesses never lock this account's owner out. */
@@ -156,4 +160,5 @@ export const inviteLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, R
  * Per member (after authentication, so an API token and every session of the same person share one count): one
  * member's loop of saves cannot hold the server's calculation time, and other members are not slowed.
  */
-export const caseWriteLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, RULES.caseWrite), (req) => `member:${req.actor?.user.id ?? req.sessionID ?? ''}`);
+export const caseWriteLimiter = (ds: DataSource) =>
+  limitEveryRequest(counter(ds, RULES.caseWrite), (req) => `member:${req.actor?.user.id ?? req.sessionID ?? ''}`);

@@ -76,7 +76,10 @@ function validate(spec: RouteSpec): RequestHandler {
         return next(new AppError(400, 'Some text holds a control character', { fieldErrors: [{ path: found.path, message }] }));
       }
     }
-    for (const [part, schema] of [['body', spec.body], ['query', spec.query]] as const) {
+    for (const [part, schema] of [
+      ['body', spec.body],
+      ['query', spec.query],
+    ] as const) {
       if (!schema) continue;
       const parsed = schema.safeParse(part === 'body' ? (req.body ?? {}) : req.query);
       if (!parsed.success) {

@@ -7,5 +7,8 @@ export function trustProxySetting(value: string): false | number | string[] {
   const v = value.trim();
   if (v === '' || v.toLowerCase() === 'off') return false;
   if (/^\d+$/.test(v)) return Number(v);
-  return v.split(',').map((s) => s.trim()).filter(Boolean);
+  return v
+    .split(',')
+    .map((s) => s.trim())
+    .filter(Boolean);
 }

@@ -4,12 +4,7 @@
  * supported carries a low confidence. The user corrects the guess on the mapping screen, and the
  * corrected mapping (plain data, see shared/schemas/import-mapping.ts) is saved for the unit.
  */
-import {
-  IMPORT_QUANTITY_UNITS,
-  importMappingSchema,
-  type ImportQuantity,
-  type ImportMappingInput,
-} from '@shared/schemas/import-mapping.js';
+import { IMPORT_QUANTITY_UNITS, importMappingSchema, type ImportQuantity, type ImportMappingInput } from '@shared/schemas/import-mapping.js';
 import { cwFlowToM3s, dissolvedOxygenToPpb, massFlowToKgS, powerToMw, pressureToKpa, temperatureToC } from './quantity-conversion.js';
 import { looksLikeDateTime } from './raw-table.js';
 
@@ -123,11 +118,16 @@ function quantityFromWords(n: string): GuessedQuantity | null {
   if (/\bbarom|\bbaro\b|\batmospheric|\bambient press|\batm press/.test(n)) return 'barometer';
   if (/\bhot ?well\b|\bcondensate temp/.test(n)) return 'hotwellTemperature';
   if (/\bdissolved (o2|oxygen)\b|\bdo\b|\bo2\b|\boxygen\b/.test(n)) return 'dissolvedOxygen';
-  if (/\bair (removal|in ?-?leak(age)?|ejector|exhauster|extraction)\b|\bsjae\b|\bvacuum pump (flow|air)\b|\bair ?flow\b|\bnon-?condensable/.test(n)) return 'airRemovalFlow';
+  if (/\bair (removal|in ?-?leak(age)?|ejector|exhauster|extraction)\b|\bsjae\b|\bvacuum pump (flow|air)\b|\bair ?flow\b|\bnon-?condensable/.test(n))
+    return 'airRemovalFlow';
   if (/\bcondensate (pump )?flow\b|\bcond(ensate)? flow\b/.test(n) && !CW.test(n)) return 'condensateFlow';
   if (/\bdp\b|\bd\/p\b|\bdiff(erential)? ?press|\bdelta ?p\b|\bpress(ure)? drop\b/.test(n)) return 'cwDifferentialPressure';
   if (/\bvac(uum)?\b/.test(n)) return 'condenserVacuum';
-  if (/\bback ?pressure\b|\bbp\b|\bcond(enser)? (abs(olute)? )?(press(ure)?|pr)\b|\bexh(aust)? (abs(olute)? )?(press(ure)?|pr)\b|\bturb(ine)? exh(aust)?\b|\bshell press|\bcondenser pressure\b/.test(n)) {
+  if (
+    /\bback ?pressure\b|\bbp\b|\bcond(enser)? (abs(olute)? )?(press(ure)?|pr)\b|\bexh(aust)? (abs(olute)? )?(press(ure)?|pr)\b|\bturb(ine)? exh(aust)?\b|\bshell press|\bcondenser pressure\b/.test(
+      n,
+    )
+  ) {
     return 'backpressure';
   }
   if (TEMP.test(n) || /\bdeg ?[fc]\b/.test(n)) {
@@ -207,10 +207,13 @@ function plausible(quantity: ImportQuantity, unit: string, values: number[]): bo
   return m >= min && m <= max;
 }
 
-function guessTimestamp(samples: string[]): { format: 'iso-8601-offset' | 'local-text' | 'excel-serial'; dateOrder?: 'ymd' | 'mdy' | 'dmy'; confidence: number } | null {
+function guessTimestamp(
+  samples: string[],
+): { format: 'iso-8601-offset' | 'local-text' | 'excel-serial'; dateOrder?: 'ymd' | 'mdy' | 'dmy'; confidence: number } | null {
   const texts = samples.map((s) => s.trim()).filter(Boolean);
   if (texts.length === 0) return null;
-  if (texts.every((t) => /^\d{4}-\d{2}-\d{2}[T ]\d{2}:\d{2}(:\d{2}(\.\d+)?)?\s*(Z|[+-]\d{2}(:?\d{2})?)$/i.test(t))) return { format: 'iso-8601-offset', confidence: 0.95 };
+  if (texts.every((t) => /^\d{4}-\d{2}-\d{2}[T ]\d{2}:\d{2}(:\d{2}(\.\d+)?)?\s*(Z|[+-]\d{2}(:?\d{2})?)$/i.test(t)))
+    return { format: 'iso-8601-offset', confidence: 0.95 };
   if (texts.every((t) => /^\d+(\.\d+)?$/.test(t) && +t > 20_000 && +t < 80_000)) return { format: 'excel-serial', confidence: 0.8 };
   if (!texts.every(looksLikeDateTime)) return null;
   const parts = texts.map((t) => {
@@ -230,7 +233,8 @@ export interface GuessOptions {
 }
 
 export function guessMapping(headers: string[], sampleRows: string[][] = [], options: GuessOptions = {}): MappingGuess {
-  const commaDecimals = sampleRows.some((r) => r.some((c) => /^-?\d+,\d+$/.test(c.trim()))) && !sampleRows.some((r) => r.some((c) => /^-?\d+\.\d+$/.test(c.trim())));
+  const commaDecimals =
+    sampleRows.some((r) => r.some((c) => /^-?\d+,\d+$/.test(c.trim()))) && !sampleRows.some((r) => r.some((c) => /^-?\d+\.\d+$/.test(c.trim())));
   const guesses: ColumnGuess[] = headers.map((header, index) => {
     const n = normaliseHeader(header);
     const unmapped = (note?: string): ColumnGuess => ({ header, index, quantity: null, unit: null, confidence: 0, ...(note ? { note } : {}) });
@@ -283,7 +287,9 @@ export function guessMapping(headers: string[], sampleRows: string[][] = [], opt
 
   // no timestamp by its words: a column whose sample values are all date-times is taken, with a low confidence
   if (!guesses.some((g) => g.quantity === 'timestamp')) {
-    const byValues = guesses.find((g) => g.quantity === null && !g.note && sampleRows.length > 0 && guessTimestamp(sampleRows.map((r) => r[g.index] ?? ''))?.format === 'local-text');
+    const byValues = guesses.find(
+      (g) => g.quantity === null && !g.note && sampleRows.length > 0 && guessTimestamp(sampleRows.map((r) => r[g.index] ?? ''))?.format === 'local-text',
+    );
     if (byValues) Object.assign(byValues, { quantity: 'timestamp', confidence: 0.5, note: 'taken as the timestamp from its values' });
   }
 

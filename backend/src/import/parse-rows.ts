@@ -125,27 +125,28 @@ export async function checkImportFile(filePath: string, options: ImportFileOptio
     let ascending = true;
     let descending = true;
     let prev = Number.NaN;
-    for await (const chunk of table.chunks) for (const row of chunk) {
-      result.dataRows++;
-      const good = converter.convert(row.cells, row.line, record, errors);
-      const t = record[F.timestampUtc]!;
-      if (!Number.isNaN(t)) {
-        if (!Number.isNaN(prev)) {
-          if (!(t > prev)) ascending = false;
-          if (!(t < prev)) descending = false;
+    for await (const chunk of table.chunks)
+      for (const row of chunk) {
+        result.dataRows++;
+        const good = converter.convert(row.cells, row.line, record, errors);
+        const t = record[F.timestampUtc]!;
+        if (!Number.isNaN(t)) {
+          if (!Number.isNaN(prev)) {
+            if (!(t > prev)) ascending = false;
+            if (!(t < prev)) descending = false;
+          }
+          prev = t;
+          index.push(t, row.line);
+          if (result.firstTimestampUtc === null || t < result.firstTimestampUtc) result.firstTimestampUtc = t;
+          if (result.lastTimestampUtc === null || t > result.lastTimestampUtc) result.lastTimestampUtc = t;
         }
-        prev = t;
-        index.push(t, row.line);
-        if (result.firstTimestampUtc === null || t < result.firstTimestampUtc) result.firstTimestampUtc = t;
-        if (result.lastTimestampUtc === null || t > result.lastTimestampUtc) result.lastTimestampUtc = t;
-      }
-      if (good) {
-        for (const f of MEAN_FIELDS) {
-          sums[f]! += record[f]!;
-          counts[f]!++;
+        if (good) {
+          for (const f of MEAN_FIELDS) {
+            sums[f]! += record[f]!;
+            counts[f]!++;
+          }
         }
       }
-    }
     result.order = ascending ? 'ascending' : descending && index.n > 1 ? 'descending' : 'unordered';
     if (!ascending && !descending) result.duplicateTimestamps = reportDuplicates(index, table.headers[compiled.timestampIndex]!, errors);
     result.warnings = unitWarnings(sums, counts);
@@ -293,7 +294,13 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
           { minutesFromPoint: (maxT - t) / 60_000, loadMw: maxLoad },
         ],
       });
-      const sample: ImportSample = { line: r[F.line]!, timestampUtc: t, ...point, flowAssumed: compiled.flowAssumed, validity: verdict.valid ? 'ok' : verdict.reason };
+      const sample: ImportSample = {
+        line: r[F.line]!,
+        timestampUtc: t,
+        ...point,
+        flowAssumed: compiled.flowAssumed,
+        validity: verdict.valid ? 'ok' : verdict.reason,
+      };
       for (const [key, field] of OPTIONAL_FIELDS) if (!Number.isNaN(r[field])) (sample as unknown as Record<string, number>)[key] = r[field]!;
       if (verdict.valid) summary.rowsOk++;
       else summary.rowsByReason[verdict.reason] = (summary.rowsByReason[verdict.reason] ?? 0) + 1;
@@ -312,24 +319,25 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
 
     const errors = new RowErrorList(1);
     let lastTime = -Infinity;
-    for await (const chunk of table.chunks) for (const row of chunk) {
-      const record = new Float64Array(RECORD_FIELDS);
-      if (!converter.convert(row.cells, row.line, record, errors)) {
-        const e = errors.errors[0];
-        const wrong = e ? `line ${e.row} is wrong (${e.message})` : `line ${row.line} is wrong`;
-        throw new ImportFileError('file-changed', `${wrong}: check the file again before importing`, e?.row ?? row.line);
-      }
-      summary.rowsRead++;
-      if (sorter) await sorter.add(record);
-      else {
-        if (!(record[F.timestampUtc]! > lastTime)) {
-          throw new ImportFileError('file-changed', `line ${row.line} is not in ascending time order: check the file again before importing`, row.line);
+    for await (const chunk of table.chunks)
+      for (const row of chunk) {
+        const record = new Float64Array(RECORD_FIELDS);
+        if (!converter.convert(row.cells, row.line, record, errors)) {
+          const e = errors.errors[0];
+          const wrong = e ? `line ${e.row} is wrong (${e.message})` : `line ${row.line} is wrong`;
+          throw new ImportFileError('file-changed', `${wrong}: check the file again before importing`, e?.row ?? row.line);
         }
-        lastTime = record[F.timestampUtc]!;
-        window.push(record);
-        if (pendingBatches.length > 0) await drain();
+        summary.rowsRead++;
+        if (sorter) await sorter.add(record);
+        else {
+          if (!(record[F.timestampUtc]! > lastTime)) {
+            throw new ImportFileError('file-changed', `line ${row.line} is not in ascending time order: check the file again before importing`, row.line);
+          }
+          lastTime = record[F.timestampUtc]!;
+          window.push(record);
+          if (pendingBatches.length > 0) await drain();
+        }
       }
-    }
     if (sorter) {
       let prev = Number.NaN;
       for await (const record of sorter.sorted()) {

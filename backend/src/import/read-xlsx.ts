@@ -75,7 +75,10 @@ export async function openXlsxTable(filePath: string, options: XlsxReadOptions =
         const sheet = await sheets.next();
         if (sheet.done) {
           if (sawSheet) return null;
-          throw new ImportFileError('not-xlsx', 'the file is a ZIP archive but holds no worksheet: is it an XLSX workbook? Save it again from your spreadsheet program as .xlsx and upload that');
+          throw new ImportFileError(
+            'not-xlsx',
+            'the file is a ZIP archive but holds no worksheet: is it an XLSX workbook? Save it again from your spreadsheet program as .xlsx and upload that',
+          );
         }
         sawSheet = true;
         rowIterator = sheet.value[Symbol.asyncIterator]();
@@ -91,7 +94,8 @@ export async function openXlsxTable(filePath: string, options: XlsxReadOptions =
           cells.push(t);
           chars += t.length + 1;
         }
-        if (chars > maxLine) throw new ImportFileError('line-too-long', `row ${r.value.number} is longer than ${maxLine.toLocaleString('en-US')} characters`, r.value.number);
+        if (chars > maxLine)
+          throw new ImportFileError('line-too-long', `row ${r.value.number} is longer than ${maxLine.toLocaleString('en-US')} characters`, r.value.number);
         if (cells.every((c) => c.trim() === '')) continue;
         while (cells.length < width) cells.push('');
         return { line: r.value.number, cells };

@@ -6,15 +6,7 @@
 import { IMPORT_QUANTITIES, importMappingSchema, type ImportMapping, type ImportQuantity } from '@shared/schemas/import-mapping.js';
 import { INHG_REFERENCE_NOTE } from '@shared/units.js';
 import { ImportFileError, type RowErrorList } from './import-errors.js';
-import {
-  SCFM_BASIS_NOTE,
-  cwFlowToM3s,
-  dissolvedOxygenToPpb,
-  massFlowToKgS,
-  powerToMw,
-  pressureToKpa,
-  temperatureToC,
-} from './quantity-conversion.js';
+import { SCFM_BASIS_NOTE, cwFlowToM3s, dissolvedOxygenToPpb, massFlowToKgS, powerToMw, pressureToKpa, temperatureToC } from './quantity-conversion.js';
 import { TimestampParser, describeTimestampRule } from './timestamp-parsing.js';
 
 /** Field positions in a converted record (a Float64Array, so millions of rows stay compact). */
@@ -61,7 +53,8 @@ export function compileMapping(mappingInput: unknown, headers: string[]): Compil
       missing.push(`"${column}"`);
       return -1;
     }
-    if (at.length > 1) throw new ImportFileError('duplicate-column', `the file has ${at.length} columns named "${column}": rename them so the mapping is unambiguous`);
+    if (at.length > 1)
+      throw new ImportFileError('duplicate-column', `the file has ${at.length} columns named "${column}": rename them so the mapping is unambiguous`);
     return at[0]!;
   };
   const timestampIndex = find(mapping.timestamp.column);
@@ -156,9 +149,8 @@ export class RowConverter {
       out[F.backpressureKpa] = pressureToKpa(this.readNumber(cells, line, errors, 'backpressure', true), c.backpressure.unit);
     } else {
       const vacuumKpa = pressureToKpa(this.readNumber(cells, line, errors, 'condenserVacuum', true), c.condenserVacuum!.unit);
-      const baroKpa = c.barometer && !Number.isNaN(out[F.barometerKpa])
-        ? out[F.barometerKpa]!
-        : pressureToKpa(mapping.fixedBarometer!.value, mapping.fixedBarometer!.unit);
+      const baroKpa =
+        c.barometer && !Number.isNaN(out[F.barometerKpa]) ? out[F.barometerKpa]! : pressureToKpa(mapping.fixedBarometer!.value, mapping.fixedBarometer!.unit);
       out[F.backpressureKpa] = baroKpa - vacuumKpa;
     }
     if (c.cwFlow) {
@@ -167,11 +159,19 @@ export class RowConverter {
     } else {
       out[F.cwFlowM3s] = mapping.designCwFlowM3s!;
     }
-    out[F.hotwellC] = c.hotwellTemperature ? temperatureToC(this.readNumber(cells, line, errors, 'hotwellTemperature', false), c.hotwellTemperature.unit) : Number.NaN;
-    out[F.dissolvedOxygenPpb] = c.dissolvedOxygen ? dissolvedOxygenToPpb(this.readNumber(cells, line, errors, 'dissolvedOxygen', false), c.dissolvedOxygen.unit) : Number.NaN;
+    out[F.hotwellC] = c.hotwellTemperature
+      ? temperatureToC(this.readNumber(cells, line, errors, 'hotwellTemperature', false), c.hotwellTemperature.unit)
+      : Number.NaN;
+    out[F.dissolvedOxygenPpb] = c.dissolvedOxygen
+      ? dissolvedOxygenToPpb(this.readNumber(cells, line, errors, 'dissolvedOxygen', false), c.dissolvedOxygen.unit)
+      : Number.NaN;
     out[F.airRemovalKgS] = c.airRemovalFlow ? massFlowToKgS(this.readNumber(cells, line, errors, 'airRemovalFlow', false), c.airRemovalFlow.unit) : Number.NaN;
-    out[F.cwDifferentialPressureKpa] = c.cwDifferentialPressure ? pressureToKpa(this.readNumber(cells, line, errors, 'cwDifferentialPressure', false), c.cwDifferentialPressure.unit) : Number.NaN;
-    out[F.condensateFlowKgS] = c.condensateFlow ? massFlowToKgS(this.readNumber(cells, line, errors, 'condensateFlow', false), c.condensateFlow.unit) : Number.NaN;
+    out[F.cwDifferentialPressureKpa] = c.cwDifferentialPressure
+      ? pressureToKpa(this.readNumber(cells, line, errors, 'cwDifferentialPressure', false), c.cwDifferentialPressure.unit)
+      : Number.NaN;
+    out[F.condensateFlowKgS] = c.condensateFlow
+      ? massFlowToKgS(this.readNumber(cells, line, errors, 'condensateFlow', false), c.condensateFlow.unit)
+      : Number.NaN;
     return this.rowOk;
   }
 

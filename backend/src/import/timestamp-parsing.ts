@@ -36,10 +36,7 @@ function naiveMs(y: number, mo: number, d: number, h: number, mi: number, s: num
 }
 
 type DayResolution =
-  | { kind: 'single'; offsetMin: number }
-  | { kind: 'gap' }
-  | { kind: 'overlap'; earlierUtcShiftMin: number; laterUtcShiftMin: number }
-  | { kind: 'mixed' };
+  { kind: 'single'; offsetMin: number } | { kind: 'gap' } | { kind: 'overlap'; earlierUtcShiftMin: number; laterUtcShiftMin: number } | { kind: 'mixed' };
 
 /** UTC instants whose wall clock in `zone` equals `naive` (0 in a gap, 2 in a repeated hour). */
 function resolveWallClock(zone: IANAZone, naive: number): Exclude<DayResolution, { kind: 'mixed' }> {
@@ -208,7 +205,8 @@ export function describeTimestampRule(spec: ImportTimestamp): string {
   if (spec.format === 'iso-8601-offset') return 'timestamps are ISO 8601 with their own UTC offset';
   const what = spec.format === 'excel-serial' ? 'Excel serial dates (1900 system) in local time' : `local time text (${spec.dateOrder})`;
   const repeated = {
-    'by-file-order': 'the repeated hour when clocks go back is read in file order (oldest-first: first pass daylight time, the repeat standard time; newest-first: the reverse)',
+    'by-file-order':
+      'the repeated hour when clocks go back is read in file order (oldest-first: first pass daylight time, the repeat standard time; newest-first: the reverse)',
     earlier: 'the repeated hour when clocks go back is read as daylight time (the earlier instant)',
     later: 'the repeated hour when clocks go back is read as standard time (the later instant)',
     reject: 'times in the repeated hour when clocks go back are rejected',

@@ -30,8 +30,21 @@ const STALE = `NOW(3) - INTERVAL ${STALE_MINUTES} MINUTE`;
 /** A job a worker may start: waiting, or running under a stale lock with attempts left. */
 const RUNNABLE = `status = 'queued' OR (status = 'running' AND lockedAt < ${STALE} AND attempts < ${MAX_ATTEMPTS})`;
 
-export async function enqueueJob(em: EntityManager, job: { organisationId: string; unitId: string; kind: JobKind; payload?: Record<string, unknown> }): Promise<BackgroundJob> {
-  return em.getRepository(BackgroundJob).save({ ...job, payload: job.payload ?? null, status: 'queued', progress: 0, message: null, lockedBy: null, lockedAt: null, attempts: 0, finishedAt: null });
+export async function enqueueJob(
+  em: EntityManager,
+  job: { organisationId: string; unitId: string; kind: JobKind; payload?: Record<string, unknown> },
+): Promise<BackgroundJob> {
+  return em.getRepository(BackgroundJob).save({
+    ...job,
+    payload: job.payload ?? null,
+    status: 'queued',
+    progress: 0,
+    message: null,
+    lockedBy: null,
+    lockedAt: null,
+    attempts: 0,
+    finishedAt: null,
+  });
 }
 
 /** Queues a recompute of the unit's derived data unless one is already waiting. */
@@ -64,14 +77,15 @@ export async function claimNextJob(ds: DataSource, workerId: string, options: { 
         if (exists.length === 0) await failJobsOfMissingUnit(em, unitId);
         continue;
       }
-      const busy: unknown[] = await em.query(`SELECT id FROM background_job WHERE unitId = ? AND status = 'running' AND lockedAt >= ${STALE} LIMIT 1`, [unitId]);
+      const busy: unknown[] = await em.query(`SELECT id FROM background_job WHERE unitId = ? AND status = 'running' AND lockedAt >= ${STALE} LIMIT 1`, [
+        unitId,
+      ]);
       if (busy.length > 0) continue;
       // No SKIP LOCKED here: a locking scan elsewhere may hold the row for an instant. The unit's lock already
       // keeps other claims off; the UPDATE waits for the row and checks it is still runnable.
-      const next: { id: string }[] = await em.query(
-        `SELECT id FROM background_job WHERE unitId = ? AND (${RUNNABLE}) ORDER BY createdAt ASC LIMIT 1`,
-        [unitId],
-      );
+      const next: { id: string }[] = await em.query(`SELECT id FROM background_job WHERE unitId = ? AND (${RUNNABLE}) ORDER BY createdAt ASC LIMIT 1`, [
+        unitId,
+      ]);
       const [oldest] = next;
       if (!oldest) continue;
       const claimed = await em.query(
@@ -136,7 +150,10 @@ export async function renewLease(ds: DataSource, lease: JobLease): Promise<boole
  */
 export async function withLease<T>(ds: DataSource, lease: JobLease, work: (em: EntityManager) => Promise<T>): Promise<T> {
   return ds.transaction(async (em) => {
-    const held: unknown[] = await em.query(`SELECT id FROM background_job WHERE id = ? AND lockedBy = ? AND status = 'running' FOR UPDATE`, [lease.id, lease.lockedBy]);
+    const held: unknown[] = await em.query(`SELECT id FROM background_job WHERE id = ? AND lockedBy = ? AND status = 'running' FOR UPDATE`, [
+      lease.id,
+      lease.lockedBy,
+    ]);
     if (held.length === 0) throw new LostJobLockError(lease.id);
     await em.query('UPDATE background_job SET lockedAt = NOW(3) WHERE id = ?', [lease.id]);
     return work(em);
@@ -160,13 +177,19 @@ export async function releaseJob(ds: DataSource, lease: JobLease): Promise<boole
 /** Ends a job held by this worker; false (and nothing written) when another worker holds it now. */
 export async function finishJob(ds: DataSource, lease: JobLease, outcome: { ok: true } | { ok: false; message: string }): Promise<boolean> {
   const result = outcome.ok
-    ? await ds.query(`UPDATE background_job SET status = 'done', progress = 1, message = NULL, finishedAt = ?, lockedBy = NULL WHERE id = ? AND lockedBy = ? AND status = 'running'`, [new Date(), lease.id, lease.lockedBy])
-    : await ds.query(`UPDATE background_job SET status = 'failed', message = ?, finishedAt = ?, lockedBy = NULL WHERE id = ? AND lockedBy = ? AND status = 'running'`, [outcome.message.slice(0, 500), new Date(), lease.id, lease.lockedBy]);
+    ? await ds.query(
+        `UPDATE background_job SET status = 'done', progress = 1, message = NULL, finishedAt = ?, lockedBy = NULL WHERE id = ? AND lockedBy = ? AND status = 'running'`,
+        [new Date(), lease.id, lease.lockedBy],
+      )
+    : await ds.query(
+        `UPDATE background_job SET status = 'failed', message = ?, finishedAt = ?, lockedBy = NULL WHERE id = ? AND lockedBy = ? AND status = 'running'`,
+        [outcome.message.slice(0, 500), new Date(), lease.id, lease.lockedBy],
+      );
   return affectedRows(result) > 0;
 }
 
 /** Rows changed by an UPDATE through TypeORM's MariaDB driver (an OkPacket, or [rows, OkPacket]). */
 function affectedRows(result: unknown): number {
-  const packet = Array.isArray(result) ? result[1] ?? result[0] : result;
+  const packet = Array.isArray(result) ? (result[1] ?? result[0]) : result;
   return typeof packet === 'object' && packet !== null && 'affectedRows' in packet ? Number((packet as { affectedRows: number }).affectedRows) : 0;
 }

@@ -20,7 +20,11 @@ const SMTP_TIMEOUT_MS = 15_000;
  * delivery loop uses this; requests use the outbox mailer, so no answer waits for an SMTP server.
  */
 export function createMailer(options: { smtpUrl?: string; sinkPort?: number; from: string; timeoutMs?: number }): Mailer {
-  const timeouts = { connectionTimeout: options.timeoutMs ?? SMTP_TIMEOUT_MS, greetingTimeout: options.timeoutMs ?? SMTP_TIMEOUT_MS, socketTimeout: options.timeoutMs ?? SMTP_TIMEOUT_MS };
+  const timeouts = {
+    connectionTimeout: options.timeoutMs ?? SMTP_TIMEOUT_MS,
+    greetingTimeout: options.timeoutMs ?? SMTP_TIMEOUT_MS,
+    socketTimeout: options.timeoutMs ?? SMTP_TIMEOUT_MS,
+  };
   const transport = options.smtpUrl
     ? nodemailer.createTransport({ url: options.smtpUrl, ...timeouts })
     : nodemailer.createTransport({ host: '127.0.0.1', port: options.sinkPort, secure: false, ignoreTLS: true, ...timeouts });

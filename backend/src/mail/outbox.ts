@@ -24,7 +24,9 @@ export interface OutboxDelivery {
 }
 
 export async function enqueueMail(ds: DataSource | EntityManager, mail: OutgoingMail): Promise<void> {
-  await ds.getRepository(MailOutbox).insert({ kind: 'message', recipient: mail.to, subject: mail.subject, body: mail.text, availableAt: new Date(), attempts: 0 });
+  await ds
+    .getRepository(MailOutbox)
+    .insert({ kind: 'message', recipient: mail.to, subject: mail.subject, body: mail.text, availableAt: new Date(), attempts: 0 });
 }
 
 /** A row whose mail is composed at delivery by the composer of `kind` (e.g. a reset link, only if the account exists). */
@@ -63,10 +65,19 @@ async function deliverOne(ds: DataSource, delivery: OutboxDelivery, claimant: st
   } catch (err) {
     const message = (err instanceof Error ? err.message : String(err)).slice(0, 500);
     const failed = row.attempts >= MAX_ATTEMPTS;
-    logger?.warn({ err: message, kind: row.kind, attempts: row.attempts }, failed ? 'mail could not be delivered; giving up' : 'mail delivery failed; will retry');
+    logger?.warn(
+      { err: message, kind: row.kind, attempts: row.attempts },
+      failed ? 'mail could not be delivered; giving up' : 'mail delivery failed; will retry',
+    );
     await ds.getRepository(MailOutbox).update(
       { id: row.id, claimedBy: claimant },
-      { claimedBy: null, claimedAt: null, lastError: message, availableAt: new Date(Date.now() + retryDelayMs(row.attempts)), failedAt: failed ? new Date() : null },
+      {
+        claimedBy: null,
+        claimedAt: null,
+        lastError: message,
+        availableAt: new Date(Date.now() + retryDelayMs(row.attempts)),
+        failedAt: failed ? new Date() : null,
+      },
     );
   }
   return true;

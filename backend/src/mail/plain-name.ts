@@ -26,5 +26,10 @@ export function plainName(value: string, fallback: string, max = MAIL_NAME_MAX):
     .trim();
   if (!cleaned) return fallback;
   const chars = Array.from(cleaned);
-  return chars.length <= max ? cleaned : `${chars.slice(0, max - 1).join('').trimEnd()}…`;
+  return chars.length <= max
+    ? cleaned
+    : `${chars
+        .slice(0, max - 1)
+        .join('')
+        .trimEnd()}…`;
 }

@@ -42,7 +42,12 @@ export async function startSmtpSink(options: { port: number; dataSource: DataSou
       simpleParser(stream)
         .then(async (mail) => {
           const recipients = (session.envelope.rcptTo ?? []).map((r) => r.address.toLowerCase());
-          const base = { sender: (mail.from?.text ?? '').slice(0, 300), subject: (mail.subject ?? '').slice(0, 300), body: mail.text ?? '', receivedAt: new Date() };
+          const base = {
+            sender: (mail.from?.text ?? '').slice(0, 300),
+            subject: (mail.subject ?? '').slice(0, 300),
+            body: mail.text ?? '',
+            receivedAt: new Date(),
+          };
           const repo = dataSource.getRepository(SinkMessage);
           for (const recipient of recipients) {
             await repo.insert({ ...base, recipient });

@@ -23,6 +23,8 @@ export class CaseDecisionGuardsBackfill1796210000001 implements MigrationInterfa
   }
 
   async down(q: QueryRunner): Promise<void> {
-    await q.query(`UPDATE cleaning_case SET submittedById = NULL, lastEditedById = NULL, editorIdsSinceDecision = NULL, unitNameAtSubmit = NULL, plantNameAtSubmit = NULL`);
+    await q.query(
+      `UPDATE cleaning_case SET submittedById = NULL, lastEditedById = NULL, editorIdsSinceDecision = NULL, unitNameAtSubmit = NULL, plantNameAtSubmit = NULL`,
+    );
   }
 }

@@ -11,4 +11,16 @@ import { CleaningCases1796200402325 } from './1796200402325-cleaning-cases.js';
 import { CaseDecisionGuards1796210000000 } from './1796210000000-case-decision-guards.js';
 import { CaseDecisionGuardsBackfill1796210000001 } from './1796210000001-case-decision-guards-backfill.js';
 
-export const MIGRATIONS = [Foundation1764633600000, TenantsAndUsers1796163844986, Accounts1796164373459, UnitsAndData1796165772820, HealthFigures1796166427505, MailOutboxAndSink1796190627120, RateLimitCounters1796190929629, AddressConfirmation1796194524192, CleaningCases1796200402325, CaseDecisionGuards1796210000000, CaseDecisionGuardsBackfill1796210000001];
+export const MIGRATIONS = [
+  Foundation1764633600000,
+  TenantsAndUsers1796163844986,
+  Accounts1796164373459,
+  UnitsAndData1796165772820,
+  HealthFigures1796166427505,
+  MailOutboxAndSink1796190627120,
+  RateLimitCounters1796190929629,
+  AddressConfirmation1796194524192,
+  CleaningCases1796200402325,
+  CaseDecisionGuards1796210000000,
+  CaseDecisionGuardsBackfill1796210000001,
+];

@@ -16,9 +16,15 @@ export function findImportInScope(em: EntityManager, scope: TenantScope, id: str
 }
 
 /** A unit's imports, newest first, each with the name of who uploaded it; null when the unit lies outside the scope. */
-export async function importsOfUnitInScope(em: EntityManager, scope: TenantScope, unitId: string): Promise<{ record: DataImport; uploadedBy: string | null }[] | null> {
+export async function importsOfUnitInScope(
+  em: EntityManager,
+  scope: TenantScope,
+  unitId: string,
+): Promise<{ record: DataImport; uploadedBy: string | null }[] | null> {
   if (!(await findUnit(em, scope, unitId))) return null;
-  const rows = await em.getRepository(DataImport).find({ where: { unitId, organisationId: scope.organisationId }, order: { createdAt: 'DESC' }, take: HISTORY_LENGTH });
+  const rows = await em
+    .getRepository(DataImport)
+    .find({ where: { unitId, organisationId: scope.organisationId }, order: { createdAt: 'DESC' }, take: HISTORY_LENGTH });
   const ids = [...new Set(rows.map((r) => r.uploadedByUserId).filter((id): id is string => !!id))];
   const names = new Map((ids.length ? await em.getRepository(User).findBy({ id: In(ids) }) : []).map((u) => [u.id, u.name]));
   return rows.map((record) => ({ record, uploadedBy: record.uploadedByUserId ? (names.get(record.uploadedByUserId) ?? null) : null }));

@@ -34,14 +34,35 @@ export function reanalysableSamplesAfter(em: EntityManager, unitId: string, afte
 export type SampleColumn = keyof Omit<PerformanceSample, 'unit' | 'id' | 'timestampUtc'>;
 
 /** The next chunk of all a unit's samples after the given id: id, time (`ts`) and the given columns. */
-export function samplesAfter<C extends SampleColumn>(em: EntityManager, unitId: string, afterId: string, limit: number, columns: readonly C[]): Promise<({ id: string; ts: Date | string } & Record<C, unknown>)[]> {
-  return em.query(`SELECT id, timestampUtc AS ts, ${columns.join(', ')} FROM performance_sample WHERE unitId = ? AND id > ? ORDER BY id LIMIT ${Number(limit)}`, [unitId, afterId]);
+export function samplesAfter<C extends SampleColumn>(
+  em: EntityManager,
+  unitId: string,
+  afterId: string,
+  limit: number,
+  columns: readonly C[],
+): Promise<({ id: string; ts: Date | string } & Record<C, unknown>)[]> {
+  return em.query(
+    `SELECT id, timestampUtc AS ts, ${columns.join(', ')} FROM performance_sample WHERE unitId = ? AND id > ? ORDER BY id LIMIT ${Number(limit)}`,
+    [unitId, afterId],
+  );
 }
 
 /** The analysis columns of `performance_sample` the recompute writes, besides `validity`. */
 export const ANALYSIS_COLUMNS = [
-  'cleanliness', 'ttdK', 'dutyMw', 'expectedBackpressureKpa', 'excessBackpressureKpa', 'foulingKpa', 'cwInletKpa', 'cwFlowKpa', 'loadKpa',
-  'pluggingKpa', 'unexplainedKpa', 'heatRatePenaltyPct', 'foulingCostPerHour', 'unexplainedCostPerHour',
+  'cleanliness',
+  'ttdK',
+  'dutyMw',
+  'expectedBackpressureKpa',
+  'excessBackpressureKpa',
+  'foulingKpa',
+  'cwInletKpa',
+  'cwFlowKpa',
+  'loadKpa',
+  'pluggingKpa',
+  'unexplainedKpa',
+  'heatRatePenaltyPct',
+  'foulingCostPerHour',
+  'unexplainedCostPerHour',
 ] as const satisfies readonly (keyof SampleAnalysis & keyof PerformanceSample)[];
 
 export type AnalysisColumn = (typeof ANALYSIS_COLUMNS)[number];
@@ -61,7 +82,9 @@ const WRITTEN = ['validity', ...ANALYSIS_COLUMNS] as const;
  * connection (a query runner's manager) from openAnalysisScratch to closeAnalysisScratch.
  */
 export async function openAnalysisScratch(em: EntityManager): Promise<void> {
-  await em.query(`CREATE TEMPORARY TABLE IF NOT EXISTS derived_update (id bigint PRIMARY KEY, validity varchar(32) NOT NULL, ${ANALYSIS_COLUMNS.map((c) => `${c} double NULL`).join(', ')}) ENGINE=MEMORY`);
+  await em.query(
+    `CREATE TEMPORARY TABLE IF NOT EXISTS derived_update (id bigint PRIMARY KEY, validity varchar(32) NOT NULL, ${ANALYSIS_COLUMNS.map((c) => `${c} double NULL`).join(', ')}) ENGINE=MEMORY`,
+  );
 }
 
 /** Writes one chunk of analyses, stamped with the setup version they were made with. */
@@ -70,8 +93,14 @@ export async function writeAnalyses(em: EntityManager, analysed: readonly Analys
   const values: unknown[] = [];
   for (const s of analysed) values.push(s.id, s.validity, ...ANALYSIS_COLUMNS.map((c) => s.analysis?.[c] ?? null));
   await em.query('TRUNCATE TABLE derived_update');
-  await em.query(`INSERT INTO derived_update (id, ${WRITTEN.join(', ')}) VALUES ${analysed.map(() => `(?,${WRITTEN.map(() => '?').join(',')})`).join(',')}`, values);
-  await em.query(`UPDATE performance_sample s JOIN derived_update d ON d.id = s.id SET ${WRITTEN.map((c) => `s.${c} = d.${c}`).join(', ')}, s.setupVersion = ?`, [setupVersion]);
+  await em.query(
+    `INSERT INTO derived_update (id, ${WRITTEN.join(', ')}) VALUES ${analysed.map(() => `(?,${WRITTEN.map(() => '?').join(',')})`).join(',')}`,
+    values,
+  );
+  await em.query(
+    `UPDATE performance_sample s JOIN derived_update d ON d.id = s.id SET ${WRITTEN.map((c) => `s.${c} = d.${c}`).join(', ')}, s.setupVersion = ?`,
+    [setupVersion],
+  );
 }
 
 export async function closeAnalysisScratch(em: EntityManager): Promise<void> {
@@ -80,5 +109,8 @@ export async function closeAnalysisScratch(em: EntityManager): Promise<void> {
 
 /** Without a complete setup nothing is analysed: the analysis columns that carry figures are cleared. */
 export async function clearAnalysesOfUnit(em: EntityManager, unitId: string): Promise<void> {
-  await em.query(`UPDATE performance_sample SET cleanliness = NULL, ttdK = NULL, expectedBackpressureKpa = NULL, excessBackpressureKpa = NULL, foulingCostPerHour = NULL WHERE unitId = ?`, [unitId]);
+  await em.query(
+    `UPDATE performance_sample SET cleanliness = NULL, ttdK = NULL, expectedBackpressureKpa = NULL, excessBackpressureKpa = NULL, foulingCostPerHour = NULL WHERE unitId = ?`,
+    [unitId],
+  );
 }

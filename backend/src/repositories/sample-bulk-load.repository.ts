@@ -13,8 +13,23 @@ import type { ImportSample } from '../import/index.js';
 
 /** The columns a loaded line carries, in order. */
 export const LOADED_COLUMNS = [
-  'unitId', 'importId', 'timestampUtc', 'loadMw', 'backpressureKpa', 'cwInletC', 'cwOutletC', 'cwFlowM3s', 'flowAssumed',
-  'hotwellC', 'dissolvedOxygenPpb', 'airRemovalKgS', 'barometerKpa', 'cwDifferentialPressureKpa', 'condensateFlowKgS', 'validity', 'setupVersion',
+  'unitId',
+  'importId',
+  'timestampUtc',
+  'loadMw',
+  'backpressureKpa',
+  'cwInletC',
+  'cwOutletC',
+  'cwFlowM3s',
+  'flowAssumed',
+  'hotwellC',
+  'dissolvedOxygenPpb',
+  'airRemovalKgS',
+  'barometerKpa',
+  'cwDifferentialPressureKpa',
+  'condensateFlowKgS',
+  'validity',
+  'setupVersion',
 ] as const;
 
 export interface SampleOwner {
@@ -26,7 +41,8 @@ export interface SampleOwner {
 /** `\N` is LOAD DATA's NULL; a finite number as JavaScript prints it reads back as the same double. */
 const num = (v: number | undefined | null): string => (v === undefined || v === null || !Number.isFinite(v) ? '\\N' : String(v));
 /** Escapes what LOAD DATA's default field rules treat specially (backslash, tab, newline). */
-const text = (v: string): string => (/[\\\t\n\r]/.test(v) ? v.replace(/[\\\t\n\r]/g, (c) => (c === '\\' ? '\\\\' : c === '\t' ? '\\t' : c === '\n' ? '\\n' : '\\r')) : v);
+const text = (v: string): string =>
+  /[\\\t\n\r]/.test(v) ? v.replace(/[\\\t\n\r]/g, (c) => (c === '\\' ? '\\\\' : c === '\t' ? '\\t' : c === '\n' ? '\\n' : '\\r')) : v;
 const pad2 = (n: number) => (n < 10 ? `0${n}` : String(n));
 const DAY_MS = 86_400_000;
 let cachedDay = Number.NaN;
@@ -93,6 +109,8 @@ export async function loadSamples(em: EntityManager, owner: SampleOwner, samples
   const result = await loadLines(em, () => Readable.from(lineChunks(owner, samples)));
   if (result.affectedRows !== samples.length || result.warningStatus !== 0) {
     const warnings: { Message: string }[] = result.warningStatus ? await em.query('SHOW WARNINGS LIMIT 3') : [];
-    throw new Error(`the database stored ${result.affectedRows} of ${samples.length} rows${warnings.length ? ` (${warnings.map((w) => w.Message).join('; ')})` : ''}`);
+    throw new Error(
+      `the database stored ${result.affectedRows} of ${samples.length} rows${warnings.length ? ` (${warnings.map((w) => w.Message).join('; ')})` : ''}`,
+    );
   }
 }

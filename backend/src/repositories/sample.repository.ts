@@ -22,7 +22,9 @@ const isoOrNull = (v: unknown) => (v ? new Date(v as string).toISOString() : nul
 
 /** How many samples a unit has and the times of its first and last (ISO, UTC). */
 export async function sampleSpanOfUnit(em: EntityManager, unitId: string): Promise<{ count: number; first: string | null; last: string | null }> {
-  const [row] = await em.query('SELECT COUNT(*) AS n, MIN(timestampUtc) AS first, MAX(timestampUtc) AS last FROM performance_sample WHERE unitId = ?', [unitId]);
+  const [row] = await em.query('SELECT COUNT(*) AS n, MIN(timestampUtc) AS first, MAX(timestampUtc) AS last FROM performance_sample WHERE unitId = ?', [
+    unitId,
+  ]);
   return { count: Number(row.n), first: isoOrNull(row.first), last: isoOrNull(row.last) };
 }
 
@@ -47,7 +49,13 @@ export interface ChartPointRow {
 }
 
 /** A unit's samples in [fromUtc, toUtc), in time order, with the given columns only. */
-export async function chartPointsOfUnit(em: EntityManager, unitId: string, columns: readonly ChartColumn[], fromUtc: string, toUtc: string): Promise<ChartPointRow[]> {
+export async function chartPointsOfUnit(
+  em: EntityManager,
+  unitId: string,
+  columns: readonly ChartColumn[],
+  fromUtc: string,
+  toUtc: string,
+): Promise<ChartPointRow[]> {
   const rows: Record<string, unknown>[] = await em.query(
     `SELECT timestampUtc AS ts, ${PASSED_CHECKS_SQL} AS passedChecks, ${columns.join(', ')} FROM performance_sample WHERE unitId = ? AND timestampUtc >= ? AND timestampUtc < ? ORDER BY timestampUtc`,
     [unitId, fromUtc, toUtc],
@@ -70,16 +78,38 @@ export interface StoredReading {
 }
 
 export function storedReadingsBetween(em: EntityManager, unitId: string, from: Date, to: Date): Promise<StoredReading[]> {
-  return em.query('SELECT timestampUtc AS ts, loadMw, backpressureKpa, cwInletC, cwOutletC, cwFlowM3s FROM performance_sample WHERE unitId = ? AND timestampUtc BETWEEN ? AND ?', [unitId, from, to]);
+  return em.query(
+    'SELECT timestampUtc AS ts, loadMw, backpressureKpa, cwInletC, cwOutletC, cwFlowM3s FROM performance_sample WHERE unitId = ? AND timestampUtc BETWEEN ? AND ?',
+    [unitId, from, to],
+  );
 }
 
 const INSERT_COLUMNS = [
-  'unitId', 'importId', 'timestampUtc', 'loadMw', 'backpressureKpa', 'cwInletC', 'cwOutletC', 'cwFlowM3s', 'flowAssumed',
-  'hotwellC', 'dissolvedOxygenPpb', 'airRemovalKgS', 'barometerKpa', 'cwDifferentialPressureKpa', 'condensateFlowKgS', 'validity', 'setupVersion',
+  'unitId',
+  'importId',
+  'timestampUtc',
+  'loadMw',
+  'backpressureKpa',
+  'cwInletC',
+  'cwOutletC',
+  'cwFlowM3s',
+  'flowAssumed',
+  'hotwellC',
+  'dissolvedOxygenPpb',
+  'airRemovalKgS',
+  'barometerKpa',
+  'cwDifferentialPressureKpa',
+  'condensateFlowKgS',
+  'validity',
+  'setupVersion',
 ] as const satisfies readonly (keyof PerformanceSample)[];
 
 /** Stores checked rows of one import in one statement. */
-export async function insertSamples(em: EntityManager, owner: { unitId: string; importId: string; setupVersion: number }, samples: readonly ImportSample[]): Promise<void> {
+export async function insertSamples(
+  em: EntityManager,
+  owner: { unitId: string; importId: string; setupVersion: number },
+  samples: readonly ImportSample[],
+): Promise<void> {
   if (samples.length === 0) return;
   const row = (s: ImportSample): Record<(typeof INSERT_COLUMNS)[number], unknown> => ({
     unitId: owner.unitId,
@@ -104,7 +134,10 @@ export async function insertSamples(em: EntityManager, owner: { unitId: string; 
     const r = row(s);
     return INSERT_COLUMNS.map((c) => r[c]);
   });
-  await em.query(`INSERT INTO performance_sample (${INSERT_COLUMNS.join(', ')}) VALUES ${samples.map(() => `(${INSERT_COLUMNS.map(() => '?').join(',')})`).join(',')}`, values);
+  await em.query(
+    `INSERT INTO performance_sample (${INSERT_COLUMNS.join(', ')}) VALUES ${samples.map(() => `(${INSERT_COLUMNS.map(() => '?').join(',')})`).join(',')}`,
+    values,
+  );
 }
 
 /** Removes every row an import stored (undo, a failed or restarted import). */

@@ -1,13 +1,30 @@
 import type { Request, Response } from 'express';
 import type { DataSource } from 'typeorm';
-import { addressConfirmation, createOrganisationRequest, passwordChange, passwordResetConfirm, passwordResetRequest, profileUpdate, signUpRequest } from '@shared/schemas/accounts.js';
+import {
+  addressConfirmation,
+  createOrganisationRequest,
+  passwordChange,
+  passwordResetConfirm,
+  passwordResetRequest,
+  profileUpdate,
+  signUpRequest,
+} from '@shared/schemas/accounts.js';
 import { establishSession } from '../auth/establish-session.js';
 import type { Config } from '../config.js';
 import { baseUrl } from '../http/base-url.js';
 import { addressConfirmLimiter, passwordChangeLimiter, resetConfirmLimiter, resetLimiter, signUpLimiter } from '../http/rate-limits.js';
 import type { RouteSpec } from '../http/route-registry.js';
 import type { Mailer } from '../mail/mailer.js';
-import { changePassword, confirmAddress, confirmPasswordReset, createOrganisation, requestPasswordReset, SIGN_UP_ANSWER, signUp, updateProfile } from '../services/account.service.js';
+import {
+  changePassword,
+  confirmAddress,
+  confirmPasswordReset,
+  createOrganisation,
+  requestPasswordReset,
+  SIGN_UP_ANSWER,
+  signUp,
+  updateProfile,
+} from '../services/account.service.js';
 import { sessionResponse } from '@shared/schemas/session.js';
 import { messageResponse } from '@shared/schemas/errors.js';
 
@@ -103,7 +120,7 @@ export function accountRoutes(ds: DataSource, mailer: Mailer, config: Config, an
         res.status(204).end();
       },
     },
-      {
+    {
       method: 'post',
       path: '/api/address-confirmations',
       response: 'empty',

@@ -14,7 +14,9 @@ export function googleAuthRoutes(auth: passport.PassportStatic): RouteSpec[] {
       description: 'Start Google sign-in (redirects to Google, or to the local stand-in)',
       handler: (req, res) =>
         new Promise<void>((resolve, reject) => {
-          auth.authenticate(GOOGLE_STRATEGY, { scope: ['openid', 'email', 'profile'], session: false })(req, res, (err?: unknown) => (err ? reject(err) : resolve()));
+          auth.authenticate(GOOGLE_STRATEGY, { scope: ['openid', 'email', 'profile'], session: false })(req, res, (err?: unknown) =>
+            err ? reject(err) : resolve(),
+          );
           res.once('finish', () => resolve());
         }),
     },

@@ -15,7 +15,12 @@ import { describeSession } from '../services/session.service.js';
 export const SESSION_COOKIE = 'cleancase.sid';
 
 /** `answer` re-reads the actor after the session changed and replies with the session description. */
-export function sessionRoutes(ds: DataSource, auth: passport.PassportStatic, answer: (req: Request, res: Response) => Promise<void>, devMailbox: boolean): RouteSpec[] {
+export function sessionRoutes(
+  ds: DataSource,
+  auth: passport.PassportStatic,
+  answer: (req: Request, res: Response) => Promise<void>,
+  devMailbox: boolean,
+): RouteSpec[] {
   const verify = (req: Request, res: Response) =>
     new Promise<User>((resolve, reject) => {
       auth.authenticate('local', (err: unknown, user: User | false) => {

@@ -16,7 +16,8 @@ export function unitHealthRoutes(ds: DataSource): RouteSpec[] {
       access: 'data.read',
       tenantScoped: true,
       query: healthQuery,
-      description: 'Condenser health over a period: headline figures, daily series, trend and forecast, deviation breakdown, events, air in-leakage, data quality',
+      description:
+        'Condenser health over a period: headline figures, daily series, trend and forecast, deviation breakdown, events, air in-leakage, data quality',
       handler: async (req, res) => res.json(await unitHealth(ds, scopeOf(req.actor), idParam(req), req.validQuery as HealthQuery)),
     },
     {

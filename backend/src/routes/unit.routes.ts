@@ -51,18 +51,16 @@ export function unitRoutes(ds: DataSource): RouteSpec[] {
         res.status(204).end();
       },
     },
-    ...SETUP_PARTS.map(
-      ([part, schema, description]): RouteSpec => ({
-        method: 'put',
-        path: `/api/units/:id/${part}`,
-        access: 'data.write',
-        tenantScoped: true,
-        body: schema,
-        response: unitDetailSchema,
-        description,
-        handler: async (req, res) => res.json(await saveSetupPart(ds, scopeOf(req.actor), idParam(req), part, req.body)),
-      }),
-    ),
+    ...SETUP_PARTS.map(([part, schema, description]): RouteSpec => ({
+      method: 'put',
+      path: `/api/units/:id/${part}`,
+      access: 'data.write',
+      tenantScoped: true,
+      body: schema,
+      response: unitDetailSchema,
+      description,
+      handler: async (req, res) => res.json(await saveSetupPart(ds, scopeOf(req.actor), idParam(req), part, req.body)),
+    })),
     {
       method: 'get',
       path: '/api/units/:id/daily',

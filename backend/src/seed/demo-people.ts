@@ -5,7 +5,12 @@ export const DEMO_PASSWORD = 'tubesheet-demo-2026';
 
 export const DEMO_ORGANISATIONS = [
   { key: 'utility', name: 'Northmere Power Cooperative', kind: 'utility' as const, clientGroups: [] as string[] },
-  { key: 'consultancy', name: 'Tidewater Performance Partners', kind: 'consultancy' as const, clientGroups: ['Calder Valley Energy', 'Brightwater Municipal Utility'] },
+  {
+    key: 'consultancy',
+    name: 'Tidewater Performance Partners',
+    kind: 'consultancy' as const,
+    clientGroups: ['Calder Valley Energy', 'Brightwater Municipal Utility'],
+  },
 ];
 
 export interface DemoPerson {

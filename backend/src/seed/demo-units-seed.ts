@@ -91,8 +91,12 @@ export async function seedDemoUnits(ds: DataSource, log: (line: string) => void,
       const scope: TenantScope = { organisationId: organisation.id, userId: admin.userId, role: 'admin', clientGroupIds: null };
       const group = set.plant.client ? await ds.getRepository(ClientGroup).findOneByOrFail({ organisationId: organisation.id, name: set.plant.client }) : null;
       let plant = await ds.getRepository(Plant).findOneBy({ organisationId: organisation.id, name: set.plant.name });
-      plant ??= await ds.getRepository(Plant).save({ organisationId: organisation.id, clientGroupId: group?.id ?? null, name: set.plant.name, timeZone: set.plant.timeZone });
-      const unit = await ds.getRepository(GeneratingUnit).save({ organisationId: organisation.id, plantId: plant.id, name: set.data.unit.name, savedMapping: null, ...setupOf(set) });
+      plant ??= await ds
+        .getRepository(Plant)
+        .save({ organisationId: organisation.id, clientGroupId: group?.id ?? null, name: set.plant.name, timeZone: set.plant.timeZone });
+      const unit = await ds
+        .getRepository(GeneratingUnit)
+        .save({ organisationId: organisation.id, plantId: plant.id, name: set.data.unit.name, savedMapping: null, ...setupOf(set) });
       // Each demo cleaning is one of the library's methods at the library's cost for this condenser's tubes in service.
       const library = await methodsOf(ds.manager, organisation.id);
       for (const c of set.data.cleanings) {
@@ -100,25 +104,69 @@ export async function seedDemoUnits(ds: DataSource, log: (line: string) => void,
         if (!method) throw new Error(`demo cleaning method "${c.method}" is not in the organisation's library`);
         const activeTubes = set.data.unit.geometry.tubeCount - set.data.unit.pluggedTubes;
         await ds.getRepository(UnitEvent).save({
-          organisationId: organisation.id, unitId: unit.id, kind: 'cleaning', startDate: c.date, endDate: c.date, methodId: method.id,
+          organisationId: organisation.id,
+          unitId: unit.id,
+          kind: 'cleaning',
+          startDate: c.date,
+          endDate: c.date,
+          methodId: method.id,
           cost: (method.fixedCost + method.costPerTube * activeTubes).toFixed(2),
-          cleanlinessBefore: Math.round(c.cfBefore * 1000) / 1000, cleanlinessAfter: c.cfAfter, pluggedTubesAfter: null, notes: `${method.name} (demo)`, createdByUserId: admin.userId,
+          cleanlinessBefore: Math.round(c.cfBefore * 1000) / 1000,
+          cleanlinessAfter: c.cfAfter,
+          pluggedTubesAfter: null,
+          notes: `${method.name} (demo)`,
+          createdByUserId: admin.userId,
         });
       }
       for (const o of set.data.outages) {
         await ds.getRepository(UnitEvent).save({
-          organisationId: organisation.id, unitId: unit.id, kind: 'outage', startDate: o.start, endDate: o.end, methodId: null, cost: null,
-          cleanlinessBefore: null, cleanlinessAfter: null, pluggedTubesAfter: null, notes: `${o.kind} outage (demo)`, createdByUserId: admin.userId,
+          organisationId: organisation.id,
+          unitId: unit.id,
+          kind: 'outage',
+          startDate: o.start,
+          endDate: o.end,
+          methodId: null,
+          cost: null,
+          cleanlinessBefore: null,
+          cleanlinessAfter: null,
+          pluggedTubesAfter: null,
+          notes: `${o.kind} outage (demo)`,
+          createdByUserId: admin.userId,
         });
       }
       await ds.getRepository(UnitEvent).save({
-        organisationId: organisation.id, unitId: unit.id, kind: 'air-leak-repair', startDate: set.data.airLeak.end, endDate: null, methodId: null, cost: '12000.00',
-        cleanlinessBefore: null, cleanlinessAfter: null, pluggedTubesAfter: null, notes: 'Expansion-joint leak found and sealed (demo)', createdByUserId: admin.userId,
+        organisationId: organisation.id,
+        unitId: unit.id,
+        kind: 'air-leak-repair',
+        startDate: set.data.airLeak.end,
+        endDate: null,
+        methodId: null,
+        cost: '12000.00',
+        cleanlinessBefore: null,
+        cleanlinessAfter: null,
+        pluggedTubesAfter: null,
+        notes: 'Expansion-joint leak found and sealed (demo)',
+        createdByUserId: admin.userId,
       });
       const imp = await ds.getRepository(DataImport).save({
-        organisationId: organisation.id, unitId: unit.id, uploadedByUserId: admin.userId, fileName: path.basename(set.csvPath), fileBytes: (await stat(set.csvPath)).size, fileKind: 'csv', status: 'mapping',
-        mapping: set.csvMapping, counts: null, errors: null, errorCount: 0, notes: null, progress: 0, message: null, storedPath: set.csvPath,
-        firstTimestamp: null, lastTimestamp: null, finishedAt: null,
+        organisationId: organisation.id,
+        unitId: unit.id,
+        uploadedByUserId: admin.userId,
+        fileName: path.basename(set.csvPath),
+        fileBytes: (await stat(set.csvPath)).size,
+        fileKind: 'csv',
+        status: 'mapping',
+        mapping: set.csvMapping,
+        counts: null,
+        errors: null,
+        errorCount: 0,
+        notes: null,
+        progress: 0,
+        message: null,
+        storedPath: set.csvPath,
+        firstTimestamp: null,
+        lastTimestamp: null,
+        finishedAt: null,
       });
       await startImport(ds, scope, imp.id, set.csvMapping);
       log(`Importing ${set.plant.name} ${set.data.unit.name} (${set.data.hours.length.toLocaleString('en-US')} hourly rows)…`);

@@ -51,7 +51,13 @@ export async function signUp(ds: DataSource, mailer: Mailer, input: SignUpReques
       });
       await em.getRepository(Membership).save({ organisationId: organisation.id, userId: user.id, role: 'admin', clientGroupIds: null });
       await seedTypicalMethods(em, organisation.id);
-      await recordAudit(em, { organisationId: organisation.id, userId: user.id, action: 'organisation.created', entityType: 'organisation', entityId: organisation.id });
+      await recordAudit(em, {
+        organisationId: organisation.id,
+        userId: user.id,
+        action: 'organisation.created',
+        entityType: 'organisation',
+        entityId: organisation.id,
+      });
     });
   } catch (err) {
     // Two sign-ups for one new address at once: the second meets the unique index and is treated as existing.
@@ -123,7 +129,10 @@ export async function assertMemberOf(ds: DataSource, userId: string, organisatio
 
 export async function updateProfile(ds: DataSource, user: User, input: z.infer<typeof profileUpdate>): Promise<User> {
   const repo = ds.getRepository(User);
-  await repo.update({ id: user.id }, { ...(input.name !== undefined && { name: input.name }), ...(input.unitPreference && { unitPreference: input.unitPreference }) });
+  await repo.update(
+    { id: user.id },
+    { ...(input.name !== undefined && { name: input.name }), ...(input.unitPreference && { unitPreference: input.unitPreference }) },
+  );
   return repo.findOneByOrFail({ id: user.id });
 }
 

@@ -19,7 +19,9 @@ const view = (t: ApiToken): ApiTokenView => ({
 
 /** The caller's own live tokens in the active tenant. */
 export async function listApiTokens(ds: DataSource, scope: TenantScope): Promise<ApiTokenView[]> {
-  const rows = await ds.getRepository(ApiToken).find({ where: { organisationId: scope.organisationId, userId: scope.userId, revokedAt: IsNull() }, order: { createdAt: 'DESC' } });
+  const rows = await ds
+    .getRepository(ApiToken)
+    .find({ where: { organisationId: scope.organisationId, userId: scope.userId, revokedAt: IsNull() }, order: { createdAt: 'DESC' } });
   return rows.map(view);
 }
 
@@ -27,8 +29,23 @@ export async function listApiTokens(ds: DataSource, scope: TenantScope): Promise
 export async function createApiToken(ds: DataSource, scope: TenantScope, name: string): Promise<CreatedApiToken> {
   const { token, hash } = newSecretToken(API_TOKEN_PREFIX);
   return ds.transaction(async (em) => {
-    const saved = await em.getRepository(ApiToken).save({ organisationId: scope.organisationId, userId: scope.userId, name, prefix: token.slice(0, 10), tokenHash: hash, lastUsedAt: null, revokedAt: null });
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'api-token.created', entityType: 'api-token', entityId: saved.id, details: { name } });
+    const saved = await em.getRepository(ApiToken).save({
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      name,
+      prefix: token.slice(0, 10),
+      tokenHash: hash,
+      lastUsedAt: null,
+      revokedAt: null,
+    });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'api-token.created',
+      entityType: 'api-token',
+      entityId: saved.id,
+      details: { name },
+    });
     return { ...view(saved), token };
   });
 }
@@ -38,7 +55,14 @@ export async function revokeApiToken(ds: DataSource, scope: TenantScope, id: str
     const t = await em.getRepository(ApiToken).findOneBy({ id, organisationId: scope.organisationId, userId: scope.userId, revokedAt: IsNull() });
     if (!t) throw notFound('No such API token');
     await em.getRepository(ApiToken).update({ id }, { revokedAt: new Date() });
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'api-token.revoked', entityType: 'api-token', entityId: id, details: { name: t.name } });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'api-token.revoked',
+      entityType: 'api-token',
+      entityId: id,
+      details: { name: t.name },
+    });
   });
 }
 

@@ -15,7 +15,16 @@ export async function listAuditEvents(ds: DataSource, scope: TenantScope, q: z.i
     .getRepository(AuditEvent)
     .createQueryBuilder('a')
     .leftJoin(User, 'u', 'u.id = a.userId')
-    .select(['a.id AS id', 'a.createdAt AS createdAt', 'a.userId AS userId', 'u.name AS userName', 'a.action AS action', 'a.entityType AS entityType', 'a.entityId AS entityId', 'a.details AS details'])
+    .select([
+      'a.id AS id',
+      'a.createdAt AS createdAt',
+      'a.userId AS userId',
+      'u.name AS userName',
+      'a.action AS action',
+      'a.entityType AS entityType',
+      'a.entityId AS entityId',
+      'a.details AS details',
+    ])
     .where('a.organisationId = :org', { org: scope.organisationId })
     .orderBy('a.createdAt', 'DESC')
     .limit(q.limit);
@@ -27,7 +36,11 @@ export async function listAuditEvents(ds: DataSource, scope: TenantScope, q: z.i
   const rows = await qb.getRawMany();
   return rows.map((r) => ({
     id: r.id,
-    createdAt: new Date(`${String(r.createdAt instanceof Date ? r.createdAt.toISOString() : r.createdAt).replace(' ', 'T').replace(/Z?$/, 'Z')}`).toISOString(),
+    createdAt: new Date(
+      `${String(r.createdAt instanceof Date ? r.createdAt.toISOString() : r.createdAt)
+        .replace(' ', 'T')
+        .replace(/Z?$/, 'Z')}`,
+    ).toISOString(),
     userId: r.userId,
     userName: r.userName,
     action: r.action,

@@ -13,12 +13,14 @@ export interface AuditEntry {
 /** Written inside the same transaction as the change it records. */
 export async function recordAudit(em: EntityManager, entry: AuditEntry): Promise<void> {
   const repo = em.getRepository(AuditEvent);
-  await repo.save(repo.create({
-    organisationId: entry.organisationId,
-    userId: entry.userId,
-    action: entry.action,
-    entityType: entry.entityType,
-    entityId: entry.entityId ?? null,
-    details: entry.details ?? null,
-  }));
+  await repo.save(
+    repo.create({
+      organisationId: entry.organisationId,
+      userId: entry.userId,
+      action: entry.action,
+      entityType: entry.entityType,
+      entityId: entry.entityId ?? null,
+      details: entry.details ?? null,
+    }),
+  );
 }

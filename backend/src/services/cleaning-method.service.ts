@@ -56,10 +56,18 @@ export async function listMethods(ds: DataSource, scope: TenantScope): Promise<C
 }
 
 export async function createMethod(ds: DataSource, scope: TenantScope, m: CleaningMethod): Promise<CleaningMethodView> {
-  if (await ds.getRepository(CleaningMethodRecord).existsBy({ organisationId: scope.organisationId, methodKey: m.id })) throw new AppError(409, `A method with the id “${m.id}” exists already`);
+  if (await ds.getRepository(CleaningMethodRecord).existsBy({ organisationId: scope.organisationId, methodKey: m.id }))
+    throw new AppError(409, `A method with the id “${m.id}” exists already`);
   return ds.transaction(async (em) => {
     const saved = await em.getRepository(CleaningMethodRecord).save({ organisationId: scope.organisationId, ...columns(m) });
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'cleaning-method.created', entityType: 'cleaning-method', entityId: saved.id, details: { name: m.name } });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'cleaning-method.created',
+      entityType: 'cleaning-method',
+      entityId: saved.id,
+      details: { name: m.name },
+    });
     return view(saved);
   });
 }
@@ -71,7 +79,14 @@ export async function updateMethod(ds: DataSource, scope: TenantScope, recordId:
   if (clash && clash.id !== recordId) throw new AppError(409, `A method with the id “${m.id}” exists already`);
   return ds.transaction(async (em) => {
     await em.getRepository(CleaningMethodRecord).update({ id: recordId }, columns(m));
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'cleaning-method.updated', entityType: 'cleaning-method', entityId: recordId, details: { from: toMethod(existing), to: m } as unknown as Record<string, unknown> });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'cleaning-method.updated',
+      entityType: 'cleaning-method',
+      entityId: recordId,
+      details: { from: toMethod(existing), to: m } as unknown as Record<string, unknown>,
+    });
     return view(await em.getRepository(CleaningMethodRecord).findOneByOrFail({ id: recordId }));
   });
 }
@@ -81,6 +96,13 @@ export async function deleteMethod(ds: DataSource, scope: TenantScope, recordId:
   if (!existing) throw notFound('No such cleaning method');
   await ds.transaction(async (em) => {
     await em.getRepository(CleaningMethodRecord).delete({ id: recordId });
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'cleaning-method.deleted', entityType: 'cleaning-method', entityId: recordId, details: { name: existing.name } });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'cleaning-method.deleted',
+      entityType: 'cleaning-method',
+      entityId: recordId,
+      details: { name: existing.name },
+    });
   });
 }

@@ -28,7 +28,14 @@ export async function createGroup(ds: DataSource, scope: TenantScope, name: stri
   await assertNameFree(ds, scope.organisationId, name);
   return ds.transaction(async (em) => {
     const group = await em.getRepository(ClientGroup).save({ organisationId: scope.organisationId, name });
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'client-group.created', entityType: 'client-group', entityId: group.id, details: { name } });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'client-group.created',
+      entityType: 'client-group',
+      entityId: group.id,
+      details: { name },
+    });
     return view(group);
   });
 }
@@ -39,7 +46,14 @@ export async function renameGroup(ds: DataSource, scope: TenantScope, id: string
   await assertNameFree(ds, scope.organisationId, name, id);
   return ds.transaction(async (em) => {
     await em.getRepository(ClientGroup).update({ id, organisationId: scope.organisationId }, { name });
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'client-group.renamed', entityType: 'client-group', entityId: id, details: { from: group.name, to: name } });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'client-group.renamed',
+      entityType: 'client-group',
+      entityId: id,
+      details: { from: group.name, to: name },
+    });
     return view({ ...group, name });
   });
 }
@@ -49,13 +63,21 @@ export async function deleteGroup(ds: DataSource, scope: TenantScope, id: string
   const group = await findClientGroup(ds.manager, scope, id);
   if (!group) throw notFound('No such client group');
   // It rewrites limits and plants beyond any one group, so someone limited to groups may not do it.
-  if (scope.clientGroupIds !== null) throw forbidden('Deleting a client group changes people and plants in other groups: only members without a client-group limit can do it');
+  if (scope.clientGroupIds !== null)
+    throw forbidden('Deleting a client group changes people and plants in other groups: only members without a client-group limit can do it');
   await ds.transaction(async (em) => {
     const limited = await em.getRepository(Membership).findBy({ organisationId: scope.organisationId });
     for (const m of limited) {
       if (m.clientGroupIds?.includes(id)) await em.getRepository(Membership).update({ id: m.id }, { clientGroupIds: m.clientGroupIds.filter((g) => g !== id) });
     }
     await em.getRepository(ClientGroup).delete({ id, organisationId: scope.organisationId });
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'client-group.deleted', entityType: 'client-group', entityId: id, details: { name: group.name } });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'client-group.deleted',
+      entityType: 'client-group',
+      entityId: id,
+      details: { name: group.name },
+    });
   });
 }

@@ -49,7 +49,13 @@ function dailyColumns(u: Units, currency: string): Column[] {
     ['Day (plant local)', (d) => d.day],
     ['Points used', (d) => d.pointsUsed],
     ['Points left out', (d) => d.pointsDropped],
-    ['Left out by reason', (d) => Object.entries(d.droppedByReason ?? {}).map(([k, v]) => `${k}: ${v}`).join('; ')],
+    [
+      'Left out by reason',
+      (d) =>
+        Object.entries(d.droppedByReason ?? {})
+          .map(([k, v]) => `${k}: ${v}`)
+          .join('; '),
+    ],
     ['Cleanliness (median)', (d) => d.medianCleanliness],
     ['Cleanliness (fouling trend)', (d) => d.trendCleanliness],
     [`TTD (median) ${u.temperatureDifference.label}`, (d) => inUnit(d.medianTtdK, u.temperatureDifference)],
@@ -129,5 +135,9 @@ export async function exportUnitData(
   }
   const base = `${unit.name}-${q.dataset}`.replace(/[^A-Za-z0-9._-]+/g, '-');
   if (q.format === 'csv') return { fileName: `${base}.csv`, contentType: 'text/csv; charset=utf-8', body: toCsv(header, rows) };
-  return { fileName: `${base}.xlsx`, contentType: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet', body: await toXlsx(q.dataset, header, rows) };
+  return {
+    fileName: `${base}.xlsx`,
+    contentType: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
+    body: await toXlsx(q.dataset, header, rows),
+  };
 }

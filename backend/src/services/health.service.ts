@@ -10,7 +10,15 @@ import { addDays, daysBetween } from '@shared/domain/calendar/plant-date.js';
 import { plantDayFormatter } from '@shared/domain/calendar/plant-day.js';
 import { lttbKeepingGaps } from '@shared/domain/monitoring/index.js';
 import { MAX_SERIES_POINTS } from '@shared/limits.js';
-import { BREAKDOWN_CAUSES, samplesQuery, type DailyFigure, type HealthQuery, type HealthTrend, type SamplesResponse, type UnitHealthResponse } from '@shared/schemas/health.js';
+import {
+  BREAKDOWN_CAUSES,
+  samplesQuery,
+  type DailyFigure,
+  type HealthQuery,
+  type HealthTrend,
+  type SamplesResponse,
+  type UnitHealthResponse,
+} from '@shared/schemas/health.js';
 import { storedUnitAnalysis, type StoredUnitAnalysis } from '@shared/schemas/unit-analysis.js';
 import type { z } from 'zod';
 import type { TenantScope } from '../policies/tenant-scope.js';
@@ -54,7 +62,10 @@ export function breakdownByPeriod(days: DailyRow[], by: 'week' | 'month') {
   }
   return [...buckets.entries()].map(([bucket, rows]) => ({
     period: bucket,
-    ...(Object.fromEntries(BREAKDOWN_CAUSES.map((cause) => [cause, mean(rows.map((r) => r[cause]))])) as Record<(typeof BREAKDOWN_CAUSES)[number], number | null>),
+    ...(Object.fromEntries(BREAKDOWN_CAUSES.map((cause) => [cause, mean(rows.map((r) => r[cause]))])) as Record<
+      (typeof BREAKDOWN_CAUSES)[number],
+      number | null
+    >),
     meanExcessBackpressureKpa: mean(rows.map((r) => r.meanExcessBackpressureKpa)),
     foulingCost: sum(rows.map((r) => r.foulingCost)),
     unexplainedCost: sum(rows.map((r) => r.unexplainedCost)),
@@ -95,7 +106,14 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
       designModelKpa = expectedWithinBounds(
         () =>
           backpressureAtCleanlinessKpa({
-            geometry: { surfaceM2: c.surfaceM2, tubeCount: c.tubeCount, passes: c.passes, tubeOdMm: c.tubeOdMm, tubeBwg: c.tubeBwg, tubeMaterial: c.tubeMaterial },
+            geometry: {
+              surfaceM2: c.surfaceM2,
+              tubeCount: c.tubeCount,
+              passes: c.passes,
+              tubeOdMm: c.tubeOdMm,
+              tubeBwg: c.tubeBwg,
+              tubeMaterial: c.tubeMaterial,
+            },
             cwInletC: c.designCwInletC,
             cwFlowM3s: c.designCwFlowM3s,
             dutyMw: c.designDutyMw,
@@ -106,7 +124,9 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
         'the design point',
       );
     } catch {
-      warnings.push('The design point cannot be modelled with this setup: the model’s backpressure there lies outside the range a condenser may read. Check the design duty, CW flow, surface and tube count.');
+      warnings.push(
+        'The design point cannot be modelled with this setup: the model’s backpressure there lies outside the range a condenser may read. Check the design duty, CW flow, surface and tube count.',
+      );
     }
   }
 
@@ -115,7 +135,9 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
   let trendFit: HealthTrend | null = analysis?.cycles.at(-1) ?? null;
   if (lastDay && trendFit && trendFit.status === 'fitted' && (!to || to >= lastDay)) {
     const start = trendFit.startDay;
-    const points = withData.filter((d) => d.day >= start && !d.airLeakSuspected && d.medianCleanliness !== null).map((d) => ({ day: daysBetween(start, d.day), cleanliness: d.medianCleanliness! }));
+    const points = withData
+      .filter((d) => d.day >= start && !d.airLeakSuspected && d.medianCleanliness !== null)
+      .map((d) => ({ day: daysBetween(start, d.day), cleanliness: d.medianCleanliness! }));
     let fit: ReturnType<typeof fitFoulingTrend> | null = null;
     try {
       fit = fitFoulingTrend({ points, cleanlinessAfterCleaning: trendFit.cleanlinessAfterCleaning, forecastDays: 120 });
@@ -124,7 +146,9 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
     }
     if (fit?.status === 'fitted') {
       const lastOffset = daysBetween(start, lastDay);
-      forecast = fit.forecast.filter((f) => f.day > lastOffset).map((f) => ({ day: addDays(start, f.day), cleanliness: f.cleanliness, low: f.low, high: f.high }));
+      forecast = fit.forecast
+        .filter((f) => f.day > lastOffset)
+        .map((f) => ({ day: addDays(start, f.day), cleanliness: f.cleanliness, low: f.low, high: f.high }));
       trendFit = { ...trendFit, bandProbability: fit.bandProbability };
     }
   }
@@ -148,7 +172,15 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
       airLeakSuspected: d.airLeakSuspected,
     };
   });
-  const downsampled = series.length > MAX_SERIES_POINTS ? lttbKeepingGaps(series, MAX_SERIES_POINTS, (p) => Date.parse(p.day), (p) => p.cleanliness) : series;
+  const downsampled =
+    series.length > MAX_SERIES_POINTS
+      ? lttbKeepingGaps(
+          series,
+          MAX_SERIES_POINTS,
+          (p) => Date.parse(p.day),
+          (p) => p.cleanliness,
+        )
+      : series;
 
   const breakdown = breakdownByPeriod(period, q.breakdownBy);
 
@@ -168,7 +200,12 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
   const leaks = (analysis?.airLeakPeriods ?? []).filter((p) => (!from || p.to >= from) && (!to || p.from <= to));
   const econ = unit.economics;
   return {
-    unit: { id: unit.id, name: unit.name, plant: { id: plant.id, name: plant.name, timeZone: plant.timeZone }, setupComplete: !!(unit.condenser && unit.turbine && unit.economics) },
+    unit: {
+      id: unit.id,
+      name: unit.name,
+      plant: { id: plant.id, name: plant.name, timeZone: plant.timeZone },
+      setupComplete: !!(unit.condenser && unit.turbine && unit.economics),
+    },
     period: { from: from ?? null, to: to ?? null, breakdownBy: q.breakdownBy },
     analysedAt: analysis?.computedAt ?? null,
     headline: {
@@ -181,7 +218,9 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
       foulingCostPerDay: mean(lastWeek.map((d) => d.foulingCost)),
       unexplainedCostPerDay: mean(lastWeek.map((d) => d.unexplainedCost)),
       foulingCostSinceCleaning: sinceCleaning.length ? sum(sinceCleaning.map((d) => d.foulingCost)) : null,
-      lastCleaning: lastCleaning ? { date: lastCleaning.endDate ?? lastCleaning.startDate, notes: lastCleaning.notes, cleanlinessAfter: lastCleaning.cleanlinessAfter } : null,
+      lastCleaning: lastCleaning
+        ? { date: lastCleaning.endDate ?? lastCleaning.startDate, notes: lastCleaning.notes, cleanlinessAfter: lastCleaning.cleanlinessAfter }
+        : null,
       lastSampleUtc,
       nextCleaning: analysis?.outlook ?? null,
       averagingNote: 'Cleanliness is the last day’s median; backpressure excess and costs are means of the last 7 days with valid data.',
@@ -189,7 +228,13 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
         ? `Fuel${econ.co2PricePerTonne > 0 ? ' and CO2' : ''} with load held for ${Math.round((1 - econ.capacityLimitedShare) * 100)} % of hours; replacement power with firing held for ${Math.round(econ.capacityLimitedShare * 100)} %.`
         : null,
     },
-    design: c ? { datasheetBackpressureKpa: c.designBackpressureKpa, modelBackpressureKpa: designModelKpa, modelOffsetKpa: designModelKpa === null ? null : designModelKpa - c.designBackpressureKpa } : null,
+    design: c
+      ? {
+          datasheetBackpressureKpa: c.designBackpressureKpa,
+          modelBackpressureKpa: designModelKpa,
+          modelOffsetKpa: designModelKpa === null ? null : designModelKpa - c.designBackpressureKpa,
+        }
+      : null,
     trend: trendFit,
     forecast,
     series: downsampled,

@@ -66,7 +66,8 @@ export const findImport = (ds: DataSource, scope: TenantScope, importId: string)
   foundInScope(findImportInScope(ds.manager, scope, importId), 'No such import');
 
 /** The unit an upload goes to, checked before a byte of the file is stored. */
-export const unitForUpload = (ds: DataSource, scope: TenantScope, unitId: string): Promise<GeneratingUnit> => foundInScope(findUnit(ds.manager, scope, unitId), 'No such unit');
+export const unitForUpload = (ds: DataSource, scope: TenantScope, unitId: string): Promise<GeneratingUnit> =>
+  foundInScope(findUnit(ds.manager, scope, unitId), 'No such unit');
 
 /** Stores the upload, reads its header and first rows, and proposes a mapping (the unit's saved one when it fits). */
 export async function receiveUpload(ds: DataSource, scope: TenantScope, unitId: string, file: UploadedFile) {
@@ -129,7 +130,14 @@ export async function startImport(ds: DataSource, scope: TenantScope, importId: 
     await em.getRepository(DataImport).update({ id: imp.id }, { status: 'checking', mapping: parsed.data, progress: 0, message: 'Waiting to start' });
     await em.getRepository(GeneratingUnit).update({ id: imp.unitId }, { savedMapping: parsed.data });
     await enqueueJob(em, { organisationId: imp.organisationId, unitId: imp.unitId, kind: 'import', payload: { importId: imp.id } });
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'import.started', entityType: 'import', entityId: imp.id, details: { fileName: imp.fileName } });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'import.started',
+      entityType: 'import',
+      entityId: imp.id,
+      details: { fileName: imp.fileName },
+    });
   });
   return importView(await ds.getRepository(DataImport).findOneByOrFail({ id: imp.id }));
 }
@@ -155,7 +163,14 @@ export async function undoImport(ds: DataSource, scope: TenantScope, importId: s
     await deleteSamplesOfImport(em, imp.id);
     await em.getRepository(DataImport).update({ id: imp.id }, { status: 'undone', message: 'Undone: its rows were removed', finishedAt: new Date() });
     await enqueueRecompute(em, imp.organisationId, imp.unitId, 'import undone');
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'import.undone', entityType: 'import', entityId: imp.id, details: { fileName: imp.fileName } });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'import.undone',
+      entityType: 'import',
+      entityId: imp.id,
+      details: { fileName: imp.fileName },
+    });
   });
   if (imp.storedPath) await rm(imp.storedPath, { force: true });
   return importView(await ds.getRepository(DataImport).findOneByOrFail({ id: imp.id }));

@@ -28,7 +28,14 @@ const view = (i: Invitation): InvitationView => ({
   createdAt: i.createdAt.toISOString(),
 });
 
-export async function invite(ds: DataSource, mailer: Mailer, scope: TenantScope, inviterName: string, input: InviteRequest, baseUrl: string): Promise<InvitationView> {
+export async function invite(
+  ds: DataSource,
+  mailer: Mailer,
+  scope: TenantScope,
+  inviterName: string,
+  input: InviteRequest,
+  baseUrl: string,
+): Promise<InvitationView> {
   const { token, hash } = newSecretToken();
   const expiresAt = new Date(Date.now() + LIFETIME_MS);
   assertMayGrant(scope, input.clientGroupIds);
@@ -52,11 +59,25 @@ export async function invite(ds: DataSource, mailer: Mailer, scope: TenantScope,
       expiresAt,
       acceptedAt: null,
     });
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'invitation.sent', entityType: 'invitation', entityId: invitation.id, details: { email: input.email, role: input.role } });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'invitation.sent',
+      entityType: 'invitation',
+      entityId: invitation.id,
+      details: { email: input.email, role: input.role },
+    });
     return { invitation, organisation };
   });
   await mailer.send(
-    invitationMail({ to: input.email, organisationName: organisation.name, inviterName, role: input.role, link: `${baseUrl}/invitation?token=${encodeURIComponent(token)}`, expiresAt }),
+    invitationMail({
+      to: input.email,
+      organisationName: organisation.name,
+      inviterName,
+      role: input.role,
+      link: `${baseUrl}/invitation?token=${encodeURIComponent(token)}`,
+      expiresAt,
+    }),
   );
   return view(invitation);
 }
@@ -74,7 +95,14 @@ export async function revokeInvitation(ds: DataSource, scope: TenantScope, id: s
     const inv = await em.getRepository(Invitation).findOneBy({ id, organisationId: scope.organisationId, acceptedAt: IsNull() });
     if (!inv || !coversClientGroups(scope, inv.clientGroupIds)) throw notFound('No such invitation');
     await em.getRepository(Invitation).delete({ id: inv.id });
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'invitation.revoked', entityType: 'invitation', entityId: inv.id, details: { email: inv.email } });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'invitation.revoked',
+      entityType: 'invitation',
+      entityId: inv.id,
+      details: { email: inv.email },
+    });
   });
 }
 
@@ -128,7 +156,14 @@ export async function acceptInvitation(
       await em.getRepository(Membership).save({ organisationId: inv.organisationId, userId: user.id, role: inv.role, clientGroupIds: inv.clientGroupIds });
     }
     await em.getRepository(Invitation).update({ id: inv.id }, { acceptedAt: new Date() });
-    await recordAudit(em, { organisationId: inv.organisationId, userId: user.id, action: 'invitation.accepted', entityType: 'invitation', entityId: inv.id, details: { email: inv.email, role: inv.role } });
+    await recordAudit(em, {
+      organisationId: inv.organisationId,
+      userId: user.id,
+      action: 'invitation.accepted',
+      entityType: 'invitation',
+      entityId: inv.id,
+      details: { email: inv.email, role: inv.role },
+    });
     return { user, organisationId: inv.organisationId };
   });
 }

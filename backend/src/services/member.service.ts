@@ -13,7 +13,15 @@ export async function listMembers(ds: DataSource, scope: TenantScope): Promise<M
     .getRepository(Membership)
     .createQueryBuilder('m')
     .innerJoin(User, 'u', 'u.id = m.userId')
-    .select(['m.id AS membershipId', 'm.userId AS userId', 'u.name AS name', 'u.email AS email', 'm.role AS role', 'm.clientGroupIds AS clientGroupIds', 'm.createdAt AS joinedAt'])
+    .select([
+      'm.id AS membershipId',
+      'm.userId AS userId',
+      'u.name AS name',
+      'u.email AS email',
+      'm.role AS role',
+      'm.clientGroupIds AS clientGroupIds',
+      'm.createdAt AS joinedAt',
+    ])
     .where('m.organisationId = :org', { org: scope.organisationId })
     .orderBy('u.name', 'ASC')
     .getRawMany();
@@ -77,6 +85,13 @@ export async function removeMember(ds: DataSource, scope: TenantScope, membershi
     const m = await lockedMembership(em, scope, membershipId);
     if (m.role === 'admin' && m.clientGroupIds === null) await assertAnotherAdminRemains(em, scope.organisationId, m.id);
     await em.getRepository(Membership).delete({ id: m.id });
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'member.removed', entityType: 'membership', entityId: m.id, details: { userId: m.userId, role: m.role } });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'member.removed',
+      entityType: 'membership',
+      entityId: m.id,
+      details: { userId: m.userId, role: m.role },
+    });
   });
 }

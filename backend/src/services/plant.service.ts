@@ -54,10 +54,18 @@ async function assertGroupUsable(ds: DataSource, scope: TenantScope, clientGroup
 
 export async function createPlant(ds: DataSource, scope: TenantScope, input: PlantInput): Promise<PlantView> {
   await assertGroupUsable(ds, scope, input.clientGroupId);
-  if (await ds.getRepository(Plant).existsBy({ organisationId: scope.organisationId, name: input.name })) throw new AppError(409, `A plant named “${input.name}” exists already`);
+  if (await ds.getRepository(Plant).existsBy({ organisationId: scope.organisationId, name: input.name }))
+    throw new AppError(409, `A plant named “${input.name}” exists already`);
   const plant = await ds.transaction(async (em) => {
     const saved = await em.getRepository(Plant).save({ organisationId: scope.organisationId, ...input });
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'plant.created', entityType: 'plant', entityId: saved.id, details: { name: input.name } });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'plant.created',
+      entityType: 'plant',
+      entityId: saved.id,
+      details: { name: input.name },
+    });
     return saved;
   });
   return { id: plant.id, name: plant.name, timeZone: plant.timeZone, clientGroupId: plant.clientGroupId, units: [] };
@@ -70,7 +78,14 @@ export async function updatePlant(ds: DataSource, scope: TenantScope, id: string
   if (clash && clash.id !== id) throw new AppError(409, `A plant named “${input.name}” exists already`);
   await ds.transaction(async (em) => {
     await em.getRepository(Plant).update({ id, organisationId: scope.organisationId }, input);
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'plant.updated', entityType: 'plant', entityId: id, details: { from: { name: plant.name, timeZone: plant.timeZone, clientGroupId: plant.clientGroupId }, to: input } });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'plant.updated',
+      entityType: 'plant',
+      entityId: id,
+      details: { from: { name: plant.name, timeZone: plant.timeZone, clientGroupId: plant.clientGroupId }, to: input },
+    });
   });
   return getPlant(ds, { ...scope, clientGroupIds: null }, id);
 }
@@ -79,20 +94,39 @@ export async function deletePlant(ds: DataSource, scope: TenantScope, id: string
   const plant = await foundInScope(findPlant(ds.manager, scope, id), 'No such plant');
   await ds
     .transaction(async (em) => {
-      const unitIds = (await em.getRepository(GeneratingUnit).find({ where: { plantId: id, organisationId: scope.organisationId }, select: { id: true } })).map((u) => u.id);
+      const unitIds = (await em.getRepository(GeneratingUnit).find({ where: { plantId: id, organisationId: scope.organisationId }, select: { id: true } })).map(
+        (u) => u.id,
+      );
       const draftCasesDeleted = await dropDraftCasesOrRefuse(em, scope.organisationId, unitIds, 'plant');
       await em.getRepository(Plant).delete({ id, organisationId: scope.organisationId });
-      await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'plant.deleted', entityType: 'plant', entityId: id, details: { name: plant.name, ...(draftCasesDeleted.length ? { draftCasesDeleted } : {}) } });
+      await recordAudit(em, {
+        organisationId: scope.organisationId,
+        userId: scope.userId,
+        action: 'plant.deleted',
+        entityType: 'plant',
+        entityId: id,
+        details: { name: plant.name, ...(draftCasesDeleted.length ? { draftCasesDeleted } : {}) },
+      });
     })
     .catch(refuseWhileCasesRemain('plant'));
 }
 
 export async function createUnit(ds: DataSource, scope: TenantScope, plantId: string, input: z.infer<typeof unitInput>) {
   const plant = await foundInScope(findPlant(ds.manager, scope, plantId), 'No such plant');
-  if (await ds.getRepository(GeneratingUnit).existsBy({ plantId, name: input.name })) throw new AppError(409, `${plant.name} has a unit named “${input.name}” already`);
+  if (await ds.getRepository(GeneratingUnit).existsBy({ plantId, name: input.name }))
+    throw new AppError(409, `${plant.name} has a unit named “${input.name}” already`);
   return ds.transaction(async (em) => {
-    const unit = await em.getRepository(GeneratingUnit).save({ organisationId: scope.organisationId, plantId, name: input.name, condenser: null, turbine: null, economics: null, savedMapping: null });
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'unit.created', entityType: 'unit', entityId: unit.id, details: { name: input.name, plant: plant.name } });
+    const unit = await em
+      .getRepository(GeneratingUnit)
+      .save({ organisationId: scope.organisationId, plantId, name: input.name, condenser: null, turbine: null, economics: null, savedMapping: null });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'unit.created',
+      entityType: 'unit',
+      entityId: unit.id,
+      details: { name: input.name, plant: plant.name },
+    });
     return unit;
   });
 }
@@ -103,7 +137,14 @@ export async function renameUnit(ds: DataSource, scope: TenantScope, id: string,
   if (clash && clash.id !== id) throw new AppError(409, `This plant has a unit named “${input.name}” already`);
   await ds.transaction(async (em) => {
     await em.getRepository(GeneratingUnit).update({ id, organisationId: scope.organisationId }, { name: input.name });
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'unit.renamed', entityType: 'unit', entityId: id, details: { from: unit.name, to: input.name } });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'unit.renamed',
+      entityType: 'unit',
+      entityId: id,
+      details: { from: unit.name, to: input.name },
+    });
   });
   return { ...unit, name: input.name };
 }
@@ -114,7 +155,14 @@ export async function deleteUnit(ds: DataSource, scope: TenantScope, id: string)
     .transaction(async (em) => {
       const draftCasesDeleted = await dropDraftCasesOrRefuse(em, scope.organisationId, [id], 'unit');
       await em.getRepository(GeneratingUnit).delete({ id, organisationId: scope.organisationId });
-      await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'unit.deleted', entityType: 'unit', entityId: id, details: { name: unit.name, ...(draftCasesDeleted.length ? { draftCasesDeleted } : {}) } });
+      await recordAudit(em, {
+        organisationId: scope.organisationId,
+        userId: scope.userId,
+        action: 'unit.deleted',
+        entityType: 'unit',
+        entityId: id,
+        details: { name: unit.name, ...(draftCasesDeleted.length ? { draftCasesDeleted } : {}) },
+      });
     })
     .catch(refuseWhileCasesRemain('unit'));
 }

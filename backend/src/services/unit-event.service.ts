@@ -60,12 +60,20 @@ export async function addEvent(ds: DataSource, scope: TenantScope, unitId: strin
       createdByUserId: scope.userId,
     });
     if (changesDerivedData(input.kind)) await enqueueRecompute(em, scope.organisationId, unitId, `${input.kind} recorded`);
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'event.added', entityType: 'unit-event', entityId: saved.id, details: { kind: input.kind, startDate: input.startDate } });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'event.added',
+      entityType: 'unit-event',
+      entityId: saved.id,
+      details: { kind: input.kind, startDate: input.startDate },
+    });
     return eventView(saved);
   });
 }
 
-const eventInScope = (ds: DataSource, scope: TenantScope, id: string): Promise<UnitEvent> => foundInScope(findEventInScope(ds.manager, scope, id), 'No such event');
+const eventInScope = (ds: DataSource, scope: TenantScope, id: string): Promise<UnitEvent> =>
+  foundInScope(findEventInScope(ds.manager, scope, id), 'No such event');
 
 export async function updateEvent(ds: DataSource, scope: TenantScope, id: string, input: UnitEventInput): Promise<UnitEventView> {
   const e = await eventInScope(ds, scope, id);
@@ -73,7 +81,14 @@ export async function updateEvent(ds: DataSource, scope: TenantScope, id: string
     await assertMethodInLibrary(em, scope, input.methodId);
     await em.getRepository(UnitEvent).update({ id }, { ...input, cost: input.cost === null ? null : input.cost.toFixed(2) });
     if (changesDerivedData(e.kind) || changesDerivedData(input.kind)) await enqueueRecompute(em, scope.organisationId, e.unitId, 'event changed');
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'event.updated', entityType: 'unit-event', entityId: id, details: { kind: input.kind } });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'event.updated',
+      entityType: 'unit-event',
+      entityId: id,
+      details: { kind: input.kind },
+    });
     return eventView(await em.getRepository(UnitEvent).findOneByOrFail({ id }));
   });
 }
@@ -83,6 +98,13 @@ export async function deleteEvent(ds: DataSource, scope: TenantScope, id: string
   await ds.transaction(async (em) => {
     await em.getRepository(UnitEvent).delete({ id });
     if (changesDerivedData(e.kind)) await enqueueRecompute(em, scope.organisationId, e.unitId, 'event deleted');
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: 'event.deleted', entityType: 'unit-event', entityId: id, details: { kind: e.kind, startDate: e.startDate } });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: 'event.deleted',
+      entityType: 'unit-event',
+      entityId: id,
+      details: { kind: e.kind, startDate: e.startDate },
+    });
   });
 }

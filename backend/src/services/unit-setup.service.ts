@@ -26,17 +26,38 @@ export async function unitDetail(ds: DataSource, scope: TenantScope, id: string)
     setupVersion: unit.setupVersion,
     setupComplete: !!(unit.condenser && unit.turbine && unit.economics),
     samples,
-    jobs: jobs.map((j) => ({ id: j.id, kind: j.kind, status: j.status, progress: j.progress, message: j.message, createdAt: j.createdAt.toISOString(), finishedAt: j.finishedAt?.toISOString() ?? null })),
+    jobs: jobs.map((j) => ({
+      id: j.id,
+      kind: j.kind,
+      status: j.status,
+      progress: j.progress,
+      message: j.message,
+      createdAt: j.createdAt.toISOString(),
+      finishedAt: j.finishedAt?.toISOString() ?? null,
+    })),
   };
 }
 
 /** Saves one part of the setup; derived data is recomputed in the background. */
-export async function saveSetupPart(ds: DataSource, scope: TenantScope, id: string, part: SetupPart, value: CondenserSetup | TurbineSetup | EconomicsSetup): Promise<UnitDetail> {
+export async function saveSetupPart(
+  ds: DataSource,
+  scope: TenantScope,
+  id: string,
+  part: SetupPart,
+  value: CondenserSetup | TurbineSetup | EconomicsSetup,
+): Promise<UnitDetail> {
   const unit = await foundInScope(findUnit(ds.manager, scope, id), 'No such unit');
   await ds.transaction(async (em) => {
     await em.getRepository(GeneratingUnit).update({ id, organisationId: scope.organisationId }, { [part]: value, setupVersion: unit.setupVersion + 1 });
     await enqueueRecompute(em, scope.organisationId, id, `${part} setup changed`);
-    await recordAudit(em, { organisationId: scope.organisationId, userId: scope.userId, action: `unit.${part}-saved`, entityType: 'unit', entityId: id, details: { from: unit[part], to: value } as Record<string, unknown> });
+    await recordAudit(em, {
+      organisationId: scope.organisationId,
+      userId: scope.userId,
+      action: `unit.${part}-saved`,
+      entityType: 'unit',
+      entityId: id,
+      details: { from: unit[part], to: value } as Record<string, unknown>,
+    });
   });
   return unitDetail(ds, scope, id);
 }

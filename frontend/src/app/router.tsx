@@ -66,15 +66,67 @@ function toDataPage({ params, request }: LoaderFunctionArgs) {
 }
 
 const router = createBrowserRouter([
-  { path: '/sign-in', handle: { title: 'Sign in' }, lazy: page(() => import('./routes/sign-in'), (m) => m.SignInPage), errorElement: <RouteErrorPage /> },
-  { path: '/sign-up', handle: { title: 'Create an account' }, lazy: page(() => import('./routes/sign-up'), (m) => m.SignUpPage), errorElement: <RouteErrorPage /> },
-  { path: '/forgot-password', handle: { title: 'Forgotten password' }, lazy: page(() => import('./routes/forgot-password'), (m) => m.ForgotPasswordPage), errorElement: <RouteErrorPage /> },
-  { path: '/reset-password', handle: { title: 'New password' }, lazy: page(() => import('./routes/reset-password'), (m) => m.ResetPasswordPage), errorElement: <RouteErrorPage /> },
-  { path: '/confirm-address', handle: { title: 'Confirm your address' }, lazy: page(() => import('./routes/confirm-address'), (m) => m.ConfirmAddressPage), errorElement: <RouteErrorPage /> },
-  { path: '/api-reference', handle: { title: 'API reference' }, lazy: page(() => import('./routes/api-reference'), (m) => m.ApiReferencePage), errorElement: <RouteErrorPage /> },
   {
-    path: '/invitation', handle: { title: 'Invitation' },
-    lazy: page(() => import('./routes/invitation'), (m) => m.InvitationPage),
+    path: '/sign-in',
+    handle: { title: 'Sign in' },
+    lazy: page(
+      () => import('./routes/sign-in'),
+      (m) => m.SignInPage,
+    ),
+    errorElement: <RouteErrorPage />,
+  },
+  {
+    path: '/sign-up',
+    handle: { title: 'Create an account' },
+    lazy: page(
+      () => import('./routes/sign-up'),
+      (m) => m.SignUpPage,
+    ),
+    errorElement: <RouteErrorPage />,
+  },
+  {
+    path: '/forgot-password',
+    handle: { title: 'Forgotten password' },
+    lazy: page(
+      () => import('./routes/forgot-password'),
+      (m) => m.ForgotPasswordPage,
+    ),
+    errorElement: <RouteErrorPage />,
+  },
+  {
+    path: '/reset-password',
+    handle: { title: 'New password' },
+    lazy: page(
+      () => import('./routes/reset-password'),
+      (m) => m.ResetPasswordPage,
+    ),
+    errorElement: <RouteErrorPage />,
+  },
+  {
+    path: '/confirm-address',
+    handle: { title: 'Confirm your address' },
+    lazy: page(
+      () => import('./routes/confirm-address'),
+      (m) => m.ConfirmAddressPage,
+    ),
+    errorElement: <RouteErrorPage />,
+  },
+  {
+    path: '/api-reference',
+    handle: { title: 'API reference' },
+    lazy: page(
+      () => import('./routes/api-reference'),
+      (m) => m.ApiReferencePage,
+    ),
+    errorElement: <RouteErrorPage />,
+  },
+  {
+    path: '/invitation',
+    handle: { title: 'Invitation' },
+    lazy: page(
+      () => import('./routes/invitation'),
+      (m) => m.InvitationPage,
+    ),
     errorElement: <RouteErrorPage />,
     hydrateFallbackElement: <FirstLoad />,
     loader: async ({ request }) => {
@@ -84,8 +136,12 @@ const router = createBrowserRouter([
     },
   },
   {
-    path: '/cases/:caseId/print', handle: { title: 'Case for printing' },
-    lazy: page(() => import('./routes/case-print'), (m) => m.CasePrintPage),
+    path: '/cases/:caseId/print',
+    handle: { title: 'Case for printing' },
+    lazy: page(
+      () => import('./routes/case-print'),
+      (m) => m.CasePrintPage,
+    ),
     errorElement: <RouteErrorPage />,
     hydrateFallbackElement: <FirstLoad />,
     loader: async (args) => {
@@ -94,8 +150,12 @@ const router = createBrowserRouter([
     },
   },
   {
-    path: '/mailbox', handle: { title: 'Local mailbox' },
-    lazy: page(() => import('./routes/mailbox'), (m) => m.MailboxPage),
+    path: '/mailbox',
+    handle: { title: 'Local mailbox' },
+    lazy: page(
+      () => import('./routes/mailbox'),
+      (m) => m.MailboxPage,
+    ),
     errorElement: <RouteErrorPage />,
     hydrateFallbackElement: <FirstLoad />,
     loader: async () => {
@@ -111,79 +171,191 @@ const router = createBrowserRouter([
     errorElement: <RouteErrorPage />,
     hydrateFallbackElement: <FirstLoad />,
     children: [
-      { index: true, handle: { title: 'Overview' }, lazy: page(() => import('./routes/overview'), (m) => m.OverviewPage) },
-      { path: 'cases', handle: { title: 'Cases' }, lazy: page(() => import('./routes/cases'), (m) => m.CasesPage) },
       {
-        path: 'cases/:caseId', handle: { title: 'Case' },
-        lazy: page(() => import('./routes/case'), (m) => m.CasePage),
+        index: true,
+        handle: { title: 'Overview' },
+        lazy: page(
+          () => import('./routes/overview'),
+          (m) => m.OverviewPage,
+        ),
+      },
+      {
+        path: 'cases',
+        handle: { title: 'Cases' },
+        lazy: page(
+          () => import('./routes/cases'),
+          (m) => m.CasesPage,
+        ),
+      },
+      {
+        path: 'cases/:caseId',
+        handle: { title: 'Case' },
+        lazy: page(
+          () => import('./routes/case'),
+          (m) => m.CasePage,
+        ),
         loader: tenantLoader('data.read', (org, { params }) => [prefetch(caseQueryOptions(org, params.caseId ?? ''))]),
       },
       {
-        path: 'plants', handle: { title: 'Plants' },
-        lazy: page(() => import('./routes/plants'), (m) => m.PlantsPage),
+        path: 'plants',
+        handle: { title: 'Plants' },
+        lazy: page(
+          () => import('./routes/plants'),
+          (m) => m.PlantsPage,
+        ),
         loader: tenantLoader('data.read', (org) => [prefetch(plantsQueryOptions(org)), prefetch(clientGroupsQueryOptions(org))]),
       },
       {
         path: 'plants/:plantId',
         handle: { title: 'Plant' },
-        lazy: page(() => import('./routes/plant'), (m) => m.PlantPage),
+        lazy: page(
+          () => import('./routes/plant'),
+          (m) => m.PlantPage,
+        ),
         loader: tenantLoader('data.read', (org) => [prefetch(plantsQueryOptions(org))]),
       },
       {
-        path: 'units/:unitId', handle: { title: 'Unit' },
-        lazy: page(() => import('./routes/unit-layout'), (m) => m.UnitLayout),
+        path: 'units/:unitId',
+        handle: { title: 'Unit' },
+        lazy: page(
+          () => import('./routes/unit-layout'),
+          (m) => m.UnitLayout,
+        ),
         loader: tenantLoader('data.read', (org, { params }) => [prefetch(unitQueryOptions(org, params.unitId ?? ''))]),
         children: [
           {
             index: true,
             handle: { title: 'Condition and cost' },
-            lazy: page(() => import('./routes/unit-overview'), (m) => m.UnitOverviewPage),
+            lazy: page(
+              () => import('./routes/unit-overview'),
+              (m) => m.UnitOverviewPage,
+            ),
             // The health figures for the period in the address load alongside the page's code.
             loader: tenantLoader('data.read', (org, { params, request }) => [
               appQueryClient
                 .ensureQueryData(unitQueryOptions(org, params.unitId ?? ''))
                 .then((unit) =>
                   prefetch(
-                    healthQueryOptions(org, unit.id, healthQueryFor(new URL(request.url).searchParams, { timeZone: unit.plant.timeZone, firstSampleUtc: unit.samples.first, lastSampleUtc: unit.samples.last })),
+                    healthQueryOptions(
+                      org,
+                      unit.id,
+                      healthQueryFor(new URL(request.url).searchParams, {
+                        timeZone: unit.plant.timeZone,
+                        firstSampleUtc: unit.samples.first,
+                        lastSampleUtc: unit.samples.last,
+                      }),
+                    ),
                   ),
                 )
                 .catch(() => undefined),
             ]),
           },
-          { path: 'setup', handle: { title: 'Setup' }, lazy: page(() => import('./routes/unit-setup'), (m) => m.UnitSetupPage) },
-          { path: 'data', handle: { title: 'Data files' }, lazy: page(() => import('./routes/unit-data'), (m) => m.UnitDataPage), loader: tenantLoader('data.read', (org, { params }) => [prefetch(unitImportsQueryOptions(org, params.unitId ?? ''))]) },
+          {
+            path: 'setup',
+            handle: { title: 'Setup' },
+            lazy: page(
+              () => import('./routes/unit-setup'),
+              (m) => m.UnitSetupPage,
+            ),
+          },
+          {
+            path: 'data',
+            handle: { title: 'Data files' },
+            lazy: page(
+              () => import('./routes/unit-data'),
+              (m) => m.UnitDataPage,
+            ),
+            loader: tenantLoader('data.read', (org, { params }) => [prefetch(unitImportsQueryOptions(org, params.unitId ?? ''))]),
+          },
           // the unit's upload and its import history were two pages once; scripts and bookmarks may still use those addresses
           { path: 'import', loader: toDataPage },
           { path: 'imports', loader: toDataPage },
-          { path: 'events', handle: { title: 'Events' }, lazy: page(() => import('./routes/unit-events'), (m) => m.UnitEventsPage), loader: tenantLoader('data.read', (org, { params }) => [prefetch(eventsQueryOptions(org, params.unitId ?? '')), prefetch(cleaningMethodsQueryOptions(org))]) },
-          { path: 'cases', handle: { title: 'Cases' }, lazy: page(() => import('./routes/cases-of-unit'), (m) => m.UnitCasesPage) },
+          {
+            path: 'events',
+            handle: { title: 'Events' },
+            lazy: page(
+              () => import('./routes/unit-events'),
+              (m) => m.UnitEventsPage,
+            ),
+            loader: tenantLoader('data.read', (org, { params }) => [
+              prefetch(eventsQueryOptions(org, params.unitId ?? '')),
+              prefetch(cleaningMethodsQueryOptions(org)),
+            ]),
+          },
+          {
+            path: 'cases',
+            handle: { title: 'Cases' },
+            lazy: page(
+              () => import('./routes/cases-of-unit'),
+              (m) => m.UnitCasesPage,
+            ),
+          },
         ],
       },
       {
-        path: 'settings', handle: { title: 'Settings' },
-        lazy: page(() => import('./routes/settings-layout'), (m) => m.SettingsLayout),
+        path: 'settings',
+        handle: { title: 'Settings' },
+        lazy: page(
+          () => import('./routes/settings-layout'),
+          (m) => m.SettingsLayout,
+        ),
         children: [
           { index: true, element: <Navigate to="/settings/profile" replace /> },
-          { path: 'profile', handle: { title: 'Your profile' }, lazy: page(() => import('./routes/settings-profile'), (m) => m.ProfileSettingsPage) },
           {
-            path: 'members', handle: { title: 'Members' },
-            lazy: page(() => import('./routes/settings-members'), (m) => m.MembersSettingsPage),
+            path: 'profile',
+            handle: { title: 'Your profile' },
+            lazy: page(
+              () => import('./routes/settings-profile'),
+              (m) => m.ProfileSettingsPage,
+            ),
+          },
+          {
+            path: 'members',
+            handle: { title: 'Members' },
+            lazy: page(
+              () => import('./routes/settings-members'),
+              (m) => m.MembersSettingsPage,
+            ),
             loader: tenantLoader('members.manage', (org) => [
               prefetch(membersQueryOptions(org)),
               prefetch(invitationsQueryOptions(org)),
               prefetch(clientGroupsQueryOptions(org)),
             ]),
           },
-          { path: 'client-groups', handle: { title: 'Client groups' }, lazy: page(() => import('./routes/settings-client-groups'), (m) => m.ClientGroupsSettingsPage), loader: tenantLoader('data.read', (org) => [prefetch(clientGroupsQueryOptions(org))]) },
           {
-            path: 'cleaning-methods', handle: { title: 'Cleaning methods' },
-            lazy: page(() => import('./routes/settings-cleaning-methods'), (m) => m.CleaningMethodsSettingsPage),
+            path: 'client-groups',
+            handle: { title: 'Client groups' },
+            lazy: page(
+              () => import('./routes/settings-client-groups'),
+              (m) => m.ClientGroupsSettingsPage,
+            ),
+            loader: tenantLoader('data.read', (org) => [prefetch(clientGroupsQueryOptions(org))]),
+          },
+          {
+            path: 'cleaning-methods',
+            handle: { title: 'Cleaning methods' },
+            lazy: page(
+              () => import('./routes/settings-cleaning-methods'),
+              (m) => m.CleaningMethodsSettingsPage,
+            ),
             loader: tenantLoader('data.read', (org) => [prefetch(cleaningMethodsQueryOptions(org))]),
           },
-          { path: 'api-tokens', handle: { title: 'API tokens' }, lazy: page(() => import('./routes/settings-api-tokens'), (m) => m.ApiTokensSettingsPage), loader: tenantLoader('calc.use', (org) => [prefetch(apiTokensQueryOptions(org))]) },
           {
-            path: 'audit', handle: { title: 'Audit log' },
-            lazy: page(() => import('./routes/settings-audit'), (m) => m.AuditSettingsPage),
+            path: 'api-tokens',
+            handle: { title: 'API tokens' },
+            lazy: page(
+              () => import('./routes/settings-api-tokens'),
+              (m) => m.ApiTokensSettingsPage,
+            ),
+            loader: tenantLoader('calc.use', (org) => [prefetch(apiTokensQueryOptions(org))]),
+          },
+          {
+            path: 'audit',
+            handle: { title: 'Audit log' },
+            lazy: page(
+              () => import('./routes/settings-audit'),
+              (m) => m.AuditSettingsPage,
+            ),
             loader: tenantLoader('audit.read', (org, { request }) => [
               prefetch(auditEventsQueryOptions(org, auditFiltersFrom(new URL(request.url).searchParams))),
               prefetch(auditEventsQueryOptions(org, {})),

@@ -59,15 +59,37 @@ export function gapShapes(points: { x: number; actual: number | null; expected: 
     const db = b.actual - b.expected;
     if (da === 0 && db === 0) continue;
     if (da * db >= 0) {
-      out.push({ side: da + db > 0 ? 'above' : 'below', points: [[a.x, a.actual], [b.x, b.actual], [b.x, b.expected], [a.x, a.expected]] });
+      out.push({
+        side: da + db > 0 ? 'above' : 'below',
+        points: [
+          [a.x, a.actual],
+          [b.x, b.actual],
+          [b.x, b.expected],
+          [a.x, a.expected],
+        ],
+      });
       continue;
     }
     // the lines cross between the two days: linear interpolation of both
     const t = da / (da - db);
     const cx = a.x + t * (b.x - a.x);
     const cy = a.expected + t * (b.expected - a.expected);
-    out.push({ side: da > 0 ? 'above' : 'below', points: [[a.x, a.actual], [cx, cy], [a.x, a.expected]] });
-    out.push({ side: db > 0 ? 'above' : 'below', points: [[cx, cy], [b.x, b.actual], [b.x, b.expected]] });
+    out.push({
+      side: da > 0 ? 'above' : 'below',
+      points: [
+        [a.x, a.actual],
+        [cx, cy],
+        [a.x, a.expected],
+      ],
+    });
+    out.push({
+      side: db > 0 ? 'above' : 'below',
+      points: [
+        [cx, cy],
+        [b.x, b.actual],
+        [b.x, b.expected],
+      ],
+    });
   }
   return out;
 }

@@ -1,14 +1,4 @@
-import {
-  btuKwhToKjKwh,
-  DISPLAY_PRESETS,
-  ftToM,
-  inToMm,
-  KJ_PER_BTU,
-  kjKwhToBtuKwh,
-  mmToIn,
-  mToFt,
-  type DisplayUnit,
-} from '@shared/units';
+import { btuKwhToKjKwh, DISPLAY_PRESETS, ftToM, inToMm, KJ_PER_BTU, kjKwhToBtuKwh, mmToIn, mToFt, type DisplayUnit } from '@shared/units';
 import { readTyped, writeForInput } from './number-format';
 
 export type UnitSystem = 'us' | 'si';

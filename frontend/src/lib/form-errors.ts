@@ -45,9 +45,7 @@ export function zodFieldErrorsByRow(error: z.ZodError, columnNames: Record<strin
     const rowIndex = issue.path.findIndex((p) => typeof p === 'number');
     const column = issue.path.at(-1);
     const where =
-      rowIndex > 0
-        ? `Row ${(issue.path[rowIndex] as number) + 1}${typeof column === 'string' && columnNames[column] ? `, ${columnNames[column]}` : ''}: `
-        : '';
+      rowIndex > 0 ? `Row ${(issue.path[rowIndex] as number) + 1}${typeof column === 'string' && columnNames[column] ? `, ${columnNames[column]}` : ''}: ` : '';
     out[key] ??= `${where}${issue.message}`;
   }
   return out;

@@ -9,12 +9,24 @@ const readerZone = (): string => Intl.DateTimeFormat().resolvedOptions().timeZon
 
 /** A zone at a moment as its offset from UTC: "UTC", "UTC+1", "UTC−6", "UTC+5:30". */
 export function zoneName(at: Date, timeZone: string): string {
-  const raw = new Intl.DateTimeFormat('en-GB', { timeZone, timeZoneName: 'shortOffset' }).formatToParts(at).find((p) => p.type === 'timeZoneName')?.value ?? 'GMT';
-  return raw.replace(/^GMT/, 'UTC').replace(/^UTC\+0$/, 'UTC').replace('-', '−');
+  const raw =
+    new Intl.DateTimeFormat('en-GB', { timeZone, timeZoneName: 'shortOffset' }).formatToParts(at).find((p) => p.type === 'timeZoneName')?.value ?? 'GMT';
+  return raw
+    .replace(/^GMT/, 'UTC')
+    .replace(/^UTC\+0$/, 'UTC')
+    .replace('-', '−');
 }
 
 function moment(at: Date, timeZone: string): string {
-  const text = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZone }).format(at);
+  const text = new Intl.DateTimeFormat('en-GB', {
+    day: 'numeric',
+    month: 'short',
+    year: 'numeric',
+    hour: '2-digit',
+    minute: '2-digit',
+    hourCycle: 'h23',
+    timeZone,
+  }).format(at);
   return `${threeLetterMonths(text)} ${zoneName(at, timeZone)}`;
 }
 

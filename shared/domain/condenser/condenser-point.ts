@@ -131,7 +131,10 @@ export function analyseCondenserPoint(input: CondenserPointInput): CondenserPoin
   const cleanliness = u / uClean;
   if (ttd < 1) warnings.push(`TTD ${ttd.toFixed(2)} K is below 1 K: usually an instrument problem (common practice)`);
 
-  const expected = expectedWithinBounds(() => modelBackpressureKpa(geometry, tables, cFm, t1, cwFlowM3s, dutyMw, pluggedTubes, referenceCleanliness, Number.NaN, uCleanScale), referenceCleanliness);
+  const expected = expectedWithinBounds(
+    () => modelBackpressureKpa(geometry, tables, cFm, t1, cwFlowM3s, dutyMw, pluggedTubes, referenceCleanliness, Number.NaN, uCleanScale),
+    referenceCleanliness,
+  );
   const implausible = implausibleResults({ cleanliness, velocityMs: velocity });
   for (const f of implausible) warnings.push(f.message);
   let unplugged = p;

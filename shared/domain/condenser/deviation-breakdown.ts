@@ -41,15 +41,7 @@ export interface DeviationBreakdownInput {
   turbine?: { curve: CorrectionCurve; loadFraction: number };
 }
 
-export type DeviationCause =
-  | 'model-offset'
-  | 'load'
-  | 'cw-inlet-temperature'
-  | 'cw-flow'
-  | 'duty'
-  | 'plugged-tubes'
-  | 'fouling'
-  | 'unexplained';
+export type DeviationCause = 'model-offset' | 'load' | 'cw-inlet-temperature' | 'cw-flow' | 'duty' | 'plugged-tubes' | 'fouling' | 'unexplained';
 
 export interface DeviationLine {
   cause: DeviationCause;

@@ -26,14 +26,23 @@ export interface BackpressureModelInput {
   uCleanScale?: number;
 }
 
-const cache = new WeakMap<CondenserGeometry, { tables: HeiTables; od: number; bwg: number; material: string; surface: number; n: number; passes: number; cFm: number }>();
+const cache = new WeakMap<
+  CondenserGeometry,
+  { tables: HeiTables; od: number; bwg: number; material: string; surface: number; n: number; passes: number; cFm: number }
+>();
 
 /** C·Fm for a geometry, memoised per geometry object (the geometry is checked once per object). */
 function cachedGeometryConstant(g: CondenserGeometry, tables: HeiTables, pluggedTubes: number): number {
   const hit = cache.get(g);
   if (
-    hit && hit.tables === tables && hit.od === g.tubeOdMm && hit.bwg === g.tubeBwg && hit.material === g.tubeMaterial &&
-    hit.surface === g.surfaceM2 && hit.n === g.tubeCount && hit.passes === g.passes
+    hit &&
+    hit.tables === tables &&
+    hit.od === g.tubeOdMm &&
+    hit.bwg === g.tubeBwg &&
+    hit.material === g.tubeMaterial &&
+    hit.surface === g.surfaceM2 &&
+    hit.n === g.tubeCount &&
+    hit.passes === g.passes
   ) {
     if (!(pluggedTubes >= 0 && pluggedTubes < g.tubeCount && Number.isInteger(pluggedTubes))) assertGeometry(g, pluggedTubes);
     return hit.cFm;

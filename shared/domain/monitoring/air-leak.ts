@@ -76,7 +76,6 @@ const MIN_DAYS_FOR_TREND = 7;
 const EARLIER_WINDOW_DAYS = { from: 45, to: 30 } as const;
 const MIN_EARLIER_DAYS = 5;
 
-
 /**
  * Cleanliness the reference days lead one to expect on day `t`: their robust straight line (Theil–Sen: median of
  * the pairwise slopes, median intercept) extrapolated, so steady fouling is expected and only a step against it
@@ -113,7 +112,11 @@ function witnessRises(d: AirLeakDay, reference: readonly AirLeakDay[], settings:
  * @param cleanings dates ('YYYY-MM-DD') the cleanliness was restored: the reference never reaches back past
  *   one, since the fouled days before it would hide a drop that starts soon after
  */
-export function judgeAirLeakDays(days: readonly AirLeakDay[], settings: AirLeakSettings = DEFAULT_AIR_LEAK_SETTINGS, cleanings: readonly string[] = []): AirLeakDayVerdict[] {
+export function judgeAirLeakDays(
+  days: readonly AirLeakDay[],
+  settings: AirLeakSettings = DEFAULT_AIR_LEAK_SETTINGS,
+  cleanings: readonly string[] = [],
+): AirLeakDayVerdict[] {
   const verdicts: AirLeakDayVerdict[] = [];
   const sortedCleanings = [...cleanings].sort();
   for (const [i, d] of days.entries()) {
@@ -144,7 +147,8 @@ export function judgeAirLeakDays(days: readonly AirLeakDay[], settings: AirLeakS
     const sub = ref((x) => x.subcoolingK);
     const o2 = ref((x) => x.dissolvedOxygenPpb);
     const air = ref((x) => x.airRemovalKgS);
-    const witnessed = (d.subcoolingK !== null && sub !== null) || (d.dissolvedOxygenPpb !== null && o2 !== null) || (d.airRemovalKgS !== null && air !== null && air > 0);
+    const witnessed =
+      (d.subcoolingK !== null && sub !== null) || (d.dissolvedOxygenPpb !== null && o2 !== null) || (d.airRemovalKgS !== null && air !== null && air > 0);
     const evidence = witnessRises(d, reference, settings);
     let suspected = witnessed ? (drop >= settings.dropWithEvidence && evidence.length > 0) || evidence.length >= 2 : drop >= settings.dropAlone;
     if (!suspected && witnessed) {
@@ -162,7 +166,12 @@ export function judgeAirLeakDays(days: readonly AirLeakDay[], settings: AirLeakS
         }
       }
     }
-    verdicts.push({ day: d.day, suspected, drop, evidence: suspected ? (drop >= settings.dropWithEvidence ? ['cleanliness-drop', ...evidence] : evidence) : [] });
+    verdicts.push({
+      day: d.day,
+      suspected,
+      drop,
+      evidence: suspected ? (drop >= settings.dropWithEvidence ? ['cleanliness-drop', ...evidence] : evidence) : [],
+    });
   }
   return verdicts;
 }

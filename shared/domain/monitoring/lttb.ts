@@ -56,7 +56,7 @@ export function lttbKeepingGaps<T>(points: readonly T[], threshold: number, x: (
   };
   const bucket = n / threshold;
   const pieces: ({ gap: T } | { run: T[] })[] = [];
-  for (let i = 0; i < n; ) {
+  for (let i = 0; i < n;) {
     let j = i;
     if (missing(points[i]!)) {
       while (j < n && missing(points[j]!)) j++;

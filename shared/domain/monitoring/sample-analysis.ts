@@ -4,7 +4,13 @@
  * hour of fouling (trend CF against the reference CF, under the point's own CW and duty) and of the
  * unexplained part (measured against the model at the trend CF), each through the turbine curve.
  */
-import { analyseCondenserPoint, backpressureAtCleanlinessKpa, deviationBreakdown, expectedWithinBounds, type CondenserPointResult } from '../condenser/index.js';
+import {
+  analyseCondenserPoint,
+  backpressureAtCleanlinessKpa,
+  deviationBreakdown,
+  expectedWithinBounds,
+  type CondenserPointResult,
+} from '../condenser/index.js';
 import { PointRejectedError } from '../validity/rejection-reasons.js';
 import { liquidDensityKgM3 } from '../steam/index.js';
 import { penaltyBetween, penaltyCostPerHour } from '../turbine/index.js';
@@ -59,7 +65,8 @@ function modelled<T>(step: () => T): T {
   try {
     return step();
   } catch (err) {
-    if (err instanceof RangeError && !(err instanceof PointRejectedError)) throw new PointRejectedError('expected-out-of-range', `the model cannot reproduce this point with the unit's setup: ${err.message}`);
+    if (err instanceof RangeError && !(err instanceof PointRejectedError))
+      throw new PointRejectedError('expected-out-of-range', `the model cannot reproduce this point with the unit's setup: ${err.message}`);
     throw err;
   }
 }
@@ -116,14 +123,16 @@ export function analyseSample(model: UnitModel, s: SampleSi, pluggedTubes: numbe
   const loadFraction = s.loadMw / model.ratingMw;
   const trend = trendCleanliness ?? point.cleanliness;
   const state = { cwInletC: s.cwInletC, cwMassFlowKgS: point.cwMassFlowKgS, dutyMw: point.dutyMw, pluggedTubes };
-  const breakdown = modelled(() => deviationBreakdown({
-    geometry: model.geometry,
-    heiTables: model.heiTables,
-    design: model.design,
-    heatBalanceDutyMw: model.heatBalanceDutyMw(loadFraction),
-    measured: { ...state, cleanliness: point.cleanliness, backpressureKpa: s.backpressureKpa },
-    trendCleanliness: trend,
-  }));
+  const breakdown = modelled(() =>
+    deviationBreakdown({
+      geometry: model.geometry,
+      heiTables: model.heiTables,
+      design: model.design,
+      heatBalanceDutyMw: model.heatBalanceDutyMw(loadFraction),
+      measured: { ...state, cleanliness: point.cleanliness, backpressureKpa: s.backpressureKpa },
+      trendCleanliness: trend,
+    }),
+  );
   // Every model state must be one a condenser can be in; a setup that puts the design point at hundreds of kPa
   // (a design duty entered for another unit, say) would otherwise book it as the load term of every point.
   expectedWithinBounds(() => breakdown.designFullLoadModelKpa, model.design.cleanliness, 'the design point at full load');

@@ -109,12 +109,7 @@ export interface PenaltyBetween {
  * (percentage points of the curve's base), the other basis from the firing-held relation.
  * Negative values mean the backpressure is better than the reference.
  */
-export function penaltyBetween(
-  curve: CorrectionCurve,
-  loadFraction: number,
-  backpressureKpa: number,
-  referenceBackpressureKpa: number,
-): PenaltyBetween {
+export function penaltyBetween(curve: CorrectionCurve, loadFraction: number, backpressureKpa: number, referenceBackpressureKpa: number): PenaltyBetween {
   const delta = curveChangePct(curve, loadFraction, backpressureKpa) - curveChangePct(curve, loadFraction, referenceBackpressureKpa);
   if (curve.basis === 'heat-rate') {
     return { heatRatePenaltyPct: delta, outputPenaltyPct: -outputChangeFromHeatRatePct(delta) };

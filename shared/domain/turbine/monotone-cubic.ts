@@ -65,7 +65,5 @@ export function evaluateMonotoneCubic(c: MonotoneCubic, x: number): number {
   const t = (x - xs[i]!) / h;
   const t2 = t * t;
   const t3 = t2 * t;
-  return (
-    (2 * t3 - 3 * t2 + 1) * ys[i]! + (t3 - 2 * t2 + t) * h * slopes[i]! + (-2 * t3 + 3 * t2) * ys[i + 1]! + (t3 - t2) * h * slopes[i + 1]!
-  );
+  return (2 * t3 - 3 * t2 + 1) * ys[i]! + (t3 - 2 * t2 + t) * h * slopes[i]! + (-2 * t3 + 3 * t2) * ys[i + 1]! + (t3 - t2) * h * slopes[i + 1]!;
 }

@@ -20,7 +20,12 @@ describe('optimal cleaning interval against the closed-form check values', () =>
   });
 
   it('with an asymptotic fouling cost (p∞ = $3,000/day, θ = 60 days), the optimum is 194.11 days at $2,881.94/day', () => {
-    const r = optimalInterval({ cleaningCost: 150_000, downtimeCost: 0, downtimeDays: 0, penalty: { model: 'asymptotic', maxPerDay: 3000, timeConstantDays: 60 } });
+    const r = optimalInterval({
+      cleaningCost: 150_000,
+      downtimeCost: 0,
+      downtimeDays: 0,
+      penalty: { model: 'asymptotic', maxPerDay: 3000, timeConstantDays: 60 },
+    });
     expect(r.optimalIntervalDays).toBeCloseTo(194.11, 2);
     expect(r.averageCostPerDay).toBeCloseTo(2881.94, 2);
     // invariant [derived]: at the optimum the fouling cost rate equals the average cost
@@ -30,16 +35,36 @@ describe('optimal cleaning interval against the closed-form check values', () =>
 
   it('when C + D ≥ p∞·(θ + τ) there is no finite optimum and the long-run cost is p∞', () => {
     // boundary [derived]: 3000 × (60 + 0) = 180,000
-    const at = optimalInterval({ cleaningCost: 180_000, downtimeCost: 0, downtimeDays: 0, penalty: { model: 'asymptotic', maxPerDay: 3000, timeConstantDays: 60 } });
+    const at = optimalInterval({
+      cleaningCost: 180_000,
+      downtimeCost: 0,
+      downtimeDays: 0,
+      penalty: { model: 'asymptotic', maxPerDay: 3000, timeConstantDays: 60 },
+    });
     expect(at.optimalIntervalDays).toBeNull();
     expect(at.averageCostPerDay).toBe(3000);
-    const below = optimalInterval({ cleaningCost: 170_000, downtimeCost: 0, downtimeDays: 0, penalty: { model: 'asymptotic', maxPerDay: 3000, timeConstantDays: 60 } });
+    const below = optimalInterval({
+      cleaningCost: 170_000,
+      downtimeCost: 0,
+      downtimeDays: 0,
+      penalty: { model: 'asymptotic', maxPerDay: 3000, timeConstantDays: 60 },
+    });
     expect(below.optimalIntervalDays).not.toBeNull();
     expect(below.averageCostPerDay).toBeLessThan(3000);
     // with downtime the threshold moves to p∞·(θ + τ) = 3000 × 70 = 210,000
-    const withDowntime = optimalInterval({ cleaningCost: 150_000, downtimeCost: 50_000, downtimeDays: 10, penalty: { model: 'asymptotic', maxPerDay: 3000, timeConstantDays: 60 } });
+    const withDowntime = optimalInterval({
+      cleaningCost: 150_000,
+      downtimeCost: 50_000,
+      downtimeDays: 10,
+      penalty: { model: 'asymptotic', maxPerDay: 3000, timeConstantDays: 60 },
+    });
     expect(withDowntime.optimalIntervalDays).not.toBeNull();
-    expect(averageCostPerDay({ cleaningCost: 150_000, downtimeCost: 50_000, downtimeDays: 10, penalty: { model: 'asymptotic', maxPerDay: 3000, timeConstantDays: 60 } }, withDowntime.optimalIntervalDays as number)).toBeLessThan(3000);
+    expect(
+      averageCostPerDay(
+        { cleaningCost: 150_000, downtimeCost: 50_000, downtimeDays: 10, penalty: { model: 'asymptotic', maxPerDay: 3000, timeConstantDays: 60 } },
+        withDowntime.optimalIntervalDays as number,
+      ),
+    ).toBeLessThan(3000);
   });
 
   it('the interval command prints the check values to the cent and 2e-3 relative in days', () => {
@@ -49,7 +74,12 @@ describe('optimal cleaning interval against the closed-form check values', () =>
     };
     expect(Math.abs(out.optimalIntervalDays / 72.621 - 1)).toBeLessThan(2e-3);
     expect(out.averageCostPerDay).toBe(3631.04);
-    const none = runCalcCommand.run({ cleaningCost: 200_000, downtimeCost: 0, downtimeDays: 0, penalty: { model: 'asymptotic', maxPerDay: 3000, timeConstantDays: 60 } });
+    const none = runCalcCommand.run({
+      cleaningCost: 200_000,
+      downtimeCost: 0,
+      downtimeDays: 0,
+      penalty: { model: 'asymptotic', maxPerDay: 3000, timeConstantDays: 60 },
+    });
     expect(none).toMatchObject({ optimalIntervalDays: null, averageCostPerDay: 3000 });
   });
 });

@@ -4,14 +4,7 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { queryPythonIapws, pythonIapwsAvailable, type IapwsQuery, type IapwsAnswer } from '../../helpers/python-iapws.js';
-import {
-  liquidCpKjKgK,
-  liquidDensityKgM3,
-  region1,
-  region2,
-  saturationPressureKpa,
-  saturationTemperatureC,
-} from '@shared/domain/steam/index.js';
+import { liquidCpKjKgK, liquidDensityKgM3, region1, region2, saturationPressureKpa, saturationTemperatureC } from '@shared/domain/steam/index.js';
 
 const TOL = 1e-6;
 const rel = (a: number, b: number) => Math.abs(a / b - 1);

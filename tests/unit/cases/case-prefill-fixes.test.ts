@@ -21,7 +21,12 @@ const base = calcScheduleInput.parse({
   horizonDays: 365,
   drivers: { cwInletC: 20, loadFraction: 0.85, fuelPricePerMmbtu: 3, replacementPricePerMwh: 50 },
   unit: { ratingMw: 300, heatRateBtuKwh: 9500, activeTubes: 15000 },
-  directPenalty: { points: [{ cleanliness: 0.6, costPerDay: 9000 }, { cleanliness: 0.9, costPerDay: 0 }] },
+  directPenalty: {
+    points: [
+      { cleanliness: 0.6, costPerDay: 9000 },
+      { cleanliness: 0.9, costPerDay: 0 },
+    ],
+  },
   fouling: { model: 'linear', ratePerDay: 0.001 },
   initial: { daysSinceCleaning: 30, cleanlinessAfterCleaning: 0.9 },
   methods: ['hp-water-lancing'],
@@ -64,7 +69,12 @@ describe('the load profile counts days off line', () => {
 });
 
 describe('a library larger than a case takes', () => {
-  const method = (i: number, over: Partial<CleaningMethod>): CleaningMethod => ({ ...TYPICAL_CLEANING_METHODS[1]!, id: `m-${i}`, name: `Method ${i}`, ...over });
+  const method = (i: number, over: Partial<CleaningMethod>): CleaningMethod => ({
+    ...TYPICAL_CLEANING_METHODS[1]!,
+    id: `m-${i}`,
+    name: `Method ${i}`,
+    ...over,
+  });
   it('prefills every on-line and derate method and the cheapest outage ones, at most twelve, and says so', () => {
     const library = [
       ...Array.from({ length: 14 }, (_, i) => method(i, { fixedCost: 100_000 - i * 1000 })),
@@ -90,8 +100,12 @@ describe('the baseline a plant would follow', () => {
     expect(b.detail).toMatch(/cheapest outage method/);
   });
   it('without an outage in the horizon (or without an outage method) the baseline is no cleaning', () => {
-    expect(baselineFor([{ from: '2030-06-01', to: '2030-06-14' }], [...TYPICAL_CLEANING_METHODS], 15_000, '2026-04-01', 730).baseline).toEqual({ kind: 'never' });
-    expect(baselineFor([{ from: '2026-06-01', to: '2026-06-14' }], [TYPICAL_CLEANING_METHODS[0]!], 15_000, '2026-04-01', 730).baseline).toEqual({ kind: 'never' });
+    expect(baselineFor([{ from: '2030-06-01', to: '2030-06-14' }], [...TYPICAL_CLEANING_METHODS], 15_000, '2026-04-01', 730).baseline).toEqual({
+      kind: 'never',
+    });
+    expect(baselineFor([{ from: '2026-06-01', to: '2026-06-14' }], [TYPICAL_CLEANING_METHODS[0]!], 15_000, '2026-04-01', 730).baseline).toEqual({
+      kind: 'never',
+    });
   });
 });
 
@@ -107,8 +121,14 @@ describe('the start and the days since the cleaning move together', () => {
   });
 
   it('a copy with an entered start takes the fresh days since the cleaning shifted to that start', () => {
-    const original = { inputs: { ...base, startDate: '2026-05-01' }, inputSources: { startDate: { source: 'entered' as const, detail: 'by Ann' }, initial: { source: 'measured' as const, detail: 'fit' } } };
-    const fresh = { inputs: { ...base, startDate: '2026-04-20', initial: { ...base.initial, daysSinceCleaning: 50 } }, inputSources: { initial: { source: 'measured' as const, detail: 'fit' } } };
+    const original = {
+      inputs: { ...base, startDate: '2026-05-01' },
+      inputSources: { startDate: { source: 'entered' as const, detail: 'by Ann' }, initial: { source: 'measured' as const, detail: 'fit' } },
+    };
+    const fresh = {
+      inputs: { ...base, startDate: '2026-04-20', initial: { ...base.initial, daysSinceCleaning: 50 } },
+      inputSources: { initial: { source: 'measured' as const, detail: 'fit' } },
+    };
     const copy = calcScheduleInput.parse(carryEntered(original, fresh).inputs);
     expect(copy.startDate).toBe('2026-05-01');
     expect(copy.initial.daysSinceCleaning).toBe(61);
@@ -132,13 +152,22 @@ describe('warnings a case carries beside the calculation’s', () => {
     fouling: { source: 'measured', detail: 'fitted over 31 days' },
   };
   it('a start before the last data day, a start more than a year ahead, few measured months and a short fit are each named', () => {
-    const w = caseWarnings({ inputs: { ...base, startDate: '2026-03-01' }, inputSources: sources, lastDataDay: '2026-03-20', measuredMonths: 2, fittedSpanDays: 31 }, '2026-03-21');
+    const w = caseWarnings(
+      { inputs: { ...base, startDate: '2026-03-01' }, inputSources: sources, lastDataDay: '2026-03-20', measuredMonths: 2, fittedSpanDays: 31 },
+      '2026-03-21',
+    );
     expect(w.join(' ')).toMatch(/starts on 1 Mar 2026, before the last day of data/);
     expect(w.join(' ')).toMatch(/2 of 12 months/);
     expect(w.join(' ')).toMatch(/31 days .* extrapolated .* 365/);
-    const ahead = caseWarnings({ inputs: { ...base, startDate: '2027-06-01' }, inputSources: sources, lastDataDay: '2026-03-20', measuredMonths: 12, fittedSpanDays: 200 }, '2026-03-21');
+    const ahead = caseWarnings(
+      { inputs: { ...base, startDate: '2027-06-01' }, inputSources: sources, lastDataDay: '2026-03-20', measuredMonths: 12, fittedSpanDays: 200 },
+      '2026-03-21',
+    );
     expect(ahead.join(' ')).toMatch(/more than a year ahead/);
-    const fine = caseWarnings({ inputs: { ...base, startDate: '2026-03-22' }, inputSources: sources, lastDataDay: '2026-03-20', measuredMonths: 12, fittedSpanDays: 200 }, '2026-03-21');
+    const fine = caseWarnings(
+      { inputs: { ...base, startDate: '2026-03-22' }, inputSources: sources, lastDataDay: '2026-03-20', measuredMonths: 12, fittedSpanDays: 200 },
+      '2026-03-21',
+    );
     expect(fine).toEqual([]);
   });
   it('outages are prefilled as far as the longest horizon', () => {

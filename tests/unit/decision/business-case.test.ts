@@ -5,7 +5,12 @@ import { optimiseSchedule } from '@shared/domain/decision/schedule/optimal-sched
 import { baseScenario } from '@shared/domain/decision/schedule/schedule-problem.js';
 import { smallProblem } from './small-schedule-problem.js';
 
-const t = (foulingCost: number, cleaningCost: number, downtimeCost = 0) => ({ foulingCost, cleaningCost, downtimeCost, total: foulingCost + cleaningCost + downtimeCost });
+const t = (foulingCost: number, cleaningCost: number, downtimeCost = 0) => ({
+  foulingCost,
+  cleaningCost,
+  downtimeCost,
+  total: foulingCost + cleaningCost + downtimeCost,
+});
 
 describe('business case of a schedule against its baseline', () => {
   it('cash flows are the baseline cost minus the proposal’s, per year, with the up-front cost at t = 0', () => {

@@ -32,14 +32,18 @@ describe('IRR', () => {
   });
   it('a reported IRR zeroes the NPV for any investment followed by positive returns (one sign change)', () => {
     fc.assert(
-      fc.property(fc.integer({ min: 1, max: 1_000_000 }), fc.array(fc.integer({ min: 0, max: 500_000 }), { minLength: 1, maxLength: 12 }), (invest, returns) => {
-        fc.pre(returns.some((v) => v > 0));
-        const flows = [-invest, ...returns];
-        const r = irr(flows);
-        expect(r.irr).not.toBeNull();
-        expect(r.irr!.toNumber()).toBeGreaterThan(-1);
-        expect(Math.abs(npv(r.irr!, flows).toNumber())).toBeLessThan(1e-6 * invest);
-      }),
+      fc.property(
+        fc.integer({ min: 1, max: 1_000_000 }),
+        fc.array(fc.integer({ min: 0, max: 500_000 }), { minLength: 1, maxLength: 12 }),
+        (invest, returns) => {
+          fc.pre(returns.some((v) => v > 0));
+          const flows = [-invest, ...returns];
+          const r = irr(flows);
+          expect(r.irr).not.toBeNull();
+          expect(r.irr!.toNumber()).toBeGreaterThan(-1);
+          expect(Math.abs(npv(r.irr!, flows).toNumber())).toBeLessThan(1e-6 * invest);
+        },
+      ),
       { numRuns: 60, seed: 20261201 },
     );
   });

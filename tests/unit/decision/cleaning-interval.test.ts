@@ -3,33 +3,54 @@ import fc from 'fast-check';
 import { averageCostPerDay, costVersusInterval, optimalInterval, type CleaningCycle } from '@shared/domain/decision/interval/cleaning-interval.js';
 
 const rate = (c: CleaningCycle, t: number) =>
-  c.penalty.model === 'linear' ? c.penalty.slopePerDay2 * t : c.penalty.model === 'asymptotic' ? c.penalty.maxPerDay * (1 - Math.exp(-t / c.penalty.timeConstantDays)) : NaN;
+  c.penalty.model === 'linear'
+    ? c.penalty.slopePerDay2 * t
+    : c.penalty.model === 'asymptotic'
+      ? c.penalty.maxPerDay * (1 - Math.exp(-t / c.penalty.timeConstantDays))
+      : NaN;
 
 describe('optimal interval of a repeating cleaning cycle', () => {
   it('at the optimum the fouling cost rate equals the average cost, and nearby intervals cost more (any linear case)', () => {
     fc.assert(
-      fc.property(fc.integer({ min: 1_000, max: 1_000_000 }), fc.integer({ min: 0, max: 200_000 }), fc.integer({ min: 0, max: 20 }), fc.double({ min: 1, max: 500, noNaN: true }), (C, D, tau, k) => {
-        const c: CleaningCycle = { cleaningCost: C, downtimeCost: D, downtimeDays: tau, penalty: { model: 'linear', slopePerDay2: k } };
-        const r = optimalInterval(c);
-        const t = r.optimalIntervalDays!;
-        expect(rate(c, t) / r.averageCostPerDay).toBeCloseTo(1, 9);
-        expect(averageCostPerDay(c, t * 0.97)).toBeGreaterThan(r.averageCostPerDay);
-        expect(averageCostPerDay(c, t * 1.03)).toBeGreaterThan(r.averageCostPerDay);
-      }),
+      fc.property(
+        fc.integer({ min: 1_000, max: 1_000_000 }),
+        fc.integer({ min: 0, max: 200_000 }),
+        fc.integer({ min: 0, max: 20 }),
+        fc.double({ min: 1, max: 500, noNaN: true }),
+        (C, D, tau, k) => {
+          const c: CleaningCycle = { cleaningCost: C, downtimeCost: D, downtimeDays: tau, penalty: { model: 'linear', slopePerDay2: k } };
+          const r = optimalInterval(c);
+          const t = r.optimalIntervalDays!;
+          expect(rate(c, t) / r.averageCostPerDay).toBeCloseTo(1, 9);
+          expect(averageCostPerDay(c, t * 0.97)).toBeGreaterThan(r.averageCostPerDay);
+          expect(averageCostPerDay(c, t * 1.03)).toBeGreaterThan(r.averageCostPerDay);
+        },
+      ),
       { numRuns: 200, seed: 1 },
     );
   });
 
   it('the same invariant holds for any asymptotic case that has a finite optimum', () => {
     fc.assert(
-      fc.property(fc.integer({ min: 1_000, max: 500_000 }), fc.integer({ min: 0, max: 20 }), fc.integer({ min: 100, max: 20_000 }), fc.integer({ min: 5, max: 400 }), (C, tau, pInf, theta) => {
-        fc.pre(C < pInf * (theta + tau) * 0.99);
-        const c: CleaningCycle = { cleaningCost: C, downtimeCost: 0, downtimeDays: tau, penalty: { model: 'asymptotic', maxPerDay: pInf, timeConstantDays: theta } };
-        const r = optimalInterval(c);
-        expect(r.optimalIntervalDays).not.toBeNull();
-        expect(rate(c, r.optimalIntervalDays!) / r.averageCostPerDay).toBeCloseTo(1, 6);
-        expect(r.averageCostPerDay).toBeLessThan(pInf);
-      }),
+      fc.property(
+        fc.integer({ min: 1_000, max: 500_000 }),
+        fc.integer({ min: 0, max: 20 }),
+        fc.integer({ min: 100, max: 20_000 }),
+        fc.integer({ min: 5, max: 400 }),
+        (C, tau, pInf, theta) => {
+          fc.pre(C < pInf * (theta + tau) * 0.99);
+          const c: CleaningCycle = {
+            cleaningCost: C,
+            downtimeCost: 0,
+            downtimeDays: tau,
+            penalty: { model: 'asymptotic', maxPerDay: pInf, timeConstantDays: theta },
+          };
+          const r = optimalInterval(c);
+          expect(r.optimalIntervalDays).not.toBeNull();
+          expect(rate(c, r.optimalIntervalDays!) / r.averageCostPerDay).toBeCloseTo(1, 6);
+          expect(r.averageCostPerDay).toBeLessThan(pInf);
+        },
+      ),
       { numRuns: 200, seed: 2 },
     );
   });
@@ -52,6 +73,8 @@ describe('optimal interval of a repeating cleaning cycle', () => {
   });
 
   it('refuses a cleaning that costs nothing and takes no time', () => {
-    expect(() => optimalInterval({ cleaningCost: 0, downtimeCost: 0, downtimeDays: 0, penalty: { model: 'linear', slopePerDay2: 1 } })).toThrow(/no optimal interval/);
+    expect(() => optimalInterval({ cleaningCost: 0, downtimeCost: 0, downtimeDays: 0, penalty: { model: 'linear', slopePerDay2: 1 } })).toThrow(
+      /no optimal interval/,
+    );
   });
 });

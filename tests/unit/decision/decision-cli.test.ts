@@ -32,7 +32,10 @@ const scheduleInput = {
 
 describe('decision commands of the calculation CLI', () => {
   it('interval and cashflow answer an array of inputs with one result each, errors in place', () => {
-    const out = runCalc(interval, JSON.stringify([{ cleaningCost: 150000, downtimeCost: 0, downtimeDays: 0, penalty: { model: 'linear', slopePerDay2: 50 } }, { cleaningCost: 1 }]));
+    const out = runCalc(
+      interval,
+      JSON.stringify([{ cleaningCost: 150000, downtimeCost: 0, downtimeDays: 0, penalty: { model: 'linear', slopePerDay2: 50 } }, { cleaningCost: 1 }]),
+    );
     expect(out.failed).toBe(true);
     const parsed = JSON.parse(out.output);
     expect(parsed[0]).toEqual({ optimalIntervalDays: 77.459667, averageCostPerDay: 3872.98 });
@@ -62,7 +65,15 @@ describe('decision commands of the calculation CLI', () => {
   });
 
   it('fouling-fit answers "not enough data" as a result, not an error', () => {
-    const out = runCalc(foulingFit, JSON.stringify({ points: [{ day: 0, cleanliness: 0.9 }, { day: 1, cleanliness: 0.89 }] }));
+    const out = runCalc(
+      foulingFit,
+      JSON.stringify({
+        points: [
+          { day: 0, cleanliness: 0.9 },
+          { day: 1, cleanliness: 0.89 },
+        ],
+      }),
+    );
     expect(out.failed).toBe(false);
     expect(JSON.parse(out.output)).toMatchObject({ status: 'not-enough-data', minimumPoints: 10, minimumSpanDays: 14 });
   });
@@ -98,7 +109,13 @@ describe('decision commands of the calculation CLI', () => {
         ...scheduleInput,
         drivers: { ...scheduleInput.drivers, loadFraction },
         includeDaily: false,
-        baseline: { kind: 'fixed', cleanings: [{ date: '2027-03-01', methodId: 'hp-water-lancing' }, { date: '2027-09-01', methodId: 'half-condenser-online' }] },
+        baseline: {
+          kind: 'fixed',
+          cleanings: [
+            { date: '2027-03-01', methodId: 'hp-water-lancing' },
+            { date: '2027-09-01', methodId: 'half-condenser-online' },
+          ],
+        },
       }) as { baseline: { cleanings: { methodId: string; downtimeCost: number }[]; totals: { downtimeCost: number } } };
     // [derived] a lost MWh is worth 60 − 9.5 MMBtu/MWh × 3.5 = 26.75; both typical methods take 4 days
     const perMwh = 60 - 9.5 * 3.5;
@@ -114,7 +131,13 @@ describe('decision commands of the calculation CLI', () => {
   it('schedule: days without load stop the fouling clock and carry no fouling cost', () => {
     const load = Array.from({ length: 365 }, (_, d) => (d >= 150 && d < 160 ? 0 : 0.85));
     const noCleaning = { ...TYPICAL_CLEANING_METHODS.find((m) => m.id === 'hp-water-lancing')!, fixedCost: 1e9 };
-    const out = schedule.run({ ...scheduleInput, drivers: { ...scheduleInput.drivers, loadFraction: { daily: load } }, methods: [noCleaning], plannedOutages: [], baseline: { kind: 'never' } }) as {
+    const out = schedule.run({
+      ...scheduleInput,
+      drivers: { ...scheduleInput.drivers, loadFraction: { daily: load } },
+      methods: [noCleaning],
+      plannedOutages: [],
+      baseline: { kind: 'never' },
+    }) as {
       cleanings: unknown[];
       daily: { cleanliness: number; foulingCost: number }[];
     };
@@ -148,7 +171,12 @@ describe('decision commands of the calculation CLI', () => {
     const direct = {
       ...scheduleInput,
       unit: { ...unit, activeTubes: 10_000 },
-      directPenalty: { points: [{ cleanliness: 0.5, costPerDay: 20_000 }, { cleanliness: 0.92, costPerDay: 0 }] },
+      directPenalty: {
+        points: [
+          { cleanliness: 0.5, costPerDay: 20_000 },
+          { cleanliness: 0.92, costPerDay: 0 },
+        ],
+      },
       includeDaily: false,
     };
     const out = schedule.run(direct) as { cleanings: unknown[]; warnings: string[] };

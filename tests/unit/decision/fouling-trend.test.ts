@@ -78,7 +78,11 @@ describe('fouling trend fit', () => {
   });
 
   it('the forecast band widens beyond the data and contains the central forecast', () => {
-    const r = fitFoulingTrend({ points: synthetic({ model: 'linear', ratePerDay: 0.003 }, 0.9, range(0, 40), 0.004), cleanlinessAfterCleaning: 0.9, forecastDays: 60 });
+    const r = fitFoulingTrend({
+      points: synthetic({ model: 'linear', ratePerDay: 0.003 }, 0.9, range(0, 40), 0.004),
+      cleanlinessAfterCleaning: 0.9,
+      forecastDays: 60,
+    });
     if (r.status !== 'fitted') throw new Error('expected a fit');
     const at = (d: number) => r.forecast.find((f) => f.day === d)!;
     for (const d of [10, 40, 100]) {
@@ -101,7 +105,11 @@ describe('fouling forecast band with few points', () => {
   it("is built with Student's t for n − k degrees of freedom: 1.812 for a 90 % band from 11 days of a one-parameter fit", () => {
     // 11 days, linear fouling with CF0 given: one parameter (the rate), so 10 degrees of freedom.
     const days = range(0, 10).map((i) => 2 * i);
-    const r = fitFoulingTrend({ points: synthetic({ model: 'linear', ratePerDay: 0.003 }, 0.9, days, 0.003, 5), cleanlinessAfterCleaning: 0.9, forecastDays: 30 });
+    const r = fitFoulingTrend({
+      points: synthetic({ model: 'linear', ratePerDay: 0.003 }, 0.9, days, 0.003, 5),
+      cleanlinessAfterCleaning: 0.9,
+      forecastDays: 30,
+    });
     if (r.status !== 'fitted') throw new Error('expected a fit');
     expect(r.chosen.model.model).toBe('linear');
     expect(r.chosen.parameterCount).toBe(1);

@@ -37,7 +37,12 @@ describe('a method always carries the cautions its kind needs, whatever its list
         horizonDays: 120,
         drivers: { cwInletC: 20, loadFraction: 0.85, fuelPricePerMmbtu: 3.5, replacementPricePerMwh: 60 },
         unit: { ratingMw: 300, heatRateBtuKwh: 9500, activeTubes: 18_000 },
-        directPenalty: { points: [{ cleanliness: 0.5, costPerDay: 60_000 }, { cleanliness: 0.92, costPerDay: 0 }] },
+        directPenalty: {
+          points: [
+            { cleanliness: 0.5, costPerDay: 60_000 },
+            { cleanliness: 0.92, costPerDay: 0 },
+          ],
+        },
         fouling: { model: 'linear', ratePerDay: 0.01 },
         initial: { daysSinceCleaning: 60, cleanlinessAfterCleaning: 0.9 },
         methods: [stripped(lancing)],

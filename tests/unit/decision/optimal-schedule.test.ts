@@ -22,21 +22,44 @@ function randomProblem(seed: number): ScheduleProblem {
   const days = 30;
   const between = (a: number, b: number) => a + (b - a) * r();
   const methods: ScheduleMethod[] = [
-    { id: 'a', cleaningCost: between(2_000, 30_000), durationDays: 1 + Math.floor(r() * 3), unitDuringCleaning: 'outage', deratePct: 0, recoveredCleanliness: between(0.85, 0.95), foulingRateMultiplier: between(0.7, 1.3) },
-    { id: 'b', cleaningCost: between(1_000, 15_000), durationDays: 1 + Math.floor(r() * 4), unitDuringCleaning: r() < 0.5 ? 'derate' : 'online', deratePct: 40, recoveredCleanliness: between(0.75, 0.9), foulingRateMultiplier: between(0.7, 1.3) },
+    {
+      id: 'a',
+      cleaningCost: between(2_000, 30_000),
+      durationDays: 1 + Math.floor(r() * 3),
+      unitDuringCleaning: 'outage',
+      deratePct: 0,
+      recoveredCleanliness: between(0.85, 0.95),
+      foulingRateMultiplier: between(0.7, 1.3),
+    },
+    {
+      id: 'b',
+      cleaningCost: between(1_000, 15_000),
+      durationDays: 1 + Math.floor(r() * 4),
+      unitDuringCleaning: r() < 0.5 ? 'derate' : 'online',
+      deratePct: 40,
+      recoveredCleanliness: between(0.75, 0.9),
+      foulingRateMultiplier: between(0.7, 1.3),
+    },
   ];
   for (const m of methods) if (m.unitDuringCleaning !== 'derate') m.deratePct = 0;
   const outageStart = Math.floor(r() * 25);
   return smallProblem(
     {
       methods,
-      table: tableFromCostCurve(days, [
-        { cleanliness: 0.4, costPerDay: between(10_000, 40_000) },
-        { cleanliness: 0.7, costPerDay: between(2_000, 8_000) },
-        { cleanliness: 1.0, costPerDay: 0 },
-      ], (d) => 1 + 0.6 * Math.sin(d / 4 + seed)),
+      table: tableFromCostCurve(
+        days,
+        [
+          { cleanliness: 0.4, costPerDay: between(10_000, 40_000) },
+          { cleanliness: 0.7, costPerDay: between(2_000, 8_000) },
+          { cleanliness: 1.0, costPerDay: 0 },
+        ],
+        (d) => 1 + 0.6 * Math.sin(d / 4 + seed),
+      ),
       plannedOutage: Uint8Array.from({ length: days }, (_, d) => (d >= outageStart && d < outageStart + 4 ? 1 : 0)),
-      fouling: r() < 0.5 ? { model: 'linear', ratePerDay: between(0.005, 0.03) } : { model: 'asymptotic', maxIndex: between(0.3, 1), timeConstantDays: between(5, 40) },
+      fouling:
+        r() < 0.5
+          ? { model: 'linear', ratePerDay: between(0.005, 0.03) }
+          : { model: 'asymptotic', maxIndex: between(0.3, 1), timeConstantDays: between(5, 40) },
       initial: { daysSinceCleaning: Math.floor(between(0, 20)), cleanlinessAfterCleaning: between(0.8, 0.92), foulingRateMultiplier: 1 },
       minSpacingDays: 6 + Math.floor(r() * 5),
       discountRate: between(0, 0.2),
@@ -89,13 +112,23 @@ describe('least-cost cleaning calendar (dynamic programme)', () => {
     const p = smallProblem(
       {
         minSpacingDays: 7,
-        windows: [{ fromDay: 2, toDay: 16 }, { fromDay: 19, toDay: 35 }],
+        windows: [
+          { fromDay: 2, toDay: 16 },
+          { fromDay: 19, toDay: 35 },
+        ],
         methods: smallProblem().methods.map((m) => (m.id === 'derate-brush' ? { ...m, windows: [{ fromDay: 25, toDay: 39 }] } : m)),
       },
       40,
     );
     const { dp } = expectOptimal(p);
-    for (const c of dp.cleanings) expect(mayStart(p, p.methods.find((m) => m.id === c.methodId)!, c.startDay)).toBe(true);
+    for (const c of dp.cleanings)
+      expect(
+        mayStart(
+          p,
+          p.methods.find((m) => m.id === c.methodId)!,
+          c.startDay,
+        ),
+      ).toBe(true);
   });
 
   it('still finds the optimum when cost does not rise with age (dominance pruning is switched off)', () => {
@@ -124,7 +157,13 @@ describe('least-cost cleaning calendar (dynamic programme)', () => {
     const p = smallProblem(
       {
         methods: [smallProblem().methods[0]!],
-        lostGeneration: { ratingMw: 500, loadFraction: new Float64Array(40).fill(1), replacementPricePerMwh: new Float64Array(40).fill(200), ownFuelCostPerMwh: new Float64Array(40).fill(20), ownCo2CostPerMwh: new Float64Array(40) },
+        lostGeneration: {
+          ratingMw: 500,
+          loadFraction: new Float64Array(40).fill(1),
+          replacementPricePerMwh: new Float64Array(40).fill(200),
+          ownFuelCostPerMwh: new Float64Array(40).fill(20),
+          ownCo2CostPerMwh: new Float64Array(40),
+        },
         minSpacingDays: 8,
       },
       40,

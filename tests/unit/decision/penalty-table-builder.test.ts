@@ -16,7 +16,13 @@ const unit: UnitPenaltyModel = {
   capacityLimitedShare: 0.25,
 };
 const drivers = expandDrivers(
-  { cwInletC: { monthly: [8, 9, 12, 16, 20, 25, 28, 28, 24, 18, 12, 9] }, loadFraction: 0.85, fuelPricePerMmbtu: 3, replacementPricePerMwh: 70, co2PricePerTonne: 20 },
+  {
+    cwInletC: { monthly: [8, 9, 12, 16, 20, 25, 28, 28, 24, 18, 12, 9] },
+    loadFraction: 0.85,
+    fuelPricePerMmbtu: 3,
+    replacementPricePerMwh: 70,
+    co2PricePerTonne: 20,
+  },
   '2027-01-01',
   365,
   'step',
@@ -32,7 +38,17 @@ describe('per-day penalty tables from the condenser and turbine models', () => {
     const p = backpressureAtCleanlinessKpa({ ...state, cleanliness: cf });
     const pRef = backpressureAtCleanlinessKpa({ ...state, cleanliness: 1 });
     const pen = penaltyBetween(GENERIC_CORRECTION_CURVE, 0.85, p, pRef);
-    const cost = penaltyCostPerHour({ ratingMw: 300, loadFraction: 0.85, heatRateBtuKwh: 9500, heatRatePenaltyPct: pen.heatRatePenaltyPct, outputPenaltyPct: pen.outputPenaltyPct, fuelPricePerMmbtu: 3, co2PricePerTonne: 20, co2KgPerMmbtu: 93.28, replacementPricePerMwh: 70 });
+    const cost = penaltyCostPerHour({
+      ratingMw: 300,
+      loadFraction: 0.85,
+      heatRateBtuKwh: 9500,
+      heatRatePenaltyPct: pen.heatRatePenaltyPct,
+      outputPenaltyPct: pen.outputPenaltyPct,
+      fuelPricePerMmbtu: 3,
+      co2PricePerTonne: 20,
+      co2KgPerMmbtu: 93.28,
+      replacementPricePerMwh: 70,
+    });
     const expected = 24 * 0.75 * (cost.fuelCostPerHour + cost.co2CostPerHour) + 24 * 0.25 * cost.capacityCostPerHour;
     expect(penaltyCostPerDay(table, day, cf)).toBeCloseTo(expected, 8);
   });
@@ -84,7 +100,17 @@ describe('per-day penalty tables from the condenser and turbine models', () => {
   it('reproduces the worked heat-rate cost check: 500 MW, 9,500 Btu/kWh, $3/MMBtu, 80 % → 1 % heat rate ≈ $998,640 a year', () => {
     // ENGINEERING.md §4 [derived]. The table prices a day as 24 h × the turbine cost model, so a 1 % heat-rate
     // penalty at 80 % load for 365 days must give the check value.
-    const perHour = penaltyCostPerHour({ ratingMw: 500, loadFraction: 0.8, heatRateBtuKwh: 9500, heatRatePenaltyPct: 1, outputPenaltyPct: 0, fuelPricePerMmbtu: 3, co2PricePerTonne: 0, co2KgPerMmbtu: 0, replacementPricePerMwh: 0 });
+    const perHour = penaltyCostPerHour({
+      ratingMw: 500,
+      loadFraction: 0.8,
+      heatRateBtuKwh: 9500,
+      heatRatePenaltyPct: 1,
+      outputPenaltyPct: 0,
+      fuelPricePerMmbtu: 3,
+      co2PricePerTonne: 0,
+      co2KgPerMmbtu: 0,
+      replacementPricePerMwh: 0,
+    });
     expect(perHour.fuelCostPerHour * 24 * 365).toBeCloseTo(998_640, 6);
   });
 });

@@ -8,7 +8,12 @@ const input = {
   horizonDays: 60,
   drivers: { cwInletC: 20, loadFraction: 0.85, fuelPricePerMmbtu: 3.5, replacementPricePerMwh: 60, co2PricePerTonne: 25 },
   unit: { ratingMw: 300, heatRateBtuKwh: 9500, co2KgPerMmbtu: 53, activeTubes: 18_000 },
-  directPenalty: { points: [{ cleanliness: 0.5, costPerDay: 20_000 }, { cleanliness: 0.92, costPerDay: 0 }] },
+  directPenalty: {
+    points: [
+      { cleanliness: 0.5, costPerDay: 20_000 },
+      { cleanliness: 0.92, costPerDay: 0 },
+    ],
+  },
   fouling: { model: 'linear', ratePerDay: 0.004 },
   initial: { daysSinceCleaning: 30, cleanlinessAfterCleaning: 0.9 },
   methods: ['hp-water-lancing'],
@@ -28,7 +33,9 @@ describe('schedule input bounds (the same as the penalty command)', () => {
   it('refuses a negative fuel price, whether constant, monthly or daily', () => {
     expect(refusal(withDrivers({ fuelPricePerMmbtu: -3.5 }))).toMatch(/fuelPricePerMmbtu.*cannot be negative/);
     expect(refusal(withDrivers({ fuelPricePerMmbtu: monthly(-1) }))).toMatch(/fuelPricePerMmbtu\.monthly\.11: .*cannot be negative/);
-    expect(refusal(withDrivers({ fuelPricePerMmbtu: { daily: Array.from({ length: 60 }, (_, d) => (d === 7 ? -0.1 : 3)) } }))).toMatch(/fuelPricePerMmbtu\.daily\.7: .*cannot be negative/);
+    expect(refusal(withDrivers({ fuelPricePerMmbtu: { daily: Array.from({ length: 60 }, (_, d) => (d === 7 ? -0.1 : 3)) } }))).toMatch(
+      /fuelPricePerMmbtu\.daily\.7: .*cannot be negative/,
+    );
   });
 
   it('refuses a negative CO2 price', () => {
@@ -56,7 +63,9 @@ describe('schedule input bounds (the same as the penalty command)', () => {
   });
 
   it('says in our words why a cleanliness shift outside −1…1 is refused', () => {
-    expect(refusal({ ...input, uncertainty: { ranges: { recoveredCleanliness: { low: -1.5, base: 0, high: 0.05 } } } })).toMatch(/recoveredCleanliness\.low: a cleanliness shift is at least −1/);
+    expect(refusal({ ...input, uncertainty: { ranges: { recoveredCleanliness: { low: -1.5, base: 0, high: 0.05 } } } })).toMatch(
+      /recoveredCleanliness\.low: a cleanliness shift is at least −1/,
+    );
   });
 
   it('the CLI answers a negative fuel price with an error in its place, and still answers the other inputs', () => {

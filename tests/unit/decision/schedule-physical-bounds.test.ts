@@ -8,7 +8,12 @@ const input = {
   horizonDays: 60,
   drivers: { cwInletC: 20, loadFraction: 0.85, fuelPricePerMmbtu: 3.5, replacementPricePerMwh: 60, co2PricePerTonne: 25 },
   unit: { ratingMw: 300, heatRateBtuKwh: 9500, co2KgPerMmbtu: 53, activeTubes: 18_000 },
-  directPenalty: { points: [{ cleanliness: 0.5, costPerDay: 20_000 }, { cleanliness: 0.92, costPerDay: 0 }] },
+  directPenalty: {
+    points: [
+      { cleanliness: 0.5, costPerDay: 20_000 },
+      { cleanliness: 0.92, costPerDay: 0 },
+    ],
+  },
   fouling: { model: 'linear', ratePerDay: 0.004 },
   initial: { daysSinceCleaning: 30, cleanlinessAfterCleaning: 0.9 },
   methods: ['hp-water-lancing'],
@@ -77,7 +82,17 @@ describe('every number of a schedule input is bounded to what is physical or eco
 
   it('bounds the uncertainty multipliers and direct penalty costs', () => {
     expect(refusal({ ...input, uncertainty: { ranges: { fuelPrice: { low: 0.5, base: 1, high: 1e6 } } } })).toMatch(/fuelPrice\.high: .*between 0 and 10/);
-    expect(refusal({ ...input, directPenalty: { points: [{ cleanliness: 0.5, costPerDay: 1e15 }, { cleanliness: 0.92, costPerDay: 0 }] } })).toMatch(/costPerDay: .*between/);
+    expect(
+      refusal({
+        ...input,
+        directPenalty: {
+          points: [
+            { cleanliness: 0.5, costPerDay: 1e15 },
+            { cleanliness: 0.92, costPerDay: 0 },
+          ],
+        },
+      }),
+    ).toMatch(/costPerDay: .*between/);
   });
 });
 
@@ -89,7 +104,12 @@ describe('results outside a plausible band carry a warning', () => {
         ...input,
         horizonDays: 730,
         unit: { ...input.unit, ratingMw: 20 },
-        directPenalty: { points: [{ cleanliness: 0.3, costPerDay: 2_000_000 }, { cleanliness: 0.92, costPerDay: 0 }] },
+        directPenalty: {
+          points: [
+            { cleanliness: 0.3, costPerDay: 2_000_000 },
+            { cleanliness: 0.92, costPerDay: 0 },
+          ],
+        },
       }),
     );
     expect(out.businessCase.benefitCostRatio).toBeGreaterThan(10);

@@ -82,7 +82,14 @@ describe('pricing a given schedule', () => {
   });
 
   it('totals add up: the daily costs sum to the totals, and the yearly sums to the totals', () => {
-    const priced = priceSchedule(p, [{ startDay: 5, methodId: 'outage-wash' }, { startDay: 25, methodId: 'derate-brush' }], base);
+    const priced = priceSchedule(
+      p,
+      [
+        { startDay: 5, methodId: 'outage-wash' },
+        { startDay: 25, methodId: 'derate-brush' },
+      ],
+      base,
+    );
     const sum = (a: Float64Array) => a.reduce((s, v) => s + v, 0);
     expect(sum(priced.dailyFoulingCost)).toBeCloseTo(priced.totals.foulingCost, 6);
     expect(sum(priced.dailyCleaningCost)).toBeCloseTo(priced.totals.cleaningCost + priced.totals.downtimeCost, 6);
@@ -91,13 +98,32 @@ describe('pricing a given schedule', () => {
 
   it('reports rule breaks of a baseline instead of refusing it, and refuses overlapping cleanings', () => {
     const tight = smallProblem({ minSpacingDays: 20 }, 40);
-    const priced = priceSchedule(tight, [{ startDay: 5, methodId: 'outage-wash' }, { startDay: 10, methodId: 'outage-wash' }], baseScenario(tight));
+    const priced = priceSchedule(
+      tight,
+      [
+        { startDay: 5, methodId: 'outage-wash' },
+        { startDay: 10, methodId: 'outage-wash' },
+      ],
+      baseScenario(tight),
+    );
     expect(priced.ruleBreaks.some((b) => /less than 20 days/.test(b))).toBe(true);
-    expect(() => priceSchedule(p, [{ startDay: 5, methodId: 'derate-brush' }, { startDay: 6, methodId: 'outage-wash' }], base)).toThrow(/overlaps/);
+    expect(() =>
+      priceSchedule(
+        p,
+        [
+          { startDay: 5, methodId: 'derate-brush' },
+          { startDay: 6, methodId: 'outage-wash' },
+        ],
+        base,
+      ),
+    ).toThrow(/overlaps/);
   });
 
   it('the fast re-pricer gives the same yearly totals as the detailed pricing under changed inputs', () => {
-    const plan = [{ startDay: 3, methodId: 'outage-wash' }, { startDay: 21, methodId: 'derate-brush' }];
+    const plan = [
+      { startDay: 3, methodId: 'outage-wash' },
+      { startDay: 21, methodId: 'derate-brush' },
+    ];
     const fast = compileSchedulePricer(p, plan);
     const scenarios: PricingScenario[] = [
       base,
@@ -115,9 +141,20 @@ describe('pricing a given schedule', () => {
   it('the fast re-pricer agrees with the detailed pricing when the load varies and some days have none', () => {
     const load = Float64Array.from({ length: 40 }, (_, d) => (d % 9 === 4 ? 0 : 0.45 + 0.5 * Math.abs(Math.sin(d / 5))));
     const varied = smallProblem({ lostGeneration: { ...p.lostGeneration, loadFraction: load } }, 40);
-    const plan = [{ startDay: 3, methodId: 'derate-brush' }, { startDay: 12, methodId: 'outage-wash' }, { startDay: 21, methodId: 'derate-brush' }, { startDay: 30, methodId: 'outage-wash' }];
+    const plan = [
+      { startDay: 3, methodId: 'derate-brush' },
+      { startDay: 12, methodId: 'outage-wash' },
+      { startDay: 21, methodId: 'derate-brush' },
+      { startDay: 30, methodId: 'outage-wash' },
+    ];
     const fast = compileSchedulePricer(varied, plan);
-    const s: PricingScenario = { foulingRateScale: 1.3, prices: { fuel: 0.8, co2: 1, replacement: 1.4 }, cleaningCostScale: 1.2, recoveredCleanlinessShift: -0.03, discountRate: 0.12 };
+    const s: PricingScenario = {
+      foulingRateScale: 1.3,
+      prices: { fuel: 0.8, co2: 1, replacement: 1.4 },
+      cleaningCostScale: 1.2,
+      recoveredCleanlinessShift: -0.03,
+      discountRate: 0.12,
+    };
     const detailed = priceSchedule(varied, plan, s).yearly.map((y) => y.total);
     Array.from(fast.yearlyTotals(s)).forEach((v, i) => expect(v).toBeCloseTo(detailed[i]!, 6));
   });

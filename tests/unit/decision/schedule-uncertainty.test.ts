@@ -45,7 +45,10 @@ describe('sensitivity and Monte Carlo of a chosen schedule', () => {
     const t = tornado(compared, ranges);
     expect(t.bars).toHaveLength(6);
     for (let i = 1; i < t.bars.length; i++) expect(t.bars[i - 1]?.swing).toBeGreaterThanOrEqual(t.bars[i]!.swing);
-    expect(t.baseNpv).toBeCloseTo(npvUnder(compared, { foulingRate: 1, fuelPrice: 1, replacementPrice: 1, cleaningCost: 1, recoveredCleanliness: 0, discountRate: 0.08 }), 6);
+    expect(t.baseNpv).toBeCloseTo(
+      npvUnder(compared, { foulingRate: 1, fuelPrice: 1, replacementPrice: 1, cleaningCost: 1, recoveredCleanliness: 0, discountRate: 0.08 }),
+      6,
+    );
     // faster fouling makes cleaning worth more
     const fouling = t.bars.find((b) => b.input === 'foulingRate')!;
     expect(fouling.npvAtHigh).toBeGreaterThan(fouling.npvAtLow);

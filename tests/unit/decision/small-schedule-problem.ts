@@ -18,8 +18,24 @@ export function smallProblem(overrides: Partial<ScheduleProblem> = {}, days = 40
     (d) => 1 + 0.5 * Math.sin(d / 6),
   );
   const methods: ScheduleMethod[] = [
-    { id: 'outage-wash', cleaningCost: 20_000, durationDays: 2, unitDuringCleaning: 'outage', deratePct: 0, recoveredCleanliness: 0.92, foulingRateMultiplier: 1 },
-    { id: 'derate-brush', cleaningCost: 8_000, durationDays: 3, unitDuringCleaning: 'derate', deratePct: 50, recoveredCleanliness: 0.85, foulingRateMultiplier: 1.2 },
+    {
+      id: 'outage-wash',
+      cleaningCost: 20_000,
+      durationDays: 2,
+      unitDuringCleaning: 'outage',
+      deratePct: 0,
+      recoveredCleanliness: 0.92,
+      foulingRateMultiplier: 1,
+    },
+    {
+      id: 'derate-brush',
+      cleaningCost: 8_000,
+      durationDays: 3,
+      unitDuringCleaning: 'derate',
+      deratePct: 50,
+      recoveredCleanliness: 0.85,
+      foulingRateMultiplier: 1.2,
+    },
   ];
   const plannedOutage = new Uint8Array(days);
   for (let d = 20; d <= 23; d++) plannedOutage[d] = 1;

@@ -51,7 +51,10 @@ const dataOf = (key: string, days?: number): DemoUnitData => {
 /** The plant-local day of an hour of a unit's data. */
 const localDay = (data: DemoUnitData, ms: number) => DateTime.fromMillis(ms, { zone: data.timeZone }).toISODate();
 
-const sha256 = async (file: string) => createHash('sha256').update(await readFile(file)).digest('hex');
+const sha256 = async (file: string) =>
+  createHash('sha256')
+    .update(await readFile(file))
+    .digest('hex');
 
 const imported = new Map<string, ReturnType<typeof importDemoFile>>();
 /** A unit's data written as a CSV or XLSX file and imported, once per data and kind. */
@@ -68,7 +71,12 @@ async function importDemoFile(data: DemoUnitData, kind: 'csv' | 'xlsx') {
   const check = await checkImportFile(file, { mapping });
   const samples: ImportSample[] = [];
   const summary = check.ok
-    ? await importSamples(file, { mapping, fileOrder: check.order, steadiness: { ratingMw: data.unit.turbine.ratingMw }, onBatch: (b) => void samples.push(...b) })
+    ? await importSamples(file, {
+        mapping,
+        fileOrder: check.order,
+        steadiness: { ratingMw: data.unit.turbine.ratingMw },
+        onBatch: (b) => void samples.push(...b),
+      })
     : null;
   return { check, summary, samples };
 }
@@ -91,7 +99,15 @@ describe('demo scenario metadata', () => {
 
   it('has design tube velocities within the 6–8 ft/s the trade expects [common practice, ENGINEERING.md §3]', () => {
     for (const u of DEMO_UNITS) {
-      const p = analyseCondenserPoint({ backpressureKpa: 8, cwInletC: u.design.cwInletC, cwOutletC: u.design.cwInletC + 10, cwFlowM3s: u.design.cwFlowM3s, pluggedTubes: u.pluggedTubes, geometry: u.geometry, referenceCleanliness: 0.85 });
+      const p = analyseCondenserPoint({
+        backpressureKpa: 8,
+        cwInletC: u.design.cwInletC,
+        cwOutletC: u.design.cwInletC + 10,
+        cwFlowM3s: u.design.cwFlowM3s,
+        pluggedTubes: u.pluggedTubes,
+        geometry: u.geometry,
+        referenceCleanliness: 0.85,
+      });
       expect(p.velocityMs / 0.3048).toBeGreaterThan(5.5);
       expect(p.velocityMs / 0.3048).toBeLessThan(8.5);
     }
@@ -117,7 +133,8 @@ describe('demo data generator', () => {
     expect(data.hours).toHaveLength(1096 * 24);
     expect(localDay(data, data.hours[0]!.timestampUtc)).toBe('2023-01-01');
     for (const h of data.hours) {
-      for (const v of [h.loadMw, h.backpressureKpa, h.cwInletC, h.cwOutletC, h.cwFlowM3s, h.hotwellC, h.dissolvedOxygenPpb, h.airRemovalKgS, h.barometerKpa]) expect(Number.isFinite(v)).toBe(true);
+      for (const v of [h.loadMw, h.backpressureKpa, h.cwInletC, h.cwOutletC, h.cwFlowM3s, h.hotwellC, h.dissolvedOxygenPpb, h.airRemovalKgS, h.barometerKpa])
+        expect(Number.isFinite(v)).toBe(true);
     }
   });
 
@@ -127,7 +144,9 @@ describe('demo data generator', () => {
     const first = localDay(short, short.hours[0]!.timestampUtc)!;
     expect(first).toBe(DateTime.fromISO(TODAY).minus({ days: SPAN_DAYS }).toISODate());
     const tail = whole.hours.slice(-short.hours.length);
-    expect(short.hours.map((h) => [h.timestampUtc, h.truth.cleanliness, h.truth.offline])).toEqual(tail.map((h) => [h.timestampUtc, h.truth.cleanliness, h.truth.offline]));
+    expect(short.hours.map((h) => [h.timestampUtc, h.truth.cleanliness, h.truth.offline])).toEqual(
+      tail.map((h) => [h.timestampUtc, h.truth.cleanliness, h.truth.offline]),
+    );
     expect(short.cleanings).toEqual(whole.cleanings.filter((c) => c.date >= first));
     expect(short.cleanings.length).toBeGreaterThan(0);
     expect(short.outages).toEqual(whole.outages.filter((o) => o.end >= first));
@@ -170,7 +189,14 @@ describe('demo data generator', () => {
     const subcooling = (h: (typeof online)[number]) => saturationTemperatureC(h.backpressureKpa) - h.hotwellC;
     const unexplained = (h: (typeof online)[number]) =>
       h.truth.backpressureKpa -
-      backpressureAtCleanlinessKpa({ geometry: u.geometry, cwInletC: h.cwInletC, cwFlowM3s: h.truth.cwFlowM3s, dutyMw: h.truth.dutyMw, pluggedTubes: u.pluggedTubes, cleanliness: h.truth.cleanliness });
+      backpressureAtCleanlinessKpa({
+        geometry: u.geometry,
+        cwInletC: h.cwInletC,
+        cwFlowM3s: h.truth.cwFlowM3s,
+        dutyMw: h.truth.dutyMw,
+        pluggedTubes: u.pluggedTubes,
+        cleanliness: h.truth.cleanliness,
+      });
     expect(inLeak.length).toBeGreaterThan(19 * 24 * 0.9);
     expect(mean(inLeak.map(subcooling))).toBeGreaterThan(2);
     expect(mean(nearby.map(subcooling))).toBeLessThan(1);
@@ -184,18 +210,21 @@ describe('demo data generator', () => {
 describe('the demo made on a given day', () => {
   const LATER = '2026-12-02';
 
-  it.each(['harrow-creek-1', 'fenwick-ridge-1'])('%s made on 2 Dec 2026 ends with the hour before midnight of 1 Dec on the plant’s clock and starts its span earlier', (key) => {
-    // the last 60 days hold the end of summer time on both sides of the Atlantic (25 Oct and 1 Nov 2026)
-    const data = generateDemoUnitData(demoUnit(key), { today: LATER, days: SHORT_DAYS });
-    const first = DateTime.fromMillis(data.hours[0]!.timestampUtc, { zone: data.timeZone });
-    const last = DateTime.fromMillis(data.hours.at(-1)!.timestampUtc, { zone: data.timeZone });
-    expect(last.toISODate()).toBe('2026-12-01');
-    expect(last.hour).toBe(23);
-    expect(first.toISODate()).toBe(DateTime.fromISO(LATER).minus({ days: SHORT_DAYS }).toISODate());
-    expect(first.hour).toBe(0);
-    // one row an hour throughout
-    for (let i = 1; i < data.hours.length; i++) expect(data.hours[i]!.timestampUtc - data.hours[i - 1]!.timestampUtc).toBe(3_600_000);
-  });
+  it.each(['harrow-creek-1', 'fenwick-ridge-1'])(
+    '%s made on 2 Dec 2026 ends with the hour before midnight of 1 Dec on the plant’s clock and starts its span earlier',
+    (key) => {
+      // the last 60 days hold the end of summer time on both sides of the Atlantic (25 Oct and 1 Nov 2026)
+      const data = generateDemoUnitData(demoUnit(key), { today: LATER, days: SHORT_DAYS });
+      const first = DateTime.fromMillis(data.hours[0]!.timestampUtc, { zone: data.timeZone });
+      const last = DateTime.fromMillis(data.hours.at(-1)!.timestampUtc, { zone: data.timeZone });
+      expect(last.toISODate()).toBe('2026-12-01');
+      expect(last.hour).toBe(23);
+      expect(first.toISODate()).toBe(DateTime.fromISO(LATER).minus({ days: SHORT_DAYS }).toISODate());
+      expect(first.hour).toBe(0);
+      // one row an hour throughout
+      for (let i = 1; i < data.hours.length; i++) expect(data.hours[i]!.timestampUtc - data.hours[i - 1]!.timestampUtc).toBe(3_600_000);
+    },
+  );
 
   it('plays the same story moved: cleanings, outages and the air leak keep their distance from the end', () => {
     const written = dataOf('harrow-creek-1');
@@ -211,7 +240,10 @@ describe('the demo made on a given day', () => {
     const leakDays = new Set(moved.hours.filter((h) => h.truth.airLeak).map((h) => localDay(moved, h.timestampUtc)));
     expect([...leakDays].sort()).toEqual(Array.from({ length: leakDays.size }, (_, i) => DateTime.fromISO(moved.airLeak.start).plus({ days: i }).toISODate()));
     for (const o of moved.outages) {
-      const inside = moved.hours.filter((h) => { const d = localDay(moved, h.timestampUtc)!; return d >= o.start && d <= o.end; });
+      const inside = moved.hours.filter((h) => {
+        const d = localDay(moved, h.timestampUtc)!;
+        return d >= o.start && d <= o.end;
+      });
       expect(inside.length).toBeGreaterThan(0);
       expect(inside.every((h) => h.truth.offline)).toBe(true);
     }
@@ -266,7 +298,15 @@ describe('demo files through the import pipeline', () => {
     for (const s of samples) {
       const h = truth.get(s.timestampUtc)!;
       if (s.validity !== 'ok' || h.truth.fault !== null || h.truth.airLeak) continue;
-      const point = analyseCondenserPoint({ backpressureKpa: s.backpressureKpa, cwInletC: s.cwInletC, cwOutletC: s.cwOutletC, cwFlowM3s: s.cwFlowM3s, pluggedTubes: data.unit.pluggedTubes, geometry: data.unit.geometry, referenceCleanliness: 0.9 });
+      const point = analyseCondenserPoint({
+        backpressureKpa: s.backpressureKpa,
+        cwInletC: s.cwInletC,
+        cwOutletC: s.cwOutletC,
+        cwFlowM3s: s.cwFlowM3s,
+        pluggedTubes: data.unit.pluggedTubes,
+        geometry: data.unit.geometry,
+        referenceCleanliness: 0.9,
+      });
       relErrors.push(point.cleanliness / h.truth.cleanliness - 1);
     }
     relErrors.sort((a, b) => a - b);

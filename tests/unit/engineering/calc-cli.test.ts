@@ -15,8 +15,18 @@ function calc(command: string, input: unknown): { status: number; body: unknown 
 }
 
 const point = {
-  backpressureKpa: 6.5, cwInletC: 22, cwOutletC: 31, cwFlowM3s: 15, surfaceM2: 28500, tubeCount: 31200, passes: 2,
-  tubeOdMm: 25.4, tubeBwg: 22, tubeMaterial: 'titanium', pluggedTubes: 0, referenceCleanliness: 0.85,
+  backpressureKpa: 6.5,
+  cwInletC: 22,
+  cwOutletC: 31,
+  cwFlowM3s: 15,
+  surfaceM2: 28500,
+  tubeCount: 31200,
+  passes: 2,
+  tubeOdMm: 25.4,
+  tubeBwg: 22,
+  tubeMaterial: 'titanium',
+  pluggedTubes: 0,
+  referenceCleanliness: 0.85,
 };
 
 describe('calc CLI', () => {
@@ -32,17 +42,34 @@ describe('calc CLI', () => {
     const { status, body } = calc('condenser-point', [point, { ...point, cwOutletC: 20 }, { ...point, extra: 1 }]);
     expect(status).toBe(1);
     const [ok, bad, unknownKey] = body as Record<string, unknown>[];
-    expect(Object.keys(ok ?? {}).sort()).toEqual(
-      ['cleanliness', 'dutyMw', 'expectedBackpressureKpa', 'itdK', 'lmtdK', 'riseK', 'saturationC', 'ttdK', 'uCleanWm2K', 'uWm2K', 'velocityMs'],
-    );
+    expect(Object.keys(ok ?? {}).sort()).toEqual([
+      'cleanliness',
+      'dutyMw',
+      'expectedBackpressureKpa',
+      'itdK',
+      'lmtdK',
+      'riseK',
+      'saturationC',
+      'ttdK',
+      'uCleanWm2K',
+      'uWm2K',
+      'velocityMs',
+    ]);
     expect(bad?.error).toMatch(/not above the inlet/);
     expect(unknownKey?.error).toMatch(/extra/);
   });
 
   it('penalty: money rounded to cents, the documented keys, the generic-curve warning', () => {
     const { status, body } = calc('penalty', {
-      loadFraction: 1, ratingMw: 500, backpressureKpa: 10, referenceBackpressureKpa: 7, heatRateBtuKwh: 9500,
-      fuelPricePerMmbtu: 3, replacementPricePerMwh: 60, co2PricePerTonne: 20, co2KgPerMmbtu: 93.28,
+      loadFraction: 1,
+      ratingMw: 500,
+      backpressureKpa: 10,
+      referenceBackpressureKpa: 7,
+      heatRateBtuKwh: 9500,
+      fuelPricePerMmbtu: 3,
+      replacementPricePerMwh: 60,
+      co2PricePerTonne: 20,
+      co2KgPerMmbtu: 93.28,
     });
     expect(status).toBe(0);
     const r = body as Record<string, number | string[]>;
@@ -55,16 +82,31 @@ describe('calc CLI', () => {
   });
 
   it('condenser-point: warns of a cleanliness outside 0.2–1.3 and refuses an expected backpressure above 50 kPa', () => {
-    const { status, body } = calc('condenser-point', [{ ...point, uCleanWm2K: 500 }, { ...point, uCleanWm2K: 300 }]);
+    const { status, body } = calc('condenser-point', [
+      { ...point, uCleanWm2K: 500 },
+      { ...point, uCleanWm2K: 300 },
+    ]);
     expect(status).toBe(1);
     const [warned, refused] = body as { warnings?: string[]; error?: string }[];
     expect(warned?.warnings).toEqual([expect.stringMatching(/cleanliness 3\.77 is outside 0\.2–1\.3/)]);
     expect(refused?.error).toMatch(/expected backpressure at cleanliness 0\.85 is 117\.\d kPa, outside 0\.7–50 kPa/);
   });
 
-  it('penalty: warns beyond the correction curve\'s last point and refuses a backpressure above 50 kPa', () => {
-    const input = { loadFraction: 1, ratingMw: 300, referenceBackpressureKpa: 7, heatRateBtuKwh: 9500, fuelPricePerMmbtu: 3, replacementPricePerMwh: 60, co2PricePerTonne: 0, co2KgPerMmbtu: 53.06 };
-    const { status, body } = calc('penalty', [{ ...input, backpressureKpa: 20 }, { ...input, backpressureKpa: 4035 }]);
+  it("penalty: warns beyond the correction curve's last point and refuses a backpressure above 50 kPa", () => {
+    const input = {
+      loadFraction: 1,
+      ratingMw: 300,
+      referenceBackpressureKpa: 7,
+      heatRateBtuKwh: 9500,
+      fuelPricePerMmbtu: 3,
+      replacementPricePerMwh: 60,
+      co2PricePerTonne: 0,
+      co2KgPerMmbtu: 53.06,
+    };
+    const { status, body } = calc('penalty', [
+      { ...input, backpressureKpa: 20 },
+      { ...input, backpressureKpa: 4035 },
+    ]);
     expect(status).toBe(1);
     const [beyond, refused] = body as { warnings?: string[]; error?: string }[];
     expect(beyond?.warnings).toContainEqual(expect.stringMatching(/20 kPa is beyond the correction curve's last point/));
@@ -81,7 +123,12 @@ describe('calc CLI', () => {
   });
 
   it('as a process (`npm run --silent calc`): reads stdin, prints one JSON line, exits 1 when an input failed', () => {
-    const r = spawnSync('npm', ['run', '--silent', 'calc', '--', 'saturation'], { cwd: ROOT, input: JSON.stringify([{ pressureKpa: 8 }, { pressureKpa: 'eight' }]), encoding: 'utf8', timeout: 60_000 });
+    const r = spawnSync('npm', ['run', '--silent', 'calc', '--', 'saturation'], {
+      cwd: ROOT,
+      input: JSON.stringify([{ pressureKpa: 8 }, { pressureKpa: 'eight' }]),
+      encoding: 'utf8',
+      timeout: 60_000,
+    });
     expect(r.status).toBe(1);
     expect(r.stdout.trim().split('\n')).toHaveLength(1);
     const [ok, bad] = JSON.parse(r.stdout) as [{ temperatureC: number }, { error: string }];

@@ -139,7 +139,14 @@ describe('HEI clean coefficient', () => {
   it('uses edited tables when given and records their basis on the result', () => {
     const tables: HeiTables = { ...DEFAULT_HEI_TABLES, basis: 'site tables 2024', tubeConstant: [{ odBelowMm: null, c: 256 }] };
     const r = analyseCondenserPoint({
-      backpressureKpa: 6.5, cwInletC: 22, cwOutletC: 31, cwFlowM3s: 15, pluggedTubes: 0, geometry: GEOMETRY, referenceCleanliness: 0.85, heiTables: tables,
+      backpressureKpa: 6.5,
+      cwInletC: 22,
+      cwOutletC: 31,
+      cwFlowM3s: 15,
+      pluggedTubes: 0,
+      geometry: GEOMETRY,
+      referenceCleanliness: 0.85,
+      heiTables: tables,
     });
     expect(r.uCleanBasis).toBe('site tables 2024');
     const base = cleanCoefficientWm2K(GEOMETRY, 22, r.velocityMs);
@@ -154,8 +161,7 @@ describe('HEI clean coefficient', () => {
 
 describe('plugged tubes', () => {
   it('with total flow held, U_clean·A_eff scales as √(1 − f) [derived]', () => {
-    const ua = (plugged: number) =>
-      cleanCoefficientWm2K(GEOMETRY, 20, tubeVelocityMs(GEOMETRY, 15, plugged)).value * activeSurfaceM2(GEOMETRY, plugged);
+    const ua = (plugged: number) => cleanCoefficientWm2K(GEOMETRY, 20, tubeVelocityMs(GEOMETRY, 15, plugged)).value * activeSurfaceM2(GEOMETRY, plugged);
     for (const plugged of [312, 3120, 9360]) {
       const f = plugged / GEOMETRY.tubeCount;
       expect(ua(plugged) / ua(0)).toBeCloseTo(Math.sqrt(1 - f), 12);
@@ -202,7 +208,13 @@ describe('trade checks [common practice]', () => {
 
   it('outlet water in the upper 90s °F at 100 °F condensing (a TTD of a few °F) reads as a very clean condenser', () => {
     const r = analyseCondenserPoint({
-      backpressureKpa: 6.545, cwInletC: fToC(80), cwOutletC: fToC(97), cwFlowM3s: 15, pluggedTubes: 0, geometry: GEOMETRY, referenceCleanliness: 0.85,
+      backpressureKpa: 6.545,
+      cwInletC: fToC(80),
+      cwOutletC: fToC(97),
+      cwFlowM3s: 15,
+      pluggedTubes: 0,
+      geometry: GEOMETRY,
+      referenceCleanliness: 0.85,
     });
     expect(cToF(r.saturationC)).toBeCloseTo(100, 0);
     expect(r.cleanliness).toBeGreaterThan(0.95);
@@ -210,7 +222,13 @@ describe('trade checks [common practice]', () => {
 
   it('a TTD below 1 K gets an instrument warning', () => {
     const r = analyseCondenserPoint({
-      backpressureKpa: 5.0, cwInletC: 20, cwOutletC: 32.4, cwFlowM3s: 15, pluggedTubes: 0, geometry: GEOMETRY, referenceCleanliness: 0.85,
+      backpressureKpa: 5.0,
+      cwInletC: 20,
+      cwOutletC: 32.4,
+      cwFlowM3s: 15,
+      pluggedTubes: 0,
+      geometry: GEOMETRY,
+      referenceCleanliness: 0.85,
     });
     expect(r.ttdK).toBeLessThan(1);
     expect(r.warnings.some((w) => /instrument/.test(w))).toBe(true);
@@ -242,9 +260,9 @@ describe('rejected points', () => {
 
   it('rejects plugged tubes beyond the tube count and a gauge outside the material table', () => {
     expect(() => analyseCondenserPoint({ ...base, cwInletC: 20, cwOutletC: 30, pluggedTubes: 31200 })).toThrow(/pluggedTubes/);
-    expect(() =>
-      analyseCondenserPoint({ ...base, cwInletC: 20, cwOutletC: 30, geometry: { ...GEOMETRY, tubeBwg: 14 } }),
-    ).toThrow(/BWG 14 is outside the listed gauges/);
+    expect(() => analyseCondenserPoint({ ...base, cwInletC: 20, cwOutletC: 30, geometry: { ...GEOMETRY, tubeBwg: 14 } })).toThrow(
+      /BWG 14 is outside the listed gauges/,
+    );
   });
 });
 

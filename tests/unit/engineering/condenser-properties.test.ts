@@ -81,12 +81,36 @@ describe('invalid input always gets a clear error', () => {
     fc.constant(undefined),
   );
   const keys = [
-    'backpressureKpa', 'cwInletC', 'cwOutletC', 'cwFlowM3s', 'surfaceM2', 'tubeCount', 'passes', 'tubeOdMm',
-    'tubeBwg', 'tubeMaterial', 'pluggedTubes', 'referenceCleanliness', 'uCleanWm2K', 'pressureKpa', 'temperatureC', 'loadFraction',
+    'backpressureKpa',
+    'cwInletC',
+    'cwOutletC',
+    'cwFlowM3s',
+    'surfaceM2',
+    'tubeCount',
+    'passes',
+    'tubeOdMm',
+    'tubeBwg',
+    'tubeMaterial',
+    'pluggedTubes',
+    'referenceCleanliness',
+    'uCleanWm2K',
+    'pressureKpa',
+    'temperatureC',
+    'loadFraction',
   ];
   const valid = {
-    backpressureKpa: 6.5, cwInletC: 22, cwOutletC: 31, cwFlowM3s: 15, surfaceM2: 28500, tubeCount: 31200, passes: 2,
-    tubeOdMm: 25.4, tubeBwg: 22, tubeMaterial: 'titanium', pluggedTubes: 0, referenceCleanliness: 0.85,
+    backpressureKpa: 6.5,
+    cwInletC: 22,
+    cwOutletC: 31,
+    cwFlowM3s: 15,
+    surfaceM2: 28500,
+    tubeCount: 31200,
+    passes: 2,
+    tubeOdMm: 25.4,
+    tubeBwg: 22,
+    tubeMaterial: 'titanium',
+    pluggedTubes: 0,
+    referenceCleanliness: 0.85,
   };
 
   it.each([

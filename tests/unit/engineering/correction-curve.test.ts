@@ -18,8 +18,22 @@ const TWO_LOADS: CorrectionCurve = {
   label: 'test curve',
   isGeneric: false,
   curves: [
-    { loadFraction: 0.5, points: [{ backpressureKpa: 3, changePct: -1 }, { backpressureKpa: 6, changePct: 0 }, { backpressureKpa: 12, changePct: 4 }] },
-    { loadFraction: 1.0, points: [{ backpressureKpa: 4, changePct: -0.5 }, { backpressureKpa: 6, changePct: 0 }, { backpressureKpa: 12, changePct: 2 }] },
+    {
+      loadFraction: 0.5,
+      points: [
+        { backpressureKpa: 3, changePct: -1 },
+        { backpressureKpa: 6, changePct: 0 },
+        { backpressureKpa: 12, changePct: 4 },
+      ],
+    },
+    {
+      loadFraction: 1.0,
+      points: [
+        { backpressureKpa: 4, changePct: -0.5 },
+        { backpressureKpa: 6, changePct: 0 },
+        { backpressureKpa: 12, changePct: 2 },
+      ],
+    },
   ],
 };
 
@@ -77,9 +91,30 @@ describe('exhaust-pressure correction curve', () => {
       label: 'three loads',
       isGeneric: false,
       curves: [
-        { loadFraction: 0.5, points: [{ backpressureKpa: 4, changePct: -1 }, { backpressureKpa: 7, changePct: 0 }, { backpressureKpa: 10, changePct: 3 }] },
-        { loadFraction: 0.75, points: [{ backpressureKpa: 4, changePct: -1 }, { backpressureKpa: 8, changePct: 0 }, { backpressureKpa: 20, changePct: 8 }] },
-        { loadFraction: 1, points: [{ backpressureKpa: 4, changePct: -1 }, { backpressureKpa: 8, changePct: 0 }, { backpressureKpa: 20, changePct: 7 }] },
+        {
+          loadFraction: 0.5,
+          points: [
+            { backpressureKpa: 4, changePct: -1 },
+            { backpressureKpa: 7, changePct: 0 },
+            { backpressureKpa: 10, changePct: 3 },
+          ],
+        },
+        {
+          loadFraction: 0.75,
+          points: [
+            { backpressureKpa: 4, changePct: -1 },
+            { backpressureKpa: 8, changePct: 0 },
+            { backpressureKpa: 20, changePct: 8 },
+          ],
+        },
+        {
+          loadFraction: 1,
+          points: [
+            { backpressureKpa: 4, changePct: -1 },
+            { backpressureKpa: 8, changePct: 0 },
+            { backpressureKpa: 20, changePct: 7 },
+          ],
+        },
       ],
     };
     expect(curveExtrapolationWarning(three, 0.75, 15)).toBeUndefined();
@@ -111,7 +146,19 @@ describe('exhaust-pressure correction curve', () => {
   });
 
   it('an output-basis curve gives the heat-rate penalty by the inverse relation', () => {
-    const outputCurve: CorrectionCurve = { ...TWO_LOADS, basis: 'output', curves: [{ loadFraction: 1, points: [{ backpressureKpa: 4, changePct: 0 }, { backpressureKpa: 12, changePct: -3 }] }] };
+    const outputCurve: CorrectionCurve = {
+      ...TWO_LOADS,
+      basis: 'output',
+      curves: [
+        {
+          loadFraction: 1,
+          points: [
+            { backpressureKpa: 4, changePct: 0 },
+            { backpressureKpa: 12, changePct: -3 },
+          ],
+        },
+      ],
+    };
     const p = penaltyBetween(outputCurve, 1, 12, 4);
     expect(p.outputPenaltyPct).toBeCloseTo(3, 12);
     expect(p.heatRatePenaltyPct).toBeCloseTo(3 / 0.97, 12);
@@ -129,7 +176,11 @@ describe('generic default curve [common practice]', () => {
   });
 
   it('costs about 1–2 % heat rate per inHg above design at full load', () => {
-    for (const [a, b] of [[2, 3], [2.5, 3.5], [3, 4]] as const) {
+    for (const [a, b] of [
+      [2, 3],
+      [2.5, 3.5],
+      [3, 4],
+    ] as const) {
       const perInHg = penaltyBetween(GENERIC_CORRECTION_CURVE, 1, inHgToKpa(b), inHgToKpa(a)).heatRatePenaltyPct / (b - a);
       expect(perInHg).toBeGreaterThanOrEqual(1);
       expect(perInHg).toBeLessThanOrEqual(2);
@@ -149,9 +200,16 @@ describe('generic default curve [common practice]', () => {
 
   it('never falls as backpressure rises, at any load (property)', () => {
     fc.assert(
-      fc.property(fc.double({ min: 0.3, max: 1.1, noNaN: true }), fc.double({ min: 1, max: 25, noNaN: true }), fc.double({ min: 0, max: 5, noNaN: true }), (load, p, dp) => {
-        expect(heatRateChangePct(GENERIC_CORRECTION_CURVE, load, p + dp)).toBeGreaterThanOrEqual(heatRateChangePct(GENERIC_CORRECTION_CURVE, load, p) - 1e-12);
-      }),
+      fc.property(
+        fc.double({ min: 0.3, max: 1.1, noNaN: true }),
+        fc.double({ min: 1, max: 25, noNaN: true }),
+        fc.double({ min: 0, max: 5, noNaN: true }),
+        (load, p, dp) => {
+          expect(heatRateChangePct(GENERIC_CORRECTION_CURVE, load, p + dp)).toBeGreaterThanOrEqual(
+            heatRateChangePct(GENERIC_CORRECTION_CURVE, load, p) - 1e-12,
+          );
+        },
+      ),
     );
   });
 });

@@ -1,10 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  analyseCondenserPoint,
-  backpressureAtCleanlinessKpa,
-  deviationBreakdown,
-  type DeviationBreakdownInput,
-} from '@shared/domain/condenser/index.js';
+import { analyseCondenserPoint, backpressureAtCleanlinessKpa, deviationBreakdown, type DeviationBreakdownInput } from '@shared/domain/condenser/index.js';
 import { GENERIC_CORRECTION_CURVE, heatRateChangePct } from '@shared/domain/turbine/index.js';
 import { liquidDensityKgM3 } from '@shared/domain/steam/index.js';
 import { DESIGN, GEOMETRY } from './condenser-fixture.js';
@@ -43,16 +38,7 @@ describe('deviation breakdown', () => {
   const b = deviationBreakdown(input);
 
   it('has the load term, the model offset, S0..S5 parts and the unexplained part in the fixed order', () => {
-    expect(b.lines.map((l) => l.cause)).toEqual([
-      'model-offset',
-      'load',
-      'cw-inlet-temperature',
-      'cw-flow',
-      'duty',
-      'plugged-tubes',
-      'fouling',
-      'unexplained',
-    ]);
+    expect(b.lines.map((l) => l.cause)).toEqual(['model-offset', 'load', 'cw-inlet-temperature', 'cw-flow', 'duty', 'plugged-tubes', 'fouling', 'unexplained']);
     expect(b.states.map((s) => s.name)).toEqual(['S0', 'S1', 'S2', 'S3', 'S4', 'S5']);
   });
 

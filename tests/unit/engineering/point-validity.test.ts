@@ -6,7 +6,15 @@ const ctx = { ratingMw: 500 };
 
 describe('data-point validity', () => {
   it('accepts a steady, physical point', () => {
-    expect(checkPointValidity(good, { ...ctx, neighbours: [{ minutesFromPoint: -30, loadMw: 478 }, { minutesFromPoint: 25, loadMw: 485 }] })).toEqual({ valid: true });
+    expect(
+      checkPointValidity(good, {
+        ...ctx,
+        neighbours: [
+          { minutesFromPoint: -30, loadMw: 478 },
+          { minutesFromPoint: 25, loadMw: 485 },
+        ],
+      }),
+    ).toEqual({ valid: true });
   });
 
   it.each([

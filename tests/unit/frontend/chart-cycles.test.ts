@@ -56,6 +56,11 @@ describe('gap between actual and expected backpressure', () => {
   });
 
   it('leaves a gap where either value is missing', () => {
-    expect(gapShapes([{ x: 0, actual: 10, expected: null }, { x: 1, actual: 11, expected: 8 }])).toEqual([]);
+    expect(
+      gapShapes([
+        { x: 0, actual: 10, expected: null },
+        { x: 1, actual: 11, expected: 8 },
+      ]),
+    ).toEqual([]);
   });
 });

@@ -24,7 +24,17 @@ const base: HealthHeadline = {
     planFrom: '2026-12-02',
     dataTo: '2026-11-30',
     plan: [plannedStep],
-    next: { date: '2026-12-20', endDate: '2026-12-21', methodId: 'm1', methodName: 'Brush sweep', cleanlinessBefore: 0.7, cleanlinessAfter: 0.84, cleaningCost: 30_000, downtimeCost: 0, typicalValues: false },
+    next: {
+      date: '2026-12-20',
+      endDate: '2026-12-21',
+      methodId: 'm1',
+      methodName: 'Brush sweep',
+      cleanlinessBefore: 0.7,
+      cleanlinessAfter: 0.84,
+      cleaningCost: 30_000,
+      downtimeCost: 0,
+      typicalValues: false,
+    },
     methodsBasis: 'the library',
   },
 };
@@ -49,7 +59,9 @@ describe('the health view’s opening sentence', () => {
   });
 
   it('says so when no cleaning pays, or when there is no plan yet', () => {
-    expect(healthSentence({ ...base, nextCleaning: { status: 'none-needed', methodsBasis: '' } }, '2026-12-02', 'USD')).toMatch(/no cleaning pays for itself in the coming year\.$/);
+    expect(healthSentence({ ...base, nextCleaning: { status: 'none-needed', methodsBasis: '' } }, '2026-12-02', 'USD')).toMatch(
+      /no cleaning pays for itself in the coming year\.$/,
+    );
     expect(healthSentence({ ...base, nextCleaning: null }, '2026-12-02', 'USD')).toMatch(/there is no cleaning plan yet\.$/);
   });
 

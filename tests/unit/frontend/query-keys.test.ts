@@ -23,7 +23,13 @@ describe('query keys', () => {
   });
 
   it('invalidating an organisation reaches its plants, units, library and members, and nothing of another organisation', () => {
-    for (const key of [plantsQueryOptions('o1').queryKey, unitKey('o1', 'u1'), importQueryOptions('o1', 'i1').queryKey, cleaningMethodsQueryOptions('o1').queryKey, membersQueryOptions('o1').queryKey]) {
+    for (const key of [
+      plantsQueryOptions('o1').queryKey,
+      unitKey('o1', 'u1'),
+      importQueryOptions('o1', 'i1').queryKey,
+      cleaningMethodsQueryOptions('o1').queryKey,
+      membersQueryOptions('o1').queryKey,
+    ]) {
       startsWith(key, organisationKey('o1'));
       expect(key.slice(0, 2)).not.toEqual([...organisationKey('o2')]);
     }

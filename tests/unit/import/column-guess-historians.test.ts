@@ -47,7 +47,17 @@ describe('headers of a short-tag export with US units', () => {
 });
 
 describe('headers of an underscore tag export with SI units', () => {
-  const headers = ['TS_LOCAL', 'U1_GROSS_MW', 'COND_PRESS_KPAA', 'CW_IN_TEMP_DEGC', 'CW_OUT_TEMP_DEGC', 'CW_FLOW_M3H', 'HOTWELL_LEVEL_PCT', 'CW_IN_VALVE_POS_PCT', 'HOTWELL_TEMP_DEGC'];
+  const headers = [
+    'TS_LOCAL',
+    'U1_GROSS_MW',
+    'COND_PRESS_KPAA',
+    'CW_IN_TEMP_DEGC',
+    'CW_OUT_TEMP_DEGC',
+    'CW_FLOW_M3H',
+    'HOTWELL_LEVEL_PCT',
+    'CW_IN_VALVE_POS_PCT',
+    'HOTWELL_TEMP_DEGC',
+  ];
   const rows = [['2024-03-10 13:00', '410', '6.1', '18.2', '27.9', '54000', '48', '100', '36.1']];
   const { g, col } = byHeader(headers, rows);
 
@@ -70,7 +80,15 @@ describe('headers of an underscore tag export with SI units', () => {
 });
 
 describe('headers of a long-name export with bracketed metric units', () => {
-  const headers = ['Date and time', 'Unit load (MW)', 'Condenser abs. pressure (mbar)', 'Cooling water inlet temp. (°C)', 'Cooling water outlet temp. (°C)', 'Cooling water flow (m³/h)', 'Hotwell level (%)'];
+  const headers = [
+    'Date and time',
+    'Unit load (MW)',
+    'Condenser abs. pressure (mbar)',
+    'Cooling water inlet temp. (°C)',
+    'Cooling water outlet temp. (°C)',
+    'Cooling water flow (m³/h)',
+    'Hotwell level (%)',
+  ];
   const rows = [['10.03.2024 13:00', '395', '62', '17.5', '26.8', '52000', '51']];
   const { g, col } = byHeader(headers, rows);
 
@@ -99,18 +117,36 @@ describe('a header whose unit or values belong to another quantity', () => {
   });
 
   it('values far outside what the quantity can be leave the column unproposed', () => {
-    const { col } = byHeader(['Time', 'CW Inlet Temp'], [['2024-03-10T13:00Z', '250000'], ['2024-03-10T13:01Z', '251000']]);
+    const { col } = byHeader(
+      ['Time', 'CW Inlet Temp'],
+      [
+        ['2024-03-10T13:00Z', '250000'],
+        ['2024-03-10T13:01Z', '251000'],
+      ],
+    );
     expect(col['CW Inlet Temp']?.quantity).toBeNull();
     expect(col['CW Inlet Temp']?.note).toMatch(/values/);
   });
 
   it('a stated unit whose values are implausible is not proposed (a backpressure of 95 inHgA)', () => {
-    const { col } = byHeader(['Time', 'BP inHgA'], [['2024-03-10T13:00Z', '95'], ['2024-03-10T13:01Z', '96']]);
+    const { col } = byHeader(
+      ['Time', 'BP inHgA'],
+      [
+        ['2024-03-10T13:00Z', '95'],
+        ['2024-03-10T13:01Z', '96'],
+      ],
+    );
     expect(col['BP inHgA']?.quantity).toBeNull();
   });
 
   it('a column of date-times under a header without date words is taken as the timestamp from its values', () => {
-    const { g } = byHeader(['Sample', 'Gross MW'], [['2024-03-10 13:00', '400'], ['2024-03-10 13:01', '401']]);
+    const { g } = byHeader(
+      ['Sample', 'Gross MW'],
+      [
+        ['2024-03-10 13:00', '400'],
+        ['2024-03-10 13:01', '401'],
+      ],
+    );
     expect(g.mapping.timestamp).toMatchObject({ column: 'Sample', format: 'local-text', dateOrder: 'ymd' });
   });
 });

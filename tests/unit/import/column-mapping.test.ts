@@ -72,13 +72,23 @@ describe('column mapping guesses', () => {
 
   it('produces a complete mapping for a typical US export, with the timestamp form read from the samples', () => {
     const headers = ['Timestamp', 'Gross MW', 'BP (inHgA)', 'CW In Temp °F', 'CW Out Temp °F', 'Circ Water Flow gpm'];
-    const g = guessMapping(headers, [['03/10/2024 13:00', '480', '2.1', '70', '88', '250000'], ['03/10/2024 14:00', '481', '2.1', '70', '88', '250000']], { timeZone: 'America/Chicago' });
+    const g = guessMapping(
+      headers,
+      [
+        ['03/10/2024 13:00', '480', '2.1', '70', '88', '250000'],
+        ['03/10/2024 14:00', '481', '2.1', '70', '88', '250000'],
+      ],
+      { timeZone: 'America/Chicago' },
+    );
     expect(g.complete).toBe(true);
     expect(g.mapping.timestamp).toMatchObject({ format: 'local-text', timeZone: 'America/Chicago', dateOrder: 'mdy' });
   });
 
   it('reads day-first dates, ISO offsets, Excel serials and decimal commas from samples', () => {
-    expect(guessMapping(['Zeit', 'Leistung MW'], [['13.03.2024 14:00', '400,5']]).mapping).toMatchObject({ timestamp: { dateOrder: 'dmy' }, decimalSeparator: ',' });
+    expect(guessMapping(['Zeit', 'Leistung MW'], [['13.03.2024 14:00', '400,5']]).mapping).toMatchObject({
+      timestamp: { dateOrder: 'dmy' },
+      decimalSeparator: ',',
+    });
     expect(guessMapping(['Time', 'Gross MW'], [['2024-03-10T14:00:00-05:00', '400']]).mapping.timestamp?.format).toBe('iso-8601-offset');
     expect(guessMapping(['Time', 'Gross MW'], [['45362.5', '400']]).mapping.timestamp?.format).toBe('excel-serial');
   });

@@ -13,7 +13,13 @@ let tmp: Awaited<ReturnType<typeof makeTempDir>>;
 let good: Buffer;
 beforeAll(async () => {
   tmp = await makeTempDir();
-  good = await readFile(await writeXlsx(tmp.file('good.xlsx'), [['Timestamp', 'Gross MW'], [45292, 480], [45293, 481]]));
+  good = await readFile(
+    await writeXlsx(tmp.file('good.xlsx'), [
+      ['Timestamp', 'Gross MW'],
+      [45292, 480],
+      [45293, 481],
+    ]),
+  );
 });
 afterAll(async () => tmp.cleanup());
 
@@ -43,11 +49,14 @@ describe('a workbook that cannot be read', () => {
   it.each([
     ['cut short half-way', () => good.subarray(0, Math.floor(good.length / 2))],
     ['cut short after its first bytes', () => good.subarray(0, 100)],
-    ['damaged inside its compressed data', () => {
-      const b = Buffer.from(good);
-      for (let i = 200; i < b.length - 200; i += 7) b[i]! ^= 0x55;
-      return b;
-    }],
+    [
+      'damaged inside its compressed data',
+      () => {
+        const b = Buffer.from(good);
+        for (let i = 200; i < b.length - 200; i += 7) b[i]! ^= 0x55;
+        return b;
+      },
+    ],
     ['a ZIP signature followed by garbage', () => Buffer.concat([Buffer.from([0x50, 0x4b, 0x03, 0x04]), Buffer.alloc(2000, 0x41)])],
   ])('%s: "not a readable XLSX workbook", without library text', async (label, bytes) => {
     const e = await fileErrorOf(`${label.replace(/\W+/g, '-')}.xlsx`, bytes());

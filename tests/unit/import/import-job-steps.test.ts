@@ -13,13 +13,42 @@ const T0 = Date.UTC(2025, 0, 1, 0, 0);
 const HOUR = 3_600_000;
 
 function sample(i: number, o: Partial<ImportSample> = {}): ImportSample {
-  return { line: i + 2, timestampUtc: T0 + i * HOUR, loadMw: 300, backpressureKpa: 7, cwInletC: 20, cwOutletC: 29, cwFlowM3s: 14, flowAssumed: false, validity: 'ok', ...o };
+  return {
+    line: i + 2,
+    timestampUtc: T0 + i * HOUR,
+    loadMw: 300,
+    backpressureKpa: 7,
+    cwInletC: 20,
+    cwOutletC: 29,
+    cwFlowM3s: 14,
+    flowAssumed: false,
+    validity: 'ok',
+    ...o,
+  };
 }
-const storedAs = (s: ImportSample, o: Partial<{ backpressureKpa: number }> = {}) => ({ ts: new Date(s.timestampUtc), loadMw: s.loadMw, backpressureKpa: s.backpressureKpa, cwInletC: s.cwInletC, cwOutletC: s.cwOutletC, cwFlowM3s: s.cwFlowM3s, ...o });
+const storedAs = (s: ImportSample, o: Partial<{ backpressureKpa: number }> = {}) => ({
+  ts: new Date(s.timestampUtc),
+  loadMw: s.loadMw,
+  backpressureKpa: s.backpressureKpa,
+  cwInletC: s.cwInletC,
+  cwOutletC: s.cwOutletC,
+  cwFlowM3s: s.cwFlowM3s,
+  ...o,
+});
 
 const check = (o: Partial<ImportCheck> = {}): ImportCheck => ({
-  ok: false, headers: [], errors: [], errorsNotListed: 0, dataRows: 10, duplicateTimestamps: 0, firstTimestampUtc: null, lastTimestampUtc: null,
-  order: 'ascending', assumptions: ['design flow used'], warnings: [], ...o,
+  ok: false,
+  headers: [],
+  errors: [],
+  errorsNotListed: 0,
+  dataRows: 10,
+  duplicateTimestamps: 0,
+  firstTimestampUtc: null,
+  lastTimestampUtc: null,
+  order: 'ascending',
+  assumptions: ['design flow used'],
+  warnings: [],
+  ...o,
 });
 
 describe('storing a batch against the rows already stored', () => {
@@ -47,14 +76,31 @@ describe('a rejected file', () => {
 
   it('reports a file-level error as one error with its line', () => {
     const r = rejection(check({ fileError: { code: 'no-data-rows', message: 'The file has no data rows', line: 1 } }));
-    expect(r).toMatchObject({ errorCount: 1, message: 'The file has no data rows', errors: [{ row: 1, column: '', value: '', message: 'The file has no data rows' }] });
+    expect(r).toMatchObject({
+      errorCount: 1,
+      message: 'The file has no data rows',
+      errors: [{ row: 1, column: '', value: '', message: 'The file has no data rows' }],
+    });
   });
 });
 
 describe('a completed import', () => {
   it('records the stored, skipped and conflicting counts with the file’s time span', () => {
-    const summary = { rowsRead: 10, rowsOk: 9, rowsByReason: { 'low-load': 1 }, firstTimestampUtc: T0, lastTimestampUtc: T0 + 9 * HOUR, duplicateTimestamps: 0, flowAssumedRows: 0, sortedOnTheWay: false, assumptions: ['a'] } as never;
-    const r = completion({ summary, stored: 7, skippedIdentical: 2, conflicting: 1, conflicts: [{ timestampUtc: new Date(T0).toISOString() }] }, check({ warnings: ['w'] }));
+    const summary = {
+      rowsRead: 10,
+      rowsOk: 9,
+      rowsByReason: { 'low-load': 1 },
+      firstTimestampUtc: T0,
+      lastTimestampUtc: T0 + 9 * HOUR,
+      duplicateTimestamps: 0,
+      flowAssumedRows: 0,
+      sortedOnTheWay: false,
+      assumptions: ['a'],
+    } as never;
+    const r = completion(
+      { summary, stored: 7, skippedIdentical: 2, conflicting: 1, conflicts: [{ timestampUtc: new Date(T0).toISOString() }] },
+      check({ warnings: ['w'] }),
+    );
     expect(r).toMatchObject({ status: 'complete', progress: 1, message: null, storedPath: null, notes: { assumptions: ['a'], warnings: ['w'] } });
     expect(r.counts).toMatchObject({ rowsRead: 10, stored: 7, skippedIdentical: 2, conflicting: 1, rowsOk: 9 });
     expect(r.firstTimestamp).toEqual(new Date(T0));

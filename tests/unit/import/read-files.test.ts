@@ -38,7 +38,11 @@ describe('CSV reader', () => {
     ['semicolon', ';'],
     ['tab', '\t'],
   ])('detects a %s delimiter and reads every row with its file line', async (_name, d) => {
-    const f = await writeCsv(tmp.file(`delim-${_name}.csv`), [['Time', 'Gross MW', 'BP'].join(d), ['2024-01-01T00:00Z', '480', '2.1'].join(d), ['2024-01-01T00:01Z', '481', '2.2'].join(d)]);
+    const f = await writeCsv(tmp.file(`delim-${_name}.csv`), [
+      ['Time', 'Gross MW', 'BP'].join(d),
+      ['2024-01-01T00:00Z', '480', '2.1'].join(d),
+      ['2024-01-01T00:01Z', '481', '2.2'].join(d),
+    ]);
     const t = await openCsvTable(f);
     expect(t.headers).toEqual(['Time', 'Gross MW', 'BP']);
     expect(await allRows(t)).toEqual([
@@ -53,7 +57,13 @@ describe('CSV reader', () => {
   });
 
   it('skips a preamble and folds a units row into the header texts', async () => {
-    const f = await writeCsv(tmp.file('preamble.csv'), ['Exported from the plant historian', 'Interval: 1 min', 'Time,CW In Temp,Gross', ',°F,MW', '2024-01-01T00:00Z,70.1,480']);
+    const f = await writeCsv(tmp.file('preamble.csv'), [
+      'Exported from the plant historian',
+      'Interval: 1 min',
+      'Time,CW In Temp,Gross',
+      ',°F,MW',
+      '2024-01-01T00:00Z,70.1,480',
+    ]);
     const t = await openCsvTable(f);
     expect(t.headers).toEqual(['Time', 'CW In Temp (°F)', 'Gross (MW)']);
     expect(t.headerLine).toBe(4);
@@ -89,7 +99,12 @@ describe('CSV reader', () => {
   });
 
   it('reports a line longer than 100,000 characters with its line number', async () => {
-    const f = await writeCsv(tmp.file('long-line.csv'), ['Time,Gross MW,BP', '2024-01-01T00:00Z,480,2.1', `2024-01-01T00:01Z,${'9'.repeat(100_001)},2.1`, '2024-01-01T00:02Z,480,2.1']);
+    const f = await writeCsv(tmp.file('long-line.csv'), [
+      'Time,Gross MW,BP',
+      '2024-01-01T00:00Z,480,2.1',
+      `2024-01-01T00:01Z,${'9'.repeat(100_001)},2.1`,
+      '2024-01-01T00:02Z,480,2.1',
+    ]);
     const e = await fileError(openCsvTable(f));
     expect(e.code).toBe('line-too-long');
     expect(e.line).toBe(3);
@@ -111,7 +126,10 @@ describe('CSV reader', () => {
   });
 
   it('refuses an XLSX uploaded as CSV and UTF-16 text with a clear message', async () => {
-    const x = await writeXlsx(tmp.file('real.xlsx'), [['Time', 'MW'], [45292, 480]]);
+    const x = await writeXlsx(tmp.file('real.xlsx'), [
+      ['Time', 'MW'],
+      [45292, 480],
+    ]);
     expect((await fileError(openCsvTable(x))).message).toMatch(/XLSX/);
     const u = tmp.file('utf16.csv');
     await writeFile(u, Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from('Time,MW\r\n', 'utf16le')]));
@@ -140,7 +158,10 @@ describe('XLSX reader', () => {
   });
 
   it('is chosen by the first bytes, whatever the file is called', async () => {
-    const f = await writeXlsx(tmp.file('misnamed.csv'), [['Timestamp', 'Gross MW'], [45292, 480]]);
+    const f = await writeXlsx(tmp.file('misnamed.csv'), [
+      ['Timestamp', 'Gross MW'],
+      [45292, 480],
+    ]);
     expect((await openTable(f)).kind).toBe('xlsx');
   });
 

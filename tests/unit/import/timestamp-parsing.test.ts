@@ -62,8 +62,12 @@ describe('local wall-clock text in a plant time zone', () => {
 
   it('applies the chosen rule for the repeated hour: earlier, later or reject', () => {
     const wall = '11/03/2024 01:30';
-    expect(iso(parser({ format: 'local-text', timeZone: 'America/Chicago', dateOrder: 'mdy', repeatedHour: 'earlier' }).parse(wall))).toBe('2024-11-03T06:30:00.000Z');
-    expect(iso(parser({ format: 'local-text', timeZone: 'America/Chicago', dateOrder: 'mdy', repeatedHour: 'later' }).parse(wall))).toBe('2024-11-03T07:30:00.000Z');
+    expect(iso(parser({ format: 'local-text', timeZone: 'America/Chicago', dateOrder: 'mdy', repeatedHour: 'earlier' }).parse(wall))).toBe(
+      '2024-11-03T06:30:00.000Z',
+    );
+    expect(iso(parser({ format: 'local-text', timeZone: 'America/Chicago', dateOrder: 'mdy', repeatedHour: 'later' }).parse(wall))).toBe(
+      '2024-11-03T07:30:00.000Z',
+    );
     const strict = parser({ format: 'local-text', timeZone: 'America/Chicago', dateOrder: 'mdy', repeatedHour: 'reject' });
     expect(strict.parse(wall)).toBeNaN();
     expect(strict.error).toMatch(/occurs twice/);
@@ -134,7 +138,8 @@ describe('local time round trip (property)', () => {
       ['Australia/Lord_Howe', Date.UTC(2024, 3, 6, 15)],
       ['America/St_Johns', Date.UTC(2024, 10, 3, 4, 30)],
     ];
-    for (const [zone, at] of changes) expect(DateTime.fromMillis(at - 3_600_000, { zone }).offset).not.toBe(DateTime.fromMillis(at + 3_600_000, { zone }).offset);
+    for (const [zone, at] of changes)
+      expect(DateTime.fromMillis(at - 3_600_000, { zone }).offset).not.toBe(DateTime.fromMillis(at + 3_600_000, { zone }).offset);
     fc.assert(
       fc.property(fc.constantFrom(...changes), fc.integer({ min: -3 * 3600, max: 3 * 3600 }), ([zone, at], seconds) => {
         const t = at + seconds * 1000;

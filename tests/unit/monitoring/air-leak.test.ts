@@ -57,7 +57,11 @@ describe('suspected air in-leakage', () => {
 
   it('still finds a 0.06 step with subcooling +2 K in the middle of fast fouling, and only its days', () => {
     const v = judgeAirLeakDays(
-      series(60, { ratePerDay: 0.009, loss: (i) => (inside(i, 30, 8) ? 0.06 : 0), witnesses: (i) => (inside(i, 30, 8) ? { ...NORMAL, subcoolingK: 2.6 } : NORMAL) }),
+      series(60, {
+        ratePerDay: 0.009,
+        loss: (i) => (inside(i, 30, 8) ? 0.06 : 0),
+        witnesses: (i) => (inside(i, 30, 8) ? { ...NORMAL, subcoolingK: 2.6 } : NORMAL),
+      }),
     );
     expect(airLeakPeriods(v).map((p) => [p.from, p.to])).toEqual([[addDays(START, 30), addDays(START, 37)]]);
   });
@@ -94,7 +98,8 @@ describe('suspected air in-leakage', () => {
     const v = judgeAirLeakDays(
       series(90, {
         loss: (i) => (inside(i, from, 10) ? 0.06 : 0),
-        witnesses: (i) => (inside(i, from, 10) ? { ...NORMAL, subcoolingK: NORMAL.subcoolingK! + 2, dissolvedOxygenPpb: NORMAL.dissolvedOxygenPpb! * 3 } : NORMAL),
+        witnesses: (i) =>
+          inside(i, from, 10) ? { ...NORMAL, subcoolingK: NORMAL.subcoolingK! + 2, dissolvedOxygenPpb: NORMAL.dissolvedOxygenPpb! * 3 } : NORMAL,
       }),
     );
     const periods = airLeakPeriods(v);
@@ -163,7 +168,11 @@ describe('suspected air in-leakage', () => {
 
   it('does not flag a drop that a single witness would need when the drop is below the evidence threshold', () => {
     const v = judgeAirLeakDays(
-      series(60, { ratePerDay: 0, loss: (i) => (inside(i, 30, 5) ? 0.02 : 0), witnesses: (i) => (inside(i, 30, 5) ? { ...NORMAL, dissolvedOxygenPpb: 30 } : NORMAL) }),
+      series(60, {
+        ratePerDay: 0,
+        loss: (i) => (inside(i, 30, 5) ? 0.02 : 0),
+        witnesses: (i) => (inside(i, 30, 5) ? { ...NORMAL, dissolvedOxygenPpb: 30 } : NORMAL),
+      }),
     );
     expect(airLeakPeriods(v)).toEqual([]);
   });
@@ -179,7 +188,12 @@ describe('suspected air in-leakage', () => {
 
 describe('air in-leakage periods from daily verdicts', () => {
   const verdicts = (pattern: string): AirLeakDayVerdict[] =>
-    [...pattern].map((c, i) => ({ day: addDays(START, i), suspected: c === 'x', drop: c === 'x' ? 0.05 + i / 1000 : 0, evidence: c === 'x' ? ['cleanliness-drop', i % 2 ? 'subcooling' : 'dissolved-oxygen'] : [] }));
+    [...pattern].map((c, i) => ({
+      day: addDays(START, i),
+      suspected: c === 'x',
+      drop: c === 'x' ? 0.05 + i / 1000 : 0,
+      evidence: c === 'x' ? ['cleanliness-drop', i % 2 ? 'subcooling' : 'dissolved-oxygen'] : [],
+    }));
 
   it('bridges up to two quiet days inside one period', () => {
     const p = airLeakPeriods(verdicts('...xxx..xx....'));

@@ -19,7 +19,9 @@ describe('LTTB downsampling', () => {
   it('returns exactly the threshold count, first and last kept, in time order, every point taken from the input', () => {
     fc.assert(
       fc.property(
-        fc.array(fc.double({ min: -1e3, max: 1e3, noNaN: true }), { minLength: 4, maxLength: 400 }).chain((ys) => fc.tuple(fc.constant(ys), fc.integer({ min: 3, max: ys.length - 1 }))),
+        fc
+          .array(fc.double({ min: -1e3, max: 1e3, noNaN: true }), { minLength: 4, maxLength: 400 })
+          .chain((ys) => fc.tuple(fc.constant(ys), fc.integer({ min: 3, max: ys.length - 1 }))),
         ([ys, threshold]) => {
           const points = ys.map((v, i) => ({ t: 60_000 * i, v }));
           const out = lttb(points, threshold, X, Y);
@@ -71,7 +73,8 @@ describe('LTTB downsampling of a series with missing values', () => {
   const QX = (p: Q) => p.t;
   const QY = (p: Q) => p.v;
   /** A sine of 10,000 hours around 0.8 (never near 0), with the hours `missing` picks left empty. */
-  const series = (missing: (i: number) => boolean): Q[] => Array.from({ length: 10_000 }, (_, i) => ({ t: 3_600_000 * i, v: missing(i) ? null : 0.8 + 0.05 * Math.sin(i / 300) }));
+  const series = (missing: (i: number) => boolean): Q[] =>
+    Array.from({ length: 10_000 }, (_, i) => ({ t: 3_600_000 * i, v: missing(i) ? null : 0.8 + 0.05 * Math.sin(i / 300) }));
 
   it('with 2 % of the hours missing here and there, scores none of them as 0 and keeps no empty point (not 10 % of the output)', () => {
     const points = series((i) => i % 50 === 7);

@@ -15,7 +15,15 @@ const PLUGGED = SETUP.condenser.pluggedTubes;
 
 /** Model backpressure P(t1, Q_vol, duty, Np, CF) of the sample's own state (ENGINEERING.md §3). */
 function modelKpa(model: UnitModel, s: { cwInletC: number; cwFlowM3s: number }, dutyMw: number, pluggedTubes: number, cleanliness: number): number {
-  return backpressureAtCleanlinessKpa({ geometry: model.geometry, heiTables: model.heiTables, cwInletC: s.cwInletC, cwFlowM3s: s.cwFlowM3s, dutyMw, pluggedTubes, cleanliness });
+  return backpressureAtCleanlinessKpa({
+    geometry: model.geometry,
+    heiTables: model.heiTables,
+    cwInletC: s.cwInletC,
+    cwFlowM3s: s.cwFlowM3s,
+    dutyMw,
+    pluggedTubes,
+    cleanliness,
+  });
 }
 
 /** A straight-line heat-rate curve, 1 % per kPa, zero at 5 kPa (collinear points: PCHIP reproduces a line exactly). */
@@ -26,9 +34,17 @@ const ONE_PCT_PER_KPA: CorrectionCurve = {
   curves: [{ loadFraction: 1, points: [1, 5, 20, 40].map((p) => ({ backpressureKpa: p, changePct: p - 5 })) }],
 };
 
-function modelWith(changes: { curve?: CorrectionCurve; economics?: Partial<typeof SETUP.economics>; turbine?: Partial<typeof SETUP.turbine>; referenceCleanliness?: number | null }): UnitModel {
+function modelWith(changes: {
+  curve?: CorrectionCurve;
+  economics?: Partial<typeof SETUP.economics>;
+  turbine?: Partial<typeof SETUP.turbine>;
+  referenceCleanliness?: number | null;
+}): UnitModel {
   return buildUnitModel({
-    condenser: { ...SETUP.condenser, referenceCleanliness: changes.referenceCleanliness === undefined ? SETUP.condenser.referenceCleanliness : changes.referenceCleanliness },
+    condenser: {
+      ...SETUP.condenser,
+      referenceCleanliness: changes.referenceCleanliness === undefined ? SETUP.condenser.referenceCleanliness : changes.referenceCleanliness,
+    },
     turbine: { ...SETUP.turbine, ...changes.turbine, correctionCurve: changes.curve ?? null },
     economics: { ...SETUP.economics, ...changes.economics },
   });
@@ -137,7 +153,13 @@ describe('deviation breakdown of a sample', () => {
   });
 
   it('gives no CW inlet, CW flow or plugging part when those are at design, and a negative load part at part load', () => {
-    const s = sampleAt(MODEL, { cleanliness: 0.8, cwInletC: SETUP.condenser.designCwInletC, cwFlowM3s: SETUP.condenser.designCwFlowM3s, pluggedTubes: 0, loadFraction: 0.7 });
+    const s = sampleAt(MODEL, {
+      cleanliness: 0.8,
+      cwInletC: SETUP.condenser.designCwInletC,
+      cwFlowM3s: SETUP.condenser.designCwFlowM3s,
+      pluggedTubes: 0,
+      loadFraction: 0.7,
+    });
     const a = analyseSample(MODEL, s, 0, 0.8);
     expect(a.cwInletKpa).toBeCloseTo(0, 12);
     expect(a.cwFlowKpa).toBeCloseTo(0, 12);

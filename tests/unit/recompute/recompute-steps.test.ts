@@ -23,7 +23,16 @@ let nextId = 1;
 
 /** A stored sample at noon UTC of `day` whose measured cleanliness is `cleanliness`. */
 function stored(day: string, cleanliness: number, extra: Partial<StoredSample> = {}): StoredSample {
-  return { id: String(nextId++), ts: new Date(`${day}T12:00:00Z`), ...sampleAt(MODEL, { cleanliness }), hotwellC: null, dissolvedOxygenPpb: null, airRemovalKgS: null, validity: 'ok', ...extra };
+  return {
+    id: String(nextId++),
+    ts: new Date(`${day}T12:00:00Z`),
+    ...sampleAt(MODEL, { cleanliness }),
+    hotwellC: null,
+    dissolvedOxygenPpb: null,
+    airRemovalKgS: null,
+    validity: 'ok',
+    ...extra,
+  };
 }
 
 /** `n` days of samples fouling from 0.90 down by `rate` a day, two points a day. */
@@ -47,7 +56,11 @@ describe('daily cleanliness and witnesses', () => {
   });
 
   it('takes the day’s witness medians where they were measured and null where not', async () => {
-    const rows = [stored(START, 0.85, { dissolvedOxygenPpb: 5 }), stored(START, 0.85, { dissolvedOxygenPpb: 9 }), stored(START, 0.85, { dissolvedOxygenPpb: 7 })];
+    const rows = [
+      stored(START, 0.85, { dissolvedOxygenPpb: 5 }),
+      stored(START, 0.85, { dissolvedOxygenPpb: 9 }),
+      stored(START, 0.85, { dissolvedOxygenPpb: 7 }),
+    ];
     const m = await measureDailyCleanliness({ model: MODEL, dayOf, pluggedTubesOn: plugged, samples: [rows] });
     expect(witnessMedians(m, START)).toEqual({ subcoolingK: null, dissolvedOxygenPpb: 7, airRemovalKgS: null });
     expect(witnessMedians(m, addDays(START, 5))).toEqual({ subcoolingK: null, dissolvedOxygenPpb: null, airRemovalKgS: null });
@@ -82,7 +95,10 @@ describe('fouling cycles', () => {
 
   it('a cleaning starts a new cycle from the day it ended', () => {
     const cycles = fitCycles(daily, [{ date: addDays(START, 30), cleanlinessAfter: null }], new Set());
-    expect(cycles.map((c) => [c.startDay, c.endDay])).toEqual([[START, addDays(START, 30)], [addDays(START, 30), null]]);
+    expect(cycles.map((c) => [c.startDay, c.endDay])).toEqual([
+      [START, addDays(START, 30)],
+      [addDays(START, 30), null],
+    ]);
     expect(cycles.every((c) => c.result.status === 'fitted')).toBe(true);
     expect(trendCleanlinessOn(cycles, addDays(START, 29))!).toBeLessThan(trendCleanlinessOn(cycles, addDays(START, 31))!);
   });
@@ -110,9 +126,18 @@ describe('per-sample analysis', () => {
 
 describe('the unit’s events as the steps read them', () => {
   const ev = (kind: string, startDate: string, endDate: string | null, o: { pluggedTubesAfter?: number; cleanlinessAfter?: number } = {}) => ({
-    kind: kind as never, startDate, endDate, pluggedTubesAfter: o.pluggedTubesAfter ?? null, cleanlinessAfter: o.cleanlinessAfter ?? null,
+    kind: kind as never,
+    startDate,
+    endDate,
+    pluggedTubesAfter: o.pluggedTubesAfter ?? null,
+    cleanlinessAfter: o.cleanlinessAfter ?? null,
   });
-  const events = [ev('tube-plugging', '2025-03-01', null, { pluggedTubesAfter: 200 }), ev('cleaning', '2025-04-01', '2025-04-05', { cleanlinessAfter: 0.88 }), ev('outage', '2025-06-01', '2025-06-10'), ev('outage', '2025-09-01', null)];
+  const events = [
+    ev('tube-plugging', '2025-03-01', null, { pluggedTubesAfter: 200 }),
+    ev('cleaning', '2025-04-01', '2025-04-05', { cleanlinessAfter: 0.88 }),
+    ev('outage', '2025-06-01', '2025-06-10'),
+    ev('outage', '2025-09-01', null),
+  ];
 
   it('plugged tubes follow the latest plugging event on or before the day, else the setup', () => {
     const on = pluggedTubesOn(events, 120);

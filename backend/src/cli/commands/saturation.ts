@@ -1,12 +1,7 @@
 /** `calc saturation`: saturation state from a pressure or a temperature (IAPWS-IF97 region 4). */
 import type { CalcCommand } from '../run-calc.js';
 import { calcSaturationInput, calcSaturationOutput, type CalcSaturationOutput } from '@shared/schemas/calc-saturation.js';
-import {
-  saturationPressureKpa,
-  saturationTemperatureC,
-  saturatedLiquidEnthalpyKjKg,
-  saturatedVapourEnthalpyKjKg,
-} from '@shared/domain/steam/index.js';
+import { saturationPressureKpa, saturationTemperatureC, saturatedLiquidEnthalpyKjKg, saturatedVapourEnthalpyKjKg } from '@shared/domain/steam/index.js';
 
 const command: CalcCommand = {
   input: calcSaturationInput,

@@ -137,7 +137,12 @@ export function demoImportMapping(data: DemoUnitData, kind: 'csv' | 'xlsx'): Imp
       ? { column: timestampHeader, format: 'excel-serial' as const, timeZone: data.timeZone }
       : style === 'si-semicolon'
         ? { column: timestampHeader, format: 'iso-8601-offset' as const }
-        : { column: timestampHeader, format: 'local-text' as const, timeZone: data.timeZone, dateOrder: style === 'us-unmetered-flow' ? ('ymd' as const) : ('mdy' as const) };
+        : {
+            column: timestampHeader,
+            format: 'local-text' as const,
+            timeZone: data.timeZone,
+            dateOrder: style === 'us-unmetered-flow' ? ('ymd' as const) : ('mdy' as const),
+          };
   const usTail = {
     hotwellTemperature: { column: 'Hotwell Temp °F', unit: 'degF' },
     dissolvedOxygen: { column: 'Cond DO ppb', unit: 'ppb' },

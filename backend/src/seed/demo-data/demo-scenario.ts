@@ -51,7 +51,13 @@ export const DEMO_SCENARIO_SEED = 20_260_101;
 export const DEMO_PLANTS: DemoPlant[] = [
   { key: 'harrow-creek', name: 'Harrow Creek Station', organisation: 'Northmere Power Cooperative', timeZone: 'America/Chicago' },
   { key: 'fenwick-ridge', name: 'Fenwick Ridge', organisation: 'Tidewater Performance Partners', client: 'Calder Valley Energy', timeZone: 'Europe/Berlin' },
-  { key: 'saltmarsh-point', name: 'Saltmarsh Point', organisation: 'Tidewater Performance Partners', client: 'Brightwater Municipal Utility', timeZone: 'America/New_York' },
+  {
+    key: 'saltmarsh-point',
+    name: 'Saltmarsh Point',
+    organisation: 'Tidewater Performance Partners',
+    client: 'Brightwater Municipal Utility',
+    timeZone: 'America/New_York',
+  },
 ];
 
 /** A = N·π·OD·L, m². */

@@ -92,8 +92,7 @@ const AIR_REMOVAL_NORMAL_KGS = massFlowToKgS(7, 'scfm');
 const AIR_REMOVAL_LEAK_KGS = massFlowToKgS(26, 'scfm');
 
 /** Duty at a load: the part-load ratio rises as the cycle efficiency falls [common practice, rough]. */
-export const dutyAtLoadMw = (unit: DemoUnitSpec, loadMw: number): number =>
-  loadMw * (unit.dutyPerMwFullLoad + 0.25 * (1 - loadMw / unit.turbine.ratingMw));
+export const dutyAtLoadMw = (unit: DemoUnitSpec, loadMw: number): number => loadMw * (unit.dutyPerMwFullLoad + 0.25 * (1 - loadMw / unit.turbine.ratingMw));
 
 export function designBackpressureKpa(unit: DemoUnitSpec): number {
   return backpressureAtCleanlinessKpa({
@@ -180,7 +179,12 @@ export function generateDemoUnitData(written: DemoUnitSpec, options: DemoGenerat
       nightLevel = rng.next() < 0.07 ? rng.uniform(0.3, 0.37) : weekend ? rng.uniform(0.48, 0.6) : rng.uniform(0.55, 0.72);
       const finishedCleaning = cleaningByEnd.get(date);
       if (finishedCleaning) {
-        cleanings.push({ date, method: finishedCleaning.method, cfBefore: foulingCleanliness(unit, cf0, (t - cleanedAtMs) / (24 * MS_PER_HOUR)), cfAfter: finishedCleaning.cfAfter });
+        cleanings.push({
+          date,
+          method: finishedCleaning.method,
+          cfBefore: foulingCleanliness(unit, cf0, (t - cleanedAtMs) / (24 * MS_PER_HOUR)),
+          cfAfter: finishedCleaning.cfAfter,
+        });
         cf0 = finishedCleaning.cfAfter;
         cleanedAtMs = t;
       }
@@ -220,7 +224,14 @@ export function generateDemoUnitData(written: DemoUnitSpec, options: DemoGenerat
       };
     } else {
       const duty = dutyAtLoadMw(unit, load);
-      const p = backpressureAtCleanlinessKpa({ geometry: unit.geometry, cwInletC: t1, cwFlowM3s: flow, dutyMw: duty, pluggedTubes: unit.pluggedTubes, cleanliness: effective });
+      const p = backpressureAtCleanlinessKpa({
+        geometry: unit.geometry,
+        cwInletC: t1,
+        cwFlowM3s: flow,
+        dutyMw: duty,
+        pluggedTubes: unit.pluggedTubes,
+        cleanliness: effective,
+      });
       const t2 = t1 + cwRiseK(t1, liquidDensityKgM3(t1) * flow, duty);
       const ts = saturationTemperatureC(p);
       const subcooling = airLeak ? 2.2 * leakRamp + 0.4 + Math.abs(rng.normal(0, 0.3)) : 0.4 + Math.abs(rng.normal(0, 0.12));
@@ -233,7 +244,10 @@ export function generateDemoUnitData(written: DemoUnitSpec, options: DemoGenerat
         cwFlowM3s: flow * (1 + rng.normal(0, 0.006)),
         hotwellC: ts - subcooling,
         dissolvedOxygenPpb: Math.max(1, airLeak ? 5 + 25 * leakRamp + rng.normal(0, 4) : 5 + rng.normal(0, 1.2)),
-        airRemovalKgS: Math.max(0, (airLeak ? AIR_REMOVAL_NORMAL_KGS + (AIR_REMOVAL_LEAK_KGS - AIR_REMOVAL_NORMAL_KGS) * leakRamp : AIR_REMOVAL_NORMAL_KGS) * (1 + rng.normal(0, 0.08))),
+        airRemovalKgS: Math.max(
+          0,
+          (airLeak ? AIR_REMOVAL_NORMAL_KGS + (AIR_REMOVAL_LEAK_KGS - AIR_REMOVAL_NORMAL_KGS) * leakRamp : AIR_REMOVAL_NORMAL_KGS) * (1 + rng.normal(0, 0.08)),
+        ),
         barometerKpa: baro,
         truth: { cleanliness, effectiveCleanliness: effective, dutyMw: duty, cwFlowM3s: flow, backpressureKpa: p, offline, airLeak, fault: null },
       };
@@ -256,7 +270,8 @@ export function generateDemoUnitData(written: DemoUnitSpec, options: DemoGenerat
 const STORY_DAYS = daysBetween(DEMO_START_LOCAL, DEMO_END_LOCAL);
 
 function checkedSpanDays(days: number): number {
-  if (!Number.isInteger(days) || days < MIN_DEMO_SPAN_DAYS || days > STORY_DAYS) throw new RangeError(`a demo span is a whole number of days from ${MIN_DEMO_SPAN_DAYS} to ${STORY_DAYS}, not ${days}`);
+  if (!Number.isInteger(days) || days < MIN_DEMO_SPAN_DAYS || days > STORY_DAYS)
+    throw new RangeError(`a demo span is a whole number of days from ${MIN_DEMO_SPAN_DAYS} to ${STORY_DAYS}, not ${days}`);
   return days;
 }
 
@@ -293,4 +308,3 @@ function injectFaults(hours: DemoHour[], rng: DemoRandom): void {
     h.truth.fault = 'stuck-outlet-sensor';
   }
 }
-

@@ -104,13 +104,18 @@ export function caseWarnings(
   const out: string[] = [];
   const { inputs, inputSources: sources } = c;
   if (inputs.startDate <= c.lastDataDay) {
-    out.push(`the case starts on ${dayText(inputs.startDate)}, before the last day of data (${dayText(c.lastDataDay)}): the days since the cleaning and the fouling there are already measured`);
+    out.push(
+      `the case starts on ${dayText(inputs.startDate)}, before the last day of data (${dayText(c.lastDataDay)}): the days since the cleaning and the fouling there are already measured`,
+    );
   }
-  if (daysBetween(today, inputs.startDate) > 366) out.push(`the case starts on ${dayText(inputs.startDate)}, more than a year ahead: prices, outages and the fouling trend may have changed by then`);
+  if (daysBetween(today, inputs.startDate) > 366)
+    out.push(`the case starts on ${dayText(inputs.startDate)}, more than a year ahead: prices, outages and the fouling trend may have changed by then`);
   const cw = sources['drivers.cwInletC'];
   const months = c.measuredMonths ?? (cw && cw.source !== 'entered' ? Number(MEASURED_MONTHS.exec(cw.detail)?.[1] ?? 12) : 12);
   if (months < MIN_MEASURED_MONTHS) {
-    out.push(`the seasonal CW inlet and load are measured in ${months} of 12 months only; the other months are design values: enter them if the plant has them`);
+    out.push(
+      `the seasonal CW inlet and load are measured in ${months} of 12 months only; the other months are design values: enter them if the plant has them`,
+    );
   }
   const fouling = sources.fouling;
   const span = c.fittedSpanDays ?? (fouling && fouling.source !== 'entered' ? Number(FITTED_SPAN.exec(fouling.detail)?.[1] ?? 0) : 0);

@@ -53,7 +53,9 @@ export async function caseViewOf(em: EntityManager, scope: TenantScope, { record
     inputSources: record.inputSources,
     results: record.results,
     // judged on the day the case was last changed, so a submitted case reads the same on any later day
-    caseWarnings: record.lastDataDay ? caseWarnings({ inputs: record.inputs, inputSources: record.inputSources, lastDataDay: record.lastDataDay }, record.updatedAt.toISOString().slice(0, 10)) : [],
+    caseWarnings: record.lastDataDay
+      ? caseWarnings({ inputs: record.inputs, inputSources: record.inputSources, lastDataDay: record.lastDataDay }, record.updatedAt.toISOString().slice(0, 10))
+      : [],
     engineVersion: record.engineVersion,
     builtFrom: { lastDataDay: record.lastDataDay, setupVersion: record.setupVersion },
     newerData: newerDataOf(record.lastDataDay, await lastDataDayOf(em, unit.id)),

@@ -91,7 +91,10 @@ export function carryEntered(
     if (!entered(key) || entered(partner) || !(partner in old)) continue;
     values[partner] = old[partner];
     const was = original.inputSources[partner];
-    sources[partner] = { source: was?.source ?? 'prefilled', detail: `kept from the original case with the entered ${key === 'initial' ? 'initial condition' : 'planned outages'}` };
+    sources[partner] = {
+      source: was?.source ?? 'prefilled',
+      detail: `kept from the original case with the entered ${key === 'initial' ? 'initial condition' : 'planned outages'}`,
+    };
   }
   if (entered('startDate') && !entered('initial')) {
     const moved = alignInitialToStart({ ...fresh.inputs, startDate: original.inputs.startDate }, fresh.inputs, fresh.inputSources);

@@ -39,7 +39,17 @@ export interface CleaningOutlook {
   /** the last day of data the plan was built on */
   dataTo?: string;
   horizonDays?: number;
-  next?: { date: string; endDate: string; methodId: string; methodName: string; cleanlinessBefore: number; cleanlinessAfter: number; cleaningCost: number; downtimeCost: number; typicalValues: boolean };
+  next?: {
+    date: string;
+    endDate: string;
+    methodId: string;
+    methodName: string;
+    cleanlinessBefore: number;
+    cleanlinessAfter: number;
+    cleaningCost: number;
+    downtimeCost: number;
+    typicalValues: boolean;
+  };
   /** every cleaning of the plan over the horizon */
   plan?: OutlookCleaning[];
   /** the same question answered with only on-line methods and with only outage methods */
@@ -80,7 +90,12 @@ export function cleaningOutlook(input: OutlookInput): CleaningOutlook {
     : methods.some((m) => m.typical)
       ? 'the organisation’s cleaning methods (some still at typical values)'
       : 'the organisation’s cleaning methods';
-  if (!input.cycle) return { status: 'not-available', reason: 'No fouling trend yet: at least 10 days of valid data over 14 days since the last cleaning are needed', methodsBasis };
+  if (!input.cycle)
+    return {
+      status: 'not-available',
+      reason: 'No fouling trend yet: at least 10 days of valid data over 14 days since the last cleaning are needed',
+      methodsBasis,
+    };
   if (input.history.length < 28) return { status: 'not-available', reason: 'Less than four weeks of history to build the seasonal profile', methodsBasis };
   const dayAfterData = addDays(input.lastDay, 1);
   const planFrom = input.today > dayAfterData ? input.today : dayAfterData;
@@ -114,9 +129,18 @@ export function cleaningOutlook(input: OutlookInput): CleaningOutlook {
           heiTables: input.model.heiTables,
         },
       },
-      economics: { ratingMw: input.model.ratingMw, heatRateBtuKwh: input.model.heatRateBtuKwh, co2KgPerMmbtu: e.co2KgPerMmbtu, activeTubes: c.tubeCount - c.pluggedTubes },
+      economics: {
+        ratingMw: input.model.ratingMw,
+        heatRateBtuKwh: input.model.heatRateBtuKwh,
+        co2KgPerMmbtu: e.co2KgPerMmbtu,
+        activeTubes: c.tubeCount - c.pluggedTubes,
+      },
       fouling: cycle.model,
-      initial: { daysSinceCleaning: Math.max(0, daysBetween(cycle.startDay, planFrom)), cleanlinessAfterCleaning: cycle.cleanlinessAfterCleaning, foulingRateMultiplier: 1 },
+      initial: {
+        daysSinceCleaning: Math.max(0, daysBetween(cycle.startDay, planFrom)),
+        cleanlinessAfterCleaning: cycle.cleanlinessAfterCleaning,
+        foulingRateMultiplier: 1,
+      },
       methods: chosen,
       plannedOutages: input.plannedOutages.filter((o) => o.to >= planFrom),
       discountRate: e.discountRate,
@@ -137,7 +161,15 @@ export function cleaningOutlook(input: OutlookInput): CleaningOutlook {
     const options = [option('while-running'), option('in-an-outage')];
     const first = result.cleanings[0];
     const common = { planFrom, dataTo: input.lastDay, horizonDays: HORIZON_DAYS, options, methodsBasis };
-    if (!first) return { status: 'none-needed', reason: 'Within the coming year no cleaning pays for itself', ...common, plan: [], cleaningsInHorizon: 0, savingsVersusNoCleaning: 0 };
+    if (!first)
+      return {
+        status: 'none-needed',
+        reason: 'Within the coming year no cleaning pays for itself',
+        ...common,
+        plan: [],
+        cleaningsInHorizon: 0,
+        savingsVersusNoCleaning: 0,
+      };
     return {
       status: 'planned',
       ...common,

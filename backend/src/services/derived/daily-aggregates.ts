@@ -39,7 +39,23 @@ interface Acc {
 }
 
 /** Columns averaged over the day's valid points. */
-const MEANS = ['backpressureKpa', 'expectedBackpressureKpa', 'excessBackpressureKpa', 'cwInletC', 'loadMw', 'heatRatePenaltyPct', 'foulingKpa', 'cwInletKpa', 'cwFlowKpa', 'loadKpa', 'pluggingKpa', 'unexplainedKpa', 'foulingCostPerHour', 'unexplainedCostPerHour', 'dutyMw'] as const;
+const MEANS = [
+  'backpressureKpa',
+  'expectedBackpressureKpa',
+  'excessBackpressureKpa',
+  'cwInletC',
+  'loadMw',
+  'heatRatePenaltyPct',
+  'foulingKpa',
+  'cwInletKpa',
+  'cwFlowKpa',
+  'loadKpa',
+  'pluggingKpa',
+  'unexplainedKpa',
+  'foulingCostPerHour',
+  'unexplainedCostPerHour',
+  'dutyMw',
+] as const;
 
 const READ = ['validity', 'cleanliness', 'ttdK', 'cwOutletC', 'cwFlowM3s', ...MEANS] as const;
 
@@ -58,7 +74,21 @@ export async function rebuildDailyAggregates(ds: DataSource, unitId: string, day
       lastTs = ts;
       const day = dayOf(ts);
       let acc = days.get(day);
-      if (!acc) days.set(day, (acc = { first: {}, changed: new Set(), all: 0, used: 0, dropped: 0, byReason: {}, cf: [], ttd: [], sums: Object.fromEntries(MEANS.map((m) => [m, 0])) }));
+      if (!acc)
+        days.set(
+          day,
+          (acc = {
+            first: {},
+            changed: new Set(),
+            all: 0,
+            used: 0,
+            dropped: 0,
+            byReason: {},
+            cf: [],
+            ttd: [],
+            sums: Object.fromEntries(MEANS.map((m) => [m, 0])),
+          }),
+        );
       acc.all++;
       for (const sensor of SENSORS) {
         const v = r[sensor] === null ? null : Number(r[sensor]);

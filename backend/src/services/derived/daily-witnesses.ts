@@ -65,7 +65,10 @@ export async function measureDailyCleanliness({ model, dayOf, pluggedTubesOn, sa
 }
 
 /** The day's witness medians (null where a witness was not measured that day). */
-export function witnessMedians(measured: DailyCleanliness, day: string): { subcoolingK: number | null; dissolvedOxygenPpb: number | null; airRemovalKgS: number | null } {
+export function witnessMedians(
+  measured: DailyCleanliness,
+  day: string,
+): { subcoolingK: number | null; dissolvedOxygenPpb: number | null; airRemovalKgS: number | null } {
   const w = measured.perDay.get(day);
   return { subcoolingK: w ? median(w.subcooling) : null, dissolvedOxygenPpb: w ? median(w.oxygen) : null, airRemovalKgS: w ? median(w.air) : null };
 }

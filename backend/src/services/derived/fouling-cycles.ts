@@ -50,7 +50,15 @@ export function trendCleanlinessOn(cycles: CycleTrend[], day: string): number | 
 /** What the health view needs of a cycle's fit (plain JSON, stored with the unit). */
 export function cycleSummary(c: CycleTrend) {
   if (c.result.status !== 'fitted') {
-    return { startDay: c.startDay, endDay: c.endDay, status: c.result.status, reason: c.result.reason, usablePoints: c.result.usablePoints, minimumPoints: c.result.minimumPoints, minimumSpanDays: c.result.minimumSpanDays };
+    return {
+      startDay: c.startDay,
+      endDay: c.endDay,
+      status: c.result.status,
+      reason: c.result.reason,
+      usablePoints: c.result.usablePoints,
+      minimumPoints: c.result.minimumPoints,
+      minimumSpanDays: c.result.minimumSpanDays,
+    };
   }
   const chosen = c.result.chosen;
   return {

@@ -15,4 +15,3 @@ export async function* readValidSamples(ds: DataSource, unitId: string): AsyncGe
     yield rows;
   }
 }
-

@@ -63,7 +63,16 @@ export async function recomputeUnit(ds: DataSource, unitId: string, onProgress: 
 
   await onProgress(0.97, 'Planning the next cleaning');
   const lastDay = measured.days.at(-1) ?? null;
-  const outlook = await planCleaningOutlook(ds, { organisationId: unit.organisationId, unitId, model, setup, lastDay, today: dayOf(Date.now()), cycles, plannedOutages: ctx.plannedOutages });
+  const outlook = await planCleaningOutlook(ds, {
+    organisationId: unit.organisationId,
+    unitId,
+    model,
+    setup,
+    lastDay,
+    today: dayOf(Date.now()),
+    cycles,
+    plannedOutages: ctx.plannedOutages,
+  });
   await storeUnitAnalysis(ds, unitId, unitAnalysis({ setupVersion: unit.setupVersion, lastDay, cycles, airLeakPeriods: airLeaks.periods, outlook }));
   return { samples: total, days: dayCount, cycles };
 }

@@ -49,8 +49,18 @@ export interface UnitAnalysis {
   outlook: CleaningOutlook | null;
 }
 
-export function unitAnalysis(input: { setupVersion: number; lastDay: string | null; cycles: CycleTrend[]; airLeakPeriods: AirLeakPeriod[]; outlook: CleaningOutlook | null }, now = new Date()): UnitAnalysis {
-  return { computedAt: now.toISOString(), setupVersion: input.setupVersion, lastDay: input.lastDay, cycles: input.cycles.map(cycleSummary), airLeakPeriods: input.airLeakPeriods, outlook: input.outlook };
+export function unitAnalysis(
+  input: { setupVersion: number; lastDay: string | null; cycles: CycleTrend[]; airLeakPeriods: AirLeakPeriod[]; outlook: CleaningOutlook | null },
+  now = new Date(),
+): UnitAnalysis {
+  return {
+    computedAt: now.toISOString(),
+    setupVersion: input.setupVersion,
+    lastDay: input.lastDay,
+    cycles: input.cycles.map(cycleSummary),
+    airLeakPeriods: input.airLeakPeriods,
+    outlook: input.outlook,
+  };
 }
 
 /** Stores the unit's analysis; null clears it (no setup, nothing to analyse). */

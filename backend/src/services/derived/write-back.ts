@@ -30,4 +30,3 @@ export async function writeBackAnalyses(ds: DataSource, { setupVersion, chunks, 
   }
   return written;
 }
-

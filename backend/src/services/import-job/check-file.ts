@@ -25,7 +25,10 @@ export async function checkFile(ds: DataSource, job: JobLease, { importId, store
 
 /** What the import records when its file is rejected. */
 // JSON columns as plain objects (the entity declares them loosely).
-export type RejectionRecord = Pick<DataImport, 'status' | 'errorCount' | 'notes' | 'progress' | 'message' | 'finishedAt' | 'storedPath'> & { errors: object; counts: object };
+export type RejectionRecord = Pick<DataImport, 'status' | 'errorCount' | 'notes' | 'progress' | 'message' | 'finishedAt' | 'storedPath'> & {
+  errors: object;
+  counts: object;
+};
 
 export function rejection(check: ImportCheck, now = new Date()): RejectionRecord {
   const errors = check.fileError ? [{ row: check.fileError.line ?? 0, column: '', value: '', message: check.fileError.message }] : check.errors;

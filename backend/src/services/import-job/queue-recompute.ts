@@ -5,7 +5,10 @@ import { DataImport } from '../../entities/data-import.entity.js';
 import { enqueueRecompute, withLease, type JobLease } from '../../jobs/job-queue.js';
 import type { StoredRows } from './store-rows.js';
 
-export type CompletionRecord = Pick<DataImport, 'status' | 'progress' | 'message' | 'finishedAt' | 'storedPath' | 'firstTimestamp' | 'lastTimestamp' | 'notes'> & { counts: object };
+export type CompletionRecord = Pick<
+  DataImport,
+  'status' | 'progress' | 'message' | 'finishedAt' | 'storedPath' | 'firstTimestamp' | 'lastTimestamp' | 'notes'
+> & { counts: object };
 
 /** What a finished import records. */
 export function completion({ summary, stored, skippedIdentical, conflicting, conflicts }: StoredRows, check: ImportCheck, now = new Date()): CompletionRecord {
@@ -15,14 +18,29 @@ export function completion({ summary, stored, skippedIdentical, conflicting, con
     message: null,
     finishedAt: now,
     storedPath: null,
-    counts: { rowsRead: summary.rowsRead, stored, skippedIdentical, conflicting, conflicts, rowsOk: summary.rowsOk, rowsByReason: summary.rowsByReason, flowAssumedRows: summary.flowAssumedRows },
+    counts: {
+      rowsRead: summary.rowsRead,
+      stored,
+      skippedIdentical,
+      conflicting,
+      conflicts,
+      rowsOk: summary.rowsOk,
+      rowsByReason: summary.rowsByReason,
+      flowAssumedRows: summary.flowAssumedRows,
+    },
     firstTimestamp: summary.firstTimestampUtc !== null ? new Date(summary.firstTimestampUtc) : null,
     lastTimestamp: summary.lastTimestampUtc !== null ? new Date(summary.lastTimestampUtc) : null,
     notes: { assumptions: summary.assumptions, warnings: check.warnings },
   };
 }
 
-export async function completeAndQueueRecompute(ds: DataSource, job: JobLease, imp: Pick<DataImport, 'id' | 'organisationId' | 'unitId'>, rows: StoredRows, check: ImportCheck): Promise<void> {
+export async function completeAndQueueRecompute(
+  ds: DataSource,
+  job: JobLease,
+  imp: Pick<DataImport, 'id' | 'organisationId' | 'unitId'>,
+  rows: StoredRows,
+  check: ImportCheck,
+): Promise<void> {
   await withLease(ds, job, async (em) => {
     await em.getRepository(DataImport).update({ id: imp.id }, completion(rows, check));
     await enqueueRecompute(em, imp.organisationId, imp.unitId, 'import complete');

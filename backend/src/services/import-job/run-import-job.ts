@@ -39,7 +39,12 @@ export async function runImportJob(ds: DataSource, job: JobLease, importId: stri
 /** Deletes what a failed import stored and marks it failed; the rows go as a whole (one import id). */
 async function failImport(em: EntityManager, importId: string, reason: string): Promise<void> {
   await deleteSamplesOfImport(em, importId);
-  await em.getRepository(DataImport).update({ id: importId }, { status: 'failed', progress: 1, message: `The import stopped and stored nothing: ${reason}`.slice(0, 500), finishedAt: new Date() });
+  await em
+    .getRepository(DataImport)
+    .update(
+      { id: importId },
+      { status: 'failed', progress: 1, message: `The import stopped and stored nothing: ${reason}`.slice(0, 500), finishedAt: new Date() },
+    );
 }
 
 /** An import job given up after its workers kept dying: nothing of it stays. */

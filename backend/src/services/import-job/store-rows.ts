@@ -26,7 +26,8 @@ export interface SortedBatch {
   conflicting: ImportSample[];
 }
 
-const sameValue = (a: number | null, b: number | null | undefined) => (a === null || a === undefined ? b === null || b === undefined : b !== null && b !== undefined && Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a)));
+const sameValue = (a: number | null, b: number | null | undefined) =>
+  a === null || a === undefined ? b === null || b === undefined : b !== null && b !== undefined && Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a));
 
 /** Sorts a batch against the rows stored at the same times: new, identical (skipped) or conflicting. */
 export function sortAgainstStored(samples: readonly ImportSample[], stored: readonly StoredReading[]): SortedBatch {
@@ -35,7 +36,14 @@ export function sortAgainstStored(samples: readonly ImportSample[], stored: read
   for (const s of samples) {
     const old = byTime.get(s.timestampUtc);
     if (!old) sorted.fresh.push(s);
-    else if (sameValue(old.loadMw, s.loadMw) && sameValue(old.backpressureKpa, s.backpressureKpa) && sameValue(old.cwInletC, s.cwInletC) && sameValue(old.cwOutletC, s.cwOutletC) && sameValue(old.cwFlowM3s, s.cwFlowM3s)) sorted.skippedIdentical++;
+    else if (
+      sameValue(old.loadMw, s.loadMw) &&
+      sameValue(old.backpressureKpa, s.backpressureKpa) &&
+      sameValue(old.cwInletC, s.cwInletC) &&
+      sameValue(old.cwOutletC, s.cwOutletC) &&
+      sameValue(old.cwFlowM3s, s.cwFlowM3s)
+    )
+      sorted.skippedIdentical++;
     else sorted.conflicting.push(s);
   }
   return sorted;
@@ -92,7 +100,10 @@ export async function storeRows(ds: DataSource, job: JobLease, { importId, store
     if (Date.now() - reportedAt >= PROGRESS_EVERY_MS) {
       reportedAt = Date.now();
       const done = stored + skippedIdentical + conflicting;
-      await progress(0.05 + 0.9 * done / Math.max(1, check.dataRows), `Stored ${stored.toLocaleString('en-US')} of ${check.dataRows.toLocaleString('en-US')} rows`);
+      await progress(
+        0.05 + (0.9 * done) / Math.max(1, check.dataRows),
+        `Stored ${stored.toLocaleString('en-US')} of ${check.dataRows.toLocaleString('en-US')} rows`,
+      );
     }
   };
   let summary: ImportSummary;

@@ -9,7 +9,8 @@ import { useUnitCondition } from '../components/unit-condition';
 /** Cleanliness, fouling cost per day and data age: what the overview shows of each unit until the portfolio view. */
 function UnitConditionFigures({ organisationId, unitId }: { organisationId: string; unitId: string }) {
   const c = useUnitCondition(organisationId, unitId);
-  if (c.state !== 'ready') return <p className="mt-2 text-xs text-ink-faint">{c.state === 'loading' ? 'Reading the latest figures…' : 'The latest figures could not be read.'}</p>;
+  if (c.state !== 'ready')
+    return <p className="mt-2 text-xs text-ink-faint">{c.state === 'loading' ? 'Reading the latest figures…' : 'The latest figures could not be read.'}</p>;
   return (
     <dl className="mt-3 grid grid-cols-3 gap-2 border-t border-rule pt-2 text-sm">
       <div>

@@ -34,8 +34,8 @@ export function PlantPage() {
         </p>
         <h1>{plant.name}</h1>
         <p className="mt-1 text-sm text-ink-soft" data-testid="plant-time-zone">
-          Local time zone {plant.timeZone.replace(/_/g, ' ')} (now {formatPlantTime(new Date().toISOString(), plant.timeZone)}): days, daily figures and schedules of its units follow
-          this clock.
+          Local time zone {plant.timeZone.replace(/_/g, ' ')} (now {formatPlantTime(new Date().toISOString(), plant.timeZone)}): days, daily figures and
+          schedules of its units follow this clock.
         </p>
       </div>
       {plant.units.length === 0 ? (

@@ -23,7 +23,11 @@ export function PlantsPage() {
         </p>
       </div>
       {groups.isError && <p className="text-sm text-fault">Client group names could not be loaded: {groups.error.message}</p>}
-      <PlantsList organisationId={organisationId} groups={groups.data ?? []} cannotWrite={session.permissions.includes('data.write') ? null : whyNot('data.write')} />
+      <PlantsList
+        organisationId={organisationId}
+        groups={groups.data ?? []}
+        cannotWrite={session.permissions.includes('data.write') ? null : whyNot('data.write')}
+      />
     </section>
   );
 }

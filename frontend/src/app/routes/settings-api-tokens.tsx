@@ -15,7 +15,8 @@ export function ApiTokensSettingsPage() {
       <div>
         <h1>API tokens</h1>
         <p className="mt-1 text-sm text-ink-soft">
-          Personal keys for the calculation API, for scripts and spreadsheets. Each token belongs to you and this organisation; it cannot read or change plant data.
+          Personal keys for the calculation API, for scripts and spreadsheets. Each token belongs to you and this organisation; it cannot read or change plant
+          data.
         </p>
         <p className="mt-1 text-sm">
           <Link className={linkClass} to="/api-reference">

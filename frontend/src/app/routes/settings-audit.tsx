@@ -26,14 +26,22 @@ export function AuditSettingsPage() {
   );
   if (!session?.user || !organisationId) return <NoOrganisation />;
   if (!session.permissions.includes('audit.read')) return <NotPermitted what="The audit log" reason={whyNot('audit.read')} />;
-  if (limitedToClientGroups(session)) return <NotPermitted what="The audit log" reason="It names plants and people in every client group, so only members who see every client group can read it." />;
+  if (limitedToClientGroups(session))
+    return (
+      <NotPermitted what="The audit log" reason="It names plants and people in every client group, so only members who see every client group can read it." />
+    );
   return (
     <section className="flex flex-col gap-4">
       <div>
         <h1>Audit log</h1>
         <p className="mt-1 text-sm text-ink-soft">Who changed what in this organisation, newest first.</p>
       </div>
-      <AuditLog organisationId={organisationId} filters={auditFiltersFrom(params)} onFiltersChange={(f) => setParams(f as Record<string, string>)} names={names} />
+      <AuditLog
+        organisationId={organisationId}
+        filters={auditFiltersFrom(params)}
+        onFiltersChange={(f) => setParams(f as Record<string, string>)}
+        names={names}
+      />
     </section>
   );
 }

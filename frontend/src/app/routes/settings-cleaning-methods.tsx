@@ -12,8 +12,8 @@ export function CleaningMethodsSettingsPage() {
       <div>
         <h1>Cleaning methods</h1>
         <p className="mt-1 text-sm text-ink-soft">
-          The ways your plants clean their condensers: what each costs, how long it takes, what the unit does meanwhile and how clean it leaves the tubes. Cleaning cases and
-          the cleaning outlook pick from this list. Open a method to read its safety cautions.
+          The ways your plants clean their condensers: what each costs, how long it takes, what the unit does meanwhile and how clean it leaves the tubes.
+          Cleaning cases and the cleaning outlook pick from this list. Open a method to read its safety cautions.
         </p>
       </div>
       <CleaningMethodsList organisationId={organisationId} cannotWrite={session.permissions.includes('data.write') ? null : whyNot('data.write')} />

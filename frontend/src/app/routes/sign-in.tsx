@@ -39,8 +39,13 @@ export function SignInPage() {
         <span className="h-px flex-1 bg-rule" />
       </div>
       {/* A plain link: the server redirects to Google (or its local stand-in) and back. */}
-      <a href="/api/auth/google" className="inline-flex items-center justify-center gap-2 rounded border border-rule bg-paper-raised px-3 py-1.5 text-sm font-medium text-ink hover:bg-paper-sunk">
-        <span aria-hidden className="font-bold text-tube-600">G</span>
+      <a
+        href="/api/auth/google"
+        className="inline-flex items-center justify-center gap-2 rounded border border-rule bg-paper-raised px-3 py-1.5 text-sm font-medium text-ink hover:bg-paper-sunk"
+      >
+        <span aria-hidden className="font-bold text-tube-600">
+          G
+        </span>
         Sign in with Google
       </a>
     </PublicPage>

@@ -8,10 +8,16 @@ export function UnitEventsPage() {
   return (
     <section className="flex flex-col gap-3" aria-label="Events">
       <p className="text-sm text-ink-soft">
-        What happened to the condenser: cleanings, tube plugging, air in-leakage repairs and outages. A cleaning restarts the fouling trend from its date and plugging
-        changes the tube count from its date; both recompute the derived data.
+        What happened to the condenser: cleanings, tube plugging, air in-leakage repairs and outages. A cleaning restarts the fouling trend from its date and
+        plugging changes the tube count from its date; both recompute the derived data.
       </p>
-      <EventsTimeline organisationId={organisationId} unitId={unit.id} currency={unit.economics?.currency ?? 'USD'} methods={methods.data} cannotWrite={cannotWrite} />
+      <EventsTimeline
+        organisationId={organisationId}
+        unitId={unit.id}
+        currency={unit.economics?.currency ?? 'USD'}
+        methods={methods.data}
+        cannotWrite={cannotWrite}
+      />
     </section>
   );
 }

@@ -31,11 +31,19 @@ export function UnitOverviewPage() {
       <div className="flex flex-col gap-6">
         <HealthView
           organisationId={organisationId}
-          unit={{ id: unit.id, timeZone: unit.plant.timeZone, firstSampleUtc: unit.samples.first, lastSampleUtc: unit.samples.last, currency: unit.economics?.currency ?? 'USD' }}
+          unit={{
+            id: unit.id,
+            timeZone: unit.plant.timeZone,
+            firstSampleUtc: unit.samples.first,
+            lastSampleUtc: unit.samples.last,
+            currency: unit.economics?.currency ?? 'USD',
+          }}
           units={units}
           cannotWrite={cannotWrite}
           progress={working || lastJob?.status === 'failed' ? <RecomputeStatus jobs={unit.jobs} /> : null}
-          addCleaning={(p) => <AddCleaning organisationId={organisationId} unitId={unit.id} currency={unit.economics?.currency ?? 'USD'} methods={methods.data} {...p} />}
+          addCleaning={(p) => (
+            <AddCleaning organisationId={organisationId} unitId={unit.id} currency={unit.economics?.currency ?? 'USD'} methods={methods.data} {...p} />
+          )}
         />
         {/* the basis of the figures: design point, data span, recent background work */}
         <section aria-label="Unit basis" className="no-print border-t border-rule pt-4">

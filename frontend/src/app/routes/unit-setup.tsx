@@ -31,7 +31,15 @@ export function UnitSetupPage() {
       <RecomputeStatus jobs={unit.jobs} />
       {cannotWrite && <ReadOnlyReason reason={cannotWrite} action="change this unit’s setup" />}
       <Section id="condenser-heading" title="Condenser" done={!!unit.condenser}>
-        <CondenserForm key={key} organisationId={organisationId} unitId={unit.id} saved={unit.condenser} units={units} system={system} cannotWrite={cannotWrite} />
+        <CondenserForm
+          key={key}
+          organisationId={organisationId}
+          unitId={unit.id}
+          saved={unit.condenser}
+          units={units}
+          system={system}
+          cannotWrite={cannotWrite}
+        />
       </Section>
       <Section id="turbine-heading" title="Turbine" done={!!unit.turbine}>
         <TurbineForm key={key} organisationId={organisationId} unitId={unit.id} saved={unit.turbine} units={units} cannotWrite={cannotWrite} />

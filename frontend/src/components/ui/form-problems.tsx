@@ -8,7 +8,11 @@ export function FormProblems({ errors }: { errors: Record<string, string> }) {
   const count = Object.keys(errors).length;
   return (
     <p role="alert" className={count ? 'text-sm text-fault' : 'sr-only'} data-testid="form-problems">
-      {count === 0 ? '' : count === 1 ? 'One field needs attention: it is marked below its box.' : `${count} fields need attention: each is marked below its box.`}
+      {count === 0
+        ? ''
+        : count === 1
+          ? 'One field needs attention: it is marked below its box.'
+          : `${count} fields need attention: each is marked below its box.`}
     </p>
   );
 }

@@ -7,7 +7,14 @@ export function ProgressBar({ fraction, label, message }: { fraction: number; la
         <span className="text-ink-soft">{message ?? label}</span>
         <span className="tabular-nums text-ink-soft">{pct} %</span>
       </div>
-      <div role="progressbar" aria-label={label} aria-valuemin={0} aria-valuemax={100} aria-valuenow={pct} className="h-2 overflow-hidden rounded bg-paper-sunk">
+      <div
+        role="progressbar"
+        aria-label={label}
+        aria-valuemin={0}
+        aria-valuemax={100}
+        aria-valuenow={pct}
+        className="h-2 overflow-hidden rounded bg-paper-sunk"
+      >
         <div className="h-full bg-tube-500 transition-[width] duration-300" style={{ width: `${pct}%` }} />
       </div>
     </div>

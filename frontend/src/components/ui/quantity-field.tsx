@@ -41,7 +41,10 @@ export function QuantityField({ label, unit, value, onChange, error: formError, 
           {...input}
         />
         {unit && (
-          <span className="inline-flex shrink-0 items-center rounded-r border border-l-0 border-rule bg-paper-sunk px-2 text-xs whitespace-nowrap text-ink-soft" aria-hidden>
+          <span
+            className="inline-flex shrink-0 items-center rounded-r border border-l-0 border-rule bg-paper-sunk px-2 text-xs whitespace-nowrap text-ink-soft"
+            aria-hidden
+          >
             {unit}
           </span>
         )}

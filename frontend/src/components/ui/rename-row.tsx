@@ -32,7 +32,13 @@ export function RenameRow({ currentName, colSpan, schema, pending, error, onSave
       <td className={td} colSpan={colSpan}>
         <form onSubmit={onSubmit} noValidate className="flex flex-wrap items-start gap-3" onKeyDown={(e) => e.key === 'Escape' && onDone()}>
           <div className="min-w-64 flex-1">
-            <TextField label={`New name for “${currentName}”`} name="name" defaultValue={currentName} autoFocus error={fieldErrors.name ?? formMessage(error) ?? undefined} />
+            <TextField
+              label={`New name for “${currentName}”`}
+              name="name"
+              defaultValue={currentName}
+              autoFocus
+              error={fieldErrors.name ?? formMessage(error) ?? undefined}
+            />
           </div>
           <div className="mt-6 flex gap-2">
             <Button variant="quiet" onClick={onDone}>

@@ -106,7 +106,10 @@ export function irr(values: readonly MoneyInput[]): IrrResult {
   if (lo0 === signAtInfinity(p)) return { irr: null, reason: 'the NPV touches zero without changing sign' };
   // Cauchy bound: every root has |x| < 1 + max|a_k / a_n|.
   const lead = p[p.length - 1]!.abs();
-  let hi = p.slice(0, -1).reduce((m, c) => Decimal.max(m, c.abs().div(lead)), new Precise(0)).plus(1);
+  let hi = p
+    .slice(0, -1)
+    .reduce((m, c) => Decimal.max(m, c.abs().div(lead)), new Precise(0))
+    .plus(1);
   let lo = new Precise(0);
   for (let i = 0; i < 400; i++) {
     const mid = lo.plus(hi).div(2);

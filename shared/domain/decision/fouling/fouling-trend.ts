@@ -17,14 +17,7 @@
  */
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
 import { invertMatrix, median, medianAbsoluteDeviation, solveLinear, studentTQuantile } from '../../statistics.js';
-import {
-  FOULING_MODEL_KINDS,
-  foulingIndex,
-  foulingIndexGradient,
-  modelFromShape,
-  type FoulingModel,
-  type FoulingModelKind,
-} from './fouling-models.js';
+import { FOULING_MODEL_KINDS, foulingIndex, foulingIndexGradient, modelFromShape, type FoulingModel, type FoulingModelKind } from './fouling-models.js';
 
 /** Minimum data for a trend (ENGINEERING.md §5). */
 export const MINIMUM_TREND_POINTS = 10;
@@ -175,13 +168,8 @@ const EXPONENT_GRID = Array.from({ length: 39 }, (_, i) => 0.05 + 0.025 * i); //
 function fitNonlinear(data: FitData, kind: 'asymptotic' | 'falling-rate'): RawFit | null {
   const tMax = Math.max(...data.t, 1);
   const grid =
-    kind === 'asymptotic'
-      ? Array.from({ length: THETA_GRID_POINTS }, (_, i) => 0.5 * Math.pow((50 * tMax) / 0.5, i / (THETA_GRID_POINTS - 1)))
-      : EXPONENT_GRID;
-  const bounds =
-    kind === 'asymptotic'
-      ? { min: [0, 0.5], max: [1e6, 50 * tMax] }
-      : { min: [-1e6, 0.01], max: [1e6, 1] };
+    kind === 'asymptotic' ? Array.from({ length: THETA_GRID_POINTS }, (_, i) => 0.5 * Math.pow((50 * tMax) / 0.5, i / (THETA_GRID_POINTS - 1))) : EXPONENT_GRID;
+  const bounds = kind === 'asymptotic' ? { min: [0, 0.5], max: [1e6, 50 * tMax] } : { min: [-1e6, 0.01], max: [1e6, 1] };
   let best: RawFit | null = null;
   for (const g of grid) {
     const basis = kind === 'asymptotic' ? (t: number) => 1 - Math.exp(-t / g) : (t: number) => (t <= 0 ? 0 : t ** g);
@@ -197,21 +185,17 @@ function fitNonlinear(data: FitData, kind: 'asymptotic' | 'falling-rate'): RawFi
   const start = fitIntercept ? [...best.shape, best.intercept] : [...best.shape];
   const unpack = (p: number[]) => ({ kind, shape: [p[0]!, p[1]!], intercept: fitIntercept ? p[2]! : (data.knownIntercept as number) });
   try {
-    const lm = levenbergMarquardt(
-      { x: data.t, y: data.z },
-      (p) => (t) => predictZ(unpack(p), t),
-      {
-        initialValues: start,
-        minValues: fitIntercept ? [...bounds.min, 0] : bounds.min,
-        maxValues: fitIntercept ? [...bounds.max, 1e6] : bounds.max,
-        maxIterations: 200,
-        errorTolerance: 1e-18,
-        jacobianFunction: (p) => (t) => {
-          const g = foulingIndexGradient(modelFromShape(kind, [p[0]!, p[1]!]), t);
-          return fitIntercept ? [...g, 1] : g;
-        },
+    const lm = levenbergMarquardt({ x: data.t, y: data.z }, (p) => (t) => predictZ(unpack(p), t), {
+      initialValues: start,
+      minValues: fitIntercept ? [...bounds.min, 0] : bounds.min,
+      maxValues: fitIntercept ? [...bounds.max, 1e6] : bounds.max,
+      maxIterations: 200,
+      errorTolerance: 1e-18,
+      jacobianFunction: (p) => (t) => {
+        const g = foulingIndexGradient(modelFromShape(kind, [p[0]!, p[1]!]), t);
+        return fitIntercept ? [...g, 1] : g;
       },
-    );
+    });
     const polished = unpack(lm.parameterValues);
     const sse = sseOf(data, polished);
     if (Number.isFinite(sse) && sse < best.sse) best = { ...best, ...polished, sse };
@@ -384,4 +368,3 @@ export function fitFoulingTrend(input: FoulingTrendInput): FoulingTrendResult {
     forecast: forecastOf(chosen, data, lastDay, probability),
   };
 }
-

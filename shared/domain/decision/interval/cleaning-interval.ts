@@ -71,7 +71,8 @@ function validate(c: CleaningCycle): void {
   const p = c.penalty;
   if (p.model === 'linear' && !(p.slopePerDay2 >= 0)) throw new Error('slopePerDay2 must be 0 or more');
   if (p.model === 'asymptotic' && !(p.maxPerDay >= 0 && p.timeConstantDays > 0)) throw new Error('maxPerDay must be 0 or more and timeConstantDays above 0');
-  if (p.model === 'tabulated' && (p.costPerDay.length < 2 || p.costPerDay.some((v) => !Number.isFinite(v)))) throw new Error('a tabulated penalty needs at least two finite values');
+  if (p.model === 'tabulated' && (p.costPerDay.length < 2 || p.costPerDay.some((v) => !Number.isFinite(v))))
+    throw new Error('a tabulated penalty needs at least two finite values');
 }
 
 export function averageCostPerDay(c: CleaningCycle, intervalDays: number): number {
@@ -136,7 +137,11 @@ export function optimalInterval(c: CleaningCycle): IntervalOptimum {
   for (let t = 2; t <= last; t++) if (j(t) < j(bestDay)) bestDay = t;
   const t = goldenMinimum(j, Math.max(tau > 0 ? 0 : 1e-9, bestDay - 1), Math.min(last, bestDay + 1));
   if (j(t) >= longRun) {
-    return { optimalIntervalDays: null, averageCostPerDay: longRun, reason: 'the average cost keeps falling towards the long-run fouling cost: never cleaning is cheapest' };
+    return {
+      optimalIntervalDays: null,
+      averageCostPerDay: longRun,
+      reason: 'the average cost keeps falling towards the long-run fouling cost: never cleaning is cheapest',
+    };
   }
   return { optimalIntervalDays: t, averageCostPerDay: j(t) };
 }

@@ -31,7 +31,7 @@ export function compileSchedulePricer(problem: ScheduleProblem, cleanings: reado
   let seg = -1;
   let a = problem.initial.daysSinceCleaning;
   let next = 0;
-  for (let d = 0; d < days; ) {
+  for (let d = 0; d < days;) {
     const c = sorted[next];
     if (c && c.startDay === d) {
       const m = methods.get(c.methodId)!;

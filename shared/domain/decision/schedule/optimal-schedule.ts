@@ -79,7 +79,8 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
     for (let e = 0; e < H; e++) {
       if (!mayStart(problem, m, e)) continue;
       let c = discount[e]! * m.cleaningCost;
-      for (let j = 0; j < m.durationDays; j++) c += discount[e + j]! * lostMwhOnCleaningDay(problem, m, e + j) * lostMwhValue(problem.lostGeneration, e + j, UNIT_PRICE_SCALES);
+      for (let j = 0; j < m.durationDays; j++)
+        c += discount[e + j]! * lostMwhOnCleaningDay(problem, m, e + j) * lostMwhValue(problem.lostGeneration, e + j, UNIT_PRICE_SCALES);
       out[e] = c;
     }
     return out;
@@ -133,7 +134,14 @@ export function optimiseSchedule(problem: ScheduleProblem): OptimalSchedule {
     for (let k = 0; k < M; k++) {
       const node = e * M + k;
       if (best[node]! < Number.POSITIVE_INFINITY) {
-        groups[k]!.push({ node, restartDay: e, clockStart: onLineBefore[e]!, cost: best[node]!, firstStart: e + Math.max(0, problem.minSpacingDays - methods[k]!.durationDays), curve: methodCurves[k]! });
+        groups[k]!.push({
+          node,
+          restartDay: e,
+          clockStart: onLineBefore[e]!,
+          cost: best[node]!,
+          firstStart: e + Math.max(0, problem.minSpacingDays - methods[k]!.durationDays),
+          curve: methodCurves[k]!,
+        });
       }
     }
     // Cleanings that start today.
@@ -230,7 +238,7 @@ interface WalkOrder {
 function dropDominated<T extends WalkOrder>(group: T[], e: number, ageRule: boolean): T[] {
   const keep = new Uint8Array(group.length);
   let bestYounger = Number.POSITIVE_INFINITY;
-  for (let last = group.length - 1; last >= 0; ) {
+  for (let last = group.length - 1; last >= 0;) {
     let first = last;
     while (first > 0 && group[first - 1]!.clockStart === group[last]!.clockStart) first--;
     let olderMin = Number.POSITIVE_INFINITY;

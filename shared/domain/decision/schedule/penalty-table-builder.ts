@@ -101,7 +101,10 @@ export function buildPenaltyTable(
 }
 
 /** Per-day load and value of lost generation: replacement price and the unit's own fuel and CO2 cost per MWh (§4). */
-export function lostGenerationFromDrivers(model: Pick<UnitPenaltyModel, 'ratingMw' | 'heatRateBtuKwh' | 'co2KgPerMmbtu'>, drivers: DailyDrivers): LostGenerationEconomics {
+export function lostGenerationFromDrivers(
+  model: Pick<UnitPenaltyModel, 'ratingMw' | 'heatRateBtuKwh' | 'co2KgPerMmbtu'>,
+  drivers: DailyDrivers,
+): LostGenerationEconomics {
   const mmbtuPerMwh = model.heatRateBtuKwh / 1000;
   return {
     ratingMw: model.ratingMw,

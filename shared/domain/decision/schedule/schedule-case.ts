@@ -189,12 +189,16 @@ function implausibleResults(bc: BusinessCase, problem: ScheduleProblem): string[
   const out: string[] = [];
   const ratio = bc.benefitCostRatio === null ? null : bc.benefitCostRatio.toNumber();
   if (ratio !== null && ratio > PLAUSIBLE_BENEFIT_COST) {
-    out.push(`the benefit–cost ratio ${ratio.toFixed(1)} is above ${PLAUSIBLE_BENEFIT_COST}: check the fouling trend, the baseline and the penalty before relying on it`);
+    out.push(
+      `the benefit–cost ratio ${ratio.toFixed(1)} is above ${PLAUSIBLE_BENEFIT_COST}: check the fouling trend, the baseline and the penalty before relying on it`,
+    );
   }
   const bill = yearlyFuelBill(problem);
   const npv = bc.npv.toNumber();
   if (bill > 0 && npv > bill) {
-    out.push(`the NPV ${Math.round(npv).toLocaleString('en-US')} is above the unit’s yearly fuel bill (about ${Math.round(bill).toLocaleString('en-US')}): cleaning rarely saves more than the fuel burnt; check the inputs`);
+    out.push(
+      `the NPV ${Math.round(npv).toLocaleString('en-US')} is above the unit’s yearly fuel bill (about ${Math.round(bill).toLocaleString('en-US')}): cleaning rarely saves more than the fuel burnt; check the inputs`,
+    );
   }
   return out;
 }
@@ -203,9 +207,11 @@ export function runScheduleCase(spec: ScheduleCaseSpec): ScheduleCaseResult {
   const assembled = assembleCase(spec);
   const { problem } = assembled;
   const warnings: string[] = [];
-  if (spec.penalty.kind === 'models' && !spec.penalty.unit.curve) warnings.push("the generic exhaust-pressure correction curve was used: replace it with the turbine maker's curve");
+  if (spec.penalty.kind === 'models' && !spec.penalty.unit.curve)
+    warnings.push("the generic exhaust-pressure correction curve was used: replace it with the turbine maker's curve");
   if (spec.penalty.kind === 'direct') warnings.push('a simplified direct penalty curve was used instead of the condenser and turbine models');
-  for (const m of spec.methods) if (m.typical) warnings.push(`method "${m.id}" carries typical values (common practice, typical order of magnitude): edit them to the plant's own`);
+  for (const m of spec.methods)
+    if (m.typical) warnings.push(`method "${m.id}" carries typical values (common practice, typical order of magnitude): edit them to the plant's own`);
 
   const optimum = optimiseSchedule(problem);
   const scenario = baseScenario(problem);
@@ -215,7 +221,8 @@ export function runScheduleCase(spec: ScheduleCaseSpec): ScheduleCaseResult {
   const gridMin = (spec.grid ?? DEFAULT_CLEANLINESS_GRID).cfMin;
   const minProposed = Math.min(...proposed.dailyCleanliness);
   const minBaseline = Math.min(...baseline.dailyCleanliness);
-  if (minProposed < gridMin) warnings.push(`cleanliness falls to ${minProposed.toFixed(3)}, below the table's lowest point ${gridMin}: the penalty there is held at that point's value`);
+  if (minProposed < gridMin)
+    warnings.push(`cleanliness falls to ${minProposed.toFixed(3)}, below the table's lowest point ${gridMin}: the penalty there is held at that point's value`);
   if (minBaseline < gridMin) {
     warnings.push(
       `the baseline's cleanliness falls to ${minBaseline.toFixed(3)}, below the table's lowest point ${gridMin}: a condenser rarely runs that dirty, so the savings against this baseline are doubtful; compare with a baseline that cleans at planned outages`,
@@ -234,8 +241,18 @@ export function runScheduleCase(spec: ScheduleCaseSpec): ScheduleCaseResult {
     totals: proposed.totals,
     discountedTotals: proposed.discountedTotals,
     yearly: proposed.yearly,
-    baseline: { cleanings: describeCleanings(assembled, baseline), totals: baseline.totals, discountedTotals: baseline.discountedTotals, ruleBreaks: baseline.ruleBreaks },
-    businessCase: businessCase({ proposedYearly: proposed.yearly, baselineYearly: baseline.yearly, discountRate: spec.discountRate, upfrontCost: spec.upfrontCost }),
+    baseline: {
+      cleanings: describeCleanings(assembled, baseline),
+      totals: baseline.totals,
+      discountedTotals: baseline.discountedTotals,
+      ruleBreaks: baseline.ruleBreaks,
+    },
+    businessCase: businessCase({
+      proposedYearly: proposed.yearly,
+      baselineYearly: baseline.yearly,
+      discountRate: spec.discountRate,
+      upfrontCost: spec.upfrontCost,
+    }),
     warnings,
   };
   warnings.push(...implausibleResults(result.businessCase, problem));

@@ -19,7 +19,10 @@ function resolveMethods(list: CalcScheduleInput['methods']): CleaningMethod[] {
   return list.map((m) => {
     if (typeof m !== 'string') return m;
     const found = TYPICAL_CLEANING_METHODS.find((t) => t.id === m);
-    if (!found) throw new Error(`methods: "${m}" is not in the typical library (${TYPICAL_CLEANING_METHODS.map((t) => t.id).join(', ')}); give the method in full instead`);
+    if (!found)
+      throw new Error(
+        `methods: "${m}" is not in the typical library (${TYPICAL_CLEANING_METHODS.map((t) => t.id).join(', ')}); give the method in full instead`,
+      );
     return found;
   });
 }
@@ -41,7 +44,14 @@ export function toSpec(v: CalcScheduleInput): ScheduleCaseSpec {
       ? {
           kind: 'models',
           unit: {
-            geometry: { surfaceM2: c.surfaceM2, tubeCount: c.tubeCount, passes: c.passes, tubeOdMm: c.tubeOdMm, tubeBwg: c.tubeBwg, tubeMaterial: c.tubeMaterial },
+            geometry: {
+              surfaceM2: c.surfaceM2,
+              tubeCount: c.tubeCount,
+              passes: c.passes,
+              tubeOdMm: c.tubeOdMm,
+              tubeBwg: c.tubeBwg,
+              tubeMaterial: c.tubeMaterial,
+            },
             cwFlowM3s: c.cwFlowM3s,
             designDutyMw: c.designDutyMw,
             pluggedTubes: c.pluggedTubes,
@@ -149,7 +159,14 @@ export function runScheduleCommand(v: CalcScheduleInput): CalcScheduleOutput {
         }
       : {}),
     ...(v.includeDaily
-      ? { daily: r.daily.map((d) => ({ date: d.date, cleanliness: r6(d.cleanliness), foulingCost: toCents(d.foulingCost), cleaningCost: toCents(d.cleaningCost) })) }
+      ? {
+          daily: r.daily.map((d) => ({
+            date: d.date,
+            cleanliness: r6(d.cleanliness),
+            foulingCost: toCents(d.foulingCost),
+            cleaningCost: toCents(d.cleaningCost),
+          })),
+        }
       : {}),
     warnings: r.warnings,
   };

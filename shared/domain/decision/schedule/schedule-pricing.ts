@@ -74,7 +74,8 @@ export function checkCleanings(problem: ScheduleProblem, cleanings: readonly Pla
     }
     if (c.startDay < busyUntil) throw new Error(`the cleaning on day ${c.startDay} overlaps the previous one`);
     if (!mayStart(problem, m, c.startDay)) ruleBreaks.push(`day ${c.startDay}: "${m.id}" lies outside its allowed windows`);
-    if (c.startDay - lastStart < problem.minSpacingDays) ruleBreaks.push(`day ${c.startDay}: less than ${problem.minSpacingDays} days after the previous cleaning`);
+    if (c.startDay - lastStart < problem.minSpacingDays)
+      ruleBreaks.push(`day ${c.startDay}: less than ${problem.minSpacingDays} days after the previous cleaning`);
     lastStart = c.startDay;
     busyUntil = c.startDay + m.durationDays;
   }

@@ -94,17 +94,26 @@ export interface PlannedCleaning {
 export function validateProblem(p: ScheduleProblem): void {
   if (!(Number.isInteger(p.days) && p.days >= 1)) throw new Error('the horizon needs at least one day');
   if (p.table.days < p.days) throw new Error('the penalty table is shorter than the horizon');
-  for (const a of [p.plannedOutage, p.yearIndex, p.lostGeneration.loadFraction, p.lostGeneration.replacementPricePerMwh, p.lostGeneration.ownFuelCostPerMwh, p.lostGeneration.ownCo2CostPerMwh]) {
+  for (const a of [
+    p.plannedOutage,
+    p.yearIndex,
+    p.lostGeneration.loadFraction,
+    p.lostGeneration.replacementPricePerMwh,
+    p.lostGeneration.ownFuelCostPerMwh,
+    p.lostGeneration.ownCo2CostPerMwh,
+  ]) {
     if (a.length < p.days) throw new Error('a daily series is shorter than the horizon');
   }
   if (!(p.discountRate > -1)) throw new Error('the discount rate must be above −1');
-  if (!(Number.isInteger(p.initial.daysSinceCleaning) && p.initial.daysSinceCleaning >= 0)) throw new Error('daysSinceCleaning must be a whole number of days, 0 or more');
+  if (!(Number.isInteger(p.initial.daysSinceCleaning) && p.initial.daysSinceCleaning >= 0))
+    throw new Error('daysSinceCleaning must be a whole number of days, 0 or more');
   if (!(p.initial.cleanlinessAfterCleaning > 0)) throw new Error('the cleanliness after the last cleaning must be above 0');
   const ids = new Set<string>();
   for (const m of p.methods) {
     if (ids.has(m.id)) throw new Error(`method "${m.id}" is listed twice`);
     ids.add(m.id);
-    if (!(Number.isInteger(m.durationDays) && m.durationDays >= 1)) throw new Error(`method "${m.id}": durationDays must be a whole number of days, at least 1`);
+    if (!(Number.isInteger(m.durationDays) && m.durationDays >= 1))
+      throw new Error(`method "${m.id}": durationDays must be a whole number of days, at least 1`);
     if (!(m.recoveredCleanliness > 0)) throw new Error(`method "${m.id}": recovered cleanliness must be above 0`);
   }
 }

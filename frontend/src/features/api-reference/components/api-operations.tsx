@@ -100,7 +100,11 @@ function OperationCard({ method, path, op }: { method: string; path: string; op:
             <ul>
               {op.parameters.map((p) => (
                 <li key={`${p.in}-${p.name}`} className="text-sm">
-                  <code className="font-medium">{p.name}</code> <span className="text-ink-soft">({p.in}{p.required ? ', required' : ''}): {typeName(p.schema)}</span>
+                  <code className="font-medium">{p.name}</code>{' '}
+                  <span className="text-ink-soft">
+                    ({p.in}
+                    {p.required ? ', required' : ''}): {typeName(p.schema)}
+                  </span>
                 </li>
               ))}
             </ul>
@@ -114,7 +118,8 @@ function OperationCard({ method, path, op }: { method: string; path: string; op:
             <SchemaBlock key={status} title={`Answer ${status} (JSON)`} schema={json} />
           ) : (
             <p key={status} className="mt-2 text-sm">
-              <span className="text-xs font-semibold uppercase tracking-wide text-ink-soft">Answer {status}</span> {files.length ? `a file: ${files.join(' or ')}` : r.description}
+              <span className="text-xs font-semibold uppercase tracking-wide text-ink-soft">Answer {status}</span>{' '}
+              {files.length ? `a file: ${files.join(' or ')}` : r.description}
             </p>
           );
         })}

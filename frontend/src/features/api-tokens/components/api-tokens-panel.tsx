@@ -102,12 +102,22 @@ function CreateTokenForm({ organisationId, onCreated }: { organisationId: string
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-wrap items-start gap-3 rounded border border-rule bg-paper-raised p-4">
       <div className="min-w-64 flex-1">
-        <TextField label="Token name" name="name" placeholder="e.g. unit 2 historian script" hint="Say where it will be used, so you know what breaks when you revoke it." error={fieldErrors.name} />
+        <TextField
+          label="Token name"
+          name="name"
+          placeholder="e.g. unit 2 historian script"
+          hint="Say where it will be used, so you know what breaks when you revoke it."
+          error={fieldErrors.name}
+        />
       </div>
       <Button type="submit" className="mt-6" disabled={create.isPending}>
         {create.isPending ? 'Creating…' : 'Create token'}
       </Button>
-      {message && <Notice tone="fault" className="w-full">{message}</Notice>}
+      {message && (
+        <Notice tone="fault" className="w-full">
+          {message}
+        </Notice>
+      )}
     </form>
   );
 }

@@ -29,7 +29,13 @@ export function AuditLog({ organisationId, filters, onFiltersChange, names = NO_
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
     const f = formText(event.currentTarget, 'action', 'userId', 'from', 'to');
-    onFiltersChange(Object.fromEntries(Object.entries(f).filter(([, v]) => v.trim() !== '').map(([k, v]) => [k, v.trim()])));
+    onFiltersChange(
+      Object.fromEntries(
+        Object.entries(f)
+          .filter(([, v]) => v.trim() !== '')
+          .map(([k, v]) => [k, v.trim()]),
+      ),
+    );
   };
 
   return (
@@ -80,7 +86,8 @@ export function AuditLog({ organisationId, filters, onFiltersChange, names = NO_
       ) : (
         <>
           <p className="text-xs text-ink-soft" aria-live="polite">
-            {events.data.length} {events.data.length === 1 ? 'entry' : 'entries'}, newest first{events.data.length >= 100 ? ' (the latest 100; narrow the filters to see older ones)' : ''}
+            {events.data.length} {events.data.length === 1 ? 'entry' : 'entries'}, newest first
+            {events.data.length >= 100 ? ' (the latest 100; narrow the filters to see older ones)' : ''}
             {events.isFetching ? ' · updating…' : ''}
           </p>
           <DataTable

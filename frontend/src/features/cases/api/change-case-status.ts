@@ -12,7 +12,8 @@ export type CaseStep = 'submit' | 'approve' | 'return' | 'archive' | 'copy';
 export function useChangeCaseStatus(organisationId: string, caseId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ step, body }: { step: CaseStep; body?: CaseReturn | CaseApprove | { reason: string } }) => api<CaseView>(`/api/cases/${caseId}/${step}`, { method: 'POST', body: body ?? {} }),
+    mutationFn: ({ step, body }: { step: CaseStep; body?: CaseReturn | CaseApprove | { reason: string } }) =>
+      api<CaseView>(`/api/cases/${caseId}/${step}`, { method: 'POST', body: body ?? {} }),
     onSuccess: async (answered) => {
       queryClient.setQueryData(caseKey(organisationId, answered.id), answered);
       await queryClient.invalidateQueries({ queryKey: casesKey(organisationId) });

@@ -11,8 +11,7 @@ export function recommendation(view: CaseView): string {
   const r = view.results;
   const money = (v: number) => formatCurrency(v, view.currency);
   const [first] = r.cleanings;
-  if (!first)
-    return `No cleaning pays for itself on ${view.unitName} within the horizon; the baseline costs ${money(r.baseline.totals.total)} over it.`;
+  if (!first) return `No cleaning pays for itself on ${view.unitName} within the horizon; the baseline costs ${money(r.baseline.totals.total)} over it.`;
   const more = r.cleanings.length > 1 ? `, then ${r.cleanings.length - 1} more cleaning${r.cleanings.length > 2 ? 's' : ''} over the horizon` : '';
   return `Clean ${view.unitName}’s condenser by ${first.methodName.toLowerCase()} from ${formatDay(first.date)}${more}. Against the baseline this is worth ${money(r.businessCase.npv)} in today’s money at a ${formatPercent(view.inputs.discountRate, 1)} discount rate${r.businessCase.paybackYears !== null ? `, paying back in ${r.businessCase.paybackYears.toFixed(1)} years` : ''}.`;
 }

@@ -21,7 +21,8 @@ export function intervalCurve(results: CalcScheduleOutput, inputs: CalcScheduleI
   const cycleDays = start < 0 ? [] : daily.slice(start, stop < 0 ? daily.length : stop);
   const costPerDay = cycleDays.map((d) => d.foulingCost);
   const [cycleStart] = cycleDays;
-  if (!cycleStart || costPerDay.length < 14) return { ok: false, reason: 'The cycle after the first cleaning is shorter than two weeks in this schedule: too short to draw.' };
+  if (!cycleStart || costPerDay.length < 14)
+    return { ok: false, reason: 'The cycle after the first cleaning is shorter than two weeks in this schedule: too short to draw.' };
   const method = inputs.methods.map(resolveMethod).find((m) => m?.id === first.methodId);
   const cycle = {
     cleaningCost: first.cleaningCost,

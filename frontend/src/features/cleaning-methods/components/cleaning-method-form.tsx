@@ -121,10 +121,29 @@ export function CleaningMethodForm({ organisationId, method, takenKeys = [], onD
             {fieldErrors.id ?? (method ? 'Set when the method was added; events and cases refer to it' : 'Made from the name; events and cases refer to it')}
           </span>
         </div>
-        <QuantityField label="Fixed cost" unit="per cleaning" value={fixedCost} onChange={setFixedCost} error={fieldErrors.fixedCost} hint="In the plant’s currency" />
-        <QuantityField label="Cost per tube" unit="per tube" value={costPerTube} onChange={setCostPerTube} error={fieldErrors.costPerTube} hint="Per active tube cleaned" />
+        <QuantityField
+          label="Fixed cost"
+          unit="per cleaning"
+          value={fixedCost}
+          onChange={setFixedCost}
+          error={fieldErrors.fixedCost}
+          hint="In the plant’s currency"
+        />
+        <QuantityField
+          label="Cost per tube"
+          unit="per tube"
+          value={costPerTube}
+          onChange={setCostPerTube}
+          error={fieldErrors.costPerTube}
+          hint="Per active tube cleaned"
+        />
         <QuantityField label="Duration" unit="days" value={durationDays} onChange={setDurationDays} error={fieldErrors.durationDays} />
-        <SelectField label="Unit during cleaning" value={during} onChange={(e) => setDuring(e.target.value as UnitDuringCleaning)} error={fieldErrors.unitDuringCleaning}>
+        <SelectField
+          label="Unit during cleaning"
+          value={during}
+          onChange={(e) => setDuring(e.target.value as UnitDuringCleaning)}
+          error={fieldErrors.unitDuringCleaning}
+        >
           {UNIT_DURING_CLEANING.map((u) => (
             <option key={u} value={u}>
               {UNIT_DURING_CLEANING_LABELS[u]}
@@ -132,9 +151,23 @@ export function CleaningMethodForm({ organisationId, method, takenKeys = [], onD
           ))}
         </SelectField>
         {during === 'derate' && (
-          <QuantityField label="Derate" unit="% of rating" value={deratePct} onChange={setDeratePct} error={fieldErrors.deratePct} hint="Share of the rating lost while it runs" />
+          <QuantityField
+            label="Derate"
+            unit="% of rating"
+            value={deratePct}
+            onChange={setDeratePct}
+            error={fieldErrors.deratePct}
+            hint="Share of the rating lost while it runs"
+          />
         )}
-        <QuantityField label="Cleanliness recovered" unit="%" value={recovered} onChange={setRecovered} error={fieldErrors.recoveredCleanliness} hint="Cleanliness factor right after" />
+        <QuantityField
+          label="Cleanliness recovered"
+          unit="%"
+          value={recovered}
+          onChange={setRecovered}
+          error={fieldErrors.recoveredCleanliness}
+          hint="Cleanliness factor right after"
+        />
         <QuantityField
           label="Fouling-rate multiplier"
           value={multiplier}
@@ -168,7 +201,9 @@ export function CleaningMethodForm({ organisationId, method, takenKeys = [], onD
         <input type="checkbox" className="mt-1" aria-describedby={`${fieldId}-typical`} checked={typical} onChange={(e) => setTypical(e.target.checked)} />
         <span>
           <span className="block">Typical values</span>
-          <span id={`${fieldId}-typical`} className="block text-xs text-ink-soft">Tick only if these figures are typical orders of magnitude rather than the plant’s own quotes and results.</span>
+          <span id={`${fieldId}-typical`} className="block text-xs text-ink-soft">
+            Tick only if these figures are typical orders of magnitude rather than the plant’s own quotes and results.
+          </span>
         </span>
       </label>
       <div className="flex flex-col gap-1">

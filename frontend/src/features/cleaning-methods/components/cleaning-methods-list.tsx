@@ -51,7 +51,11 @@ export function CleaningMethodsList({ organisationId, cannotWrite }: Props) {
       ) : methods.data.length === 0 ? (
         <EmptyState
           title="No cleaning methods"
-          next={cannotWrite ? 'An administrator or analyst can add the methods your plants use.' : 'Add the methods your plants use, with your own quotes, durations and results.'}
+          next={
+            cannotWrite
+              ? 'An administrator or analyst can add the methods your plants use.'
+              : 'Add the methods your plants use, with your own quotes, durations and results.'
+          }
         />
       ) : (
         <DataTable
@@ -137,7 +141,11 @@ function MethodRow({ method: m, expanded, onToggle, cannotWrite, onEdit, deletin
         </button>
         <span className="ml-4 block font-mono text-2xs text-ink-faint">{m.id}</span>
         {m.typical && (
-          <span title={TYPICAL_VALUES_TITLE} data-testid="typical-tag" className="mt-1 ml-4 inline-block rounded border border-rule bg-paper-sunk px-1.5 py-0.5 text-2xs text-ink-soft">
+          <span
+            title={TYPICAL_VALUES_TITLE}
+            data-testid="typical-tag"
+            className="mt-1 ml-4 inline-block rounded border border-rule bg-paper-sunk px-1.5 py-0.5 text-2xs text-ink-soft"
+          >
             Typical values
           </span>
         )}

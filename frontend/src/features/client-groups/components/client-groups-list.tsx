@@ -115,7 +115,11 @@ function CreateClientGroupForm({ organisationId }: { organisationId: string }) {
       <Button type="submit" className="mt-6" disabled={create.isPending}>
         {create.isPending ? 'Creating…' : 'Create group'}
       </Button>
-      {message && <Notice tone="fault" className="w-full">{message}</Notice>}
+      {message && (
+        <Notice tone="fault" className="w-full">
+          {message}
+        </Notice>
+      )}
     </form>
   );
 }

@@ -74,7 +74,14 @@ export function AddCleaning({ organisationId, unitId, currency, lastDay, methods
     <form onSubmit={submit} noValidate aria-label="Add a cleaning" className="no-print flex flex-col gap-3 rounded border border-tube-100 bg-tube-50/50 p-3">
       <p className="text-sm font-medium">Record a cleaning</p>
       <div className="grid gap-3 sm:grid-cols-2">
-        <TextField label="Cleaning date" type="date" value={date} max={lastDay ?? undefined} onChange={(e) => setDate(e.target.value)} error={errors.startDate} />
+        <TextField
+          label="Cleaning date"
+          type="date"
+          value={date}
+          max={lastDay ?? undefined}
+          onChange={(e) => setDate(e.target.value)}
+          error={errors.startDate}
+        />
         <SelectField label="Method" value={methodId} onChange={(e) => setMethodId(e.target.value)} error={errors.methodId}>
           <option value="">Not recorded</option>
           {(methods ?? []).map((m) => (

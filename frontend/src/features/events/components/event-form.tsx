@@ -125,7 +125,13 @@ export function EventForm({ organisationId, unitId, currency, methods, event, on
             </option>
           ))}
         </SelectField>
-        <TextField label={kind === 'outage' ? 'First day' : 'Date'} type="date" value={startDate} onChange={(e) => setStartDate(e.target.value)} error={fieldErrors.startDate} />
+        <TextField
+          label={kind === 'outage' ? 'First day' : 'Date'}
+          type="date"
+          value={startDate}
+          onChange={(e) => setStartDate(e.target.value)}
+          error={fieldErrors.startDate}
+        />
         <TextField
           label={kind === 'outage' ? 'Last day' : 'Last day (if several)'}
           type="date"
@@ -162,12 +168,25 @@ export function EventForm({ organisationId, unitId, currency, methods, event, on
       )}
       {kind === 'tube-plugging' && (
         <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-          <QuantityField label="Plugged tubes after" unit="tubes" value={plugged} onChange={setPlugged} error={fieldErrors.pluggedTubesAfter} hint="The total plugged, not the number added" />
+          <QuantityField
+            label="Plugged tubes after"
+            unit="tubes"
+            value={plugged}
+            onChange={setPlugged}
+            error={fieldErrors.pluggedTubesAfter}
+            hint="The total plugged, not the number added"
+          />
         </div>
       )}
       <label className="flex flex-col gap-1 text-sm font-medium">
         Notes
-        <textarea value={notes} onChange={(e) => setNotes(e.target.value)} rows={2} maxLength={2000} className="rounded border border-rule bg-paper-raised px-2.5 py-1.5 text-sm font-normal" />
+        <textarea
+          value={notes}
+          onChange={(e) => setNotes(e.target.value)}
+          rows={2}
+          maxLength={2000}
+          className="rounded border border-rule bg-paper-raised px-2.5 py-1.5 text-sm font-normal"
+        />
       </label>
       {KIND_NOTES[kind] && <p className="text-xs text-ink-soft">{KIND_NOTES[kind]}</p>}
       {message && <Notice tone="fault">{message}</Notice>}

@@ -92,20 +92,20 @@ export function EventsTimeline({ organisationId, unitId, currency, methods, cann
                 <td className={`${td} text-right tabular-nums`}>{formatPercent(e.cleanlinessAfter, 0)}</td>
                 <td className={`${td} text-right tabular-nums`}>{formatNumber(e.pluggedTubesAfter)}</td>
                 {!cannotWrite && (
-                <td className={`${td} text-right`}>
-                  <div className="flex items-start justify-end gap-2">
-                    <Button variant="quiet" onClick={() => setEditing(e.id)} aria-label={`Change the ${EVENT_KIND_LABELS[e.kind] ?? e.kind} of ${dates(e)}`}>
-                      Change
-                    </Button>
-                    <ConfirmAction
-                      label="Delete"
-                      question={`Delete this ${(EVENT_KIND_LABELS[e.kind] ?? e.kind).toLowerCase()}?${e.kind === 'cleaning' || e.kind === 'tube-plugging' ? ' The unit’s derived data is recomputed without it.' : ''}`}
-                      confirmLabel="Delete event"
-                      pending={remove.isPending && remove.variables === e.id}
-                      onConfirm={() => remove.mutate(e.id)}
-                    />
-                  </div>
-                </td>
+                  <td className={`${td} text-right`}>
+                    <div className="flex items-start justify-end gap-2">
+                      <Button variant="quiet" onClick={() => setEditing(e.id)} aria-label={`Change the ${EVENT_KIND_LABELS[e.kind] ?? e.kind} of ${dates(e)}`}>
+                        Change
+                      </Button>
+                      <ConfirmAction
+                        label="Delete"
+                        question={`Delete this ${(EVENT_KIND_LABELS[e.kind] ?? e.kind).toLowerCase()}?${e.kind === 'cleaning' || e.kind === 'tube-plugging' ? ' The unit’s derived data is recomputed without it.' : ''}`}
+                        confirmLabel="Delete event"
+                        pending={remove.isPending && remove.variables === e.id}
+                        onConfirm={() => remove.mutate(e.id)}
+                      />
+                    </div>
+                  </td>
                 )}
               </tr>
             ),

@@ -23,14 +23,19 @@ export function AirLeakPanel({ periods }: { periods: UnitHealth['airLeakPeriods'
         Suspected air in-leakage
       </h2>
       {!firstPeriod ? (
-        <p className="text-sm text-ink-soft">None in this period. Sudden cleanliness drops with rising subcooling, dissolved oxygen or air-removal flow would be listed here.</p>
+        <p className="text-sm text-ink-soft">
+          None in this period. Sudden cleanliness drops with rising subcooling, dissolved oxygen or air-removal flow would be listed here.
+        </p>
       ) : (
         <>
           <ul className="flex flex-col gap-2">
             {periods.map((p) => (
               <li key={p.from} className="border-l-4 pl-3 text-sm" style={{ borderColor: CHART_COLOURS.airLeak }} data-testid="air-leak-period">
                 <p className="font-medium">
-                  {formatDay(p.from)} – {formatDay(p.to)} <span className="font-normal text-ink-soft">({formatNumber(days(p.from, p.to))} days; cleanliness down up to {formatNumber(p.maxDrop * 100, 1)} % points)</span>
+                  {formatDay(p.from)} – {formatDay(p.to)}{' '}
+                  <span className="font-normal text-ink-soft">
+                    ({formatNumber(days(p.from, p.to))} days; cleanliness down up to {formatNumber(p.maxDrop * 100, 1)} % points)
+                  </span>
                 </p>
                 <ul className="ml-4 list-disc text-ink-soft">
                   {p.evidence.map((e) => (

@@ -31,8 +31,9 @@ export function DataQualityPanel({ quality }: { quality: UnitHealth['dataQuality
       </h2>
       <p className="text-sm">
         <span className="font-medium tabular-nums">{formatNumber(quality.pointsUsed)}</span> hourly points used,{' '}
-        <span className="font-medium tabular-nums">{formatNumber(quality.pointsDropped)}</span> left out ({formatPercent(total ? quality.pointsDropped / total : null, 1)}); valid data on{' '}
-        {formatNumber(quality.daysWithValidData)} of {formatNumber(quality.daysInPeriod)} days.
+        <span className="font-medium tabular-nums">{formatNumber(quality.pointsDropped)}</span> left out (
+        {formatPercent(total ? quality.pointsDropped / total : null, 1)}); valid data on {formatNumber(quality.daysWithValidData)} of{' '}
+        {formatNumber(quality.daysInPeriod)} days.
       </p>
       {reasons.length > 0 && (
         <table className="w-full text-sm">
@@ -74,7 +75,8 @@ export function DataQualityPanel({ quality }: { quality: UnitHealth['dataQuality
           <ul className="ml-4 list-disc">
             {quality.stuckSensors.map((s) => (
               <li key={s.sensor} className="text-warn">
-                {SENSOR_WORDS[s.sensor] ?? s.sensor}: flat on {formatNumber(s.days)} {s.days === 1 ? 'day' : 'days'}, last {formatDay(s.lastDay)}; check the transmitter and historian tag.
+                {SENSOR_WORDS[s.sensor] ?? s.sensor}: flat on {formatNumber(s.days)} {s.days === 1 ? 'day' : 'days'}, last {formatDay(s.lastDay)}; check the
+                transmitter and historian tag.
               </li>
             ))}
           </ul>

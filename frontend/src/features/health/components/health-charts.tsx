@@ -26,7 +26,10 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
   const forecastEnd = health.forecast.at(-1)?.day;
   const to = forecastEnd && forecastEnd > lastDataDay ? forecastEnd : lastDataDay;
   const cleanings = useMemo(
-    () => health.events.filter((e) => e.kind === 'cleaning').map((e) => ({ day: e.endDate ?? e.startDate, label: `Cleaning ${shortDay(e.endDate ?? e.startDate)}` })),
+    () =>
+      health.events
+        .filter((e) => e.kind === 'cleaning')
+        .map((e) => ({ day: e.endDate ?? e.startDate, label: `Cleaning ${shortDay(e.endDate ?? e.startDate)}` })),
     [health.events],
   );
   const shades = health.airLeakPeriods;
@@ -35,9 +38,29 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
   if (!from || !to) return null;
 
   const cleanlinessSeries: TimeSeriesSpec[] = [
-    { id: 'measured', label: 'Measured (daily median)', colour: CHART_COLOURS.measured, style: 'points', values: health.series.map((d) => ({ day: d.day, y: pct(d.cleanliness) })) },
-    { id: 'trend', label: 'Fitted trend', colour: CHART_COLOURS.fitted, style: 'line', width: 2.5, values: health.series.map((d) => ({ day: d.day, y: pct(d.trendCleanliness) })) },
-    { id: 'forecast', label: 'Forecast', colour: CHART_COLOURS.forecast, style: 'dash', width: 1.25, values: health.forecast.map((f) => ({ day: f.day, y: f.cleanliness * 100 })) },
+    {
+      id: 'measured',
+      label: 'Measured (daily median)',
+      colour: CHART_COLOURS.measured,
+      style: 'points',
+      values: health.series.map((d) => ({ day: d.day, y: pct(d.cleanliness) })),
+    },
+    {
+      id: 'trend',
+      label: 'Fitted trend',
+      colour: CHART_COLOURS.fitted,
+      style: 'line',
+      width: 2.5,
+      values: health.series.map((d) => ({ day: d.day, y: pct(d.trendCleanliness) })),
+    },
+    {
+      id: 'forecast',
+      label: 'Forecast',
+      colour: CHART_COLOURS.forecast,
+      style: 'dash',
+      width: 1.25,
+      values: health.forecast.map((f) => ({ day: f.day, y: f.cleanliness * 100 })),
+    },
   ];
   const hasLeak = shades.length > 0;
   const hasCleaning = cleanings.some((c) => c.day >= from && c.day <= to);
@@ -50,7 +73,14 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
   // a narrow band (a tight fit) is hard to see under its line: its end is labelled with its width in words
   const bandEnd = health.forecast.at(-1);
   const bandLabel = bandEnd
-    ? [{ day: bandEnd.day, y: bandEnd.low * 100, below: true, label: `${bandPercent} % band ${formatNumber(bandEnd.low * 100, 1)}–${formatNumber(bandEnd.high * 100, 1)} %` }]
+    ? [
+        {
+          day: bandEnd.day,
+          y: bandEnd.low * 100,
+          below: true,
+          label: `${bandPercent} % band ${formatNumber(bandEnd.low * 100, 1)}–${formatNumber(bandEnd.high * 100, 1)} %`,
+        },
+      ]
     : [];
 
   return (
@@ -62,8 +92,20 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
           caption: 'Cleanliness factor by day: measured daily median and fitted trend, then the forecast with its band',
           columns: ['Day', 'Measured', 'Fitted trend', 'Forecast', 'Band'],
           rows: [
-            ...health.series.map((d) => [formatDay(d.day), d.cleanliness === null ? '—' : `${formatNumber(d.cleanliness * 100, 1)} %`, d.trendCleanliness === null ? '—' : `${formatNumber(d.trendCleanliness * 100, 1)} %`, '', '']),
-            ...health.forecast.map((f) => [formatDay(f.day), '', '', `${formatNumber(f.cleanliness * 100, 1)} %`, `${formatNumber(f.low * 100, 1)}–${formatNumber(f.high * 100, 1)} %`]),
+            ...health.series.map((d) => [
+              formatDay(d.day),
+              d.cleanliness === null ? '—' : `${formatNumber(d.cleanliness * 100, 1)} %`,
+              d.trendCleanliness === null ? '—' : `${formatNumber(d.trendCleanliness * 100, 1)} %`,
+              '',
+              '',
+            ]),
+            ...health.forecast.map((f) => [
+              formatDay(f.day),
+              '',
+              '',
+              `${formatNumber(f.cleanliness * 100, 1)} %`,
+              `${formatNumber(f.low * 100, 1)}–${formatNumber(f.high * 100, 1)} %`,
+            ]),
           ],
         }}
         title="Cleanliness factor over time"
@@ -79,8 +121,8 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
         note={
           trend?.status === 'fitted' ? (
             <>
-              Trend since {formatDay(trend.startDay)}: {trend.model.model} model, R² {formatNumber(trend.rSquared, 3)}, scatter ±{formatNumber(trend.residualStdCleanliness * 100, 1)} % CF over{' '}
-              {formatNumber(trend.pointsUsed)} days.
+              Trend since {formatDay(trend.startDay)}: {trend.model.model} model, R² {formatNumber(trend.rSquared, 3)}, scatter ±
+              {formatNumber(trend.residualStdCleanliness * 100, 1)} % CF over {formatNumber(trend.pointsUsed)} days.
             </>
           ) : trend ? (
             <>
@@ -120,7 +162,14 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
       >
         <TimeChart
           series={[
-            { id: 'actual', label: 'Actual', colour: CHART_COLOURS.excessEdge, style: 'line', width: 0.75, values: health.series.map((d) => ({ day: d.day, y: d.backpressureKpa === null ? null : p.fromSi(d.backpressureKpa) })) },
+            {
+              id: 'actual',
+              label: 'Actual',
+              colour: CHART_COLOURS.excessEdge,
+              style: 'line',
+              width: 0.75,
+              values: health.series.map((d) => ({ day: d.day, y: d.backpressureKpa === null ? null : p.fromSi(d.backpressureKpa) })),
+            },
             {
               id: 'expected',
               label: 'Expected',
@@ -170,7 +219,14 @@ function CostChart({
   to: string;
   narrow: boolean;
 }) {
-  const cycles = useMemo(() => costCycles(health.series, cleanings.map((c) => c.day)), [health.series, cleanings]);
+  const cycles = useMemo(
+    () =>
+      costCycles(
+        health.series,
+        cleanings.map((c) => c.day),
+      ),
+    [health.series, cleanings],
+  );
   const total = cycles.reduce((a, c) => a + c.cost, 0);
   const money = (v: number) => formatCurrency(v, currency);
   const series: TimeSeriesSpec[] = cycles.map((c, i) => ({
@@ -198,7 +254,8 @@ function CostChart({
               </span>
             ))}
           </span>
-          . Whole period: <span className="font-medium text-ledger-700">{money(total)}</span>; the unexplained part ({money(health.series.reduce((a, d) => a + (d.unexplainedCost ?? 0), 0))}) is not included.
+          . Whole period: <span className="font-medium text-ledger-700">{money(total)}</span>; the unexplained part (
+          {money(health.series.reduce((a, d) => a + (d.unexplainedCost ?? 0), 0))}) is not included.
         </>
       }
     >
@@ -240,8 +297,7 @@ function DeviationChart({ health, units, narrow }: { health: UnitHealth; units: 
       ),
     [health.breakdown, dp],
   );
-  const label = (period: string) =>
-    byWeek ? shortDay(period) : formatMonth(period);
+  const label = (period: string) => (byWeek ? shortDay(period) : formatMonth(period));
   const every = Math.max(1, Math.ceil(rows.length / (narrow ? 5 : 10)));
   const offset = health.design?.modelOffsetKpa ?? null;
   const Tip = ({ indexValue, data }: BarTooltipProps<BarRow>) => {
@@ -253,7 +309,10 @@ function DeviationChart({ health, units, narrow }: { health: UnitHealth; units: 
         rows={[
           ...BREAKDOWN_CAUSES.map((c) => ({ label: CAUSE_STYLES[c].label, value: signed(data[c], dp.decimals, dp.label), colour: CAUSE_STYLES[c].colour })),
           { label: 'Sum of the parts', value: signed(total, dp.decimals, dp.label) },
-          { label: 'Excess over expected', value: source?.meanExcessBackpressureKpa === null || !source ? '—' : signed(dp.fromSi(source.meanExcessBackpressureKpa), dp.decimals, dp.label) },
+          {
+            label: 'Excess over expected',
+            value: source?.meanExcessBackpressureKpa === null || !source ? '—' : signed(dp.fromSi(source.meanExcessBackpressureKpa), dp.decimals, dp.label),
+          },
         ]}
       />
     );
@@ -277,7 +336,8 @@ function DeviationChart({ health, units, narrow }: { health: UnitHealth; units: 
       note={
         offset !== null ? (
           <>
-            Model offset (not in the bars): the model at the design point reads {signed(dp.fromSi(offset), dp.decimals + 2, dp.label)} against the datasheet design backpressure.
+            Model offset (not in the bars): the model at the design point reads {signed(dp.fromSi(offset), dp.decimals + 2, dp.label)} against the datasheet
+            design backpressure.
           </>
         ) : undefined
       }
@@ -296,7 +356,14 @@ function DeviationChart({ health, units, narrow }: { health: UnitHealth; units: 
           enableLabel={false}
           valueScale={{ type: 'linear', min: 'auto', max: 'auto', nice: true }}
           axisBottom={{ tickSize: 4, tickValues: rows.filter((_, i) => i % every === 0).map((r) => r.period), format: (v: string) => label(v) }}
-          axisLeft={{ legend: `Deviation (${dp.label})`, legendOffset: -50, legendPosition: 'middle', tickSize: 4, tickValues: 6, format: (v: number) => formatNumber(v, dp.decimals) }}
+          axisLeft={{
+            legend: `Deviation (${dp.label})`,
+            legendOffset: -50,
+            legendPosition: 'middle',
+            tickSize: 4,
+            tickValues: 6,
+            format: (v: number) => formatNumber(v, dp.decimals),
+          }}
           markers={[{ axis: 'y', value: 0, lineStyle: { stroke: '#1d1f23', strokeWidth: 1 } }]}
           tooltip={Tip}
           animate={false}

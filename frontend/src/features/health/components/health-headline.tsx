@@ -87,11 +87,15 @@ export function HealthHeadlineStrip({ headline: h, units, currency, timeZone, no
             {h.cleanliness !== null && <CleanlinessGauge value={h.cleanliness} reference={h.referenceCleanliness} />}
             <p>
               Reference {formatPercent(h.referenceCleanliness, 0)}
-              {h.designCleanliness !== null && h.designCleanliness !== h.referenceCleanliness && <> · design {formatPercent(h.designCleanliness, 0)}</>} · fitted trend{' '}
-              {formatPercent(h.trendCleanliness, 1)}
+              {h.designCleanliness !== null && h.designCleanliness !== h.referenceCleanliness && <> · design {formatPercent(h.designCleanliness, 0)}</>} ·
+              fitted trend {formatPercent(h.trendCleanliness, 1)}
             </p>
           </Figure>
-          <Figure label="Excess backpressure" value={excess === null ? '—' : `${excess > 0 ? '+' : ''}${formatStored(excess, units.pressureDifferenceKpa)}`} testId="headline-excess">
+          <Figure
+            label="Excess backpressure"
+            value={excess === null ? '—' : `${excess > 0 ? '+' : ''}${formatStored(excess, units.pressureDifferenceKpa)}`}
+            testId="headline-excess"
+          >
             <p>Above what it would be at the reference cleanliness, same CW and load (7-day mean).</p>
             {foulingShare !== null && (
               <p className="mt-0.5 text-ink" data-testid="fouling-share">

@@ -30,13 +30,18 @@ export function healthSentence(h: HealthHeadline, today: string, currency: strin
     const ref = h.referenceCleanliness;
     const lead = old && h.asOf ? `On ${formatDay(h.asOf)}, the last day of data, cleanliness ${is} ${cf}` : `Cleanliness ${is} ${cf}`;
     if (ref === null) condition = lead;
-    else if (h.cleanliness < ref - 0.005) condition = `${lead}, ${formatNumber((ref - h.cleanliness) * 100, 0)} points below the ${formatPercent(ref, 0)} reference`;
+    else if (h.cleanliness < ref - 0.005)
+      condition = `${lead}, ${formatNumber((ref - h.cleanliness) * 100, 0)} points below the ${formatPercent(ref, 0)} reference`;
     else condition = `${lead}, at or above the ${formatPercent(ref, 0)} reference`;
   }
 
   const fouling = h.foulingCostPerDay;
   const cost =
-    fouling === null ? '' : fouling >= 0.5 ? ` and fouling ${costs} about ${formatCurrency(fouling, currency)} a day` : ` and fouling ${costs} nothing measurable a day`;
+    fouling === null
+      ? ''
+      : fouling >= 0.5
+        ? ` and fouling ${costs} about ${formatCurrency(fouling, currency)} a day`
+        : ` and fouling ${costs} nothing measurable a day`;
 
   return `${condition}${cost}: ${action(h.nextCleaning, today)}.`;
 }

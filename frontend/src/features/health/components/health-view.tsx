@@ -71,7 +71,11 @@ export function HealthView({ organisationId, unit, units, cannotWrite, progress,
   return (
     <div className="flex flex-col gap-4" data-testid="health-view" aria-busy={health.isFetching}>
       {progress}
-      {justAdded && !progress && <p className="text-sm text-ok" role="status">Cleaning recorded; the figures below include it.</p>}
+      {justAdded && !progress && (
+        <p className="text-sm text-ok" role="status">
+          Cleaning recorded; the figures below include it.
+        </p>
+      )}
       <HealthHeadlineStrip headline={h.headline} units={units} currency={unit.currency} timeZone={unit.timeZone} now={health.dataUpdatedAt} />
       {h.warnings.length > 0 && (
         <Notice tone="warn">
@@ -87,12 +91,18 @@ export function HealthView({ organisationId, unit, units, cannotWrite, progress,
         <PeriodPicker selection={selection} shown={h.period} onChange={choose} />
         <div className="flex flex-wrap items-center justify-between gap-2">
           <ExportButtons unitId={unit.id} from={h.period.from} to={h.period.to} />
-          {h.analysedAt && <p className="text-2xs text-ink-faint" data-testid="figures-computed">Figures computed {formatDateTime(h.analysedAt)}</p>}
+          {h.analysedAt && (
+            <p className="text-2xs text-ink-faint" data-testid="figures-computed">
+              Figures computed {formatDateTime(h.analysedAt)}
+            </p>
+          )}
         </div>
       </div>
 
       {h.series.length === 0 ? (
-        <p className="rounded border border-dashed border-rule bg-paper-raised p-4 text-sm text-ink-soft">No days with data in this period: choose a longer period or “All data”.</p>
+        <p className="rounded border border-dashed border-rule bg-paper-raised p-4 text-sm text-ink-soft">
+          No days with data in this period: choose a longer period or “All data”.
+        </p>
       ) : (
         <Suspense fallback={<ChartsSkeleton />}>
           <div className={health.isPlaceholderData ? 'opacity-60 transition-opacity' : ''}>

@@ -18,8 +18,8 @@ function OptionLine({ option, money }: { option: Option; money: (v: number | nul
   if (option.status === 'none-needed' || !option.first) return <li>{label}: none pays for itself this coming year</li>;
   return (
     <li>
-      {label}: <span className="text-ink">{option.first.methodName}</span> from {formatDay(option.first.date)}, {money(option.savingsVersusNoCleaning)} less than not
-      cleaning
+      {label}: <span className="text-ink">{option.first.methodName}</span> from {formatDay(option.first.date)}, {money(option.savingsVersusNoCleaning)} less
+      than not cleaning
     </li>
   );
 }
@@ -48,7 +48,10 @@ export function NextCleaningDetail({ outlook, today, money }: { outlook: Outlook
           <p className="text-ink">
             {next.methodName}
             {next.typicalValues && (
-              <span className="ml-1 inline-block rounded border border-warn/50 bg-ledger-50 px-1 text-2xs font-medium text-warn" title="The method still has typical values, not your own">
+              <span
+                className="ml-1 inline-block rounded border border-warn/50 bg-ledger-50 px-1 text-2xs font-medium text-warn"
+                title="The method still has typical values, not your own"
+              >
                 typical values
               </span>
             )}
@@ -62,7 +65,11 @@ export function NextCleaningDetail({ outlook, today, money }: { outlook: Outlook
       )}
       {plan.length > 0 && (
         <p data-testid="next-cleaning-plan">
-          Plan from {formatDay(outlook.planFrom)}: {plan.slice(0, LISTED_DATES).map((c) => formatDay(c.date)).join(', ')}
+          Plan from {formatDay(outlook.planFrom)}:{' '}
+          {plan
+            .slice(0, LISTED_DATES)
+            .map((c) => formatDay(c.date))
+            .join(', ')}
           {plan.length > LISTED_DATES && ` and ${formatNumber(plan.length - LISTED_DATES)} more`}
           {outlook.savingsVersusNoCleaning !== undefined && <>; {money(outlook.savingsVersusNoCleaning)} less than not cleaning</>}
         </p>

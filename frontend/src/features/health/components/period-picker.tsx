@@ -61,7 +61,13 @@ export function PeriodPicker({ selection, shown, onChange }: Props) {
           <span className="hidden text-sm print:inline">{selection.breakdownBy === 'week' ? 'Week' : 'Month'}</span>
           <div role="group" aria-labelledby="breakdown-label" className="no-print inline-flex overflow-hidden rounded border border-rule">
             {(['week', 'month'] as const).map((b) => (
-              <button key={b} type="button" aria-pressed={selection.breakdownBy === b} className={segment(selection.breakdownBy === b)} onClick={() => onChange({ ...selection, breakdownBy: b })}>
+              <button
+                key={b}
+                type="button"
+                aria-pressed={selection.breakdownBy === b}
+                className={segment(selection.breakdownBy === b)}
+                onClick={() => onChange({ ...selection, breakdownBy: b })}
+              >
                 {b === 'week' ? 'Week' : 'Month'}
               </button>
             ))}
@@ -81,7 +87,14 @@ export function PeriodPicker({ selection, shown, onChange }: Props) {
         <form onSubmit={apply} className="no-print flex flex-wrap items-end gap-3" aria-label="Custom period">
           {/* the browser writes a date field in its own way; the hint reads it back as every date on the page reads */}
           <TextField label="From" type="date" value={from} onChange={(e) => setFrom(e.target.value)} hint={from ? formatDay(from) : undefined} />
-          <TextField label="To" type="date" value={to} onChange={(e) => setTo(e.target.value)} error={error ?? undefined} hint={to ? formatDay(to) : undefined} />
+          <TextField
+            label="To"
+            type="date"
+            value={to}
+            onChange={(e) => setTo(e.target.value)}
+            error={error ?? undefined}
+            hint={to ? formatDay(to) : undefined}
+          />
           <Button type="submit" variant="quiet">
             Show period
           </Button>

@@ -50,7 +50,23 @@ const nextDay = (day: string) => dayToDate(addDays(day, 1));
 
 /** A daily time chart in the view's shared language: styled lines, band, shaded periods, cleaning markers. */
 export default function TimeChart(props: TimeChartProps) {
-  const { series, band = [], shades = [], cleanings = [], reference, from, to, yLegend, yTick, yValue, yFromZero, ariaLabel, narrow, gap, annotations = [] } = props;
+  const {
+    series,
+    band = [],
+    shades = [],
+    cleanings = [],
+    reference,
+    from,
+    to,
+    yLegend,
+    yTick,
+    yValue,
+    yFromZero,
+    ariaLabel,
+    narrow,
+    gap,
+    annotations = [],
+  } = props;
   const spanDays = Math.max(1, daysBetween(from, to));
   const ticks = timeTicks(spanDays, narrow ? 4 : 8);
 
@@ -83,18 +99,38 @@ export default function TimeChart(props: TimeChartProps) {
       if (band.length < 2) return null;
       const top = band.map((b) => `${xScale(dayToDate(b.day))},${yScale(b.high)}`);
       const bottom = [...band].reverse().map((b) => `${xScale(dayToDate(b.day))},${yScale(b.low)}`);
-      return <polygon aria-hidden points={[...top, ...bottom].join(' ')} fill={CHART_COLOURS.forecastBand} stroke={CHART_COLOURS.forecast} strokeWidth={1} strokeDasharray="3 3" />;
+      return (
+        <polygon
+          aria-hidden
+          points={[...top, ...bottom].join(' ')}
+          fill={CHART_COLOURS.forecastBand}
+          stroke={CHART_COLOURS.forecast}
+          strokeWidth={1}
+          strokeDasharray="3 3"
+        />
+      );
     };
     const Gap = ({ xScale, yScale }: LayerProps) => {
       if (!gap) return null;
       const upper = styleOf.get(gap.upper)?.values ?? [];
       const lower = new Map((styleOf.get(gap.lower)?.values ?? []).map((v) => [v.day, v.y]));
-      const shapes = gapShapes(upper.map((v) => ({ x: xScale(dayToDate(v.day)), actual: v.y === null ? null : yScale(v.y), expected: lower.get(v.day) == null ? null : yScale(lower.get(v.day)!) })));
+      const shapes = gapShapes(
+        upper.map((v) => ({
+          x: xScale(dayToDate(v.day)),
+          actual: v.y === null ? null : yScale(v.y),
+          expected: lower.get(v.day) == null ? null : yScale(lower.get(v.day)!),
+        })),
+      );
       // in screen coordinates a higher value is a smaller y: "above" on screen is where actual is below expected
       return (
         <g aria-hidden>
           {shapes.map((sh, i) => (
-            <polygon key={i} points={sh.points.map((p) => `${p[0].toFixed(1)},${p[1].toFixed(1)}`).join(' ')} fill={sh.side === 'below' ? gap.aboveFill : gap.belowFill} stroke="none" />
+            <polygon
+              key={i}
+              points={sh.points.map((p) => `${p[0].toFixed(1)},${p[1].toFixed(1)}`).join(' ')}
+              fill={sh.side === 'below' ? gap.aboveFill : gap.belowFill}
+              stroke="none"
+            />
           ))}
         </g>
       );
@@ -102,7 +138,18 @@ export default function TimeChart(props: TimeChartProps) {
     const Annotations = ({ xScale, yScale }: LayerProps) => (
       <g aria-hidden>
         {annotations.map((a) => (
-          <text key={a.day} x={xScale(dayToDate(a.day)) - 3} y={yScale(a.y) + (a.below ? 14 : -6)} textAnchor="end" fontSize={10.5} fontWeight={600} fill="#1d1f23" paintOrder="stroke" stroke="#fbfaf7" strokeWidth={3}>
+          <text
+            key={a.day}
+            x={xScale(dayToDate(a.day)) - 3}
+            y={yScale(a.y) + (a.below ? 14 : -6)}
+            textAnchor="end"
+            fontSize={10.5}
+            fontWeight={600}
+            fill="#1d1f23"
+            paintOrder="stroke"
+            stroke="#fbfaf7"
+            strokeWidth={3}
+          >
             {a.label}
           </text>
         ))}
@@ -111,41 +158,43 @@ export default function TimeChart(props: TimeChartProps) {
     const Lines = ({ series: computed, xScale, yScale }: LayerProps) => (
       <g aria-hidden>
         {/* lines first, measured points on top, so the measurement is never hidden under its own trend */}
-        {[...computed].sort((a, b) => Number(styleOf.get(String(a.id))?.style === 'points') - Number(styleOf.get(String(b.id))?.style === 'points')).map((s) => {
-          const style = styleOf.get(String(s.id));
-          if (!style) return null;
-          const pts = s.data.map((d) => (d.data.y === null ? null : ([xScale(d.data.x), yScale(d.data.y)] as const)));
-          if (style.style === 'points') {
-            const r = pts.length > 500 ? 1.5 : 2.2;
-            return (
-              <g key={s.id} fill={style.colour}>
-                {pts.map((p, i) => (p ? <circle key={i} cx={p[0]} cy={p[1]} r={r} /> : null))}
-              </g>
-            );
-          }
-          const segments: string[] = [];
-          let current = '';
-          for (const p of pts) {
-            if (!p) {
-              if (current) segments.push(current);
-              current = '';
-              continue;
+        {[...computed]
+          .sort((a, b) => Number(styleOf.get(String(a.id))?.style === 'points') - Number(styleOf.get(String(b.id))?.style === 'points'))
+          .map((s) => {
+            const style = styleOf.get(String(s.id));
+            if (!style) return null;
+            const pts = s.data.map((d) => (d.data.y === null ? null : ([xScale(d.data.x), yScale(d.data.y)] as const)));
+            if (style.style === 'points') {
+              const r = pts.length > 500 ? 1.5 : 2.2;
+              return (
+                <g key={s.id} fill={style.colour}>
+                  {pts.map((p, i) => (p ? <circle key={i} cx={p[0]} cy={p[1]} r={r} /> : null))}
+                </g>
+              );
             }
-            current += `${current ? 'L' : 'M'}${p[0].toFixed(1)},${p[1].toFixed(1)}`;
-          }
-          if (current) segments.push(current);
-          return (
-            <path
-              key={s.id}
-              d={segments.join(' ')}
-              fill="none"
-              stroke={style.colour}
-              strokeWidth={style.width ?? 2}
-              strokeDasharray={style.style === 'dash' ? '5 4' : undefined}
-              strokeLinejoin="round"
-            />
-          );
-        })}
+            const segments: string[] = [];
+            let current = '';
+            for (const p of pts) {
+              if (!p) {
+                if (current) segments.push(current);
+                current = '';
+                continue;
+              }
+              current += `${current ? 'L' : 'M'}${p[0].toFixed(1)},${p[1].toFixed(1)}`;
+            }
+            if (current) segments.push(current);
+            return (
+              <path
+                key={s.id}
+                d={segments.join(' ')}
+                fill="none"
+                stroke={style.colour}
+                strokeWidth={style.width ?? 2}
+                strokeDasharray={style.style === 'dash' ? '5 4' : undefined}
+                strokeLinejoin="round"
+              />
+            );
+          })}
       </g>
     );
     const Reference = ({ yScale, innerWidth }: LayerProps) => {

@@ -14,7 +14,17 @@ import { STATUS_LABELS } from './import-words';
 const leftOut = (i: ImportView) => Object.values(i.counts?.rowsByReason ?? {}).reduce((s: number, n) => s + (n ?? 0), 0);
 const canUndo = (i: ImportView) => i.status === 'complete' || i.status === 'rejected' || i.status === 'failed' || i.status === 'mapping';
 
-export function ImportHistory({ organisationId, unitId, plantTimeZone, cannotWrite }: { organisationId: string; unitId: string; plantTimeZone: string; cannotWrite: string | null }) {
+export function ImportHistory({
+  organisationId,
+  unitId,
+  plantTimeZone,
+  cannotWrite,
+}: {
+  organisationId: string;
+  unitId: string;
+  plantTimeZone: string;
+  cannotWrite: string | null;
+}) {
   const imports = useUnitImports(organisationId, unitId);
   const undo = useUndoImport(organisationId, unitId);
   if (imports.isPending) return <LoadingState what="the import history" />;
@@ -71,7 +81,9 @@ export function ImportHistory({ organisationId, unitId, plantTimeZone, cannotWri
             </td>
             <td className={`${td} text-right tabular-nums`}>{i.status === 'complete' ? formatNumber(i.counts?.stored ?? 0) : '—'}</td>
             <td className={`${td} text-right tabular-nums`}>{i.status === 'complete' ? formatNumber(leftOut(i)) : '—'}</td>
-            <td className={`${td} whitespace-nowrap`}>{i.firstTimestamp ? `${formatPlantDate(i.firstTimestamp, plantTimeZone)} – ${formatPlantDate(i.lastTimestamp, plantTimeZone)}` : '—'}</td>
+            <td className={`${td} whitespace-nowrap`}>
+              {i.firstTimestamp ? `${formatPlantDate(i.firstTimestamp, plantTimeZone)} – ${formatPlantDate(i.lastTimestamp, plantTimeZone)}` : '—'}
+            </td>
             {!cannotWrite && (
               <td className={`${td} text-right`}>
                 {canUndo(i) && (

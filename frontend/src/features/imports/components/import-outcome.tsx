@@ -41,12 +41,15 @@ function Count({ label, value, tone }: { label: string; value: number | undefine
 
 function ImportSummary({ view, plantTimeZone }: { view: ImportView; plantTimeZone: string }) {
   const c = view.counts ?? {};
-  const reasons = Object.entries(c.rowsByReason ?? {}).filter(([, n]) => (n ?? 0) > 0).sort(([, a], [, b]) => (b ?? 0) - (a ?? 0));
+  const reasons = Object.entries(c.rowsByReason ?? {})
+    .filter(([, n]) => (n ?? 0) > 0)
+    .sort(([, a], [, b]) => (b ?? 0) - (a ?? 0));
   const leftOut = reasons.reduce((s, [, n]) => s + (n ?? 0), 0);
   return (
     <div className="flex flex-col gap-4" data-testid="import-summary">
       <Notice tone="ok">
-        Imported {formatNumber(c.stored ?? 0)} rows from {formatPlantTime(view.firstTimestamp, plantTimeZone)} to {formatPlantTime(view.lastTimestamp, plantTimeZone)} (plant time). The unit’s derived data has been recomputed.
+        Imported {formatNumber(c.stored ?? 0)} rows from {formatPlantTime(view.firstTimestamp, plantTimeZone)} to{' '}
+        {formatPlantTime(view.lastTimestamp, plantTimeZone)} (plant time). The unit’s derived data has been recomputed.
       </Notice>
       <dl className="grid gap-2 sm:grid-cols-3 lg:grid-cols-6">
         <Count label="Rows read" value={c.rowsRead} />
@@ -62,8 +65,18 @@ function ImportSummary({ view, plantTimeZone }: { view: ImportView; plantTimeZon
           <p className="text-sm text-ink-soft">None: every stored row is steady and physical.</p>
         ) : (
           <>
-            <p className="text-xs text-ink-soft">These rows are stored with their reason and can be seen in the data, but the cleanliness and cost figures do not use them.</p>
-            <DataTable caption="Rows left out by reason" head={<><th className={th}>Reason</th><th className={`${th} text-right`}>Rows</th></>}>
+            <p className="text-xs text-ink-soft">
+              These rows are stored with their reason and can be seen in the data, but the cleanliness and cost figures do not use them.
+            </p>
+            <DataTable
+              caption="Rows left out by reason"
+              head={
+                <>
+                  <th className={th}>Reason</th>
+                  <th className={`${th} text-right`}>Rows</th>
+                </>
+              }
+            >
               {reasons.map(([code, n]) => (
                 <tr key={code} className={tr} data-testid="reason-row">
                   <td className={td}>{reasonLabel(code)}</td>
@@ -76,7 +89,11 @@ function ImportSummary({ view, plantTimeZone }: { view: ImportView; plantTimeZon
       </div>
       {(c.conflicts?.length ?? 0) > 0 && (
         <p className="text-sm text-warn">
-          Conflicting times (already stored with other values; the stored rows were kept): {c.conflicts!.slice(0, 5).map((x) => formatPlantTime(x.timestampUtc, plantTimeZone)).join(', ')}
+          Conflicting times (already stored with other values; the stored rows were kept):{' '}
+          {c
+            .conflicts!.slice(0, 5)
+            .map((x) => formatPlantTime(x.timestampUtc, plantTimeZone))
+            .join(', ')}
           {c.conflicts!.length > 5 ? ` and ${c.conflicts!.length - 5} more` : ''}. Undo the earlier import first to replace them.
         </p>
       )}

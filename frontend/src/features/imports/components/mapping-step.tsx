@@ -101,7 +101,8 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
     let timestampColumn = '';
     for (const [header, a] of Object.entries(assignments)) {
       if (a.role === 'timestamp') timestampColumn = header;
-      else if (a.role && !(flowNotMetered && a.role === 'cwFlow')) (columns as Record<string, { column: string; unit: string }>)[a.role] = { column: header, unit: a.unit };
+      else if (a.role && !(flowNotMetered && a.role === 'cwFlow'))
+        (columns as Record<string, { column: string; unit: string }>)[a.role] = { column: header, unit: a.unit };
     }
     const barometer = parseNumberText(barometerText);
     return {
@@ -121,7 +122,9 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
 
   const localProblems = useMemo(() => {
     const parsed = importMappingSchema.safeParse(mapping);
-    const problems = parsed.success ? [] : parsed.error.issues.map((i) => (i.path[0] === 'timestamp' && i.path[1] === 'column' ? 'choose the timestamp column' : i.message));
+    const problems = parsed.success
+      ? []
+      : parsed.error.issues.map((i) => (i.path[0] === 'timestamp' && i.path[1] === 'column' ? 'choose the timestamp column' : i.message));
     if (flowNotMetered && designCwFlowM3s === null) problems.push('the design CW flow is not set: save the condenser setup first, or map a CW flow column');
     return [...new Set(problems)];
   }, [mapping, flowNotMetered, designCwFlowM3s]);
@@ -185,7 +188,12 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
               </td>
               <td className={td}>
                 {a.role && a.role !== 'timestamp' ? (
-                  <select aria-label={`Unit of column ${header}`} className={selectClass} value={a.unit} onChange={(e) => setAssignments({ ...assignments, [header]: { ...a, unit: e.target.value } })}>
+                  <select
+                    aria-label={`Unit of column ${header}`}
+                    className={selectClass}
+                    value={a.unit}
+                    onChange={(e) => setAssignments({ ...assignments, [header]: { ...a, unit: e.target.value } })}
+                  >
                     {(IMPORT_QUANTITY_UNITS[a.role] as readonly string[]).map((u) => (
                       <option key={u} value={u}>
                         {unitLabel(u)}
@@ -222,7 +230,9 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
               </option>
             ))}
           </SelectField>
-          {format !== 'iso-8601-offset' && <TimeZonePicker label="Clock of the file" value={timeZone} onChange={setTimeZone} hint={`The plant’s is ${plantTimeZone.replace(/_/g, ' ')}`} />}
+          {format !== 'iso-8601-offset' && (
+            <TimeZonePicker label="Clock of the file" value={timeZone} onChange={setTimeZone} hint={`The plant’s is ${plantTimeZone.replace(/_/g, ' ')}`} />
+          )}
           {format === 'local-text' && (
             <SelectField label="Date order" value={dateOrder} onChange={(e) => setDateOrder(e.target.value as typeof dateOrder)}>
               {DATE_ORDERS.map((o) => (
@@ -233,7 +243,11 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
             </SelectField>
           )}
           {format !== 'iso-8601-offset' && (
-            <SelectField label="Repeated hour when clocks go back" value={repeatedHour} onChange={(e) => setRepeatedHour(e.target.value as typeof repeatedHour)}>
+            <SelectField
+              label="Repeated hour when clocks go back"
+              value={repeatedHour}
+              onChange={(e) => setRepeatedHour(e.target.value as typeof repeatedHour)}
+            >
               {REPEATED_HOUR_RULES.map((r) => (
                 <option key={r} value={r}>
                   {REPEATED_HOUR_LABELS[r]}
@@ -261,7 +275,12 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
                 className="w-28 rounded border border-rule bg-paper-raised px-2 py-1 text-right text-sm"
               />
             </label>
-            <select aria-label="Unit of the fixed barometer" className="rounded border border-rule bg-paper-raised px-2 py-1 text-sm" value={barometerUnit} onChange={(e) => setBarometerUnit(e.target.value)}>
+            <select
+              aria-label="Unit of the fixed barometer"
+              className="rounded border border-rule bg-paper-raised px-2 py-1 text-sm"
+              value={barometerUnit}
+              onChange={(e) => setBarometerUnit(e.target.value)}
+            >
               {IMPORT_QUANTITY_UNITS.barometer.map((u) => (
                 <option key={u} value={u}>
                   {unitLabel(u)}
@@ -272,7 +291,12 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
           </div>
         )}
         <label className="flex items-center gap-2 text-sm">
-          <input type="checkbox" checked={flowNotMetered} disabled={designCwFlowM3s === null && !flowNotMetered} onChange={(e) => setFlowNotMetered(e.target.checked)} />
+          <input
+            type="checkbox"
+            checked={flowNotMetered}
+            disabled={designCwFlowM3s === null && !flowNotMetered}
+            onChange={(e) => setFlowNotMetered(e.target.checked)}
+          />
           CW flow is not metered: use the design flow
           <span className="text-xs text-ink-soft">
             {designCwFlowM3s === null ? '(set up the condenser first)' : `(${formatStored(designCwFlowM3s, units.flowM3s)}, recorded as an assumption)`}

@@ -71,8 +71,8 @@ function UploadForm({ unitId, onUploaded }: Omit<Props, 'disabledReason'>) {
     <form onSubmit={onSubmit} noValidate aria-label="Choose a file" className="flex flex-col gap-3 rounded border border-rule bg-paper-raised p-4">
       <h2>1. Choose the historian export</h2>
       <p className="text-sm text-ink-soft">
-        A CSV or XLSX file of up to {MAX_MB} MB, one row per time: timestamp, gross load, backpressure (or vacuum and barometer), CW inlet and outlet temperature and CW
-        flow, in any column names and units. Nothing is stored until you confirm the columns and every row has been checked.
+        A CSV or XLSX file of up to {MAX_MB} MB, one row per time: timestamp, gross load, backpressure (or vacuum and barometer), CW inlet and outlet
+        temperature and CW flow, in any column names and units. Nothing is stored until you confirm the columns and every row has been checked.
       </p>
       <label className="flex flex-col gap-1 text-sm font-medium">
         Historian file (CSV or XLSX, up to {MAX_MB} MB)
@@ -85,7 +85,11 @@ function UploadForm({ unitId, onUploaded }: Omit<Props, 'disabledReason'>) {
           className="text-sm font-normal"
         />
       </label>
-      {file && <p className="text-xs text-ink-soft">{file.name}, {formatBytes(file.size)}</p>}
+      {file && (
+        <p className="text-xs text-ink-soft">
+          {file.name}, {formatBytes(file.size)}
+        </p>
+      )}
       {progress !== null && <ProgressBar fraction={progress} label="Uploading" message={progress < 1 ? `Uploading ${file?.name}` : 'Reading the columns…'} />}
       {error && <Notice tone="fault">{error}</Notice>}
       <div className="flex gap-2">

@@ -6,8 +6,7 @@ import { membersQueryOptions } from './get-members';
 export function useUpdateMember(organisationId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ membershipId, ...body }: MemberUpdate & { membershipId: string }) =>
-      api<void>(`/api/members/${membershipId}`, { method: 'PATCH', body }),
+    mutationFn: ({ membershipId, ...body }: MemberUpdate & { membershipId: string }) => api<void>(`/api/members/${membershipId}`, { method: 'PATCH', body }),
     onSettled: () => queryClient.invalidateQueries({ queryKey: membersQueryOptions(organisationId).queryKey }),
   });
 }

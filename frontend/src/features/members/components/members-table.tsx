@@ -15,7 +15,17 @@ import { useMembers } from '../api/get-members';
 import { useRemoveMember } from '../api/remove-member';
 import { useUpdateMember } from '../api/update-member';
 
-export function MembersTable({ organisationId, groups, currentUserId, mayGrantAll }: { organisationId: string; groups: GroupOption[]; currentUserId: string; mayGrantAll: boolean }) {
+export function MembersTable({
+  organisationId,
+  groups,
+  currentUserId,
+  mayGrantAll,
+}: {
+  organisationId: string;
+  groups: GroupOption[];
+  currentUserId: string;
+  mayGrantAll: boolean;
+}) {
   const members = useMembers(organisationId);
   const remove = useRemoveMember(organisationId);
   const [editing, setEditing] = useState<string | null>(null);
@@ -28,53 +38,74 @@ export function MembersTable({ organisationId, groups, currentUserId, mayGrantAl
     <div className="flex flex-col gap-2">
       {remove.isError && <Notice tone="fault">{remove.error.message}</Notice>}
       <DataTable
- head={<>
-              <th className={th}>Name</th>
-              <th className={th}>E-mail</th>
-              <th className={th}>Role</th>
-              <th className={th}>Plants</th>
-              <th className={th}>Joined</th>
-              <th className={th}>
-                <span className="sr-only">Actions</span>
-              </th>
-            </>}
- >
-            {members.data.map((m) =>
-              editing === m.membershipId ? (
-                <MemberEditor key={m.membershipId} member={m} groups={groups} organisationId={organisationId} mayGrantAll={mayGrantAll} onDone={() => setEditing(null)} />
-              ) : (
-                <tr key={m.membershipId} className={tr}>
-                  <td className={td}>
-                    {m.name}
-                    {m.userId === currentUserId && <span className="ml-1 text-xs text-ink-faint">(you)</span>}
-                  </td>
-                  <td className={td}>{m.email}</td>
-                  <td className={td}>{ROLE_LABELS[m.role]}</td>
-                  <td className={`${td} ${m.clientGroupIds === null ? 'text-ink-soft' : ''}`}>{describeGroupLimit(m.clientGroupIds, groups)}</td>
-                  <td className={`${td} whitespace-nowrap`}>{formatDate(m.joinedAt)}</td>
-                  <td className={`${td} text-right`}>
-                    <div className="flex items-start justify-end gap-2">
-                      <Button variant="quiet" onClick={() => setEditing(m.membershipId)} aria-label={`Change access of ${m.name}`}>
-                        Change access
-                      </Button>
-                      <ConfirmAction
-                        label="Remove"
-                        question={`${m.name} loses access to this organisation at once. Their account and other organisations stay.`}
-                        confirmLabel="Remove member"
-                        pending={remove.isPending && remove.variables === m.membershipId}
-                        onConfirm={() => remove.mutate(m.membershipId)}
-                      />
-                    </div>
-                  </td>
-                </tr>
-              ),
-            )}
-          </DataTable>
+        head={
+          <>
+            <th className={th}>Name</th>
+            <th className={th}>E-mail</th>
+            <th className={th}>Role</th>
+            <th className={th}>Plants</th>
+            <th className={th}>Joined</th>
+            <th className={th}>
+              <span className="sr-only">Actions</span>
+            </th>
+          </>
+        }
+      >
+        {members.data.map((m) =>
+          editing === m.membershipId ? (
+            <MemberEditor
+              key={m.membershipId}
+              member={m}
+              groups={groups}
+              organisationId={organisationId}
+              mayGrantAll={mayGrantAll}
+              onDone={() => setEditing(null)}
+            />
+          ) : (
+            <tr key={m.membershipId} className={tr}>
+              <td className={td}>
+                {m.name}
+                {m.userId === currentUserId && <span className="ml-1 text-xs text-ink-faint">(you)</span>}
+              </td>
+              <td className={td}>{m.email}</td>
+              <td className={td}>{ROLE_LABELS[m.role]}</td>
+              <td className={`${td} ${m.clientGroupIds === null ? 'text-ink-soft' : ''}`}>{describeGroupLimit(m.clientGroupIds, groups)}</td>
+              <td className={`${td} whitespace-nowrap`}>{formatDate(m.joinedAt)}</td>
+              <td className={`${td} text-right`}>
+                <div className="flex items-start justify-end gap-2">
+                  <Button variant="quiet" onClick={() => setEditing(m.membershipId)} aria-label={`Change access of ${m.name}`}>
+                    Change access
+                  </Button>
+                  <ConfirmAction
+                    label="Remove"
+                    question={`${m.name} loses access to this organisation at once. Their account and other organisations stay.`}
+                    confirmLabel="Remove member"
+                    pending={remove.isPending && remove.variables === m.membershipId}
+                    onConfirm={() => remove.mutate(m.membershipId)}
+                  />
+                </div>
+              </td>
+            </tr>
+          ),
+        )}
+      </DataTable>
     </div>
   );
 }
 
-function MemberEditor({ member, groups, organisationId, mayGrantAll, onDone }: { member: MemberView; groups: GroupOption[]; organisationId: string; mayGrantAll: boolean; onDone: () => void }) {
+function MemberEditor({
+  member,
+  groups,
+  organisationId,
+  mayGrantAll,
+  onDone,
+}: {
+  member: MemberView;
+  groups: GroupOption[];
+  organisationId: string;
+  mayGrantAll: boolean;
+  onDone: () => void;
+}) {
   const update = useUpdateMember(organisationId);
   const [role, setRole] = useState<Role>(member.role);
   const [clientGroupIds, setClientGroupIds] = useState<string[] | null>(member.clientGroupIds);
@@ -83,7 +114,8 @@ function MemberEditor({ member, groups, organisationId, mayGrantAll, onDone }: {
   const save = () => {
     const limitProblem = clientGroupIds !== null && clientGroupIds.length === 0 ? 'Tick at least one client group, or choose all plants' : null;
     const parsed = memberUpdate.safeParse({ role, clientGroupIds });
-    if (!parsed.success || limitProblem) return setErrors({ ...(parsed.success ? {} : zodFieldErrors(parsed.error)), ...(limitProblem ? { clientGroupIds: limitProblem } : {}) });
+    if (!parsed.success || limitProblem)
+      return setErrors({ ...(parsed.success ? {} : zodFieldErrors(parsed.error)), ...(limitProblem ? { clientGroupIds: limitProblem } : {}) });
     setErrors({});
     update.mutate({ membershipId: member.membershipId, ...parsed.data }, { onSuccess: onDone });
   };

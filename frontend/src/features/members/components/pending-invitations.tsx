@@ -19,36 +19,38 @@ export function PendingInvitations({ organisationId, groups }: { organisationId:
     <div className="flex flex-col gap-2">
       {withdraw.isError && <Notice tone="fault">{withdraw.error.message}</Notice>}
       <DataTable
- head={<>
-              <th className={th}>E-mail</th>
-              <th className={th}>Role</th>
-              <th className={th}>Plants</th>
-              <th className={th}>Sent</th>
-              <th className={th}>Expires</th>
-              <th className={th}>
-                <span className="sr-only">Actions</span>
-              </th>
-            </>}
- >
-            {invitations.data.map((inv) => (
-              <tr key={inv.id} className={tr}>
-                <td className={td}>{inv.email}</td>
-                <td className={td}>{ROLE_LABELS[inv.role]}</td>
-                <td className={td}>{describeGroupLimit(inv.clientGroupIds, groups)}</td>
-                <td className={`${td} whitespace-nowrap`}>{formatDate(inv.createdAt)}</td>
-                <td className={`${td} whitespace-nowrap`}>{formatDate(inv.expiresAt)}</td>
-                <td className={`${td} text-right`}>
-                  <ConfirmAction
-                    label="Withdraw"
-                    question={`The link sent to ${inv.email} stops working.`}
-                    confirmLabel="Withdraw invitation"
-                    pending={withdraw.isPending && withdraw.variables === inv.id}
-                    onConfirm={() => withdraw.mutate(inv.id)}
-                  />
-                </td>
-              </tr>
-            ))}
-          </DataTable>
+        head={
+          <>
+            <th className={th}>E-mail</th>
+            <th className={th}>Role</th>
+            <th className={th}>Plants</th>
+            <th className={th}>Sent</th>
+            <th className={th}>Expires</th>
+            <th className={th}>
+              <span className="sr-only">Actions</span>
+            </th>
+          </>
+        }
+      >
+        {invitations.data.map((inv) => (
+          <tr key={inv.id} className={tr}>
+            <td className={td}>{inv.email}</td>
+            <td className={td}>{ROLE_LABELS[inv.role]}</td>
+            <td className={td}>{describeGroupLimit(inv.clientGroupIds, groups)}</td>
+            <td className={`${td} whitespace-nowrap`}>{formatDate(inv.createdAt)}</td>
+            <td className={`${td} whitespace-nowrap`}>{formatDate(inv.expiresAt)}</td>
+            <td className={`${td} text-right`}>
+              <ConfirmAction
+                label="Withdraw"
+                question={`The link sent to ${inv.email} stops working.`}
+                confirmLabel="Withdraw invitation"
+                pending={withdraw.isPending && withdraw.variables === inv.id}
+                onConfirm={() => withdraw.mutate(inv.id)}
+              />
+            </td>
+          </tr>
+        ))}
+      </DataTable>
     </div>
   );
 }

@@ -35,7 +35,10 @@ export function PlantForm({ organisationId, groups, plant, onDone, onCancel }: P
   const formRef = useRef<HTMLFormElement>(null);
   useFocusFirstProblem(formRef, fieldErrors);
   const initialZone = useState(() => plant?.timeZone ?? browserTimeZone())[0];
-  const dirty = !mutation.isPending && !mutation.isSuccess && (name !== (plant?.name ?? '') || timeZone !== initialZone || clientGroupId !== (plant?.clientGroupId ?? null));
+  const dirty =
+    !mutation.isPending &&
+    !mutation.isSuccess &&
+    (name !== (plant?.name ?? '') || timeZone !== initialZone || clientGroupId !== (plant?.clientGroupId ?? null));
 
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
@@ -92,7 +95,14 @@ export function PlantForm({ organisationId, groups, plant, onDone, onCancel }: P
         </SelectField>
       </div>
       {message && <Notice tone="fault">{message}</Notice>}
-      <FormActions editing={!!plant} cancellable={!!plant || !!onCancel} pending={mutation.isPending} addLabel="Create plant" saveLabel="Save plant" onCancel={plant ? onDone : onCancel} />
+      <FormActions
+        editing={!!plant}
+        cancellable={!!plant || !!onCancel}
+        pending={mutation.isPending}
+        addLabel="Create plant"
+        saveLabel="Save plant"
+        onCancel={plant ? onDone : onCancel}
+      />
     </form>
   );
 }

@@ -58,7 +58,11 @@ export function PlantsList({ organisationId, groups, cannotWrite }: Props) {
       {sections.length === 0 ? (
         <EmptyState
           title="No plants yet"
-          next={cannotWrite ? 'An analyst or administrator sets up plants and their units.' : 'Start with New plant above, then add its generating units and set up each condenser.'}
+          next={
+            cannotWrite
+              ? 'An analyst or administrator sets up plants and their units.'
+              : 'Start with New plant above, then add its generating units and set up each condenser.'
+          }
         />
       ) : (
         sections.map((s) => (
@@ -74,7 +78,17 @@ export function PlantsList({ organisationId, groups, cannotWrite }: Props) {
   );
 }
 
-function PlantCard({ plant, organisationId, groups, cannotWrite }: { plant: PlantView; organisationId: string; groups: GroupOption[]; cannotWrite: string | null }) {
+function PlantCard({
+  plant,
+  organisationId,
+  groups,
+  cannotWrite,
+}: {
+  plant: PlantView;
+  organisationId: string;
+  groups: GroupOption[];
+  cannotWrite: string | null;
+}) {
   const [editing, setEditing] = useState(false);
   const [renamingUnit, setRenamingUnit] = useState<string | null>(null);
   const remove = useDeletePlant(organisationId);

@@ -8,8 +8,7 @@ import { replaceSession } from './get-session';
 export function useAcceptInvitation(token: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (body: AcceptInvitationRequest) =>
-      api<SessionResponse>(`/api/invitation-links/${encodeURIComponent(token)}/accept`, { method: 'POST', body }),
+    mutationFn: (body: AcceptInvitationRequest) => api<SessionResponse>(`/api/invitation-links/${encodeURIComponent(token)}/accept`, { method: 'POST', body }),
     onSuccess: (session) => replaceSession(queryClient, session),
   });
 }

@@ -2,8 +2,7 @@ import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query'
 import type { SessionResponse } from '@shared/schemas/session';
 import { api } from '@frontend/lib/api-client';
 
-export const sessionQueryOptions = () =>
-  queryOptions({ queryKey: ['session'], queryFn: () => api<SessionResponse>('/api/session'), staleTime: 60_000 });
+export const sessionQueryOptions = () => queryOptions({ queryKey: ['session'], queryFn: () => api<SessionResponse>('/api/session'), staleTime: 60_000 });
 
 export const useSession = () => useQuery(sessionQueryOptions());
 

@@ -23,7 +23,9 @@ export function ForgotPasswordForm() {
       <>
         <h1>Check your e-mail</h1>
         <Notice tone="ok">{request.data.message}</Notice>
-        <p className="text-sm text-ink-soft">The link works once and for a limited time. Nothing arrived after a few minutes? Look in the spam folder, then ask again.</p>
+        <p className="text-sm text-ink-soft">
+          The link works once and for a limited time. Nothing arrived after a few minutes? Look in the spam folder, then ask again.
+        </p>
       </>
     );
   }

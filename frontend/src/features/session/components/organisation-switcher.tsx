@@ -111,7 +111,11 @@ export function OrganisationSwitcher({ session, onSwitched }: { session: Session
                 <StartOrganisationForm onCreated={done} onCancel={() => setStarting(false)} />
               </Suspense>
             ) : (
-              <button type="button" className="w-full rounded px-2 py-1.5 text-left text-sm text-tube-700 hover:bg-paper-sunk" onClick={() => setStarting(true)}>
+              <button
+                type="button"
+                className="w-full rounded px-2 py-1.5 text-left text-sm text-tube-700 hover:bg-paper-sunk"
+                onClick={() => setStarting(true)}
+              >
                 Start another organisation…
               </button>
             )}

@@ -66,9 +66,7 @@ export function PasswordChangeForm({ email }: { email: string }) {
     <form onSubmit={onSubmit} noValidate className="flex max-w-md flex-col gap-4">
       <div>
         <h2>Password</h2>
-        <p className="mt-1 text-sm text-ink-soft">
-          Changing it signs you out everywhere else (other browsers and devices); you stay signed in here.
-        </p>
+        <p className="mt-1 text-sm text-ink-soft">Changing it signs you out everywhere else (other browsers and devices); you stay signed in here.</p>
       </div>
       {/* Lets password managers pair the new password with the account. */}
       <input type="email" name="username" autoComplete="username" value={email} readOnly hidden />

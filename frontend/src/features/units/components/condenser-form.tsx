@@ -14,8 +14,20 @@ import { storedFromText, storedValues, textFromStored, unitLabel, type FieldKind
 import { TUBE_MATERIAL_LABELS } from './tube-materials';
 
 const NUMBER_FIELDS = [
-  'shells', 'passes', 'tubeCount', 'tubeOdMm', 'tubeLengthM', 'surfaceM2', 'pluggedTubes', 'designPluggedTubes',
-  'designCwFlowM3s', 'designCwInletC', 'designDutyMw', 'designBackpressureKpa', 'designCleanliness', 'referenceCleanliness',
+  'shells',
+  'passes',
+  'tubeCount',
+  'tubeOdMm',
+  'tubeLengthM',
+  'surfaceM2',
+  'pluggedTubes',
+  'designPluggedTubes',
+  'designCwFlowM3s',
+  'designCwInletC',
+  'designDutyMw',
+  'designBackpressureKpa',
+  'designCleanliness',
+  'referenceCleanliness',
 ] as const;
 type NumberField = (typeof NUMBER_FIELDS)[number];
 

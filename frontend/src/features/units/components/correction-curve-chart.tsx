@@ -46,7 +46,11 @@ export default function CorrectionCurveChart({ series, pressureLabel, basisLabel
         markers={[{ axis: 'y', value: 0, lineStyle: { stroke: '#6b6f78', strokeWidth: 1, strokeDasharray: '3 3' } }]}
         useMesh
         animate={false}
-        theme={{ text: { fontSize: 11, fill: '#4a4e57' }, axis: { legend: { text: { fontSize: 12, fill: '#1d1f23' } } }, grid: { line: { stroke: '#e6e2da' } } }}
+        theme={{
+          text: { fontSize: 11, fill: '#4a4e57' },
+          axis: { legend: { text: { fontSize: 12, fill: '#1d1f23' } } },
+          grid: { line: { stroke: '#e6e2da' } },
+        }}
         legends={[{ anchor: 'right', direction: 'column', translateX: 104, itemWidth: 96, itemHeight: 18, symbolSize: 10, symbolShape: 'circle' }]}
       />
     </div>

@@ -31,7 +31,11 @@ export function draftFromCurve(curve: Curve | null, pressure: DisplayUnit): Curv
     basis: curve.basis,
     label: curve.label,
     rows: curve.curves.flatMap((c) =>
-      c.points.map((p) => ({ loadPct: trim(c.loadFraction * 100, 2), backpressure: trim(pressure.fromSi(p.backpressureKpa), pressure.decimals + 2), changePct: trim(p.changePct, 3) })),
+      c.points.map((p) => ({
+        loadPct: trim(c.loadFraction * 100, 2),
+        backpressure: trim(pressure.fromSi(p.backpressureKpa), pressure.decimals + 2),
+        changePct: trim(p.changePct, 3),
+      })),
     ),
   };
 }
@@ -51,7 +55,9 @@ export function curveFromDraft(draft: CurveDraft, pressure: DisplayUnit): Curve 
     basis: draft.basis,
     label: draft.label.trim() || 'Turbine maker’s curve',
     isGeneric: false,
-    curves: [...byLoad.entries()].sort(([a], [b]) => a - b).map(([loadFraction, points]) => ({ loadFraction, points: points.sort((a, b) => a.backpressureKpa - b.backpressureKpa) })),
+    curves: [...byLoad.entries()]
+      .sort(([a], [b]) => a - b)
+      .map(([loadFraction, points]) => ({ loadFraction, points: points.sort((a, b) => a.backpressureKpa - b.backpressureKpa) })),
   };
 }
 
@@ -83,7 +89,9 @@ export function chartSeries(curve: Curve, pressure: DisplayUnit) {
     .filter((c) => Number.isFinite(c.loadFraction))
     .map((c) => ({
       id: `${trim(c.loadFraction * 100, 1)} % load`,
-      data: c.points.filter((p) => Number.isFinite(p.backpressureKpa) && Number.isFinite(p.changePct)).map((p) => ({ x: pressure.fromSi(p.backpressureKpa), y: p.changePct })),
+      data: c.points
+        .filter((p) => Number.isFinite(p.backpressureKpa) && Number.isFinite(p.changePct))
+        .map((p) => ({ x: pressure.fromSi(p.backpressureKpa), y: p.changePct })),
     }))
     .filter((s) => s.data.length > 0);
 }

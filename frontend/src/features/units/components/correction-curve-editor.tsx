@@ -32,16 +32,25 @@ export function CorrectionCurveEditor({ draft, onChange, pressure, error, disabl
   const setRow = (i: number, patch: Partial<CurvePointText>) => onChange({ ...draft, rows: draft.rows.map((r, k) => (k === i ? { ...r, ...patch } : r)) });
   const readRows = (text: string, source: string) => {
     const { rows, skipped } = pointsFromCsv(text);
-    if (rows.length === 0) return setReadNote(`No points found in the ${source}: each line needs load fraction, backpressure (${pressure.label}) and change %.`);
+    if (rows.length === 0)
+      return setReadNote(`No points found in the ${source}: each line needs load fraction, backpressure (${pressure.label}) and change %.`);
     onChange({ ...draft, mode: 'maker', rows });
-    setReadNote(`Read ${rows.length} points from the ${source}${skipped ? `; ${skipped} line${skipped === 1 ? '' : 's'} without three numbers skipped (a header, say)` : ''}.`);
+    setReadNote(
+      `Read ${rows.length} points from the ${source}${skipped ? `; ${skipped} line${skipped === 1 ? '' : 's'} without three numbers skipped (a header, say)` : ''}.`,
+    );
   };
 
   return (
     <div className="flex flex-col gap-3" aria-describedby={error ? `${id}-error` : undefined}>
       <div className="flex flex-col gap-1.5" role="radiogroup" aria-label="Correction curve source">
         <label className="flex items-center gap-2 text-sm">
-          <input type="radio" name={`${id}-mode`} checked={draft.mode === 'generic'} disabled={disabled} onChange={() => onChange({ ...draft, mode: 'generic' })} />
+          <input
+            type="radio"
+            name={`${id}-mode`}
+            checked={draft.mode === 'generic'}
+            disabled={disabled}
+            onChange={() => onChange({ ...draft, mode: 'generic' })}
+          />
           Use the generic curve <span className="rounded bg-ledger-50 px-1.5 py-0.5 text-xs text-warn">{GENERIC_LABEL}</span>
         </label>
         <label className="flex items-center gap-2 text-sm">
@@ -60,17 +69,28 @@ export function CorrectionCurveEditor({ draft, onChange, pressure, error, disabl
         <div className="flex flex-col gap-3">
           {draft.mode === 'generic' ? (
             <p className="text-sm text-ink-soft">
-              The generic curve is a typical shape (zero at 2.0 inHgA, steeper at part load), not this turbine’s. Costs built on it are rough: replace it with the
-              maker’s curve from the heat balance or the acceptance test when you have it.
+              The generic curve is a typical shape (zero at 2.0 inHgA, steeper at part load), not this turbine’s. Costs built on it are rough: replace it with
+              the maker’s curve from the heat balance or the acceptance test when you have it.
             </p>
           ) : (
             <>
               <div className="grid gap-3 sm:grid-cols-2">
-                <SelectField label="Curve gives" value={draft.basis} disabled={disabled} onChange={(e) => onChange({ ...draft, basis: e.target.value as CurveDraft['basis'] })}>
+                <SelectField
+                  label="Curve gives"
+                  value={draft.basis}
+                  disabled={disabled}
+                  onChange={(e) => onChange({ ...draft, basis: e.target.value as CurveDraft['basis'] })}
+                >
                   <option value="heat-rate">% change of heat rate</option>
                   <option value="output">% change of output</option>
                 </SelectField>
-                <TextField label="Curve name" value={draft.label} disabled={disabled} placeholder="e.g. maker’s heat balance 2019" onChange={(e) => onChange({ ...draft, label: e.target.value })} />
+                <TextField
+                  label="Curve name"
+                  value={draft.label}
+                  disabled={disabled}
+                  placeholder="e.g. maker’s heat balance 2019"
+                  onChange={(e) => onChange({ ...draft, label: e.target.value })}
+                />
               </div>
               <DataTable
                 caption="Correction curve points"
@@ -90,16 +110,42 @@ export function CorrectionCurveEditor({ draft, onChange, pressure, error, disabl
                 {draft.rows.map((r, i) => (
                   <tr key={i} className={tr} data-testid="curve-point">
                     <td className={`${td} text-right`}>
-                      <input aria-label={`Load of point ${i + 1}`} className={cellInput} inputMode="decimal" value={r.loadPct} disabled={disabled} onChange={(e) => setRow(i, { loadPct: e.target.value })} />
+                      <input
+                        aria-label={`Load of point ${i + 1}`}
+                        className={cellInput}
+                        inputMode="decimal"
+                        value={r.loadPct}
+                        disabled={disabled}
+                        onChange={(e) => setRow(i, { loadPct: e.target.value })}
+                      />
                     </td>
                     <td className={`${td} text-right`}>
-                      <input aria-label={`Backpressure of point ${i + 1}`} className={cellInput} inputMode="decimal" value={r.backpressure} disabled={disabled} onChange={(e) => setRow(i, { backpressure: e.target.value })} />
+                      <input
+                        aria-label={`Backpressure of point ${i + 1}`}
+                        className={cellInput}
+                        inputMode="decimal"
+                        value={r.backpressure}
+                        disabled={disabled}
+                        onChange={(e) => setRow(i, { backpressure: e.target.value })}
+                      />
                     </td>
                     <td className={`${td} text-right`}>
-                      <input aria-label={`Change of point ${i + 1}`} className={cellInput} inputMode="decimal" value={r.changePct} disabled={disabled} onChange={(e) => setRow(i, { changePct: e.target.value })} />
+                      <input
+                        aria-label={`Change of point ${i + 1}`}
+                        className={cellInput}
+                        inputMode="decimal"
+                        value={r.changePct}
+                        disabled={disabled}
+                        onChange={(e) => setRow(i, { changePct: e.target.value })}
+                      />
                     </td>
                     <td className={`${td} text-right`}>
-                      <Button variant="quiet" disabled={disabled} aria-label={`Remove point ${i + 1}`} onClick={() => onChange({ ...draft, rows: draft.rows.filter((_, k) => k !== i) })}>
+                      <Button
+                        variant="quiet"
+                        disabled={disabled}
+                        aria-label={`Remove point ${i + 1}`}
+                        onClick={() => onChange({ ...draft, rows: draft.rows.filter((_, k) => k !== i) })}
+                      >
                         Remove
                       </Button>
                     </td>
@@ -110,7 +156,9 @@ export function CorrectionCurveEditor({ draft, onChange, pressure, error, disabl
                 <Button
                   variant="quiet"
                   disabled={disabled}
-                  onClick={() => onChange({ ...draft, rows: [...draft.rows, { loadPct: draft.rows.at(-1)?.loadPct ?? '100', backpressure: '', changePct: '' }] })}
+                  onClick={() =>
+                    onChange({ ...draft, rows: [...draft.rows, { loadPct: draft.rows.at(-1)?.loadPct ?? '100', backpressure: '', changePct: '' }] })
+                  }
                 >
                   Add point
                 </Button>
@@ -122,8 +170,8 @@ export function CorrectionCurveEditor({ draft, onChange, pressure, error, disabl
               <summary className="cursor-pointer font-medium">Paste or upload points (CSV)</summary>
               <div className="mt-2 flex flex-col gap-2">
                 <p className="text-xs text-ink-soft">
-                  Three columns per line: load fraction (e.g. 0.75), backpressure in {pressure.label}, change in %. Commas, semicolons or tabs between them; a header
-                  line is skipped. The points replace the table.
+                  Three columns per line: load fraction (e.g. 0.75), backpressure in {pressure.label}, change in %. Commas, semicolons or tabs between them; a
+                  header line is skipped. The points replace the table.
                 </p>
                 <textarea
                   aria-label="Pasted curve points"
@@ -151,7 +199,11 @@ export function CorrectionCurveEditor({ draft, onChange, pressure, error, disabl
                     />
                   </label>
                 </div>
-                {readNote && <p className="text-xs text-ink-soft" role="status">{readNote}</p>}
+                {readNote && (
+                  <p className="text-xs text-ink-soft" role="status">
+                    {readNote}
+                  </p>
+                )}
               </div>
             </details>
           )}

@@ -84,10 +84,23 @@ function EconomicsEditor({ organisationId, unitId, saved, units }: Omit<Props, '
           error={fieldErrors.co2KgPerMmbtu}
           hint={`Filled in from the fuel. ${CO2_FACTOR_NOTE}`}
         />
-        <TextField label="Currency" value={currency} maxLength={3} onChange={(e) => setCurrency(e.target.value)} error={fieldErrors.currency} hint="Three-letter code, e.g. USD" />
+        <TextField
+          label="Currency"
+          value={currency}
+          maxLength={3}
+          onChange={(e) => setCurrency(e.target.value)}
+          error={fieldErrors.currency}
+          hint="Three-letter code, e.g. USD"
+        />
       </div>
       <div className="grid gap-3 sm:grid-cols-3">
-        <QuantityField label="Fuel price" unit={money(units.fuelPricePerMmbtu.label)} value={texts.fuelPricePerMmbtu} onChange={set('fuelPricePerMmbtu')} error={fieldErrors.fuelPricePerMmbtu} />
+        <QuantityField
+          label="Fuel price"
+          unit={money(units.fuelPricePerMmbtu.label)}
+          value={texts.fuelPricePerMmbtu}
+          onChange={set('fuelPricePerMmbtu')}
+          error={fieldErrors.fuelPricePerMmbtu}
+        />
         <QuantityField
           label="Replacement power price"
           unit={money('$/MWh')}
@@ -104,7 +117,13 @@ function EconomicsEditor({ organisationId, unitId, saved, units }: Omit<Props, '
           error={fieldErrors.capacityLimitedShare}
           hint="Hours when backpressure limits the output the unit could sell"
         />
-        <QuantityField label="CO2 price" unit={money('$/t')} value={texts.co2PricePerTonne} onChange={set('co2PricePerTonne')} error={fieldErrors.co2PricePerTonne} />
+        <QuantityField
+          label="CO2 price"
+          unit={money('$/t')}
+          value={texts.co2PricePerTonne}
+          onChange={set('co2PricePerTonne')}
+          error={fieldErrors.co2PricePerTonne}
+        />
         <QuantityField label="Discount rate" unit="% a year" value={texts.discountRate} onChange={set('discountRate')} error={fieldErrors.discountRate} />
       </div>
       {message && <Notice tone="fault">{message}</Notice>}

@@ -21,7 +21,12 @@ export function RecomputeStatus({ jobs }: { jobs: UnitJob[] }) {
   }
   const last = jobs[0];
   if (!last) return null;
-  if (last.status === 'failed') return <Notice tone="fault">The last {last.kind} failed: {last.message ?? 'no reason given'}. Save again to retry.</Notice>;
+  if (last.status === 'failed')
+    return (
+      <Notice tone="fault">
+        The last {last.kind} failed: {last.message ?? 'no reason given'}. Save again to retry.
+      </Notice>
+    );
   return (
     <p className="text-xs text-ink-soft" data-testid="recompute-status" role="status">
       Derived data up to date (last {last.kind} finished {formatDateTime(last.finishedAt)}).

@@ -24,7 +24,11 @@ export function textFromStored(stored: number | null | undefined, kind: FieldKin
 export const unitLabel = (kind: FieldKind): string | undefined => (kind === 'percent' ? '%' : typeof kind === 'object' ? kind.unit.label : undefined);
 
 /** Reads every listed field of a text form into stored values; blank optional fields become `blankAs`. */
-export function storedValues<K extends string>(texts: Record<K, string>, kinds: Record<K, FieldKind>, blankAs: Partial<Record<K, null>> = {}): Record<K, number | null | undefined> {
+export function storedValues<K extends string>(
+  texts: Record<K, string>,
+  kinds: Record<K, FieldKind>,
+  blankAs: Partial<Record<K, null>> = {},
+): Record<K, number | null | undefined> {
   const out = {} as Record<K, number | null | undefined>;
   for (const key of Object.keys(kinds) as K[]) {
     const v = storedFromText(texts[key] ?? '', kinds[key]);

@@ -83,7 +83,13 @@ function TurbineEditor({ organisationId, unitId, saved, units }: Omit<Props, 'ca
     <form onSubmit={onSubmit} noValidate aria-label="Turbine" className="flex flex-col gap-5">
       <div className="grid gap-3 sm:grid-cols-3">
         <QuantityField label="Rating" unit={units.powerMw.label} value={rating} onChange={setRating} error={fieldErrors.ratingMw} />
-        <QuantityField label="Design heat rate" unit={units.heatRateBtuKwh.label} value={heatRate} onChange={setHeatRate} error={fieldErrors.designHeatRateBtuKwh} />
+        <QuantityField
+          label="Design heat rate"
+          unit={units.heatRateBtuKwh.label}
+          value={heatRate}
+          onChange={setHeatRate}
+          error={fieldErrors.designHeatRateBtuKwh}
+        />
         <QuantityField
           label="Minimum load for a valid point"
           unit="% of rating"
@@ -115,10 +121,22 @@ function TurbineEditor({ organisationId, unitId, saved, units }: Omit<Props, 'ca
             {duty.map((d, i) => (
               <tr key={i} className={tr} data-testid="duty-row">
                 <td className={`${td} text-right`}>
-                  <input aria-label={`Load of duty row ${i + 1}`} className={cellInput} inputMode="decimal" value={d.loadPct} onChange={(e) => setDuty(duty.map((x, k) => (k === i ? { ...x, loadPct: e.target.value } : x)))} />
+                  <input
+                    aria-label={`Load of duty row ${i + 1}`}
+                    className={cellInput}
+                    inputMode="decimal"
+                    value={d.loadPct}
+                    onChange={(e) => setDuty(duty.map((x, k) => (k === i ? { ...x, loadPct: e.target.value } : x)))}
+                  />
                 </td>
                 <td className={`${td} text-right`}>
-                  <input aria-label={`Duty at row ${i + 1}`} className={cellInput} inputMode="decimal" value={d.duty} onChange={(e) => setDuty(duty.map((x, k) => (k === i ? { ...x, duty: e.target.value } : x)))} />
+                  <input
+                    aria-label={`Duty at row ${i + 1}`}
+                    className={cellInput}
+                    inputMode="decimal"
+                    value={d.duty}
+                    onChange={(e) => setDuty(duty.map((x, k) => (k === i ? { ...x, duty: e.target.value } : x)))}
+                  />
                 </td>
                 <td className={`${td} text-right`}>
                   <Button variant="quiet" aria-label={`Remove duty row ${i + 1}`} onClick={() => setDuty(duty.filter((_, k) => k !== i))}>
@@ -139,7 +157,9 @@ function TurbineEditor({ organisationId, unitId, saved, units }: Omit<Props, 'ca
 
       <fieldset className="flex flex-col gap-2">
         <legend className="mb-1 text-sm font-semibold text-ink">Exhaust-pressure correction curves</legend>
-        <p className="text-xs text-ink-soft">How heat rate (or output) changes with backpressure at each load; turns a backpressure deviation into fuel and money. Saved with the turbine.</p>
+        <p className="text-xs text-ink-soft">
+          How heat rate (or output) changes with backpressure at each load; turns a backpressure deviation into fuel and money. Saved with the turbine.
+        </p>
         <CorrectionCurveEditor draft={curve} onChange={setCurve} pressure={units.pressureKpa} error={fieldErrors.correctionCurve} />
       </fieldset>
 

@@ -50,7 +50,9 @@ export function UnitSummary({
             <p>
               <span className="text-ink-soft">Rating: </span>
               {formatNumber(unit.turbine!.ratingMw, 0)} MW
-              {(!unit.turbine!.correctionCurve || unit.turbine!.correctionCurve.isGeneric) && <span className="ml-1 text-xs text-warn">(generic correction curve)</span>}
+              {(!unit.turbine!.correctionCurve || unit.turbine!.correctionCurve.isGeneric) && (
+                <span className="ml-1 text-xs text-warn">(generic correction curve)</span>
+              )}
             </p>
           </div>
         ) : (
@@ -91,7 +93,8 @@ export function UnitSummary({
           </EmptyState>
         ) : (
           <p className="text-sm" data-testid="data-span">
-            {formatNumber(unit.samples.count)} rows from {formatPlantTime(unit.samples.first, unit.plant.timeZone)} to {formatPlantTime(unit.samples.last, unit.plant.timeZone)} (plant time).
+            {formatNumber(unit.samples.count)} rows from {formatPlantTime(unit.samples.first, unit.plant.timeZone)} to{' '}
+            {formatPlantTime(unit.samples.last, unit.plant.timeZone)} (plant time).
             {!cannotWrite && (
               <>
                 {' '}
