@@ -18,7 +18,15 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
-        test: { name: 'unit', include: ['tests/unit/**/*.test.{ts,tsx}', 'tests/reference/**/*.test.ts'], testTimeout: 60_000 },
+        // Pure tests share one module graph per worker thread (no per-file isolation): loading the engine once per
+        // worker instead of once per file halves the suite's time. A test that changes module state restores it.
+        test: {
+          name: 'unit',
+          include: ['tests/unit/**/*.test.{ts,tsx}', 'tests/reference/**/*.test.ts'],
+          testTimeout: 60_000,
+          pool: 'threads',
+          isolate: false,
+        },
       },
       {
         resolve: { alias },
