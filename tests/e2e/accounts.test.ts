@@ -163,7 +163,7 @@ describe('account screens in a real browser', () => {
       const names = await rows.locator('td:first-child').allTextContents();
       expect(names.sort()).toEqual(['Brightwater Municipal Utility', 'Calder Valley Energy']);
       // An analyst may look but not manage; the reason is given.
-      await page.getByText('Only administrators can do this: creating, renaming and deleting client groups.').waitFor();
+      await page.getByText('Only administrators create, rename and delete client groups.').waitFor();
     });
 
     it('after switching to the utility, no client group of the consultancy shows anywhere on the page', async () => {
