@@ -9,9 +9,10 @@
  */
 import { Readable } from 'node:stream';
 import type { EntityManager } from 'typeorm';
+import type { PerformanceSample } from '../entities/performance-sample.entity.js';
 import type { ImportSample } from '../import/index.js';
 
-/** The columns a loaded line carries, in order. */
+/** The columns an import writes for each sample, in order (a loaded line; the INSERT path uses the same list). */
 export const LOADED_COLUMNS = [
   'unitId',
   'importId',
@@ -30,7 +31,7 @@ export const LOADED_COLUMNS = [
   'condensateFlowKgS',
   'validity',
   'setupVersion',
-] as const;
+] as const satisfies readonly (keyof PerformanceSample)[];
 
 export interface SampleOwner {
   unitId: string;

@@ -8,6 +8,7 @@ import type { SAMPLE_COLUMNS } from '@shared/schemas/health.js';
 import { PerformanceSample } from '../entities/performance-sample.entity.js';
 import type { ImportSample } from '../import/index.js';
 import type { TenantScope } from '../policies/tenant-scope.js';
+import { LOADED_COLUMNS, type SampleOwner } from './sample-bulk-load.repository.js';
 import { PASSED_CHECKS_SQL } from './sample-validity.js';
 import { restrictUnitRecordsToScope } from './scope-filter.js';
 
@@ -84,32 +85,10 @@ export function storedReadingsBetween(em: EntityManager, unitId: string, from: D
   );
 }
 
-const INSERT_COLUMNS = [
-  'unitId',
-  'importId',
-  'timestampUtc',
-  'loadMw',
-  'backpressureKpa',
-  'cwInletC',
-  'cwOutletC',
-  'cwFlowM3s',
-  'flowAssumed',
-  'hotwellC',
-  'dissolvedOxygenPpb',
-  'airRemovalKgS',
-  'barometerKpa',
-  'cwDifferentialPressureKpa',
-  'condensateFlowKgS',
-  'validity',
-  'setupVersion',
-] as const satisfies readonly (keyof PerformanceSample)[];
+const INSERT_COLUMNS = LOADED_COLUMNS;
 
 /** Stores checked rows of one import in one statement. */
-export async function insertSamples(
-  em: EntityManager,
-  owner: { unitId: string; importId: string; setupVersion: number },
-  samples: readonly ImportSample[],
-): Promise<void> {
+export async function insertSamples(em: EntityManager, owner: SampleOwner, samples: readonly ImportSample[]): Promise<void> {
   if (samples.length === 0) return;
   const row = (s: ImportSample): Record<(typeof INSERT_COLUMNS)[number], unknown> => ({
     unitId: owner.unitId,
