@@ -12,6 +12,8 @@ export const PERMISSIONS = {
   'data.write': ['admin', 'analyst'],
   /** approve or send back cases and outage scopes */
   'cases.approve': ['admin', 'approver'],
+  /** create and edit outages, add work items, run the optimiser, save scopes */
+  'outages.plan': ['admin', 'analyst', 'approver'],
   'members.manage': ['admin'],
   'client-groups.manage': ['admin'],
   'billing.manage': ['admin'],
@@ -34,6 +36,7 @@ const ROLE_WORDS: Record<Permission, string> = {
   'data.read': 'members',
   'data.write': 'administrators and analysts',
   'cases.approve': 'administrators and approvers',
+  'outages.plan': 'administrators, analysts and approvers',
   'members.manage': 'administrators',
   'client-groups.manage': 'administrators',
   'billing.manage': 'administrators',
