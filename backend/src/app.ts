@@ -1,7 +1,6 @@
 /** createApp builds the Express application from its dependencies; server.ts listens. */
 import express, { type Express } from 'express';
 import session from 'express-session';
-import MySQLStoreFactory from 'express-mysql-session';
 import helmet from 'helmet';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
@@ -10,6 +9,7 @@ import { createAuthenticate } from './auth/authenticate.js';
 import { configurePassport } from './auth/passport-setup.js';
 import type { Config } from './config.js';
 import { errorHandler } from './http/error-handler.js';
+import { createSessionStore } from './http/session-store.js';
 import { notFound } from './http/app-error.js';
 import { mountRoutes, type RouteSpec } from './http/route-registry.js';
 import { trustProxySetting } from './http/trust-proxy.js';
@@ -72,18 +72,7 @@ export function createApp(deps: AppDeps): CleancaseApp {
   });
   app.use(express.json({ limit: '1mb' }));
 
-  const MySQLStore = MySQLStoreFactory(session);
-  const store = new MySQLStore({
-    host: config.DB_HOST,
-    port: config.DB_PORT,
-    user: config.DB_USER,
-    password: config.DB_PASSWORD,
-    database: config.DB_NAME,
-    createDatabaseTable: false,
-    clearExpired: true,
-    checkExpirationInterval: 15 * 60 * 1000,
-    schema: { tableName: 'sessions', columnNames: { session_id: 'session_id', expires: 'expires', data: 'data' } },
-  });
+  const store = createSessionStore(dataSource);
   const secureCookie = config.COOKIE_SECURE || (config.PUBLIC_URL?.startsWith('https://') ?? false);
   app.use(
     session({
