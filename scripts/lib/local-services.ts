@@ -70,8 +70,9 @@ function waitForPort(port: number, timeoutMs: number): Promise<void> {
   });
 }
 
-export async function startStripeFake(port: number): Promise<StripeFake> {
-  const child: ChildProcess = fork(path.join(import.meta.dirname, '..', 'fakes', 'stripe-fake.cjs'), [String(port)], {
+/** The fake signs the events it delivers with `webhookSecret` (the app's STRIPE_WEBHOOK_SECRET). */
+export async function startStripeFake(port: number, webhookSecret = 'whsec_cleancase_local'): Promise<StripeFake> {
+  const child: ChildProcess = fork(path.join(import.meta.dirname, '..', 'fakes', 'stripe-fake.cjs'), [String(port), webhookSecret], {
     stdio: ['ignore', 'ignore', 'inherit', 'ipc'],
   });
   let exited = false;
