@@ -106,6 +106,19 @@ export const cleaningOutlook = z
   .strict();
 export type CleaningOutlookView = z.infer<typeof cleaningOutlook>;
 
+/** The latest cycle's forecast band as the recompute drew it (the health view's costliest figure, drawn once). */
+export const storedForecast = z
+  .object({
+    /** the last day with valid data and the cycle the forecast continues: the view uses it only when both still hold */
+    lastDay: isoDate,
+    cycleStartDay: isoDate,
+    status: z.enum(['fitted', 'not-fitted', 'failed']),
+    bandProbability: z.number().optional(),
+    points: z.array(z.object({ day: isoDate, cleanliness: z.number(), low: z.number(), high: z.number() }).strict()),
+  })
+  .strict();
+export type StoredForecast = z.infer<typeof storedForecast>;
+
 export const storedUnitAnalysis = z
   .object({
     computedAt: z.iso.datetime(),
@@ -114,6 +127,8 @@ export const storedUnitAnalysis = z
     cycles: z.array(foulingCycleSummary),
     airLeakPeriods: z.array(airLeakPeriod),
     outlook: cleaningOutlook.nullable(),
+    /** added later: an analysis stored before it reads without it (the view then draws the forecast itself) */
+    forecast: storedForecast.nullable().optional(),
   })
   .strict();
 export type StoredUnitAnalysis = z.infer<typeof storedUnitAnalysis>;

@@ -19,6 +19,8 @@ export class GeneratingUnit {
   /** The column mapping of the last import, offered for the next file. */
   @Column({ type: 'json', nullable: true }) savedMapping: unknown;
   @Column({ type: 'int', default: 1 }) setupVersion: number;
+  /** Rises whenever the recompute replaces the daily figures or the analysis: a cached view keyed by it knows when it is stale. */
+  @Column({ type: 'int', default: 1 }) dataVersion: number;
   /** Result of the last recompute: fouling trend per cleaning cycle, suspected air in-leakage, the cleaning outlook. */
   @Column({ type: 'json', nullable: true }) analysis: Record<string, unknown> | null;
   @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)' }) createdAt: Date;

@@ -62,9 +62,10 @@ export async function operatingDaysOfUnit(em: EntityManager, unitId: string): Pr
   return rows.map((r) => ({ day: dayText(r.day), cwInletC: r.cwInletC, loadMw: r.loadMw }));
 }
 
-/** Replaces all of a unit's daily figures in one transaction. */
+/** Replaces all of a unit's daily figures in one transaction, raising the unit's data version in it. */
 export async function replaceDailyAggregates(em: EntityManager, unitId: string, rows: readonly DailyAggregateRow[]): Promise<void> {
   await em.transaction(async (tx) => {
+    await tx.query('UPDATE generating_unit SET dataVersion = dataVersion + 1 WHERE id = ?', [unitId]);
     await tx.query('DELETE FROM daily_aggregate WHERE unitId = ?', [unitId]);
     for (let i = 0; i < rows.length; i += 1000) {
       const slice = rows.slice(i, i + 1000);

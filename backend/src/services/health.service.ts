@@ -5,8 +5,7 @@
  */
 import type { DataSource } from 'typeorm';
 import { backpressureAtCleanlinessKpa, expectedWithinBounds, PLAUSIBLE_CLEANLINESS } from '@shared/domain/condenser/index.js';
-import { fitFoulingTrend } from '@shared/domain/decision/fouling/fouling-trend.js';
-import { addDays, daysBetween } from '@shared/domain/calendar/plant-date.js';
+import { addDays } from '@shared/domain/calendar/plant-date.js';
 import { plantDayFormatter } from '@shared/domain/calendar/plant-day.js';
 import { lttbKeepingGaps } from '@shared/domain/monitoring/index.js';
 import { MAX_SERIES_POINTS } from '@shared/limits.js';
@@ -27,7 +26,10 @@ import { eventsOfUnit } from '../repositories/event.repository.js';
 import { foundInScope } from '../repositories/found-in-scope.js';
 import { findUnitWithPlant } from '../repositories/plant.repository.js';
 import { chartPointsOfUnit, lastSampleTimeOfUnit } from '../repositories/sample.repository.js';
+import { unitVersionInScope } from '../repositories/unit-version.repository.js';
+import { forecastBand } from './derived/forecast-band.js';
 import { eventView } from './unit-event.service.js';
+import { UnitViewCache } from './unit-view-cache.js';
 
 export type DailyRow = DailyFigure;
 
@@ -79,7 +81,22 @@ function readAnalysis(stored: unknown): StoredUnitAnalysis | 'unreadable' | null
   return parsed.success ? parsed.data : 'unreadable';
 }
 
+/** Health views of recently asked units and periods in this process (about 0.2 MB each). */
+export const unitHealthCache = new UnitViewCache<UnitHealthResponse>(128);
+
+/**
+ * The health view, from the cache when nothing it depends on has changed since it was computed: the unit's
+ * versions are read from the database on every request (one statement that also checks the scope), so a
+ * recompute, a setup save, an import or an event in any process is seen by the next request.
+ */
 export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: string, q: HealthQuery): Promise<UnitHealthResponse> {
+  const version = await foundInScope(unitVersionInScope(ds.manager, scope, unitId), 'No such unit');
+  const key = UnitViewCache.keyOf(version, [q.from ?? null, q.to ?? null, q.breakdownBy]);
+  return unitHealthCache.get(key, () => computeUnitHealth(ds, scope, unitId, q));
+}
+
+/** The health view computed from the stored daily figures, events and analysis (no cache). */
+export async function computeUnitHealth(ds: DataSource, scope: TenantScope, unitId: string, q: HealthQuery): Promise<UnitHealthResponse> {
   const { unit, plant } = await foundInScope(findUnitWithPlant(ds.manager, scope, unitId), 'No such unit');
   const stored = readAnalysis(unit.analysis);
   const analysis = stored === 'unreadable' ? null : stored;
@@ -130,26 +147,17 @@ export async function unitHealth(ds: DataSource, scope: TenantScope, unitId: str
     }
   }
 
-  // The forecast band: the latest cycle refitted on its daily medians (air-leak days left out).
+  // The forecast band: the latest cycle refitted on its daily medians (air-leak days left out). The recompute
+  // stores it with the analysis; an analysis stored before it did (or for other days) has it drawn here.
   let forecast: { day: string; cleanliness: number; low: number; high: number }[] = [];
   let trendFit: HealthTrend | null = analysis?.cycles.at(-1) ?? null;
   if (lastDay && trendFit && trendFit.status === 'fitted' && (!to || to >= lastDay)) {
-    const start = trendFit.startDay;
-    const points = withData
-      .filter((d) => d.day >= start && !d.airLeakSuspected && d.medianCleanliness !== null)
-      .map((d) => ({ day: daysBetween(start, d.day), cleanliness: d.medianCleanliness! }));
-    let fit: ReturnType<typeof fitFoulingTrend> | null = null;
-    try {
-      fit = fitFoulingTrend({ points, cleanlinessAfterCleaning: trendFit.cleanlinessAfterCleaning, forecastDays: 120 });
-    } catch {
-      warnings.push('The fouling forecast could not be drawn from the stored trend; recompute the unit.');
-    }
-    if (fit?.status === 'fitted') {
-      const lastOffset = daysBetween(start, lastDay);
-      forecast = fit.forecast
-        .filter((f) => f.day > lastOffset)
-        .map((f) => ({ day: addDays(start, f.day), cleanliness: f.cleanliness, low: f.low, high: f.high }));
-      trendFit = { ...trendFit, bandProbability: fit.bandProbability };
+    const stored = analysis?.forecast;
+    const band = stored && stored.lastDay === lastDay && stored.cycleStartDay === trendFit.startDay ? stored : forecastBand(all, trendFit);
+    if (band?.status === 'failed') warnings.push('The fouling forecast could not be drawn from the stored trend; recompute the unit.');
+    if (band?.status === 'fitted') {
+      forecast = band.points;
+      trendFit = { ...trendFit, bandProbability: band.bandProbability };
     }
   }
 

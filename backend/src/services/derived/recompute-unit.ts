@@ -2,17 +2,19 @@
  * Recomputes everything derived for one unit from its stored raw samples. Runs as a background job after an
  * import, an undo, a setup change or a new event. The steps, in order (each in its own file here):
  * read valid samples → daily cleanliness and witnesses → air in-leakage verdicts → fouling cycles →
- * per-sample analysis → write-back → daily aggregates → cleaning outlook.
+ * per-sample analysis → write-back → daily aggregates → cleaning outlook and forecast band.
  * Samples are read in id order in chunks, twice (the per-sample analysis needs the trend the first pass fits),
  * so memory stays bounded whatever the history length.
  */
 import type { DataSource } from 'typeorm';
+import { dailyFiguresOfUnit } from '../../repositories/daily-aggregate.repository.js';
 import { clearAnalysesOfUnit } from '../../repositories/sample-analysis.repository.js';
 import { countSamplesOfUnit } from '../../repositories/sample.repository.js';
 import { judgeAirLeaks } from './air-leak-verdicts.js';
 import { rebuildDailyAggregates } from './daily-aggregates.js';
 import { measureDailyCleanliness, witnessMedians } from './daily-witnesses.js';
-import { fitCycles, trendCleanlinessOn, type CycleTrend } from './fouling-cycles.js';
+import { forecastBand } from './forecast-band.js';
+import { cycleSummary, fitCycles, trendCleanlinessOn, type CycleTrend } from './fouling-cycles.js';
 import { readValidSamples } from './read-valid-samples.js';
 import { analyseSamples } from './sample-analysis.js';
 import { loadUnitContext } from './unit-context.js';
@@ -73,6 +75,8 @@ export async function recomputeUnit(ds: DataSource, unitId: string, onProgress: 
     cycles,
     plannedOutages: ctx.plannedOutages,
   });
-  await storeUnitAnalysis(ds, unitId, unitAnalysis({ setupVersion: unit.setupVersion, lastDay, cycles, airLeakPeriods: airLeaks.periods, outlook }));
+  // The forecast band is drawn from the stored daily figures exactly as the health view would draw it.
+  const forecast = forecastBand(await dailyFiguresOfUnit(ds.manager, unitId), cycles.map(cycleSummary).at(-1));
+  await storeUnitAnalysis(ds, unitId, unitAnalysis({ setupVersion: unit.setupVersion, lastDay, cycles, airLeakPeriods: airLeaks.periods, outlook, forecast }));
   return { samples: total, days: dayCount, cycles };
 }

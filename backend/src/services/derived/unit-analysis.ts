@@ -4,6 +4,7 @@
  */
 import type { DataSource } from 'typeorm';
 import type { AirLeakPeriod, UnitModel, UnitSetupSi } from '@shared/domain/monitoring/index.js';
+import type { StoredForecast } from '@shared/schemas/unit-analysis.js';
 import { operatingDaysOfUnit } from '../../repositories/daily-aggregate.repository.js';
 import { methodsOf } from '../cleaning-method.service.js';
 import { cleaningOutlook, type CleaningOutlook } from './cleaning-outlook.js';
@@ -47,10 +48,19 @@ export interface UnitAnalysis {
   cycles: ReturnType<typeof cycleSummary>[];
   airLeakPeriods: AirLeakPeriod[];
   outlook: CleaningOutlook | null;
+  /** the latest cycle's forecast band, drawn from the stored daily figures (forecast-band.ts) */
+  forecast: StoredForecast | null;
 }
 
 export function unitAnalysis(
-  input: { setupVersion: number; lastDay: string | null; cycles: CycleTrend[]; airLeakPeriods: AirLeakPeriod[]; outlook: CleaningOutlook | null },
+  input: {
+    setupVersion: number;
+    lastDay: string | null;
+    cycles: CycleTrend[];
+    airLeakPeriods: AirLeakPeriod[];
+    outlook: CleaningOutlook | null;
+    forecast?: StoredForecast | null;
+  },
   now = new Date(),
 ): UnitAnalysis {
   return {
@@ -60,10 +70,14 @@ export function unitAnalysis(
     cycles: input.cycles.map(cycleSummary),
     airLeakPeriods: input.airLeakPeriods,
     outlook: input.outlook,
+    forecast: input.forecast ?? null,
   };
 }
 
-/** Stores the unit's analysis; null clears it (no setup, nothing to analyse). */
+/** Stores the unit's analysis and raises its data version in the same statement; null clears it (no setup, nothing to analyse). */
 export async function storeUnitAnalysis(ds: DataSource, unitId: string, analysis: UnitAnalysis | null): Promise<void> {
-  await ds.query('UPDATE generating_unit SET analysis = ? WHERE id = ?', [analysis === null ? null : JSON.stringify(analysis), unitId]);
+  await ds.query('UPDATE generating_unit SET analysis = ?, dataVersion = dataVersion + 1 WHERE id = ?', [
+    analysis === null ? null : JSON.stringify(analysis),
+    unitId,
+  ]);
 }

@@ -1,0 +1,50 @@
+/**
+ * What a cached view of a unit depends on, read in one cheap statement within the caller's scope: the unit's
+ * setup and data versions (raised by a setup save and by the recompute), its and its plant's names and time
+ * zone, its last sample's time (an import moves it before the recompute runs) and a fingerprint of its events
+ * (an event shows in the view before the recompute it queues has run). Every process reads it from the
+ * database, so a cache in one process is never stale because another process changed the unit.
+ */
+import type { EntityManager } from 'typeorm';
+import { GeneratingUnit } from '../entities/generating-unit.entity.js';
+import { Plant } from '../entities/plant.entity.js';
+import type { TenantScope } from '../policies/tenant-scope.js';
+import { restrictPlantsToScope } from './scope-filter.js';
+
+export interface UnitVersion {
+  unitId: string;
+  setupVersion: number;
+  dataVersion: number;
+  /** everything else the key holds, as one string */
+  mark: string;
+}
+
+const EVENTS_MARK =
+  "(SELECT CONCAT(COUNT(*), ':', COALESCE(BIT_XOR(CRC32(CONCAT_WS('|', e.id, e.kind, e.startDate, e.endDate, e.methodId, e.cost, e.cleanlinessBefore, e.cleanlinessAfter, e.pluggedTubesAfter, e.notes))), 0)) FROM unit_event e WHERE e.unitId = u.id)";
+const LAST_SAMPLE = '(SELECT MAX(s.timestampUtc) FROM performance_sample s WHERE s.unitId = u.id)';
+
+/** The unit's version, or null when the unit lies outside the scope. */
+export async function unitVersionInScope(em: EntityManager, scope: TenantScope, unitId: string): Promise<UnitVersion | null> {
+  const qb = em
+    .getRepository(GeneratingUnit)
+    .createQueryBuilder('u')
+    .innerJoin(Plant, 'p', 'p.id = u.plantId')
+    .select('u.id', 'unitId')
+    .addSelect('u.setupVersion', 'setupVersion')
+    .addSelect('u.dataVersion', 'dataVersion')
+    .addSelect('u.name', 'unitName')
+    .addSelect('p.name', 'plantName')
+    .addSelect('p.timeZone', 'timeZone')
+    .addSelect(LAST_SAMPLE, 'lastSample')
+    .addSelect(EVENTS_MARK, 'events')
+    .where('u.id = :id', { id: unitId });
+  const row: Record<string, unknown> | undefined = await restrictPlantsToScope(qb, 'p', scope).getRawOne();
+  if (!row) return null;
+  const lastSample = row.lastSample ? new Date(row.lastSample as string).toISOString() : '';
+  return {
+    unitId: String(row.unitId),
+    setupVersion: Number(row.setupVersion),
+    dataVersion: Number(row.dataVersion),
+    mark: JSON.stringify([row.unitName, row.plantName, row.timeZone, lastSample, row.events]),
+  };
+}
