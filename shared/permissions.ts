@@ -14,6 +14,8 @@ export const PERMISSIONS = {
   'cases.approve': ['admin', 'approver'],
   /** create and edit outages, add work items, run the optimiser, save scopes */
   'outages.plan': ['admin', 'analyst', 'approver'],
+  /** delete an outage, approved or not (the audit log keeps its record) */
+  'outages.delete': ['admin'],
   'members.manage': ['admin'],
   'client-groups.manage': ['admin'],
   'billing.manage': ['admin'],
@@ -37,6 +39,7 @@ const ROLE_WORDS: Record<Permission, string> = {
   'data.write': 'administrators and analysts',
   'cases.approve': 'administrators and approvers',
   'outages.plan': 'administrators, analysts and approvers',
+  'outages.delete': 'administrators',
   'members.manage': 'administrators',
   'client-groups.manage': 'administrators',
   'billing.manage': 'administrators',

@@ -13,6 +13,8 @@ const permissionSchema = z.enum([
   'data.read',
   'data.write',
   'cases.approve',
+  'outages.plan',
+  'outages.delete',
   'members.manage',
   'client-groups.manage',
   'billing.manage',

@@ -20,6 +20,11 @@ import { RateLimitCounter } from './rate-limit-counter.entity.js';
 import { AddressConfirmationToken } from './address-confirmation-token.entity.js';
 import { CaseCommentRecord } from './case-comment.entity.js';
 import { CleaningCase } from './cleaning-case.entity.js';
+import { BillingWebhookEvent } from './billing-webhook-event.entity.js';
+import { Outage } from './outage.entity.js';
+import { OutageItem } from './outage-item.entity.js';
+import { OutageScope } from './outage-scope.entity.js';
+import { OutageUnit } from './outage-unit.entity.js';
 
 export { ApiToken, AuditEvent, ClientGroup, Invitation, Membership, Organisation, PasswordResetToken, User };
 export { BackgroundJob, CleaningMethodRecord, DailyAggregate, DataImport, GeneratingUnit, PerformanceSample, Plant, UnitEvent };
@@ -27,6 +32,8 @@ export { MailOutbox, SinkMessage };
 export { RateLimitCounter };
 export { AddressConfirmationToken };
 export { CaseCommentRecord, CleaningCase };
+export { BillingWebhookEvent };
+export { Outage, OutageItem, OutageScope, OutageUnit };
 
 export const ENTITIES = [
   Organisation,
@@ -51,4 +58,8 @@ export const ENTITIES = [
   AddressConfirmationToken,
   CleaningCase,
   CaseCommentRecord,
+  Outage,
+  OutageUnit,
+  OutageItem,
+  OutageScope,
 ];

@@ -10,6 +10,7 @@ import { AddressConfirmation1796194524192 } from './1796194524192-address-confir
 import { CleaningCases1796200402325 } from './1796200402325-cleaning-cases.js';
 import { CaseDecisionGuards1796210000000 } from './1796210000000-case-decision-guards.js';
 import { CaseDecisionGuardsBackfill1796210000001 } from './1796210000001-case-decision-guards-backfill.js';
+import { Outages1796220000000 } from './1796220000000-outages.js';
 import { UnitDataVersion1796250000000 } from './1796250000000-unit-data-version.js';
 
 export const MIGRATIONS = [
@@ -24,5 +25,6 @@ export const MIGRATIONS = [
   CleaningCases1796200402325,
   CaseDecisionGuards1796210000000,
   CaseDecisionGuardsBackfill1796210000001,
+  Outages1796220000000,
   UnitDataVersion1796250000000,
 ];

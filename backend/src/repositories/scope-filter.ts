@@ -31,3 +31,21 @@ export function restrictUnitRecordsToScope<T extends ObjectLiteral>(
   if (options.ownTenantColumn) qb.andWhere(`${alias}.organisationId = :scopeOrg`, { scopeOrg: scope.organisationId });
   return restrictPlantsToScope(qb, 'scopePlant', scope);
 }
+
+/**
+ * Keeps the outages within the scope: the tenant's, and for a member limited to client groups only those with at
+ * least one unit and every unit on a plant in their groups (an outage reaching beyond them stays out of sight whole).
+ */
+export function restrictOutagesToScope<T extends ObjectLiteral>(qb: SelectQueryBuilder<T>, alias: string, scope: TenantScope): SelectQueryBuilder<T> {
+  qb.andWhere(`${alias}.organisationId = :scopeOrg`, { scopeOrg: scope.organisationId });
+  if (scope.clientGroupIds === null) return qb;
+  if (scope.clientGroupIds.length === 0) return qb.andWhere('1 = 0');
+  return qb
+    .andWhere(`EXISTS (SELECT 1 FROM outage_unit scopeOu WHERE scopeOu.outageId = ${alias}.id)`)
+    .andWhere(
+      `NOT EXISTS (SELECT 1 FROM outage_unit scopeOu2 INNER JOIN generating_unit scopeOuUnit ON scopeOuUnit.id = scopeOu2.unitId ` +
+        `INNER JOIN plant scopeOuPlant ON scopeOuPlant.id = scopeOuUnit.plantId WHERE scopeOu2.outageId = ${alias}.id ` +
+        `AND (scopeOuPlant.organisationId <> :scopeOrg OR scopeOuPlant.clientGroupId IS NULL OR scopeOuPlant.clientGroupId NOT IN (:...scopeGroups)))`,
+      { scopeGroups: scope.clientGroupIds },
+    );
+}
