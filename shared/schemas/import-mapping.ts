@@ -92,6 +92,20 @@ export const importTimestampSchema = z
 
 const pressureUnit = z.enum(IMPORT_QUANTITY_UNITS.barometer);
 
+/** Values of a quality column that mean "good"; any other value marks the row's values as not good. */
+export const MAX_GOOD_QUALITY_VALUES = 50;
+export const importQualitySchema = z
+  .object({
+    column: columnName,
+    /** Compared trimmed and case-insensitive ("Good", "192", "0"). */
+    goodValues: z
+      .array(z.string().trim().min(1, 'a good value cannot be empty').max(40, 'a good value is at most 40 characters'))
+      .min(1, 'name at least one value that means good (e.g. Good or 192)')
+      .max(MAX_GOOD_QUALITY_VALUES, `at most ${MAX_GOOD_QUALITY_VALUES} good values`),
+  })
+  .strict();
+export type ImportQuality = z.infer<typeof importQualitySchema>;
+
 export const importMappingSchema = z
   .object({
     timestamp: importTimestampSchema,
@@ -105,6 +119,8 @@ export const importMappingSchema = z
       .object({ value: z.number().positive('the barometer must be positive'), unit: pressureUnit })
       .strict()
       .optional(),
+    /** A column saying whether each row's values are good; rows whose value is not among `goodValues` are kept out as instrument-status. */
+    quality: importQualitySchema.optional(),
   })
   .strict()
   .superRefine((m, ctx) => {
@@ -136,6 +152,7 @@ export const importMappingSchema = z
     const seen = new Map<string, string>();
     const refs: [string, string][] = [['timestamp', m.timestamp.column]];
     for (const q of IMPORT_QUANTITIES) if (c[q]) refs.push([q, c[q]!.column]);
+    if (m.quality) refs.push(['the quality', m.quality.column]);
     for (const [q, column] of refs) {
       const other = seen.get(column);
       if (other) ctx.addIssue({ code: 'custom', path: ['columns', q], message: `column "${column}" is already mapped to ${other}` });

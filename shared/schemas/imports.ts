@@ -31,6 +31,8 @@ export const importCounts = z
     rowsOk: z.number().int(),
     rowsByReason: z.partialRecord(z.enum(Object.keys(REJECTION_REASONS) as [RejectionReason, ...RejectionReason[]]), z.number().int()),
     flowAssumedRows: z.number().int(),
+    /** rows kept out as instrument-status, by the status word or quality value that marked them */
+    rowsByMarker: z.record(z.string().max(60), z.number().int()),
   })
   .partial()
   .strict();

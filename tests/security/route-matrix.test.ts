@@ -207,6 +207,8 @@ const MATRIX: Record<string, Entry> = {
   'DELETE /api/events/:id': { path: async (fx) => `/api/events/${(await createEvent(ds(), fx.unit)).id}`, expect: writers(204) },
   // No file attached: writers are told to choose one; outside the scope the unit is not found first.
   'POST /api/units/:id/uploads': { path: (fx) => `/api/units/${fx.unit.id}/uploads`, expect: writers(400) },
+  'GET /api/organisation/historian-status-words': { expect: members(200) },
+  'PUT /api/organisation/historian-status-words': { body: () => ({ words: ['Scan Off'] }), expect: adminsOnly(200) },
   'GET /api/units/:id/health': { path: (fx) => `/api/units/${fx.unit.id}/health`, expect: readers(200) },
   'GET /api/units/:id/samples': { path: (fx) => `/api/units/${fx.unit.id}/samples?from=2026-01-01&to=2026-01-31`, expect: readers(200) },
   'GET /api/units/:id/export': { path: (fx) => `/api/units/${fx.unit.id}/export?dataset=daily&format=csv`, expect: readers(200) },

@@ -13,5 +13,7 @@ export class Organisation {
   @Column({ type: 'datetime', precision: 3, nullable: true }) trialEndsAt: Date | null;
   @Column({ type: 'varchar', length: 64, nullable: true }) stripeCustomerId: string | null;
   @Column({ type: 'varchar', length: 64, nullable: true }) stripeSubscriptionId: string | null;
+  /** The organisation's own historian status words, besides the defaults (shared/schemas/historian-status.ts). */
+  @Column({ type: 'json', nullable: true }) historianStatusWords: string[] | null;
   @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)' }) createdAt: Date;
 }

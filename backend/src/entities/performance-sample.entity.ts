@@ -15,11 +15,12 @@ export class PerformanceSample {
   @Column({ type: 'uuid' }) unitId: string;
   @Column({ type: 'uuid' }) importId: string;
   @Column({ type: 'datetime', precision: 3 }) timestampUtc: Date;
-  @Column({ type: 'double' }) loadMw: number;
-  @Column({ type: 'double' }) backpressureKpa: number;
-  @Column({ type: 'double' }) cwInletC: number;
-  @Column({ type: 'double' }) cwOutletC: number;
-  @Column({ type: 'double' }) cwFlowM3s: number;
+  /** The five required readings are null only in a row the historian marked (validity `instrument-status`). */
+  @Column(num) loadMw: number | null;
+  @Column(num) backpressureKpa: number | null;
+  @Column(num) cwInletC: number | null;
+  @Column(num) cwOutletC: number | null;
+  @Column(num) cwFlowM3s: number | null;
   @Column({ type: 'boolean', default: false }) flowAssumed: boolean;
   @Column(num) hotwellC: number | null;
   @Column(num) dissolvedOxygenPpb: number | null;

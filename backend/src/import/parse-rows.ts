@@ -32,6 +32,8 @@ export interface ImportFileOptions {
   kind?: TableKind;
   /** Force the CSV delimiter; by default it is detected. */
   delimiter?: string;
+  /** Historian status words that mark a missing value (default: DEFAULT_STATUS_WORDS; the organisation's add to them). */
+  statusWords?: readonly string[];
 }
 
 export interface ImportCheck {
@@ -117,7 +119,7 @@ export async function checkImportFile(filePath: string, options: ImportFileOptio
     result.headers = table.headers;
     const compiled = compileMapping(options.mapping, table.headers);
     result.assumptions = compiled.assumptions;
-    const converter = new RowConverter(compiled);
+    const converter = new RowConverter(compiled, options.statusWords);
     const record = new Float64Array(RECORD_FIELDS);
     const index = new TimeIndex();
     const sums = new Float64Array(RECORD_FIELDS);
@@ -140,7 +142,7 @@ export async function checkImportFile(filePath: string, options: ImportFileOptio
           if (result.firstTimestampUtc === null || t < result.firstTimestampUtc) result.firstTimestampUtc = t;
           if (result.lastTimestampUtc === null || t > result.lastTimestampUtc) result.lastTimestampUtc = t;
         }
-        if (good) {
+        if (good && record[F.marker] === 0) {
           for (const f of MEAN_FIELDS) {
             sums[f]! += record[f]!;
             counts[f]!++;
@@ -217,6 +219,8 @@ export interface ImportSummary {
   rowsRead: number;
   rowsOk: number;
   rowsByReason: Partial<Record<RejectionReason, number>>;
+  /** Rows kept out as instrument-status, by the status word or quality value that marked them. */
+  rowsByMarker: Record<string, number>;
   firstTimestampUtc: number | null;
   lastTimestampUtc: number | null;
   /** Duplicated times in the file (always 0 here: the check refuses such a file). */
@@ -257,7 +261,7 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
   const sorter = options.fileOrder === 'ascending' ? null : new RecordSorter(options.tempDir, options.sortChunkRows);
   try {
     const compiled = compileMapping(options.mapping, table.headers);
-    const converter = new RowConverter(compiled);
+    const converter = new RowConverter(compiled, options.statusWords);
     const s = options.steadiness ?? {};
     const windowMinutes = s.windowMinutes ?? 30;
     const batchSize = options.batchSize ?? 5000;
@@ -265,6 +269,7 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
       rowsRead: 0,
       rowsOk: 0,
       rowsByReason: {},
+      rowsByMarker: {},
       firstTimestampUtc: null,
       lastTimestampUtc: null,
       duplicateTimestamps: 0,
@@ -283,17 +288,22 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
         cwFlowM3s: r[F.cwFlowM3s]!,
         loadMw: r[F.loadMw]!,
       };
-      const verdict = checkPointValidity(point, {
-        ratingMw: s.ratingMw,
-        minLoadFraction: s.minLoadFraction,
-        maxLoadChangeFraction: s.maxLoadChangeFraction,
-        windowMinutes,
-        ranges: s.ranges,
-        neighbours: [
-          { minutesFromPoint: (minT - t) / 60_000, loadMw: minLoad },
-          { minutesFromPoint: (maxT - t) / 60_000, loadMw: maxLoad },
-        ],
-      });
+      const marker = r[F.marker]!;
+      // the historian's own verdict comes first: a marked value is no reading to judge steadiness or load by
+      const verdict: { valid: true } | { valid: false; reason: RejectionReason } =
+        marker > 0
+          ? { valid: false, reason: 'instrument-status' }
+          : checkPointValidity(point, {
+              ratingMw: s.ratingMw,
+              minLoadFraction: s.minLoadFraction,
+              maxLoadChangeFraction: s.maxLoadChangeFraction,
+              windowMinutes,
+              ranges: s.ranges,
+              neighbours: [
+                { minutesFromPoint: (minT - t) / 60_000, loadMw: minLoad },
+                { minutesFromPoint: (maxT - t) / 60_000, loadMw: maxLoad },
+              ],
+            });
       const sample: ImportSample = {
         line: r[F.line]!,
         timestampUtc: t,
@@ -302,6 +312,10 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
         validity: verdict.valid ? 'ok' : verdict.reason,
       };
       for (const [key, field] of OPTIONAL_FIELDS) if (!Number.isNaN(r[field])) (sample as unknown as Record<string, number>)[key] = r[field]!;
+      if (marker > 0) {
+        const word = converter.markers[marker - 1] ?? 'status';
+        summary.rowsByMarker[word] = (summary.rowsByMarker[word] ?? 0) + 1;
+      }
       if (verdict.valid) summary.rowsOk++;
       else summary.rowsByReason[verdict.reason] = (summary.rowsByReason[verdict.reason] ?? 0) + 1;
       if (compiled.flowAssumed) summary.flowAssumedRows++;

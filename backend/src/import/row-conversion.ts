@@ -8,6 +8,7 @@ import { INHG_REFERENCE_NOTE } from '@shared/units.js';
 import { ImportFileError, type RowErrorList } from './import-errors.js';
 import { SCFM_BASIS_NOTE, cwFlowToM3s, dissolvedOxygenToPpb, massFlowToKgS, powerToMw, pressureToKpa, temperatureToC } from './quantity-conversion.js';
 import { TimestampParser, describeTimestampRule } from './timestamp-parsing.js';
+import { DEFAULT_STATUS_WORDS, statusWordKey } from '@shared/schemas/historian-status.js';
 
 /** Field positions in a converted record (a Float64Array, so millions of rows stay compact). */
 export const F = {
@@ -24,14 +25,18 @@ export const F = {
   barometerKpa: 10,
   cwDifferentialPressureKpa: 11,
   condensateFlowKgS: 12,
+  /** 0 for a row with good values; else 1 + the index of its marker in RowConverter.markers (a status word or a quality value). */
+  marker: 13,
 } as const;
-export const RECORD_FIELDS = 13;
+export const RECORD_FIELDS = 14;
 
 export interface CompiledMapping {
   mapping: ImportMapping;
   headers: string[];
   timestampIndex: number;
   index: Partial<Record<ImportQuantity, number>>;
+  /** Position of the quality column, -1 without one. */
+  qualityIndex: number;
   flowAssumed: boolean;
   assumptions: string[];
 }
@@ -63,6 +68,7 @@ export function compileMapping(mappingInput: unknown, headers: string[]): Compil
     const ref = mapping.columns[q];
     if (ref) index[q] = find(ref.column);
   }
+  const qualityIndex = mapping.quality ? find(mapping.quality.column) : -1;
   if (missing.length > 0) {
     throw new ImportFileError('column-not-found', `mapped column${missing.length > 1 ? 's' : ''} ${missing.join(', ')} not found in the file's header`);
   }
@@ -80,7 +86,9 @@ export function compileMapping(mappingInput: unknown, headers: string[]): Compil
   if (units.includes('inHg')) assumptions.push(INHG_REFERENCE_NOTE);
   if (mapping.columns.airRemovalFlow?.unit === 'scfm') assumptions.push(SCFM_BASIS_NOTE);
   if (mapping.columns.cwFlow?.unit === 'kg/s') assumptions.push('CW mass flow turned into volume flow at the inlet temperature (IAPWS-IF97 density)');
-  return { mapping, headers, timestampIndex, index, flowAssumed, assumptions };
+  if (mapping.quality)
+    assumptions.push(`rows whose "${mapping.quality.column}" is not ${mapping.quality.goodValues.join(' or ')} are kept out as instrument status`);
+  return { mapping, headers, timestampIndex, index, qualityIndex, flowAssumed, assumptions };
 }
 
 const NUMBER_DOT = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
@@ -95,15 +103,55 @@ const REQUIRED_LABEL: Partial<Record<ImportQuantity, string>> = {
   cwFlow: 'CW flow',
 };
 
+/** Distinct not-good quality values counted by name; beyond this they are counted together. */
+const MAX_QUALITY_MARKERS = 100;
+
 export class RowConverter {
   readonly timestamps: TimestampParser;
   private readonly numberPattern: RegExp;
   private readonly comma: boolean;
+  /** Marker texts by position (status words as the list spells them, then "quality <value>" as met); F.marker is 1 + the position. */
+  readonly markers: string[];
+  private readonly markerIndex = new Map<string, number>();
+  private readonly goodQuality: Set<string>;
+  /** markers[0 .. statusWordCount) are status words; the rest are quality values met in the file. */
+  private readonly statusWordCount: number;
+  /** Marker of the row being converted (0 = none). */
+  private rowMarker = 0;
+  private pendingMissing: [column: string, raw: string, message: string][] = [];
 
-  constructor(private readonly m: CompiledMapping) {
+  constructor(
+    private readonly m: CompiledMapping,
+    statusWords: readonly string[] = DEFAULT_STATUS_WORDS,
+  ) {
     this.timestamps = new TimestampParser(m.mapping.timestamp);
     this.comma = m.mapping.decimalSeparator === ',';
     this.numberPattern = this.comma ? NUMBER_COMMA : NUMBER_DOT;
+    this.markers = [];
+    for (const w of statusWords) {
+      const key = statusWordKey(w);
+      if (!this.markerIndex.has(key)) {
+        this.markers.push(w);
+        this.markerIndex.set(key, this.markers.length);
+      }
+    }
+    this.statusWordCount = this.markers.length;
+    this.goodQuality = new Set((m.mapping.quality?.goodValues ?? []).map(statusWordKey));
+  }
+
+  /** The marker of a not-good quality value, added to the list when first met (the first MAX_QUALITY_MARKERS by name). */
+  private qualityMarker(raw: string): number {
+    const text = raw.trim() === '' ? '(empty)' : raw.trim().slice(0, 40);
+    const key = `quality ${statusWordKey(text)}`;
+    const known = this.markerIndex.get(key);
+    if (known !== undefined) return known;
+    const named = this.markers.length - this.statusWordCount;
+    const label = named < MAX_QUALITY_MARKERS ? `quality ${text}` : 'quality (other values)';
+    const again = this.markerIndex.get(statusWordKey(label));
+    if (again !== undefined) return again;
+    this.markers.push(label);
+    this.markerIndex.set(named < MAX_QUALITY_MARKERS ? key : statusWordKey(label), this.markers.length);
+    return this.markers.length;
   }
 
   /**
@@ -126,6 +174,12 @@ export class RowConverter {
     }
     // From here every mapped column index is below headers.length ≤ cells.length.
     this.rowOk = true;
+    this.rowMarker = 0;
+    this.pendingMissing.length = 0;
+    if (this.m.qualityIndex >= 0) {
+      const q = cells[this.m.qualityIndex]!;
+      if (!this.goodQuality.has(statusWordKey(q))) this.rowMarker = this.qualityMarker(q);
+    }
     const tsText = cells[this.m.timestampIndex]!;
     const ts = this.timestamps.parse(tsText);
     if (Number.isNaN(ts)) {
@@ -172,6 +226,10 @@ export class RowConverter {
     out[F.condensateFlowKgS] = c.condensateFlow
       ? massFlowToKgS(this.readNumber(cells, line, errors, 'condensateFlow', false), c.condensateFlow.unit)
       : Number.NaN;
+    // a required value left empty in a row the historian marked is part of the same outage, not a file error
+    if (this.rowMarker === 0) for (const [column, raw, message] of this.pendingMissing) errors.add(line, column, raw, message);
+    if (this.rowMarker === 0 && this.pendingMissing.length > 0) this.rowOk = false;
+    out[F.marker] = this.rowMarker;
     return this.rowOk;
   }
 
@@ -184,13 +242,15 @@ export class RowConverter {
     const raw = cells[i]!;
     const text = raw.trim();
     if (text === '') {
-      if (required) {
-        errors.add(line, this.m.headers[i]!, raw, `missing value: ${REQUIRED_LABEL[q] ?? q} is required in every row`);
-        this.rowOk = false;
-      }
+      if (required) this.pendingMissing.push([this.m.headers[i]!, raw, `missing value: ${REQUIRED_LABEL[q] ?? q} is required in every row`]);
       return Number.NaN;
     }
     if (!this.numberPattern.test(text)) {
+      const marker = this.markerIndex.get(statusWordKey(text));
+      if (marker !== undefined && marker <= this.statusWordCount) {
+        if (this.rowMarker === 0) this.rowMarker = marker;
+        return Number.NaN;
+      }
       errors.add(line, this.m.headers[i]!, raw, `not a number${this.comma ? ' (decimal comma expected)' : ''}`);
       this.rowOk = false;
       return Number.NaN;

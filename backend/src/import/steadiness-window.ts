@@ -2,7 +2,8 @@
  * Sliding ±window over records in ascending time order: for each record, the lowest and highest
  * load within the window (inclusive), found with two monotonic queues so the cost per record does
  * not grow with the sampling rate. A record is released once a later record lies beyond its window
- * (or at the end), so memory holds about one window of records.
+ * (or at the end), so memory holds about one window of records. A record the historian marked (F.marker)
+ * is released in its place but is no neighbour of the others: its load is not a reading to judge them by.
  */
 import { F } from './row-conversion.js';
 
@@ -36,6 +37,7 @@ export class SteadinessWindow {
     const idx = this.base + this.records.length;
     this.records.push(record);
     const load = record[F.loadMw]!;
+    if (record[F.marker]! > 0 || Number.isNaN(load)) return;
     while (this.minQ.length > this.minHead && this.at(this.minQ[this.minQ.length - 1]!)[F.loadMw]! >= load) this.minQ.pop();
     this.minQ.push(idx);
     while (this.maxQ.length > this.maxHead && this.at(this.maxQ[this.maxQ.length - 1]!)[F.loadMw]! <= load) this.maxQ.pop();
@@ -49,6 +51,12 @@ export class SteadinessWindow {
 
   private release(): void {
     const rec = this.at(this.center);
+    if (rec[F.marker]! > 0 || Number.isNaN(rec[F.loadMw]!)) {
+      this.emit(rec, Number.NaN, Number.NaN, Number.NaN, Number.NaN);
+      this.center++;
+      this.compact();
+      return;
+    }
     const from = rec[F.timestampUtc]! - this.windowMs;
     while (this.at(this.minQ[this.minHead]!)[F.timestampUtc]! < from) this.minHead++;
     while (this.at(this.maxQ[this.maxHead]!)[F.timestampUtc]! < from) this.maxHead++;

@@ -9,6 +9,8 @@ import { singleFileUpload } from '../http/upload.js';
 import { scopeOf } from '../policies/tenant-scope.js';
 import { errorReportCsv, findImport, importView, listImports, receiveUpload, startImport, undoImport, unitForUpload } from '../services/import.service.js';
 import { importsResponse, importView as importViewSchema, uploadResponse } from '@shared/schemas/imports.js';
+import { statusWordsBody, statusWordsResponse } from '@shared/schemas/historian-status.js';
+import { getStatusWords, setStatusWords } from '../services/historian-status.service.js';
 
 const startBody = z.object({ mapping: z.unknown() }).strict();
 
@@ -16,6 +18,25 @@ export function importRoutes(ds: DataSource, config: Config): RouteSpec[] {
   const upload = singleFileUpload(path.resolve(config.UPLOAD_DIR));
   const unitOrThrow = (req: Request) => unitForUpload(ds, scopeOf(req.actor), idParam(req));
   return [
+    {
+      method: 'get',
+      path: '/api/organisation/historian-status-words',
+      response: statusWordsResponse,
+      access: 'data.read',
+      tenantScoped: true,
+      description: "Historian status words that mark a missing value in an imported file: the defaults and your organisation's own",
+      handler: async (req, res) => res.json(await getStatusWords(ds, scopeOf(req.actor))),
+    },
+    {
+      method: 'put',
+      path: '/api/organisation/historian-status-words',
+      response: statusWordsResponse,
+      access: 'members.manage',
+      tenantScoped: true,
+      body: statusWordsBody,
+      description: "Replace your organisation's own historian status words (administrators; the defaults always apply)",
+      handler: async (req, res) => res.json(await setStatusWords(ds, scopeOf(req.actor), req.body.words)),
+    },
     {
       method: 'post',
       path: '/api/units/:id/uploads',

@@ -13,6 +13,7 @@ export const REJECTION_REASONS = {
   'expected-out-of-range': 'the expected backpressure is outside the range a measured backpressure may have: check the setup or the instruments',
   'implausible-cleanliness': 'cleanliness is outside its plausible band: check the setup (surface, tube count, clean coefficient) or the instruments',
   'implausible-velocity': 'tube velocity is outside its plausible band: check the CW flow, tube count and passes',
+  'instrument-status': 'the historian marked a value of this time as not good (a status word such as "Bad" or a quality flag)',
 } as const;
 
 /**

@@ -14,13 +14,15 @@ export interface CheckInput {
   importId: string;
   storedPath: string;
   mapping: unknown;
+  /** Historian status words of the organisation (defaults and its own). */
+  statusWords?: readonly string[];
   progress: ImportProgress;
 }
 
-export async function checkFile(ds: DataSource, job: JobLease, { importId, storedPath, mapping, progress }: CheckInput): Promise<ImportCheck> {
+export async function checkFile(ds: DataSource, job: JobLease, { importId, storedPath, mapping, statusWords, progress }: CheckInput): Promise<ImportCheck> {
   await withLease(ds, job, (em) => deleteSamplesOfImport(em, importId));
   await progress(0.02, 'Checking every row');
-  return checkImportFile(storedPath, { mapping });
+  return checkImportFile(storedPath, { mapping, statusWords });
 }
 
 /** What the import records when its file is rejected. */

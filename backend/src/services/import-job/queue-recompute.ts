@@ -26,6 +26,7 @@ export function completion({ summary, stored, skippedIdentical, conflicting, con
       conflicts,
       rowsOk: summary.rowsOk,
       rowsByReason: summary.rowsByReason,
+      rowsByMarker: summary.rowsByMarker,
       flowAssumedRows: summary.flowAssumedRows,
     },
     firstTimestamp: summary.firstTimestampUtc !== null ? new Date(summary.firstTimestampUtc) : null,

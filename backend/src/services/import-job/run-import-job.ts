@@ -13,6 +13,7 @@ import { checkFile, rejectImport } from './check-file.js';
 import { importProgress } from './import-progress.js';
 import { completeAndQueueRecompute } from './queue-recompute.js';
 import { storeRows } from './store-rows.js';
+import { statusWordsOfOrganisation } from '../historian-status.service.js';
 
 export async function runImportJob(ds: DataSource, job: JobLease, importId: string): Promise<void> {
   const imp = await ds.getRepository(DataImport).findOneBy({ id: importId });
@@ -21,7 +22,8 @@ export async function runImportJob(ds: DataSource, job: JobLease, importId: stri
   try {
     const unit = await ds.getRepository(GeneratingUnit).findOneByOrFail({ id: imp.unitId });
     if (!imp.storedPath) throw new Error('the uploaded file is gone');
-    const step = { importId: imp.id, storedPath: imp.storedPath, mapping: imp.mapping, progress: importProgress(ds, job, imp.id) };
+    const statusWords = await statusWordsOfOrganisation(ds.manager, imp.organisationId);
+    const step = { importId: imp.id, storedPath: imp.storedPath, mapping: imp.mapping, statusWords, progress: importProgress(ds, job, imp.id) };
     const check = await checkFile(ds, job, step);
     if (!check.ok) await rejectImport(ds, job, imp.id, check);
     else await completeAndQueueRecompute(ds, job, imp, await storeRows(ds, job, { ...step, unit, check }), check);

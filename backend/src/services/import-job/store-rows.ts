@@ -26,8 +26,10 @@ export interface SortedBatch {
   conflicting: ImportSample[];
 }
 
+/** A missing value (null stored, NaN or absent in a row) equals only another missing value. */
+const missing = (v: number | null | undefined) => v === null || v === undefined || Number.isNaN(v);
 const sameValue = (a: number | null, b: number | null | undefined) =>
-  a === null || a === undefined ? b === null || b === undefined : b !== null && b !== undefined && Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a));
+  missing(a) ? missing(b) : !missing(b) && Math.abs(a! - b!) <= 1e-9 * Math.max(1, Math.abs(a!));
 
 /** Sorts a batch against the rows stored at the same times: new, identical (skipped) or conflicting. */
 export function sortAgainstStored(samples: readonly ImportSample[], stored: readonly StoredReading[]): SortedBatch {
@@ -53,6 +55,7 @@ export interface StoreInput {
   importId: string;
   storedPath: string;
   mapping: unknown;
+  statusWords?: readonly string[];
   unit: GeneratingUnit;
   check: ImportCheck;
   progress: ImportProgress;
@@ -70,7 +73,11 @@ export interface StoredRows {
 /** Progress is written at most this often (each report is two small transactions). */
 const PROGRESS_EVERY_MS = 500;
 
-export async function storeRows(ds: DataSource, job: JobLease, { importId, storedPath, mapping, unit, check, progress }: StoreInput): Promise<StoredRows> {
+export async function storeRows(
+  ds: DataSource,
+  job: JobLease,
+  { importId, storedPath, mapping, statusWords, unit, check, progress }: StoreInput,
+): Promise<StoredRows> {
   await ds.getRepository(DataImport).update({ id: importId }, { status: 'importing', notes: { assumptions: check.assumptions, warnings: check.warnings } });
   const owner = { unitId: unit.id, importId, setupVersion: unit.setupVersion };
   let stored = 0;
@@ -110,6 +117,7 @@ export async function storeRows(ds: DataSource, job: JobLease, { importId, store
   try {
     summary = await importSamples(storedPath, {
       mapping,
+      statusWords,
       fileOrder: check.order,
       steadiness: { ratingMw: unit.turbine?.ratingMw, minLoadFraction: unit.turbine?.minimumLoadFraction },
       onBatch,

@@ -20,8 +20,9 @@ import { useStartImport } from '../api/start-import';
 import type { ImportView } from '../api/get-import';
 import type { UploadResponse } from '../api/upload-historian-file';
 import { DATE_ORDER_LABELS, QUANTITY_LABELS, REPEATED_HOUR_LABELS, TIMESTAMP_FORMAT_LABELS, unitLabel } from './import-words';
+import { StatusWordsPanel } from './status-words-panel';
 
-type Role = ImportQuantity | 'timestamp' | '';
+type Role = ImportQuantity | 'timestamp' | 'quality' | '';
 interface Assignment {
   role: Role;
   unit: string;
@@ -46,6 +47,7 @@ function initialAssignments(upload: UploadResponse): Record<string, Assignment> 
   const m = upload.proposedMapping;
   const out: Record<string, Assignment> = Object.fromEntries(upload.headers.map((h) => [h, { role: '' as Role, unit: '' }]));
   if (m.timestamp?.column && out[m.timestamp.column]) out[m.timestamp.column] = { role: 'timestamp', unit: '' };
+  if (m.quality?.column && out[m.quality.column]) out[m.quality.column] = { role: 'quality', unit: '' };
   for (const q of IMPORT_QUANTITIES) {
     const ref = m.columns?.[q];
     if (ref && out[ref.column]) out[ref.column] = { role: q, unit: ref.unit };
@@ -72,6 +74,7 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
   const [barometerText, setBarometerText] = useState(proposed.fixedBarometer ? String(proposed.fixedBarometer.value) : '');
   const [barometerUnit, setBarometerUnit] = useState<string>(proposed.fixedBarometer?.unit ?? (units.pressureKpa.label === 'inHgA' ? 'inHg' : 'kPa'));
   const [flowNotMetered, setFlowNotMetered] = useState(proposed.designCwFlowM3s !== undefined && !proposed.columns?.cwFlow);
+  const [goodText, setGoodText] = useState((proposed.quality?.goodValues ?? ['Good']).join(', '));
 
   const guessByHeader = useMemo(() => new Map(upload.guess.columns.map((g) => [g.header, g])), [upload]);
 
@@ -80,7 +83,7 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
       const next = { ...current };
       // one column per quantity: choosing it here takes it from another column
       if (role) for (const [h, other] of Object.entries(next)) if (h !== header && other.role === role) next[h] = UNASSIGNED;
-      next[header] = { role, unit: role && role !== 'timestamp' ? defaultUnit(role, guessByHeader.get(header)?.unit) : '' };
+      next[header] = { role, unit: role && role !== 'timestamp' && role !== 'quality' ? defaultUnit(role, guessByHeader.get(header)?.unit) : '' };
       return next;
     });
 
@@ -99,8 +102,10 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
   const mapping: ImportMappingInput = useMemo(() => {
     const columns: ImportMappingInput['columns'] = {};
     let timestampColumn = '';
+    let qualityColumn = '';
     for (const [header, a] of Object.entries(assignments)) {
       if (a.role === 'timestamp') timestampColumn = header;
+      else if (a.role === 'quality') qualityColumn = header;
       else if (a.role && !(flowNotMetered && a.role === 'cwFlow'))
         (columns as Record<string, { column: string; unit: string }>)[a.role] = { column: header, unit: a.unit };
     }
@@ -117,8 +122,30 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
       decimalSeparator,
       ...(flowNotMetered && designCwFlowM3s !== null && { designCwFlowM3s }),
       ...(vacuum && !columns.barometer && barometer !== undefined && { fixedBarometer: { value: barometer, unit: barometerUnit as 'kPa' } }),
+      ...(qualityColumn && {
+        quality: {
+          column: qualityColumn,
+          goodValues: goodText
+            .split(',')
+            .map((v) => v.trim())
+            .filter(Boolean),
+        },
+      }),
     };
-  }, [assignments, format, timeZone, dateOrder, repeatedHour, decimalSeparator, flowNotMetered, designCwFlowM3s, vacuum, barometerText, barometerUnit]);
+  }, [
+    assignments,
+    format,
+    timeZone,
+    dateOrder,
+    repeatedHour,
+    decimalSeparator,
+    flowNotMetered,
+    designCwFlowM3s,
+    vacuum,
+    barometerText,
+    barometerUnit,
+    goodText,
+  ]);
 
   const localProblems = useMemo(() => {
     const parsed = importMappingSchema.safeParse(mapping);
@@ -179,6 +206,7 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
                 <select aria-label={`What column ${header} is`} className={selectClass} value={a.role} onChange={(e) => assign(header, e.target.value as Role)}>
                   <option value="">Not imported</option>
                   <option value="timestamp">Timestamp</option>
+                  <option value="quality">Quality flag of the row</option>
                   {IMPORT_QUANTITIES.map((q) => (
                     <option key={q} value={q}>
                       {QUANTITY_LABELS[q]}
@@ -187,7 +215,17 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
                 </select>
               </td>
               <td className={td}>
-                {a.role && a.role !== 'timestamp' ? (
+                {a.role === 'quality' ? (
+                  <label className="flex flex-col gap-1 text-xs">
+                    Values that mean good (comma between)
+                    <input
+                      aria-label={`Good values of column ${header}`}
+                      value={goodText}
+                      onChange={(e) => setGoodText(e.target.value)}
+                      className={selectClass}
+                    />
+                  </label>
+                ) : a.role && a.role !== 'timestamp' ? (
                   <select
                     aria-label={`Unit of column ${header}`}
                     className={selectClass}
@@ -309,6 +347,8 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
           </SelectField>
         </div>
       </fieldset>
+
+      <StatusWordsPanel organisationId={organisationId} />
 
       {(localProblems.length > 0 || serverProblems.length > 0) && (
         <div role="alert" className="rounded border border-warn/40 bg-ledger-50 px-3 py-2 text-sm text-warn" data-testid="mapping-problems">

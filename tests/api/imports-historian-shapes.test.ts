@@ -1,0 +1,136 @@
+/**
+ * Historian exports as plants write them, through the HTTP API: status words and quality flags, an
+ * organisation's own status words (administrators edit them), and — in the later describes — the other
+ * shapes of file. Every shape must store the same samples as the wide file of the same data.
+ */
+import type TestAgent from 'supertest/lib/agent.js';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { drainJobs } from '../../backend/src/jobs/job-worker.js';
+import { JOB_HANDLERS } from '../../backend/src/jobs/job-handlers.js';
+import type { GeneratingUnit } from '../../backend/src/entities/generating-unit.entity.js';
+import { createTenant, CSRF, signedInAgent, type TenantFixture } from '../factories/accounts.js';
+import { createPlant, createUnit, TEST_CONDENSER, TEST_TURBINE } from '../factories/units.js';
+import { createTestApp, type TestApp } from '../helpers/test-app.js';
+import { csvLines, makeTempDir, physicalHistory, US_MAPPING, writeCsvLines, type HistorianRow } from '../helpers/historian-files.js';
+
+const START_UTC = Date.UTC(2024, 5, 3, 0, 0);
+
+interface StoredRow {
+  ts: Date;
+  loadMw: number | null;
+  backpressureKpa: number | null;
+  cwInletC: number | null;
+  cwOutletC: number | null;
+  cwFlowM3s: number | null;
+  validity: string;
+}
+
+describe('historian shapes through the API', () => {
+  let t: TestApp;
+  let tmp: Awaited<ReturnType<typeof makeTempDir>>;
+  let tenant: TenantFixture;
+  let analyst: TestAgent;
+  let admin: TestAgent;
+
+  beforeAll(async () => {
+    tmp = await makeTempDir();
+    t = await createTestApp({ UPLOAD_DIR: tmp.file('uploads') });
+    tenant = await createTenant(t.dataSource, 'shapes');
+    analyst = await signedInAgent(t.app, tenant.users.analyst.email);
+    admin = await signedInAgent(t.app, tenant.users.admin.email);
+  });
+  afterAll(async () => {
+    await t?.close();
+    await tmp?.cleanup();
+  });
+
+  const newUnit = async (): Promise<GeneratingUnit> => createUnit(t.dataSource, await createPlant(t.dataSource, tenant.organisation.id, null));
+  const drain = () => drainJobs(t.dataSource, JOB_HANDLERS);
+  const day = (hours = 48): HistorianRow[] => physicalHistory({ startUtc: START_UTC, hours, condenser: TEST_CONDENSER, turbine: TEST_TURBINE });
+
+  async function importFile(unitId: string, filePath: string, mapping?: unknown) {
+    const up = await analyst.post(`/api/units/${unitId}/uploads`).set(CSRF).attach('file', filePath);
+    expect(up.status, JSON.stringify(up.body)).toBe(201);
+    const started = await analyst
+      .post(`/api/imports/${up.body.import.id}/start`)
+      .set(CSRF)
+      .send({ mapping: mapping ?? up.body.proposedMapping });
+    expect(started.status, JSON.stringify(started.body)).toBe(202);
+    await drain();
+    return { upload: up.body, imp: (await analyst.get(`/api/imports/${up.body.import.id}`).expect(200)).body };
+  }
+
+  const samplesOf = (unitId: string): Promise<StoredRow[]> =>
+    t.dataSource.query(
+      'SELECT timestampUtc AS ts, loadMw, backpressureKpa, cwInletC, cwOutletC, cwFlowM3s, validity FROM performance_sample WHERE unitId = ? ORDER BY timestampUtc',
+      [unitId],
+    );
+
+  describe('status words', () => {
+    it('stores a marked row as instrument-status with its readings empty and counts it per word; the recompute leaves it out', async () => {
+      const unit = await newUnit();
+      const rows = day();
+      rows[5]!.cells[2] = 'Bad';
+      rows[9]!.cells[1] = ' no data ';
+      rows[30]!.cells[3] = 'Comm Failure';
+      const file = await writeCsvLines(tmp.file('markers.csv'), csvLines(rows));
+      const { imp } = await importFile(unit.id, file, US_MAPPING);
+      expect(imp.status, imp.message).toBe('complete');
+      expect(imp.counts).toMatchObject({
+        rowsRead: 48,
+        stored: 48,
+        rowsByReason: { 'instrument-status': 3 },
+        rowsByMarker: { Bad: 1, 'No Data': 1, 'Comm Failure': 1 },
+      });
+      const stored = await samplesOf(unit.id);
+      expect(stored).toHaveLength(48);
+      expect(stored.filter((s) => s.validity === 'instrument-status').map((s) => new Date(s.ts).getTime())).toEqual(
+        [5, 9, 30].map((h) => START_UTC + h * 3_600_000),
+      );
+      expect(stored[5]).toMatchObject({ backpressureKpa: null, validity: 'instrument-status' });
+      expect(stored[9]).toMatchObject({ loadMw: null });
+      expect(stored[5]!.loadMw).toBeCloseTo(rows[5]!.loadMw, 3);
+    });
+
+    it('refuses a file with other text in a number cell and stores nothing', async () => {
+      const unit = await newUnit();
+      const rows = day(10);
+      rows[4]!.cells[2] = 'Bad reading at 04:00';
+      const { imp } = await importFile(unit.id, await writeCsvLines(tmp.file('phrase.csv'), csvLines(rows)), US_MAPPING);
+      expect(imp.status).toBe('rejected');
+      expect(imp.errors).toEqual([{ row: 6, column: 'BP inHgA', value: 'Bad reading at 04:00', message: 'not a number' }]);
+      expect(await samplesOf(unit.id)).toEqual([]);
+    });
+
+    it("uses the organisation's own words, which only an administrator may change", async () => {
+      const before = await analyst.get('/api/organisation/historian-status-words').expect(200);
+      expect(before.body.defaults).toContain('Bad Quality');
+      expect(before.body).toMatchObject({ words: [], mayEdit: false });
+      expect((await admin.get('/api/organisation/historian-status-words').expect(200)).body.mayEdit).toBe(true);
+      await analyst
+        .put('/api/organisation/historian-status-words')
+        .set(CSRF)
+        .send({ words: ['I/O Timeout'] })
+        .expect(403);
+      const bad = await admin
+        .put('/api/organisation/historian-status-words')
+        .set(CSRF)
+        .send({ words: ['42'] });
+      expect(bad.status).toBe(400);
+      const set = await admin
+        .put('/api/organisation/historian-status-words')
+        .set(CSRF)
+        .send({ words: ['I/O Timeout', 'Scan Off'] });
+      expect(set.status, JSON.stringify(set.body)).toBe(200);
+      expect(set.body.words).toEqual(['I/O Timeout', 'Scan Off']);
+
+      const unit = await newUnit();
+      const rows = day(10);
+      rows[2]!.cells[4] = 'i/o timeout';
+      const { imp } = await importFile(unit.id, await writeCsvLines(tmp.file('own-word.csv'), csvLines(rows)), US_MAPPING);
+      expect(imp.status, imp.message).toBe('complete');
+      expect(imp.counts.rowsByMarker).toEqual({ 'I/O Timeout': 1 });
+      await admin.put('/api/organisation/historian-status-words').set(CSRF).send({ words: [] }).expect(200);
+    });
+  });
+});
