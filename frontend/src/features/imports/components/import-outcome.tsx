@@ -84,6 +84,15 @@ function ImportSummary({ view, plantTimeZone }: { view: ImportView; plantTimeZon
                 </tr>
               ))}
             </DataTable>
+            {Object.keys(c.rowsByMarker ?? {}).length > 0 && (
+              <p className="text-sm" data-testid="marker-counts">
+                <span className="text-ink-soft">Instrument status, by the historian’s word: </span>
+                {Object.entries(c.rowsByMarker ?? {})
+                  .sort(([, a], [, b]) => b - a)
+                  .map(([word, n]) => `${word} ${formatNumber(n)}`)
+                  .join(', ')}
+              </p>
+            )}
           </>
         )}
       </div>
