@@ -1,5 +1,6 @@
 import { useId, type InputHTMLAttributes } from 'react';
 import { numberTextNote } from '@frontend/lib/field-units';
+import { RequiredMark } from './required-mark';
 
 interface Props extends Omit<InputHTMLAttributes<HTMLInputElement>, 'onChange' | 'value'> {
   label: string;
@@ -15,7 +16,7 @@ interface Props extends Omit<InputHTMLAttributes<HTMLInputElement>, 'onChange' |
  * A labelled number input in the user's units and number format, with the unit beside it and the error where the
  * field is; a number read by the person's format (164,800 as thousands) says how it was read.
  */
-export function QuantityField({ label, unit, value, onChange, error: formError, hint: givenHint, className = '', ...input }: Props) {
+export function QuantityField({ label, unit, value, onChange, error: formError, hint: givenHint, className = '', required, ...input }: Props) {
   const id = useId();
   // text that could be two numbers is refused here, in the person's words, before the form's "Enter …"
   const note = numberTextNote(value);
@@ -27,6 +28,7 @@ export function QuantityField({ label, unit, value, onChange, error: formError, 
       <label htmlFor={id} className="text-sm font-medium text-ink">
         {label}
         {unit && <span className="sr-only"> ({unit})</span>}
+        {required && <RequiredMark />}
       </label>
       <div className="flex items-stretch">
         <input
@@ -34,6 +36,7 @@ export function QuantityField({ label, unit, value, onChange, error: formError, 
           inputMode="decimal"
           autoComplete="off"
           aria-invalid={error ? true : undefined}
+          aria-required={required || undefined}
           aria-describedby={describedBy}
           value={value}
           onChange={(e) => onChange(e.target.value)}

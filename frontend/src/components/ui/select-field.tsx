@@ -1,4 +1,5 @@
 import { useId, type ReactNode, type SelectHTMLAttributes } from 'react';
+import { RequiredMark } from './required-mark';
 
 interface Props extends SelectHTMLAttributes<HTMLSelectElement> {
   label: string;
@@ -8,16 +9,18 @@ interface Props extends SelectHTMLAttributes<HTMLSelectElement> {
 }
 
 /** A labelled native select with its error shown where the field is. */
-export function SelectField({ label, error, hint, children, ...select }: Props) {
+export function SelectField({ label, error, hint, children, required, ...select }: Props) {
   const id = useId();
   const describedBy = [error ? `${id}-error` : null, hint ? `${id}-hint` : null].filter(Boolean).join(' ') || undefined;
   return (
     <div className="flex flex-col gap-1">
       <label htmlFor={id} className="text-sm font-medium text-ink">
         {label}
+        {required && <RequiredMark />}
       </label>
       <select
         id={id}
+        aria-required={required || undefined}
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy}
         className={`rounded border bg-paper-raised px-2 py-1.5 text-sm ${error ? 'border-fault' : 'border-rule'}`}

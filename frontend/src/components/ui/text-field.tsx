@@ -1,4 +1,5 @@
 import { useId, type InputHTMLAttributes } from 'react';
+import { RequiredMark } from './required-mark';
 
 interface Props extends InputHTMLAttributes<HTMLInputElement> {
   label: string;
@@ -14,11 +15,7 @@ export function TextField({ label, error, hint, required, ...input }: Props) {
     <div className="flex flex-col gap-1">
       <label htmlFor={id} className="text-sm font-medium text-ink">
         {label}
-        {required && (
-          <span aria-hidden="true" className="ml-0.5 text-fault" title="required">
-            *
-          </span>
-        )}
+        {required && <RequiredMark />}
       </label>
       <input
         id={id}

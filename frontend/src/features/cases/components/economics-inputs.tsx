@@ -1,6 +1,7 @@
 import type { CalcScheduleInput } from '@shared/schemas/calc-schedule';
+import { ISO_DAY } from '@shared/text/day-text';
+import { DayField } from '@frontend/components/ui/day-field';
 import { SelectField } from '@frontend/components/ui/select-field';
-import { TextField } from '@frontend/components/ui/text-field';
 import { formatDay } from '@frontend/lib/format';
 import { addDays } from '@shared/domain/calendar/plant-date';
 import { CaseNumberField } from './case-number-field';
@@ -31,7 +32,7 @@ export function EconomicsInputs(props: InputGroupProps) {
       <SourceBadge sourceKey="startDate" props={props} />
       <div className="grid grid-cols-2 gap-3">
         {editable ? (
-          <TextField label="Horizon starts" type="date" value={inputs.startDate} onChange={(e) => e.target.value && set({ startDate: e.target.value })} />
+          <DayField label="Horizon starts" value={inputs.startDate} onChange={(v) => ISO_DAY.test(v) && set({ startDate: v })} />
         ) : (
           <div className="flex flex-col gap-0.5">
             <span className="text-xs text-ink-soft">Horizon</span>

@@ -1,6 +1,7 @@
 import type { CalcScheduleInput } from '@shared/schemas/calc-schedule';
+import { ISO_DAY } from '@shared/text/day-text';
+import { DayField } from '@frontend/components/ui/day-field';
 import { Button } from '@frontend/components/ui/button';
-import { TextField } from '@frontend/components/ui/text-field';
 import { formatDay } from '@frontend/lib/format';
 import { addDays } from '@shared/domain/calendar/plant-date';
 import { CaseNumberField } from './case-number-field';
@@ -39,8 +40,8 @@ function RangeList({
     <div className="flex flex-col gap-2">
       {ranges.map((r, i) => (
         <div key={i} className="grid grid-cols-[1fr_1fr_auto] items-end gap-2">
-          <TextField label={`${label} ${i + 1} from`} type="date" value={r.from} onChange={(e) => e.target.value && set(i, { from: e.target.value })} />
-          <TextField label="to" type="date" value={r.to} min={r.from} onChange={(e) => e.target.value && set(i, { to: e.target.value })} />
+          <DayField label={`${label} ${i + 1} from`} value={r.from} onChange={(v) => ISO_DAY.test(v) && set(i, { from: v })} />
+          <DayField label="to" value={r.to} onChange={(v) => ISO_DAY.test(v) && set(i, { to: v })} />
           <Button variant="quiet" onClick={() => onChange(ranges.filter((_, j) => j !== i))}>
             Remove
           </Button>

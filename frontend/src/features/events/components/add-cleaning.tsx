@@ -1,10 +1,11 @@
 import { useState, type FormEvent } from 'react';
 import { unitEventInput } from '@shared/schemas/unit-event';
+import { DayField } from '@frontend/components/ui/day-field';
+import { formatDay } from '@frontend/lib/format';
 import { Button } from '@frontend/components/ui/button';
 import { Notice } from '@frontend/components/ui/notice';
 import { QuantityField } from '@frontend/components/ui/quantity-field';
 import { SelectField } from '@frontend/components/ui/select-field';
-import { TextField } from '@frontend/components/ui/text-field';
 import { parseNumberText } from '@frontend/lib/field-units';
 import { formMessage, serverFieldErrors, zodFieldErrors, type FieldErrors } from '@frontend/lib/form-errors';
 import { useAddEvent } from '../api/add-event';
@@ -74,13 +75,13 @@ export function AddCleaning({ organisationId, unitId, currency, lastDay, methods
     <form onSubmit={submit} noValidate aria-label="Add a cleaning" className="no-print flex flex-col gap-3 rounded border border-tube-100 bg-tube-50/50 p-3">
       <p className="text-sm font-medium">Record a cleaning</p>
       <div className="grid gap-3 sm:grid-cols-2">
-        <TextField
+        <DayField
           label="Cleaning date"
-          type="date"
+          required
           value={date}
-          max={lastDay ?? undefined}
-          onChange={(e) => setDate(e.target.value)}
+          onChange={setDate}
           error={errors.startDate}
+          hint={lastDay ? `A day up to ${formatDay(lastDay)}, the last day with data` : undefined}
         />
         <SelectField label="Method" value={methodId} onChange={(e) => setMethodId(e.target.value)} error={errors.methodId}>
           <option value="">Not recorded</option>

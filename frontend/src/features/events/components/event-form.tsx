@@ -1,6 +1,11 @@
-import { useState, type FormEvent } from 'react';
+import { useRef, useState, type FormEvent } from 'react';
 import { UNIT_EVENT_KINDS, unitEventInput } from '@shared/schemas/unit-event';
+import { DayField } from '@frontend/components/ui/day-field';
 import { FormActions } from '@frontend/components/ui/form-actions';
+import { FormProblems, useFocusFirstProblem } from '@frontend/components/ui/form-problems';
+import { RequiredNote } from '@frontend/components/ui/required-mark';
+import { UnsavedChangesGuard } from '@frontend/components/ui/unsaved-changes';
+import { useDirty } from '@frontend/lib/use-dirty';
 import { Notice } from '@frontend/components/ui/notice';
 import { QuantityField } from '@frontend/components/ui/quantity-field';
 import { SelectField } from '@frontend/components/ui/select-field';
@@ -62,6 +67,10 @@ export function EventForm({ organisationId, unitId, currency, methods, event, on
   const [plugged, setPlugged] = useState(event?.pluggedTubesAfter === null || event?.pluggedTubesAfter === undefined ? '' : String(event.pluggedTubesAfter));
   const [notes, setNotes] = useState(event?.notes ?? '');
   const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
+  const formRef = useRef<HTMLFormElement>(null);
+  useFocusFirstProblem(formRef, fieldErrors);
+  // the kind and method stay chosen after an event is added, so only what is typed counts as unsaved
+  const { dirty } = useDirty({ startDate, endDate, cost, before, after, plugged, notes });
   const [added, setAdded] = useState(false);
   const library = methods ?? [];
   const chosenMethod = library.find((m) => m.id === methodId);
@@ -110,33 +119,31 @@ export function EventForm({ organisationId, unitId, currency, methods, event, on
   const message = formMessage(mutation.error);
   return (
     <form
+      ref={formRef}
       onSubmit={onSubmit}
       noValidate
       aria-label={event ? 'Change event' : 'Add an event'}
       className="flex flex-col gap-3 rounded border border-rule bg-paper-raised p-4"
       onKeyDown={(e) => event && e.key === 'Escape' && onDone?.()}
     >
+      <UnsavedChangesGuard dirty={dirty && !mutation.isPending && !mutation.isSuccess} />
       {!event && <h2>Add an event</h2>}
+      <RequiredNote />
+      <FormProblems errors={fieldErrors} />
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-        <SelectField label="Kind" value={kind} onChange={(e) => setKind(e.target.value as Kind)} error={fieldErrors.kind}>
+        <SelectField required label="Kind" value={kind} onChange={(e) => setKind(e.target.value as Kind)} error={fieldErrors.kind}>
           {UNIT_EVENT_KINDS.map((k) => (
             <option key={k} value={k}>
               {EVENT_KIND_LABELS[k]}
             </option>
           ))}
         </SelectField>
-        <TextField
-          label={kind === 'outage' ? 'First day' : 'Date'}
-          type="date"
-          value={startDate}
-          onChange={(e) => setStartDate(e.target.value)}
-          error={fieldErrors.startDate}
-        />
-        <TextField
+        <DayField required label={kind === 'outage' ? 'First day' : 'Date'} value={startDate} onChange={setStartDate} error={fieldErrors.startDate} />
+        <DayField
+          required={kind === 'outage'}
           label={kind === 'outage' ? 'Last day' : 'Last day (if several)'}
-          type="date"
           value={endDate}
-          onChange={(e) => setEndDate(e.target.value)}
+          onChange={setEndDate}
           error={fieldErrors.endDate}
         />
         <QuantityField label="Cost" unit={currency} value={cost} onChange={setCost} error={fieldErrors.cost} />

@@ -1,6 +1,6 @@
 import { useState, type FormEvent } from 'react';
+import { DayField } from '@frontend/components/ui/day-field';
 import { Button } from '@frontend/components/ui/button';
-import { TextField } from '@frontend/components/ui/text-field';
 import { formatDay } from '@frontend/lib/format';
 import { PERIOD_CHOICES, type PeriodSelection } from './health-period';
 
@@ -85,16 +85,8 @@ export function PeriodPicker({ selection, shown, onChange }: Props) {
       </div>
       {custom && (
         <form onSubmit={apply} className="no-print flex flex-wrap items-end gap-3" aria-label="Custom period">
-          {/* the browser writes a date field in its own way; the hint reads it back as every date on the page reads */}
-          <TextField label="From" type="date" value={from} onChange={(e) => setFrom(e.target.value)} hint={from ? formatDay(from) : undefined} />
-          <TextField
-            label="To"
-            type="date"
-            value={to}
-            onChange={(e) => setTo(e.target.value)}
-            error={error ?? undefined}
-            hint={to ? formatDay(to) : undefined}
-          />
+          <DayField label="From" value={from} onChange={setFrom} />
+          <DayField label="To" value={to} onChange={setTo} error={error ?? undefined} />
           <Button type="submit" variant="quiet">
             Show period
           </Button>

@@ -1,10 +1,14 @@
-import { useMemo, useState, type FormEvent } from 'react';
+import { useMemo, useRef, useState, type FormEvent } from 'react';
 import { TUBE_MATERIALS } from '@shared/domain/condenser/hei-tables';
 import { condenserSetup, type CondenserSetup } from '@shared/schemas/unit-setup';
 import { BWG_WALL_IN, inToMm } from '@shared/units';
 import { Button } from '@frontend/components/ui/button';
 import { Notice } from '@frontend/components/ui/notice';
+import { FormProblems, useFocusFirstProblem } from '@frontend/components/ui/form-problems';
 import { QuantityField } from '@frontend/components/ui/quantity-field';
+import { RequiredNote } from '@frontend/components/ui/required-mark';
+import { UnsavedChangesGuard } from '@frontend/components/ui/unsaved-changes';
+import { useDirty } from '@frontend/lib/use-dirty';
 import { SelectField } from '@frontend/components/ui/select-field';
 import type { FieldUnits, UnitSystem } from '@frontend/lib/field-units';
 import { formMessage, serverFieldErrors, zodFieldErrors, type FieldErrors } from '@frontend/lib/form-errors';
@@ -59,6 +63,9 @@ interface Props {
   cannotWrite: string | null;
 }
 
+/** Fields the setup may leave blank (the schema's nullable ones). */
+const OPTIONAL_FIELDS: ReadonlySet<NumberField> = new Set<NumberField>(['tubeLengthM', 'referenceCleanliness']);
+
 /** The condenser section: the form for people who may change the unit, its saved values as text for the rest. */
 export function CondenserForm(props: Props) {
   return props.cannotWrite ? <CondenserValues saved={props.saved} units={props.units} system={props.system} /> : <CondenserEditor {...props} />;
@@ -77,6 +84,9 @@ function CondenserEditor({ organisationId, unitId, saved, units, system }: Omit<
   const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
   const [savedAt, setSavedAt] = useState<number | null>(null);
   const set = (field: NumberField) => (text: string) => setTexts((t) => ({ ...t, [field]: text }));
+  const formRef = useRef<HTMLFormElement>(null);
+  useFocusFirstProblem(formRef, fieldErrors);
+  const { dirty, rebase } = useDirty({ texts, tubeBwg, tubeMaterial });
 
   const surfaceFromTubes = (): number | null => {
     const n = storedFromText(texts.tubeCount, 'count');
@@ -97,18 +107,35 @@ function CondenserEditor({ organisationId, unitId, saved, units, system }: Omit<
     });
     if (!parsed.success) return setFieldErrors(zodFieldErrors(parsed.error));
     setFieldErrors({});
-    save.mutate(parsed.data, { onSuccess: () => setSavedAt(Date.now()), onError: (e) => setFieldErrors(serverFieldErrors(e)) });
+    save.mutate(parsed.data, {
+      onSuccess: () => {
+        setSavedAt(Date.now());
+        rebase();
+      },
+      onError: (e) => setFieldErrors(serverFieldErrors(e)),
+    });
   };
 
   const field = (name: NumberField, label: string, hint?: string) => (
-    <QuantityField label={label} unit={unitLabel(kinds[name])} value={texts[name]} onChange={set(name)} error={fieldErrors[name]} hint={hint} />
+    <QuantityField
+      label={label}
+      unit={unitLabel(kinds[name])}
+      value={texts[name]}
+      onChange={set(name)}
+      error={fieldErrors[name]}
+      hint={hint}
+      required={!OPTIONAL_FIELDS.has(name)}
+    />
   );
   const message = formMessage(save.error);
   const wallIn = tubeBwg ? BWG_WALL_IN[Number(tubeBwg)] : undefined;
   const wallHint = wallIn === undefined ? undefined : `Wall ${system === 'us' ? `${wallIn.toFixed(3)} in` : `${inToMm(wallIn).toFixed(2)} mm`}`;
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-label="Condenser" className="flex flex-col gap-5">
+    <form ref={formRef} onSubmit={onSubmit} noValidate aria-label="Condenser" className="flex flex-col gap-5">
+      <UnsavedChangesGuard dirty={dirty && !save.isPending} />
+      <RequiredNote />
+      <FormProblems errors={fieldErrors} />
       <fieldset className="flex flex-col gap-3">
         <legend className="mb-2 text-sm font-semibold text-ink">Geometry</legend>
         <div className="grid gap-3 sm:grid-cols-3 lg:grid-cols-6">
@@ -116,7 +143,14 @@ function CondenserEditor({ organisationId, unitId, saved, units, system }: Omit<
           {field('passes', 'Passes')}
           {field('tubeCount', 'Tube count')}
           {field('tubeOdMm', 'Tube outside diameter')}
-          <SelectField label="Wall gauge (BWG)" value={tubeBwg} onChange={(e) => setTubeBwg(e.target.value)} error={fieldErrors.tubeBwg} hint={wallHint}>
+          <SelectField
+            required
+            label="Wall gauge (BWG)"
+            value={tubeBwg}
+            onChange={(e) => setTubeBwg(e.target.value)}
+            error={fieldErrors.tubeBwg}
+            hint={wallHint}
+          >
             <option value="">Choose…</option>
             {Object.keys(BWG_WALL_IN).map((g) => (
               <option key={g} value={g}>
@@ -124,7 +158,7 @@ function CondenserEditor({ organisationId, unitId, saved, units, system }: Omit<
               </option>
             ))}
           </SelectField>
-          <SelectField label="Tube material" value={tubeMaterial} onChange={(e) => setTubeMaterial(e.target.value)} error={fieldErrors.tubeMaterial}>
+          <SelectField required label="Tube material" value={tubeMaterial} onChange={(e) => setTubeMaterial(e.target.value)} error={fieldErrors.tubeMaterial}>
             <option value="">Choose…</option>
             {TUBE_MATERIALS.map((m) => (
               <option key={m} value={m}>

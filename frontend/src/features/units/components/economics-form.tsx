@@ -1,8 +1,12 @@
-import { useState, type FormEvent } from 'react';
+import { useRef, useState, type FormEvent } from 'react';
 import { CO2_KG_PER_MMBTU, type Fuel } from '@shared/domain/turbine/emission-factors';
 import { economicsSetup, FUELS, type EconomicsSetup } from '@shared/schemas/unit-setup';
 import { Button } from '@frontend/components/ui/button';
 import { Notice } from '@frontend/components/ui/notice';
+import { FormProblems, useFocusFirstProblem } from '@frontend/components/ui/form-problems';
+import { RequiredNote } from '@frontend/components/ui/required-mark';
+import { UnsavedChangesGuard } from '@frontend/components/ui/unsaved-changes';
+import { useDirty } from '@frontend/lib/use-dirty';
 import { QuantityField } from '@frontend/components/ui/quantity-field';
 import { SelectField } from '@frontend/components/ui/select-field';
 import { TextField } from '@frontend/components/ui/text-field';
@@ -47,6 +51,9 @@ function EconomicsEditor({ organisationId, unitId, saved, units }: Omit<Props, '
     return t;
   });
   const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
+  const formRef = useRef<HTMLFormElement>(null);
+  useFocusFirstProblem(formRef, fieldErrors);
+  const { dirty, rebase } = useDirty({ fuel, currency, texts });
   const [savedAt, setSavedAt] = useState<number | null>(null);
   const set = (f: Field) => (text: string) => setTexts((t) => ({ ...t, [f]: text }));
 
@@ -60,15 +67,24 @@ function EconomicsEditor({ organisationId, unitId, saved, units }: Omit<Props, '
     const parsed = economicsSetup.safeParse({ ...storedValues(texts, kinds), fuel: fuel || undefined, currency: currency.trim().toUpperCase() });
     if (!parsed.success) return setFieldErrors(zodFieldErrors(parsed.error));
     setFieldErrors({});
-    save.mutate(parsed.data, { onSuccess: () => setSavedAt(Date.now()), onError: (e) => setFieldErrors(serverFieldErrors(e)) });
+    save.mutate(parsed.data, {
+      onSuccess: () => {
+        setSavedAt(Date.now());
+        rebase();
+      },
+      onError: (e) => setFieldErrors(serverFieldErrors(e)),
+    });
   };
 
   const money = (label: string) => label.replace('$', currency.trim().toUpperCase() || '$');
   const message = formMessage(save.error);
   return (
-    <form onSubmit={onSubmit} noValidate aria-label="Economics" className="flex flex-col gap-4">
+    <form ref={formRef} onSubmit={onSubmit} noValidate aria-label="Economics" className="flex flex-col gap-4">
+      <UnsavedChangesGuard dirty={dirty && !save.isPending} />
+      <RequiredNote />
+      <FormProblems errors={fieldErrors} />
       <div className="grid gap-3 sm:grid-cols-3">
-        <SelectField label="Fuel" value={fuel} onChange={(e) => chooseFuel(e.target.value)} error={fieldErrors.fuel}>
+        <SelectField required label="Fuel" value={fuel} onChange={(e) => chooseFuel(e.target.value)} error={fieldErrors.fuel}>
           <option value="">Choose…</option>
           {FUELS.map((f) => (
             <option key={f} value={f}>
@@ -77,6 +93,7 @@ function EconomicsEditor({ organisationId, unitId, saved, units }: Omit<Props, '
           ))}
         </SelectField>
         <QuantityField
+          required
           label="CO2 factor"
           unit={units.co2KgPerMmbtu.label}
           value={texts.co2KgPerMmbtu}
@@ -85,6 +102,7 @@ function EconomicsEditor({ organisationId, unitId, saved, units }: Omit<Props, '
           hint={`Filled in from the fuel. ${CO2_FACTOR_NOTE}`}
         />
         <TextField
+          required
           label="Currency"
           value={currency}
           maxLength={3}
@@ -95,6 +113,7 @@ function EconomicsEditor({ organisationId, unitId, saved, units }: Omit<Props, '
       </div>
       <div className="grid gap-3 sm:grid-cols-3">
         <QuantityField
+          required
           label="Fuel price"
           unit={money(units.fuelPricePerMmbtu.label)}
           value={texts.fuelPricePerMmbtu}
@@ -102,6 +121,7 @@ function EconomicsEditor({ organisationId, unitId, saved, units }: Omit<Props, '
           error={fieldErrors.fuelPricePerMmbtu}
         />
         <QuantityField
+          required
           label="Replacement power price"
           unit={money('$/MWh')}
           value={texts.replacementPricePerMwh}
@@ -110,6 +130,7 @@ function EconomicsEditor({ organisationId, unitId, saved, units }: Omit<Props, '
           hint="What lost output costs when it must be bought or made elsewhere"
         />
         <QuantityField
+          required
           label="Capacity-limited share of hours"
           unit="%"
           value={texts.capacityLimitedShare}
@@ -118,13 +139,21 @@ function EconomicsEditor({ organisationId, unitId, saved, units }: Omit<Props, '
           hint="Hours when backpressure limits the output the unit could sell"
         />
         <QuantityField
+          required
           label="CO2 price"
           unit={money('$/t')}
           value={texts.co2PricePerTonne}
           onChange={set('co2PricePerTonne')}
           error={fieldErrors.co2PricePerTonne}
         />
-        <QuantityField label="Discount rate" unit="% a year" value={texts.discountRate} onChange={set('discountRate')} error={fieldErrors.discountRate} />
+        <QuantityField
+          required
+          label="Discount rate"
+          unit="% a year"
+          value={texts.discountRate}
+          onChange={set('discountRate')}
+          error={fieldErrors.discountRate}
+        />
       </div>
       {message && <Notice tone="fault">{message}</Notice>}
       {savedAt && !save.isPending && !save.isError && <Notice tone="ok">Economics saved. The unit’s derived data is being recomputed.</Notice>}

@@ -1,8 +1,12 @@
-import { useState, type FormEvent } from 'react';
+import { useRef, useState, type FormEvent } from 'react';
 import { turbineSetup, type TurbineSetup } from '@shared/schemas/unit-setup';
 import { Button } from '@frontend/components/ui/button';
 import { DataTable, td, th, tr } from '@frontend/components/ui/data-table';
 import { Notice } from '@frontend/components/ui/notice';
+import { FormProblems, useFocusFirstProblem } from '@frontend/components/ui/form-problems';
+import { RequiredNote } from '@frontend/components/ui/required-mark';
+import { UnsavedChangesGuard } from '@frontend/components/ui/unsaved-changes';
+import { useDirty } from '@frontend/lib/use-dirty';
 import { QuantityField } from '@frontend/components/ui/quantity-field';
 import { parseNumberText, type FieldUnits } from '@frontend/lib/field-units';
 import { formMessage, serverFieldErrors, zodFieldErrorsByRow, type FieldErrors } from '@frontend/lib/form-errors';
@@ -46,6 +50,9 @@ function TurbineEditor({ organisationId, unitId, saved, units }: Omit<Props, 'ca
   );
   const [curve, setCurve] = useState<CurveDraft>(() => draftFromCurve(saved?.correctionCurve ?? null, units.pressureKpa));
   const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
+  const formRef = useRef<HTMLFormElement>(null);
+  useFocusFirstProblem(formRef, fieldErrors);
+  const { dirty, rebase } = useDirty({ rating, heatRate, minimumLoad, duty, curve });
   const [savedAt, setSavedAt] = useState<number | null>(null);
 
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
@@ -75,15 +82,25 @@ function TurbineEditor({ organisationId, unitId, saved, units }: Omit<Props, 'ca
       return setFieldErrors(errors);
     }
     setFieldErrors({});
-    save.mutate(parsed.data, { onSuccess: () => setSavedAt(Date.now()), onError: (e) => setFieldErrors(serverFieldErrors(e)) });
+    save.mutate(parsed.data, {
+      onSuccess: () => {
+        setSavedAt(Date.now());
+        rebase();
+      },
+      onError: (e) => setFieldErrors(serverFieldErrors(e)),
+    });
   };
 
   const message = formMessage(save.error);
   return (
-    <form onSubmit={onSubmit} noValidate aria-label="Turbine" className="flex flex-col gap-5">
+    <form ref={formRef} onSubmit={onSubmit} noValidate aria-label="Turbine" className="flex flex-col gap-5">
+      <UnsavedChangesGuard dirty={dirty && !save.isPending} />
+      <RequiredNote />
+      <FormProblems errors={fieldErrors} />
       <div className="grid gap-3 sm:grid-cols-3">
-        <QuantityField label="Rating" unit={units.powerMw.label} value={rating} onChange={setRating} error={fieldErrors.ratingMw} />
+        <QuantityField required label="Rating" unit={units.powerMw.label} value={rating} onChange={setRating} error={fieldErrors.ratingMw} />
         <QuantityField
+          required
           label="Design heat rate"
           unit={units.heatRateBtuKwh.label}
           value={heatRate}
@@ -91,6 +108,7 @@ function TurbineEditor({ organisationId, unitId, saved, units }: Omit<Props, 'ca
           error={fieldErrors.designHeatRateBtuKwh}
         />
         <QuantityField
+          required
           label="Minimum load for a valid point"
           unit="% of rating"
           value={minimumLoad}
