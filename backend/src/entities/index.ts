@@ -62,4 +62,5 @@ export const ENTITIES = [
   OutageUnit,
   OutageItem,
   OutageScope,
+  BillingWebhookEvent,
 ];

@@ -11,6 +11,7 @@ import { CleaningCases1796200402325 } from './1796200402325-cleaning-cases.js';
 import { CaseDecisionGuards1796210000000 } from './1796210000000-case-decision-guards.js';
 import { CaseDecisionGuardsBackfill1796210000001 } from './1796210000001-case-decision-guards-backfill.js';
 import { Outages1796220000000 } from './1796220000000-outages.js';
+import { Subscriptions1796230000000 } from './1796230000000-subscriptions.js';
 import { UnitDataVersion1796250000000 } from './1796250000000-unit-data-version.js';
 import { HistorianShapes1796260000000 } from './1796260000000-historian-shapes.js';
 
@@ -27,6 +28,7 @@ export const MIGRATIONS = [
   CaseDecisionGuards1796210000000,
   CaseDecisionGuardsBackfill1796210000001,
   Outages1796220000000,
+  Subscriptions1796230000000,
   UnitDataVersion1796250000000,
   HistorianShapes1796260000000,
 ];
