@@ -151,6 +151,18 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
       <ChartFrame
         testId="chart-backpressure"
         points={health.series.length}
+        table={{
+          caption: `Backpressure by day: the daily mean, what a condenser at the reference cleanliness would hold, and the difference (${p.label})`,
+          columns: ['Day', 'Actual', 'Expected at reference', 'Actual above expected'],
+          rows: health.series.map((d) => [
+            formatDay(d.day),
+            d.backpressureKpa === null ? '—' : formatNumber(p.fromSi(d.backpressureKpa), p.decimals),
+            d.expectedBackpressureKpa === null ? '—' : formatNumber(p.fromSi(d.expectedBackpressureKpa), p.decimals),
+            d.backpressureKpa === null || d.expectedBackpressureKpa === null
+              ? '—'
+              : formatNumber(p.fromSi(d.backpressureKpa) - p.fromSi(d.expectedBackpressureKpa), p.decimals),
+          ]),
+        }}
         title="Backpressure above what a clean condenser would hold"
         subtitle={`Daily means. The line is what the condenser would hold at the reference cleanliness${ref === null ? '' : ` (${formatNumber(ref * 100, 0)} %)`} with the same CW and load; the shading is how far the actual backpressure sits above it (fouling and any unexplained part) or below it.`}
         legend={[
@@ -241,6 +253,13 @@ function CostChart({
     <ChartFrame
       testId="chart-cost"
       points={health.series.length}
+      table={{
+        caption: `Fouling cost by day and its running total since the cycle began (${currency})`,
+        columns: ['Day', 'Cycle from', 'Fouling cost that day', 'Running total in the cycle'],
+        rows: cycles.flatMap((c) =>
+          c.running.map((r, i) => [formatDay(r.day), formatDay(c.from), money(i === 0 ? r.y : r.y - (c.running[i - 1]?.y ?? 0)), money(r.y)]),
+        ),
+      }}
       title="Fouling cost, cleaning cycle by cycle"
       subtitle="Extra fuel and replacement power because the tubes are dirtier than the reference. The running cost starts again at each cleaning; each cycle is labelled with what it cost in this period."
       legend={[{ label: `Fouling cost since the last cleaning (${currency})`, colour: CHART_COLOURS.cost, mark: 'line' }, ...common]}
