@@ -20,6 +20,8 @@ import { healthQueryOptions } from '@frontend/features/health/api/get-health';
 import { healthQueryFor } from '@frontend/features/health/components/health-period';
 import { eventsQueryOptions } from '@frontend/features/events/api/get-events';
 import { caseQueryOptions } from '@frontend/features/cases/api/get-case';
+import { outageQueryOptions } from '@frontend/features/outages/api/get-outage';
+import { outagesQueryOptions } from '@frontend/features/outages/api/get-outages';
 import { unitImportsQueryOptions } from '@frontend/features/imports/api/get-imports';
 import { signInReturningTo } from '@frontend/lib/safe-next';
 import { appQueryClient } from './app-query-client';
@@ -150,6 +152,20 @@ const router = createBrowserRouter([
     },
   },
   {
+    path: '/outages/:outageId/print',
+    handle: { title: 'Outage for printing' },
+    lazy: page(
+      () => import('./routes/outage-print'),
+      (m) => m.OutagePrintPage,
+    ),
+    errorElement: <RouteErrorPage />,
+    hydrateFallbackElement: <FirstLoad />,
+    loader: async (args) => {
+      await requireSignedIn(args);
+      return tenantLoader('data.read', (org, { params }) => [prefetch(outageQueryOptions(org, params.outageId ?? ''))])(args);
+    },
+  },
+  {
     path: '/mailbox',
     handle: { title: 'Local mailbox' },
     lazy: page(
@@ -195,6 +211,24 @@ const router = createBrowserRouter([
           (m) => m.CasePage,
         ),
         loader: tenantLoader('data.read', (org, { params }) => [prefetch(caseQueryOptions(org, params.caseId ?? ''))]),
+      },
+      {
+        path: 'outages',
+        handle: { title: 'Outages' },
+        lazy: page(
+          () => import('./routes/outages'),
+          (m) => m.OutagesPage,
+        ),
+        loader: tenantLoader('data.read', (org) => [prefetch(outagesQueryOptions(org)), prefetch(plantsQueryOptions(org))]),
+      },
+      {
+        path: 'outages/:outageId',
+        handle: { title: 'Outage' },
+        lazy: page(
+          () => import('./routes/outage'),
+          (m) => m.OutagePage,
+        ),
+        loader: tenantLoader('data.read', (org, { params }) => [prefetch(outageQueryOptions(org, params.outageId ?? ''))]),
       },
       {
         path: 'plants',

@@ -31,6 +31,9 @@ export function AppLayout() {
             <NavLink to="/cases" className={navClass}>
               Cases
             </NavLink>
+            <NavLink to="/outages" className={navClass}>
+              Outages
+            </NavLink>
             <NavLink to="/settings" className={navClass}>
               Settings
             </NavLink>
