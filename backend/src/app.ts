@@ -30,6 +30,7 @@ import { importRoutes } from './routes/import.routes.js';
 import { plantRoutes } from './routes/plant.routes.js';
 import { unitRoutes } from './routes/unit.routes.js';
 import { unitHealthRoutes } from './routes/unit-health.routes.js';
+import { portfolioRoutes } from './routes/portfolio.routes.js';
 import { invitationRoutes } from './routes/invitation.routes.js';
 import { memberRoutes } from './routes/member.routes.js';
 import { openApiRoutes } from './routes/openapi.routes.js';
@@ -110,6 +111,7 @@ export function createApp(deps: AppDeps): CleancaseApp {
     ...cleaningMethodRoutes(dataSource),
     ...unitRoutes(dataSource),
     ...unitHealthRoutes(dataSource),
+    ...portfolioRoutes(dataSource),
     ...caseRoutes(dataSource, config),
     ...importRoutes(dataSource, config),
     ...calcRoutes(),

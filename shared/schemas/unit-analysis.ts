@@ -119,6 +119,23 @@ export const storedForecast = z
   .strict();
 export type StoredForecast = z.infer<typeof storedForecast>;
 
+/** The unit's figures now (the health view's headline), drawn by the recompute for the portfolio. */
+export const storedCurrentFigures = z
+  .object({
+    /** the last day with valid data */
+    asOf: isoDate,
+    cleanliness: z.number().nullable(),
+    /** means of the last 7 days with valid data */
+    excessBackpressureKpa: z.number().nullable(),
+    foulingCostPerDay: z.number().nullable(),
+    foulingCostSinceCleaning: z.number(),
+    lastCleaningDate: isoDate.nullable(),
+    /** of those 7 days, how many the air in-leakage verdicts flagged */
+    airLeakSuspectedDaysInLastWeek: z.number().int(),
+  })
+  .strict();
+export type StoredCurrentFigures = z.infer<typeof storedCurrentFigures>;
+
 export const storedUnitAnalysis = z
   .object({
     computedAt: z.iso.datetime(),
@@ -129,6 +146,8 @@ export const storedUnitAnalysis = z
     outlook: cleaningOutlook.nullable(),
     /** added later: an analysis stored before it reads without it (the view then draws the forecast itself) */
     forecast: storedForecast.nullable().optional(),
+    /** added later, as the forecast */
+    current: storedCurrentFigures.nullable().optional(),
   })
   .strict();
 export type StoredUnitAnalysis = z.infer<typeof storedUnitAnalysis>;

@@ -210,6 +210,7 @@ const MATRIX: Record<string, Entry> = {
   'GET /api/organisation/historian-status-words': { expect: members(200) },
   'PUT /api/organisation/historian-status-words': { body: () => ({ words: ['Scan Off'] }), expect: adminsOnly(200) },
   'GET /api/units/:id/health': { path: (fx) => `/api/units/${fx.unit.id}/health`, expect: readers(200) },
+  'GET /api/portfolio': { expect: members(200) },
   'GET /api/units/:id/samples': { path: (fx) => `/api/units/${fx.unit.id}/samples?from=2026-01-01&to=2026-01-31`, expect: readers(200) },
   'GET /api/units/:id/export': { path: (fx) => `/api/units/${fx.unit.id}/export?dataset=daily&format=csv`, expect: readers(200) },
   'GET /api/units/:id/imports': { path: (fx) => `/api/units/${fx.unit.id}/imports`, expect: readers(200) },

@@ -13,6 +13,7 @@ import { countSamplesOfUnit } from '../../repositories/sample.repository.js';
 import { judgeAirLeaks } from './air-leak-verdicts.js';
 import { rebuildDailyAggregates } from './daily-aggregates.js';
 import { measureDailyCleanliness, witnessMedians } from './daily-witnesses.js';
+import { currentFigures } from './current-figures.js';
 import { forecastBand } from './forecast-band.js';
 import { cycleSummary, fitCycles, trendCleanlinessOn, type CycleTrend } from './fouling-cycles.js';
 import { readValidSamples } from './read-valid-samples.js';
@@ -76,7 +77,17 @@ export async function recomputeUnit(ds: DataSource, unitId: string, onProgress: 
     plannedOutages: ctx.plannedOutages,
   });
   // The forecast band is drawn from the stored daily figures exactly as the health view would draw it.
-  const forecast = forecastBand(await dailyFiguresOfUnit(ds.manager, unitId), cycles.map(cycleSummary).at(-1));
-  await storeUnitAnalysis(ds, unitId, unitAnalysis({ setupVersion: unit.setupVersion, lastDay, cycles, airLeakPeriods: airLeaks.periods, outlook, forecast }));
+  // So are the figures now that the portfolio lists.
+  const days = await dailyFiguresOfUnit(ds.manager, unitId);
+  const forecast = forecastBand(days, cycles.map(cycleSummary).at(-1));
+  const current = currentFigures(
+    days,
+    ctx.events.filter((e) => e.kind === 'cleaning'),
+  );
+  await storeUnitAnalysis(
+    ds,
+    unitId,
+    unitAnalysis({ setupVersion: unit.setupVersion, lastDay, cycles, airLeakPeriods: airLeaks.periods, outlook, forecast, current }),
+  );
   return { samples: total, days: dayCount, cycles };
 }

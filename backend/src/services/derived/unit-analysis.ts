@@ -4,7 +4,7 @@
  */
 import type { DataSource } from 'typeorm';
 import type { AirLeakPeriod, UnitModel, UnitSetupSi } from '@shared/domain/monitoring/index.js';
-import type { StoredForecast } from '@shared/schemas/unit-analysis.js';
+import type { StoredCurrentFigures, StoredForecast } from '@shared/schemas/unit-analysis.js';
 import { operatingDaysOfUnit } from '../../repositories/daily-aggregate.repository.js';
 import { methodsOf } from '../cleaning-method.service.js';
 import { cleaningOutlook, type CleaningOutlook } from './cleaning-outlook.js';
@@ -50,6 +50,8 @@ export interface UnitAnalysis {
   outlook: CleaningOutlook | null;
   /** the latest cycle's forecast band, drawn from the stored daily figures (forecast-band.ts) */
   forecast: StoredForecast | null;
+  /** the unit's figures now, for the portfolio (current-figures.ts) */
+  current: StoredCurrentFigures | null;
 }
 
 export function unitAnalysis(
@@ -60,6 +62,7 @@ export function unitAnalysis(
     airLeakPeriods: AirLeakPeriod[];
     outlook: CleaningOutlook | null;
     forecast?: StoredForecast | null;
+    current?: StoredCurrentFigures | null;
   },
   now = new Date(),
 ): UnitAnalysis {
@@ -71,6 +74,7 @@ export function unitAnalysis(
     airLeakPeriods: input.airLeakPeriods,
     outlook: input.outlook,
     forecast: input.forecast ?? null,
+    current: input.current ?? null,
   };
 }
 

@@ -1,0 +1,146 @@
+/**
+ * The portfolio's reads: one statement each for the units in scope (with the parts of their setup and stored
+ * analysis the portfolio shows), their open cases and their coming outages, whatever the number of units.
+ */
+import type { EntityManager } from 'typeorm';
+import type { CaseStatus } from '@shared/schemas/cases.js';
+import { CleaningCase } from '../entities/cleaning-case.entity.js';
+import { ClientGroup } from '../entities/client-group.entity.js';
+import { GeneratingUnit } from '../entities/generating-unit.entity.js';
+import { Plant } from '../entities/plant.entity.js';
+import type { TenantScope } from '../policies/tenant-scope.js';
+import { restrictPlantsToScope } from './scope-filter.js';
+
+/** A day column as 'YYYY-MM-DD' whether the driver hands back text or a Date. */
+export const dayText = (d: unknown): string => (typeof d === 'string' ? d.slice(0, 10) : (d as Date).toISOString().slice(0, 10));
+/** A JSON value as MariaDB hands it back (text), parsed; null for SQL NULL. */
+const json = (v: unknown): unknown => (v === null || v === undefined ? null : typeof v === 'string' ? JSON.parse(v) : v);
+
+export interface PortfolioUnitRow {
+  unitId: string;
+  unitName: string;
+  plantId: string;
+  plantName: string;
+  timeZone: string;
+  clientGroupId: string | null;
+  clientGroupName: string | null;
+  setupComplete: boolean;
+  analysed: boolean;
+  /** the parts of the setup and the stored analysis read, each as parsed JSON (unknown: the caller checks them) */
+  currency: unknown;
+  referenceCleanliness: unknown;
+  designCleanliness: unknown;
+  current: unknown;
+  outlook: unknown;
+}
+
+/** Every unit in scope, by client group, plant and unit name. */
+export async function portfolioUnitsInScope(em: EntityManager, scope: TenantScope): Promise<PortfolioUnitRow[]> {
+  const qb = em
+    .getRepository(GeneratingUnit)
+    .createQueryBuilder('u')
+    .innerJoin(Plant, 'p', 'p.id = u.plantId')
+    .leftJoin(ClientGroup, 'g', 'g.id = p.clientGroupId AND g.organisationId = p.organisationId')
+    .select('u.id', 'unitId')
+    .addSelect('u.name', 'unitName')
+    .addSelect('p.id', 'plantId')
+    .addSelect('p.name', 'plantName')
+    .addSelect('p.timeZone', 'timeZone')
+    .addSelect('g.id', 'clientGroupId')
+    .addSelect('g.name', 'clientGroupName')
+    .addSelect('(u.condenser IS NOT NULL AND u.turbine IS NOT NULL AND u.economics IS NOT NULL)', 'setupComplete')
+    .addSelect('(u.analysis IS NOT NULL)', 'analysed')
+    // the parts of the setup and the stored analysis read, as one JSON object (the outlook without its plan's
+    // later dates and options: its status, reason, first cleaning and saving)
+    .addSelect(
+      `JSON_OBJECT(
+        'currency', JSON_EXTRACT(u.economics, '$.currency'),
+        'referenceCleanliness', JSON_EXTRACT(u.condenser, '$.referenceCleanliness'),
+        'designCleanliness', JSON_EXTRACT(u.condenser, '$.designCleanliness'),
+        'current', JSON_EXTRACT(u.analysis, '$.current'),
+        'outlook', JSON_OBJECT(
+          'status', JSON_EXTRACT(u.analysis, '$.outlook.status'),
+          'reason', JSON_EXTRACT(u.analysis, '$.outlook.reason'),
+          'next', JSON_EXTRACT(u.analysis, '$.outlook.next'),
+          'firstDuring', JSON_EXTRACT(u.analysis, '$.outlook.plan[0].unitDuringCleaning'),
+          'saving', JSON_EXTRACT(u.analysis, '$.outlook.savingsVersusNoCleaning')))`,
+      'parts',
+    );
+  const rows: Record<string, unknown>[] = await restrictPlantsToScope(qb, 'p', scope)
+    .orderBy('g.name', 'ASC')
+    .addOrderBy('p.name', 'ASC')
+    .addOrderBy('u.name', 'ASC')
+    .getRawMany();
+  return rows.map((r) => {
+    const parts = (json(r.parts) ?? {}) as Record<string, unknown>;
+    return {
+      unitId: String(r.unitId),
+      unitName: String(r.unitName),
+      plantId: String(r.plantId),
+      plantName: String(r.plantName),
+      timeZone: String(r.timeZone),
+      clientGroupId: (r.clientGroupId as string | null) ?? null,
+      clientGroupName: (r.clientGroupName as string | null) ?? null,
+      setupComplete: Number(r.setupComplete) === 1,
+      analysed: Number(r.analysed) === 1,
+      currency: parts.currency ?? null,
+      referenceCleanliness: parts.referenceCleanliness ?? null,
+      designCleanliness: parts.designCleanliness ?? null,
+      current: parts.current ?? null,
+      outlook: parts.outlook ?? null,
+    };
+  });
+}
+
+export interface PortfolioCaseRow {
+  id: string;
+  unitId: string;
+  title: string;
+  status: CaseStatus;
+}
+
+/** Cases not archived on the units in scope (viewers: approved ones only), latest change first. */
+export async function openCasesInScope(em: EntityManager, scope: TenantScope): Promise<PortfolioCaseRow[]> {
+  const qb = em
+    .getRepository(CleaningCase)
+    .createQueryBuilder('c')
+    .innerJoin(GeneratingUnit, 'u', 'u.id = c.unitId')
+    .innerJoin(Plant, 'p', 'p.id = u.plantId')
+    .select(['c.id AS id', 'c.unitId AS unitId', 'c.title AS title', 'c.status AS status'])
+    .where('c.organisationId = :caseOrg', { caseOrg: scope.organisationId })
+    .andWhere("c.status <> 'archived'");
+  if (scope.role === 'viewer') qb.andWhere("c.status = 'approved'");
+  return restrictPlantsToScope(qb, 'p', scope).orderBy('c.updatedAt', 'DESC').addOrderBy('c.id', 'ASC').getRawMany();
+}
+
+export interface PortfolioOutageRow {
+  id: string;
+  unitId: string;
+  name: string;
+  startDate: string;
+  endDate: string;
+}
+
+/**
+ * Outages of the tenant that take a unit in scope off line and end on or after `fromDay` (the earliest of the
+ * plants' todays; the caller keeps those not ended by each plant's own today), by start date.
+ */
+export async function comingOutagesInScope(em: EntityManager, scope: TenantScope, fromDay: string): Promise<PortfolioOutageRow[]> {
+  const qb = em
+    .createQueryBuilder()
+    .select(['o.id AS id', 'ou.unitId AS unitId', 'o.name AS name', 'o.startDate AS startDate', 'o.endDate AS endDate'])
+    .from('outage', 'o')
+    .innerJoin('outage_unit', 'ou', 'ou.outageId = o.id')
+    .innerJoin(GeneratingUnit, 'u', 'u.id = ou.unitId')
+    .innerJoin(Plant, 'p', 'p.id = u.plantId')
+    .where('o.organisationId = :outageOrg', { outageOrg: scope.organisationId })
+    .andWhere('o.endDate >= :fromDay', { fromDay });
+  const rows: Record<string, unknown>[] = await restrictPlantsToScope(qb, 'p', scope).orderBy('o.startDate', 'ASC').addOrderBy('o.id', 'ASC').getRawMany();
+  return rows.map((r) => ({
+    id: String(r.id),
+    unitId: String(r.unitId),
+    name: String(r.name),
+    startDate: dayText(r.startDate),
+    endDate: dayText(r.endDate),
+  }));
+}
