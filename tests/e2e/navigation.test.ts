@@ -176,7 +176,28 @@ describe('finding one’s way: plant page, one data tab, page names, form proble
     await page.getByRole('heading', { name: 'Local mailbox' }).waitFor();
   });
 
-  it('the cleanliness and breakdown charts open as tables from the keyboard, one row per day or month drawn', async () => {
+  it('the person’s menu is worked with the arrow keys: down opens it at its first entry, up and down move, Escape closes', async () => {
+    await page.goto(`${server.url}/`);
+    const button = page.getByRole('banner').getByRole('button', { name: 'Priya Ramanathan' });
+    await button.focus();
+    await page.keyboard.press('ArrowDown');
+    await page.getByRole('link', { name: 'Your profile' }).waitFor();
+    const focused = () => page.evaluate(() => document.activeElement?.textContent?.trim());
+    await expect.poll(focused).toBe('Your profile');
+    await page.keyboard.press('ArrowDown');
+    expect(await focused()).toBe('Local mailbox');
+    await page.keyboard.press('End');
+    expect(await focused()).toBe('Sign out');
+    await page.keyboard.press('ArrowDown');
+    expect(await focused()).toBe('Your profile');
+    await page.keyboard.press('ArrowUp');
+    expect(await focused()).toBe('Sign out');
+    await page.keyboard.press('Escape');
+    expect(await page.getByRole('link', { name: 'Your profile' }).count()).toBe(0);
+    expect(await focused()).toBe('Priya Ramanathan▾');
+  });
+
+  it('every chart of the unit opens as a table from the keyboard, one row per day or month drawn', async () => {
     await page.goto(`${server.url}/units/${unitId}`);
     const chart = page.getByTestId('chart-cleanliness');
     await chart.waitFor();
@@ -193,6 +214,13 @@ describe('finding one’s way: plant page, one data tab, page names, form proble
     const breakdown = page.getByTestId('chart-breakdown');
     await breakdown.getByRole('button', { name: 'Show as a table' }).click();
     expect(await breakdown.getByTestId('chart-table').locator('tbody tr').count()).toBe(Number(await breakdown.getAttribute('data-points')));
+    // the backpressure and fouling-cost charts: one row per day drawn
+    for (const id of ['chart-backpressure', 'chart-cost']) {
+      const other = page.getByTestId(id);
+      await other.getByRole('button', { name: 'Show as a table' }).click();
+      expect(await other.getByTestId('chart-table').locator('tbody tr').count(), id).toBe(Number(await other.getAttribute('data-points')));
+    }
+    expect(await page.getByTestId('chart-cost').getByTestId('chart-table').locator('tbody tr').first().textContent()).toMatch(/\$[\d,]+/);
     await page.screenshot({ path: '/tmp/nav-chart-table-1280.png', fullPage: true });
   });
 
@@ -211,5 +239,15 @@ describe('finding one’s way: plant page, one data tab, page names, form proble
     await tablet.getByRole('button', { name: 'New plant' }).waitFor();
     await tablet.screenshot({ path: '/tmp/nav-plants-800.png', fullPage: true });
     expect(await tablet.getByRole('navigation', { name: 'Main' }).isVisible()).toBe(true);
+    // the members table fits a tablet without scrolling sideways
+    await tablet.goto(`${server.url}/settings/members`);
+    const members = tablet.getByRole('table').first();
+    await members
+      .getByRole('button', { name: /^Change access of / })
+      .first()
+      .waitFor();
+    const fits = await members.evaluate((table) => table.parentElement!.scrollWidth <= table.parentElement!.clientWidth + 1);
+    await tablet.screenshot({ path: '/tmp/nav-members-800.png', fullPage: true });
+    expect(fits).toBe(true);
   });
 });

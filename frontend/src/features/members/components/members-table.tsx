@@ -40,8 +40,7 @@ export function MembersTable({
       <DataTable
         head={
           <>
-            <th className={th}>Name</th>
-            <th className={th}>E-mail</th>
+            <th className={th}>Member</th>
             <th className={th}>Role</th>
             <th className={th}>Plants</th>
             <th className={th}>Joined</th>
@@ -64,15 +63,17 @@ export function MembersTable({
           ) : (
             <tr key={m.membershipId} className={tr}>
               <td className={td}>
-                {m.name}
-                {m.userId === currentUserId && <span className="ml-1 text-xs text-ink-faint">(you)</span>}
+                <p>
+                  {m.name}
+                  {m.userId === currentUserId && <span className="ml-1 text-xs text-ink-faint">(you)</span>}
+                </p>
+                <p className="break-all text-xs text-ink-soft">{m.email}</p>
               </td>
-              <td className={td}>{m.email}</td>
               <td className={td}>{ROLE_LABELS[m.role]}</td>
               <td className={`${td} ${m.clientGroupIds === null ? 'text-ink-soft' : ''}`}>{describeGroupLimit(m.clientGroupIds, groups)}</td>
               <td className={`${td} whitespace-nowrap`}>{formatDate(m.joinedAt)}</td>
               <td className={`${td} text-right`}>
-                <div className="flex items-start justify-end gap-2">
+                <div className="flex flex-col items-end gap-1 lg:flex-row lg:items-start lg:justify-end lg:gap-2">
                   <Button variant="quiet" onClick={() => setEditing(m.membershipId)} aria-label={`Change access of ${m.name}`}>
                     Change access
                   </Button>
@@ -122,9 +123,9 @@ function MemberEditor({
 
   return (
     <tr className="border-b border-rule bg-tube-50/40 last:border-0">
-      <td className={td} colSpan={2}>
+      <td className={td}>
         <p className="font-medium">{member.name}</p>
-        <p className="text-ink-soft">{member.email}</p>
+        <p className="break-all text-xs text-ink-soft">{member.email}</p>
       </td>
       <td className={td}>
         <SelectField label="Role" value={role} onChange={(e) => setRole(e.target.value as Role)} error={errors.role}>
