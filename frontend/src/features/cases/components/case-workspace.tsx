@@ -4,6 +4,7 @@ import type { CalcScheduleInput, CalcScheduleOutput } from '@shared/schemas/calc
 import type { CaseView } from '@shared/schemas/cases';
 import { Button } from '@frontend/components/ui/button';
 import { Notice } from '@frontend/components/ui/notice';
+import { UnsavedChangesGuard } from '@frontend/components/ui/unsaved-changes';
 import type { UnitSystem } from '@frontend/lib/field-units';
 import { formatNumber } from '@frontend/lib/format';
 import { useUpdateCase } from '../api/update-case';
@@ -45,6 +46,7 @@ export function CaseWorkspace({ organisationId, view, system, me, narrow }: Prop
   };
   return (
     <div className="flex flex-col gap-4">
+      <UnsavedChangesGuard dirty={draft !== null && !update.isPending} />
       <ApprovalBar organisationId={organisationId} view={view} me={me} unsaved={draft !== null} />
       {draft && (
         <div

@@ -1,5 +1,9 @@
-import { useId, useState, type FormEvent } from 'react';
+import { useId, useRef, useState, type FormEvent } from 'react';
 import { CAUTION_KEYS, CAUTION_TEXT, cleaningMethodSchema, UNIT_DURING_CLEANING, type CautionKey, type CleaningMethod } from '@shared/schemas/cleaning-method';
+import { FormProblems, useFocusFirstProblem } from '@frontend/components/ui/form-problems';
+import { RequiredNote } from '@frontend/components/ui/required-mark';
+import { UnsavedChangesGuard } from '@frontend/components/ui/unsaved-changes';
+import { useDirty } from '@frontend/lib/use-dirty';
 import { FormActions } from '@frontend/components/ui/form-actions';
 import { Notice } from '@frontend/components/ui/notice';
 import { QuantityField } from '@frontend/components/ui/quantity-field';
@@ -53,6 +57,9 @@ export function CleaningMethodForm({ organisationId, method, takenKeys = [], onD
   const [typical, setTypical] = useState(false);
   const [note, setNote] = useState(method?.note ?? '');
   const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
+  const formRef = useRef<HTMLFormElement>(null);
+  useFocusFirstProblem(formRef, fieldErrors);
+  const { dirty } = useDirty({ name, fixedCost, costPerTube, durationDays, during, deratePct, recovered, multiplier, cautions, typical, note });
   const [added, setAdded] = useState(false);
   const fieldId = useId();
   const newKey = methodKeyFrom(name.trim(), takenKeys);
@@ -103,16 +110,20 @@ export function CleaningMethodForm({ organisationId, method, takenKeys = [], onD
   const message = formMessage(mutation.error);
   return (
     <form
+      ref={formRef}
       onSubmit={onSubmit}
       noValidate
       aria-label={method ? `Change ${method.name}` : 'Add a cleaning method'}
       className="flex flex-col gap-3 rounded border border-rule bg-paper-raised p-4"
       onKeyDown={(e) => method && e.key === 'Escape' && onDone?.()}
     >
+      <UnsavedChangesGuard dirty={dirty && !mutation.isPending && !mutation.isSuccess} />
       {!method && <h2>Add a cleaning method</h2>}
+      <RequiredNote />
+      <FormProblems errors={fieldErrors} />
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
         <div className="sm:col-span-1 lg:col-span-3">
-          <TextField label="Name" value={name} onChange={(e) => setName(e.target.value)} maxLength={120} error={fieldErrors.name} />
+          <TextField required label="Name" value={name} onChange={(e) => setName(e.target.value)} maxLength={120} error={fieldErrors.name} />
         </div>
         <div className="flex flex-col gap-1" data-testid="method-key">
           <span className="text-sm font-medium text-ink">Key</span>
@@ -122,6 +133,7 @@ export function CleaningMethodForm({ organisationId, method, takenKeys = [], onD
           </span>
         </div>
         <QuantityField
+          required
           label="Fixed cost"
           unit="per cleaning"
           value={fixedCost}
@@ -130,6 +142,7 @@ export function CleaningMethodForm({ organisationId, method, takenKeys = [], onD
           hint="In the plant’s currency"
         />
         <QuantityField
+          required
           label="Cost per tube"
           unit="per tube"
           value={costPerTube}
@@ -137,8 +150,9 @@ export function CleaningMethodForm({ organisationId, method, takenKeys = [], onD
           error={fieldErrors.costPerTube}
           hint="Per active tube cleaned"
         />
-        <QuantityField label="Duration" unit="days" value={durationDays} onChange={setDurationDays} error={fieldErrors.durationDays} />
+        <QuantityField required label="Duration" unit="days" value={durationDays} onChange={setDurationDays} error={fieldErrors.durationDays} />
         <SelectField
+          required
           label="Unit during cleaning"
           value={during}
           onChange={(e) => setDuring(e.target.value as UnitDuringCleaning)}
@@ -152,6 +166,7 @@ export function CleaningMethodForm({ organisationId, method, takenKeys = [], onD
         </SelectField>
         {during === 'derate' && (
           <QuantityField
+            required
             label="Derate"
             unit="% of rating"
             value={deratePct}
@@ -161,6 +176,7 @@ export function CleaningMethodForm({ organisationId, method, takenKeys = [], onD
           />
         )}
         <QuantityField
+          required
           label="Cleanliness recovered"
           unit="%"
           value={recovered}
@@ -169,6 +185,7 @@ export function CleaningMethodForm({ organisationId, method, takenKeys = [], onD
           hint="Cleanliness factor right after"
         />
         <QuantityField
+          required
           label="Fouling-rate multiplier"
           value={multiplier}
           onChange={setMultiplier}
