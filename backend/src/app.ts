@@ -34,6 +34,7 @@ import { portfolioRoutes } from './routes/portfolio.routes.js';
 import { invitationRoutes } from './routes/invitation.routes.js';
 import { memberRoutes } from './routes/member.routes.js';
 import { openApiRoutes } from './routes/openapi.routes.js';
+import { outageRoutes } from './routes/outage.routes.js';
 import { SESSION_COOKIE, sessionRoutes } from './routes/session.routes.js';
 import { describeSession } from './services/session.service.js';
 
@@ -113,6 +114,7 @@ export function createApp(deps: AppDeps): CleancaseApp {
     ...unitHealthRoutes(dataSource),
     ...portfolioRoutes(dataSource),
     ...caseRoutes(dataSource, config),
+    ...outageRoutes(dataSource),
     ...importRoutes(dataSource, config),
     ...calcRoutes(),
     ...(withGoogle ? googleAuthRoutes(auth) : []),

@@ -23,6 +23,8 @@ import { createCaseRecord } from '../factories/cases.js';
 import { createOutageRecord, writeSteadyDays } from '../factories/outages.js';
 import { createPlant, createUnit, TEST_CONDENSER, TEST_ECONOMICS, TEST_TURBINE } from '../factories/units.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
+import { DEMO_PASSWORD } from '../../backend/src/seed/demo-people.js';
+import { seedDemoIfEmpty } from '../../backend/src/seed/demo-seed.js';
 
 type Who = 'admin' | 'analyst' | 'approver' | 'viewer' | 'limitedAnalyst' | 'otherAdmin';
 
@@ -492,5 +494,32 @@ describe('outages', () => {
     const { outage } = await createOutageRecord(t.dataSource, [unitOne], tenant.users.admin.id, { status: 'approved', name: 'Factory outage' });
     const list = outageListResponse.parse((await agents.viewer.get('/api/outages').expect(200)).body);
     expect(list.outages.find((x) => x.id === outage.id)).toMatchObject({ name: 'Factory outage', status: 'approved', totalBenefit: 0, itemCount: 0 });
+  });
+});
+
+describe('the demo outage', () => {
+  let demo: TestApp;
+  beforeAll(async () => {
+    demo = await createTestApp();
+    expect(await seedDemoIfEmpty(demo.dataSource, () => {}, true, { today: '2026-12-02', units: ['harrow-creek-1'] })).toBe(true);
+  }, 300_000);
+  afterAll(async () => demo?.close());
+
+  it('is a draft on Harrow Creek with the approved case’s cleaning and three typed-in items in two lanes, and a proposal', async () => {
+    const approver = await signedInAgent(demo.app, 'approver@northmere.example', DEMO_PASSWORD);
+    const list = outageListResponse.parse((await approver.get('/api/outages').expect(200)).body);
+    expect(list.outages).toHaveLength(1);
+    const view = outageView.parse((await approver.get(`/api/outages/${list.outages[0]!.id}`).expect(200)).body);
+    expect(view).toMatchObject({ status: 'draft', name: 'Harrow Creek autumn outage (demo)', budget: 160_000 });
+    expect(view.items.map((i) => i.kind)).toEqual(['case-cleaning', 'tube-plugging', 'air-in-leakage-repair', 'eddy-current-inspection']);
+    expect(new Set(view.items.map((i) => i.lane))).toEqual(new Set(['Waterbox crew', 'Vacuum crew']));
+    expect(view.items[0]!.pricing.method).toBe('case');
+    expect(view.items[2]!.pricing.method).toBe('cleanliness');
+    expect(view.items[2]!.benefit).toBeGreaterThan(0);
+    expect(view.proposal?.feasible).toBe(true);
+    expect(view.proposalStale).toBe(false);
+    // the demo viewer reads approved outages only
+    const viewer = await signedInAgent(demo.app, 'viewer@northmere.example', DEMO_PASSWORD);
+    expect(outageListResponse.parse((await viewer.get('/api/outages').expect(200)).body).outages).toEqual([]);
   });
 });

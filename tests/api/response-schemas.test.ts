@@ -40,6 +40,33 @@ describe('API answers on the demo data', () => {
     const token = mail!.text.match(/\/invitation\?token=([A-Za-z0-9_%-]+)/)![1]!;
     const built = (await admin.post(`/api/units/${unitId}/cases`).set(CSRF).send({ title: 'Schema check' }).expect(201)).body as { id: string };
     await admin.post(`/api/cases/${built.id}/comments`).set(CSRF).send({ text: 'Read back by the schema test' }).expect(201);
+    const outage = (
+      await admin
+        .post('/api/outages')
+        .set(CSRF)
+        .send({ name: 'Schema check outage', unitIds: [unitId], startDate: '2027-03-01', endDate: '2027-03-14', budget: 90_000 })
+        .expect(201)
+    ).body as { id: string };
+    await admin
+      .post(`/api/outages/${outage.id}/items`)
+      .set(CSRF)
+      .send({ unitId, kind: 'tube-plugging', title: 'Plug tubes', cost: 20_000, durationDays: 3, lane: 'A', benefit: 40_000 })
+      .expect(201);
+    await admin
+      .post(`/api/outages/${outage.id}/items`)
+      .set(CSRF)
+      .send({
+        unitId,
+        kind: 'air-in-leakage-repair',
+        title: 'Seal a joint',
+        cost: 10_000,
+        durationDays: 2,
+        lane: 'B',
+        benefit: { cleanlinessRecovered: 0.02, horizonDays: 180 },
+      })
+      .expect(201);
+    await admin.post(`/api/outages/${outage.id}/optimise`).set(CSRF).expect(200);
+    await admin.post(`/api/outages/${outage.id}/scopes`).set(CSRF).send({ name: 'As proposed' }).expect(201);
     urls = {
       '/api/health': ['/api/health'],
       '/api/openapi.json': ['/api/openapi.json'],
@@ -70,6 +97,10 @@ describe('API answers on the demo data', () => {
       '/api/units/:id/cases': [`/api/units/${unitId}/cases`],
       '/api/cases/:id': [`/api/cases/${built.id}`],
       '/api/cases/:id/comments': [`/api/cases/${built.id}/comments`],
+      '/api/outages': ['/api/outages', '/api/outages?status=draft'],
+      '/api/outages/:id': [`/api/outages/${outage.id}`],
+      '/api/billing': ['/api/billing'],
+      '/api/billing/notice': ['/api/billing/notice'],
     };
   }, 300_000);
   afterAll(async () => {

@@ -28,6 +28,7 @@ import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import type { GeneratingUnit } from '../../backend/src/entities/generating-unit.entity.js';
 import type { Plant } from '../../backend/src/entities/plant.entity.js';
 import { createCaseRecord } from '../factories/cases.js';
+import { createOutageRecord } from '../factories/outages.js';
 import { createEvent, createPendingImport, createPlant, createUnit, TEST_CONDENSER, TEST_ECONOMICS, TEST_TURBINE } from '../factories/units.js';
 
 type Caller = 'anonymous' | Role | 'otherTenant' | 'otherGroup';
@@ -71,6 +72,13 @@ const freshMethod = (fx: Fixture) =>
     { organisationId: fx.a.organisation.id, userId: fx.a.users.admin.id, role: 'admin', clientGroupIds: null },
     { ...TYPICAL_CLEANING_METHODS[2]!, id: `m-${Math.random().toString(36).slice(2, 10)}` },
   );
+const freshOutage = async (fx: Fixture, status: 'draft' | 'approved' = 'draft') =>
+  createOutageRecord(ds(), [fx.unit], fx.a.users.analyst.id, {
+    status,
+    items: [{ title: 'Plug leaking tubes', cost: 20_000, durationDays: 3, lane: 'Waterbox A', benefit: 60_000 }],
+  });
+/** Planners are admins, analysts and approvers; an outage on a unit in group One is out of scope for the other two callers. */
+const planners = (ok: number, extra: Partial<Record<Caller, number>> = {}) => members(ok, { viewer: 403, otherTenant: 404, otherGroup: 404, ...extra });
 const plantBody = (fx: Fixture) => ({ name: `Plant ${Math.random().toString(36).slice(2)}`, timeZone: 'Europe/Berlin', clientGroupId: groupOne(fx) });
 
 const MATRIX: Record<string, Entry> = {
@@ -249,6 +257,55 @@ const MATRIX: Record<string, Entry> = {
   },
   'GET /api/cases/:id/report.pdf': { path: async (fx) => `/api/cases/${(await freshCase(fx, 'approved')).id}/report.pdf`, expect: readers(200) },
   'GET /api/cases/:id/export.xlsx': { path: async (fx) => `/api/cases/${(await freshCase(fx, 'approved')).id}/export.xlsx`, expect: readers(200) },
+  // Outages: planned by admins, analysts and approvers; approved by approvers and admins; deleted by admins; viewers read approved ones only.
+  'GET /api/outages': { expect: members(200) },
+  'POST /api/outages': {
+    body: (fx) => ({ name: 'Autumn outage', unitIds: [fx.unit.id], startDate: '2026-10-05', endDate: '2026-10-18', budget: 250_000 }),
+    // the unit lies outside the other tenant's and the other group's scope: refused on its field
+    expect: members(201, { viewer: 403, otherTenant: 400, otherGroup: 400 }),
+  },
+  'GET /api/outages/:id': {
+    path: async (fx) => `/api/outages/${(await freshOutage(fx)).outage.id}`,
+    expect: members(200, { viewer: 404, otherTenant: 404, otherGroup: 404 }),
+  },
+  'PATCH /api/outages/:id': {
+    path: async (fx) => `/api/outages/${(await freshOutage(fx)).outage.id}`,
+    body: () => ({ budget: 300_000 }),
+    expect: planners(200),
+  },
+  'DELETE /api/outages/:id': {
+    path: async (fx) => `/api/outages/${(await freshOutage(fx, 'approved')).outage.id}`,
+    expect: members(204, { analyst: 403, approver: 403, viewer: 403, otherTenant: 404, otherGroup: 404 }),
+  },
+  'POST /api/outages/:id/items': {
+    path: async (fx) => `/api/outages/${(await freshOutage(fx)).outage.id}/items`,
+    body: (fx) => ({
+      unitId: fx.unit.id,
+      kind: 'waterbox-repair',
+      title: 'Reline the inlet waterbox',
+      cost: 45_000,
+      durationDays: 4,
+      lane: 'Waterbox B',
+      benefit: 30_000,
+    }),
+    expect: planners(201),
+  },
+  'PATCH /api/outage-items/:id': {
+    path: async (fx) => `/api/outage-items/${(await freshOutage(fx)).items[0]!.id}`,
+    body: () => ({ forced: 'in' }),
+    expect: planners(200),
+  },
+  'DELETE /api/outage-items/:id': { path: async (fx) => `/api/outage-items/${(await freshOutage(fx)).items[0]!.id}`, expect: planners(200) },
+  'POST /api/outages/:id/optimise': { path: async (fx) => `/api/outages/${(await freshOutage(fx)).outage.id}/optimise`, expect: planners(200) },
+  'POST /api/outages/:id/scopes': {
+    path: async (fx) => `/api/outages/${(await freshOutage(fx)).outage.id}/scopes`,
+    body: () => ({ name: 'Nothing this time', itemIds: [] }),
+    expect: planners(201),
+  },
+  // No proposal yet: deciders are told to run the optimiser first.
+  'POST /api/outages/:id/approve': { path: async (fx) => `/api/outages/${(await freshOutage(fx)).outage.id}/approve`, expect: deciders(409) },
+  'GET /api/outages/:id/report.pdf': { path: async (fx) => `/api/outages/${(await freshOutage(fx, 'approved')).outage.id}/report.pdf`, expect: readers(200) },
+  'GET /api/outages/:id/export.xlsx': { path: async (fx) => `/api/outages/${(await freshOutage(fx, 'approved')).outage.id}/export.xlsx`, expect: readers(200) },
   'POST /api/cases/:id/comments': {
     path: async (fx) => `/api/cases/${(await freshCase(fx)).id}/comments`,
     body: () => ({ text: 'Checked the outage plan' }),

@@ -7,6 +7,7 @@ import { User } from '../entities/user.entity.js';
 import { DEMO_ORGANISATIONS, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people.js';
 import { seedDemoUnits, type DemoDay } from './demo-units-seed.js';
 import { seedDemoCases } from './demo-cases-seed.js';
+import { seedDemoOutage } from './demo-outage-seed.js';
 import { seedTypicalMethods } from '../services/cleaning-method.service.js';
 
 export interface DemoSignIn {
@@ -64,6 +65,7 @@ export async function seedDemoIfEmpty(dataSource: DataSource, log: (line: string
   if (withData) {
     await seedDemoUnits(dataSource, log, day);
     await seedDemoCases(dataSource, log);
+    await seedDemoOutage(dataSource, log);
   }
   return true;
 }
