@@ -32,7 +32,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'api',
-          include: ['tests/api/**/*.test.ts', 'tests/security/**/*.test.ts', 'tests/e2e/**/*.test.ts'],
+          include: ['tests/api/**/*.test.ts', 'tests/security/**/*.test.ts', 'tests/e2e/**/*.test.ts', 'tests/faults/**/*.test.ts', 'tests/fuzz/**/*.test.ts'],
           globalSetup: ['tests/helpers/global-setup.ts'],
           testTimeout: 60_000,
           hookTimeout: 120_000,

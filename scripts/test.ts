@@ -1,7 +1,7 @@
 /**
  * `npm test`: everything CI checks, needing nothing running beforehand and leaving nothing running.
  * System packages (MariaDB, Chromium, python3-iapws) are installed when missing; then lint, typecheck,
- * front-end build, and every vitest suite (unit, reference, API, security, browser).
+ * front-end build, and every vitest suite (unit, reference, API, security, faults, fuzz, browser), then each test file's time.
  */
 import { spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
@@ -43,6 +43,17 @@ try {
 const resultsFile = path.join(root, '.data', 'test-results.json');
 mkdirSync(path.dirname(resultsFile), { recursive: true });
 
+/** Each test file's own time (the vitest JSON report's start and end), slowest first, and the sum. */
+function printSuiteTimes(files: { name: string; startTime: number; endTime: number; status: string }[]): void {
+  if (files.length === 0) return;
+  const rows = files.map((f) => ({ file: path.relative(root, f.name), seconds: Math.max(0, f.endTime - f.startTime) / 1000, status: f.status }));
+  rows.sort((a, b) => b.seconds - a.seconds);
+  console.log(`\nsuite times (${rows.length} files, slowest first):`);
+  for (const r of rows) console.log(`${r.seconds.toFixed(1).padStart(8)} s  ${r.status === 'passed' ? '  ' : '✗ '}${r.file}`);
+  const total = rows.reduce((sum, r) => sum + r.seconds, 0);
+  console.log(`${total.toFixed(1).padStart(8)} s  in all (files run in parallel, so the wall time is shorter)`);
+}
+
 let ok = true;
 if (extraArgs.length === 0) {
   ok = step('lint (eslint)', bin('eslint'), ['.', '--max-warnings=0']) && ok;
@@ -56,7 +67,7 @@ if (extraArgs.length === 0) {
 } else if (!existsSync(path.join(root, 'frontend', 'dist', 'index.html'))) {
   ok = step('front-end build (vite)', bin('vite'), ['build', '--logLevel', 'warn']) && ok;
 }
-const vitestOk = step('tests (vitest: unit, reference, api, security, browser)', bin('vitest'), [
+const vitestOk = step('tests (vitest: unit, reference, api, security, faults, fuzz, browser)', bin('vitest'), [
   'run',
   '--reporter=default',
   '--reporter=json',
@@ -67,7 +78,13 @@ ok = vitestOk && ok;
 stopStrayTestDatabases();
 
 if (existsSync(resultsFile)) {
-  const results = JSON.parse(readFileSync(resultsFile, 'utf8')) as { numPassedTests: number; numFailedTests: number; numPendingTests: number };
+  const results = JSON.parse(readFileSync(resultsFile, 'utf8')) as {
+    numPassedTests: number;
+    numFailedTests: number;
+    numPendingTests: number;
+    testResults?: { name: string; startTime: number; endTime: number; status: string }[];
+  };
+  printSuiteTimes(results.testResults ?? []);
   console.log(`\ntests: ${results.numPassedTests} passed, ${results.numFailedTests} failed, ${results.numPendingTests} skipped`);
   if (results.numPassedTests === 0) ok = false;
 }

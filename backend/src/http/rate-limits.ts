@@ -65,10 +65,11 @@ function counter(ds: DataSource, rule: Rule, clearsExpiredRows = false): Counter
 
 const hashed = (key: string) => createHash('sha256').update(key).digest('hex');
 const addressOf = (req: Request) => ipKeyGenerator(req.ip ?? '');
-const emailOf = (req: Request) =>
-  String(req.body?.email ?? '')
-    .trim()
-    .toLowerCase();
+/** The address a request names; anything but text (the schema refuses it after the limit) counts as none, never String() of a nested value. */
+const emailOf = (req: Request) => {
+  const email: unknown = req.body?.email;
+  return typeof email === 'string' ? email.trim().toLowerCase() : '';
+};
 
 function tooMany(res: Response, next: NextFunction, rule: Rule, msBeforeNext: number) {
   const seconds = Math.max(1, Math.ceil(msBeforeNext / 1000));
