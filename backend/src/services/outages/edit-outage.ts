@@ -10,6 +10,7 @@ import { OutageUnit } from '../../entities/outage-unit.entity.js';
 import { Outage } from '../../entities/outage.entity.js';
 import { AppError, badRequest } from '../../http/app-error.js';
 import type { TenantScope } from '../../policies/tenant-scope.js';
+import { unitsOfOutages } from '../../repositories/outage.repository.js';
 import { recordAudit } from '../audit.service.js';
 import { unitsForOutage } from './create-outage.js';
 import { assertMayOutage, assertSeen, outageInScope, touch } from './outage-access.js';
@@ -22,7 +23,7 @@ export async function editOutage(ds: DataSource, scope: TenantScope, id: string,
     const outage = await outageInScope(em, scope, id, true);
     assertMayOutage('edit', outage, scope);
     assertSeen(outage, body.seenUpdatedAt);
-    const changes: Record<string, { from: unknown; to: unknown }> = {};
+    const changes: Record<string, unknown> = {};
     let plan = false;
     if (body.name !== undefined && body.name !== outage.name) {
       changes.name = { from: outage.name, to: body.name };
@@ -47,8 +48,8 @@ export async function editOutage(ds: DataSource, scope: TenantScope, id: string,
       const { units, currency } = await unitsForOutage(em, scope, body.unitIds);
       if (currency !== outage.currency) throw field('unitIds', `These units count money in ${currency}; the outage counts it in ${outage.currency}`);
       const wanted = new Set(units.map((u) => u.unit.id));
-      const links = await em.getRepository(OutageUnit).findBy({ outageId: outage.id });
-      const had = new Set(links.map((l) => l.unitId));
+      const before = await unitsOfOutages(em, [outage.id]);
+      const had = new Set(before.map((l) => l.unit.id));
       const dropped = [...had].filter((u) => !wanted.has(u));
       const added = [...wanted].filter((u) => !had.has(u));
       if (dropped.length) {
@@ -63,8 +64,11 @@ export async function editOutage(ds: DataSource, scope: TenantScope, id: string,
       }
       if (added.length) await em.getRepository(OutageUnit).insert(added.map((unitId) => ({ outageId: outage.id, unitId })));
       if (dropped.length || added.length) {
-        const name = (uid: string) => units.find((u) => u.unit.id === uid)?.unit.name ?? uid;
-        changes.units = { from: dropped.map((u) => u), to: added.map(name) };
+        const name = (uid: string) => {
+          const row = before.find((u) => u.unit.id === uid) ?? units.find((u) => u.unit.id === uid);
+          return row ? `${row.plant.name} ${row.unit.name}` : uid;
+        };
+        changes.units = { removed: dropped.map(name), added: added.map(name) };
         plan = true;
       }
     }

@@ -57,8 +57,10 @@ export function selectionFigures(outage: Outage, items: readonly OutageItem[], s
   const days = windowDays(outage.startDate, outage.endDate);
   const problems: string[] = [];
   if (cost.greaterThan(outage.budget)) {
+    // cents shown when whole units would read the same
+    const decimals = cost.isInteger() && new Decimal(outage.budget).isInteger() ? 0 : 2;
     problems.push(
-      `The cost ${formatCurrency(cost.toNumber(), outage.currency)} is over the budget of ${formatCurrency(Number(outage.budget), outage.currency)}`,
+      `The cost ${formatCurrency(cost.toNumber(), outage.currency, decimals)} is over the budget of ${formatCurrency(Number(outage.budget), outage.currency, decimals)}`,
     );
   }
   for (const [lane, d] of Object.entries(laneDays)) {
