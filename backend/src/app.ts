@@ -19,6 +19,7 @@ import { configureGoogle, googleConfigured } from './auth/google-strategy.js';
 import { accountRoutes } from './routes/account.routes.js';
 import { apiTokenRoutes } from './routes/api-token.routes.js';
 import { auditRoutes } from './routes/audit.routes.js';
+import { billingRoutes } from './routes/billing.routes.js';
 import { calcRoutes } from './routes/calc.routes.js';
 import { caseRoutes } from './routes/case.routes.js';
 import { cleaningMethodRoutes } from './routes/cleaning-method.routes.js';
@@ -72,6 +73,8 @@ export function createApp(deps: AppDeps): CleancaseApp {
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
+  // Stripe signs the exact bytes it sends: the webhook's body is kept raw (express.json then leaves it alone).
+  app.use('/api/billing/webhook', express.raw({ type: '*/*', limit: '1mb' }));
   app.use(express.json({ limit: '1mb' }));
 
   const store = createSessionStore(dataSource);
@@ -117,6 +120,7 @@ export function createApp(deps: AppDeps): CleancaseApp {
     ...outageRoutes(dataSource),
     ...importRoutes(dataSource, config),
     ...calcRoutes(),
+    ...billingRoutes(dataSource, config),
     ...(withGoogle ? googleAuthRoutes(auth) : []),
     ...(devMailbox ? devMailboxRoutes(dataSource) : []),
     ...openApiRoutes(() => routes, SESSION_COOKIE),

@@ -13,6 +13,8 @@ import { startJobWorker } from './jobs/job-worker.js';
 import { seedDemoIfEmpty } from './seed/demo-seed.js';
 import type { DemoDay } from './seed/demo-units-seed.js';
 import { withinTime } from './time-limit.js';
+import { createBillingContext } from './services/billing/billing-context.js';
+import { prepareBilling, startTrialEndingMails } from './services/billing/prepare-billing.js';
 
 export interface Running {
   url: string;
@@ -78,6 +80,10 @@ export async function bootstrap(config: Config, options: BootstrapOptions = {}):
   const worker = background ? startJobWorker(dataSource, JOB_HANDLERS, logger) : null;
   const outbox = background ? startOutboxWorker(dataSource, mailDelivery(config, transport), logger) : null;
 
+  // Our prices in Stripe, read back; the local stand-in learns where to deliver events (the port is known now).
+  await prepareBilling(createBillingContext(dataSource, config), log);
+  const trialMail = background ? startTrialEndingMails(dataSource, config, log) : null;
+
   const report = (line: string) => logger.warn(line);
   return {
     url: publicUrl(config),
@@ -94,6 +100,7 @@ export async function bootstrap(config: Config, options: BootstrapOptions = {}):
         report,
       );
       // A job still running keeps its lock and is taken over after a restart; it is not waited for beyond the limit.
+      trialMail?.stop();
       if (worker) await withinTime('stopping the job worker', STOP_LIMITS_MS.jobs, () => worker.stop(), report);
       if (outbox) await withinTime('stopping mail delivery', STOP_LIMITS_MS.mail, () => outbox.stop(STOP_LIMITS_MS.mail - 500), report);
       await withinTime('closing the session store', STOP_LIMITS_MS.sessions, () => app.locals.close(), report);

@@ -1,4 +1,5 @@
 import type { DataSource } from 'typeorm';
+import { inject } from 'vitest';
 import { createApp, type CleancaseApp } from '../../backend/src/app.js';
 import { loadConfig, type Config } from '../../backend/src/config.js';
 import { createLogger } from '../../backend/src/logger.js';
@@ -35,6 +36,7 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
     DB_USER: connection.user,
     DB_PASSWORD: connection.password,
     PORT: '0',
+    STRIPE_API_BASE: inject('stripeApiBase'),
     ...env,
   });
   const mailer = createOutboxMailer(dataSource);

@@ -1,5 +1,6 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
+import { inject } from 'vitest';
 import { bootstrap, type Running } from '../../backend/src/bootstrap.js';
 import { loadConfig } from '../../backend/src/config.js';
 import { buildDataSource } from '../../backend/src/data-source.js';
@@ -34,6 +35,7 @@ export async function startTestServer(options: { demoData?: 'full' | 'people' } 
     DB_USER: db.user,
     DB_PASSWORD: db.password,
     DEMO_DATA: options.demoData ?? 'people',
+    STRIPE_API_BASE: inject('stripeApiBase'),
   });
   // The demo is made on a fixed day, so its dates (and the browser tests that read them) are the same every run.
   const running = await bootstrap(config, { staticDir: distDir, demoDay: { today: '2026-01-01' } });

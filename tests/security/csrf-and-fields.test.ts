@@ -20,7 +20,16 @@ describe('CSRF defence on every state-changing route', () => {
   });
   afterAll(async () => t?.close());
 
-  const unsafe = () => t.app.locals.routes.filter((r) => r.method !== 'get');
+  /** Stripe's webhook is checked by its signature instead (no session, no header): see the test below. */
+  const STRIPE_WEBHOOK = '/api/billing/webhook';
+  const unsafe = () => t.app.locals.routes.filter((r) => r.method !== 'get' && r.path !== STRIPE_WEBHOOK);
+
+  it('lets only the Stripe webhook go without the CSRF check, and it refuses an unsigned request', async () => {
+    expect(t.app.locals.routes.filter((r) => r.csrf === false).map((r) => `${r.method} ${r.path}`)).toEqual([`post ${STRIPE_WEBHOOK}`]);
+    const res = await admin.post(STRIPE_WEBHOOK).set('content-type', 'application/json').send('{"type":"invoice.paid"}');
+    expect(res.status).toBe(400);
+    expect(res.body.error).toMatch(/signature/);
+  });
 
   it('covers every unsafe route (none opts out of the check)', () => {
     expect(unsafe().length).toBeGreaterThan(15);

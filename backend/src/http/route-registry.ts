@@ -9,6 +9,7 @@ import { PERMISSIONS, type Permission } from '@shared/permissions.js';
 import { findTextProblem } from '@shared/well-formed-text.js';
 import { AppError, forbidden, unauthorised } from './app-error.js';
 import { csrfGuard } from './csrf.js';
+import { readOnlyReason } from '@shared/billing-access.js';
 import { rejectPrivilegedFields } from './privileged-fields.js';
 
 export type Access = 'public' | 'signed-in' | Permission;
@@ -27,6 +28,8 @@ export interface RouteSpec {
   tenantScoped: boolean;
   /** Unsafe methods are CSRF-checked unless this is false (only the Stripe webhook). */
   csrf?: boolean;
+  /** An unsafe tenant-scoped route that still answers while the organisation is read-only (billing: paying again). */
+  openWhenReadOnly?: boolean;
   /** Endpoints whose job is to set tenant, role or billing fields. */
   allowsPrivilegedFields?: boolean;
   rateLimit?: RequestHandler;
@@ -93,6 +96,13 @@ function validate(spec: RouteSpec): RequestHandler {
   };
 }
 
+/** A lapsed subscription (trial ended unpaid, past due beyond the grace period, canceled) refuses every write of the tenant: 402 with the reason. */
+const refuseWhileReadOnly: RequestHandler = (req, _res, next) => {
+  const organisation = req.actor?.organisation;
+  const reason = organisation ? readOnlyReason(organisation, new Date()) : null;
+  next(reason ? new AppError(402, reason, { readOnly: true }) : undefined);
+};
+
 const wrap =
   (handler: RouteSpec['handler']): RequestHandler =>
   async (req, res, next) => {
@@ -110,6 +120,7 @@ export function mountRoutes(app: Express, routes: RouteSpec[], authenticate: Req
     if (spec.rateLimit) chain.push(spec.rateLimit);
     chain.push(authenticate, requireAccess(spec));
     if (unsafe && spec.csrf !== false) chain.push(csrfGuard);
+    if (unsafe && spec.tenantScoped && !spec.openWhenReadOnly) chain.push(refuseWhileReadOnly);
     if (unsafe && !spec.allowsPrivilegedFields) chain.push(rejectPrivilegedFields);
     chain.push(...(spec.before ?? []), validate(spec), wrap(spec.handler));
     app[spec.method](spec.path, ...chain);

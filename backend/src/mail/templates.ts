@@ -104,3 +104,56 @@ export function caseDecidedMail(p: {
     ].join('\n'),
   };
 }
+
+/** To each administrator, a few days before a trial without a plan ends. */
+export function trialEndingMail(p: { to: string; organisationName: string; endsOn: string; link: string }): OutgoingMail {
+  const organisation = plainName(p.organisationName, 'Your organisation');
+  return {
+    to: p.to,
+    subject: `The Cleancase trial of ${organisation} ends on ${p.endsOn}`,
+    text: [
+      `The trial of ${organisation} ends on ${p.endsOn}. After that the organisation can still be read and downloaded, but nothing can be changed until a plan is chosen.`,
+      '',
+      `Choose a plan: ${p.link}`,
+      '',
+      'Nothing is deleted when a trial ends.',
+    ].join('\n'),
+  };
+}
+
+/** To each administrator, when Stripe could not take a payment. */
+export function paymentFailedMail(p: { to: string; organisationName: string; amount: string; graceDays: number; link: string }): OutgoingMail {
+  const organisation = plainName(p.organisationName, 'Your organisation');
+  return {
+    to: p.to,
+    subject: `Payment for ${organisation} on Cleancase did not go through`,
+    text: [
+      `The payment of ${p.amount} for ${organisation} did not go through. Stripe tries again over the next days.`,
+      `If it is still unpaid after ${p.graceDays} days, the organisation becomes read-only (nothing is deleted) until it is paid.`,
+      '',
+      `Update the card or pay the invoice: ${p.link}`,
+    ].join('\n'),
+  };
+}
+
+/** To each administrator, for every paid invoice. */
+export function receiptMail(p: {
+  to: string;
+  organisationName: string;
+  amount: string;
+  number: string;
+  invoiceUrl: string | null;
+  link: string;
+}): OutgoingMail {
+  const organisation = plainName(p.organisationName, 'Your organisation');
+  return {
+    to: p.to,
+    subject: `Receipt ${p.number} for ${organisation} on Cleancase`,
+    text: [
+      `Thank you: ${p.amount} for ${organisation} was paid (invoice ${p.number}).`,
+      ...(p.invoiceUrl ? ['', `The invoice: ${p.invoiceUrl}`] : []),
+      '',
+      `Billing: ${p.link}`,
+    ].join('\n'),
+  };
+}

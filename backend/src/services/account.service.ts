@@ -19,7 +19,7 @@ import { revokeAllApiTokensOf } from './api-token.service.js';
 import { recordAudit } from './audit.service.js';
 import { seedTypicalMethods } from './cleaning-method.service.js';
 
-export const TRIAL_DAYS = 30;
+export const TRIAL_DAYS = 14;
 const RESET_LIFETIME_MS = 60 * 60 * 1000;
 const CONFIRMATION_LIFETIME_MS = 24 * 60 * 60 * 1000;
 

@@ -6,6 +6,7 @@ import { AppError, forbidden, notFound } from '../http/app-error.js';
 import type { TenantScope } from '../policies/tenant-scope.js';
 import { findClientGroup, listClientGroups } from '../repositories/client-group.repository.js';
 import { recordAudit } from './audit.service.js';
+import { assertWithinPlanLimit } from './billing/plan-limits.js';
 
 const view = (g: ClientGroup): ClientGroupView => ({ id: g.id, name: g.name, createdAt: g.createdAt.toISOString() });
 
@@ -27,6 +28,7 @@ async function assertNameFree(ds: DataSource, organisationId: string, name: stri
 export async function createGroup(ds: DataSource, scope: TenantScope, name: string): Promise<ClientGroupView> {
   await assertNameFree(ds, scope.organisationId, name);
   return ds.transaction(async (em) => {
+    await assertWithinPlanLimit(em, scope.organisationId, 'clientGroups');
     const group = await em.getRepository(ClientGroup).save({ organisationId: scope.organisationId, name });
     await recordAudit(em, {
       organisationId: scope.organisationId,

@@ -16,6 +16,7 @@ import { assertMayGrant, coversClientGroups, type TenantScope } from '../policie
 import { assertClientGroupsInTenant } from '../repositories/client-group.repository.js';
 import { markAddressProven } from './account.service.js';
 import { recordAudit } from './audit.service.js';
+import { assertWithinPlanLimit } from './billing/plan-limits.js';
 
 const LIFETIME_MS = 7 * 86_400_000;
 
@@ -40,6 +41,7 @@ export async function invite(
   const expiresAt = new Date(Date.now() + LIFETIME_MS);
   assertMayGrant(scope, input.clientGroupIds);
   const { invitation, organisation } = await ds.transaction(async (em) => {
+    if (input.clientGroupIds) await assertWithinPlanLimit(em, scope.organisationId, 'seats');
     if (input.clientGroupIds && !(await assertClientGroupsInTenant(em, scope.organisationId, input.clientGroupIds))) throw badRequest('Unknown client group');
     const existing = await em
       .getRepository(Membership)

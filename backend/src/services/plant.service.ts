@@ -11,6 +11,7 @@ import { foundInScope } from '../repositories/found-in-scope.js';
 import { findPlant, findUnit, plantsInScope, unitsInScope } from '../repositories/plant.repository.js';
 import { recordAudit } from './audit.service.js';
 import { dropDraftCasesOrRefuse, isCaseStillReferencing } from './cases/cases-of-deleted-units.js';
+import { assertWithinPlanLimit } from './billing/plan-limits.js';
 
 /** A case written between the check and the delete: the foreign key refuses, answered as the check would. */
 const refuseWhileCasesRemain = (what: 'unit' | 'plant') => (err: unknown) => {
@@ -116,6 +117,7 @@ export async function createUnit(ds: DataSource, scope: TenantScope, plantId: st
   if (await ds.getRepository(GeneratingUnit).existsBy({ plantId, name: input.name }))
     throw new AppError(409, `${plant.name} has a unit named “${input.name}” already`);
   return ds.transaction(async (em) => {
+    await assertWithinPlanLimit(em, scope.organisationId, 'units');
     const unit = await em
       .getRepository(GeneratingUnit)
       .save({ organisationId: scope.organisationId, plantId, name: input.name, condenser: null, turbine: null, economics: null, savedMapping: null });

@@ -1,0 +1,189 @@
+/**
+ * Subscriptions against the local Stripe stand-in, through the API: a trial organisation subscribes on the
+ * Checkout page, upgrades, downgrades within its usage, cancels at the period end and resumes; plans and
+ * prices come from Stripe; a Stripe outage fails every billing action with a clear message and writes nothing.
+ */
+import request from 'supertest';
+import type TestAgent from 'supertest/lib/agent.js';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Organisation } from '../../backend/src/entities/organisation.entity.js';
+import { createTestApp, type TestApp } from '../helpers/test-app.js';
+import { createTenant, CSRF, signedInAgent, type TenantFixture, uniqueEmail } from '../factories/accounts.js';
+import { createPlant, createUnit } from '../factories/units.js';
+import { deliverAll, fakeControl, payCheckout, stripeOf } from '../factories/billing.js';
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await createTestApp();
+});
+afterAll(async () => {
+  await t?.close();
+});
+
+const org = (id: string) => t.dataSource.getRepository(Organisation).findOneByOrFail({ id });
+
+async function trialTenant(): Promise<{ tenant: TenantFixture; admin: TestAgent }> {
+  const tenant = await createTenant(t.dataSource, 'billing');
+  await t.dataSource.getRepository(Organisation).update({ id: tenant.organisation.id }, { trialEndsAt: new Date(Date.now() + 10 * 86_400_000) });
+  return { tenant, admin: await signedInAgent(t.app, tenant.users.admin.email) };
+}
+
+describe('plans and the trial', () => {
+  it('a self sign-up starts a 14-day trial without a card', async () => {
+    const agent = request.agent(t.app);
+    const email = uniqueEmail('trial');
+    const res = await agent
+      .post('/api/sign-up')
+      .set(CSRF)
+      .send({ name: 'Trial Person', email, password: 'a long and unusual passphrase', organisationName: 'Trial Utility' });
+    expect(res.status).toBe(201);
+    const created = await t.dataSource.getRepository(Organisation).findOneByOrFail({ name: 'Trial Utility' });
+    const days = (created.trialEndsAt!.getTime() - Date.now()) / 86_400_000;
+    expect(days).toBeGreaterThan(13.9);
+    expect(days).toBeLessThanOrEqual(14);
+    expect(created).toMatchObject({ subscriptionStatus: 'trialing', stripeCustomerId: null, stripeSubscriptionId: null });
+  });
+
+  it('offers each plan monthly and yearly at the prices Stripe holds, found by lookup key', async () => {
+    const { admin } = await trialTenant();
+    const res = await admin.get('/api/billing');
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ status: 'trialing', plan: { code: 'trial' }, trialDaysLeft: 10, readOnly: null, invoices: [], nextInvoice: null });
+    expect(res.body.plans).toHaveLength(8);
+    const stripe = stripeOf(t.config);
+    const inStripe = await stripe.prices.list({ lookup_keys: res.body.plans.map((p: { price: string }) => p.price) });
+    for (const offer of res.body.plans) {
+      const price = inStripe.data.find((p) => p.lookup_key === offer.price)!;
+      expect(price, offer.price).toBeDefined();
+      expect(offer.amount).toBe((price.unit_amount! / 100).toFixed(2));
+      expect(offer.interval).toBe(price.recurring!.interval);
+    }
+    expect(res.body.usage.map((u: { limit: string }) => u.limit)).toEqual(['units', 'clientGroups', 'seats']);
+  });
+
+  it('refuses a price that is not on offer, and writes nothing', async () => {
+    const { tenant, admin } = await trialTenant();
+    const res = await admin.post('/api/billing/checkout').set(CSRF).send({ price: 'cleancase_gold_month' });
+    expect(res.status).toBe(400);
+    expect((await org(tenant.organisation.id)).stripeCustomerId).toBeNull();
+  });
+});
+
+describe('a trial organisation through checkout, change and cancel', () => {
+  it('subscribes, upgrades, downgrades within its usage, cancels at the period end and resumes', async () => {
+    const { tenant, admin } = await trialTenant();
+    const id = tenant.organisation.id;
+    const plant = await createPlant(t.dataSource, id);
+    for (let i = 0; i < 3; i++) await createUnit(t.dataSource, plant);
+
+    // Three units do not fit the Plant plan (2): refused before anything is made in Stripe.
+    const tooSmall = await admin.post('/api/billing/checkout').set(CSRF).send({ price: 'cleancase_plant_month' });
+    expect(tooSmall.status).toBe(409);
+    expect(tooSmall.body.error).toMatch(/3 units \(the Plant plan allows 2\)/);
+
+    const { url } = await payCheckout(admin, 'cleancase_station_month');
+    expect(url).toMatch(/^http:\/\/127\.0\.0\.1:\d+\/pay\//);
+    // Until Stripe's events arrive, nothing says the organisation paid.
+    expect((await org(id)).subscriptionStatus).toBe('trialing');
+    const events = await deliverAll(t.app, t.config, t.dataSource, id);
+    expect(events.map((e) => e.type)).toEqual(['checkout.session.completed', 'customer.subscription.created', 'invoice.paid']);
+
+    let view = (await admin.get('/api/billing')).body;
+    expect(view).toMatchObject({
+      status: 'active',
+      plan: { code: 'station', name: 'Station' },
+      interval: 'month',
+      trialDaysLeft: null,
+      cancelAtPeriodEnd: false,
+    });
+    expect(view.usage.find((u: { limit: string }) => u.limit === 'units')).toEqual({ limit: 'units', label: 'units', used: 3, allowed: 10 });
+    expect(view.invoices).toHaveLength(1);
+    expect(view.invoices[0]).toMatchObject({ status: 'paid', amount: '690.00' });
+    expect(view.nextInvoice).toMatchObject({ amount: '690.00', currency: 'usd' });
+    const receipts = await t.mailTo(tenant.users.admin.email);
+    expect(receipts.filter((m) => m.subject.startsWith('Receipt'))).toHaveLength(1);
+
+    // Upgrade to Fleet yearly.
+    expect((await admin.post('/api/billing/change').set(CSRF).send({ price: 'cleancase_fleet_year' })).status).toBe(204);
+    view = (await admin.get('/api/billing')).body;
+    expect(view).toMatchObject({ plan: { code: 'fleet' }, interval: 'year', price: 'cleancase_fleet_year' });
+    const sub = await stripeOf(t.config).subscriptions.retrieve((await org(id)).stripeSubscriptionId!);
+    expect(sub.items.data[0]!.price.lookup_key).toBe('cleancase_fleet_year');
+
+    // Down to Plant: three units do not fit; to Station they do.
+    const down = await admin.post('/api/billing/change').set(CSRF).send({ price: 'cleancase_plant_year' });
+    expect(down.status).toBe(409);
+    expect((await org(id)).plan).toBe('fleet');
+    expect((await admin.post('/api/billing/change').set(CSRF).send({ price: 'cleancase_station_year' })).status).toBe(204);
+    expect((await org(id)).plan).toBe('station');
+
+    // Cancel at the period end: still active, no next invoice; then resume.
+    expect((await admin.post('/api/billing/cancel').set(CSRF)).status).toBe(204);
+    view = (await admin.get('/api/billing')).body;
+    expect(view).toMatchObject({ status: 'active', cancelAtPeriodEnd: true, nextInvoice: null, readOnly: null });
+    expect((await admin.post('/api/billing/resume').set(CSRF)).status).toBe(204);
+    expect((await org(id)).cancelAtPeriodEnd).toBe(false);
+
+    // Checkout again while subscribed: change the plan instead.
+    expect((await admin.post('/api/billing/checkout').set(CSRF).send({ price: 'cleancase_fleet_month' })).status).toBe(409);
+
+    // The portal opens on the stand-in's page.
+    const portal = await admin.post('/api/billing/portal').set(CSRF);
+    expect(portal.status).toBe(200);
+    expect(portal.body.url).toMatch(/\/portal\/bps_/);
+
+    // Cancelled at the period end, and the period ends: read-only, nothing deleted.
+    await admin.post('/api/billing/cancel').set(CSRF);
+    await fakeControl(t.config, `subscriptions/${(await org(id)).stripeSubscriptionId}/renew`);
+    await deliverAll(t.app, t.config, t.dataSource, id);
+    view = (await admin.get('/api/billing')).body;
+    expect(view.status).toBe('canceled');
+    expect(view.readOnly).toMatch(/read-only/);
+    const refused = await admin.post(`/api/plants/${plant.id}/units`).set(CSRF).send({ name: 'One more' });
+    expect(refused.status).toBe(402);
+    expect(refused.body.error).toMatch(/subscription has ended/);
+    expect((await admin.get(`/api/plants/${plant.id}`)).status).toBe(200);
+
+    // Paying again restores writing.
+    await payCheckout(admin, 'cleancase_station_month');
+    await deliverAll(t.app, t.config, t.dataSource, id);
+    expect((await org(id)).subscriptionStatus).toBe('active');
+    expect((await admin.post(`/api/plants/${plant.id}/units`).set(CSRF).send({ name: 'One more' })).status).toBe(201);
+  });
+});
+
+describe('when Stripe is down or failing', () => {
+  it('answers 503 with a clear message for each billing action and writes nothing', async () => {
+    const { tenant, admin } = await trialTenant();
+    const before = await org(tenant.organisation.id);
+    await admin.get('/api/billing'); // the catalogue is read while Stripe answers
+    for (const [path, body] of [
+      ['/api/billing/checkout', { price: 'cleancase_station_month' }],
+      ['/api/billing/portal', undefined],
+    ] as const) {
+      await fakeControl(t.config, 'fail-next', { count: '1', status: '500' });
+      const res = await admin.post(path).set(CSRF).send(body);
+      expect(res.status, path).toBe(503);
+      expect(res.body.error).toMatch(/payment service \(Stripe\) is not answering just now, so nothing was changed/);
+      expect(JSON.stringify(res.body)).not.toMatch(/stack|at .*\.js/);
+    }
+    expect(await org(tenant.organisation.id)).toEqual(before);
+  });
+
+  it('with nothing listening where Stripe should be, billing says so and the rest of the product works', async () => {
+    const down = await createTestApp({ STRIPE_API_BASE: 'http://127.0.0.1:9' });
+    try {
+      const tenant = await createTenant(down.dataSource, 'nostripe');
+      const admin = await signedInAgent(down.app, tenant.users.admin.email);
+      const res = await admin.get('/api/billing');
+      expect(res.status).toBe(503);
+      expect(res.body.error).toMatch(/Stripe/);
+      const checkout = await admin.post('/api/billing/checkout').set(CSRF).send({ price: 'cleancase_station_month' });
+      expect(checkout.status).toBe(503);
+      expect((await down.dataSource.getRepository(Organisation).findOneByOrFail({ id: tenant.organisation.id })).stripeCustomerId).toBeNull();
+      expect((await admin.get('/api/plants')).status).toBe(200);
+    } finally {
+      await down.close();
+    }
+  });
+});
