@@ -121,6 +121,8 @@ export const importMappingSchema = z
       .optional(),
     /** A column saying whether each row's values are good; rows whose value is not among `goodValues` are kept out as instrument-status. */
     quality: importQualitySchema.optional(),
+    /** XLSX: the sheet to read, by name (default: the first). */
+    sheet: z.string().trim().min(1, 'a sheet name cannot be empty').max(31, 'sheet names are at most 31 characters').optional(),
   })
   .strict()
   .superRefine((m, ctx) => {

@@ -81,6 +81,13 @@ export const uploadResponse = z
   .object({
     import: importView,
     headers: z.array(z.string()),
+    /** per column, the units row's text under its name ('' where none); empty when the file has no units row */
+    units: z.array(z.string()),
+    /** lines above the header (export notes, the query's time range) */
+    titleLines: z.array(z.string()),
+    /** XLSX: every sheet of the workbook and the one read (choose another with POST /api/imports/:id/sheet) */
+    sheets: z.array(z.string()),
+    sheet: z.string().nullable(),
     /** the file's first rows, as text */
     sampleRows: z.array(z.array(z.string())),
     guess: z
@@ -108,3 +115,5 @@ export const uploadResponse = z
   })
   .strict();
 export type UploadResponse = z.infer<typeof uploadResponse>;
+
+export const chooseSheetBody = z.object({ sheet: z.string().trim().min(1, 'choose a sheet').max(31, 'sheet names are at most 31 characters') }).strict();

@@ -3,6 +3,7 @@
  * organisation's own status words (administrators edit them), and — in the later describes — the other
  * shapes of file. Every shape must store the same samples as the wide file of the same data.
  */
+import ExcelJS from 'exceljs';
 import type TestAgent from 'supertest/lib/agent.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { drainJobs } from '../../backend/src/jobs/job-worker.js';
@@ -11,7 +12,7 @@ import type { GeneratingUnit } from '../../backend/src/entities/generating-unit.
 import { createTenant, CSRF, signedInAgent, type TenantFixture } from '../factories/accounts.js';
 import { createPlant, createUnit, TEST_CONDENSER, TEST_TURBINE } from '../factories/units.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
-import { csvLines, makeTempDir, physicalHistory, US_MAPPING, writeCsvLines, type HistorianRow } from '../helpers/historian-files.js';
+import { csvLines, makeTempDir, physicalHistory, US_HEADERS, US_MAPPING, writeCsvLines, type HistorianRow } from '../helpers/historian-files.js';
 
 const START_UTC = Date.UTC(2024, 5, 3, 0, 0);
 
@@ -131,6 +132,69 @@ describe('historian shapes through the API', () => {
       expect(imp.status, imp.message).toBe('complete');
       expect(imp.counts.rowsByMarker).toEqual({ 'I/O Timeout': 1 });
       await admin.put('/api/organisation/historian-status-words').set(CSRF).send({ words: [] }).expect(200);
+    });
+  });
+
+  describe('header shapes', () => {
+    it('answers the units row and the title lines of an upload, and proposes the units', async () => {
+      const unit = await newUnit();
+      const rows = day(6);
+      const lines = [
+        'Unit 2 condenser export',
+        `Range,${new Date(START_UTC).toISOString()},${new Date(START_UTC + 6 * 3_600_000).toISOString()}`,
+        'Timestamp,Gross,BP,CW In Temp,CW Out Temp,CW Flow',
+        ',MW,inHgA,F,F,gpm',
+        ...rows.map((r) => r.cells.join(',')),
+      ];
+      const up = await analyst
+        .post(`/api/units/${unit.id}/uploads`)
+        .set(CSRF)
+        .attach('file', await writeCsvLines(tmp.file('two-row.csv'), lines));
+      expect(up.status, JSON.stringify(up.body)).toBe(201);
+      expect(up.body.units).toEqual(['', 'MW', 'inHgA', 'F', 'F', 'gpm']);
+      expect(up.body.titleLines).toHaveLength(2);
+      expect(up.body.proposedMapping.columns).toMatchObject({
+        backpressure: { column: 'BP (inHgA)', unit: 'inHg' },
+        cwFlow: { column: 'CW Flow (gpm)', unit: 'gpm' },
+      });
+      expect(up.body.sheets).toEqual([]);
+    });
+
+    it('lets the person choose the sheet of a workbook, and imports that sheet', async () => {
+      const unit = await newUnit();
+      const rows = day(12);
+      const file = tmp.file('sheets.xlsx');
+      const wb = new ExcelJS.stream.xlsx.WorkbookWriter({ filename: file, useStyles: false, useSharedStrings: true });
+      const notes = wb.addWorksheet('About');
+      notes.addRow(['Exported for the condenser review']).commit();
+      notes.commit();
+      const data = wb.addWorksheet('Hourly');
+      data.addRow([...US_HEADERS]).commit();
+      for (const r of rows) data.addRow(r.cells.map((c, k) => (k === 0 ? c : Number(c)))).commit();
+      data.commit();
+      await wb.commit();
+
+      const up = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', file);
+      expect(up.status, JSON.stringify(up.body)).toBe(201);
+      expect(up.body).toMatchObject({ sheets: ['About', 'Hourly'], sheet: 'Hourly', headers: [...US_HEADERS] });
+      expect(up.body.proposedMapping.sheet).toBe('Hourly');
+      // the notes sheet is no table; the data sheet chosen again answers its columns
+      const aboutSheet = await analyst.post(`/api/imports/${up.body.import.id}/sheet`).set(CSRF).send({ sheet: 'About' });
+      expect(aboutSheet.status).toBe(400);
+      expect(aboutSheet.body.error).toMatch(/no header row/);
+      const missing = await analyst.post(`/api/imports/${up.body.import.id}/sheet`).set(CSRF).send({ sheet: 'Daily' });
+      expect(missing.body.error).toMatch(/no sheet named "Daily"; its sheets are "About", "Hourly"/);
+      const again = await analyst.post(`/api/imports/${up.body.import.id}/sheet`).set(CSRF).send({ sheet: 'Hourly' });
+      expect(again.status, JSON.stringify(again.body)).toBe(200);
+      const started = await analyst
+        .post(`/api/imports/${up.body.import.id}/start`)
+        .set(CSRF)
+        .send({ mapping: { ...US_MAPPING, sheet: 'Hourly' } });
+      expect(started.status, JSON.stringify(started.body)).toBe(202);
+      await drain();
+      const imp = (await analyst.get(`/api/imports/${up.body.import.id}`).expect(200)).body;
+      expect(imp.status, imp.message).toBe('complete');
+      expect(imp.counts.stored).toBe(12);
     });
   });
 });

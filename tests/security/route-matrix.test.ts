@@ -224,6 +224,12 @@ const MATRIX: Record<string, Entry> = {
   'GET /api/units/:id/imports': { path: (fx) => `/api/units/${fx.unit.id}/imports`, expect: readers(200) },
   'GET /api/imports/:id': { path: async (fx) => `/api/imports/${(await createPendingImport(ds(), fx.unit)).id}`, expect: readers(200) },
   // An empty mapping is refused with the fields it lacks.
+  // A CSV upload has no sheets: writers are told so; outside the scope the import is not found.
+  'POST /api/imports/:id/sheet': {
+    path: async (fx) => `/api/imports/${(await createPendingImport(ds(), fx.unit)).id}/sheet`,
+    body: () => ({ sheet: 'Data' }),
+    expect: writers(400),
+  },
   'POST /api/imports/:id/start': {
     path: async (fx) => `/api/imports/${(await createPendingImport(ds(), fx.unit)).id}/start`,
     body: () => ({ mapping: {} }),

@@ -18,7 +18,8 @@ export type ImportFileErrorCode =
   | 'column-not-found'
   | 'duplicate-column'
   | 'file-changed'
-  | 'unreadable-file';
+  | 'unreadable-file'
+  | 'no-such-sheet';
 
 /** A problem with the file as a whole; nothing is imported. */
 export class ImportFileError extends Error {

@@ -21,7 +21,7 @@ export async function detectTableKind(filePath: string): Promise<TableKind> {
 }
 
 /** Every failure is an ImportFileError in our words (the readers translate theirs; this catches the rest). */
-export async function openTable(filePath: string, options: CsvReadOptions & { kind?: TableKind } = {}): Promise<RawTable> {
+export async function openTable(filePath: string, options: CsvReadOptions & { kind?: TableKind; sheet?: string } = {}): Promise<RawTable> {
   try {
     const kind = options.kind ?? (await detectTableKind(filePath));
     return await (kind === 'xlsx' ? openXlsxTable(filePath, options) : openCsvTable(filePath, options));

@@ -94,6 +94,12 @@ function unitWarnings(sums: Float64Array, counts: Float64Array): string[] {
   return out;
 }
 
+/** The sheet a mapping names, read before the mapping itself is checked (the table must be open to check it). */
+const sheetOf = (mapping: unknown): string | undefined => {
+  const sheet = (mapping as { sheet?: unknown } | null)?.sheet;
+  return typeof sheet === 'string' && sheet.trim() !== '' ? sheet.trim() : undefined;
+};
+
 const asFileError = (e: ImportFileError) => ({ code: e.code, message: e.message, ...(e.line !== undefined ? { line: e.line } : {}) });
 
 /** Pass 1: reads and converts every row, collects every error, writes nothing. */
@@ -114,7 +120,7 @@ export async function checkImportFile(filePath: string, options: ImportFileOptio
   const errors = new RowErrorList(options.maxErrors ?? DEFAULT_MAX_ROW_ERRORS);
   let table: RawTable | undefined;
   try {
-    table = await openTable(filePath, { kind: options.kind, delimiter: options.delimiter });
+    table = await openTable(filePath, { kind: options.kind, delimiter: options.delimiter, sheet: sheetOf(options.mapping) });
     result.kind = table.kind;
     result.headers = table.headers;
     const compiled = compileMapping(options.mapping, table.headers);
@@ -257,7 +263,7 @@ const OPTIONAL_FIELDS: [keyof ImportSample, number][] = [
  * turns out wrong after all (changed since the check, or checked with another mapping).
  */
 export async function importSamples(filePath: string, options: ImportSamplesOptions): Promise<ImportSummary> {
-  const table = await openTable(filePath, { kind: options.kind, delimiter: options.delimiter });
+  const table = await openTable(filePath, { kind: options.kind, delimiter: options.delimiter, sheet: sheetOf(options.mapping) });
   const sorter = options.fileOrder === 'ascending' ? null : new RecordSorter(options.tempDir, options.sortChunkRows);
   try {
     const compiled = compileMapping(options.mapping, table.headers);

@@ -15,6 +15,13 @@ export interface RawTable {
   headers: string[];
   /** 1-based line of the header row (the last one when a units row follows it). */
   headerLine: number;
+  /** Per column, the text of the units row(s) under the names ('' where none); empty without such a row. */
+  units: string[];
+  /** Lines above the header (export notes, the query's time range), their cells joined, at most 10. */
+  titleLines: string[];
+  /** XLSX: every sheet of the workbook, and the one read. */
+  sheets?: string[];
+  sheet?: string;
   /** The first data rows, for guessing a mapping (they are also yielded by `rows`). */
   sampleRows: string[][];
   rows: AsyncIterable<RawRow>;
@@ -39,7 +46,7 @@ export const looksNumeric = (cell: string): boolean => NUMERIC.test(cell.trim())
  * are skipped). Rows right below it without a single number (a units row, a description row) are
  * folded into the header texts as "Name (unit)".
  */
-export function locateHeader(records: string[][]): { headerIndex: number; dataIndex: number; headers: string[] } | null {
+export function locateHeader(records: string[][]): { headerIndex: number; dataIndex: number; headers: string[]; units: string[] } | null {
   const widths = new Map<number, number>();
   for (const r of records) widths.set(r.length, (widths.get(r.length) ?? 0) + 1);
   let modal = 0;
@@ -49,18 +56,24 @@ export function locateHeader(records: string[][]): { headerIndex: number; dataIn
     const cells = records[i]!.map((c) => c.trim());
     const named = cells.filter((c) => c !== '');
     if (named.length < 2 || named.length < Math.ceil(0.6 * modal)) continue;
+    // a title line giving the export's time range ("From", "2024-01-01 00:00") names no columns
+    if (named.some(looksLikeDateTime)) continue;
     const numeric = named.filter(looksNumeric).length;
     if (numeric > named.length / 2) return null;
     const headers = cells.map((c, k) => c || `(column ${k + 1})`);
+    const units: string[] = [];
     let j = i + 1;
     while (j < records.length && j <= i + 3) {
       const extra = records[j]!.map((c) => c.trim());
       if (extra.every((c) => !looksNumeric(c)) && extra.some((c) => c !== '') && !extra.some(looksLikeDateTime)) {
-        for (let k = 0; k < headers.length; k++) if (extra[k]) headers[k] = `${headers[k]} (${extra[k]})`;
+        for (let k = 0; k < headers.length; k++) {
+          if (extra[k]) headers[k] = `${headers[k]} (${extra[k]})`;
+          units[k] = [units[k], extra[k]].filter(Boolean).join(' ');
+        }
         j++;
       } else break;
     }
-    return { headerIndex: i, dataIndex: j, headers };
+    return { headerIndex: i, dataIndex: j, headers, units: units.length ? headers.map((_, k) => units[k] ?? '') : [] };
   }
   return null;
 }
@@ -93,10 +106,24 @@ export async function readHeaderBlock(
 
 export const looksLikeDateTime = (cell: string): boolean => /^\d{1,4}[-/.]\d{1,2}[-/.]\d{1,4}/.test(cell.trim());
 
+/** The lines above a located header, their cells joined (export notes, the query's range), at most 10. */
+export const titleLinesOf = (head: RawRow[], headerIndex: number): string[] =>
+  head
+    .slice(0, headerIndex)
+    .map((r) =>
+      r.cells
+        .map((c) => c.trim())
+        .filter(Boolean)
+        .join(' ')
+        .slice(0, 200),
+    )
+    .filter(Boolean)
+    .slice(0, 10);
+
 /** Builds a table from its first data rows and a stream of further runs of rows. */
 export function tableFrom(
   kind: RawTable['kind'],
-  headers: string[],
+  located: { headers: string[]; units: string[]; titleLines: string[] },
   headerLine: number,
   firstRows: RawRow[],
   chunks: AsyncIterable<RawRow[]>,
@@ -105,5 +132,6 @@ export function tableFrom(
   async function* rows(): AsyncGenerator<RawRow> {
     for await (const chunk of chunks) yield* chunk;
   }
-  return { kind, headers, headerLine, sampleRows: firstRows.slice(0, SAMPLE_ROWS).map((r) => r.cells), rows: rows(), chunks, close };
+  const { headers, units, titleLines } = located;
+  return { kind, headers, units, titleLines, headerLine, sampleRows: firstRows.slice(0, SAMPLE_ROWS).map((r) => r.cells), rows: rows(), chunks, close };
 }

@@ -7,7 +7,7 @@ import { createReadStream } from 'node:fs';
 import { open, stat } from 'node:fs/promises';
 import { CsvError, parse, type Info } from 'csv-parse';
 import { ImportFileError } from './import-errors.js';
-import { CHUNK_ROWS, HEADER_SEARCH_ROWS, MAX_LINE_CHARS, readHeaderBlock, tableFrom, type RawRow, type RawTable } from './raw-table.js';
+import { CHUNK_ROWS, HEADER_SEARCH_ROWS, MAX_LINE_CHARS, readHeaderBlock, tableFrom, titleLinesOf, type RawRow, type RawTable } from './raw-table.js';
 
 const HEAD_BYTES = 64 * 1024;
 const DELIMITERS = [',', ';', '\t', '|'] as const;
@@ -179,7 +179,7 @@ export async function openCsvTable(filePath: string, options: CsvReadOptions = {
         await close();
       }
     }
-    return tableFrom('csv', located.headers, head[located.dataIndex - 1]!.line, buffered, chunks(), close);
+    return tableFrom('csv', { ...located, titleLines: titleLinesOf(head, located.headerIndex) }, head[located.dataIndex - 1]!.line, buffered, chunks(), close);
   } catch (e) {
     await close();
     throw e;

@@ -8,7 +8,7 @@ import { createReadStream } from 'node:fs';
 import { open, stat } from 'node:fs/promises';
 import ExcelJS from 'exceljs';
 import { ImportFileError, NOT_A_READABLE_WORKBOOK } from './import-errors.js';
-import { CHUNK_ROWS, HEADER_SEARCH_ROWS, MAX_LINE_CHARS, readHeaderBlock, tableFrom, type RawRow, type RawTable } from './raw-table.js';
+import { CHUNK_ROWS, HEADER_SEARCH_ROWS, MAX_LINE_CHARS, readHeaderBlock, tableFrom, titleLinesOf, type RawRow, type RawTable } from './raw-table.js';
 
 const MS_PER_DAY = 86_400_000;
 const EXCEL_SERIAL_UNIX_EPOCH = 25_569;
@@ -47,6 +47,8 @@ async function assertZip(filePath: string): Promise<void> {
 
 export interface XlsxReadOptions {
   maxLineChars?: number;
+  /** The sheet to read by name (default: the first). */
+  sheet?: string;
 }
 
 export async function openXlsxTable(filePath: string, options: XlsxReadOptions = {}): Promise<RawTable> {
@@ -63,25 +65,56 @@ export async function openXlsxTable(filePath: string, options: XlsxReadOptions =
   const sheets = reader[Symbol.asyncIterator]();
   let rowIterator: AsyncIterator<ExcelJS.Row> | null = null;
   let sawSheet = false;
+  let sheetNames: string[] = [];
+  let sheetName: string | undefined;
   let width = 0;
   const close = async () => {
     input.destroy();
   };
   const broken = (e: unknown) => (e instanceof ImportFileError ? e : new ImportFileError('not-xlsx', NOT_A_READABLE_WORKBOOK, undefined, e));
 
+  /** Opens the next sheet for reading (after one that did not read as a table); false when there is none. */
+  const moreSheets = async (): Promise<boolean> => {
+    try {
+      for (;;) {
+        const sheet = await sheets.next();
+        if (sheet.done) return false;
+        const ws = sheet.value as unknown as { name?: string } & AsyncIterable<ExcelJS.Row>;
+        sheetName = ws.name;
+        rowIterator = ws[Symbol.asyncIterator]();
+        return true;
+      }
+    } catch (e) {
+      throw broken(e);
+    }
+  };
   const next = async (): Promise<RawRow | null> => {
     try {
-      if (!rowIterator) {
+      while (!rowIterator) {
         const sheet = await sheets.next();
         if (sheet.done) {
           if (sawSheet) return null;
+          if (options.sheet !== undefined && sheetNames.length > 0) {
+            throw new ImportFileError(
+              'no-such-sheet',
+              `the workbook has no sheet named "${options.sheet}"; its sheets are ${sheetNames.map((n) => `"${n}"`).join(', ')}`,
+            );
+          }
           throw new ImportFileError(
             'not-xlsx',
             'the file is a ZIP archive but holds no worksheet: is it an XLSX workbook? Save it again from your spreadsheet program as .xlsx and upload that',
           );
         }
+        const ws = sheet.value as unknown as { name?: string } & AsyncIterable<ExcelJS.Row>;
+        if (sheetNames.length === 0) {
+          const model = (reader as unknown as { model?: { sheets?: { name?: unknown }[] } }).model;
+          sheetNames = (model?.sheets ?? []).map((m) => String(m.name ?? '')).filter(Boolean);
+        }
+        // a sheet not chosen is passed over: its rows are drained unread
+        if (options.sheet !== undefined && ws.name !== options.sheet) continue;
         sawSheet = true;
-        rowIterator = sheet.value[Symbol.asyncIterator]();
+        sheetName = ws.name;
+        rowIterator = ws[Symbol.asyncIterator]();
       }
       for (;;) {
         const r = await rowIterator.next();
@@ -106,11 +139,26 @@ export async function openXlsxTable(filePath: string, options: XlsxReadOptions =
   };
 
   try {
-    const { head, located, buffered } = await readHeaderBlock(next, {
-      empty: 'the first worksheet is empty',
+    const messages = {
+      empty: options.sheet !== undefined ? `the sheet "${options.sheet}" is empty` : 'the first worksheet is empty',
       noHeader: `no header row found in the first ${HEADER_SEARCH_ROWS} rows: the sheet must name its columns`,
       noData: 'the sheet has a header but no data rows',
-    });
+    };
+    let block: Awaited<ReturnType<typeof readHeaderBlock>> | null = null;
+    let firstProblem: unknown = null;
+    // No sheet named: the first sheet that reads as a table (a notes sheet before the data is passed over).
+    while (!block) {
+      try {
+        block = await readHeaderBlock(next, messages);
+      } catch (e) {
+        const tableProblem = e instanceof ImportFileError && (e.code === 'no-header-row' || e.code === 'empty-file' || e.code === 'no-data-rows');
+        if (options.sheet !== undefined || !tableProblem) throw e;
+        firstProblem ??= e;
+        rowIterator = null;
+        if (!(await moreSheets())) throw firstProblem;
+      }
+    }
+    const { head, located, buffered } = block;
     width = located.headers.length;
     for (const r of buffered) while (r.cells.length < width) r.cells.push('');
     async function* chunks(): AsyncGenerator<RawRow[]> {
@@ -126,7 +174,15 @@ export async function openXlsxTable(filePath: string, options: XlsxReadOptions =
         await close();
       }
     }
-    return tableFrom('xlsx', located.headers, head[located.dataIndex - 1]!.line, buffered, chunks(), close);
+    const table = tableFrom(
+      'xlsx',
+      { ...located, titleLines: titleLinesOf(head, located.headerIndex) },
+      head[located.dataIndex - 1]!.line,
+      buffered,
+      chunks(),
+      close,
+    );
+    return { ...table, sheets: sheetNames.length ? sheetNames : sheetName ? [sheetName] : [], ...(sheetName !== undefined ? { sheet: sheetName } : {}) };
   } catch (e) {
     await close();
     throw e;

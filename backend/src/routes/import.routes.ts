@@ -7,8 +7,18 @@ import { idParam } from '../http/params.js';
 import type { RouteSpec } from '../http/route-registry.js';
 import { singleFileUpload } from '../http/upload.js';
 import { scopeOf } from '../policies/tenant-scope.js';
-import { errorReportCsv, findImport, importView, listImports, receiveUpload, startImport, undoImport, unitForUpload } from '../services/import.service.js';
-import { importsResponse, importView as importViewSchema, uploadResponse } from '@shared/schemas/imports.js';
+import {
+  chooseSheet,
+  errorReportCsv,
+  findImport,
+  importView,
+  listImports,
+  receiveUpload,
+  startImport,
+  undoImport,
+  unitForUpload,
+} from '../services/import.service.js';
+import { chooseSheetBody, importsResponse, importView as importViewSchema, uploadResponse } from '@shared/schemas/imports.js';
 import { statusWordsBody, statusWordsResponse } from '@shared/schemas/historian-status.js';
 import { getStatusWords, setStatusWords } from '../services/historian-status.service.js';
 
@@ -48,6 +58,16 @@ export function importRoutes(ds: DataSource, config: Config): RouteSpec[] {
       before: [async (req, _res, next) => unitOrThrow(req).then(() => next(), next), upload],
       description: 'Upload a historian CSV or XLSX (up to 200 MB): returns its columns, first rows and a proposed mapping',
       handler: async (req, res) => res.status(201).json(await receiveUpload(ds, scopeOf(req.actor), idParam(req), req.file!)),
+    },
+    {
+      method: 'post',
+      path: '/api/imports/:id/sheet',
+      response: uploadResponse,
+      access: 'data.write',
+      tenantScoped: true,
+      body: chooseSheetBody,
+      description: 'Read another sheet of an uploaded XLSX workbook for the mapping: its columns, first rows and a proposed mapping',
+      handler: async (req, res) => res.json(await chooseSheet(ds, scopeOf(req.actor), idParam(req), req.body.sheet)),
     },
     {
       method: 'get',

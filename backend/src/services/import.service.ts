@@ -69,35 +69,70 @@ export const findImport = (ds: DataSource, scope: TenantScope, importId: string)
 export const unitForUpload = (ds: DataSource, scope: TenantScope, unitId: string): Promise<GeneratingUnit> =>
   foundInScope(findUnit(ds.manager, scope, unitId), 'No such unit');
 
+/** Reads a stored upload's header, units row, title lines and first rows (XLSX: the given sheet, else the first). */
+async function readPreview(filePath: string, sheet?: string) {
+  const table = await openTable(filePath, sheet !== undefined ? { sheet } : {});
+  try {
+    return {
+      kind: table.kind,
+      headers: table.headers,
+      units: table.units,
+      titleLines: table.titleLines,
+      sampleRows: table.sampleRows.slice(0, 10),
+      sheets: table.sheets ?? [],
+      sheet: table.sheet ?? null,
+    };
+  } finally {
+    await table.close();
+  }
+}
+
+/** The proposed mapping of a preview: the unit's saved one when it fits the file, else a guess (which reads the units row). */
+function proposeMapping(preview: Awaited<ReturnType<typeof readPreview>>, unit: GeneratingUnit, timeZone: string) {
+  const guess = guessMapping(preview.headers, preview.sampleRows, { timeZone });
+  const saved = unit.savedMapping ? importMappingSchema.safeParse(unit.savedMapping) : null;
+  const savedFits = saved?.success && headersCover(saved.data, preview.headers);
+  const sheet = preview.sheet !== null && preview.sheets.length > 1 ? { sheet: preview.sheet } : {};
+  const mapping = savedFits ? { ...saved!.data, ...sheet } : { ...guess.mapping, ...sheet };
+  return { guess, mapping, source: savedFits ? ('saved' as const) : ('guessed' as const) };
+}
+
+const previewAnswer = (imp: DataImport, preview: Awaited<ReturnType<typeof readPreview>>, proposed: ReturnType<typeof proposeMapping>) => ({
+  import: importView(imp),
+  headers: preview.headers,
+  units: preview.units,
+  titleLines: preview.titleLines,
+  sheets: preview.sheets,
+  sheet: preview.sheet,
+  sampleRows: preview.sampleRows,
+  guess: proposed.guess,
+  proposedMapping: imp.mapping,
+  mappingSource: proposed.source,
+});
+
 /** Stores the upload, reads its header and first rows, and proposes a mapping (the unit's saved one when it fits). */
 export async function receiveUpload(ds: DataSource, scope: TenantScope, unitId: string, file: UploadedFile) {
   const { unit, plant } = await foundInScope(findUnitWithPlant(ds.manager, scope, unitId), 'No such unit').catch(async (err: unknown) => {
     await rm(file.path, { force: true });
     throw err;
   });
-  let table;
+  let preview;
   try {
-    table = await openTable(file.path);
+    preview = await readPreview(file.path);
   } catch (err) {
     await rm(file.path, { force: true });
     throw badRequest(`This file cannot be read as a table: ${err instanceof Error ? err.message : String(err)}`);
   }
-  const headers = table.headers;
-  const sampleRows = table.sampleRows.slice(0, 10);
-  const kind = table.kind;
-  await table.close();
-  const guess = guessMapping(headers, sampleRows, { timeZone: plant.timeZone });
-  const saved = unit.savedMapping ? importMappingSchema.safeParse(unit.savedMapping) : null;
-  const savedFits = saved?.success && headersCover(saved.data, headers);
+  const proposed = proposeMapping(preview, unit, plant.timeZone);
   const imp = await ds.getRepository(DataImport).save({
     organisationId: scope.organisationId,
     unitId,
     uploadedByUserId: scope.userId,
     fileName: file.originalname.slice(0, 255),
     fileBytes: file.size,
-    fileKind: kind,
+    fileKind: preview.kind,
     status: 'mapping',
-    mapping: savedFits ? saved!.data : guess.mapping,
+    mapping: proposed.mapping,
     counts: null,
     errors: null,
     errorCount: 0,
@@ -109,7 +144,26 @@ export async function receiveUpload(ds: DataSource, scope: TenantScope, unitId: 
     lastTimestamp: null,
     finishedAt: null,
   });
-  return { import: importView(imp), headers, sampleRows, guess, proposedMapping: imp.mapping, mappingSource: savedFits ? 'saved' : 'guessed' };
+  return previewAnswer(imp, preview, proposed);
+}
+
+/** Reads another sheet of an uploaded workbook for the mapping step (the import is still being mapped). */
+export async function chooseSheet(ds: DataSource, scope: TenantScope, importId: string, sheet: string) {
+  const imp = await findImport(ds, scope, importId);
+  if (imp.status !== 'mapping') throw new AppError(409, `This import is ${imp.status} already`);
+  if (imp.fileKind !== 'xlsx') throw badRequest('Only an XLSX workbook has sheets to choose from');
+  if (!imp.storedPath) throw new AppError(409, 'The uploaded file is gone: upload it again');
+  const { unit, plant } = await foundInScope(findUnitWithPlant(ds.manager, scope, imp.unitId), 'No such unit');
+  let preview;
+  try {
+    preview = await readPreview(imp.storedPath, sheet);
+  } catch (err) {
+    throw badRequest(`This sheet cannot be read as a table: ${err instanceof Error ? err.message : String(err)}`);
+  }
+  const proposed = proposeMapping(preview, unit, plant.timeZone);
+  proposed.mapping = { ...proposed.mapping, sheet };
+  await ds.getRepository(DataImport).update({ id: imp.id }, { mapping: proposed.mapping });
+  return previewAnswer(await ds.getRepository(DataImport).findOneByOrFail({ id: imp.id }), preview, proposed);
 }
 
 /** Whether every column a mapping names is among the file's headers. */

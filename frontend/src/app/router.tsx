@@ -13,6 +13,7 @@ import { mailboxQueryOptions } from '@frontend/features/dev-mailbox/api/get-mail
 import { invitationsQueryOptions } from '@frontend/features/members/api/get-invitations';
 import { membersQueryOptions } from '@frontend/features/members/api/get-members';
 import { plantsQueryOptions } from '@frontend/features/plants/api/get-plants';
+import { portfolioQueryOptions } from '@frontend/features/portfolio/api/get-portfolio';
 import { invitationLinkQueryOptions } from '@frontend/features/session/api/get-invitation-link';
 import { sessionQueryOptions } from '@frontend/features/session/api/get-session';
 import { unitQueryOptions } from '@frontend/features/units/api/get-unit';
@@ -190,6 +191,7 @@ const router = createBrowserRouter([
       {
         index: true,
         handle: { title: 'Overview' },
+        loader: tenantLoader('data.read', (org) => [prefetch(portfolioQueryOptions(org))]),
         lazy: page(
           () => import('./routes/overview'),
           (m) => m.OverviewPage,

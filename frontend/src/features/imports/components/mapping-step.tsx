@@ -16,6 +16,7 @@ import { SelectField } from '@frontend/components/ui/select-field';
 import { TimeZonePicker } from '@frontend/components/ui/time-zone-picker';
 import { ApiError } from '@frontend/lib/api-client';
 import { formatStored, parseNumberText, type FieldUnits } from '@frontend/lib/field-units';
+import { useChooseSheet } from '../api/choose-sheet';
 import { useStartImport } from '../api/start-import';
 import type { ImportView } from '../api/get-import';
 import type { UploadResponse } from '../api/upload-historian-file';
@@ -60,8 +61,36 @@ const defaultUnit = (q: ImportQuantity, guessed: string | null | undefined): str
   return guessed && allowed.includes(guessed) ? guessed : allowed[0];
 };
 
-/** Step 2: what each column is and in which unit, how to read the timestamps, and the assumptions for missing meters. */
-export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlowM3s, units, onStarted, onCancel }: Props) {
+/** Step 2, with the sheet of a workbook chosen first: a new sheet starts its mapping afresh. */
+export function MappingStep(props: Props) {
+  const [view, setView] = useState(props.upload);
+  const choose = useChooseSheet();
+  return (
+    <div className="flex flex-col gap-2">
+      {view.sheets.length > 1 && (
+        <div className="max-w-xs">
+          <SelectField
+            label="Sheet of the workbook"
+            value={view.sheet ?? ''}
+            disabled={choose.isPending}
+            onChange={(e) => choose.mutate({ importId: view.import.id, sheet: e.target.value }, { onSuccess: setView })}
+          >
+            {view.sheets.map((name) => (
+              <option key={name} value={name}>
+                {name}
+              </option>
+            ))}
+          </SelectField>
+        </div>
+      )}
+      {choose.isError && <Notice tone="fault">{choose.error.message}</Notice>}
+      <MappingForm key={view.sheet ?? ''} {...props} upload={view} />
+    </div>
+  );
+}
+
+/** What each column is and in which unit, how to read the timestamps, and the assumptions for missing meters. */
+function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, units, onStarted, onCancel }: Props) {
   const start = useStartImport(organisationId);
   const proposed = upload.proposedMapping;
   const [assignments, setAssignments] = useState(() => initialAssignments(upload));
@@ -111,6 +140,7 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
     }
     const barometer = parseNumberText(barometerText);
     return {
+      ...(upload.sheet !== null && upload.sheets.length > 1 && { sheet: upload.sheet }),
       timestamp: {
         column: timestampColumn,
         format,
@@ -133,6 +163,8 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
       }),
     };
   }, [
+    upload.sheet,
+    upload.sheets,
     assignments,
     format,
     timeZone,
@@ -172,7 +204,18 @@ export function MappingStep({ organisationId, upload, plantTimeZone, designCwFlo
             ? 'Filled in from this unit’s last import, which had the same columns.'
             : 'Filled in from the column names and values; check every row, then start the import.'}{' '}
           The mapping is kept for the next file.
+          {upload.units.some(Boolean) && ' The units row under the names was read: the units it gives are proposed below.'}
         </p>
+        {upload.titleLines.length > 0 && (
+          <details className="mt-1 text-xs text-ink-soft">
+            <summary className="cursor-pointer">Lines above the header ({upload.titleLines.length}), not imported</summary>
+            <ul className="ml-5 list-disc font-mono">
+              {upload.titleLines.map((line, k) => (
+                <li key={k}>{line}</li>
+              ))}
+            </ul>
+          </details>
+        )}
       </div>
 
       <DataTable
