@@ -87,6 +87,7 @@ describe('API answers on the demo data', () => {
       '/api/members': ['/api/members'],
       '/api/invitations': ['/api/invitations'],
       '/api/client-groups': ['/api/client-groups'],
+      '/api/organisation/historian-status-words': ['/api/organisation/historian-status-words'],
       '/api/client-groups/:id': [`/api/client-groups/${groups[0]!.id}`],
       '/api/api-tokens': ['/api/api-tokens'],
       '/api/audit-events': ['/api/audit-events'],
