@@ -4,6 +4,7 @@ import { AppError } from './app-error.js';
 
 const ER_LOCK_WAIT_TIMEOUT = 1205;
 const ER_LOCK_DEADLOCK = 1213;
+const ER_DUP_ENTRY = 1062;
 
 /** One JSON error shape; never a stack trace. */
 export function errorHandler(err: unknown, req: Request, res: Response, _next: NextFunction): void {
@@ -15,6 +16,11 @@ export function errorHandler(err: unknown, req: Request, res: Response, _next: N
   const errno = (err as { driverError?: { errno?: number } } | null)?.driverError?.errno;
   if (err instanceof QueryFailedError && (errno === ER_LOCK_DEADLOCK || errno === ER_LOCK_WAIT_TIMEOUT)) {
     res.status(409).json({ error: 'Someone changed the same records at the same time; nothing was changed by this request. Reload and try again.' });
+    return;
+  }
+  // The same record saved twice at once (a double click): a unique index kept the second out, so nothing changed.
+  if (err instanceof QueryFailedError && errno === ER_DUP_ENTRY) {
+    res.status(409).json({ error: 'The same record was saved a moment ago (a second click?); this request changed nothing. Reload to see it.' });
     return;
   }
   const status = typeof err === 'object' && err && 'status' in err ? Number((err as { status: number }).status) : 500;

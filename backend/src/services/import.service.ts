@@ -181,7 +181,11 @@ export async function startImport(ds: DataSource, scope: TenantScope, importId: 
     throw badRequest('The column mapping is incomplete', { fieldErrors: parsed.error.issues.map((i) => ({ path: i.path.join('.'), message: i.message })) });
   }
   await ds.transaction(async (em) => {
-    await em.getRepository(DataImport).update({ id: imp.id }, { status: 'checking', mapping: parsed.data, progress: 0, message: 'Waiting to start' });
+    // Only from 'mapping': of two starts sent at once (a double click) the second changes nothing and is told so.
+    const started = await em
+      .getRepository(DataImport)
+      .update({ id: imp.id, status: 'mapping' }, { status: 'checking', mapping: parsed.data, progress: 0, message: 'Waiting to start' });
+    if (!started.affected) throw new AppError(409, 'This import was started already (a moment ago, perhaps by a second click)');
     await em.getRepository(GeneratingUnit).update({ id: imp.unitId }, { savedMapping: parsed.data });
     await enqueueJob(em, { organisationId: imp.organisationId, unitId: imp.unitId, kind: 'import', payload: { importId: imp.id } });
     await recordAudit(em, {

@@ -7,6 +7,7 @@ import { CleaningCase } from '../../entities/cleaning-case.entity.js';
 import type { GeneratingUnit } from '../../entities/generating-unit.entity.js';
 import type { Plant } from '../../entities/plant.entity.js';
 import type { TenantScope } from '../../policies/tenant-scope.js';
+import { AppError } from '../../http/app-error.js';
 import { recordAudit } from '../audit.service.js';
 import { unitForCases } from './case-access.js';
 import { prefillCase } from './case-prefill.js';
@@ -37,6 +38,7 @@ export async function storeNewCase(
   computed?: CalcScheduleOutput,
 ): Promise<CaseView> {
   const results = computed ?? computeNewCase(c.inputs);
+  await refuseSecondClick(em, scope, found.unit.id, c.title);
   const now = new Date();
   const record = await em.getRepository(CleaningCase).save(
     em.getRepository(CleaningCase).create({
@@ -75,6 +77,23 @@ export async function storeNewCase(
     details: { title: c.title, unitId: found.unit.id, npv: results.businessCase.npv, ...(c.copiedFromId ? { copiedFromId: c.copiedFromId } : {}) },
   });
   return caseViewOf(em, scope, { unit: found.unit, plant: found.plant, record });
+}
+
+/** How long a case of the same title by the same person on the same unit counts as the same form sent twice. */
+const SECOND_CLICK_SECONDS = 10;
+
+/**
+ * The same form sent twice at once (a double click) makes one case: the unit's row is locked for the rest of the
+ * transaction, so a second request waits here and then sees the first one's case.
+ */
+async function refuseSecondClick(em: EntityManager, scope: TenantScope, unitId: string, title: string): Promise<void> {
+  await em.query('SELECT id FROM generating_unit WHERE id = ? FOR UPDATE', [unitId]);
+  const twin: unknown[] = await em.query(
+    `SELECT id FROM cleaning_case WHERE unitId = ? AND authorId = ? AND title = ? AND createdAt >= NOW(3) - INTERVAL ${SECOND_CLICK_SECONDS} SECOND LIMIT 1`,
+    [unitId, scope.userId, title],
+  );
+  if (twin.length > 0)
+    throw new AppError(409, `You created the case “${title}” on this unit moments ago; open it from the list (this request changed nothing)`);
 }
 
 /** The prefill reads and the calculation happen before the transaction that writes the case. */
