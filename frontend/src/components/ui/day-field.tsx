@@ -1,7 +1,7 @@
 import { useId, useRef, useState, type InputHTMLAttributes } from 'react';
 import { readDayText } from '@shared/text/day-text';
 import { formatDay } from '@frontend/lib/format';
-import { RequiredMark } from './required-mark';
+import { FieldLabel } from './required-mark';
 
 interface Props extends Omit<InputHTMLAttributes<HTMLInputElement>, 'onChange' | 'value' | 'type'> {
   label: string;
@@ -41,10 +41,9 @@ export function DayField({ label, value, onChange, error: formError, hint, requi
   };
   return (
     <div className={`flex flex-col gap-1 ${className}`}>
-      <label htmlFor={id} className="text-sm font-medium text-ink">
+      <FieldLabel htmlFor={id} required={required}>
         {label}
-        {required && <RequiredMark />}
-      </label>
+      </FieldLabel>
       <div className="flex items-stretch">
         <input
           id={id}

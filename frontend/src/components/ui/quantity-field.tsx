@@ -1,6 +1,6 @@
 import { useId, type InputHTMLAttributes } from 'react';
 import { numberTextNote } from '@frontend/lib/field-units';
-import { RequiredMark } from './required-mark';
+import { FieldLabel } from './required-mark';
 
 interface Props extends Omit<InputHTMLAttributes<HTMLInputElement>, 'onChange' | 'value'> {
   label: string;
@@ -25,11 +25,10 @@ export function QuantityField({ label, unit, value, onChange, error: formError, 
   const describedBy = [error ? `${id}-error` : null, hint ? `${id}-hint` : null].filter(Boolean).join(' ') || undefined;
   return (
     <div className={`flex flex-col gap-1 ${className}`}>
-      <label htmlFor={id} className="text-sm font-medium text-ink">
+      <FieldLabel htmlFor={id} required={required}>
         {label}
         {unit && <span className="sr-only"> ({unit})</span>}
-        {required && <RequiredMark />}
-      </label>
+      </FieldLabel>
       <div className="flex items-stretch">
         <input
           id={id}

@@ -1,5 +1,5 @@
 import { useId, type ReactNode, type SelectHTMLAttributes } from 'react';
-import { RequiredMark } from './required-mark';
+import { FieldLabel } from './required-mark';
 
 interface Props extends SelectHTMLAttributes<HTMLSelectElement> {
   label: string;
@@ -14,10 +14,9 @@ export function SelectField({ label, error, hint, children, required, ...select 
   const describedBy = [error ? `${id}-error` : null, hint ? `${id}-hint` : null].filter(Boolean).join(' ') || undefined;
   return (
     <div className="flex flex-col gap-1">
-      <label htmlFor={id} className="text-sm font-medium text-ink">
+      <FieldLabel htmlFor={id} required={required}>
         {label}
-        {required && <RequiredMark />}
-      </label>
+      </FieldLabel>
       <select
         id={id}
         aria-required={required || undefined}

@@ -1,5 +1,5 @@
 import { useId, type InputHTMLAttributes } from 'react';
-import { RequiredMark } from './required-mark';
+import { FieldLabel } from './required-mark';
 
 interface Props extends InputHTMLAttributes<HTMLInputElement> {
   label: string;
@@ -13,10 +13,9 @@ export function TextField({ label, error, hint, required, ...input }: Props) {
   const describedBy = [error ? `${id}-error` : null, hint ? `${id}-hint` : null].filter(Boolean).join(' ') || undefined;
   return (
     <div className="flex flex-col gap-1">
-      <label htmlFor={id} className="text-sm font-medium text-ink">
+      <FieldLabel htmlFor={id} required={required}>
         {label}
-        {required && <RequiredMark />}
-      </label>
+      </FieldLabel>
       <input
         id={id}
         required={required}

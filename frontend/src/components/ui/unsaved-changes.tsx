@@ -7,15 +7,19 @@ import { Button } from './button';
  * the tab is closed or reloaded with the browser's own question.
  */
 export function UnsavedChangesGuard({ dirty }: { dirty: boolean }) {
-  const blocker = useBlocker(({ currentLocation, nextLocation }) => dirty && currentLocation.pathname !== nextLocation.pathname);
+  // The router keeps one blocker at a time: a page with several forms (the unit's setup) registers only the changed one's.
+  return dirty ? <AskBeforeLeaving /> : null;
+}
+
+function AskBeforeLeaving() {
+  const blocker = useBlocker(({ currentLocation, nextLocation }) => currentLocation.pathname !== nextLocation.pathname);
   const stayRef = useRef<HTMLButtonElement>(null);
 
   useEffect(() => {
-    if (!dirty) return;
     const ask = (e: BeforeUnloadEvent) => e.preventDefault();
     window.addEventListener('beforeunload', ask);
     return () => window.removeEventListener('beforeunload', ask);
-  }, [dirty]);
+  }, []);
 
   useEffect(() => {
     if (blocker.state !== 'blocked') return;
