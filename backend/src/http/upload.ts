@@ -6,6 +6,7 @@ import multer from 'multer';
 import { MAX_UPLOAD_BYTES } from '@shared/limits.js';
 import { AppError } from './app-error.js';
 
+const NO_ROOM = 'The server has no room to store this file right now, so nothing was stored: try again later, and tell your administrator if it persists';
 const UPLOAD_UNREADABLE = 'The upload was cut off or is incomplete, so nothing was stored: upload the file again';
 
 const MULTER_MESSAGES: Partial<Record<multer.ErrorCode, string>> = {
@@ -43,6 +44,11 @@ export function singleFileUpload(uploadDir: string): RequestHandler {
       if (err instanceof multer.MulterError) {
         if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, `The file is larger than ${MAX_UPLOAD_BYTES / 1024 / 1024} MB`));
         return next(new AppError(400, MULTER_MESSAGES[err.code] ?? UPLOAD_UNREADABLE));
+      }
+      const code = (err as { code?: unknown } | null)?.code;
+      if (code === 'ENOSPC' || code === 'EDQUOT') {
+        req.log?.error({ err }, 'upload refused: no room on the upload folder');
+        return next(new AppError(507, NO_ROOM));
       }
       req.log?.warn({ err }, 'upload refused: the form could not be read');
       next(new AppError(400, UPLOAD_UNREADABLE));
