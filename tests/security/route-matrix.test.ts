@@ -263,6 +263,16 @@ const MATRIX: Record<string, Entry> = {
   },
   'GET /api/cases/:id/report.pdf': { path: async (fx) => `/api/cases/${(await freshCase(fx, 'approved')).id}/report.pdf`, expect: readers(200) },
   'GET /api/cases/:id/export.xlsx': { path: async (fx) => `/api/cases/${(await freshCase(fx, 'approved')).id}/export.xlsx`, expect: readers(200) },
+  // Billing: administrators without a client-group limit; tenant A is on its trial (no subscription to change or cancel).
+  'GET /api/billing': { expect: adminsOnly(200, { otherGroup: 403 }) },
+  'GET /api/billing/notice': { expect: members(200) },
+  'POST /api/billing/checkout': { body: () => ({ price: 'cleancase_consultancy_month' }), expect: adminsOnly(200, { otherGroup: 403 }) },
+  'POST /api/billing/portal': { expect: adminsOnly(200, { otherGroup: 403 }) },
+  'POST /api/billing/change': { body: () => ({ price: 'cleancase_fleet_month' }), expect: adminsOnly(409, { otherGroup: 403 }) },
+  'POST /api/billing/cancel': { expect: adminsOnly(409, { otherGroup: 403 }) },
+  'POST /api/billing/resume': { expect: adminsOnly(409, { otherGroup: 403 }) },
+  // Public, without session or CSRF header; an unsigned body is refused for everyone.
+  'POST /api/billing/webhook': { body: () => ({ type: 'invoice.paid' }), expect: all(400) },
   // Outages: planned by admins, analysts and approvers; approved by approvers and admins; deleted by admins; viewers read approved ones only.
   'GET /api/outages': { expect: members(200) },
   'POST /api/outages': {
