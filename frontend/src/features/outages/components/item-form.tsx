@@ -15,6 +15,7 @@ import { FormActions } from '@frontend/components/ui/form-actions';
 import { FormProblems, useFocusFirstProblem } from '@frontend/components/ui/form-problems';
 import { Notice } from '@frontend/components/ui/notice';
 import { QuantityField } from '@frontend/components/ui/quantity-field';
+import { RequiredMark, RequiredNote } from '@frontend/components/ui/required-mark';
 import { SelectField } from '@frontend/components/ui/select-field';
 import { TextField } from '@frontend/components/ui/text-field';
 import { UnsavedChangesGuard } from '@frontend/components/ui/unsaved-changes';
@@ -183,9 +184,11 @@ export function ItemForm({ organisationId, outage, approvedCases, item, onDone }
     >
       <UnsavedChangesGuard dirty={dirty} />
       {!item && <h3 className="text-base font-semibold">Add work</h3>}
+      <RequiredNote />
       <FormProblems errors={fieldErrors} />
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
         <SelectField
+          required
           label="Unit"
           value={v.unitId}
           disabled={!!item}
@@ -216,6 +219,7 @@ export function ItemForm({ organisationId, outage, approvedCases, item, onDone }
         {fromCase && !item && (
           <div className="sm:col-span-2">
             <SelectField
+              required
               label="Approved case"
               value={v.caseId}
               onChange={(e) => set('caseId')(e.target.value)}
@@ -243,6 +247,7 @@ export function ItemForm({ organisationId, outage, approvedCases, item, onDone }
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
         <div className="sm:col-span-2">
           <TextField
+            required={!fromCase}
             label={fromCase && !item ? 'Title (optional)' : 'Title'}
             value={v.title}
             maxLength={120}
@@ -252,6 +257,7 @@ export function ItemForm({ organisationId, outage, approvedCases, item, onDone }
           />
         </div>
         <QuantityField
+          required={!fromCase}
           label={fromCase && !item ? 'Cost (optional)' : 'Cost'}
           unit={outage.currency}
           value={v.cost}
@@ -260,6 +266,7 @@ export function ItemForm({ organisationId, outage, approvedCases, item, onDone }
           placeholder={fromCase && !item ? 'from the case' : undefined}
         />
         <QuantityField
+          required={!fromCase}
           label={fromCase && !item ? 'Duration (optional)' : 'Duration'}
           unit="days"
           value={v.duration}
@@ -271,6 +278,7 @@ export function ItemForm({ organisationId, outage, approvedCases, item, onDone }
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
         <div>
           <TextField
+            required
             label="Crew lane"
             value={v.lane}
             maxLength={40}
@@ -298,7 +306,10 @@ export function ItemForm({ organisationId, outage, approvedCases, item, onDone }
         <p className="text-xs text-ink-soft">The benefit comes from the case: the saving of doing its cleaning in this outage against the case’s baseline.</p>
       ) : (
         <fieldset className="flex flex-col gap-2">
-          <legend className="mb-1 text-sm font-medium text-ink">Benefit</legend>
+          <legend className="mb-1 text-sm font-medium text-ink">
+            Benefit
+            <RequiredMark />
+          </legend>
           <div className="flex flex-wrap gap-4 text-sm">
             <label className="flex items-center gap-2">
               <input type="radio" name="benefit-way" checked={v.way === 'money'} onChange={() => set('way')('money')} />
@@ -311,10 +322,11 @@ export function ItemForm({ organisationId, outage, approvedCases, item, onDone }
           </div>
           <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
             {v.way === 'money' ? (
-              <QuantityField label="Benefit" unit={outage.currency} value={v.money} onChange={set('money')} error={benefitError} />
+              <QuantityField required label="Benefit" unit={outage.currency} value={v.money} onChange={set('money')} error={benefitError} />
             ) : (
               <>
                 <QuantityField
+                  required
                   label="Cleanliness recovered"
                   unit="points"
                   value={v.points}
@@ -323,6 +335,7 @@ export function ItemForm({ organisationId, outage, approvedCases, item, onDone }
                   hint="Points of cleanliness factor, e.g. 4 for 78 % → 82 %"
                 />
                 <QuantityField
+                  required
                   label="Horizon"
                   unit="days"
                   value={v.horizon}

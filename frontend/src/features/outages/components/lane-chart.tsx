@@ -1,3 +1,4 @@
+import { useEffect, useRef, useState } from 'react';
 import type { OutageItemView } from '@shared/schemas/outages';
 import { addDays } from '@shared/domain/calendar/plant-date';
 import { ChartTable } from '@frontend/components/ui/chart-table';
@@ -27,7 +28,22 @@ export function placeWork(
 
 const ROW = 34;
 const LABEL = 150;
-const WIDTH = 760;
+/** The drawing's width follows its box, so its text stays the size of the page's (a scaled drawing would grow it). */
+function useBoxWidth(fallback: number) {
+  const ref = useRef<HTMLDivElement>(null);
+  const [width, setWidth] = useState(fallback);
+  useEffect(() => {
+    const box = ref.current;
+    if (!box) return;
+    const measure = () => box.clientWidth > 0 && setWidth(Math.max(320, Math.floor(box.clientWidth)));
+    measure();
+    const observer = new ResizeObserver(measure);
+    observer.observe(box);
+    return () => observer.disconnect();
+  }, []);
+  return { ref, width };
+}
+
 const TOP = 22;
 const WORK = '#2f7a99';
 const WORK_EDGE = '#1a4f66';
@@ -38,6 +54,7 @@ const OVERRUN = '#a3262a';
  * window's last day is the dark line, and work past it is drawn in red. A table of the same placing opens below.
  */
 export function LaneChart({ items, startDate, windowDays }: { items: readonly OutageItemView[]; startDate: string; windowDays: number }) {
+  const { ref, width: WIDTH } = useBoxWidth(720);
   const lanes = placeWork(items);
   const span = Math.max(windowDays, ...lanes.map((l) => l.days), 1);
   const plot = WIDTH - LABEL - 12;
@@ -55,10 +72,12 @@ export function LaneChart({ items, startDate, windowDays }: { items: readonly Ou
   );
   if (lanes.length === 0) return <p className="text-sm text-ink-soft">No work chosen, so no lanes to draw.</p>;
   return (
-    <div className="flex flex-col gap-2" data-testid="outage-lane-chart">
+    <div ref={ref} className="flex min-w-0 flex-col gap-2" data-testid="outage-lane-chart">
       <svg
         viewBox={`0 0 ${WIDTH} ${height}`}
-        className="w-full"
+        width={WIDTH}
+        height={height}
+        className="max-w-full"
         role="img"
         aria-label={`Chosen work in ${lanes.length} ${lanes.length === 1 ? 'lane' : 'lanes'} across a window of ${daysText(windowDays)}; longest lane ${daysText(Math.max(...lanes.map((l) => l.days)))}`}
       >

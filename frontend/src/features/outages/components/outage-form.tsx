@@ -1,13 +1,15 @@
 import { useEffect, useRef, useState, type FormEvent } from 'react';
 import { outageCreate, outagePatch, windowDays, type OutageView } from '@shared/schemas/outages';
+import { readDayText } from '@shared/text/day-text';
+import { DayField } from '@frontend/components/ui/day-field';
 import { FormActions } from '@frontend/components/ui/form-actions';
 import { FormProblems, useFocusFirstProblem } from '@frontend/components/ui/form-problems';
 import { Notice } from '@frontend/components/ui/notice';
 import { QuantityField } from '@frontend/components/ui/quantity-field';
+import { RequiredMark, RequiredNote } from '@frontend/components/ui/required-mark';
 import { TextField } from '@frontend/components/ui/text-field';
 import { UnsavedChangesGuard } from '@frontend/components/ui/unsaved-changes';
 import { parseNumberText } from '@frontend/lib/field-units';
-import { formatDay } from '@frontend/lib/format';
 import { formMessage, serverFieldErrors, zodFieldErrors, type FieldErrors } from '@frontend/lib/form-errors';
 import { useCreateOutage } from '../api/create-outage';
 import { useUpdateOutage } from '../api/update-outage';
@@ -37,6 +39,18 @@ interface Props {
 }
 
 const budgetText = (v: number | undefined) => (v === undefined ? '' : String(v));
+
+/**
+ * A day field's problem in the words of the day fields (the schema speaks of the stored form, YYYY-MM-DD): blank
+ * asks for the day, text that is no day says why; a day that breaks the window's rules keeps the schema's words.
+ */
+function dayProblem(what: string, value: string, schemaMessage: string | undefined): string | undefined {
+  if (schemaMessage === undefined) return undefined;
+  const read = readDayText(value);
+  if (read.kind === 'blank') return `Enter the ${what}, e.g. 6 Apr 2026`;
+  if (read.kind === 'invalid') return read.message;
+  return schemaMessage;
+}
 
 /**
  * Name, units, window (first and last plant-local day, both inside it) and budget of an outage. The same schema
@@ -72,7 +86,17 @@ export function OutageForm({ organisationId, units, currency, currencyNote, onUn
       budget !== initial.budget);
 
   const plants = [...new Map(units.map((u) => [u.plantId, u.plantName]))];
-  const days = startDate && endDate && endDate >= startDate ? windowDays(startDate, endDate) : null;
+  const isDay = (d: string) => /^\d{4}-\d{2}-\d{2}$/.test(d);
+  const days = isDay(startDate) && isDay(endDate) && endDate >= startDate ? windowDays(startDate, endDate) : null;
+
+  const refuse = (errors: FieldErrors) => {
+    const out: FieldErrors = { ...errors };
+    const first = dayProblem('first day', startDate, errors.startDate);
+    const last = dayProblem('last day', endDate, errors.endDate);
+    if (first) out.startDate = first;
+    if (last) out.endDate = last;
+    setFieldErrors(out);
+  };
 
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
@@ -83,13 +107,13 @@ export function OutageForm({ organisationId, units, currency, currencyNote, onUn
         Object.entries(values).filter(([k, v]) => JSON.stringify(v) !== JSON.stringify(k === 'budget' ? outage.budget : initial[k as keyof typeof initial])),
       );
       const parsed = outagePatch.safeParse({ ...changed, seenUpdatedAt: outage.updatedAt });
-      if (!parsed.success) return setFieldErrors(zodFieldErrors(parsed.error));
+      if (!parsed.success) return refuse(zodFieldErrors(parsed.error));
       setFieldErrors({});
       update.mutate(parsed.data, { onSuccess: () => onDone?.(outage.id), onError });
       return;
     }
     const parsed = outageCreate.safeParse(values);
-    if (!parsed.success) return setFieldErrors(zodFieldErrors(parsed.error));
+    if (!parsed.success) return refuse(zodFieldErrors(parsed.error));
     setFieldErrors({});
     create.mutate(parsed.data, { onSuccess: (created) => onDone?.(created.id), onError });
   };
@@ -106,6 +130,7 @@ export function OutageForm({ organisationId, units, currency, currencyNote, onUn
     >
       <UnsavedChangesGuard dirty={dirty} />
       {!outage && <h2>New outage</h2>}
+      <RequiredNote />
       <FormProblems errors={fieldErrors} />
       <TextField
         label="Name"
@@ -118,11 +143,14 @@ export function OutageForm({ organisationId, units, currency, currencyNote, onUn
         required
       />
       <fieldset className="flex flex-col gap-1.5" aria-describedby={fieldErrors.unitIds ? 'outage-units-error' : undefined}>
-        <legend className="mb-1 text-sm font-medium text-ink">Units taken off line</legend>
+        <legend className="mb-1 text-sm font-medium text-ink">
+          Units taken off line
+          <RequiredMark />
+        </legend>
         {units.length === 0 && <p className="text-xs text-ink-faint">No units you may see: add a plant and its units under Plants first.</p>}
         <div className="grid gap-x-6 gap-y-2 sm:grid-cols-2">
           {plants.map(([plantId, plantName]) => (
-            <div key={plantId} className="flex flex-col gap-1">
+            <div key={plantId} role="group" aria-label={plantName} className="flex flex-col gap-1">
               <span className="text-xs text-ink-soft">{plantName}</span>
               {units
                 .filter((u) => u.plantId === plantId)
@@ -150,24 +178,17 @@ export function OutageForm({ organisationId, units, currency, currencyNote, onUn
         )}
       </fieldset>
       <div className="grid gap-3 sm:grid-cols-3">
-        <TextField
-          label="First day"
-          type="date"
-          value={startDate}
-          onChange={(e) => setStartDate(e.target.value)}
-          error={fieldErrors.startDate}
-          hint={startDate ? `${formatDay(startDate)}, plant-local` : 'Plant-local day'}
-        />
-        <TextField
+        <DayField required label="First day" value={startDate} onChange={setStartDate} error={fieldErrors.startDate} hint="Plant-local, e.g. 14 Mar 2026" />
+        <DayField
+          required
           label="Last day"
-          type="date"
           value={endDate}
-          min={startDate || undefined}
-          onChange={(e) => setEndDate(e.target.value)}
+          onChange={setEndDate}
           error={fieldErrors.endDate}
-          hint={endDate ? `${formatDay(endDate)}${days ? `: a window of ${daysText(days)}, both ends inside` : ''}` : 'Inside the window too'}
+          hint={days ? `A window of ${daysText(days)}, both ends inside` : 'Inside the window too'}
         />
         <QuantityField
+          required
           label="Budget"
           unit={currency ?? undefined}
           value={budget}

@@ -61,7 +61,7 @@ export function OutageWorkspace({ organisationId, outage, units, approvedCases }
         </div>
       </div>
       {remove.isError && <Notice tone="fault">Not deleted: {remove.error.message}</Notice>}
-      {changing && (
+      {changing && a.edit && (
         <OutageForm
           organisationId={organisationId}
           units={units}
@@ -86,7 +86,7 @@ export function OutageWorkspace({ organisationId, outage, units, approvedCases }
           {a.edit && !adding && <Button onClick={() => setAdding(true)}>Add work</Button>}
         </div>
         {!a.edit && outage.status === 'draft' && <ReadOnlyReason reason={whyNot('outages.plan')} action="add or change the work" />}
-        {adding && <ItemForm organisationId={organisationId} outage={outage} approvedCases={approvedCases} onDone={() => setAdding(false)} />}
+        {adding && a.edit && <ItemForm organisationId={organisationId} outage={outage} approvedCases={approvedCases} onDone={() => setAdding(false)} />}
         {outage.items.length === 0 && !outage.approved ? (
           <EmptyState
             title="No candidate work yet"

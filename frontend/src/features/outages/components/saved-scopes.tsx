@@ -72,7 +72,11 @@ export function SavedScopes({ organisationId, outage }: { organisationId: string
     <section aria-labelledby="outage-scopes-title" className="flex flex-col gap-3" data-testid="outage-saved-scopes">
       <div>
         <h2 id="outage-scopes-title">Saved scopes</h2>
-        <p className="text-xs text-ink-soft">Keep up to {MAX_SAVED_SCOPES} alternatives (force items in or out, propose again, save) and compare them here.</p>
+        {draft && (
+          <p className="text-xs text-ink-soft">
+            Keep up to {MAX_SAVED_SCOPES} alternatives (force items in or out, propose again, save) and compare them here.
+          </p>
+        )}
       </div>
       {scopes.length === 0 && <p className="text-sm text-ink-soft">None saved yet.</p>}
       {scopes.length > 0 && (
