@@ -15,6 +15,7 @@ import type { DemoDay } from './seed/demo-units-seed.js';
 import { withinTime } from './time-limit.js';
 import { createBillingContext } from './services/billing/billing-context.js';
 import { prepareBilling, startTrialEndingMails } from './services/billing/prepare-billing.js';
+import { seedDemoBilling } from './seed/demo-billing-seed.js';
 
 export interface Running {
   url: string;
@@ -48,8 +49,9 @@ export async function bootstrap(config: Config, options: BootstrapOptions = {}):
   await dataSource.initialize();
   const applied = await dataSource.runMigrations({ transaction: 'each' });
   if (applied.length) logger.info({ migrations: applied.map((m) => m.name) }, 'migrations applied');
+  let seededDemo = false;
   if (options.seed !== false && config.DEMO_DATA !== 'none') {
-    await seedDemoIfEmpty(dataSource, log, config.DEMO_DATA === 'full', options.demoDay);
+    seededDemo = await seedDemoIfEmpty(dataSource, log, config.DEMO_DATA === 'full', options.demoDay);
   }
 
   // The local sink runs only without SMTP_URL, which config allows only on a loopback HOST.
@@ -81,7 +83,9 @@ export async function bootstrap(config: Config, options: BootstrapOptions = {}):
   const outbox = background ? startOutboxWorker(dataSource, mailDelivery(config, transport), logger) : null;
 
   // Our prices in Stripe, read back; the local stand-in learns where to deliver events (the port is known now).
-  await prepareBilling(createBillingContext(dataSource, config), log);
+  const billing = createBillingContext(dataSource, config);
+  await prepareBilling(billing, log);
+  if (seededDemo) await seedDemoBilling(billing, log);
   const trialMail = background ? startTrialEndingMails(dataSource, config, log) : null;
 
   const report = (line: string) => logger.warn(line);

@@ -3,7 +3,9 @@
  * views have data up to the day before (plant-local), with the story's cleanings moved along with it.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { seedDemoIfEmpty } from '../../backend/src/seed/demo-seed.js';
+import { demoSignIns, seedDemoIfEmpty } from '../../backend/src/seed/demo-seed.js';
+import { DEMO_TRIAL, seedDemoBilling } from '../../backend/src/seed/demo-billing-seed.js';
+import { createBillingContext } from '../../backend/src/services/billing/billing-context.js';
 import { DEMO_PASSWORD } from '../../backend/src/seed/demo-people.js';
 import { signedInAgent } from '../factories/accounts.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
@@ -55,4 +57,22 @@ describe('the demo seed', () => {
       expect(c.notes).toContain(method!.name);
     }
   }, 300_000);
+
+  it('subscribes both demo organisations to a paid plan through the Stripe stand-in, and shows one more on a trial in its last days', async () => {
+    await seedDemoBilling(createBillingContext(t.dataSource, t.config), () => {});
+    for (const email of ['admin@tidewater.example', 'admin@northmere.example']) {
+      const admin = await signedInAgent(t.app, email, DEMO_PASSWORD);
+      const billing = (await admin.get('/api/billing').expect(200)).body;
+      expect(billing, email).toMatchObject({ status: 'active', readOnly: null, trialDaysLeft: null });
+      expect(billing.invoices[0], email).toMatchObject({ status: 'paid' });
+    }
+    const trial = await signedInAgent(t.app, DEMO_TRIAL.admin.email, DEMO_PASSWORD);
+    expect((await trial.get('/api/billing/notice').expect(200)).body).toMatchObject({
+      status: 'trialing',
+      trialDaysLeft: 2,
+      trialEndingSoon: true,
+      readOnly: null,
+    });
+    expect(demoSignIns().map((s) => s.email)).toContain(DEMO_TRIAL.admin.email);
+  });
 });

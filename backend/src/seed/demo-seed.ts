@@ -9,6 +9,7 @@ import { seedDemoUnits, type DemoDay } from './demo-units-seed.js';
 import { seedDemoCases } from './demo-cases-seed.js';
 import { seedDemoOutage } from './demo-outage-seed.js';
 import { seedTypicalMethods } from '../services/cleaning-method.service.js';
+import { DEMO_TRIAL } from './demo-billing-seed.js';
 
 export interface DemoSignIn {
   email: string;
@@ -19,12 +20,14 @@ export interface DemoSignIn {
 
 export function demoSignIns(): DemoSignIn[] {
   const orgName = (key: string) => DEMO_ORGANISATIONS.find((o) => o.key === key)?.name ?? key;
-  return DEMO_PEOPLE.map((p) => ({
+  const people = DEMO_PEOPLE.map((p) => ({
     email: p.email,
     name: p.name,
     password: DEMO_PASSWORD,
     roles: p.memberships.map((m) => `${m.role} at ${orgName(m.organisation)}${m.clientGroups ? ` (only ${m.clientGroups.join(', ')})` : ''}`).join('; '),
   }));
+  const trial = { ...DEMO_TRIAL.admin, password: DEMO_PASSWORD, roles: `admin at ${DEMO_TRIAL.organisation} (on a trial)` };
+  return [...people, trial];
 }
 
 /**

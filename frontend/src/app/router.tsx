@@ -28,6 +28,7 @@ import { signInReturningTo } from '@frontend/lib/safe-next';
 import { appQueryClient } from './app-query-client';
 import { AppLayout } from './routes/app-layout';
 import { NotFoundPage } from './routes/not-found';
+import { billingQueryOptions } from '@frontend/features/billing/api/get-billing';
 import { documentTitle, routeTitle } from './page-title';
 
 /** A page's code is fetched when its route is first visited, so the first screen loads only what it shows. */
@@ -384,6 +385,15 @@ const router = createBrowserRouter([
               (m) => m.ApiTokensSettingsPage,
             ),
             loader: tenantLoader('calc.use', (org) => [prefetch(apiTokensQueryOptions(org))]),
+          },
+          {
+            path: 'billing',
+            handle: { title: 'Billing' },
+            lazy: page(
+              () => import('./routes/settings-billing'),
+              (m) => m.BillingSettingsPage,
+            ),
+            loader: tenantLoader('billing.manage', (org) => [prefetch(billingQueryOptions(org))]),
           },
           {
             path: 'audit',

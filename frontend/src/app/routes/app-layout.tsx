@@ -3,6 +3,7 @@ import { useSession } from '@frontend/features/session/api/get-session';
 import { useSignOut } from '@frontend/features/session/api/sign-out';
 import { OrganisationSwitcher } from '@frontend/features/session/components/organisation-switcher';
 import { PersonMenu } from '../components/person-menu';
+import { BillingBanner } from '@frontend/features/billing/components/billing-banner';
 
 const navClass = ({ isActive }: { isActive: boolean }) =>
   `rounded px-2.5 py-1 text-sm ${isActive ? 'bg-tube-50 text-tube-700 font-medium' : 'text-ink-soft hover:text-ink'}`;
@@ -46,6 +47,7 @@ export function AppLayout() {
         <div className={`h-0.5 ${navigation.state === 'loading' ? 'animate-pulse bg-tube-500' : 'bg-transparent'}`} role="presentation" />
       </header>
       <main className="mx-auto max-w-7xl px-gutter py-6">
+        {session?.user && <BillingBanner organisationId={session.activeOrganisationId} canManage={session.permissions.includes('billing.manage')} />}
         <Outlet />
       </main>
     </div>

@@ -17,6 +17,7 @@ const items: Item[] = [
   { to: '/settings/client-groups', label: 'Client groups', needs: 'data.read' },
   { to: '/settings/cleaning-methods', label: 'Cleaning methods', needs: 'data.read' },
   { to: '/settings/audit', label: 'Audit log', needs: 'audit.read', wholeOrganisation: true },
+  { to: '/settings/billing', label: 'Billing', needs: 'billing.manage', wholeOrganisation: true },
 ];
 
 /** Settings pages share a small side list; pages the role cannot open stay listed, greyed, with the reason. */

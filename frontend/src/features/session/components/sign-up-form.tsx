@@ -23,7 +23,7 @@ export function SignUpForm({ onSignedUp }: { onSignedUp: () => void }) {
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
       <div>
         <h1>Create an account</h1>
-        <p className="mt-1 text-sm text-ink-soft">Your organisation starts on a free 30-day trial. You become its administrator and can invite colleagues.</p>
+        <p className="mt-1 text-sm text-ink-soft">Your organisation starts on a free 14-day trial. You become its administrator and can invite colleagues.</p>
       </div>
       <TextField label="Your name" name="name" autoComplete="name" error={fieldErrors.name} />
       <TextField label="Work e-mail" name="email" type="email" autoComplete="email" error={fieldErrors.email} />

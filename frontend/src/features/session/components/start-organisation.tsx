@@ -13,7 +13,7 @@ export function StartOrganisation() {
     if (name.trim().length >= 2) create.mutate({ name: name.trim() });
   };
   return (
-    <EmptyState title="You belong to no organisation yet" next="Ask an administrator to invite you, or start your own organisation on a 30-day trial.">
+    <EmptyState title="You belong to no organisation yet" next="Ask an administrator to invite you, or start your own organisation on a 14-day trial.">
       <form onSubmit={onSubmit} className="flex items-end gap-2 text-left">
         <TextField label="Organisation name" value={name} onChange={(e) => setName(e.target.value)} error={create.error?.message} />
         <Button type="submit" disabled={create.isPending || name.trim().length < 2}>
