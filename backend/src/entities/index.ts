@@ -25,6 +25,8 @@ import { Outage } from './outage.entity.js';
 import { OutageItem } from './outage-item.entity.js';
 import { OutageScope } from './outage-scope.entity.js';
 import { OutageUnit } from './outage-unit.entity.js';
+import { AlertState } from './alert-state.entity.js';
+import { AlertSubscription } from './alert-subscription.entity.js';
 
 export { ApiToken, AuditEvent, ClientGroup, Invitation, Membership, Organisation, PasswordResetToken, User };
 export { BackgroundJob, CleaningMethodRecord, DailyAggregate, DataImport, GeneratingUnit, PerformanceSample, Plant, UnitEvent };
@@ -34,6 +36,7 @@ export { AddressConfirmationToken };
 export { CaseCommentRecord, CleaningCase };
 export { BillingWebhookEvent };
 export { Outage, OutageItem, OutageScope, OutageUnit };
+export { AlertState, AlertSubscription };
 
 export const ENTITIES = [
   Organisation,
@@ -63,4 +66,6 @@ export const ENTITIES = [
   OutageItem,
   OutageScope,
   BillingWebhookEvent,
+  AlertSubscription,
+  AlertState,
 ];

@@ -12,6 +12,7 @@ import { CaseDecisionGuards1796210000000 } from './1796210000000-case-decision-g
 import { CaseDecisionGuardsBackfill1796210000001 } from './1796210000001-case-decision-guards-backfill.js';
 import { Outages1796220000000 } from './1796220000000-outages.js';
 import { Subscriptions1796230000000 } from './1796230000000-subscriptions.js';
+import { AlertsByMail1796240000000 } from './1796240000000-alerts-by-mail.js';
 import { UnitDataVersion1796250000000 } from './1796250000000-unit-data-version.js';
 import { HistorianShapes1796260000000 } from './1796260000000-historian-shapes.js';
 
@@ -29,6 +30,7 @@ export const MIGRATIONS = [
   CaseDecisionGuardsBackfill1796210000001,
   Outages1796220000000,
   Subscriptions1796230000000,
+  AlertsByMail1796240000000,
   UnitDataVersion1796250000000,
   HistorianShapes1796260000000,
 ];
