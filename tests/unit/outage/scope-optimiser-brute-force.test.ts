@@ -82,7 +82,7 @@ function bruteForce(p: ScopeProblem): Best | null {
       benefit += it.benefit;
       cost += it.cost;
       days += it.durationDays;
-      laneDays[laneOf[i]!] += it.durationDays;
+      laneDays[laneOf[i]!]! += it.durationDays;
     }
     if (!ok || cost > p.budget + SLACK || laneDays.some((d) => d > p.windowDays + SLACK)) continue;
     const better =
