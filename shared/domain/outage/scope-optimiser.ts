@@ -17,8 +17,12 @@ import type { ScopeProblem, ScopeProposal } from './scope-problem.js';
 import { scopeReasons } from './scope-reasons.js';
 import { searchScope } from './scope-search.js';
 
-/** Far more nodes than 60 realistic items need (a few thousand to a few hundred thousand); a guard, not a setting. */
-const NODE_LIMIT = 20_000_000;
+/**
+ * More nodes than 60 realistic items need (a few hundred to tens of thousands); a guard that keeps a request to about
+ * a second on adversarial figures (benefit equal to cost, whole-number costs, a tight budget: a subset-sum search),
+ * where the proposal then says it is the best found, not proven the best.
+ */
+const NODE_LIMIT = 1_000_000;
 
 export function optimiseScope(problem: ScopeProblem): ScopeProposal {
   const bad = inputProblems(problem);
