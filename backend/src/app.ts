@@ -32,6 +32,7 @@ import { plantRoutes } from './routes/plant.routes.js';
 import { unitRoutes } from './routes/unit.routes.js';
 import { unitHealthRoutes } from './routes/unit-health.routes.js';
 import { portfolioRoutes } from './routes/portfolio.routes.js';
+import { notificationRoutes } from './routes/notification.routes.js';
 import { invitationRoutes } from './routes/invitation.routes.js';
 import { memberRoutes } from './routes/member.routes.js';
 import { openApiRoutes } from './routes/openapi.routes.js';
@@ -116,6 +117,7 @@ export function createApp(deps: AppDeps): CleancaseApp {
     ...unitRoutes(dataSource),
     ...unitHealthRoutes(dataSource),
     ...portfolioRoutes(dataSource),
+    ...notificationRoutes(dataSource, config),
     ...caseRoutes(dataSource, config),
     ...outageRoutes(dataSource),
     ...importRoutes(dataSource, config),

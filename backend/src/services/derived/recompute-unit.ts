@@ -2,7 +2,7 @@
  * Recomputes everything derived for one unit from its stored raw samples. Runs as a background job after an
  * import, an undo, a setup change or a new event. The steps, in order (each in its own file here):
  * read valid samples → daily cleanliness and witnesses → air in-leakage verdicts → fouling cycles →
- * per-sample analysis → write-back → daily aggregates → cleaning outlook and forecast band.
+ * per-sample analysis → write-back → daily aggregates → cleaning outlook and forecast band → e-mail alerts.
  * Samples are read in id order in chunks, twice (the per-sample analysis needs the trend the first pass fits),
  * so memory stays bounded whatever the history length.
  */
@@ -21,6 +21,7 @@ import { analyseSamples } from './sample-analysis.js';
 import { loadUnitContext } from './unit-context.js';
 import { planCleaningOutlook, storeUnitAnalysis, unitAnalysis } from './unit-analysis.js';
 import { writeBackAnalyses } from './write-back.js';
+import { alertsAfterRecompute } from '../alerts/alert-checks.js';
 
 export interface RecomputeOutcome {
   samples: number;
@@ -89,5 +90,6 @@ export async function recomputeUnit(ds: DataSource, unitId: string, onProgress: 
     unitId,
     unitAnalysis({ setupVersion: unit.setupVersion, lastDay, cycles, airLeakPeriods: airLeaks.periods, outlook, forecast, current }),
   );
+  await alertsAfterRecompute(ds, unit.organisationId, unitId);
   return { samples: total, days: dayCount, cycles };
 }
