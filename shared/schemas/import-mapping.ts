@@ -92,6 +92,31 @@ export const importTimestampSchema = z
 
 const pressureUnit = z.enum(IMPORT_QUANTITY_UNITS.barometer);
 
+/** Time grids a tall file's values are aligned to, minutes. */
+export const GRID_MINUTES = [1, 5, 10, 60] as const;
+/**
+ * How a tag's value at a grid time is found: the sample nearest in time (within the tolerance), a straight line
+ * between the samples either side (both within the tolerance), or the mean of the samples in the interval
+ * ending at the grid time.
+ */
+export const ALIGNMENT_RULES = ['nearest', 'interpolate', 'interval-mean'] as const;
+export type AlignmentRule = (typeof ALIGNMENT_RULES)[number];
+
+/** One row per tag per time: which columns hold the tag name and the value, and how the tags are put on one time grid. */
+export const importTallSchema = z
+  .object({
+    tagColumn: columnName,
+    valueColumn: columnName,
+    gridMinutes: z.union(GRID_MINUTES.map((m) => z.literal(m)) as unknown as [z.ZodLiteral<1>, z.ZodLiteral<5>, z.ZodLiteral<10>, z.ZodLiteral<60>], {
+      error: `the grid is one of ${GRID_MINUTES.join(', ')} minutes`,
+    }),
+    rule: z.enum(ALIGNMENT_RULES),
+    /** How far from a grid time a sample may lie to be used (nearest, interpolate), minutes. */
+    toleranceMinutes: z.number().min(0, 'the tolerance is at least 0 minutes').max(120, 'the tolerance is at most 120 minutes'),
+  })
+  .strict();
+export type ImportTall = z.infer<typeof importTallSchema>;
+
 /** Values of a quality column that mean "good"; any other value marks the row's values as not good. */
 export const MAX_GOOD_QUALITY_VALUES = 50;
 export const importQualitySchema = z
@@ -121,6 +146,11 @@ export const importMappingSchema = z
       .optional(),
     /** A column saying whether each row's values are good; rows whose value is not among `goodValues` are kept out as instrument-status. */
     quality: importQualitySchema.optional(),
+    /**
+     * A tall file (one row per tag per time): `columns` then name tags, not columns, and `timestamp` and `quality`
+     * the tall file's columns.
+     */
+    tall: importTallSchema.optional(),
     /** XLSX: the sheet to read, by name (default: the first). */
     sheet: z.string().trim().min(1, 'a sheet name cannot be empty').max(31, 'sheet names are at most 31 characters').optional(),
   })
@@ -155,6 +185,17 @@ export const importMappingSchema = z
     const refs: [string, string][] = [['timestamp', m.timestamp.column]];
     for (const q of IMPORT_QUANTITIES) if (c[q]) refs.push([q, c[q]!.column]);
     if (m.quality) refs.push(['the quality', m.quality.column]);
+    if (m.tall) {
+      for (const [what, column] of [
+        ['the tag names', m.tall.tagColumn],
+        ['the values', m.tall.valueColumn],
+      ] as const) {
+        if ([m.timestamp.column, m.quality?.column].includes(column))
+          ctx.addIssue({ code: 'custom', path: ['tall'], message: `column "${column}" cannot hold ${what} and another part of the row` });
+      }
+      if (m.tall.tagColumn === m.tall.valueColumn)
+        ctx.addIssue({ code: 'custom', path: ['tall', 'valueColumn'], message: 'the tag names and the values are in different columns' });
+    }
     for (const [q, column] of refs) {
       const other = seen.get(column);
       if (other) ctx.addIssue({ code: 'custom', path: ['columns', q], message: `column "${column}" is already mapped to ${other}` });

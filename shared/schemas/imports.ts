@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { REJECTION_REASONS, type RejectionReason } from '../domain/validity/rejection-reasons.js';
-import { IMPORT_QUANTITY_UNITS, type ImportMappingInput } from './import-mapping.js';
+import { ALIGNMENT_RULES, IMPORT_QUANTITY_UNITS, type ImportMappingInput } from './import-mapping.js';
 
 /** An import's life: mapping → checking → (rejected | importing → complete | failed); a complete one can be undone. */
 export const IMPORT_STATUSES = ['mapping', 'checking', 'rejected', 'importing', 'complete', 'failed', 'undone'] as const;
@@ -33,6 +33,21 @@ export const importCounts = z
     flowAssumedRows: z.number().int(),
     /** rows kept out as instrument-status, by the status word or quality value that marked them */
     rowsByMarker: z.record(z.string().max(60), z.number().int()),
+    /** a tall file or one file per tag: how its tags were put on one time grid */
+    alignment: z
+      .object({
+        gridMinutes: z.number(),
+        rule: z.enum(ALIGNMENT_RULES),
+        toleranceMinutes: z.number(),
+        gridTimes: z.number().int(),
+        aligned: z.number().int(),
+        /** grid times left out, by the first required tag without a value */
+        leftOutByTag: z.record(z.string(), z.number().int()),
+        samplesByTag: z.record(z.string(), z.number().int()),
+        unmappedTags: z.array(z.string()),
+        emptyValues: z.number().int(),
+      })
+      .strict(),
   })
   .partial()
   .strict();
@@ -80,6 +95,11 @@ const guessedQuantity = z.enum([...(Object.keys(IMPORT_QUANTITY_UNITS) as (keyof
 export const uploadResponse = z
   .object({
     import: importView,
+    /** wide: one column per quantity; tall: one row per tag per time (map tags, listed in `tags`) */
+    shape: z.enum(['wide', 'tall']),
+    /** a tall file's tags: name, rows and first values (at most 500; `moreTags` when the file has more) */
+    tags: z.array(z.object({ name: z.string(), rows: z.number().int(), samples: z.array(z.string()) }).strict()),
+    moreTags: z.boolean(),
     headers: z.array(z.string()),
     /** per column, the units row's text under its name ('' where none); empty when the file has no units row */
     units: z.array(z.string()),

@@ -197,4 +197,73 @@ describe('historian shapes through the API', () => {
       expect(imp.counts.stored).toBe(12);
     });
   });
+
+  describe('a tall file', () => {
+    const TAGS = ['U1:GEN_MW', 'U1:COND_BP', 'U1:CWIT', 'U1:CWOT', 'U1:CWFLOW'];
+    /** One row per tag per hour, tag by tag, each tag's times off the hour by up to ±90 s, quality Good. */
+    const tallOf = (rows: HistorianRow[]) => {
+      const out = ['Tag Name,Time Stamp,Value,Quality'];
+      TAGS.forEach((tag, k) =>
+        rows.forEach((r, h) =>
+          out.push([tag, new Date(r.timestampUtc + (((h * 5 + k * 11) % 19) - 9) * 10_000).toISOString(), r.cells[k + 1], 'Good'].join(',')),
+        ),
+      );
+      return out;
+    };
+
+    const mapping = {
+      timestamp: { column: 'Time Stamp', format: 'iso-8601-offset' },
+      columns: Object.fromEntries(Object.entries(US_MAPPING.columns).map(([q, ref], k) => [q, { column: TAGS[k], unit: ref!.unit }])),
+      quality: { column: 'Quality', goodValues: ['Good'] },
+      tall: { tagColumn: 'Tag Name', valueColumn: 'Value', gridMinutes: 60, rule: 'nearest', toleranceMinutes: 5 },
+    };
+
+    it('lists its tags, takes a tag mapping with a grid, and stores the same samples as the wide file of the same data', async () => {
+      const rows = day(48);
+      rows[7]!.cells[2] = 'Bad';
+      const wideUnit = await newUnit();
+      const wide = await importFile(wideUnit.id, await writeCsvLines(tmp.file('same-wide.csv'), csvLines(rows)), US_MAPPING);
+      expect(wide.imp.status, wide.imp.message).toBe('complete');
+
+      const unit = await newUnit();
+      const up = await analyst
+        .post(`/api/units/${unit.id}/uploads`)
+        .set(CSRF)
+        .attach('file', await writeCsvLines(tmp.file('same-tall.csv'), tallOf(rows)));
+      expect(up.status, JSON.stringify(up.body)).toBe(201);
+      expect(up.body.shape).toBe('tall');
+      expect(up.body.tags.map((t: { name: string; rows: number }) => [t.name, t.rows])).toEqual(TAGS.map((t) => [t, 48]));
+      expect(up.body.proposedMapping.tall).toMatchObject({ tagColumn: 'Tag Name', valueColumn: 'Value', gridMinutes: 60, rule: 'nearest' });
+      const started = await analyst.post(`/api/imports/${up.body.import.id}/start`).set(CSRF).send({ mapping });
+      expect(started.status, JSON.stringify(started.body)).toBe(202);
+      await drain();
+      const imp = (await analyst.get(`/api/imports/${up.body.import.id}`).expect(200)).body;
+      expect(imp.status, imp.message).toBe('complete');
+      expect(imp.counts).toMatchObject({ stored: 48, rowsByMarker: { Bad: 1 }, alignment: { gridTimes: 48, aligned: 48, leftOutByTag: {} } });
+      const strip = (xs: StoredRow[]) => xs.map(({ ts, ...v }) => ({ t: new Date(ts).getTime(), ...v }));
+      expect(strip(await samplesOf(unit.id))).toEqual(strip(await samplesOf(wideUnit.id)));
+      // the mapping is kept for the unit's next tall file
+      const again = await analyst
+        .post(`/api/units/${unit.id}/uploads`)
+        .set(CSRF)
+        .attach('file', await writeCsvLines(tmp.file('same-tall-2.csv'), tallOf(rows)));
+      expect(again.body.mappingSource).toBe('saved');
+    });
+
+    it('refuses a truly wrong tall file and stores nothing', async () => {
+      const unit = await newUnit();
+      const lines = tallOf(day(6));
+      lines[4] = lines[4]!.replace(/,[^,]*,Good$/, ',1.2.3,Good');
+      const up = await analyst
+        .post(`/api/units/${unit.id}/uploads`)
+        .set(CSRF)
+        .attach('file', await writeCsvLines(tmp.file('wrong-tall.csv'), lines));
+      await analyst.post(`/api/imports/${up.body.import.id}/start`).set(CSRF).send({ mapping }).expect(202);
+      await drain();
+      const imp = (await analyst.get(`/api/imports/${up.body.import.id}`).expect(200)).body;
+      expect(imp.status).toBe('rejected');
+      expect(imp.errors).toEqual([{ row: 5, column: 'Value', value: '1.2.3', message: 'not a number' }]);
+      expect(await samplesOf(unit.id)).toEqual([]);
+    });
+  });
 });

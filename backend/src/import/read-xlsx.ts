@@ -76,14 +76,15 @@ export async function openXlsxTable(filePath: string, options: XlsxReadOptions =
   /** Opens the next sheet for reading (after one that did not read as a table); false when there is none. */
   const moreSheets = async (): Promise<boolean> => {
     try {
-      for (;;) {
-        const sheet = await sheets.next();
-        if (sheet.done) return false;
-        const ws = sheet.value as unknown as { name?: string } & AsyncIterable<ExcelJS.Row>;
-        sheetName = ws.name;
-        rowIterator = ws[Symbol.asyncIterator]();
-        return true;
-      }
+      // the rest of the sheet passed over is read to its end first
+      if (rowIterator) for (let r = await rowIterator.next(); !r.done; r = await rowIterator.next());
+      rowIterator = null;
+      const sheet = await sheets.next();
+      if (sheet.done) return false;
+      const ws = sheet.value as unknown as { name?: string } & AsyncIterable<ExcelJS.Row>;
+      sheetName = ws.name;
+      rowIterator = ws[Symbol.asyncIterator]();
+      return true;
     } catch (e) {
       throw broken(e);
     }
@@ -110,8 +111,11 @@ export async function openXlsxTable(filePath: string, options: XlsxReadOptions =
           const model = (reader as unknown as { model?: { sheets?: { name?: unknown }[] } }).model;
           sheetNames = (model?.sheets ?? []).map((m) => String(m.name ?? '')).filter(Boolean);
         }
-        // a sheet not chosen is passed over: its rows are drained unread
-        if (options.sheet !== undefined && ws.name !== options.sheet) continue;
+        // a sheet not chosen is passed over: its rows are read to the end (the reader may have parked it in a temporary file)
+        if (options.sheet !== undefined && ws.name !== options.sheet) {
+          for await (const _row of ws);
+          continue;
+        }
         sawSheet = true;
         sheetName = ws.name;
         rowIterator = ws[Symbol.asyncIterator]();
@@ -154,7 +158,6 @@ export async function openXlsxTable(filePath: string, options: XlsxReadOptions =
         const tableProblem = e instanceof ImportFileError && (e.code === 'no-header-row' || e.code === 'empty-file' || e.code === 'no-data-rows');
         if (options.sheet !== undefined || !tableProblem) throw e;
         firstProblem ??= e;
-        rowIterator = null;
         if (!(await moreSheets())) throw firstProblem;
       }
     }

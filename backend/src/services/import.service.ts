@@ -9,9 +9,10 @@
 import { rm } from 'node:fs/promises';
 import type { DataSource } from 'typeorm';
 import { z } from 'zod';
-import { importMappingSchema, type ImportMappingInput } from '@shared/schemas/import-mapping.js';
+import { importMappingSchema, type ImportMapping, type ImportMappingInput } from '@shared/schemas/import-mapping.js';
 import { importCounts, importView as importViewSchema, rowError, type ImportCounts, type ImportView } from '@shared/schemas/imports.js';
 import { formatRowErrorReportCsv, guessMapping, openTable, type RowError } from '../import/index.js';
+import { detectTallShape, guessTallMapping, listTags } from '../import/tall-detection.js';
 import { DataImport } from '../entities/data-import.entity.js';
 import { GeneratingUnit } from '../entities/generating-unit.entity.js';
 import { AppError, badRequest } from '../http/app-error.js';
@@ -72,8 +73,9 @@ export const unitForUpload = (ds: DataSource, scope: TenantScope, unitId: string
 /** Reads a stored upload's header, units row, title lines and first rows (XLSX: the given sheet, else the first). */
 async function readPreview(filePath: string, sheet?: string) {
   const table = await openTable(filePath, sheet !== undefined ? { sheet } : {});
+  let head;
   try {
-    return {
+    head = {
       kind: table.kind,
       headers: table.headers,
       units: table.units,
@@ -85,13 +87,29 @@ async function readPreview(filePath: string, sheet?: string) {
   } finally {
     await table.close();
   }
+  // a tall file (one row per tag per time): one more pass lists its tags for the mapping
+  const tallShape = detectTallShape(head.headers, head.sampleRows);
+  const tall = tallShape ? { shape: tallShape, ...(await listTags(filePath, tallShape, head.sheet ?? undefined)) } : null;
+  return { ...head, tall };
 }
 
 /** The proposed mapping of a preview: the unit's saved one when it fits the file, else a guess (which reads the units row). */
 function proposeMapping(preview: Awaited<ReturnType<typeof readPreview>>, unit: GeneratingUnit, timeZone: string) {
-  const guess = guessMapping(preview.headers, preview.sampleRows, { timeZone });
+  const tallGuess = preview.tall
+    ? guessTallMapping(preview.tall.shape, preview.headers, preview.sampleRows, preview.tall.tags, preview.tall.medianSpacingMinutes, timeZone)
+    : null;
+  const guess = tallGuess ? { ...tallGuess.guess, mapping: tallGuess.mapping } : guessMapping(preview.headers, preview.sampleRows, { timeZone });
   const saved = unit.savedMapping ? importMappingSchema.safeParse(unit.savedMapping) : null;
-  const savedFits = saved?.success && headersCover(saved.data, preview.headers);
+  const savedFits =
+    saved?.success &&
+    (preview.tall
+      ? !!saved.data.tall &&
+        tallMappingFits(
+          saved.data,
+          preview.headers,
+          preview.tall.tags.map((t) => t.name),
+        )
+      : !saved.data.tall && headersCover(saved.data, preview.headers));
   const sheet = preview.sheet !== null && preview.sheets.length > 1 ? { sheet: preview.sheet } : {};
   const mapping = savedFits ? { ...saved!.data, ...sheet } : { ...guess.mapping, ...sheet };
   return { guess, mapping, source: savedFits ? ('saved' as const) : ('guessed' as const) };
@@ -99,6 +117,9 @@ function proposeMapping(preview: Awaited<ReturnType<typeof readPreview>>, unit: 
 
 const previewAnswer = (imp: DataImport, preview: Awaited<ReturnType<typeof readPreview>>, proposed: ReturnType<typeof proposeMapping>) => ({
   import: importView(imp),
+  shape: preview.tall ? ('tall' as const) : ('wide' as const),
+  tags: preview.tall?.tags ?? [],
+  moreTags: preview.tall?.moreTags ?? false,
   headers: preview.headers,
   units: preview.units,
   titleLines: preview.titleLines,
@@ -164,6 +185,12 @@ export async function chooseSheet(ds: DataSource, scope: TenantScope, importId: 
   proposed.mapping = { ...proposed.mapping, sheet };
   await ds.getRepository(DataImport).update({ id: imp.id }, { mapping: proposed.mapping });
   return previewAnswer(await ds.getRepository(DataImport).findOneByOrFail({ id: imp.id }), preview, proposed);
+}
+
+/** Whether a saved tall mapping reads this tall file: its columns are in the header and its tags in the file. */
+function tallMappingFits(mapping: ImportMapping, headers: string[], tags: string[]): boolean {
+  const columns = [mapping.timestamp.column, mapping.tall!.tagColumn, mapping.tall!.valueColumn, ...(mapping.quality ? [mapping.quality.column] : [])];
+  return columns.every((c) => headers.includes(c)) && Object.values(mapping.columns).every((ref) => !ref || tags.includes(ref.column));
 }
 
 /** Whether every column a mapping names is among the file's headers. */

@@ -4,7 +4,8 @@
  * every error listed by row and column.
  */
 import type { DataSource } from 'typeorm';
-import { checkImportFile, type ImportCheck } from '../../import/index.js';
+import type { ImportCheck } from '../../import/index.js';
+import { checkAnyShape, type PreparedFile } from '../../import/prepare-file.js';
 import { DataImport } from '../../entities/data-import.entity.js';
 import { withLease, type JobLease } from '../../jobs/job-queue.js';
 import { deleteSamplesOfImport } from '../../repositories/sample.repository.js';
@@ -19,10 +20,15 @@ export interface CheckInput {
   progress: ImportProgress;
 }
 
-export async function checkFile(ds: DataSource, job: JobLease, { importId, storedPath, mapping, statusWords, progress }: CheckInput): Promise<ImportCheck> {
+/** The check, and (when it passed) the file the store reads: the upload, or the wide file a tall one was aligned to. */
+export async function checkFile(
+  ds: DataSource,
+  job: JobLease,
+  { importId, storedPath, mapping, statusWords, progress }: CheckInput,
+): Promise<{ check: ImportCheck; prepared: PreparedFile | null }> {
   await withLease(ds, job, (em) => deleteSamplesOfImport(em, importId));
   await progress(0.02, 'Checking every row');
-  return checkImportFile(storedPath, { mapping, statusWords });
+  return checkAnyShape(storedPath, { mapping, statusWords });
 }
 
 /** What the import records when its file is rejected. */

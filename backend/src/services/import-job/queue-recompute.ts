@@ -1,6 +1,8 @@
 /** Step 3 of the import job: mark the import complete with its counts and queue the recompute of derived data, in one transaction. */
 import type { DataSource } from 'typeorm';
 import type { ImportCheck } from '../../import/index.js';
+import { describeAlignment } from '../../import/prepare-file.js';
+import type { AlignmentSummary } from '../../import/tall-alignment.js';
 import { DataImport } from '../../entities/data-import.entity.js';
 import { enqueueRecompute, withLease, type JobLease } from '../../jobs/job-queue.js';
 import type { StoredRows } from './store-rows.js';
@@ -11,7 +13,12 @@ export type CompletionRecord = Pick<
 > & { counts: object };
 
 /** What a finished import records. */
-export function completion({ summary, stored, skippedIdentical, conflicting, conflicts }: StoredRows, check: ImportCheck, now = new Date()): CompletionRecord {
+export function completion(
+  { summary, stored, skippedIdentical, conflicting, conflicts }: StoredRows,
+  check: ImportCheck,
+  now = new Date(),
+  alignment: AlignmentSummary | null = null,
+): CompletionRecord {
   return {
     status: 'complete',
     progress: 1,
@@ -28,10 +35,11 @@ export function completion({ summary, stored, skippedIdentical, conflicting, con
       rowsByReason: summary.rowsByReason,
       rowsByMarker: summary.rowsByMarker,
       flowAssumedRows: summary.flowAssumedRows,
+      ...(alignment ? { alignment } : {}),
     },
     firstTimestamp: summary.firstTimestampUtc !== null ? new Date(summary.firstTimestampUtc) : null,
     lastTimestamp: summary.lastTimestampUtc !== null ? new Date(summary.lastTimestampUtc) : null,
-    notes: { assumptions: summary.assumptions, warnings: check.warnings },
+    notes: { assumptions: [...(alignment ? describeAlignment(alignment) : []), ...summary.assumptions], warnings: check.warnings },
   };
 }
 
@@ -41,9 +49,10 @@ export async function completeAndQueueRecompute(
   imp: Pick<DataImport, 'id' | 'organisationId' | 'unitId'>,
   rows: StoredRows,
   check: ImportCheck,
+  alignment: AlignmentSummary | null = null,
 ): Promise<void> {
   await withLease(ds, job, async (em) => {
-    await em.getRepository(DataImport).update({ id: imp.id }, completion(rows, check));
+    await em.getRepository(DataImport).update({ id: imp.id }, completion(rows, check, new Date(), alignment));
     await enqueueRecompute(em, imp.organisationId, imp.unitId, 'import complete');
   });
 }

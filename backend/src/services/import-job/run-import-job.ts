@@ -24,18 +24,25 @@ export async function runImportJob(ds: DataSource, job: JobLease, importId: stri
     if (!imp.storedPath) throw new Error('the uploaded file is gone');
     const statusWords = await statusWordsOfOrganisation(ds.manager, imp.organisationId);
     const step = { importId: imp.id, storedPath: imp.storedPath, mapping: imp.mapping, statusWords, progress: importProgress(ds, job, imp.id) };
-    const check = await checkFile(ds, job, step);
-    if (!check.ok) await rejectImport(ds, job, imp.id, check);
-    else await completeAndQueueRecompute(ds, job, imp, await storeRows(ds, job, { ...step, unit, check }), check);
+    const { check, prepared } = await checkFile(ds, job, step);
+    try {
+      if (!check.ok || !prepared) await rejectImport(ds, job, imp.id, check);
+      else {
+        const read = { storedPath: prepared.path, mapping: prepared.mapping, statusWords: prepared.statusWords };
+        await completeAndQueueRecompute(ds, job, imp, await storeRows(ds, job, { ...step, ...read, unit, check }), check, prepared.alignment);
+      }
+    } finally {
+      await prepared?.dispose();
+    }
   } catch (err) {
     // The worker that took the job over carries on: touch nothing.
     if (err instanceof LostJobLockError) throw err;
     await withLease(ds, job, (em) => failImport(em, imp.id, err instanceof Error ? err.message : String(err)));
-    if (imp.storedPath) await rm(imp.storedPath, { force: true });
+    if (imp.storedPath) await rm(imp.storedPath, { force: true, recursive: true });
     throw err;
   }
-  // Checked and rejected, or stored: the upload is not needed any more.
-  await rm(imp.storedPath, { force: true });
+  // Checked and rejected, or stored: the upload (a file, or a folder of one file per tag) is not needed any more.
+  await rm(imp.storedPath, { force: true, recursive: true });
 }
 
 /** Deletes what a failed import stored and marks it failed; the rows go as a whole (one import id). */

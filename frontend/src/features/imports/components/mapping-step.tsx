@@ -6,6 +6,9 @@ import {
   importMappingSchema,
   REPEATED_HOUR_RULES,
   TIMESTAMP_FORMATS,
+  ALIGNMENT_RULES,
+  GRID_MINUTES,
+  type AlignmentRule,
   type ImportMappingInput,
   type ImportQuantity,
 } from '@shared/schemas/import-mapping';
@@ -44,9 +47,18 @@ const UNASSIGNED: Assignment = { role: '', unit: '' };
 
 const selectClass = 'w-full rounded border border-rule bg-paper-raised px-2 py-1 text-sm';
 
+/** What the person maps: a wide file's columns, or a tall file's tags. */
+const namesOf = (upload: UploadResponse): string[] => (upload.shape === 'tall' ? upload.tags.map((t) => t.name) : upload.headers);
+
+const RULE_LABELS: Record<AlignmentRule, string> = {
+  nearest: 'The sample nearest the grid time',
+  interpolate: 'A straight line between the samples either side',
+  'interval-mean': 'The mean over the interval ending at the grid time',
+};
+
 function initialAssignments(upload: UploadResponse): Record<string, Assignment> {
   const m = upload.proposedMapping;
-  const out: Record<string, Assignment> = Object.fromEntries(upload.headers.map((h) => [h, { role: '' as Role, unit: '' }]));
+  const out: Record<string, Assignment> = Object.fromEntries(namesOf(upload).map((h) => [h, { role: '' as Role, unit: '' }]));
   if (m.timestamp?.column && out[m.timestamp.column]) out[m.timestamp.column] = { role: 'timestamp', unit: '' };
   if (m.quality?.column && out[m.quality.column]) out[m.quality.column] = { role: 'quality', unit: '' };
   for (const q of IMPORT_QUANTITIES) {
@@ -104,6 +116,10 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
   const [barometerUnit, setBarometerUnit] = useState<string>(proposed.fixedBarometer?.unit ?? (units.pressureKpa.label === 'inHgA' ? 'inHg' : 'kPa'));
   const [flowNotMetered, setFlowNotMetered] = useState(proposed.designCwFlowM3s !== undefined && !proposed.columns?.cwFlow);
   const [goodText, setGoodText] = useState((proposed.quality?.goodValues ?? ['Good']).join(', '));
+  const tallShape = upload.shape === 'tall' ? proposed.tall : undefined;
+  const [gridMinutes, setGridMinutes] = useState<(typeof GRID_MINUTES)[number]>(proposed.tall?.gridMinutes ?? 60);
+  const [rule, setRule] = useState<AlignmentRule>(proposed.tall?.rule ?? 'nearest');
+  const [toleranceText, setToleranceText] = useState(String(proposed.tall?.toleranceMinutes ?? 5));
 
   const guessByHeader = useMemo(() => new Map(upload.guess.columns.map((g) => [g.header, g])), [upload]);
 
@@ -130,8 +146,8 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
 
   const mapping: ImportMappingInput = useMemo(() => {
     const columns: ImportMappingInput['columns'] = {};
-    let timestampColumn = '';
-    let qualityColumn = '';
+    let timestampColumn = tallShape ? (proposed.timestamp?.column ?? '') : '';
+    let qualityColumn = tallShape ? (proposed.quality?.column ?? '') : '';
     for (const [header, a] of Object.entries(assignments)) {
       if (a.role === 'timestamp') timestampColumn = header;
       else if (a.role === 'quality') qualityColumn = header;
@@ -139,7 +155,11 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
         (columns as Record<string, { column: string; unit: string }>)[a.role] = { column: header, unit: a.unit };
     }
     const barometer = parseNumberText(barometerText);
+    const tolerance = parseNumberText(toleranceText);
     return {
+      ...(tallShape && {
+        tall: { tagColumn: tallShape.tagColumn, valueColumn: tallShape.valueColumn, gridMinutes, rule, toleranceMinutes: tolerance ?? Number.NaN },
+      }),
       ...(upload.sheet !== null && upload.sheets.length > 1 && { sheet: upload.sheet }),
       timestamp: {
         column: timestampColumn,
@@ -165,6 +185,12 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
   }, [
     upload.sheet,
     upload.sheets,
+    tallShape,
+    proposed.timestamp?.column,
+    proposed.quality?.column,
+    gridMinutes,
+    rule,
+    toleranceText,
     assignments,
     format,
     timeZone,
@@ -199,7 +225,10 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
       <div>
         <h2>2. Say what each column is</h2>
         <p className="text-sm text-ink-soft">
-          {upload.import.fileName}: {upload.headers.length} columns.{' '}
+          {upload.import.fileName}:{' '}
+          {tallShape
+            ? `one row per tag per time; ${upload.tags.length} tags${upload.moreTags ? ' (the first 500)' : ''}: say which tag is which quantity.`
+            : `${upload.headers.length} columns.`}{' '}
           {upload.mappingSource === 'saved'
             ? 'Filled in from this unit’s last import, which had the same columns.'
             : 'Filled in from the column names and values; check every row, then start the import.'}{' '}
@@ -222,7 +251,7 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
         caption="Columns of the file"
         head={
           <>
-            <th className={th}>Column in the file</th>
+            <th className={th}>{tallShape ? 'Tag in the file' : 'Column in the file'}</th>
             <th className={th}>First values</th>
             <th className={th}>Is</th>
             <th className={th}>Unit</th>
@@ -230,11 +259,11 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
           </>
         }
       >
-        {upload.headers.map((header, index) => {
+        {namesOf(upload).map((header, index) => {
           // every header has an assignment from the start; one missing is simply not imported
           const a = assignments[header] ?? UNASSIGNED;
           const guess = guessByHeader.get(header);
-          const samples = upload.sampleRows.slice(0, 3).map((r) => r[index] ?? '');
+          const samples = tallShape ? (upload.tags[index]?.samples ?? []).slice(0, 3) : upload.sampleRows.slice(0, 3).map((r) => r[index] ?? '');
           return (
             <tr key={header} className={tr} data-testid="mapping-row">
               <td className={`${td} font-medium`}>{header}</td>
@@ -248,8 +277,8 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
               <td className={td}>
                 <select aria-label={`What column ${header} is`} className={selectClass} value={a.role} onChange={(e) => assign(header, e.target.value as Role)}>
                   <option value="">Not imported</option>
-                  <option value="timestamp">Timestamp</option>
-                  <option value="quality">Quality flag of the row</option>
+                  {!tallShape && <option value="timestamp">Timestamp</option>}
+                  {!tallShape && <option value="quality">Quality flag of the row</option>}
                   {IMPORT_QUANTITIES.map((q) => (
                     <option key={q} value={q}>
                       {QUANTITY_LABELS[q]}
@@ -300,6 +329,50 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
           );
         })}
       </DataTable>
+
+      {tallShape && (
+        <fieldset className="flex flex-col gap-3" data-testid="time-grid">
+          <legend className="mb-1 text-sm font-semibold">One time grid for every tag</legend>
+          <p className="text-sm text-ink-soft">
+            Tags are read from “{tallShape.tagColumn}”, values from “{tallShape.valueColumn}”, times from “{proposed.timestamp?.column}”
+            {proposed.quality ? `, quality from “${proposed.quality.column}” (good: ${goodText})` : ''}. A grid time without a value of every required tag is
+            left out and counted under that tag.
+          </p>
+          <div className="grid gap-3 md:grid-cols-3">
+            <SelectField label="Grid" value={String(gridMinutes)} onChange={(e) => setGridMinutes(Number(e.target.value) as typeof gridMinutes)}>
+              {GRID_MINUTES.map((m) => (
+                <option key={m} value={m}>
+                  Every {m} min
+                </option>
+              ))}
+            </SelectField>
+            <SelectField label="Value at a grid time" value={rule} onChange={(e) => setRule(e.target.value as AlignmentRule)}>
+              {ALIGNMENT_RULES.map((r) => (
+                <option key={r} value={r}>
+                  {RULE_LABELS[r]}
+                </option>
+              ))}
+            </SelectField>
+            {rule !== 'interval-mean' && (
+              <label className="flex flex-col gap-1 text-sm">
+                Samples at most this far from the grid time (min)
+                <input
+                  inputMode="decimal"
+                  value={toleranceText}
+                  onChange={(e) => setToleranceText(e.target.value)}
+                  className="w-28 rounded border border-rule bg-paper-raised px-2 py-1 text-right text-sm"
+                />
+              </label>
+            )}
+            {proposed.quality && (
+              <label className="flex flex-col gap-1 text-sm">
+                Quality values that mean good (comma between)
+                <input value={goodText} onChange={(e) => setGoodText(e.target.value)} className={selectClass} />
+              </label>
+            )}
+          </div>
+        </fieldset>
+      )}
 
       <fieldset className="flex flex-col gap-3">
         <legend className="mb-1 text-sm font-semibold">Timestamps</legend>
