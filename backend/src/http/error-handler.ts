@@ -1,5 +1,6 @@
 import type { NextFunction, Request, Response } from 'express';
 import { QueryFailedError } from 'typeorm';
+import { isDatabaseUnreachable } from '../database-errors.js';
 import { AppError } from './app-error.js';
 
 const ER_LOCK_WAIT_TIMEOUT = 1205;
@@ -8,6 +9,13 @@ const ER_DUP_ENTRY = 1062;
 
 /** One JSON error shape; never a stack trace. */
 export function errorHandler(err: unknown, req: Request, res: Response, _next: NextFunction): void {
+  // The database is stopped or restarting: nothing could be read or written; the pool reconnects by itself.
+  if (isDatabaseUnreachable(err)) {
+    req.log?.warn({ err }, 'database unreachable');
+    res.setHeader('Retry-After', '10');
+    res.status(503).json({ error: 'Cleancase cannot reach its database just now, so this request could not be completed: try again in a minute' });
+    return;
+  }
   if (err instanceof AppError) {
     res.status(err.status).json({ error: err.message, ...(err.details ? { details: err.details } : {}) });
     return;

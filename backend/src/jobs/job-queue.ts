@@ -188,6 +188,53 @@ export async function finishJob(ds: DataSource, lease: JobLease, outcome: { ok: 
   return affectedRows(result) > 0;
 }
 
+/**
+ * Settles a job its worker could not finish: the failure could not be written (the database was unreachable), or
+ * the worker's process is gone. A job kind with a clean-up (`onGiveUp`) ends failed with `reason` and is cleaned up
+ * in the same transaction; any other kind is queued again (running it again is harmless). False, and nothing
+ * written, when the job is no longer held under `job.lockedBy`.
+ */
+export async function settleAbandonedJob(ds: DataSource, job: BackgroundJob, reason: string, onGiveUp?: GiveUpHook): Promise<boolean> {
+  return ds.transaction(async (em) => {
+    const held: unknown[] = await em.query(`SELECT id FROM background_job WHERE id = ? AND lockedBy = ? AND status = 'running' FOR UPDATE`, [
+      job.id,
+      job.lockedBy,
+    ]);
+    if (held.length === 0) return false;
+    const message = reason.slice(0, 500);
+    if (!onGiveUp) {
+      await em.query(`UPDATE background_job SET status = 'queued', lockedBy = NULL, lockedAt = NULL, message = ? WHERE id = ?`, [
+        `Waiting to start again (${reason})`.slice(0, 500),
+        job.id,
+      ]);
+      return true;
+    }
+    await em.query(`UPDATE background_job SET status = 'failed', message = ?, finishedAt = ?, lockedBy = NULL WHERE id = ?`, [message, new Date(), job.id]);
+    await onGiveUp(em, { ...job, status: 'failed', message, lockedBy: null });
+    return true;
+  });
+}
+
+/** The process id in a worker id (`host:pid:suffix`, see job-worker.ts) when the worker ran on `host`; null otherwise. */
+export function localWorkerPid(lockedBy: string | null, host: string): number | null {
+  if (!lockedBy?.startsWith(`${host}:`)) return null;
+  const pid = Number(lockedBy.slice(host.length + 1).split(':')[0]);
+  return Number.isInteger(pid) && pid > 0 ? pid : null;
+}
+
+/**
+ * Running jobs whose worker was a process on this host that no longer exists (killed or crashed): no heartbeat
+ * will come, so they need not wait STALE_MINUTES. Processes sharing a host name share its process ids (one
+ * machine or container); a worker on another host is left to the lease.
+ */
+export async function jobsOfDeadLocalWorkers(ds: DataSource, host: string, isAlive: (pid: number) => boolean): Promise<BackgroundJob[]> {
+  const running = await ds.getRepository(BackgroundJob).findBy({ status: 'running' });
+  return running.filter((job) => {
+    const pid = localWorkerPid(job.lockedBy, host);
+    return pid !== null && !isAlive(pid);
+  });
+}
+
 /** Rows changed by an UPDATE through TypeORM's MariaDB driver (an OkPacket, or [rows, OkPacket]). */
 function affectedRows(result: unknown): number {
   const packet = Array.isArray(result) ? (result[1] ?? result[0]) : result;

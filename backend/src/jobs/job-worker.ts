@@ -4,7 +4,8 @@ import { randomBytes } from 'node:crypto';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { BackgroundJob } from '../entities/background-job.entity.js';
 import type { Logger } from '../logger.js';
-import { claimNextJob, finishJob, LostJobLockError, releaseJob, renewLease, STALE_MINUTES } from './job-queue.js';
+import { isDatabaseUnreachable } from '../database-errors.js';
+import { claimNextJob, finishJob, jobsOfDeadLocalWorkers, LostJobLockError, releaseJob, renewLease, settleAbandonedJob, STALE_MINUTES } from './job-queue.js';
 
 export interface JobHandler {
   (ds: DataSource, job: BackgroundJob): Promise<void>;
@@ -25,12 +26,36 @@ const HEARTBEAT_MS = Math.min(60_000, (STALE_MINUTES * 60_000) / 5);
 
 const workerId = () => `${hostname()}:${process.pid}:${randomBytes(3).toString('hex')}`;
 
-/** The job a worker is running, if any. */
+/** What a job records when the database stopped answering while it ran (an import adds it to "stored nothing: …"). */
+export const DATABASE_STOPPED = 'the database stopped answering while it ran';
+/** What a job records when the process running it ended without finishing it (killed or crashed). */
+export const PROCESS_STOPPED = 'the app process stopped while it ran (it was ended or crashed)';
+/** How often a worker looks for jobs of dead processes on its host (also at its start). */
+const DEAD_WORKER_CHECK_MS = 60_000;
+
+/** The job a worker is running, if any, and jobs it could not finish because the database was unreachable. */
 interface Holding {
   job: BackgroundJob | null;
+  unsettled: { job: BackgroundJob; reason: string }[];
 }
 
-async function runOne(ds: DataSource, handlers: Record<string, JobHandler>, id: string, logger?: Logger, holding: Holding = { job: null }): Promise<boolean> {
+function pidAlive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (err) {
+    // EPERM: it exists, under another user.
+    return (err as { code?: string }).code === 'EPERM';
+  }
+}
+
+async function runOne(
+  ds: DataSource,
+  handlers: Record<string, JobHandler>,
+  id: string,
+  logger?: Logger,
+  holding: Holding = { job: null, unsettled: [] },
+): Promise<boolean> {
   const job = await claimNextJob(ds, id, { onGiveUp: (em, j) => handlers[j.kind]?.giveUp?.(em, j) ?? Promise.resolve() });
   if (!job) return false;
   holding.job = job;
@@ -46,9 +71,17 @@ async function runOne(ds: DataSource, handlers: Record<string, JobHandler>, id: 
   } catch (err) {
     if (err instanceof LostJobLockError) {
       logger?.warn({ jobId: job.id, kind: job.kind }, 'job taken over by another worker: stopped');
+    } else if (isDatabaseUnreachable(err)) {
+      // Its own clean-up could not reach the database either: settled (failed and cleaned up, or queued again) now or, while the database is still away, by a later pass.
+      logger?.warn({ err, jobId: job.id, kind: job.kind }, 'job stopped: the database is unreachable');
+      await settleAbandonedJob(ds, job, DATABASE_STOPPED, handler?.giveUp).catch(() => holding.unsettled.push({ job, reason: DATABASE_STOPPED }));
     } else {
       logger?.error({ err, jobId: job.id, kind: job.kind }, 'job failed');
-      await finishJob(ds, job, { ok: false, message: err instanceof Error ? err.message : String(err) });
+      const message = err instanceof Error ? err.message : String(err);
+      await finishJob(ds, job, { ok: false, message }).catch((finishErr: unknown) => {
+        if (!isDatabaseUnreachable(finishErr)) throw finishErr;
+        holding.unsettled.push({ job, reason: message });
+      });
     }
   } finally {
     clearInterval(heartbeat);
@@ -65,12 +98,37 @@ export async function drainJobs(ds: DataSource, handlers: Record<string, JobHand
   return count;
 }
 
+/** Settles what this worker could not (the database was away); each stays listed until the database takes it. */
+async function settleUnsettled(ds: DataSource, handlers: Record<string, JobHandler>, holding: Holding, logger: Logger): Promise<void> {
+  while (holding.unsettled.length > 0) {
+    const { job, reason } = holding.unsettled[0]!;
+    await settleAbandonedJob(ds, job, reason, handlers[job.kind]?.giveUp);
+    holding.unsettled.shift();
+    logger.info({ jobId: job.id, kind: job.kind }, 'job left by a database outage settled');
+  }
+}
+
+/** Settles the jobs of processes on this host that died holding them (on a restart, say), without waiting out their lease. */
+async function settleJobsOfDeadProcesses(ds: DataSource, handlers: Record<string, JobHandler>, logger: Logger): Promise<void> {
+  for (const job of await jobsOfDeadLocalWorkers(ds, hostname(), pidAlive)) {
+    if (await settleAbandonedJob(ds, job, PROCESS_STOPPED, handlers[job.kind]?.giveUp)) {
+      logger.warn({ jobId: job.id, kind: job.kind, worker: job.lockedBy }, 'job of a process that stopped while running it settled');
+    }
+  }
+}
+
 export function startJobWorker(ds: DataSource, handlers: Record<string, JobHandler>, logger: Logger, pollMs = 1000): JobWorker {
   const id = workerId();
-  const holding: Holding = { job: null };
+  const holding: Holding = { job: null, unsettled: [] };
   let stopped = false;
   let running: Promise<void> = Promise.resolve();
+  let nextDeadCheck = 0;
   const tick = async () => {
+    await settleUnsettled(ds, handlers, holding, logger);
+    if (Date.now() >= nextDeadCheck) {
+      await settleJobsOfDeadProcesses(ds, handlers, logger);
+      nextDeadCheck = Date.now() + DEAD_WORKER_CHECK_MS;
+    }
     while (!stopped && (await runOne(ds, handlers, id, logger, holding)));
   };
   const timer = setInterval(() => {
