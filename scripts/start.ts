@@ -70,7 +70,7 @@ try {
   }
 
   if (!config.STRIPE_API_BASE && config.STRIPE_SECRET_KEY.startsWith('sk_test_cleancase')) {
-    const stripe: StripeFake = await startStripeFake(config.STRIPE_FAKE_PORT);
+    const stripe: StripeFake = await startStripeFake(config.STRIPE_FAKE_PORT, config.STRIPE_WEBHOOK_SECRET);
     steps.push({ label: 'stopping the Stripe fake', limitMs: 8_000, run: stripe.stop });
     config.STRIPE_API_BASE = stripe.apiBase;
     log(`Stripe fake (stripe-stateful-mock) on ${stripe.apiBase}`);

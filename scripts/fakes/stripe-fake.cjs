@@ -40,7 +40,7 @@ const state = {
   endpoints: [],
   events: [],
   /** Answers the next N API calls with this status (an outage of the stand-in, for tests). */
-  failNext: { count: 0, status: 500 },
+  failNext: { count: 0, status: 500, match: '' },
 };
 
 // ---- events and their delivery -------------------------------------------------------------------------------
@@ -179,13 +179,15 @@ app.use((req, _res, next) => {
 
 // An outage of the stand-in, switched on by a test: every API call answers with the chosen status.
 app.post('/_fake/fail-next', (req, res) => {
-  state.failNext = { count: Number(req.body.count || 1), status: Number(req.body.status || 500) };
+  state.failNext = { count: Number(req.body.count || 1), status: Number(req.body.status || 500), match: req.body.match || '' };
   res.json({ ok: true });
 });
 app.use('/v1', (req, res, next) => {
   if (!/^Bearer sk_test_/.test(req.get('authorization') || ''))
     return apiError(res, 401, 'This stand-in takes test secret keys (sk_test_…) only', 'api_key_invalid');
-  if (state.failNext.count > 0) {
+  // With `match`, only calls whose path or parameters contain it fail (tests sharing the stand-in leave each other alone).
+  const matches = !state.failNext.match || `${req.originalUrl} ${JSON.stringify(req.body || {})}`.includes(state.failNext.match);
+  if (state.failNext.count > 0 && matches) {
     state.failNext.count -= 1;
     return res.status(state.failNext.status).json({ error: { type: 'api_error', message: 'The Stripe stand-in was told to fail this call' } });
   }

@@ -10,7 +10,9 @@ import { Organisation } from '../../backend/src/entities/organisation.entity.js'
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import { createTenant, CSRF, signedInAgent, type TenantFixture, uniqueEmail } from '../factories/accounts.js';
 import { createPlant, createUnit } from '../factories/units.js';
-import { deliverAll, fakeControl, payCheckout, stripeOf } from '../factories/billing.js';
+import { deliver, deliverAll, eventsOf, fakeControl, payCheckout, stripeOf } from '../factories/billing.js';
+import { BillingWebhookEvent } from '../../backend/src/entities/billing-webhook-event.entity.js';
+import { sendTrialEndingMails } from '../../backend/src/services/billing/trial-ending-mails.js';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -161,7 +163,7 @@ describe('when Stripe is down or failing', () => {
       ['/api/billing/checkout', { price: 'cleancase_station_month' }],
       ['/api/billing/portal', undefined],
     ] as const) {
-      await fakeControl(t.config, 'fail-next', { count: '1', status: '500' });
+      await fakeControl(t.config, 'fail-next', { count: '1', status: '500', match: tenant.organisation.id });
       const res = await admin.post(path).set(CSRF).send(body);
       expect(res.status, path).toBe(503);
       expect(res.body.error).toMatch(/payment service \(Stripe\) is not answering just now, so nothing was changed/);
@@ -185,5 +187,35 @@ describe('when Stripe is down or failing', () => {
     } finally {
       await down.close();
     }
+  });
+
+  it('a webhook that cannot re-read the subscription answers 503 and stores nothing; Stripe’s retry then applies it once', async () => {
+    const { tenant, admin } = await trialTenant();
+    await payCheckout(admin, 'cleancase_station_month');
+    const customer = (await org(tenant.organisation.id)).stripeCustomerId!;
+    const created = (await eventsOf(t.config, customer)).find((e) => e.type === 'customer.subscription.created')!;
+    await fakeControl(t.config, 'fail-next', { count: '1', status: '500', match: (created.data.object as { id: string }).id });
+    const failed = await deliver(t.app, t.config, created);
+    expect(failed.status).toBe(503);
+    expect(await t.dataSource.getRepository(BillingWebhookEvent).countBy({ id: created.id })).toBe(0);
+    expect((await org(tenant.organisation.id)).subscriptionStatus).toBe('trialing');
+    expect((await deliver(t.app, t.config, created)).status).toBe(204);
+    expect((await org(tenant.organisation.id)).subscriptionStatus).toBe('active');
+  });
+});
+
+describe('trial-ending mail', () => {
+  it('goes once to each administrator of a trial in its last three days, and not to a trial with longer to run', async () => {
+    const ending = await createTenant(t.dataSource, 'ending');
+    const later = await createTenant(t.dataSource, 'later');
+    await t.dataSource.getRepository(Organisation).update({ id: ending.organisation.id }, { trialEndsAt: new Date(Date.now() + 2 * 86_400_000) });
+    await t.dataSource.getRepository(Organisation).update({ id: later.organisation.id }, { trialEndsAt: new Date(Date.now() + 9 * 86_400_000) });
+    await sendTrialEndingMails(t.dataSource, t.config);
+    await sendTrialEndingMails(t.dataSource, t.config);
+    const mails = (await t.mailTo(ending.users.admin.email)).filter((m) => m.subject.startsWith('The Cleancase trial'));
+    expect(mails).toHaveLength(1);
+    expect(mails[0]!.text).toMatch(/Nothing is deleted when a trial ends/);
+    expect((await t.mailTo(ending.users.analyst.email)).filter((m) => m.subject.startsWith('The Cleancase trial'))).toHaveLength(0);
+    expect((await t.mailTo(later.users.admin.email)).filter((m) => m.subject.startsWith('The Cleancase trial'))).toHaveLength(0);
   });
 });

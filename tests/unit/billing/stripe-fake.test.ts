@@ -162,6 +162,10 @@ describe('the Stripe stand-in through the SDK', () => {
     await fetch(`${fake.apiBase}/_fake/fail-next`, { method: 'POST', body: new URLSearchParams({ count: '1', status: '500' }) });
     await expect(stripe.customers.create({})).rejects.toMatchObject({ statusCode: 500 });
     await expect(stripe.customers.create({})).resolves.toMatchObject({ object: 'customer' });
+    // Only the calls that name `match` fail.
+    await fetch(`${fake.apiBase}/_fake/fail-next`, { method: 'POST', body: new URLSearchParams({ count: '1', status: '503', match: 'org-outage' }) });
+    await expect(stripe.customers.create({ metadata: { organisationId: 'org-other' } })).resolves.toMatchObject({ object: 'customer' });
+    await expect(stripe.customers.create({ metadata: { organisationId: 'org-outage' } })).rejects.toMatchObject({ statusCode: 503 });
   });
 
   it('cannot be reached on any address but loopback', async () => {
