@@ -219,6 +219,12 @@ const MATRIX: Record<string, Entry> = {
   'PUT /api/organisation/historian-status-words': { body: () => ({ words: ['Scan Off'] }), expect: adminsOnly(200) },
   'GET /api/units/:id/health': { path: (fx) => `/api/units/${fx.unit.id}/health`, expect: readers(200) },
   'GET /api/portfolio': { expect: members(200) },
+  'GET /api/notifications': { expect: members(200) },
+  // Your own choices; naming a unit outside your scope (another tenant's, another client group's) is 404 and nothing is saved.
+  'PUT /api/notifications': {
+    body: (fx) => ({ weeklyDigest: true, allUnits: null, units: [{ unitId: fx.unit.id, kinds: ['data-stopped'], dataStoppedDays: 5 }] }),
+    expect: readers(200),
+  },
   'GET /api/units/:id/samples': { path: (fx) => `/api/units/${fx.unit.id}/samples?from=2026-01-01&to=2026-01-31`, expect: readers(200) },
   'GET /api/units/:id/export': { path: (fx) => `/api/units/${fx.unit.id}/export?dataset=daily&format=csv`, expect: readers(200) },
   'GET /api/units/:id/imports': { path: (fx) => `/api/units/${fx.unit.id}/imports`, expect: readers(200) },

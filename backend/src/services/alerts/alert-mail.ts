@@ -40,7 +40,7 @@ const unitTitle = (u: PortfolioUnit) => `${plainName(u.unitName, 'a unit')} at $
 export function alertMail(p: { to: string; unit: PortfolioUnit; raised: UnitCondition[]; baseUrl: string }): OutgoingMail {
   const names = p.raised.map((c) => CONDITION_EXPLAINED[c.kind].title.toLowerCase());
   const lines = [`${unitTitle(p.unit)}: ${names.join(', ')}.`, ''];
-  for (const c of p.raised) lines.push(`${CONDITION_EXPLAINED[c.kind].title}: ${c.sentence}`, '');
+  for (const c of p.raised) lines.push(c.sentence, '');
   lines.push('The unit’s figures now:', ...figureLines(p.unit).map((l) => `- ${l}`), '');
   if (p.raised.some((c) => c.kind === 'cleaning-now-pays')) lines.push(CLEANING_CAUTION, '');
   lines.push(
