@@ -11,7 +11,7 @@ import { JOB_HANDLERS } from '../../backend/src/jobs/job-handlers.js';
 import type { GeneratingUnit } from '../../backend/src/entities/generating-unit.entity.js';
 import type { TenantScope } from '../../backend/src/policies/tenant-scope.js';
 import { recomputeUnit } from '../../backend/src/services/derived/recompute-unit.js';
-import { computeUnitHealth, unitHealth, unitHealthCache } from '../../backend/src/services/health.service.js';
+import { computeUnitHealth, computeUnitSamples, unitHealth, unitHealthCache } from '../../backend/src/services/health.service.js';
 import { createTenant, CSRF, signedInAgent, type TenantFixture } from '../factories/accounts.js';
 import { createPlant, createUnit, TEST_CONDENSER, TEST_TURBINE } from '../factories/units.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
@@ -90,8 +90,11 @@ describe('unit health cache', () => {
     await recomputeUnit(t.dataSource, unit.id);
   });
 
-  it('after a recompute run outside this app (another process), the next request has the new figures', async () => {
+  it('after a recompute run outside this app (another process), the next request has the new figures and hourly points', async () => {
     const before = await health();
+    const samplesUrl = `/api/units/${unit.id}/samples?from=2024-06-10&to=2024-06-12&quantity=backpressure`;
+    const pointsBefore = (await analyst.get(samplesUrl).expect(200)).body;
+    expect((await analyst.get(samplesUrl).expect(200)).body).toEqual(pointsBefore);
     // The raw backpressure readings rise by 5 % (no new sample, no event, no setup change), then a recompute
     // that did not pass through this app's requests: only the data version it raises in the database tells.
     await t.dataSource.query('UPDATE performance_sample SET backpressureKpa = backpressureKpa * 1.05 WHERE unitId = ?', [unit.id]);
@@ -100,6 +103,10 @@ describe('unit health cache', () => {
     expect(after.headline.cleanliness).toBeLessThan(before.headline.cleanliness - 0.01);
     expect(after.series.at(-1).backpressureKpa).toBeCloseTo(before.series.at(-1).backpressureKpa * 1.05, 6);
     expect(after).toEqual(JSON.parse(JSON.stringify(await computeUnitHealth(t.dataSource, scope, unit.id, Q))));
+    const pointsAfter = (await analyst.get(samplesUrl).expect(200)).body;
+    expect(pointsAfter.points[0].backpressureKpa).toBeCloseTo(pointsBefore.points[0].backpressureKpa * 1.05, 6);
+    const sq = { from: '2024-06-10', to: '2024-06-12', quantity: 'backpressure' } as const;
+    expect(pointsAfter).toEqual(JSON.parse(JSON.stringify(await computeUnitSamples(t.dataSource, scope, unit.id, sq))));
   });
 
   it('after a setup save, the next request shows the new setup before the recompute has run, and the recomputed figures after it', async () => {

@@ -49,23 +49,13 @@ export async function portfolioUnitsInScope(em: EntityManager, scope: TenantScop
     .addSelect('g.id', 'clientGroupId')
     .addSelect('g.name', 'clientGroupName')
     .addSelect('(u.condenser IS NOT NULL AND u.turbine IS NOT NULL AND u.economics IS NOT NULL)', 'setupComplete')
-    .addSelect('(u.analysis IS NOT NULL)', 'analysed')
-    // the parts of the setup and the stored analysis read, as one JSON object (the outlook without its plan's
-    // later dates and options: its status, reason, first cleaning and saving)
+    // The setup's small parts through MariaDB's JSON functions; the stored analysis (~15 kB) whole: parsing it
+    // here is several times cheaper than MariaDB's JSON functions reading its parts one path at a time.
     .addSelect(
-      `JSON_OBJECT(
-        'currency', JSON_EXTRACT(u.economics, '$.currency'),
-        'referenceCleanliness', JSON_EXTRACT(u.condenser, '$.referenceCleanliness'),
-        'designCleanliness', JSON_EXTRACT(u.condenser, '$.designCleanliness'),
-        'current', JSON_EXTRACT(u.analysis, '$.current'),
-        'outlook', JSON_OBJECT(
-          'status', JSON_EXTRACT(u.analysis, '$.outlook.status'),
-          'reason', JSON_EXTRACT(u.analysis, '$.outlook.reason'),
-          'next', JSON_EXTRACT(u.analysis, '$.outlook.next'),
-          'firstDuring', JSON_EXTRACT(u.analysis, '$.outlook.plan[0].unitDuringCleaning'),
-          'saving', JSON_EXTRACT(u.analysis, '$.outlook.savingsVersusNoCleaning')))`,
+      "JSON_OBJECT('currency', JSON_EXTRACT(u.economics, '$.currency'), 'referenceCleanliness', JSON_EXTRACT(u.condenser, '$.referenceCleanliness'), 'designCleanliness', JSON_EXTRACT(u.condenser, '$.designCleanliness'))",
       'parts',
-    );
+    )
+    .addSelect('u.analysis', 'analysis');
   const rows: Record<string, unknown>[] = await restrictPlantsToScope(qb, 'p', scope)
     .orderBy('g.name', 'ASC')
     .addOrderBy('p.name', 'ASC')
@@ -73,6 +63,9 @@ export async function portfolioUnitsInScope(em: EntityManager, scope: TenantScop
     .getRawMany();
   return rows.map((r) => {
     const parts = (json(r.parts) ?? {}) as Record<string, unknown>;
+    const analysis = (json(r.analysis) ?? {}) as { current?: unknown; outlook?: Record<string, unknown> | null };
+    const outlook = analysis.outlook ?? null;
+    const plan = Array.isArray(outlook?.plan) ? (outlook.plan as { unitDuringCleaning?: unknown }[]) : [];
     return {
       unitId: String(r.unitId),
       unitName: String(r.unitName),
@@ -82,12 +75,18 @@ export async function portfolioUnitsInScope(em: EntityManager, scope: TenantScop
       clientGroupId: (r.clientGroupId as string | null) ?? null,
       clientGroupName: (r.clientGroupName as string | null) ?? null,
       setupComplete: Number(r.setupComplete) === 1,
-      analysed: Number(r.analysed) === 1,
+      analysed: r.analysis !== null && r.analysis !== undefined,
       currency: parts.currency ?? null,
       referenceCleanliness: parts.referenceCleanliness ?? null,
       designCleanliness: parts.designCleanliness ?? null,
-      current: parts.current ?? null,
-      outlook: parts.outlook ?? null,
+      current: analysis.current ?? null,
+      outlook: outlook && {
+        status: outlook.status ?? null,
+        reason: outlook.reason ?? null,
+        next: outlook.next ?? null,
+        firstDuring: plan[0]?.unitDuringCleaning ?? null,
+        saving: outlook.savingsVersusNoCleaning ?? null,
+      },
     };
   });
 }

@@ -267,8 +267,17 @@ export async function computeUnitHealth(ds: DataSource, scope: TenantScope, unit
   };
 }
 
-/** Hourly points of one quantity over a period, downsampled (LTTB) to at most MAX_SERIES_POINTS. */
+/** Hourly points of recently asked units and periods in this process (about 0.2 MB each). */
+export const unitSamplesCache = new UnitViewCache<SamplesResponse>(128);
+
+/** Hourly points, from the cache while the unit's versions, imports and stored data are unchanged (as for the health view). */
 export async function unitSamples(ds: DataSource, scope: TenantScope, unitId: string, q: z.infer<typeof samplesQuery>): Promise<SamplesResponse> {
+  const version = await foundInScope(unitVersionInScope(ds.manager, scope, unitId), 'No such unit');
+  return unitSamplesCache.get(UnitViewCache.keyOf(version, [q.from, q.to, q.quantity]), () => computeUnitSamples(ds, scope, unitId, q));
+}
+
+/** Hourly points of one quantity over a period, downsampled (LTTB) to at most MAX_SERIES_POINTS (no cache). */
+export async function computeUnitSamples(ds: DataSource, scope: TenantScope, unitId: string, q: z.infer<typeof samplesQuery>): Promise<SamplesResponse> {
   const { plant } = await foundInScope(findUnitWithPlant(ds.manager, scope, unitId), 'No such unit');
   const columns: Record<SamplesResponse['quantity'], SamplesResponse['columns']> = {
     backpressure: ['backpressureKpa', 'expectedBackpressureKpa'],
