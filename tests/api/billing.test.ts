@@ -104,6 +104,7 @@ describe('a trial organisation through checkout, change and cancel', () => {
     expect(view.nextInvoice).toMatchObject({ amount: '690.00', currency: 'usd' });
     const receipts = await t.mailTo(tenant.users.admin.email);
     expect(receipts.filter((m) => m.subject.startsWith('Receipt'))).toHaveLength(1);
+    expect(receipts.find((m) => m.subject.startsWith('Receipt'))!.text).toContain('Thank you: $690.00 for');
 
     // Upgrade to Fleet yearly.
     expect((await admin.post('/api/billing/change').set(CSRF).send({ price: 'cleancase_fleet_year' })).status).toBe(204);

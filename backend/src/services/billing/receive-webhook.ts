@@ -7,6 +7,7 @@
  */
 import type Stripe from 'stripe';
 import { PAST_DUE_GRACE_DAYS } from '@shared/billing-access.js';
+import { formatCurrency } from '@shared/text/display-format.js';
 import { BillingWebhookEvent } from '../../entities/billing-webhook-event.entity.js';
 import { Organisation } from '../../entities/organisation.entity.js';
 import { AppError } from '../../http/app-error.js';
@@ -73,7 +74,8 @@ async function targetOf(ctx: BillingContext, event: Stripe.Event): Promise<Targe
 async function mailFor(em: EntityManager, ctx: BillingContext, org: Organisation, event: Stripe.Event): Promise<void> {
   if (event.type !== 'invoice.paid' && event.type !== 'invoice.payment_failed') return;
   const invoice = event.data.object;
-  const amount = `${money(event.type === 'invoice.paid' ? invoice.amount_paid : invoice.amount_due)} ${invoice.currency.toUpperCase()}`;
+  const cents = event.type === 'invoice.paid' ? invoice.amount_paid : invoice.amount_due;
+  const amount = formatCurrency(Number(money(cents)), invoice.currency.toUpperCase(), 2);
   const link = `${baseUrl(ctx.config)}/settings/billing`;
   const mailer = createOutboxMailer(em);
   for (const admin of await adminAddresses(em, org.id)) {
