@@ -151,6 +151,16 @@ export const importMappingSchema = z
      * the tall file's columns.
      */
     tall: importTallSchema.optional(),
+    /**
+     * The file holds averages over this many minutes rather than instantaneous values (the header or the person says
+     * so): recorded with the import, and the steadiness rule compares neighbouring intervals.
+     */
+    averagingMinutes: z
+      .number()
+      .int('the averaging interval is a whole number of minutes')
+      .min(1, 'the averaging interval is at least 1 minute')
+      .max(1440, 'the averaging interval is at most 1,440 minutes (a day)')
+      .optional(),
     /** XLSX: the sheet to read, by name (default: the first). */
     sheet: z.string().trim().min(1, 'a sheet name cannot be empty').max(31, 'sheet names are at most 31 characters').optional(),
   })

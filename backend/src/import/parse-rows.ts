@@ -269,7 +269,14 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
     const compiled = compileMapping(options.mapping, table.headers);
     const converter = new RowConverter(compiled, options.statusWords);
     const s = options.steadiness ?? {};
-    const windowMinutes = s.windowMinutes ?? 30;
+    // averages over an interval: the load change is judged between neighbouring intervals, so the window spans one
+    const averaging = compiled.mapping.averagingMinutes;
+    const windowMinutes = s.windowMinutes ?? Math.max(30, averaging ?? 0);
+    if (averaging !== undefined) {
+      compiled.assumptions.push(
+        `values are averages over ${averaging} min: the load's steadiness is judged within ±${windowMinutes} min${windowMinutes > 30 ? ' (the neighbouring intervals)' : ''}`,
+      );
+    }
     const batchSize = options.batchSize ?? 5000;
     const summary: ImportSummary = {
       rowsRead: 0,

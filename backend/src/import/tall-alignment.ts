@@ -190,7 +190,14 @@ const MAX_QUALITY_MARKERS = 100;
 /** The wide mapping an aligned file is read with: the same tags as columns, grid times as ISO 8601 UTC. */
 function wideMappingOf(mapping: ImportMapping): ImportMapping {
   const { tall: _tall, quality: _quality, sheet: _sheet, ...rest } = mapping;
-  return { ...rest, decimalSeparator: '.', timestamp: { column: mapping.timestamp.column, format: 'iso-8601-offset', repeatedHour: 'by-file-order' } };
+  // means over the grid interval are averages over it, unless the file's own interval is stated
+  const averagingMinutes = mapping.averagingMinutes ?? (mapping.tall?.rule === 'interval-mean' ? mapping.tall.gridMinutes : undefined);
+  return {
+    ...rest,
+    ...(averagingMinutes !== undefined ? { averagingMinutes } : {}),
+    decimalSeparator: '.',
+    timestamp: { column: mapping.timestamp.column, format: 'iso-8601-offset', repeatedHour: 'by-file-order' },
+  };
 }
 
 /** Required tags: those mapped to a quantity every row needs (a barometer only for vacuum without a fixed one). */

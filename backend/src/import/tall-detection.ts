@@ -122,3 +122,17 @@ export function guessTallMapping(
   };
   return { guess, mapping };
 }
+
+/**
+ * An averaging interval stated in the title lines or the headers ("Interval: 1 hour average", "Avg (15 min)"), in
+ * whole minutes; undefined when none is stated. The person confirms it on the mapping screen.
+ */
+export function averagingFromText(lines: string[]): number | undefined {
+  for (const line of lines) {
+    const m = /\b(avg|average[sd]?|mean|interval)\b[^0-9]{0,24}(\d+(?:\.\d+)?)\s*(min(?:ute)?s?|m|h(?:ou)?rs?|hours?|h)\b/i.exec(line);
+    if (!m || !/avg|average|mean/i.test(line)) continue;
+    const n = Number(m[2]) * (/^h/i.test(m[3]!) ? 60 : 1);
+    if (Number.isInteger(n) && n >= 1 && n <= 1440) return n;
+  }
+  return undefined;
+}

@@ -12,7 +12,7 @@ import { z } from 'zod';
 import { importMappingSchema, type ImportMapping, type ImportMappingInput } from '@shared/schemas/import-mapping.js';
 import { importCounts, importView as importViewSchema, rowError, type ImportCounts, type ImportView } from '@shared/schemas/imports.js';
 import { formatRowErrorReportCsv, guessMapping, openTable, type RowError } from '../import/index.js';
-import { detectTallShape, guessTallMapping, listTags } from '../import/tall-detection.js';
+import { averagingFromText, detectTallShape, guessTallMapping, listTags } from '../import/tall-detection.js';
 import { DataImport } from '../entities/data-import.entity.js';
 import { GeneratingUnit } from '../entities/generating-unit.entity.js';
 import { AppError, badRequest } from '../http/app-error.js';
@@ -111,6 +111,8 @@ function proposeMapping(preview: Awaited<ReturnType<typeof readPreview>>, unit: 
         )
       : !saved.data.tall && headersCover(saved.data, preview.headers));
   const sheet = preview.sheet !== null && preview.sheets.length > 1 ? { sheet: preview.sheet } : {};
+  const averaging = averagingFromText([...preview.titleLines, ...preview.headers]);
+  if (averaging !== undefined && !savedFits) guess.mapping = { ...guess.mapping, averagingMinutes: averaging };
   const mapping = savedFits ? { ...saved!.data, ...sheet } : { ...guess.mapping, ...sheet };
   return { guess, mapping, source: savedFits ? ('saved' as const) : ('guessed' as const) };
 }

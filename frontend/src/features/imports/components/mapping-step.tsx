@@ -117,6 +117,7 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
   const [flowNotMetered, setFlowNotMetered] = useState(proposed.designCwFlowM3s !== undefined && !proposed.columns?.cwFlow);
   const [goodText, setGoodText] = useState((proposed.quality?.goodValues ?? ['Good']).join(', '));
   const tallShape = upload.shape === 'tall' ? proposed.tall : undefined;
+  const [averagingText, setAveragingText] = useState(proposed.averagingMinutes !== undefined ? String(proposed.averagingMinutes) : '');
   const [gridMinutes, setGridMinutes] = useState<(typeof GRID_MINUTES)[number]>(proposed.tall?.gridMinutes ?? 60);
   const [rule, setRule] = useState<AlignmentRule>(proposed.tall?.rule ?? 'nearest');
   const [toleranceText, setToleranceText] = useState(String(proposed.tall?.toleranceMinutes ?? 5));
@@ -156,7 +157,9 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
     }
     const barometer = parseNumberText(barometerText);
     const tolerance = parseNumberText(toleranceText);
+    const averaging = averagingText.trim() === '' ? undefined : (parseNumberText(averagingText) ?? Number.NaN);
     return {
+      ...(averaging !== undefined && { averagingMinutes: averaging }),
       ...(tallShape && {
         tall: { tagColumn: tallShape.tagColumn, valueColumn: tallShape.valueColumn, gridMinutes, rule, toleranceMinutes: tolerance ?? Number.NaN },
       }),
@@ -191,6 +194,7 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
     gridMinutes,
     rule,
     toleranceText,
+    averagingText,
     assignments,
     format,
     timeZone,
@@ -454,6 +458,21 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
           CW flow is not metered: use the design flow
           <span className="text-xs text-ink-soft">
             {designCwFlowM3s === null ? '(set up the condenser first)' : `(${formatStored(designCwFlowM3s, units.flowM3s)}, recorded as an assumption)`}
+          </span>
+        </label>
+        <label className="flex flex-wrap items-center gap-2 text-sm">
+          The values are averages over
+          <input
+            aria-label="Averaging interval in minutes"
+            inputMode="numeric"
+            value={averagingText}
+            onChange={(e) => setAveragingText(e.target.value)}
+            placeholder="—"
+            className="w-20 rounded border border-rule bg-paper-raised px-2 py-1 text-right text-sm"
+          />
+          min
+          <span className="text-xs text-ink-soft">
+            (leave empty for values read at their time; recorded with the import, and steadiness compares neighbouring intervals)
           </span>
         </label>
         <div className="max-w-xs">
