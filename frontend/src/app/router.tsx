@@ -8,6 +8,7 @@ import { FirstLoad } from '@frontend/components/ui/query-state';
 import { apiTokensQueryOptions } from '@frontend/features/api-tokens/api/get-api-tokens';
 import { auditEventsQueryOptions, auditFiltersFrom } from '@frontend/features/audit/api/get-audit-events';
 import { cleaningMethodsQueryOptions } from '@frontend/features/cleaning-methods/api/get-cleaning-methods';
+import { notificationsQueryOptions } from '@frontend/features/notifications/api/get-notifications';
 import { clientGroupsQueryOptions } from '@frontend/features/client-groups/api/get-client-groups';
 import { mailboxQueryOptions } from '@frontend/features/dev-mailbox/api/get-mailbox';
 import { invitationsQueryOptions } from '@frontend/features/members/api/get-invitations';
@@ -358,6 +359,15 @@ const router = createBrowserRouter([
               prefetch(invitationsQueryOptions(org)),
               prefetch(clientGroupsQueryOptions(org)),
             ]),
+          },
+          {
+            path: 'notifications',
+            handle: { title: 'Notifications' },
+            lazy: page(
+              () => import('./routes/settings-notifications'),
+              (m) => m.NotificationsSettingsPage,
+            ),
+            loader: tenantLoader('data.read', (org) => [prefetch(notificationsQueryOptions(org))]),
           },
           {
             path: 'client-groups',

@@ -12,6 +12,7 @@ interface Item {
 
 const items: Item[] = [
   { to: '/settings/profile', label: 'Your profile' },
+  { to: '/settings/notifications', label: 'Notifications', needs: 'data.read' },
   { to: '/settings/api-tokens', label: 'API tokens', needs: 'calc.use' },
   { to: '/settings/members', label: 'People and roles', needs: 'members.manage' },
   { to: '/settings/client-groups', label: 'Client groups', needs: 'data.read' },
