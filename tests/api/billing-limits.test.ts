@@ -103,6 +103,17 @@ describe('plan limits', () => {
     );
     expect(answers.map((r) => r.status).sort()).toEqual([201, 402]);
   });
+
+  it('limiting an existing member to client groups takes a seat too', async () => {
+    const { tenant, admin } = await onPlan('plant');
+    const res = await admin
+      .patch(`/api/members/${tenant.memberships.viewer.id}`)
+      .set(CSRF)
+      .send({ clientGroupIds: [tenant.groups[0].id] });
+    expect(res.status).toBe(402);
+    expect(res.body.error).toMatch(/The Plant plan has no client-limited members/);
+    expect((await admin.patch(`/api/members/${tenant.memberships.viewer.id}`).set(CSRF).send({ role: 'analyst' })).status).toBe(204);
+  });
 });
 
 /** Every unsafe tenant-scoped route of the registry that is not billing, with its ids filled in by made-up ones. */

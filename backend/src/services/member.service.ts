@@ -7,6 +7,7 @@ import { AppError, badRequest, notFound } from '../http/app-error.js';
 import { assertMayGrant, coversClientGroups, type TenantScope } from '../policies/tenant-scope.js';
 import { assertClientGroupsInTenant } from '../repositories/client-group.repository.js';
 import { recordAudit } from './audit.service.js';
+import { assertWithinPlanLimit } from './billing/plan-limits.js';
 
 export async function listMembers(ds: DataSource, scope: TenantScope): Promise<MemberView[]> {
   const rows = await ds
@@ -68,6 +69,7 @@ export async function updateMember(ds: DataSource, scope: TenantScope, membershi
     if (clientGroupIds && !(await assertClientGroupsInTenant(em, scope.organisationId, clientGroupIds))) throw badRequest('Unknown client group');
     const wasFullAdmin = m.role === 'admin' && m.clientGroupIds === null;
     if (wasFullAdmin && (role !== 'admin' || clientGroupIds !== null)) await assertAnotherAdminRemains(em, scope.organisationId, m.id);
+    if (clientGroupIds && !m.clientGroupIds) await assertWithinPlanLimit(em, scope.organisationId, 'seats');
     await em.getRepository(Membership).update({ id: m.id }, { role, clientGroupIds });
     await recordAudit(em, {
       organisationId: scope.organisationId,
