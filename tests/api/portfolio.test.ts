@@ -15,7 +15,8 @@ import { JOB_HANDLERS } from '../../backend/src/jobs/job-handlers.js';
 import { GeneratingUnit } from '../../backend/src/entities/generating-unit.entity.js';
 import type { Plant } from '../../backend/src/entities/plant.entity.js';
 import type { TenantScope } from '../../backend/src/policies/tenant-scope.js';
-import { portfolioOf } from '../../backend/src/services/portfolio/portfolio.service.js';
+import { portfolioOf, portfolioView } from '../../backend/src/services/portfolio/portfolio.service.js';
+import { recomputeUnit } from '../../backend/src/services/derived/recompute-unit.js';
 import { addMember, createTenant, createUser, CSRF, signedInAgent, type TenantFixture } from '../factories/accounts.js';
 import { createCaseRecord } from '../factories/cases.js';
 import { createPlant, createUnit, TEST_CONDENSER, TEST_ECONOMICS, TEST_TURBINE } from '../factories/units.js';
@@ -304,5 +305,41 @@ describe('portfolio API', () => {
     expect(one.statements).toBeGreaterThan(0);
     expect(five.statements).toBe(one.statements);
     expect(five.statements).toBeLessThanOrEqual(3);
+  });
+
+  it('through its cache: one statement when nothing changed, one more than the computation when something did, for 1 unit as for 5', async () => {
+    const org = await createTenant(t.dataSource, 'portfolio-cache-count');
+    const plant = await createPlant(t.dataSource, org.organisation.id, org.groups[0].id);
+    const scope: TenantScope = { organisationId: org.organisation.id, userId: org.users.analyst.id, role: 'analyst', clientGroupIds: null };
+    const statements = async () => {
+      const spy = vi.spyOn(MysqlQueryRunner.prototype, 'query');
+      try {
+        const p = await portfolioView(t.dataSource, scope);
+        return [spy.mock.calls.length, p.units.length];
+      } finally {
+        spy.mockRestore();
+      }
+    };
+    await unitWithAnalysis(plant, storedAnalysis({ asOf: addDays(today(), -1) }));
+    expect(await statements()).toEqual([4, 1]);
+    expect(await statements()).toEqual([1, 1]);
+    for (let i = 0; i < 4; i++) await unitWithAnalysis(plant, storedAnalysis({ asOf: addDays(today(), -1) }));
+    expect(await statements()).toEqual([4, 5]);
+    expect(await statements()).toEqual([1, 5]);
+  });
+
+  it('after a recompute or a case change made outside this app, the next request has the new figures', async () => {
+    const before = unitOf(await portfolio(analyst), imported.id);
+    expect(unitOf(await portfolio(analyst), imported.id)).toEqual(before);
+    await t.dataSource.query('UPDATE performance_sample SET backpressureKpa = backpressureKpa * 1.05 WHERE unitId = ?', [imported.id]);
+    await recomputeUnit(t.dataSource, imported.id);
+    const after = unitOf(await portfolio(analyst), imported.id);
+    expect(after.cleanliness!).toBeLessThan(before.cleanliness! - 0.01);
+    const h = (await analyst.get(`/api/units/${imported.id}/health`).expect(200)).body.headline;
+    expect(after.cleanliness).toBe(h.cleanliness);
+    const created = await createCaseRecord(t.dataSource, imported, tenant.users.analyst.id, 'submitted', 'Clean in the spring');
+    expect(unitOf(await portfolio(analyst), imported.id).openCases.map((c) => c.id)).toContain(created.id);
+    await t.dataSource.query("UPDATE cleaning_case SET status = 'archived' WHERE id = ?", [created.id]);
+    expect(unitOf(await portfolio(analyst), imported.id).openCases.map((c) => c.id)).not.toContain(created.id);
   });
 });

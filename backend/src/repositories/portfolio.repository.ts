@@ -143,3 +143,33 @@ export async function comingOutagesInScope(em: EntityManager, scope: TenantScope
     endDate: dayText(r.endDate),
   }));
 }
+
+/**
+ * What the portfolio of a scope depends on, in one cheap statement (no stored analysis is read): the units in
+ * scope with their names, plants, groups and setup and data versions (raised by a setup save and by the
+ * recompute), and fingerprints of the tenant's cases, outages and the units outages take off line.
+ */
+export async function portfolioVersionInScope(em: EntityManager, scope: TenantScope): Promise<string> {
+  const qb = em
+    .getRepository(GeneratingUnit)
+    .createQueryBuilder('u')
+    .innerJoin(Plant, 'p', 'p.id = u.plantId')
+    .leftJoin(ClientGroup, 'g', 'g.id = p.clientGroupId')
+    .select('COUNT(*)', 'units')
+    .addSelect('COALESCE(SUM(u.dataVersion + u.setupVersion), 0)', 'versions')
+    .addSelect("COALESCE(BIT_XOR(CRC32(CONCAT_WS('|', u.id, u.name, u.setupVersion, u.dataVersion, p.id, p.name, p.timeZone, g.id, g.name))), 0)", 'unitsMark')
+    .addSelect(
+      "(SELECT CONCAT(COUNT(*), ':', COALESCE(BIT_XOR(CRC32(CONCAT_WS('|', c.id, c.unitId, c.status, c.title, c.updatedAt))), 0)) FROM cleaning_case c WHERE c.organisationId = :scopeOrg)",
+      'cases',
+    )
+    .addSelect(
+      "(SELECT CONCAT(COUNT(*), ':', COALESCE(BIT_XOR(CRC32(CONCAT_WS('|', o.id, o.name, o.startDate, o.endDate, o.updatedAt))), 0)) FROM outage o WHERE o.organisationId = :scopeOrg)",
+      'outages',
+    )
+    .addSelect(
+      "(SELECT COALESCE(BIT_XOR(CRC32(CONCAT_WS('|', ou.outageId, ou.unitId))), 0) FROM outage_unit ou JOIN outage o2 ON o2.id = ou.outageId WHERE o2.organisationId = :scopeOrg)",
+      'outageUnits',
+    );
+  const row: Record<string, unknown> | undefined = await restrictPlantsToScope(qb, 'p', scope).getRawOne();
+  return JSON.stringify([row?.units, row?.versions, row?.unitsMark, row?.cases, row?.outages, row?.outageUnits].map((v) => String(v ?? '')));
+}

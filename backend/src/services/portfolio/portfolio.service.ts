@@ -1,8 +1,9 @@
 /**
  * The portfolio: every unit the member may see, with its figures now (stored by the recompute with the unit's
  * analysis), its next recommended cleaning, open cases, next outage, data age and current conditions, grouped
- * by client group with totals per group and for the organisation. Three statements whatever the number of
- * units (portfolio.repository.ts); money is summed per currency, never across currencies.
+ * by client group with totals per group and for the organisation. Whatever the number of units: one statement
+ * when the cached answer still holds, four when it is computed (portfolio.repository.ts); money is summed per
+ * currency, never across currencies.
  */
 import Decimal from 'decimal.js';
 import type { DataSource } from 'typeorm';
@@ -19,6 +20,7 @@ import {
   comingOutagesInScope,
   openCasesInScope,
   portfolioUnitsInScope,
+  portfolioVersionInScope,
   type PortfolioCaseRow,
   type PortfolioOutageRow,
   type PortfolioUnitRow,
@@ -124,6 +126,39 @@ export function totalsOf(units: readonly PortfolioUnit[]): PortfolioTotals {
 
 const NO_GROUP = 'Not in a client group';
 
+/** Portfolios recently asked for, per scope and version (a few tens of kB each). */
+const cache = new Map<string, Promise<PortfolioResponse>>();
+const CACHE_ENTRIES = 64;
+/** Plant-local days change only at quarter hours (every zone's offset is a multiple of 15 minutes). */
+const QUARTER_HOUR_MS = 900_000;
+
+/**
+ * The portfolio, from this process's cache while nothing it depends on has changed: one statement reads the
+ * scope's version from the database (portfolio.repository.ts) on every request, so a recompute, setup save,
+ * case or outage change made by any process is seen by the next request; the quarter hour is in the key so the
+ * plants' todays (data age, stale flags, conditions) are never older than their clocks.
+ */
+export async function portfolioView(ds: DataSource, scope: TenantScope, now = new Date()): Promise<PortfolioResponse> {
+  const version = await portfolioVersionInScope(ds.manager, scope);
+  const key = JSON.stringify([scope.organisationId, scope.role, scope.clientGroupIds, version, Math.floor(now.getTime() / QUARTER_HOUR_MS)]);
+  const hit = cache.get(key);
+  if (hit) {
+    cache.delete(key);
+    cache.set(key, hit);
+    return hit;
+  }
+  const pending = portfolioOf(ds, scope, now);
+  cache.set(key, pending);
+  while (cache.size > CACHE_ENTRIES) cache.delete(cache.keys().next().value!);
+  try {
+    return await pending;
+  } catch (err) {
+    if (cache.get(key) === pending) cache.delete(key);
+    throw err;
+  }
+}
+
+/** The portfolio computed afresh (three statements whatever the number of units). */
 export async function portfolioOf(ds: DataSource, scope: TenantScope, now = new Date()): Promise<PortfolioResponse> {
   const rows = await portfolioUnitsInScope(ds.manager, scope);
   const todayByZone = new Map<string, string>();
