@@ -135,7 +135,7 @@ export function outageRoutes(ds: DataSource): RouteSpec[] {
       tenantScoped: true,
       response: optimiseResponse,
       description:
-        'Propose the items with the largest total benefit within the budget and, lane by lane, the window, honouring forced items and needs; one sentence per item says why',
+        'Propose the items with the most value (benefit less cost) within the budget and, lane by lane, the window, honouring forced items and needs; one sentence per item says why',
       handler: async (req, res) => res.json(await optimiseOutage(ds, scopeOf(req.actor), idParam(req))),
     },
     {

@@ -1,8 +1,9 @@
 /**
- * The outage scope with the largest total benefit such that the total cost stays within the budget and every crew
+ * The outage scope with the most value — total benefit less total cost — such that the total cost stays within the budget and every crew
  * lane's work (items in one lane run one after another, lanes run in parallel) fits the outage window; items forced
  * in are always in, items left out by hand never; an item is chosen only with everything it needs. Exact (branch and
- * bound, see scope-search.ts); equal benefit goes to the lower cost, then fewer days, then id order. Every item gets
+ * bound, see scope-search.ts, which weighs each item's value as its "benefit"); equal value goes to the lower cost, then
+ * fewer days, then id order. Every item gets
  * a sentence saying why it is in or out.
  *
  * When the hand-made choices alone break the budget, a window or a need, the proposal is marked infeasible, says how
@@ -27,7 +28,9 @@ const NODE_LIMIT = 1_000_000;
 export function optimiseScope(problem: ScopeProblem): ScopeProposal {
   const bad = inputProblems(problem);
   if (bad.length) return unusable(problem, bad);
-  const ctx = scopeContext(problem);
+  // The search weighs each item's value, its benefit less its cost (the most value within the budget, as capital is
+  // rationed between projects): work that brings less than it costs stays out unless forced or needed.
+  const ctx = scopeContext({ ...problem, items: problem.items.map((item) => ({ ...item, benefit: item.benefit - item.cost })) });
   const forced = forcedScope(ctx);
   const chosen = forced.problems.length ? { chosen: forced.inScope, proven: true } : search(ctx, forced.inScope);
   const totals = totalsOf(ctx, chosen.chosen);
@@ -77,7 +80,8 @@ function totalsOf(ctx: ScopeContext, chosen: boolean[]) {
   const laneDays = new Float64Array(ctx.lanes.length);
   ctx.items.forEach((item, i) => {
     if (!chosen[i]) return;
-    benefit += item.benefit;
+    // ctx holds values (benefit less cost): the benefit is the value plus the cost again
+    benefit += item.benefit + item.cost;
     cost += item.cost;
     laneDays[ctx.laneOf[i]!]! += item.durationDays;
   });

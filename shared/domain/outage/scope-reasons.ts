@@ -1,7 +1,8 @@
 /**
  * One sentence per item saying why it is in the proposed scope or left out, taken from the constraint that binds:
  * for an item left out, what adding it to the chosen scope would break (the budget, its lane's window, a need), or
- * that it brings no benefit; for an item in, whether it was forced, is needed by a chosen item, or earns its place.
+ * that it brings no more than it costs; for an item in, whether it was forced, is needed by a chosen item, or earns
+ * its place. The context's `benefit` is each item's value (benefit less cost), what the search weighs.
  */
 import { cannotBeChosenBecause, listWords } from './scope-blockers.js';
 import { titleOf, type ScopeContext } from './scope-context.js';
@@ -67,8 +68,9 @@ function reasonIn(ctx: ScopeContext, forced: ForcedScope, scope: ChosenScope, we
   const amongTheBest = weighed.amongTheBest(i);
   if (!amongTheBest && chosenDependents.length) return `In: needed by ${quoted(titleOf(ctx, chosenDependents[0]!))}, which is chosen.`;
   if (item.cost === 0) return `In: it costs nothing, brings ${money(item.benefit, currency)} and fits lane ${lane}.`;
-  if (amongTheBest) return `In: its benefit per ${currency} is among the best and it fits the budget and lane ${lane}.`;
-  return `In: its benefit per ${currency} is not the best, but with it the budget and lane ${lane} give the most benefit in total.`;
+  if (amongTheBest)
+    return `In: it adds ${money(item.benefit, currency)} of value (benefit less cost), no item left out adds more per ${currency}, and it fits the budget and lane ${lane}.`;
+  return `In: it adds ${money(item.benefit, currency)} of value (benefit less cost); others add more per ${currency}, but with it the budget and lane ${lane} give the most value in total.`;
 }
 
 function reasonOut(ctx: ScopeContext, scope: ChosenScope, weighed: Weighed, i: number): string {
@@ -78,7 +80,12 @@ function reasonOut(ctx: ScopeContext, scope: ChosenScope, weighed: Weighed, i: n
   if (ctx.forcedBothWays[i]) return 'Left out: you both forced it in and left it out; it stays out until that is settled.';
   if (ctx.outByYou[i]) return 'Left out by you.';
   if (ctx.graph.blocker[i]) return `Left out: ${cannotBeChosenBecause(ctx, i)}.`;
-  if (item.benefit <= 0) return 'Left out: it brings no benefit.';
+  if (item.benefit <= 0) {
+    const benefit = item.benefit + item.cost;
+    return benefit <= 0
+      ? 'Left out: it brings no benefit.'
+      : `Left out: it brings ${money(benefit, currency)} for ${money(item.cost, currency)}, no more than it costs.`;
+  }
   const tooDear = item.cost > budget + slack.cost;
   const tooLong = item.durationDays > windowDays + slack.days;
   if (tooDear && tooLong)
@@ -102,13 +109,13 @@ function reasonOut(ctx: ScopeContext, scope: ChosenScope, weighed: Weighed, i: n
     const spent = Math.round(left) === 0;
     if (weighed.lowestPassedOver(i)) {
       return spent
-        ? `Left out: the budget is spent and its benefit per ${currency} is the lowest of those left.`
-        : `Left out: what is left of the budget (${money(left, currency)}) does not cover its ${money(item.cost, currency)}, and its benefit per ${currency} is the lowest of those left.`;
+        ? `Left out: the budget is spent and its value per ${currency} is the lowest of those left.`
+        : `Left out: what is left of the budget (${money(left, currency)}) does not cover its ${money(item.cost, currency)}, and its value per ${currency} is the lowest of those left.`;
     }
     if (!scope.proven) return unweighed;
     return spent
-      ? `Left out: the budget is spent, and making room for its ${money(item.cost, currency)} would give up at least as much benefit as it brings.`
-      : `Left out: only ${money(left, currency)} of the budget is left, and making room for its ${money(item.cost, currency)} would give up at least as much benefit as it brings.`;
+      ? `Left out: the budget is spent, and making room for its ${money(item.cost, currency)} would give up at least as much value as it adds.`
+      : `Left out: only ${money(left, currency)} of the budget is left, and making room for its ${money(item.cost, currency)} would give up at least as much value as it adds.`;
   }
 
   // It fits on its own: what it needs and the chosen scope lacks must be what keeps it out.
@@ -128,10 +135,10 @@ function reasonOut(ctx: ScopeContext, scope: ChosenScope, weighed: Weighed, i: n
     const l = laneDays.findIndex((d) => d > windowDays + slack.days);
     if (l >= 0)
       return `Left out: ${needWords}, and together they would need ${days(laneDays[l]!)} in lane ${quoted(ctx.lanes[l]!)}, against ${windowOf(windowDays)}.`;
-    if (benefit <= slack.benefit) return `Left out: ${needWords}, and together they would bring no benefit.`;
+    if (benefit <= slack.benefit) return `Left out: ${needWords}, and together they would bring no more than they cost.`;
   }
   if (!scope.proven) return unweighed;
-  return `Left out: it would add no benefit that a cheaper choice does not already bring.`;
+  return `Left out: it would add no value that a cheaper choice does not already bring.`;
 }
 
 function reasonWhenForcedBreak(ctx: ScopeContext, forced: ForcedScope, scope: ChosenScope, i: number): string {

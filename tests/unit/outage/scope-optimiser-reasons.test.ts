@@ -22,15 +22,16 @@ const problem = (items: ScopeItem[], budget: number, windowDays: number, more: P
 });
 
 describe('outage-scope sentences, worked by hand', () => {
-  // Budget 110 USD, window 8 days. Worked by hand: {eddy, retube, waterbox} brings 265 USD for 100 USD (Tube crew
-  // 7 days, Waterbox crew 3 days); air leak would take the cost to 130 USD; plugging fits the budget (105 USD) but
-  // would take the Tube crew to 10 days. No other feasible set reaches 265 USD (e.g. eddy+retube+air leak: 235 USD).
+  // Budget 110 USD, window 8 days; the scope is chosen for its value, benefit less cost. Worked by hand: {eddy, retube,
+  // waterbox} brings 265 USD for 100 USD, 165 USD of value (Tube crew 7 days, Waterbox crew 3 days); air leak would take
+  // the cost to 130 USD; plugging fits the budget (105 USD) but would take the Tube crew to 10 days. No other feasible
+  // set reaches 165 USD of value (e.g. eddy+retube+air leak: 160 USD).
   const outage = problem(
     [
       item('eddy', 'Eddy-current inspection', 10, 2, 'Tube crew', 5),
       item('retube', 'Partial retubing', 50, 5, 'Tube crew', 200, ['eddy']),
       item('waterbox', 'Waterbox repair', 40, 3, 'Waterbox crew', 60),
-      item('air', 'Air in-leakage repair', 30, 2, 'Waterbox crew', 30),
+      item('air', 'Air in-leakage repair', 30, 2, 'Waterbox crew', 45),
       item('plug', 'Tube plugging', 5, 3, 'Tube crew', 20),
       item('paint', 'Waterbox coating touch-up', 5, 1, 'Waterbox crew', 0),
       item('clean', 'High-pressure water cleaning', 20, 2, 'Tube crew', 90),
@@ -54,9 +55,10 @@ describe('outage-scope sentences, worked by hand', () => {
   it('says for each item why it is in or out', () => {
     expect(proposal.reasons).toEqual({
       eddy: "In: needed by 'Partial retubing', which is chosen.",
-      retube: "In: its benefit per USD is among the best and it fits the budget and lane 'Tube crew'.",
-      waterbox: "In: its benefit per USD is not the best, but with it the budget and lane 'Waterbox crew' give the most benefit in total.",
-      air: 'Left out: what is left of the budget (10 USD) does not cover its 30 USD, and its benefit per USD is the lowest of those left.',
+      retube: "In: it adds 150 USD of value (benefit less cost), no item left out adds more per USD, and it fits the budget and lane 'Tube crew'.",
+      waterbox:
+        "In: it adds 20 USD of value (benefit less cost); others add more per USD, but with it the budget and lane 'Waterbox crew' give the most value in total.",
+      air: 'Left out: what is left of the budget (10 USD) does not cover its 30 USD, and its value per USD is the lowest of those left.',
       plug: "Left out: lane 'Tube crew' would need 10 days in an 8-day window.",
       paint: 'Left out: it brings no benefit.',
       clean: 'Left out by you.',
@@ -65,12 +67,13 @@ describe('outage-scope sentences, worked by hand', () => {
   });
 
   it('leaves out an item whose need is left out, naming what the pair would break', () => {
-    // Worked by hand: waterbox alone brings 70 USD; eddy + retube bring 60 USD; all three cost 170 USD > 100 USD.
+    // Worked by hand (value = benefit less cost): waterbox alone adds 30 USD; eddy alone 20 USD; eddy + retube would add
+    // 40 USD but cost 110 USD > 100 USD; all three cost 170 USD.
     const p = problem(
       [
-        item('eddy', 'Eddy-current inspection', 80, 2, 'Inspection team', 10),
+        item('eddy', 'Eddy-current inspection', 80, 2, 'Inspection team', 100),
         item('retube', 'Partial retubing', 30, 5, 'Tube crew', 50, ['eddy']),
-        item('waterbox', 'Waterbox repair', 60, 3, 'Waterbox crew', 70),
+        item('waterbox', 'Waterbox repair', 60, 3, 'Waterbox crew', 90),
       ],
       100,
       8,
@@ -79,25 +82,34 @@ describe('outage-scope sentences, worked by hand', () => {
     expect(out.selectedItemIds).toEqual(['waterbox']);
     expect(out.reasons.retube).toBe("Left out: it needs 'Eddy-current inspection', which is left out, and together they would go 70 USD over the budget.");
     expect(out.reasons.eddy).toBe(
-      'Left out: what is left of the budget (40 USD) does not cover its 80 USD, and its benefit per USD is the lowest of those left.',
+      'Left out: what is left of the budget (40 USD) does not cover its 80 USD, and its value per USD is the lowest of those left.',
     );
   });
 
-  it('when the budget is spent exactly, the lowest benefit per money left out says so', () => {
-    // Worked by hand: a + b bring 180 USD for exactly 100 USD; a + d bring 165 USD; c is worst per USD.
+  it('when the budget is spent exactly, the lowest value per money left out says so', () => {
+    // Worked by hand: a + b add 80 USD of value for exactly 100 USD; a + d add 75 USD; c is worst per USD (0.2).
     const items = [
       item('a', 'Waterbox repair', 60, 1, 'Crew', 120),
       item('b', 'Tube plugging', 40, 1, 'Crew', 60),
-      item('c', 'Air in-leakage repair', 50, 1, 'Crew', 20),
+      item('c', 'Air in-leakage repair', 50, 1, 'Crew', 60),
     ];
     const out = optimiseScope(problem([...items, item('d', 'Eddy-current inspection', 30, 1, 'Crew', 45)], 100, 8));
     expect(out.selectedItemIds).toEqual(['a', 'b']);
-    expect(out.reasons.c).toBe('Left out: the budget is spent and its benefit per USD is the lowest of those left.');
-    expect(out.reasons.d).toBe('Left out: the budget is spent, and making room for its 30 USD would give up at least as much benefit as it brings.');
+    expect(out.reasons.c).toBe('Left out: the budget is spent and its value per USD is the lowest of those left.');
+    expect(out.reasons.d).toBe('Left out: the budget is spent, and making room for its 30 USD would give up at least as much value as it adds.');
     // Alone among those left out, it is not "the lowest of those left".
     expect(optimiseScope(problem(items, 100, 8)).reasons.c).toBe(
-      'Left out: the budget is spent, and making room for its 50 USD would give up at least as much benefit as it brings.',
+      'Left out: the budget is spent, and making room for its 50 USD would give up at least as much value as it adds.',
     );
+  });
+
+  it('leaves out work that brings no more than it costs, saying so with its figures', () => {
+    // Capital rationing: a project is worth doing only when it brings more than it costs (common practice).
+    const out = optimiseScope(
+      problem([item('a', 'Expansion joint', 42_000, 6, 'Crew', 34_514.4), item('b', 'Tube plugging', 18_000, 2, 'Crew', 35_000)], 160_000, 21),
+    );
+    expect(out.selectedItemIds).toEqual(['b']);
+    expect(out.reasons.a).toBe('Left out: it brings 34,514 USD for 42,000 USD, no more than it costs.');
   });
 
   it('names items that cost more than the whole budget or take longer than the whole window', () => {

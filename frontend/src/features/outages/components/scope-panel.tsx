@@ -47,7 +47,7 @@ export function ScopePanel({ organisationId, outage }: { organisationId: string;
           <p className="text-xs text-ink-soft">
             {snapshot
               ? `As approved${outage.approvedBy ? ` by ${outage.approvedBy.name}` : ''}, ${formatDateTime(outage.approvedAt)}; the items below are as they were then.`
-              : `Proposed ${formatDateTime(outage.proposal?.computedAt)}: the largest total benefit with the cost within the budget and each lane’s work inside the window, honouring what you forced in or out and what each item needs.`}
+              : `Proposed ${formatDateTime(outage.proposal?.computedAt)}: the most value (benefit less cost) with the cost within the budget and each lane’s work inside the window, honouring what you forced in or out and what each item needs.`}
           </p>
           {!snapshot && outage.proposalStale && (
             <Notice tone="warn">The work, the window or the budget changed since this proposal: propose again before saving or approving it.</Notice>
