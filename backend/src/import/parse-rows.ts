@@ -84,7 +84,7 @@ const PLAUSIBLE_MEAN: [field: number, label: string, min: number, max: number, h
 
 const MEAN_FIELDS = PLAUSIBLE_MEAN.map(([field]) => field);
 
-function unitWarnings(sums: Float64Array, counts: Float64Array): string[] {
+export function unitWarnings(sums: Float64Array, counts: Float64Array): string[] {
   const out: string[] = [];
   for (const [field, label, min, max, hint] of PLAUSIBLE_MEAN) {
     if (counts[field] === 0) continue;

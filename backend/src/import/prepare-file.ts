@@ -3,9 +3,11 @@
  * tags make on the chosen time grid (import/tall-alignment.ts), written only when every cell of the tall file is
  * right. The check of either is the same (`checkImportFile`), so the all-or-nothing rule holds for every shape.
  */
-import { importMappingSchema } from '@shared/schemas/import-mapping.js';
+import { importMappingSchema, type ImportMapping } from '@shared/schemas/import-mapping.js';
 import { ImportFileError } from './import-errors.js';
-import { checkImportFile, type ImportCheck } from './parse-rows.js';
+import { checkImportFile, unitWarnings, type ImportCheck } from './parse-rows.js';
+import { cwFlowToM3s, pressureToKpa, temperatureToC } from './quantity-conversion.js';
+import { F, RECORD_FIELDS, compileMapping } from './row-conversion.js';
 import { alignTallSamples, tallTableSource, type AlignmentSummary, type SampleSource } from './tall-alignment.js';
 
 export interface PreparedFile {
@@ -83,11 +85,40 @@ export async function checkAnyShape(storedPath: string, options: PrepareOptions)
     return { check, prepared: null };
   }
   const wide = tall.wide;
-  const check = await checkImportFile(wide.path, { mapping: wide.mapping, statusWords: wide.statusWords, maxErrors: options.maxErrors });
-  check.assumptions = [...describeAlignment(tall.summary!), ...check.assumptions];
-  if (!check.ok) {
-    await wide.dispose();
-    return { check, prepared: null };
-  }
-  return { check, prepared: { path: wide.path, mapping: wide.mapping, statusWords: wide.statusWords, alignment: tall.summary, dispose: wide.dispose } };
+  const a = tall.summary!;
+  // The aligned file is ours and holds only grid times, numbers and status words: its check is known without reading it
+  // again (the time order, the span, how values are read and the unit hints from the means written).
+  const headers = [mapping.timestamp.column, ...Object.keys(a.samplesByTag)];
+  const check: ImportCheck = {
+    ...emptyCheck(),
+    ok: true,
+    kind: 'csv',
+    headers,
+    dataRows: a.aligned,
+    firstTimestampUtc: a.firstUtc ?? null,
+    lastTimestampUtc: a.lastUtc ?? null,
+    order: 'ascending',
+    assumptions: [...describeAlignment(a), ...compileMapping(wide.mapping, headers).assumptions],
+    warnings: unitWarningsOfMeans(wide.mapping, a.written ?? {}),
+  };
+  const { written: _w, firstUtc: _f, lastUtc: _l, ...alignment } = a;
+  return { check, prepared: { path: wide.path, mapping: wide.mapping, statusWords: wide.statusWords, alignment, dispose: wide.dispose } };
+}
+
+/** The unit hints of the wide check, from the mean of each tag's values written (conversions are affine, so the mean converts). */
+function unitWarningsOfMeans(mapping: ImportMapping, written: Record<string, { sum: number; count: number }>): string[] {
+  const sums = new Float64Array(RECORD_FIELDS);
+  const counts = new Float64Array(RECORD_FIELDS);
+  const c = mapping.columns;
+  const put = (field: number, ref: { column: string } | undefined, convert: (mean: number) => number) => {
+    const w = ref ? written[ref.column] : undefined;
+    if (!w || w.count === 0) return;
+    sums[field] = convert(w.sum / w.count);
+    counts[field] = 1;
+  };
+  put(F.cwInletC, c.cwInletTemperature, (v) => temperatureToC(v, c.cwInletTemperature!.unit));
+  put(F.cwOutletC, c.cwOutletTemperature, (v) => temperatureToC(v, c.cwOutletTemperature!.unit));
+  put(F.backpressureKpa, c.backpressure, (v) => pressureToKpa(v, c.backpressure!.unit));
+  put(F.cwFlowM3s, c.cwFlow, (v) => cwFlowToM3s(v, c.cwFlow!.unit, 20));
+  return unitWarnings(sums, counts);
 }

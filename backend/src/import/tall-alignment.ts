@@ -172,6 +172,10 @@ export interface AlignmentSummary {
   unmappedTags: string[];
   /** Rows whose value cell was empty (no sample). */
   emptyValues: number;
+  /** Sum and count of the values written per tag (markers left out), for the unit plausibility hints. */
+  written?: Record<string, { sum: number; count: number }>;
+  firstUtc?: number;
+  lastUtc?: number;
 }
 
 export interface TallCheck {
@@ -399,6 +403,9 @@ export async function alignTallSamples(
     const cell: Aligned = { value: 0, marker: 0, found: false };
     const markerCells = markers.map((m) => (/[",\r\n]/.test(m) ? `"${m.replace(/"/g, '""')}"` : m));
     const cells: string[] = new Array(tags.length);
+    const sums = new Float64Array(tags.length);
+    const counts = new Float64Array(tags.length);
+    const values = new Float64Array(tags.length);
     for (let g = first; g <= last; g += step) {
       summary.gridTimes++;
       let missing: string | null = null;
@@ -407,13 +414,25 @@ export async function alignTallSamples(
         if (!cell.found) {
           if (isRequired[k] && missing === null) missing = tags[k]!;
           cells[k] = '';
-        } else cells[k] = cell.marker > 0 ? markerCells[cell.marker - 1]! : String(cell.value);
+          values[k] = Number.NaN;
+        } else {
+          cells[k] = cell.marker > 0 ? markerCells[cell.marker - 1]! : String(cell.value);
+          values[k] = cell.marker > 0 ? Number.NaN : cell.value;
+        }
       }
       if (missing !== null) {
         summary.leftOutByTag[missing] = (summary.leftOutByTag[missing] ?? 0) + 1;
         continue;
       }
       summary.aligned++;
+      summary.firstUtc ??= g;
+      summary.lastUtc = g;
+      for (let k = 0; k < tags.length; k++) {
+        if (!Number.isNaN(values[k]!)) {
+          sums[k]! += values[k]!;
+          counts[k]!++;
+        }
+      }
       buffer += `${new Date(g).toISOString()},${cells.join(',')}\n`;
       if (buffer.length > 1 << 20) {
         if (!out.write(buffer)) await once(out, 'drain');
@@ -422,6 +441,7 @@ export async function alignTallSamples(
     }
     out.end(buffer);
     await once(out, 'finish');
+    summary.written = Object.fromEntries(tags.map((t, k) => [t, { sum: sums[k]!, count: counts[k]! }]));
     if (summary.aligned === 0) {
       await dispose();
       throw new ImportFileError(
