@@ -472,7 +472,11 @@ app.use(createExpressApp());
 const server = app.listen(port, '127.0.0.1', () => {
   process.stdout.write(`stripe-fake listening on ${port}\n`);
 });
-const stop = () => server.close(() => process.exit(0));
+const stop = () => {
+  server.close(() => process.exit(0));
+  // The SDK keeps its connections alive: close them, or closing would wait for the app to go first.
+  server.closeAllConnections();
+};
 process.on('SIGTERM', stop);
 process.on('SIGINT', stop);
 // Exit with the parent: never outlive the process that started us.

@@ -42,7 +42,7 @@ describe('account flows', () => {
     await google?.stop();
   });
 
-  it('sign-up creates a person and an organisation on a 30-day trial with them as administrator; they can sign in at once', async () => {
+  it('sign-up creates a person and an organisation on a 14-day trial with them as administrator; they can sign in at once', async () => {
     const email = uniqueEmail('founder');
     const res = await request(t.app)
       .post('/api/sign-up')
@@ -57,8 +57,8 @@ describe('account flows', () => {
     const [org] = await t.dataSource.query('SELECT subscriptionStatus, trialEndsAt FROM organisation WHERE id = ?', [session.activeOrganisationId]);
     expect(org.subscriptionStatus).toBe('trialing');
     const days = (new Date(org.trialEndsAt).getTime() - Date.now()) / 86_400_000;
-    expect(days).toBeGreaterThan(29.9);
-    expect(days).toBeLessThan(30.1);
+    expect(days).toBeGreaterThan(13.9);
+    expect(days).toBeLessThan(14.1);
   });
 
   it('sign-up answers the same whether or not the address has an account; an existing address gets a notice, not a second account', async () => {

@@ -19,7 +19,7 @@ export default function StartOrganisationForm({ onCreated, onCancel }: { onCreat
   const message = formMessage(create.error);
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-2 px-2 pb-1">
-      <TextField label="New organisation’s name" name="name" autoFocus error={fieldErrors.name} hint="Starts a 30-day trial with you as administrator." />
+      <TextField label="New organisation’s name" name="name" autoFocus error={fieldErrors.name} hint="Starts a 14-day trial with you as administrator." />
       {message && (
         <p role="alert" className="text-xs text-fault">
           {message}
