@@ -222,7 +222,7 @@ describe('outages', () => {
     expect(item.benefitEntered).toEqual({ cleanlinessRecovered: 0.1, horizonDays: 365 });
     expect(item.pricing.method).toBe('cleanliness');
     expect(item.pricing.text).toContain('from 70.0 % to 80.0 %');
-    expect(item.pricing.text).toContain('CW inlet 20.0 °C, load 85 %');
+    expect(item.pricing.text).toContain('CW inlet 20.0 °C (68.0 °F), load 85 %');
     expect(item.pricing.text).toContain(`${formatCurrency(perDay, 'USD', 2)} a day × 365 days`);
 
     // a unit without data cannot price a cleanliness: said plainly, nothing written

@@ -42,11 +42,35 @@ describe('pricing a recovered cleanliness', () => {
     expect(at(0.55).benefit.toNumber()).toBeGreaterThan(at(0.85).benefit.toNumber());
   });
 
-  it('never prices past the cleanest plausible condenser (1.2): a recovery from there is worth nothing', () => {
-    const p = price([{ day: day(0), cwInletC: 20, loadMw: 289, cleanliness: 1.2 }]);
-    expect(p.cleanlinessAfter).toBe(1.2);
+  it('never prices past the unit’s reference cleanliness: a recovery from there is worth nothing', () => {
+    // The test unit's reference is 0.90 (factories/units.ts); a unit reading above it gains nothing from more points.
+    expect(model.referenceCleanliness).toBe(0.9);
+    const p = price([{ day: day(0), cwInletC: 20, loadMw: 289, cleanliness: 0.95 }]);
+    expect(p.cleanlinessAfter).toBe(0.95);
     expect(p.benefit.toNumber()).toBe(0);
-    expect(p.text).toContain('capped at 1.20');
+    expect(p.text).toContain('capped at the unit’s reference of 90 %');
+  });
+
+  it('prices a recovery that would pass the reference as reaching the reference, and says so', () => {
+    // 0.85 + 0.10 would be 0.95: priced at 0.90, the same as a recovery of exactly 0.05.
+    const days = [{ day: day(0), cwInletC: 20, loadMw: 289, cleanliness: 0.85 }];
+    const capped = price(days, 0.1);
+    expect(capped.cleanlinessAfter).toBe(0.9);
+    expect(capped.benefit.toNumber()).toBe(price(days, 0.05).benefit.toNumber());
+    expect(capped.text).toContain('from 85.0 % to 90.0 % (capped at the unit’s reference of 90 %)');
+    expect(price(days, 0.05).text).not.toContain('capped');
+  });
+
+  it('gives the temperature and backpressure in US units beside SI, and one day in the singular', () => {
+    // NIST SP 811: 1 inHg (0 °C) = 3.386389 kPa; °F = °C × 9/5 + 32, so 20 °C = 68.0 °F.
+    const p = price([{ day: day(0), cwInletC: 20, loadMw: 289, cleanliness: 0.7 }], 0.1, 1);
+    const inHg = (kpa: number) => (kpa / 3.386389).toFixed(2);
+    expect(p.text).toContain('CW inlet 20.0 °C (68.0 °F)');
+    expect(p.text).toContain(
+      `${p.backpressureBeforeKpa.toFixed(2)} → ${p.backpressureAfterKpa.toFixed(2)} kPa(a) (${inHg(p.backpressureBeforeKpa)} → ${inHg(p.backpressureAfterKpa)} inHgA)`,
+    );
+    expect(p.text).toMatch(/ a day × 1 day = /);
+    expect(price([{ day: day(0), cwInletC: 20, loadMw: 289, cleanliness: 0.7 }], 0.1, 2).text).toMatch(/ a day × 2 days = /);
   });
 
   it('refuses to price without a day of data', () => {

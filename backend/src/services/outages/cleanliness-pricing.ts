@@ -13,8 +13,8 @@ import { backpressureAtCleanlinessKpa } from '@shared/domain/condenser/index.js'
 import { blendedCostPerHour, type UnitModel } from '@shared/domain/monitoring/index.js';
 import { median } from '@shared/domain/statistics.js';
 import { penaltyBetween } from '@shared/domain/turbine/index.js';
-import { CLEANLINESS_RANGE } from '@shared/schemas/bounded-number.js';
 import { formatCurrency, formatDay, formatNumber } from '@shared/text/display-format.js';
+import { cToF, kpaToInHg } from '@shared/units.js';
 
 /** Days of data the conditions are taken from, and the most recent of them the cleanliness is taken from. */
 export const CONDITION_DAYS = 90;
@@ -58,8 +58,11 @@ export function priceCleanlinessRecovered(input: CleanlinessPricingInput): Clean
   const cwInletC = median(days.map((d) => d.cwInletC))!;
   const loadFraction = median(days.map((d) => d.loadMw))! / input.model.ratingMw;
   const before = median(days.slice(-CLEANLINESS_DAYS).map((d) => d.cleanliness))!;
-  const after = Math.min(before + input.cleanlinessRecovered, CLEANLINESS_RANGE.max);
   const model = input.model;
+  // Clean tubes are CF 1 by the HEI definition (CF = U/U_clean) and the unit's reference is what its preferred
+  // cleaning reaches (ENGINEERING.md §4): a recovery is priced up to the reference, never beyond it, and never
+  // below where the unit is now.
+  const after = Math.max(before, Math.min(before + input.cleanlinessRecovered, model.referenceCleanliness));
   const at = (cleanliness: number) =>
     backpressureAtCleanlinessKpa({
       geometry: model.geometry,
@@ -76,14 +79,19 @@ export function priceCleanlinessRecovered(input: CleanlinessPricingInput): Clean
   const perDay = Math.max(0, 24 * blendedCostPerHour(model, loadFraction, penalty));
   const costPerDay = new Decimal(perDay).toDecimalPlaces(2);
   const benefit = costPerDay.times(input.horizonDays).toDecimalPlaces(2);
-  const capped = after < before + input.cleanlinessRecovered ? ` (capped at ${formatNumber(CLEANLINESS_RANGE.max, 2)})` : '';
+  const capped =
+    after < before + input.cleanlinessRecovered
+      ? ` (capped at the unit’s reference of ${formatNumber(model.referenceCleanliness * 100, Number.isInteger(Math.round(model.referenceCleanliness * 1000) / 10) ? 0 : 1)} %)`
+      : '';
+  const days1 = input.horizonDays === 1 ? 'day' : 'days';
   const first = days[0]!.day;
   const last = days.at(-1)!.day;
   const text =
     `${formatNumber(input.cleanlinessRecovered * 100, 1)} points of cleanliness recovered on ${input.unitName}, from ${formatNumber(before * 100, 1)} % ` +
     `to ${formatNumber(after * 100, 1)} %${capped}, at its typical conditions of ${days.length} days with data from ${formatDay(first)} to ${formatDay(last)} ` +
-    `(CW inlet ${formatNumber(cwInletC, 1)} °C, load ${formatNumber(loadFraction * 100, 0)} %): backpressure ${formatNumber(pBefore, 2)} → ` +
-    `${formatNumber(pAfter, 2)} kPa(a), worth ${formatCurrency(costPerDay.toNumber(), input.currency, 2)} a day × ${input.horizonDays} days = ` +
+    `(CW inlet ${formatNumber(cwInletC, 1)} °C (${formatNumber(cToF(cwInletC), 1)} °F), load ${formatNumber(loadFraction * 100, 0)} %): ` +
+    `backpressure ${formatNumber(pBefore, 2)} → ${formatNumber(pAfter, 2)} kPa(a) (${formatNumber(kpaToInHg(pBefore), 2)} → ` +
+    `${formatNumber(kpaToInHg(pAfter), 2)} inHgA), worth ${formatCurrency(costPerDay.toNumber(), input.currency, 2)} a day × ${input.horizonDays} ${days1} = ` +
     `${formatCurrency(benefit.toNumber(), input.currency, 0)} (conditions held over the horizon, no fouling back, undiscounted).`;
   return {
     benefit,
