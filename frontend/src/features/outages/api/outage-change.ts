@@ -19,8 +19,10 @@ export function useOutageChange<Body, Answer = unknown>(organisationId: string, 
       return api<Answer>(r.path, { method: r.method, body: r.body });
     },
     onSuccess: async (answer) => {
+      const invalidated = queryClient.invalidateQueries({ queryKey: outagesKey(organisationId) });
+      // an answer that is the whole outage is already fresh: the form that sent it resets at once, the lists follow
       if (isOutageView(answer)) queryClient.setQueryData(outageKey(organisationId, answer.id), answer);
-      await queryClient.invalidateQueries({ queryKey: outagesKey(organisationId) });
+      else await invalidated;
     },
   });
 }

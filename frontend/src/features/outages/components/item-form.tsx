@@ -204,6 +204,7 @@ export function ItemForm({ organisationId, outage, approvedCases, item, onDone }
           ))}
         </SelectField>
         <SelectField
+          required
           label="Kind of work"
           value={v.kind}
           disabled={!!item}

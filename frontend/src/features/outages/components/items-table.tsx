@@ -77,11 +77,8 @@ export function ItemsTable({ organisationId, outage, approvedCases, chosen }: Pr
             <th className={th}>Needs</th>
             <th className={th}>Optimiser</th>
             {chosen && <th className={th}>Scope</th>}
-            {editable && (
-              <th className={th}>
-                <span className="sr-only">Actions</span>
-              </th>
-            )}
+            {/* named by aria-label: a visually hidden span is positioned absolutely and, this far right, would widen the page past the table's scroll box */}
+            {editable && <th className={th} aria-label="Change or remove" />}
           </>
         }
       >
@@ -95,7 +92,7 @@ export function ItemsTable({ organisationId, outage, approvedCases, chosen }: Pr
           ) : (
             <Fragment key={item.id}>
               <tr className={tr} data-testid="outage-item-row">
-                <td className={td}>
+                <td className={`${td} min-w-44`}>
                   <span className="font-medium">{item.title}</span>
                   <span className="block text-2xs text-ink-faint">
                     {OUTAGE_ITEM_KIND_WORDS[item.kind]} · {item.plantName ? `${item.plantName} — ` : ''}
