@@ -86,6 +86,7 @@ function grouped(units: NotificationUnit[]) {
 function ConditionRow({
   id,
   label,
+  name = label,
   row,
   error,
   limits,
@@ -93,6 +94,8 @@ function ConditionRow({
 }: {
   id: string;
   label: string;
+  /** the row's accessible name: the unit with its plant (unit names repeat across plants) */
+  name?: string;
   row: RowDraft;
   error?: string;
   limits: { min: number; max: number };
@@ -102,8 +105,12 @@ function ConditionRow({
     onChange({ ...row, kinds: UNIT_CONDITION_KINDS.filter((k) => (k === kind ? on : row.kinds.includes(k))) });
   const daysOn = row.kinds.includes('data-stopped');
   return (
-    <fieldset className="flex flex-col gap-2 border-t border-rule py-3 sm:flex-row sm:flex-wrap sm:items-center sm:gap-x-5" aria-label={label}>
-      <legend className="sr-only">{label}</legend>
+    <fieldset
+      className="flex flex-col gap-2 border-t border-rule py-3 sm:flex-row sm:flex-wrap sm:items-center sm:gap-x-5"
+      aria-label={name}
+      data-testid={id === 'all-units' ? 'all-units-row' : 'unit-alert-row'}
+    >
+      <legend className="sr-only">{name}</legend>
       <span className="text-sm font-medium text-ink sm:w-48">{label}</span>
       {UNIT_CONDITION_KINDS.map((kind) => (
         <label key={kind} className="flex min-h-8 items-center gap-2 text-sm">
@@ -111,7 +118,7 @@ function ConditionRow({
             type="checkbox"
             checked={row.kinds.includes(kind)}
             onChange={(e) => toggle(kind, e.target.checked)}
-            aria-label={`${CONDITION_EXPLAINED[kind].title}: ${label}`}
+            aria-label={`${CONDITION_EXPLAINED[kind].title}: ${name}`}
           />
           {CONDITION_EXPLAINED[kind].title}
         </label>
@@ -129,7 +136,7 @@ function ConditionRow({
             aria-required={daysOn || undefined}
             aria-invalid={error ? true : undefined}
             aria-describedby={error ? `${id}-error` : undefined}
-            aria-label={`Days without data before "data stopped": ${label}`}
+            aria-label={`Days without data before "data stopped": ${name}`}
             onChange={(e) => onChange({ ...row, days: e.target.value })}
           />
           <span className="text-ink-soft">
@@ -244,6 +251,7 @@ export function NotificationsForm({ organisationId, settings }: { organisationId
                   key={u.unitId}
                   id={`unit-${u.unitId}`}
                   label={u.unitName}
+                  name={`${u.unitName}, ${p.name}`}
                   row={draft.units[u.unitId] ?? { kinds: [], days: String(limits.default) }}
                   error={errors[u.unitId]}
                   limits={limits}
