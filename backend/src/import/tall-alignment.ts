@@ -46,8 +46,9 @@ export class TagSeries {
     this.lines[this.n++] = line;
   }
 
+  /** Grows by half (not double): a year of 1-min samples then needs 531,441 places, not 1,048,576. */
   private grow(): void {
-    const size = this.n * 2;
+    const size = Math.ceil(this.n * 1.5);
     const times = new Float64Array(size);
     times.set(this.times);
     const values = new Float64Array(size);
