@@ -91,6 +91,13 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       );
     }
   }
+  // The default signing secret is written in this repository: events signed with it are anyone's, so real Stripe needs its own.
+  const defaultWebhookSecret = config.STRIPE_WEBHOOK_SECRET === schema.shape.STRIPE_WEBHOOK_SECRET.parse(undefined);
+  if (defaultWebhookSecret && (config.NODE_ENV === 'production' || !config.STRIPE_SECRET_KEY.startsWith('sk_test_cleancase'))) {
+    throw new Error(
+      "Invalid configuration in the environment:\n  STRIPE_WEBHOOK_SECRET: set the signing secret of your webhook endpoint in Stripe's dashboard (whsec_…); the default is public",
+    );
+  }
   return config;
 }
 
