@@ -12,6 +12,7 @@ import { findPlant, findUnit, plantsInScope, unitsInScope } from '../repositorie
 import { recordAudit } from './audit.service.js';
 import { dropDraftCasesOrRefuse, isCaseStillReferencing } from './cases/cases-of-deleted-units.js';
 import { assertWithinPlanLimit } from './billing/plan-limits.js';
+import { refuseApprovedOutagesOrDetach } from './outages/outages-of-deleted-units.js';
 
 /** A case written between the check and the delete: the foreign key refuses, answered as the check would. */
 const refuseWhileCasesRemain = (what: 'unit' | 'plant') => (err: unknown) => {
@@ -95,10 +96,12 @@ export async function deletePlant(ds: DataSource, scope: TenantScope, id: string
   const plant = await foundInScope(findPlant(ds.manager, scope, id), 'No such plant');
   await ds
     .transaction(async (em) => {
-      const unitIds = (await em.getRepository(GeneratingUnit).find({ where: { plantId: id, organisationId: scope.organisationId }, select: { id: true } })).map(
-        (u) => u.id,
-      );
+      const units = await em
+        .getRepository(GeneratingUnit)
+        .find({ where: { plantId: id, organisationId: scope.organisationId }, select: { id: true, name: true } });
+      const unitIds = units.map((u) => u.id);
       const draftCasesDeleted = await dropDraftCasesOrRefuse(em, scope.organisationId, unitIds, 'plant');
+      const draftOutagesChanged = await refuseApprovedOutagesOrDetach(em, { organisationId: scope.organisationId, userId: scope.userId, units, what: 'plant' });
       await em.getRepository(Plant).delete({ id, organisationId: scope.organisationId });
       await recordAudit(em, {
         organisationId: scope.organisationId,
@@ -106,7 +109,11 @@ export async function deletePlant(ds: DataSource, scope: TenantScope, id: string
         action: 'plant.deleted',
         entityType: 'plant',
         entityId: id,
-        details: { name: plant.name, ...(draftCasesDeleted.length ? { draftCasesDeleted } : {}) },
+        details: {
+          name: plant.name,
+          ...(draftCasesDeleted.length ? { draftCasesDeleted } : {}),
+          ...(draftOutagesChanged.length ? { draftOutagesChanged } : {}),
+        },
       });
     })
     .catch(refuseWhileCasesRemain('plant'));
@@ -156,6 +163,12 @@ export async function deleteUnit(ds: DataSource, scope: TenantScope, id: string)
   await ds
     .transaction(async (em) => {
       const draftCasesDeleted = await dropDraftCasesOrRefuse(em, scope.organisationId, [id], 'unit');
+      const draftOutagesChanged = await refuseApprovedOutagesOrDetach(em, {
+        organisationId: scope.organisationId,
+        userId: scope.userId,
+        units: [{ id, name: unit.name }],
+        what: 'unit',
+      });
       await em.getRepository(GeneratingUnit).delete({ id, organisationId: scope.organisationId });
       await recordAudit(em, {
         organisationId: scope.organisationId,
@@ -163,7 +176,11 @@ export async function deleteUnit(ds: DataSource, scope: TenantScope, id: string)
         action: 'unit.deleted',
         entityType: 'unit',
         entityId: id,
-        details: { name: unit.name, ...(draftCasesDeleted.length ? { draftCasesDeleted } : {}) },
+        details: {
+          name: unit.name,
+          ...(draftCasesDeleted.length ? { draftCasesDeleted } : {}),
+          ...(draftOutagesChanged.length ? { draftOutagesChanged } : {}),
+        },
       });
     })
     .catch(refuseWhileCasesRemain('unit'));
