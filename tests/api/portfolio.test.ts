@@ -94,7 +94,11 @@ describe('portfolio API', () => {
   };
   async function unitWithAnalysis(plant: Plant, analysis: Record<string, unknown> | null, economics = TEST_ECONOMICS): Promise<GeneratingUnit> {
     const unit = await createUnit(t.dataSource, plant);
-    await t.dataSource.getRepository(GeneratingUnit).update({ id: unit.id }, { analysis, economics });
+    await t.dataSource.query('UPDATE generating_unit SET analysis = ?, economics = ? WHERE id = ?', [
+      analysis === null ? null : JSON.stringify(analysis),
+      JSON.stringify(economics),
+      unit.id,
+    ]);
     return unit;
   }
 
@@ -294,7 +298,7 @@ describe('portfolio API', () => {
     const one = await count();
     for (let i = 0; i < 4; i++) {
       const u = await unitWithAnalysis(
-        await createPlant(t.dataSource, org.organisation.id, org.groups[i % 2].id),
+        await createPlant(t.dataSource, org.organisation.id, org.groups[i % 2 === 0 ? 0 : 1].id),
         storedAnalysis({ asOf: addDays(today(), -2) }),
       );
       await createCaseRecord(t.dataSource, u, org.users.analyst.id, 'approved');
