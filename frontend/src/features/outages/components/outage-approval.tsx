@@ -15,8 +15,8 @@ export function OutageApproval({ organisationId, outage }: { organisationId: str
   if (outage.status === 'approved') {
     return (
       <Notice tone="ok">
-        Scope approved{outage.approvedBy ? ` by ${outage.approvedBy.name}` : ''} {formatDateTime(outage.approvedAt)}. It is kept as decided; the report is
-        below.
+        Scope approved{outage.approvedBy ? ` by ${outage.approvedBy.name}` : ''} {formatDateTime(outage.approvedAt)}. It is kept as decided; its report is in
+        the links above.
       </Notice>
     );
   }

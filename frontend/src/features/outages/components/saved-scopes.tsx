@@ -159,7 +159,7 @@ export function SavedScopes({ organisationId, outage }: { organisationId: string
               {outage.comparison.differences.length === 0 && (
                 <tr>
                   <td colSpan={scopes.length + 1} className="px-3 py-1.5 text-xs text-ink-soft">
-                    {scopes.length === 1 ? 'Save another scope to compare.' : 'The saved scopes hold the same items.'}
+                    {scopes.length > 1 ? 'The saved scopes hold the same items.' : draft ? 'Save another scope to compare.' : 'Only one scope was saved.'}
                   </td>
                 </tr>
               )}

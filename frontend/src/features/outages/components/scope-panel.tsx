@@ -46,7 +46,7 @@ export function ScopePanel({ organisationId, outage }: { organisationId: string;
         <>
           <p className="text-xs text-ink-soft">
             {snapshot
-              ? `As approved${outage.approvedBy ? ` by ${outage.approvedBy.name}` : ''}, ${formatDateTime(outage.approvedAt)}; the items below are as they were then.`
+              ? `As approved${outage.approvedBy ? ` by ${outage.approvedBy.name}` : ''}, ${formatDateTime(outage.approvedAt)}; the figures and reasons are as they were then.`
               : `Proposed ${formatDateTime(outage.proposal?.computedAt)}: the most value (benefit less cost) with the cost within the budget and each lane’s work inside the window, honouring what you forced in or out and what each item needs.`}
           </p>
           {!snapshot && outage.proposalStale && (
