@@ -192,7 +192,7 @@ const router = createBrowserRouter([
     children: [
       {
         index: true,
-        handle: { title: 'Overview' },
+        handle: { title: 'Portfolio' },
         loader: tenantLoader('data.read', (org) => [prefetch(portfolioQueryOptions(org))]),
         lazy: page(
           () => import('./routes/overview'),

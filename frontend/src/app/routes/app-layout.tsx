@@ -24,7 +24,7 @@ export function AppLayout() {
           </Link>
           <nav aria-label="Main" className="flex gap-1">
             <NavLink to="/" end className={navClass}>
-              Overview
+              Portfolio
             </NavLink>
             <NavLink to="/plants" className={({ isActive }) => navClass({ isActive: isActive || onUnitPage })}>
               Plants

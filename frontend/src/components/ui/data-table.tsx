@@ -8,7 +8,7 @@ export const tr = 'border-b border-rule last:border-0';
 /** A bordered, horizontally scrollable table with a sunk header row. */
 export function DataTable({ head, children, caption }: { head: ReactNode; children: ReactNode; caption?: string }) {
   return (
-    <div className="overflow-x-auto rounded border border-rule bg-paper-raised">
+    <div className="relative overflow-x-auto rounded border border-rule bg-paper-raised">
       <table className="w-full text-sm">
         {caption && <caption className="sr-only">{caption}</caption>}
         <thead className="border-b border-rule bg-paper-sunk">
