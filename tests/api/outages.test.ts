@@ -10,6 +10,7 @@ import type TestAgent from 'supertest/lib/agent.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { backpressureAtCleanlinessKpa } from '@shared/domain/condenser/index.js';
 import { buildUnitModel, type UnitSetupSi } from '@shared/domain/monitoring/index.js';
+import { addYears } from '@shared/domain/calendar/plant-date.js';
 import { penaltyBetween } from '@shared/domain/turbine/index.js';
 import { optimiseResponse, outageListResponse, outageView, type OutageView } from '@shared/schemas/outages.js';
 import { formatCurrency } from '@shared/text/display-format.js';
@@ -171,18 +172,26 @@ describe('outages', () => {
     expect(fresh.planVersion).toBe(1);
   });
 
-  it('a case’s cleaning takes its benefit from the approved case: its saving against its baseline with the first cleaning’s cost added back', async () => {
+  it('a case’s cleaning takes its benefit from the approved case: its saving against its baseline with the first cleaning’s discounted cost added back', async () => {
     const o = await newOutage();
     const view = await addItem(o.id, { unitId: unitOne.id, kind: 'case-cleaning', caseId: approvedCase.id, lane: 'Waterbox A' });
     const item = view.items[0]!;
     const r = approvedCase.results;
     const first = r.cleanings[0]!;
-    const expected = Math.round((r.baseline.discountedTotals.total - r.discountedTotals.total + first.cleaningCost) * 100) / 100;
+    // The cost is added back discounted as the case books it: end-of-year factor (1 + r)^-(k+1), k the whole years
+    // from the case's start to the cleaning (closed form).
+    let k = 0;
+    while (addYears(approvedCase.inputs.startDate, k + 1) <= first.date) k++;
+    const costBack = Math.round(first.cleaningCost * Math.pow(1 + approvedCase.inputs.discountRate, -(k + 1)) * 100) / 100;
+    expect(costBack).toBeLessThan(first.cleaningCost);
+    const expected = Math.round((r.baseline.discountedTotals.total - r.discountedTotals.total + costBack) * 100) / 100;
     expect(item.benefit).toBeCloseTo(expected, 2);
     expect(item).toMatchObject({ kind: 'case-cleaning', caseId: approvedCase.id, caseTitle: 'Spring lancing', cost: first.cleaningCost, benefitEntered: null });
     expect(item.pricing.method).toBe('case');
     expect(item.pricing.text).toContain('Spring lancing');
     expect(item.pricing.text).toContain(formatCurrency(expected, 'USD'));
+    expect(item.pricing.text).toContain('whole plan');
+    expect(item.pricing.text).toContain('not this cleaning alone');
     // the same case once per outage
     const twice = await agents.analyst
       .post(`/api/outages/${o.id}/items`)

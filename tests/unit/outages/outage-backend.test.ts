@@ -1,13 +1,16 @@
 /**
  * The outage backend's pure parts: pricing a recovered cleanliness from a unit's recent days, the figures of a
- * selection, who may do what, the cautions per kind of work, and the lane chart's layout. Figures invented for tests.
+ * selection, who may do what, the cautions per kind of work, the lane chart's layout and an approved case's cleaning
+ * priced as an item. Figures invented for tests.
  */
 import { describe, expect, it } from 'vitest';
 import { buildUnitModel, type UnitSetupSi } from '@shared/domain/monitoring/index.js';
 import { priceCleanlinessRecovered, type OperatingDay } from '../../../backend/src/services/outages/cleanliness-pricing.js';
+import { caseCleaningPriced, caseDiscountFactor } from '../../../backend/src/services/outages/price-item.js';
 import { cautionsFor, DEFER_TO_PRACTICE, outageActionsFor, outageRefusal, outageVisibleTo } from '../../../backend/src/services/outages/outage-rules.js';
 import { selectionFigures } from '../../../backend/src/services/outages/scope-figures.js';
 import { dayTicks } from '../../../backend/src/reports/outage-report/lane-chart.js';
+import type { CleaningCase } from '../../../backend/src/entities/cleaning-case.entity.js';
 import type { OutageItem } from '../../../backend/src/entities/outage-item.entity.js';
 import type { Outage } from '../../../backend/src/entities/outage.entity.js';
 import { TEST_CONDENSER, TEST_ECONOMICS, TEST_TURBINE } from '../../factories/units.js';
@@ -144,5 +147,44 @@ describe('the lane chart', () => {
       expect(ticks.at(-1)).toBe(n);
       expect(ticks.length).toBeLessThanOrEqual(10);
     }
+  });
+});
+
+describe('an approved case’s cleaning as an outage item', () => {
+  // Invented case: start 1 Jan 2026, 8 %, plan 60,000 against a baseline of 100,000 (both discounted); its first
+  // cleaning costs 10,000 on 1 Mar 2027, in horizon year 1 (the second), so the case booked it at 1.08^-2.
+  const record = (cleanings: number) =>
+    ({
+      title: 'Spring lancing',
+      currency: 'USD',
+      inputs: { startDate: '2026-01-01', discountRate: 0.08, horizonDays: 1095, baseline: { kind: 'never' } },
+      results: {
+        cleanings: Array.from({ length: cleanings }, (_, i) => ({
+          date: i === 0 ? '2027-03-01' : '2028-03-01',
+          endDate: i === 0 ? '2027-03-03' : '2028-03-03',
+          methodName: 'Lancing',
+          cleaningCost: 10_000,
+        })),
+        discountedTotals: { total: 60_000 },
+        baseline: { discountedTotals: { total: 100_000 } },
+      },
+    }) as unknown as CleaningCase;
+
+  it('discounts a day as the case books it: (1 + r)^-(k+1) for horizon year k', () => {
+    expect(caseDiscountFactor('2026-01-01', '2026-12-31', 0.08)).toBeCloseTo(1 / 1.08, 12);
+    expect(caseDiscountFactor('2026-01-01', '2027-01-01', 0.08)).toBeCloseTo(1 / 1.08 ** 2, 12);
+    expect(caseDiscountFactor('2026-01-01', '2027-03-01', 0.08)).toBeCloseTo(0.85733882, 8);
+  });
+
+  it('adds back the first cleaning’s cost discounted like the saving, and says the benefit is the whole plan’s', () => {
+    // By hand: 100,000 − 60,000 = 40,000 saved; 10,000 / 1.08² = 8,573.39 added back; 48,573.39 in all.
+    const c = caseCleaningPriced(record(1), { startDate: '2027-02-20', endDate: '2027-03-10' });
+    expect(c.priced.pricedBenefit.toNumber()).toBe(48_573.39);
+    expect(c.defaults).toEqual({ title: 'Lancing (case “Spring lancing”)', cost: 10_000, durationDays: 3 });
+    expect(c.priced.pricingText).toContain('the benefit is the case’s whole plan against its baseline, not this cleaning alone');
+    expect(c.priced.pricingText).toContain('$48,573');
+    expect(caseCleaningPriced(record(2), { startDate: '2027-02-20', endDate: '2027-03-10' }).priced.pricingText).toContain(
+      'the case’s whole plan of 2 cleanings against its baseline, not this cleaning alone',
+    );
   });
 });

@@ -6,7 +6,7 @@
 import Decimal from 'decimal.js';
 import type { EntityManager } from 'typeorm';
 import { MAX_OUTAGE_WINDOW_DAYS, type CleanlinessBenefit, type ItemBenefit } from '@shared/schemas/outages.js';
-import { daysBetween } from '@shared/domain/calendar/plant-date.js';
+import { daysBetween, horizonYearIndex } from '@shared/domain/calendar/plant-date.js';
 import { formatCurrency, formatDay, formatPercent } from '@shared/text/display-format.js';
 import type { CleaningCase } from '../../entities/cleaning-case.entity.js';
 import type { GeneratingUnit } from '../../entities/generating-unit.entity.js';
@@ -48,6 +48,14 @@ export async function priceCleanliness(em: EntityManager, unit: GeneratingUnit, 
   if (!model || !unit.condenser) {
     throw new AppError(409, `${unit.name} has no complete setup (condenser, turbine, economics) to price a cleanliness with: enter the benefit as money`);
   }
+  const unitCurrency = unit.economics?.currency;
+  if (unitCurrency && unitCurrency !== currency) {
+    throw new AppError(
+      409,
+      `${unit.name}’s economics count money in ${unitCurrency}, this outage in ${currency}: a cleanliness priced with them cannot be added to it. ` +
+        `Enter the benefit as money in ${currency}, or set the unit’s economics back to ${currency}`,
+    );
+  }
   const days = await recentOperatingDays(em, unit.id, CONDITION_DAYS);
   if (days.length === 0) {
     throw new AppError(409, `${unit.name} has no days of valid data to price a cleanliness with: import its data, or enter the benefit as money`);
@@ -86,7 +94,9 @@ export interface CaseCleaning {
  * The cleaning of an approved case of the unit. Its benefit is the case's discounted saving against its own
  * baseline (baseline total cost less the plan's, both as stored in the approved result) with the first cleaning's
  * cost added back, since that cost is the item's cost and counts against the outage budget: the value of the
- * cleaning before paying for it. Title, cost and duration default to the case's first cleaning.
+ * cleaning before paying for it. The cost is added back discounted as the case discounted it (end-of-year factor
+ * (1 + r)^−(k+1) for horizon year k from the case's start, shared/domain/decision/schedule/schedule-problem.ts), so
+ * both halves are in the same money. Title, cost and duration default to the case's first cleaning.
  */
 export async function caseCleaning(em: EntityManager, scope: TenantScope, outage: Outage, unitId: string, caseId: string): Promise<CaseCleaning> {
   const noCase = () => field('caseId', 'No such approved case of this unit');
@@ -102,22 +112,39 @@ export async function caseCleaning(em: EntityManager, scope: TenantScope, outage
   if (record.currency !== outage.currency) {
     throw field('caseId', `The case counts money in ${record.currency}, the outage in ${outage.currency}: they cannot be added together`);
   }
+  return caseCleaningPriced(record, outage);
+}
+
+/** The case's discount factor on a day of its horizon: (1 + r)^−(k+1), k the horizon year the day falls in (as the case books money). */
+export function caseDiscountFactor(startDate: string, day: string, discountRate: number): number {
+  const offset = daysBetween(startDate, day);
+  const year = offset < 0 ? 0 : horizonYearIndex(startDate, offset + 1)[offset]!;
+  return Math.pow(1 + discountRate, -(year + 1));
+}
+
+/** The pricing of an approved case's first cleaning as an outage item (the case already checked). */
+export function caseCleaningPriced(record: CleaningCase, outage: Pick<Outage, 'startDate' | 'endDate'>): CaseCleaning {
   const r = record.results;
   const first = r.cleanings[0];
   if (!first) throw new AppError(409, 'This case plans no cleaning over its horizon: there is nothing to add to the outage');
   const saving = new Decimal(r.baseline.discountedTotals.total).minus(r.discountedTotals.total);
-  const benefit = saving.plus(first.cleaningCost).toDecimalPlaces(2);
+  const factor = caseDiscountFactor(record.inputs.startDate, first.date, record.inputs.discountRate);
+  const costBack = new Decimal(first.cleaningCost).times(factor).toDecimalPlaces(2);
+  const benefit = saving.plus(costBack).toDecimalPlaces(2);
   const baselineWords = BASELINE_WORDS[record.inputs.baseline.kind];
   const outside =
     first.date < outage.startDate || first.date > outage.endDate
       ? ` The case planned it for ${formatDay(first.date)}, outside this outage’s window: the figure assumes doing it in this outage saves about as much.`
       : '';
-  const others = r.cleanings.length > 1 ? ` The case’s plan holds ${r.cleanings.length} cleanings; the saving is the whole plan’s.` : '';
+  const whole =
+    r.cleanings.length > 1
+      ? `the case’s whole plan of ${r.cleanings.length} cleanings against its baseline, not this cleaning alone`
+      : 'the case’s whole plan against its baseline, not this cleaning alone';
   const text =
-    `From the approved case “${record.title}”: its plan costs ${formatCurrency(saving.toNumber(), record.currency)} less than its baseline (${baselineWords}) ` +
-    `over ${record.inputs.horizonDays} days, discounted at ${formatPercent(record.inputs.discountRate)}; with the first cleaning’s cost ` +
-    `(${formatCurrency(first.cleaningCost, record.currency)}, ${first.methodName} on ${formatDay(first.date)}) added back, since it counts as this item’s cost: ` +
-    `${formatCurrency(benefit.toNumber(), record.currency)}.${outside}${others}`;
+    `From the approved case “${record.title}”: the benefit is ${whole}. The plan costs ${formatCurrency(saving.toNumber(), record.currency)} less than ` +
+    `the baseline (${baselineWords}) over ${record.inputs.horizonDays} days, discounted at ${formatPercent(record.inputs.discountRate)}; the first cleaning’s cost ` +
+    `(${formatCurrency(first.cleaningCost, record.currency)}, ${first.methodName} on ${formatDay(first.date)}; ${formatCurrency(costBack.toNumber(), record.currency)} ` +
+    `discounted likewise) is added back, since it counts as this item’s cost: ${formatCurrency(benefit.toNumber(), record.currency)}.${outside}`;
   return {
     record,
     priced: { pricedBenefit: benefit, pricingMethod: 'case', pricingText: text, benefitMoney: null, cleanlinessRecovered: null, horizonDays: null },
