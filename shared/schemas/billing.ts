@@ -35,6 +35,12 @@ export type BillingPlanOffer = z.infer<typeof billingPlanOffer>;
 
 export const billingUsage = z.object({ limit: z.enum(LIMIT_NAMES), label: z.string(), used: z.number().int(), allowed: z.number().int() }).strict();
 
+/** A limit the organisation holds more of than its plan allows (a plan changed in Stripe, or a race): nothing is deleted, additions are refused. */
+export const billingOverLimit = z
+  .object({ limit: z.enum(LIMIT_NAMES), used: z.number().int(), allowed: z.number().int(), liftedBy: z.string().nullable(), message: z.string() })
+  .strict();
+export type BillingOverLimit = z.infer<typeof billingOverLimit>;
+
 export const billingInvoice = z
   .object({
     id: z.string(),
@@ -63,6 +69,10 @@ export const billingOverview = z
     /** Why writes are refused, or null. */
     readOnly: z.string().nullable(),
     usage: z.array(billingUsage),
+    /** The limits exceeded, each with its sentence; empty when the plan holds everything. */
+    overLimit: z.array(billingOverLimit),
+    /** The Checkout page that may still be paid, and until when the organisation is held to its plan's limits. */
+    openCheckout: z.object({ plan: z.string(), name: z.string(), until: z.string() }).strict().nullable(),
     nextInvoice: z.object({ date: z.string(), amount: z.string(), currency: z.string() }).strict().nullable(),
     invoices: z.array(billingInvoice),
     plans: z.array(billingPlanOffer),
@@ -78,6 +88,8 @@ export const billingNotice = z
     trialEndsAt: z.string().nullable(),
     trialDaysLeft: z.number().int().nullable(),
     trialEndingSoon: z.boolean(),
+    /** A plain sentence when the organisation holds more than its plan allows, or null. */
+    overLimit: z.string().nullable(),
   })
   .strict();
 export type BillingNotice = z.infer<typeof billingNotice>;

@@ -173,6 +173,32 @@ describe('when Stripe is down or failing', () => {
     expect(await org(tenant.organisation.id)).toEqual(before);
   });
 
+  it('a Checkout page Stripe did not make holds the organisation to nothing; an earlier page still open holds again', async () => {
+    const { tenant, admin } = await trialTenant();
+    const id = tenant.organisation.id;
+    const plant = await createPlant(t.dataSource, id);
+    await createUnit(t.dataSource, plant);
+    await createUnit(t.dataSource, plant);
+    // Only the session call fails (the customer is made): no page, so the Plant plan's 2 units do not hold.
+    await fakeControl(t.config, 'fail-next', { count: '1', status: '500', match: `"client_reference_id":"${id}"` });
+    expect((await admin.post('/api/billing/checkout').set(CSRF).send({ price: 'cleancase_plant_month' })).status).toBe(503);
+    expect(await org(id)).toMatchObject({ checkoutPlan: null, checkoutStartedAt: null, checkoutSessionId: null });
+    expect((await admin.post(`/api/plants/${plant.id}/units`).set(CSRF).send({ name: 'Third' })).status).toBe(201);
+
+    // A Station page is given; a later Fleet page fails: the Station page (still payable) holds as before.
+    expect((await admin.post('/api/billing/checkout').set(CSRF).send({ price: 'cleancase_station_month' })).status).toBe(200);
+    const station = await org(id);
+    expect(station).toMatchObject({ checkoutPlan: 'station' });
+    expect(station.checkoutSessionId).toMatch(/^cs_/);
+    await fakeControl(t.config, 'fail-next', { count: '1', status: '500', match: `"client_reference_id":"${id}"` });
+    expect((await admin.post('/api/billing/checkout').set(CSRF).send({ price: 'cleancase_fleet_month' })).status).toBe(503);
+    expect(await org(id)).toMatchObject({
+      checkoutPlan: 'station',
+      checkoutStartedAt: station.checkoutStartedAt,
+      checkoutSessionId: station.checkoutSessionId,
+    });
+  });
+
   it('with nothing listening where Stripe should be, billing says so and the rest of the product works', async () => {
     const down = await createTestApp({ STRIPE_API_BASE: 'http://127.0.0.1:9' });
     try {

@@ -23,6 +23,11 @@ export class Organisation {
   @Column({ type: 'datetime', precision: 3, nullable: true }) billingStateAt: Date | null;
   /** When the trial-ending message went out (once per trial). */
   @Column({ type: 'datetime', precision: 3, nullable: true }) trialEndingMailAt: Date | null;
+  /** The plan of the Checkout page last asked for, while it may still be paid (see services/billing/open-checkout.ts). */
+  @Column({ type: 'varchar', length: 32, nullable: true }) checkoutPlan: string | null;
+  @Column({ type: 'datetime', precision: 3, nullable: true }) checkoutStartedAt: Date | null;
+  /** Stripe's id of that Checkout session: its expiry event clears the three. */
+  @Column({ type: 'varchar', length: 255, nullable: true }) checkoutSessionId: string | null;
   /** The organisation's own historian status words, besides the defaults (shared/schemas/historian-status.ts). */
   @Column({ type: 'json', nullable: true }) historianStatusWords: string[] | null;
   @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)' }) createdAt: Date;

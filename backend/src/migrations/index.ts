@@ -15,6 +15,7 @@ import { Subscriptions1796230000000 } from './1796230000000-subscriptions.js';
 import { AlertsByMail1796240000000 } from './1796240000000-alerts-by-mail.js';
 import { UnitDataVersion1796250000000 } from './1796250000000-unit-data-version.js';
 import { HistorianShapes1796260000000 } from './1796260000000-historian-shapes.js';
+import { OpenCheckout1796280000000 } from './1796280000000-open-checkout.js';
 
 export const MIGRATIONS = [
   Foundation1764633600000,
@@ -33,4 +34,5 @@ export const MIGRATIONS = [
   AlertsByMail1796240000000,
   UnitDataVersion1796250000000,
   HistorianShapes1796260000000,
+  OpenCheckout1796280000000,
 ];

@@ -9,7 +9,7 @@ import { createBillingContext, type BillingContext } from '../services/billing/b
 import { setCancelAtPeriodEnd } from '../services/billing/cancel-subscription.js';
 import { changePlan } from '../services/billing/change-plan.js';
 import { getBillingOverview } from '../services/billing/get-billing-overview.js';
-import { billingNoticeOf } from '../services/billing/get-billing-notice.js';
+import { getBillingNotice } from '../services/billing/get-billing-notice.js';
 import { openPortal } from '../services/billing/open-portal.js';
 import { receiveWebhook } from '../services/billing/receive-webhook.js';
 import { startCheckout } from '../services/billing/start-checkout.js';
@@ -48,7 +48,7 @@ export function billingRoutes(ds: DataSource, config: Config, context?: BillingC
       tenantScoped: true,
       response: billingNotice,
       description: "What every member is shown about the subscription: read-only with its reason, the trial's last days",
-      handler: (req, res) => res.json(billingNoticeOf(req.actor!.organisation!)),
+      handler: async (req, res) => res.json(await getBillingNotice(ds.manager, req.actor!.organisation!)),
     },
     {
       ...billing,

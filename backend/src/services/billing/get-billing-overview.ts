@@ -4,6 +4,7 @@ import { readOnlyReason, trialDaysLeft } from '@shared/billing-access.js';
 import type { BillingContext } from './billing-context.js';
 import { money, offers } from './billing-view.js';
 import { currentPlan, usageOf } from './organisation-billing.js';
+import { CHECKOUT_OPEN_MS, openCheckoutPlan, overLimitOf } from './open-checkout.js';
 import { LIMIT_WORDS, planOfLookupKey } from './plan-catalogue.js';
 import { Organisation } from '../../entities/organisation.entity.js';
 import { callStripe } from './stripe-client.js';
@@ -15,6 +16,7 @@ export async function getBillingOverview(ctx: BillingContext, organisationId: st
   const org = await ctx.ds.getRepository(Organisation).findOneByOrFail({ id: organisationId });
   const plan = currentPlan(org);
   const usage = await usageOf(ctx.ds.manager, organisationId);
+  const checkout = openCheckoutPlan(org, now);
   const invoices = org.stripeCustomerId
     ? (await callStripe('customer', () => ctx.stripe.invoices.list({ customer: org.stripeCustomerId!, limit: 12 }))).data
     : [];
@@ -31,6 +33,10 @@ export async function getBillingOverview(ctx: BillingContext, organisationId: st
     cancelAtPeriodEnd: org.cancelAtPeriodEnd,
     readOnly: readOnlyReason(org, now),
     usage: LIMIT_NAMES.map((limit) => ({ limit, label: LIMIT_WORDS[limit].many, used: usage[limit], allowed: plan.limits[limit] })),
+    overLimit: overLimitOf(plan, usage),
+    openCheckout: checkout
+      ? { plan: checkout.code, name: checkout.name, until: new Date(org.checkoutStartedAt!.getTime() + CHECKOUT_OPEN_MS).toISOString() }
+      : null,
     nextInvoice: billsNext ? { date: org.currentPeriodEnd!.toISOString(), amount: money(price.cents), currency: price.currency } : null,
     invoices: invoices.map((i) => ({
       id: i.id ?? '',

@@ -8,6 +8,7 @@ import { Invitation } from '../../entities/invitation.entity.js';
 import { Membership } from '../../entities/membership.entity.js';
 import { Organisation, type SubscriptionStatus } from '../../entities/organisation.entity.js';
 import { notFound } from '../../http/app-error.js';
+import { NO_OPEN_CHECKOUT } from './open-checkout.js';
 import { planByCode, planOfLookupKey, TRIAL_PLAN, type PlanDefinition } from './plan-catalogue.js';
 
 /** The organisation's row, locked until the transaction ends: limit checks and webhook effects on one tenant take turns. */
@@ -71,6 +72,8 @@ export async function applySubscription(em: EntityManager, org: Organisation, su
     cancelAtPeriodEnd: sub.cancel_at_period_end,
     pastDueSince: status === 'past_due' ? (org.pastDueSince ?? readAt) : null,
     billingStateAt: readAt,
+    // A live subscription closes the Checkout page that led to it: its plan is the one that holds now.
+    ...(['active', 'past_due', 'trialing'].includes(status) ? NO_OPEN_CHECKOUT : {}),
   };
   await em.getRepository(Organisation).update({ id: org.id }, changes);
   Object.assign(org, changes);

@@ -18,10 +18,12 @@ import type { EntityManager } from 'typeorm';
 import type { BillingContext } from './billing-context.js';
 import { adminAddresses, money } from './billing-view.js';
 import { applySubscription, lockOrganisation } from './organisation-billing.js';
+import { NO_OPEN_CHECKOUT } from './open-checkout.js';
 import { callStripe } from './stripe-client.js';
 
 export const HANDLED_EVENTS = [
   'checkout.session.completed',
+  'checkout.session.expired',
   'customer.subscription.created',
   'customer.subscription.updated',
   'customer.subscription.deleted',
@@ -57,7 +59,7 @@ async function byId(ctx: BillingContext, id: string | null | undefined): Promise
 async function targetOf(ctx: BillingContext, event: Stripe.Event): Promise<Target> {
   const object = event.data.object as unknown as Record<string, unknown>;
   const customer = idOf(object.customer as string | { id: string } | null);
-  if (event.type === 'checkout.session.completed') {
+  if (event.type === 'checkout.session.completed' || event.type === 'checkout.session.expired') {
     const session = event.data.object;
     const fromSession = (await byId(ctx, session.client_reference_id)) ?? (await byId(ctx, session.metadata?.organisationId));
     return { organisationId: fromSession ?? (await byCustomer(ctx, customer)), subscriptionId: idOf(session.subscription) };
@@ -122,6 +124,10 @@ export async function receiveWebhook(ctx: BillingContext, raw: unknown, signatur
     if (await em.getRepository(BillingWebhookEvent).existsBy({ id: event.id })) return 'duplicate';
     await em.getRepository(BillingWebhookEvent).insert({ id: event.id, type: event.type, organisationId, eventCreatedAt: new Date(event.created * 1000) });
     if (subscription) await applySubscription(em, org, subscription, readAt);
+    // The Checkout page can no longer be paid: its plan's limits stop holding the organisation.
+    if (event.type === 'checkout.session.expired' && org.checkoutSessionId === event.data.object.id) {
+      await em.getRepository(Organisation).update({ id: org.id }, NO_OPEN_CHECKOUT);
+    }
     await mailFor(em, ctx, org, event);
     webhookFaults.afterEffect?.(event);
     return 'applied';

@@ -40,18 +40,35 @@ export async function startCheckout(ctx: BillingContext, organisationId: string,
   }
   await assertUsageFits(ctx.ds.manager, organisationId, price.plan);
   const customer = await ensureCustomer(ctx, organisationId);
+  // Under the lock that additions take, usage is checked once more and the plan asked for is written down: from
+  // here on additions are held to that plan's limits too (plan-limits.ts), so nothing slips in before it is paid.
+  const { startedAt, before } = await ctx.ds.transaction(async (em) => {
+    const locked = await lockOrganisation(em, organisationId);
+    await assertUsageFits(em, organisationId, price.plan);
+    const previous = { checkoutPlan: locked.checkoutPlan, checkoutStartedAt: locked.checkoutStartedAt, checkoutSessionId: locked.checkoutSessionId };
+    const at = new Date();
+    await em.getRepository(Organisation).update({ id: organisationId }, { checkoutPlan: price.plan.code, checkoutStartedAt: at, checkoutSessionId: null });
+    return { startedAt: at, before: previous };
+  });
   const back = `${baseUrl(ctx.config)}/settings/billing`;
-  const session = await callStripe('customer', () =>
-    ctx.stripe.checkout.sessions.create({
-      mode: 'subscription',
-      customer,
-      client_reference_id: organisationId,
-      line_items: [{ price: price.priceId, quantity: 1 }],
-      subscription_data: { metadata: { organisationId } },
-      success_url: `${back}?checkout=done`,
-      cancel_url: back,
-    }),
-  );
-  if (!session.url) throw new AppError(503, 'Stripe gave no checkout page: nothing was changed. Try again in a few minutes.');
-  return { url: session.url };
+  try {
+    const session = await callStripe('customer', () =>
+      ctx.stripe.checkout.sessions.create({
+        mode: 'subscription',
+        customer,
+        client_reference_id: organisationId,
+        line_items: [{ price: price.priceId, quantity: 1 }],
+        subscription_data: { metadata: { organisationId } },
+        success_url: `${back}?checkout=done`,
+        cancel_url: back,
+      }),
+    );
+    if (!session.url) throw new AppError(503, 'Stripe gave no checkout page: nothing was changed. Try again in a few minutes.');
+    await ctx.ds.getRepository(Organisation).update({ id: organisationId, checkoutStartedAt: startedAt }, { checkoutSessionId: session.id });
+    return { url: session.url };
+  } catch (err) {
+    // No page to pay: the limits it set go with it, and an earlier page still open holds again (unless a newer request has written its own since).
+    await ctx.ds.getRepository(Organisation).update({ id: organisationId, checkoutStartedAt: startedAt }, before);
+    throw err;
+  }
 }

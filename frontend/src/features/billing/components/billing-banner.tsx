@@ -2,7 +2,7 @@ import { Link } from 'react-router-dom';
 import { formatDayOfMoment } from '@shared/text/display-format';
 import { useBillingNotice } from '../api/get-billing-notice';
 
-/** For every member: the organisation is read-only (and why), or its trial is in its last days. */
+/** For every member: the organisation is read-only (and why), holds more than its plan allows, or its trial is in its last days. */
 export function BillingBanner({ organisationId, canManage }: { organisationId: string | null | undefined; canManage: boolean }) {
   const { data } = useBillingNotice(organisationId);
   if (!data) return null;
@@ -17,6 +17,20 @@ export function BillingBanner({ organisationId, canManage }: { organisationId: s
     return (
       <div role="alert" className="mb-4 rounded border border-warn/40 bg-ledger-50 px-3 py-2 text-sm text-warn" data-testid="billing-banner">
         {data.readOnly} {where}
+      </div>
+    );
+  }
+  if (data.overLimit) {
+    return (
+      <div role="alert" className="mb-4 rounded border border-warn/40 bg-ledger-50 px-3 py-2 text-sm text-warn" data-testid="billing-banner">
+        {data.overLimit}{' '}
+        {canManage ? (
+          <Link to="/settings/billing" className="font-medium underline">
+            Billing
+          </Link>
+        ) : (
+          <span>An administrator can change the plan.</span>
+        )}
       </div>
     );
   }

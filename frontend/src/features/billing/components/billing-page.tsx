@@ -91,6 +91,21 @@ export function BillingPage({ organisationId }: { organisationId: string }) {
 
       <div>
         <h2 className="mb-2">Use of the plan</h2>
+        {b.overLimit.length > 0 && (
+          <div className="mb-3 flex flex-col gap-2" data-testid="billing-over-limit">
+            {b.overLimit.map((o) => (
+              <Notice key={o.limit} tone="warn">
+                {o.message}
+              </Notice>
+            ))}
+          </div>
+        )}
+        {b.openCheckout && (
+          <p className="mb-3 text-sm text-ink-soft" data-testid="billing-open-checkout">
+            A checkout for the {b.openCheckout.name} plan is open until {formatDayOfMoment(b.openCheckout.until, 'UTC')}, or until it is paid: until then the
+            organisation can hold no more than that plan allows.
+          </p>
+        )}
         <UsageBars usage={b.usage} />
       </div>
 
