@@ -81,6 +81,7 @@ describe('API answers on the demo data', () => {
       ],
       '/api/units/:id/events': [`/api/units/${unitId}/events`],
       '/api/portfolio': ['/api/portfolio'],
+      '/api/notifications': ['/api/notifications'],
       '/api/units/:id/daily': [`/api/units/${unitId}/daily`, `/api/units/${unitId}/daily?from=2026-11-01&to=2026-11-30`],
       '/api/units/:id/imports': [`/api/units/${unitId}/imports`],
       '/api/imports/:id': [`/api/imports/${imports[0]!.id}`],
