@@ -79,7 +79,8 @@ describe('e-mail alerts', () => {
   });
   const subscribe = (user: User, m: Membership, body: Partial<NotificationSettingsBody>) =>
     saveNotificationSettings(t.dataSource, scopeOfMember(user, m), { weeklyDigest: false, allUnits: null, units: [], ...body });
-  const setAnalysis = (unit: GeneratingUnit, a: Record<string, unknown>) => t.dataSource.getRepository(GeneratingUnit).update({ id: unit.id }, { analysis: a });
+  const setAnalysis = (unit: GeneratingUnit, a: Record<string, unknown>) =>
+    t.dataSource.query('UPDATE generating_unit SET analysis = ? WHERE id = ?', [JSON.stringify(a), unit.id]);
   const evaluate = (now?: Date) => evaluateAlerts(t.dataSource, { organisationId: tenant.organisation.id, baseUrl: BASE, now });
   /** oldest first */
   const mailsTo = async (user: User) => (await t.mailTo(user.email)).sort((a, b) => a.receivedAt.localeCompare(b.receivedAt));

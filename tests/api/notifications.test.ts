@@ -86,7 +86,11 @@ describe('notification settings API', () => {
       [{ weeklyDigest: true, allUnits: { kinds: ['everything'], dataStoppedDays: 3 }, units: [] }, /Choose among/],
     ];
     for (const [body, message] of cases) {
-      const res = await analyst.put('/api/notifications').set(CSRF).send(body).expect(400);
+      const res = await analyst
+        .put('/api/notifications')
+        .set(CSRF)
+        .send(body as object)
+        .expect(400);
       expect(JSON.stringify(res.body)).toMatch(message);
     }
     expect(await read(analyst)).toEqual(before);
