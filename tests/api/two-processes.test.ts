@@ -10,6 +10,7 @@ import type { DataSource } from 'typeorm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { enqueueJob } from '../../backend/src/jobs/job-queue.js';
 import type { DbConnection } from '../../backend/src/data-source.js';
+import type { GeneratingUnit } from '../../backend/src/entities/generating-unit.entity.js';
 import { freePort } from '../../scripts/lib/free-port.js';
 import { createTenant, CSRF, TEST_PASSWORD, type TenantFixture } from '../factories/accounts.js';
 import { createPlant, createUnit } from '../factories/units.js';
@@ -143,7 +144,7 @@ describe('two app processes and two job workers on one MariaDB', { timeout: 180_
 
   it('each queued job runs exactly once, whichever worker claims it', async () => {
     const plant = await createPlant(ds, tenant.organisation.id);
-    const units = [];
+    const units: GeneratingUnit[] = [];
     for (let i = 0; i < 6; i++) units.push(await createUnit(ds, plant));
     await ds.transaction(async (em) => {
       for (const u of units)
@@ -179,8 +180,8 @@ describe('two app processes and two job workers on one MariaDB', { timeout: 180_
     );
     expect(last.status).toBe('complete');
     expect(last.counts?.stored).toBe(rows.length);
-    const [{ n }] = await ds.query<{ n: string }[]>('SELECT COUNT(*) AS n FROM performance_sample WHERE unitId = ?', [unit.id]);
-    expect(Number(n)).toBe(rows.length);
+    const counted = await ds.query<{ n: string }[]>('SELECT COUNT(*) AS n FROM performance_sample WHERE unitId = ?', [unit.id]);
+    expect(Number(counted[0]?.n)).toBe(rows.length);
     // The import's own recompute ran once as well.
     const recompute = await until(
       'the recompute the import queued',

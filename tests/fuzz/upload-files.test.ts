@@ -24,7 +24,8 @@ const FILES = 500;
 const LANES = 4;
 /** One file's upload, start and import together; far more than any of them takes. */
 const FILE_LIMIT_MS = 30_000;
-const SEED = process.env.FUZZ_SEED ? Number(process.env.FUZZ_SEED) : Date.now() | 0;
+/** A fixed seed, so a run can be repeated and CI is not a lottery; FUZZ_SEED explores others (the seed that found the stalled workbook: 922647081). */
+const SEED = process.env.FUZZ_SEED ? Number(process.env.FUZZ_SEED) : 922_647_081;
 
 let t: TestApp;
 let tmp: Awaited<ReturnType<typeof makeTempDir>>;

@@ -45,6 +45,44 @@ async function assertZip(filePath: string): Promise<void> {
   }
 }
 
+/** How long the reader may wait for the next row while the file is not being read any further. */
+export const XLSX_STALL_MS = 10_000;
+
+/**
+ * An iterator of the workbook reader that cannot wait for ever: some damaged ZIP archives leave the streaming
+ * reader waiting for data that never comes (no error, no end). A wait during which the file is not read any
+ * further for XLSX_STALL_MS ends with the damaged-workbook error instead; a large sheet still being read keeps
+ * the file's position moving and is never cut short.
+ */
+function guardedIterator<T>(inner: AsyncIterator<T>, input: { bytesRead: number }): AsyncIterator<T> {
+  return {
+    next: () =>
+      new Promise<IteratorResult<T>>((resolve, reject) => {
+        let seen = input.bytesRead;
+        let movedAt = Date.now();
+        const timer = setInterval(() => {
+          if (input.bytesRead !== seen) {
+            seen = input.bytesRead;
+            movedAt = Date.now();
+          } else if (Date.now() - movedAt >= XLSX_STALL_MS) {
+            clearInterval(timer);
+            reject(new ImportFileError('not-xlsx', NOT_A_READABLE_WORKBOOK));
+          }
+        }, 1_000);
+        inner.next().then(
+          (r) => {
+            clearInterval(timer);
+            resolve(r);
+          },
+          (e: unknown) => {
+            clearInterval(timer);
+            reject(e instanceof Error ? e : new Error(String(e)));
+          },
+        );
+      }),
+  };
+}
+
 export interface XlsxReadOptions {
   maxLineChars?: number;
   /** The sheet to read by name (default: the first). */
@@ -62,7 +100,7 @@ export async function openXlsxTable(filePath: string, options: XlsxReadOptions =
     styles: 'ignore',
     entries: 'ignore',
   });
-  const sheets = reader[Symbol.asyncIterator]();
+  const sheets = guardedIterator(reader[Symbol.asyncIterator](), input);
   let rowIterator: AsyncIterator<ExcelJS.Row> | null = null;
   let sawSheet = false;
   let sheetNames: string[] = [];
@@ -83,7 +121,7 @@ export async function openXlsxTable(filePath: string, options: XlsxReadOptions =
       if (sheet.done) return false;
       const ws = sheet.value as unknown as { name?: string } & AsyncIterable<ExcelJS.Row>;
       sheetName = ws.name;
-      rowIterator = ws[Symbol.asyncIterator]();
+      rowIterator = guardedIterator(ws[Symbol.asyncIterator](), input);
       return true;
     } catch (e) {
       throw broken(e);
@@ -113,12 +151,13 @@ export async function openXlsxTable(filePath: string, options: XlsxReadOptions =
         }
         // a sheet not chosen is passed over: its rows are read to the end (the reader may have parked it in a temporary file)
         if (options.sheet !== undefined && ws.name !== options.sheet) {
-          for await (const _row of ws);
+          const passed = guardedIterator(ws[Symbol.asyncIterator](), input);
+          for (let r = await passed.next(); !r.done; r = await passed.next());
           continue;
         }
         sawSheet = true;
         sheetName = ws.name;
-        rowIterator = ws[Symbol.asyncIterator]();
+        rowIterator = guardedIterator(ws[Symbol.asyncIterator](), input);
       }
       for (;;) {
         const r = await rowIterator.next();
