@@ -9,7 +9,7 @@ import { ClientGroup } from '../entities/client-group.entity.js';
 import { GeneratingUnit } from '../entities/generating-unit.entity.js';
 import { Plant } from '../entities/plant.entity.js';
 import type { TenantScope } from '../policies/tenant-scope.js';
-import { restrictPlantsToScope } from './scope-filter.js';
+import { restrictOutagesToScope, restrictPlantsToScope } from './scope-filter.js';
 
 /** A day column as 'YYYY-MM-DD' whether the driver hands back text or a Date. */
 export const dayText = (d: unknown): string => (typeof d === 'string' ? d.slice(0, 10) : (d as Date).toISOString().slice(0, 10));
@@ -121,7 +121,7 @@ export interface PortfolioOutageRow {
 }
 
 /**
- * Outages of the tenant that take a unit in scope off line and end on or after `fromDay` (the earliest of the
+ * Outages the member may open (as GET /api/outages/:id decides) that take a unit in scope off line and end on or after `fromDay` (the earliest of the
  * plants' todays; the caller keeps those not ended by each plant's own today), by start date.
  */
 export async function comingOutagesInScope(em: EntityManager, scope: TenantScope, fromDay: string): Promise<PortfolioOutageRow[]> {
@@ -134,6 +134,9 @@ export async function comingOutagesInScope(em: EntityManager, scope: TenantScope
     .innerJoin(Plant, 'p', 'p.id = u.plantId')
     .where('o.organisationId = :outageOrg', { outageOrg: scope.organisationId })
     .andWhere('o.endDate >= :fromDay', { fromDay });
+  // The outage itself as the outage pages show it: every unit it takes off line in scope, and viewers see approved ones only.
+  restrictOutagesToScope(qb, 'o', scope);
+  if (scope.role === 'viewer') qb.andWhere("o.status = 'approved'");
   const rows: Record<string, unknown>[] = await restrictPlantsToScope(qb, 'p', scope).orderBy('o.startDate', 'ASC').addOrderBy('o.id', 'ASC').getRawMany();
   return rows.map((r) => ({
     id: String(r.id),
