@@ -90,6 +90,7 @@ export async function recomputeUnit(ds: DataSource, unitId: string, onProgress: 
     unitId,
     unitAnalysis({ setupVersion: unit.setupVersion, lastDay, cycles, airLeakPeriods: airLeaks.periods, outlook, forecast, current }),
   );
-  await alertsAfterRecompute(ds, unit.organisationId, unitId);
+  // The figures are stored: a failed alert run must not fail (and repeat) the recompute; the hourly check sends what it missed.
+  await alertsAfterRecompute(ds, unit.organisationId, unitId).catch(() => undefined);
   return { samples: total, days: dayCount, cycles };
 }
