@@ -63,6 +63,23 @@ const WRITTEN: [string, Record<string, unknown> | null][] = [
   ['case.approved', { title: 'Spring outage 2026', from: 'submitted', to: 'approved' }],
   ['case.returned', { title: 'Spring outage 2026', from: 'submitted', to: 'returned', reason: 'Use the 2025 fuel price' }],
   ['case.archived', { title: 'Spring outage 2026', from: 'approved', to: 'archived' }],
+  ['organisation.status-words-changed', { words: ['Bad', 'Scan Off'] }],
+  [
+    'outage.created',
+    { name: 'Spring 2027', units: ['Larchmoor Station Unit 2'], startDate: '2027-04-05', endDate: '2027-04-18', budget: '150000.00', currency: 'USD' },
+  ],
+  ['outage.changed', { name: 'Spring 2027', changes: { budget: { from: '150000.00', to: '160000.00' } } }],
+  ['outage.deleted', { name: 'Spring 2027', status: 'approved', units: [], items: [] }],
+  ['outage.item-added', { outage: 'Spring 2027', itemId: 'i1', title: 'Plug flagged tubes', kind: 'tube-plugging', cost: '18000.00', lane: 'Waterbox crew' }],
+  ['outage.item-changed', { outage: 'Spring 2027', itemId: 'i1', title: 'Plug flagged tubes', changes: { cost: { from: 1, to: 2 } } }],
+  ['outage.item-removed', { outage: 'Spring 2027', itemId: 'i1', title: 'Plug flagged tubes', noLongerNeededBy: [] }],
+  ['outage.optimised', { name: 'Spring 2027', items: 4, chosen: ['Plug flagged tubes'], totalBenefit: 35000, totalCost: 18000, feasible: true }],
+  ['outage.scope-saved', { outage: 'Spring 2027', scope: 'Tubes only', replaced: false, items: ['Plug flagged tubes'] }],
+  ['outage.approved', { name: 'Spring 2027', scope: 'Tubes only', items: ['Plug flagged tubes'], totalBenefit: 35000, totalCost: 18000, currency: 'USD' }],
+  [
+    'outage.unit-removed',
+    { outage: 'Spring 2027', reason: 'unit deleted', units: [{ id: 'u2', name: 'Unit 2' }], itemsRemoved: [{ id: 'i1', title: 'Plug flagged tubes' }] },
+  ],
 ];
 
 describe('audit log entries as sentences', () => {
@@ -103,6 +120,20 @@ describe('audit log entries as sentences', () => {
       expect(s, action).not.toMatch(/[0-9a-f]{8}-[0-9a-f]{4}|[{}[\]]|undefined|null/);
       expect(s, action).toMatch(/^Priya Ramanathan [a-z].*\.$/);
     }
+  });
+
+  it('outage entries name the outage and what was done to it, never a vague "changed something"', () => {
+    for (const [action, details] of WRITTEN.filter(([a]) => a.startsWith('outage.'))) {
+      const s = auditSentence(entry(action, details), names);
+      expect(s, action).toContain('“Spring 2027”');
+      expect(s, action).not.toMatch(/changed something/);
+    }
+    expect(auditSentence(entry('outage.approved', WRITTEN.find(([a]) => a === 'outage.approved')![1]), names)).toBe(
+      'Priya Ramanathan approved the scope “Tubes only” of the outage “Spring 2027”: 1 item, cost $18,000, benefit $35,000.',
+    );
+    expect(auditSentence(entry('organisation.status-words-changed', { words: ['Bad', 'Scan Off'] }), names)).toBe(
+      'Priya Ramanathan set the organisation’s historian status words to “Bad”, “Scan Off”.',
+    );
   });
 
   it('an entry without a person is told as the product’s own doing, and a person since removed is not left blank', () => {

@@ -1,5 +1,5 @@
 import type { AuditEventView } from '@shared/schemas/accounts';
-import { formatDay, ROLE_LABELS } from '@frontend/lib/format';
+import { formatCurrency, formatDay, ROLE_LABELS } from '@frontend/lib/format';
 
 /** Names the log's ids stand for, from lists the page already reads; an id not found (a record since deleted) is said in words. */
 export interface AuditNames {
@@ -19,6 +19,7 @@ export const AUDIT_AREAS: { prefix: string; label: string }[] = [
   { prefix: 'event.', label: 'Events' },
   { prefix: 'cleaning-method.', label: 'Cleaning methods' },
   { prefix: 'case.', label: 'Cleaning cases' },
+  { prefix: 'outage.', label: 'Outages' },
   { prefix: 'member.', label: 'Members' },
   { prefix: 'invitation.', label: 'Invitations' },
   { prefix: 'client-group.', label: 'Client groups' },
@@ -49,6 +50,63 @@ function groupsText(ids: unknown, names: AuditNames): string {
   if (!Array.isArray(ids) || ids.length === 0) return 'none';
   const named = ids.map((id) => names.groups.get(String(id)) ?? 'a client group since deleted');
   return `only ${named.join(', ')}`;
+}
+
+const titles = (v: unknown): string[] =>
+  Array.isArray(v) ? v.map((x) => (typeof x === 'string' ? x : text(record(x).title))).filter((x): x is string => !!x) : [];
+const count = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+const amount = (v: unknown, currency: unknown): string | null => {
+  const n = typeof v === 'number' ? v : typeof v === 'string' ? Number(v) : Number.NaN;
+  return Number.isFinite(n) ? formatCurrency(n, text(currency) ?? 'USD') : null;
+};
+const OUTAGE_CHANGE_WORDS: Record<string, string> = { name: 'its name', window: 'its window', budget: 'its budget', units: 'its units' };
+const ITEM_CHANGE_WORDS: Record<string, string> = {
+  title: 'title',
+  cost: 'cost',
+  durationDays: 'days',
+  lane: 'lane',
+  benefit: 'benefit',
+  needs: 'needs',
+  forced: 'in or out by hand',
+};
+const changedWords = (changes: unknown, words: Record<string, string>): string => {
+  const keys = Object.keys(record(changes)).map((k) => words[k] ?? 'a detail');
+  return keys.length ? ` (${[...new Set(keys)].join(', ')})` : '';
+};
+
+/** The outage's own entries: the outage by name and what was done, with figures where they were recorded. */
+function outageHappened(e: AuditEventView, d: Details): string | null {
+  const outage = quoted(d.outage ?? d.name, 'an outage');
+  const item = quoted(d.title, 'an item');
+  const figures = (items: unknown) => {
+    const cost = amount(d.totalCost, d.currency);
+    const benefit = amount(d.totalBenefit, d.currency);
+    return `: ${count(titles(items).length, 'item', 'items')}${cost ? `, cost ${cost}` : ''}${benefit ? `, benefit ${benefit}` : ''}`;
+  };
+  switch (e.action) {
+    case 'outage.created':
+      return `planned the outage ${outage}${text(d.startDate) && text(d.endDate) ? ` from ${formatDay(String(d.startDate))} to ${formatDay(String(d.endDate))}` : ''}`;
+    case 'outage.changed':
+      return `changed the outage ${outage}${changedWords(d.changes, OUTAGE_CHANGE_WORDS)}`;
+    case 'outage.deleted':
+      return `deleted the ${d.status === 'approved' ? 'approved ' : ''}outage ${outage}`;
+    case 'outage.item-added':
+      return `added ${item} to the outage ${outage}`;
+    case 'outage.item-changed':
+      return `changed ${item} in the outage ${outage}${changedWords(d.changes, ITEM_CHANGE_WORDS)}`;
+    case 'outage.item-removed':
+      return `removed ${item} from the outage ${outage}`;
+    case 'outage.optimised':
+      return `proposed a scope for the outage ${outage}${figures(d.chosen)}`;
+    case 'outage.scope-saved':
+      return `${d.replaced ? 'replaced' : 'saved'} the scope ${quoted(d.scope, 'a scope')} of the outage ${outage}`;
+    case 'outage.approved':
+      return `approved the ${text(d.scope) ? `scope ${quoted(d.scope, '')} of the ` : 'proposed scope of the '}outage ${outage}${figures(d.items)}`;
+    case 'outage.unit-removed':
+      return `took ${count(Array.isArray(d.units) ? d.units.length : 0, 'unit', 'units')} and ${count(titles(d.itemsRemoved).length, 'item', 'items')} out of the outage ${outage} when ${text(d.reason) ?? 'a unit was deleted'}`;
+    default:
+      return null;
+  }
 }
 
 function unitText(id: string | null, names: AuditNames): string {
@@ -152,7 +210,15 @@ function whatHappened(e: AuditEventView, names: AuditNames): string {
       return `sent back the cleaning case ${quoted(d.title, 'a cleaning case')}${text(d.reason) ? `: ${text(d.reason)}` : ''}`;
     case 'case.archived':
       return `archived the cleaning case ${quoted(d.title, 'a cleaning case')}`;
+    case 'organisation.status-words-changed': {
+      const words = Array.isArray(d.words) ? d.words.filter((w): w is string => typeof w === 'string') : [];
+      return words.length
+        ? `set the organisation’s historian status words to ${words.map((w) => `“${w}”`).join(', ')}`
+        : 'set the organisation’s historian status words back to the standard list';
+    }
     default: {
+      const outageWords = e.action.startsWith('outage.') ? outageHappened(e, d) : null;
+      if (outageWords) return outageWords;
       const area = AUDIT_AREAS.find((a) => e.action.startsWith(a.prefix));
       return `changed something under ${area ? area.label.toLowerCase() : 'the organisation’s records'}`;
     }
