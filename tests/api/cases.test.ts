@@ -100,6 +100,8 @@ describe('cleaning cases', () => {
     await tmp?.cleanup();
   });
 
+  // The same title by the same person on one unit within seconds counts as one form sent twice (409), so each test names its own.
+  let casesMade = 0;
   const newCase = async (title = 'Clean before summer', as: TestAgent = agents.analyst): Promise<CaseView> => {
     const res = await as.post(`/api/units/${unit.id}/cases`).set(CSRF).send({ title });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
@@ -192,7 +194,7 @@ describe('cleaning cases', () => {
   }, 150_000);
 
   it('an edit recomputes the results and marks each changed input as entered, leaving the others as they were', async () => {
-    const view = await newCase();
+    const view = await newCase(`Clean before summer ${++casesMade}`);
     const inputs = { ...view.inputs, drivers: { ...view.inputs.drivers, fuelPricePerMmbtu: 4.5 }, horizonDays: 365 };
     const res = await agents.analyst.patch(`/api/cases/${view.id}`).set(CSRF).send({ inputs, title: 'Clean before summer, dearer fuel' });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
@@ -212,7 +214,7 @@ describe('cleaning cases', () => {
   });
 
   it('inputs the engine cannot calculate and bad bodies are refused with a message, leaving the case as it was', async () => {
-    const view = await newCase();
+    const view = await newCase(`Clean before summer ${++casesMade}`);
     const noTitle = await agents.analyst.post(`/api/units/${unit.id}/cases`).set(CSRF).send({});
     expect(noTitle.status).toBe(400);
     expect(JSON.stringify(noTitle.body)).toContain('Give the case a title');
