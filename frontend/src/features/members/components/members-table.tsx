@@ -43,7 +43,7 @@ export function MembersTable({
             <th className={th}>Member</th>
             <th className={th}>Role</th>
             <th className={th}>Plants</th>
-            <th className={th}>Joined</th>
+            <th className={`${th} hidden lg:table-cell`}>Joined</th>
             <th className={th}>
               <span className="sr-only">Actions</span>
             </th>
@@ -71,7 +71,7 @@ export function MembersTable({
               </td>
               <td className={td}>{ROLE_LABELS[m.role]}</td>
               <td className={`${td} ${m.clientGroupIds === null ? 'text-ink-soft' : ''}`}>{describeGroupLimit(m.clientGroupIds, groups)}</td>
-              <td className={`${td} whitespace-nowrap`}>{formatDate(m.joinedAt)}</td>
+              <td className={`${td} hidden whitespace-nowrap lg:table-cell`}>{formatDate(m.joinedAt)}</td>
               <td className={`${td} text-right`}>
                 <div className="flex flex-col items-end gap-1 lg:flex-row lg:items-start lg:justify-end lg:gap-2">
                   <Button variant="quiet" onClick={() => setEditing(m.membershipId)} aria-label={`Change access of ${m.name}`}>
