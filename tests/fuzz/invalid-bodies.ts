@@ -148,6 +148,8 @@ function setAt(value: Json, path: (string | number)[], replacement: Json | typeo
   }
   if (node === null || typeof node !== 'object') return copy;
   const last = path[path.length - 1]!;
+  // An array has only its indices to break (a key such as "length" would break the generator, not the body).
+  if (Array.isArray(node) && !/^\d+$/.test(String(last))) return copy;
   if (replacement === REMOVE) {
     if (Array.isArray(node)) node.splice(Number(last), 1);
     else delete (node as Record<string, Json>)[last];

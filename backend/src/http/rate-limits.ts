@@ -65,6 +65,8 @@ function counter(ds: DataSource, rule: Rule, clearsExpiredRows = false): Counter
 
 const hashed = (key: string) => createHash('sha256').update(key).digest('hex');
 const addressOf = (req: Request) => ipKeyGenerator(req.ip ?? '');
+/** A body field as a key part: text as it is, anything else (the schema refuses it after the limit) as nothing, never String() of a nested value. */
+const textOf = (value: unknown): string => (typeof value === 'string' ? value : '');
 /** The address a request names; anything but text (the schema refuses it after the limit) counts as none, never String() of a nested value. */
 const emailOf = (req: Request) => {
   const email: unknown = req.body?.email;
@@ -151,7 +153,7 @@ export const signUpLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, R
 /** Address and account together: nobody locks another person out of resets from elsewhere. */
 export const resetLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, RULES.reset), (req) => `${addressOf(req)}|${emailOf(req)}`);
 export const resetConfirmLimiter = (ds: DataSource) =>
-  limitEveryRequest(counter(ds, RULES.resetConfirm), (req) => `${addressOf(req)}|${String(req.body?.token ?? '')}`);
+  limitEveryRequest(counter(ds, RULES.resetConfirm), (req) => `${addressOf(req)}|${textOf(req.body?.token)}`);
 /** Per address: guessing confirmation links from one place stops there. */
 export const addressConfirmLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, RULES.addressConfirm), addressOf);
 /** Keyed by the session: another person's guesses never lock this account's owner out. */
