@@ -3,90 +3,20 @@
  * Cleancase processes does. Real OS processes (backend/src/server.ts), not two apps in one process, so nothing
  * held in a process's memory can make the checks pass. Uploads sit on a folder both processes share.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
-import path from 'node:path';
 import request from 'supertest';
 import type { DataSource } from 'typeorm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { enqueueJob } from '../../backend/src/jobs/job-queue.js';
-import type { DbConnection } from '../../backend/src/data-source.js';
 import type { GeneratingUnit } from '../../backend/src/entities/generating-unit.entity.js';
-import { freePort } from '../../scripts/lib/free-port.js';
+import { startAppProcess, stopAppProcess, until, type AppProcess } from '../faults/app-process.js';
 import { createTenant, CSRF, TEST_PASSWORD, type TenantFixture } from '../factories/accounts.js';
 import { createPlant, createUnit } from '../factories/units.js';
 import { makeTempDir, physicalHistory, writeHistorianCsv } from '../helpers/historian-files.js';
 import { migratedDataSource } from '../helpers/test-database.js';
 import { TEST_CONDENSER, TEST_TURBINE } from '../factories/units.js';
 
-const ROOT = path.resolve(import.meta.dirname, '..', '..');
 /** Failed sign-ins per account before it is locked (backend/src/http/rate-limits.ts, RULES.signInAccount). */
 const ACCOUNT_FAILURES = 10;
-
-interface AppProcess {
-  url: string;
-  child: ChildProcess;
-  output: () => string;
-}
-
-async function startProcess(db: DbConnection, uploadDir: string): Promise<AppProcess> {
-  const port = await freePort();
-  const sinkPort = await freePort();
-  const env = {
-    PATH: process.env.PATH ?? '',
-    NODE_ENV: 'test',
-    HOST: '127.0.0.1',
-    PORT: String(port),
-    SMTP_SINK_PORT: String(sinkPort),
-    DB_HOST: db.host,
-    DB_PORT: String(db.port),
-    DB_NAME: db.database,
-    DB_USER: db.user,
-    DB_PASSWORD: db.password,
-    DEMO_DATA: 'none',
-    JOB_WORKER: 'on',
-    LOG_LEVEL: 'warn',
-    UPLOAD_DIR: uploadDir,
-    FRONTEND_DIST_DIR: path.join(uploadDir, 'no-front-end'),
-  };
-  const child = spawn(process.execPath, ['--import', 'tsx', 'backend/src/server.ts'], { cwd: ROOT, env, stdio: ['ignore', 'pipe', 'pipe'] });
-  let output = '';
-  child.stdout?.on('data', (b: Buffer) => (output += b.toString()));
-  child.stderr?.on('data', (b: Buffer) => (output += b.toString()));
-  await new Promise<void>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`the app process did not start in 60 s:\n${output}`)), 60_000);
-    const check = () => {
-      if (output.includes('Cleancase is serving on')) {
-        clearTimeout(timer);
-        resolve();
-      }
-    };
-    child.stdout?.on('data', check);
-    child.once('exit', (code) => {
-      clearTimeout(timer);
-      reject(new Error(`the app process ended (${code}) before serving:\n${output}`));
-    });
-  });
-  return { url: `http://127.0.0.1:${port}`, child, output: () => output };
-}
-
-async function stopProcess(p: AppProcess | undefined): Promise<void> {
-  if (!p || p.child.exitCode !== null) return;
-  const exited = new Promise<void>((resolve) => p.child.once('exit', () => resolve()));
-  p.child.kill('SIGTERM');
-  const timer = setTimeout(() => p.child.kill('SIGKILL'), 10_000);
-  await exited;
-  clearTimeout(timer);
-}
-
-async function until<T>(what: string, read: () => Promise<T>, done: (v: T) => boolean, timeoutMs = 90_000): Promise<T> {
-  const end = Date.now() + timeoutMs;
-  for (;;) {
-    const v = await read();
-    if (done(v)) return v;
-    if (Date.now() > end) throw new Error(`${what}: still not there after ${timeoutMs / 1000} s (last: ${JSON.stringify(v)})`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
-}
 
 /** The session cookie a sign-in sets, as a Cookie header. */
 async function signIn(url: string, email: string, password = TEST_PASSWORD): Promise<request.Response> {
@@ -111,11 +41,11 @@ describe('two app processes and two job workers on one MariaDB', { timeout: 180_
     ds = made.dataSource;
     tenant = await createTenant(ds, 'two-processes');
     tmp = await makeTempDir();
-    [a, b] = await Promise.all([startProcess(made.connection, tmp.file('uploads')), startProcess(made.connection, tmp.file('uploads'))]);
+    [a, b] = await Promise.all([startAppProcess(made.connection, tmp.file('uploads')), startAppProcess(made.connection, tmp.file('uploads'))]);
   }, 150_000);
 
   afterAll(async () => {
-    await Promise.all([stopProcess(a), stopProcess(b)]);
+    await Promise.all([stopAppProcess(a), stopAppProcess(b)]);
     await ds?.destroy();
     await tmp?.cleanup();
   });
@@ -155,6 +85,7 @@ describe('two app processes and two job workers on one MariaDB', { timeout: 180_
       'the recompute jobs of six units',
       () => ds.query<{ unitId: string; status: string; attempts: number }[]>(`SELECT unitId, status, attempts FROM background_job WHERE unitId IN (?)`, [ids]),
       (rows) => rows.length === 6 && rows.every((r) => r.status === 'done' || r.status === 'failed'),
+      90_000,
     );
     expect(jobs.map((j) => [j.status, j.attempts])).toEqual(Array.from({ length: 6 }, () => ['done', 1]));
   });
