@@ -2,28 +2,18 @@
 import type { DataSource } from 'typeorm';
 import { Organisation } from '../../entities/organisation.entity.js';
 import type { TenantScope } from '../../policies/tenant-scope.js';
+import { REPORT_CONTENT_TYPES, reportFileName, type ReportFileKind } from '../../reports/report-file-name.js';
 import { renderCasePdf, renderCaseXlsx } from '../../reports/case-report/index.js';
 import { caseInScope } from './case-access.js';
 import { commentsOfCase } from './case-comments.js';
 import { caseViewOf } from './case-view.js';
 
-export type CaseFileKind = 'pdf' | 'xlsx';
+export type CaseFileKind = ReportFileKind;
 
-const CONTENT_TYPES: Record<CaseFileKind, string> = {
-  pdf: 'application/pdf',
-  xlsx: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
-};
+const CONTENT_TYPES = REPORT_CONTENT_TYPES;
 
-/** A file name in plain ASCII letters, digits and hyphens (safe in a Content-Disposition header on every system). */
 export function caseFileName(title: string, id: string, kind: CaseFileKind): string {
-  const slug = title
-    .normalize('NFKD')
-    .replace(/[^A-Za-z0-9]+/g, '-')
-    .replace(/^-+|-+$/g, '')
-    .slice(0, 60)
-    .replace(/-+$/, '')
-    .toLowerCase();
-  return `cleaning-case-${slug || 'untitled'}-${id.slice(0, 8)}.${kind}`;
+  return reportFileName('cleaning-case', title, id, kind);
 }
 
 export async function caseFile(

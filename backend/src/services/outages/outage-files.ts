@@ -2,27 +2,17 @@
 import type { DataSource } from 'typeorm';
 import { Organisation } from '../../entities/organisation.entity.js';
 import type { TenantScope } from '../../policies/tenant-scope.js';
+import { REPORT_CONTENT_TYPES, reportFileName, type ReportFileKind } from '../../reports/report-file-name.js';
 import { renderOutagePdf, renderOutageXlsx } from '../../reports/outage-report/index.js';
 import { outageInScope } from './outage-access.js';
 import { outageViewOf } from './outage-view.js';
 
-export type OutageFileKind = 'pdf' | 'xlsx';
+export type OutageFileKind = ReportFileKind;
 
-const CONTENT_TYPES: Record<OutageFileKind, string> = {
-  pdf: 'application/pdf',
-  xlsx: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
-};
+const CONTENT_TYPES = REPORT_CONTENT_TYPES;
 
-/** A file name in plain ASCII letters, digits and hyphens (safe in a Content-Disposition header). */
 export function outageFileName(name: string, id: string, kind: OutageFileKind): string {
-  const slug = name
-    .normalize('NFKD')
-    .replace(/[^A-Za-z0-9]+/g, '-')
-    .replace(/^-+|-+$/g, '')
-    .slice(0, 60)
-    .replace(/-+$/, '')
-    .toLowerCase();
-  return `outage-${slug || 'untitled'}-${id.slice(0, 8)}.${kind}`;
+  return reportFileName('outage', name, id, kind);
 }
 
 export async function outageFile(
