@@ -38,6 +38,8 @@ const RULES = {
    * minute at most (what-ifs run in the browser); 60 in 10 minutes leaves room for that and stops a loop.
    */
   caseWrite: { name: 'case-write', what: 'case calculations (new cases, edits and copies)', points: 60, windowMs: 10 * MINUTE },
+  /** Scope proposals: the optimiser may take about a second on adversarial figures; a planner asks a few times a minute. */
+  outageProposal: { name: 'outage-proposal', what: 'outage proposals', points: 60, windowMs: 10 * MINUTE },
 } satisfies Record<string, Rule>;
 
 type Counter = { rule: Rule; limiter: () => RateLimiterMySQL };
@@ -165,3 +167,6 @@ export const inviteLimiter = (ds: DataSource) => limitEveryRequest(counter(ds, R
  */
 export const caseWriteLimiter = (ds: DataSource) =>
   limitEveryRequest(counter(ds, RULES.caseWrite), (req) => `member:${req.actor?.user.id ?? req.sessionID ?? ''}`);
+/** Per member, like case calculations: a loop of proposals cannot hold the server's calculation time. */
+export const outageProposalLimiter = (ds: DataSource) =>
+  limitEveryRequest(counter(ds, RULES.outageProposal), (req) => `member:${req.actor?.user.id ?? req.sessionID ?? ''}`);

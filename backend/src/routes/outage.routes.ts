@@ -25,6 +25,7 @@ import { editOutage } from '../services/outages/edit-outage.js';
 import { getOutage } from '../services/outages/get-outage.js';
 import { listOutages } from '../services/outages/list-outages.js';
 import { optimiseOutage } from '../services/outages/optimise-outage.js';
+import { outageProposalLimiter } from '../http/rate-limits.js';
 import { outageFile, type OutageFileKind } from '../services/outages/outage-files.js';
 import { saveScope } from '../services/outages/save-scope.js';
 
@@ -134,6 +135,7 @@ export function outageRoutes(ds: DataSource): RouteSpec[] {
       access: 'outages.plan',
       tenantScoped: true,
       response: optimiseResponse,
+      before: [outageProposalLimiter(ds)],
       description:
         'Propose the items with the most value (benefit less cost) within the budget and, lane by lane, the window, honouring forced items and needs; one sentence per item says why',
       handler: async (req, res) => res.json(await optimiseOutage(ds, scopeOf(req.actor), idParam(req))),
