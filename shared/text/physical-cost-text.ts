@@ -1,0 +1,47 @@
+/**
+ * The MW and t CO2 behind a cost, in words for beside the money (screens and reports alike). Zero and negative
+ * figures say what they mean; a figure that rounds to nothing reads "under 0.1", never "0 MW" or "−0 MW".
+ */
+import type { PhysicalCost } from '../domain/turbine/physical-cost.js';
+import { formatNumber, formatPercent } from './display-format.js';
+
+/** One decimal below 10, whole units with grouped thousands from 10 on; "under 0.1" for less. */
+export function formatQuantity(value: number): string {
+  const v = Math.abs(value);
+  if (v < 0.05) return 'under 0.1';
+  return formatNumber(v, v < 9.95 ? 1 : 0);
+}
+
+export interface PhysicalCostWords {
+  /** the output lost (or gained) in the capacity-limited hours */
+  output: string;
+  /** the CO2 of the extra (or saved) fuel in the other hours; null when the output line already says why nothing is shown */
+  co2: string | null;
+}
+
+/**
+ * @param per how the CO2 figure is counted, e.g. "a day" or "since the last cleaning"; with `p.lostMw` the output is
+ * a rate in MW, without it the MWh over the same period
+ */
+export function physicalCostWords(p: PhysicalCost | null, capacityLimitedShare: number, per: string): PhysicalCostWords {
+  if (!p) return { output: 'MW and t CO2 not shown: the unit’s prices give no value to a MWh', co2: null };
+  if (p.penaltyMwh === 0) return { output: 'no output lost', co2: 'no extra CO2' };
+  const better = p.penaltyMwh < 0;
+  const share = formatPercent(capacityLimitedShare, 0);
+  const amount = p.lostMw !== null ? `${formatQuantity(p.lostMw)} MW` : `${formatQuantity(p.lostMwh)} MWh`;
+  const output =
+    capacityLimitedShare <= 0
+      ? 'no output lost: load is held with extra fuel in every hour'
+      : better
+        ? `${amount} more output than at the reference cleanliness, in capacity-limited hours`
+        : p.lostMw !== null
+          ? `${amount} less output in the ${share} of hours the unit is capacity-limited`
+          : `${amount} of output lost in the ${share} of hours the unit is capacity-limited`;
+  const co2 =
+    capacityLimitedShare >= 1
+      ? 'no extra fuel: the unit is capacity-limited in every hour'
+      : better
+        ? `${formatQuantity(p.co2Tonnes)} t CO2 ${per} less than at the reference cleanliness`
+        : `${formatQuantity(p.co2Tonnes)} t CO2 ${per} from extra fuel${capacityLimitedShare > 0 ? ' in the other hours' : ''}`;
+  return { output, co2 };
+}
