@@ -21,8 +21,8 @@ export interface AppProcess {
   output: () => string;
 }
 
-/** One app process with its job worker, serving on a free port. */
-export async function startAppProcess(db: DbConnection, uploadDir: string): Promise<AppProcess> {
+/** One app process with its job worker, serving on a free port; `extraEnv` adds settings (for example STRIPE_API_BASE). */
+export async function startAppProcess(db: DbConnection, uploadDir: string, extraEnv: Record<string, string> = {}): Promise<AppProcess> {
   const port = await freePort();
   const env = {
     PATH: process.env.PATH ?? '',
@@ -40,6 +40,7 @@ export async function startAppProcess(db: DbConnection, uploadDir: string): Prom
     LOG_LEVEL: 'warn',
     UPLOAD_DIR: uploadDir,
     FRONTEND_DIST_DIR: path.join(uploadDir, 'no-front-end'),
+    ...extraEnv,
   };
   const child = spawn(process.execPath, ['--import', 'tsx', 'backend/src/server.ts'], { cwd: ROOT, env, stdio: ['ignore', 'pipe', 'pipe'] });
   let output = '';
