@@ -2,6 +2,9 @@ import { z } from 'zod';
 import { REJECTION_REASONS, type RejectionReason } from '../domain/validity/rejection-reasons.js';
 import { ALIGNMENT_RULES, IMPORT_QUANTITY_UNITS, type ImportMappingInput } from './import-mapping.js';
 
+/** Files of one tag each imported together (uploaded side by side, or in one ZIP), at most. */
+export const MAX_TAG_FILES = 20;
+
 /** An import's life: mapping → checking → (rejected | importing → complete | failed); a complete one can be undone. */
 export const IMPORT_STATUSES = ['mapping', 'checking', 'rejected', 'importing', 'complete', 'failed', 'undone'] as const;
 export type ImportStatus = (typeof IMPORT_STATUSES)[number];

@@ -8,6 +8,7 @@ import { ImportFileError } from './import-errors.js';
 import { checkImportFile, unitWarnings, type ImportCheck } from './parse-rows.js';
 import { cwFlowToM3s, pressureToKpa, temperatureToC } from './quantity-conversion.js';
 import { F, RECORD_FIELDS, compileMapping } from './row-conversion.js';
+import { isTagFilesFolder, tagFilesSource } from './per-tag-files.js';
 import { alignTallSamples, tallTableSource, type AlignmentSummary, type SampleSource } from './tall-alignment.js';
 
 export interface PreparedFile {
@@ -65,6 +66,10 @@ export function describeAlignment(a: AlignmentSummary): string[] {
 /** Checks the file in whatever shape the mapping says; `prepared` (when the check passed) is what the store reads. */
 export async function checkAnyShape(storedPath: string, options: PrepareOptions): Promise<{ check: ImportCheck; prepared: PreparedFile | null }> {
   const parsed = importMappingSchema.safeParse(options.mapping);
+  if (parsed.success && !parsed.data.tall && (await isTagFilesFolder(storedPath))) {
+    const message = 'files of one tag each are mapped tag by tag on a time grid: choose the grid and map the tags';
+    return { check: { ...emptyCheck(), fileError: { code: 'bad-mapping', message } }, prepared: null };
+  }
   if (!parsed.success || !parsed.data.tall) {
     const check = await checkImportFile(storedPath, { mapping: options.mapping, statusWords: options.statusWords, maxErrors: options.maxErrors });
     const prepared = check.ok
@@ -75,7 +80,9 @@ export async function checkAnyShape(storedPath: string, options: PrepareOptions)
   const mapping = parsed.data;
   let tall;
   try {
-    tall = await alignTallSamples(options.source ?? tallTableSource(storedPath, mapping, mapping.sheet), mapping, options);
+    const source =
+      options.source ?? ((await isTagFilesFolder(storedPath)) ? tagFilesSource(storedPath, mapping) : tallTableSource(storedPath, mapping, mapping.sheet));
+    tall = await alignTallSamples(source, mapping, options);
   } catch (e) {
     if (!(e instanceof ImportFileError)) throw e;
     return { check: { ...emptyCheck(), fileError: { code: e.code, message: e.message, ...(e.line !== undefined ? { line: e.line } : {}) } }, prepared: null };

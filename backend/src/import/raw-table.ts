@@ -58,6 +58,8 @@ export function locateHeader(records: string[][]): { headerIndex: number; dataIn
     if (named.length < 2 || named.length < Math.ceil(0.6 * modal)) continue;
     // a title line giving the export's time range ("From", "2024-01-01 00:00") names no columns
     if (named.some(looksLikeDateTime)) continue;
+    // nor does one naming the tag of a one-tag file ("Tag,U1.GEN.MW") above the file's own header row
+    if (named.length === 2 && TAG_LABEL.test(cells[0]!) && i + 1 < records.length && looksLikeHeaderRow(records[i + 1]!)) continue;
     const numeric = named.filter(looksNumeric).length;
     if (numeric > named.length / 2) return null;
     const headers = cells.map((c, k) => c || `(column ${k + 1})`);
@@ -103,6 +105,12 @@ export async function readHeaderBlock(
   }
   return { head, located, buffered };
 }
+
+const TAG_LABEL = /^(tag|tag ?name|tagname|point|point ?name|signal|item)\s*:?$/i;
+const looksLikeHeaderRow = (cells: string[]): boolean => {
+  const named = cells.map((c) => c.trim()).filter(Boolean);
+  return named.length >= 2 && !named.some((c) => looksNumeric(c) || looksLikeDateTime(c));
+};
 
 export const looksLikeDateTime = (cell: string): boolean => /^\d{1,4}[-/.]\d{1,2}[-/.]\d{1,4}/.test(cell.trim());
 

@@ -2,12 +2,15 @@
  * The demo generator writes every historian shape of the same hours (wide, tall with a quality column, title lines
  * with a two-row header), with status words in about 2 % of the value cells; each imports to the same samples.
  */
-import { readFile } from 'node:fs/promises';
+import { readFile, rename } from 'node:fs/promises';
+import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { surveyTagFiles } from '@backend/import/per-tag-files.js';
 import { checkAnyShape } from '@backend/import/prepare-file.js';
 import { importSamples, type ImportSample } from '@backend/import/parse-rows.js';
 import {
   DEMO_SHAPE_MAPPINGS,
+  DEMO_TAGS,
   demoCells,
   writeDemoPerTagCsvs,
   writeDemoTallCsv,
@@ -70,6 +73,21 @@ describe('the demo generator’s historian shapes', () => {
     expect(wide.filter((s) => s.validity === 'instrument-status').length).toBeGreaterThan(0);
     expect(await stored(await writeDemoTallCsv(HOURS, tmp.file('tall.csv')), DEMO_SHAPE_MAPPINGS.tall)).toEqual(wide);
     expect(await stored(await writeDemoTitledCsv(HOURS, tmp.file('titled.csv')), DEMO_SHAPE_MAPPINGS.titled)).toEqual(wide);
+  });
+
+  it('writes one file per tag whose offset times import to the same samples as the wide file', async () => {
+    const wide = await stored(await writeDemoWideCsv(HOURS, tmp.file('wide-for-tags.csv')), DEMO_SHAPE_MAPPINGS.wide);
+    const folder = tmp.file('per-tag-upload');
+    const files = await writeDemoPerTagCsvs(HOURS, folder);
+    const uploaded = await Promise.all(
+      files.map(async (f, k) => {
+        const numbered = path.join(folder, `${k + 1}.upload`);
+        await rename(f, numbered);
+        return { name: path.basename(f), path: numbered, bytes: 1 };
+      }),
+    );
+    expect((await surveyTagFiles(folder, uploaded)).map((e) => e.tag)).toEqual([...DEMO_TAGS]);
+    expect(await stored(folder, DEMO_SHAPE_MAPPINGS.perTag)).toEqual(wide);
   });
 
   it('writes one file per tag with its times off the hour', async () => {

@@ -136,4 +136,10 @@ export const DEMO_SHAPE_MAPPINGS = {
     quality: { column: 'Quality', goodValues: ['Good'] },
     tall: { tagColumn: 'Tag', valueColumn: 'Value', gridMinutes: 60, rule: 'nearest', toleranceMinutes: 5 },
   },
+  /** The one-tag files read together: their columns are those of backend/src/import/per-tag-files.ts. */
+  perTag: {
+    timestamp: { column: 'Timestamp', format: 'iso-8601-offset' },
+    columns: Object.fromEntries(MAPPED.map(([q, unit], k) => [q, { column: DEMO_TAGS[k], unit }])),
+    tall: { tagColumn: 'Tag', valueColumn: 'Value', gridMinutes: 60, rule: 'nearest', toleranceMinutes: 5 },
+  },
 } as const satisfies Record<string, ImportMappingInput>;
