@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { airLeakPeriod, cleaningOutlook, fittedCycle, unfittedCycle } from './unit-analysis.js';
 import { unitEventView } from './unit-event.js';
+import { physicalCostPair } from './physical-cost.js';
 
 const isoDate = z.iso.date('Use a date like 2026-05-14');
 
@@ -55,6 +56,9 @@ export const healthDay = z
     foulingCost: num,
     unexplainedCost: num,
     cumulativeFoulingCost: z.number(),
+    /** the CO2 of the extra fuel and the output lost that the day's fouling cost stands for (physical-cost.ts) */
+    foulingCo2Tonnes: num,
+    foulingLostMwh: num,
     airLeakSuspected: z.boolean(),
   })
   .strict();
@@ -68,6 +72,9 @@ export const breakdownBar = z
     meanExcessBackpressureKpa: num,
     foulingCost: z.number(),
     unexplainedCost: z.number(),
+    /** the CO2 and lost output behind the period's fouling cost (null without economics) */
+    foulingCo2Tonnes: num,
+    foulingLostMwh: num,
   })
   .strict();
 export type BreakdownBar = z.infer<typeof breakdownBar>;
@@ -88,6 +95,8 @@ export const healthHeadline = z
     nextCleaning: cleaningOutlook.nullable(),
     averagingNote: z.string(),
     costBasis: z.string().nullable(),
+    /** the MW and t CO2 behind the fouling cost per day and since the last cleaning (null without economics) */
+    foulingPhysical: physicalCostPair.nullable(),
   })
   .strict();
 export type HealthHeadline = z.infer<typeof healthHeadline>;

@@ -7,6 +7,7 @@ import { z } from 'zod';
 import { CASE_STATUSES } from './cases.js';
 import { UNIT_CONDITION_KINDS } from '../domain/portfolio/unit-conditions.js';
 import { UNIT_DURING_CLEANING } from './cleaning-method.js';
+import { physicalCostPair } from './physical-cost.js';
 
 const isoDate = z.iso.date();
 const num = z.number().nullable();
@@ -31,6 +32,8 @@ export const portfolioUnit = z
     excessBackpressureKpa: num,
     foulingCostPerDay: num,
     foulingCostSinceCleaning: num,
+    /** the MW and t CO2 behind the fouling cost per day and since the last cleaning (null without economics; always sent) */
+    foulingPhysical: physicalCostPair.nullable().optional(),
     lastCleaningDate: isoDate.nullable(),
     /** the cleaning outlook's first cleaning; null when it plans none or is not available */
     nextCleaning: z

@@ -45,3 +45,20 @@ export function physicalCostWords(p: PhysicalCost | null, capacityLimitedShare: 
         : `${formatQuantity(p.co2Tonnes)} t CO2 ${per} from extra fuel${capacityLimitedShare > 0 ? ' in the other hours' : ''}`;
   return { output, co2 };
 }
+
+/**
+ * The same quantities short enough for a table cell: "10 MW lost when capacity-limited · 90 t CO2 a day". Null when
+ * the quantities cannot be told (the long words say why).
+ */
+export function physicalCostShort(p: PhysicalCost | null, capacityLimitedShare: number, per: string): string | null {
+  if (!p) return null;
+  if (p.penaltyMwh === 0) return 'no MW or CO2 lost';
+  const better = p.penaltyMwh < 0;
+  const parts: string[] = [];
+  if (capacityLimitedShare > 0) {
+    const amount = p.lostMw !== null ? `${formatQuantity(p.lostMw)} MW` : `${formatQuantity(p.lostMwh)} MWh`;
+    parts.push(`${amount} ${better ? 'gained' : 'lost'} when capacity-limited`);
+  }
+  if (capacityLimitedShare < 1) parts.push(`${formatQuantity(p.co2Tonnes)} t CO2 ${per}${better ? ' less' : ''}`);
+  return parts.join(' · ');
+}

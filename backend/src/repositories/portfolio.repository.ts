@@ -30,6 +30,8 @@ export interface PortfolioUnitRow {
   currency: unknown;
   referenceCleanliness: unknown;
   designCleanliness: unknown;
+  /** the heat rate and prices that turn a cost back into MW and t CO2 (physical-cost.ts), each unknown until checked */
+  physicalBasis: Record<string, unknown>;
   current: unknown;
   outlook: unknown;
 }
@@ -52,7 +54,10 @@ export async function portfolioUnitsInScope(em: EntityManager, scope: TenantScop
     // The setup's small parts through MariaDB's JSON functions; the stored analysis (~15 kB) whole: parsing it
     // here is several times cheaper than MariaDB's JSON functions reading its parts one path at a time.
     .addSelect(
-      "JSON_OBJECT('currency', JSON_EXTRACT(u.economics, '$.currency'), 'referenceCleanliness', JSON_EXTRACT(u.condenser, '$.referenceCleanliness'), 'designCleanliness', JSON_EXTRACT(u.condenser, '$.designCleanliness'))",
+      "JSON_OBJECT('currency', JSON_EXTRACT(u.economics, '$.currency'), 'referenceCleanliness', JSON_EXTRACT(u.condenser, '$.referenceCleanliness'), 'designCleanliness', JSON_EXTRACT(u.condenser, '$.designCleanliness'), " +
+        "'heatRateBtuKwh', JSON_EXTRACT(u.turbine, '$.designHeatRateBtuKwh'), 'fuelPricePerMmbtu', JSON_EXTRACT(u.economics, '$.fuelPricePerMmbtu'), " +
+        "'co2KgPerMmbtu', JSON_EXTRACT(u.economics, '$.co2KgPerMmbtu'), 'co2PricePerTonne', JSON_EXTRACT(u.economics, '$.co2PricePerTonne'), " +
+        "'replacementPricePerMwh', JSON_EXTRACT(u.economics, '$.replacementPricePerMwh'), 'capacityLimitedShare', JSON_EXTRACT(u.economics, '$.capacityLimitedShare'))",
       'parts',
     )
     .addSelect('u.analysis', 'analysis');
@@ -78,6 +83,14 @@ export async function portfolioUnitsInScope(em: EntityManager, scope: TenantScop
       analysed: r.analysis !== null && r.analysis !== undefined,
       currency: parts.currency ?? null,
       referenceCleanliness: parts.referenceCleanliness ?? null,
+      physicalBasis: {
+        heatRateBtuKwh: parts.heatRateBtuKwh,
+        fuelPricePerMmbtu: parts.fuelPricePerMmbtu,
+        co2KgPerMmbtu: parts.co2KgPerMmbtu,
+        co2PricePerTonne: parts.co2PricePerTonne,
+        replacementPricePerMwh: parts.replacementPricePerMwh,
+        capacityLimitedShare: parts.capacityLimitedShare,
+      },
       designCleanliness: parts.designCleanliness ?? null,
       current: analysis.current ?? null,
       outlook: outlook && {

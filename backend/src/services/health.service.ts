@@ -9,6 +9,7 @@ import { addDays } from '@shared/domain/calendar/plant-date.js';
 import { plantDayFormatter } from '@shared/domain/calendar/plant-day.js';
 import { lttbKeepingGaps } from '@shared/domain/monitoring/index.js';
 import { MAX_SERIES_POINTS } from '@shared/limits.js';
+import { physicalCost, type PhysicalCostBasis } from '@shared/domain/turbine/physical-cost.js';
 import {
   BREAKDOWN_CAUSES,
   samplesQuery,
@@ -72,6 +73,20 @@ export function breakdownByPeriod(days: DailyRow[], by: 'week' | 'month') {
     foulingCost: sum(rows.map((r) => r.foulingCost)),
     unexplainedCost: sum(rows.map((r) => r.unexplainedCost)),
   }));
+}
+
+/** The prices and heat rate that turn a cost back into MW and t CO2; null until the turbine and economics are set up. */
+export function physicalBasisOf(unit: { turbine: { designHeatRateBtuKwh: number } | null; economics: Omit<PhysicalCostBasis, 'heatRateBtuKwh'> | null }) {
+  if (!unit.turbine || !unit.economics) return null;
+  const e = unit.economics;
+  return {
+    heatRateBtuKwh: unit.turbine.designHeatRateBtuKwh,
+    fuelPricePerMmbtu: e.fuelPricePerMmbtu,
+    co2KgPerMmbtu: e.co2KgPerMmbtu,
+    co2PricePerTonne: e.co2PricePerTonne,
+    replacementPricePerMwh: e.replacementPricePerMwh,
+    capacityLimitedShare: e.capacityLimitedShare,
+  } satisfies PhysicalCostBasis;
 }
 
 /** The unit's stored analysis read with its schema; one that does not fit it (written by an older version) reads as unreadable. */
@@ -161,8 +176,11 @@ export async function computeUnitHealth(ds: DataSource, scope: TenantScope, unit
     }
   }
 
+  const basis = physicalBasisOf(unit);
+  const physical = (cost: number | null, hours?: number) => (basis ? physicalCost(cost, basis, hours) : null);
   let cumulative = 0;
   const series = period.map((d) => {
+    const p = physical(d.foulingCost);
     cumulative += d.foulingCost ?? 0;
     return {
       day: d.day,
@@ -177,6 +195,8 @@ export async function computeUnitHealth(ds: DataSource, scope: TenantScope, unit
       foulingCost: d.foulingCost,
       unexplainedCost: d.unexplainedCost,
       cumulativeFoulingCost: cumulative,
+      foulingCo2Tonnes: p?.co2Tonnes ?? null,
+      foulingLostMwh: p?.lostMwh ?? null,
       airLeakSuspected: d.airLeakSuspected,
     };
   });
@@ -190,7 +210,10 @@ export async function computeUnitHealth(ds: DataSource, scope: TenantScope, unit
         )
       : series;
 
-  const breakdown = breakdownByPeriod(period, q.breakdownBy);
+  const breakdown = breakdownByPeriod(period, q.breakdownBy).map((b) => {
+    const p = physical(b.foulingCost);
+    return { ...b, foulingCo2Tonnes: p?.co2Tonnes ?? null, foulingLostMwh: p?.lostMwh ?? null };
+  });
 
   const dropped: Record<string, number> = {};
   for (const d of period) for (const [k, v] of Object.entries(d.droppedByReason ?? {})) dropped[k] = (dropped[k] ?? 0) + v;
@@ -207,6 +230,8 @@ export async function computeUnitHealth(ds: DataSource, scope: TenantScope, unit
 
   const leaks = (analysis?.airLeakPeriods ?? []).filter((p) => (!from || p.to >= from) && (!to || p.from <= to));
   const econ = unit.economics;
+  const foulingCostPerDay = mean(lastWeek.map((d) => d.foulingCost));
+  const foulingCostSinceCleaning = sinceCleaning.length ? sum(sinceCleaning.map((d) => d.foulingCost)) : null;
   return {
     unit: {
       id: unit.id,
@@ -223,9 +248,9 @@ export async function computeUnitHealth(ds: DataSource, scope: TenantScope, unit
       referenceCleanliness: c ? (c.referenceCleanliness ?? c.designCleanliness) : null,
       designCleanliness: c?.designCleanliness ?? null,
       excessBackpressureKpa: mean(lastWeek.map((d) => d.meanExcessBackpressureKpa)),
-      foulingCostPerDay: mean(lastWeek.map((d) => d.foulingCost)),
+      foulingCostPerDay,
       unexplainedCostPerDay: mean(lastWeek.map((d) => d.unexplainedCost)),
-      foulingCostSinceCleaning: sinceCleaning.length ? sum(sinceCleaning.map((d) => d.foulingCost)) : null,
+      foulingCostSinceCleaning,
       lastCleaning: lastCleaning
         ? { date: lastCleaning.endDate ?? lastCleaning.startDate, notes: lastCleaning.notes, cleanlinessAfter: lastCleaning.cleanlinessAfter }
         : null,
@@ -234,6 +259,10 @@ export async function computeUnitHealth(ds: DataSource, scope: TenantScope, unit
       averagingNote: 'Cleanliness is the last day’s median; backpressure excess and costs are means of the last 7 days with valid data.',
       costBasis: econ
         ? `Fuel${econ.co2PricePerTonne > 0 ? ' and CO2' : ''} with load held for ${Math.round((1 - econ.capacityLimitedShare) * 100)} % of hours; replacement power with firing held for ${Math.round(econ.capacityLimitedShare * 100)} %.`
+        : null,
+      // A day's cost covers its hours of data (24 for a whole day), so the per-day figure's MW is over 24 h.
+      foulingPhysical: basis
+        ? { capacityLimitedShare: basis.capacityLimitedShare, perDay: physical(foulingCostPerDay, 24), sinceCleaning: physical(foulingCostSinceCleaning) }
         : null,
     },
     design: c

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { physicalCost, type PhysicalCostBasis } from '@shared/domain/turbine/physical-cost';
 import { penaltyCostPerHour } from '@shared/domain/turbine/penalty-cost';
-import { physicalCostWords } from '@shared/text/physical-cost-text';
+import { physicalCostShort, physicalCostWords } from '@shared/text/physical-cost-text';
 
 // Hand-computed, closed form. Value of one MWh of penalty (heat-rate equivalent):
 //   load held (1 − s of hours): HR/1000 MMBtu/MWh × (fuel price + CO2 kg/MMBtu / 1000 × CO2 price)
@@ -102,5 +102,20 @@ describe('the physical quantities in words', () => {
     const w = physicalCostWords(physicalCost(1_080_000, BASIS), 0.25, 'since the last cleaning');
     expect(w.output).toBe('6,000 MWh of output lost in the 25 % of hours the unit is capacity-limited');
     expect(w.co2).toBe('9,000 t CO2 since the last cleaning from extra fuel in the other hours');
+  });
+});
+
+describe('the physical quantities short, for a table cell', () => {
+  it('gives MW (or MWh without hours) and t CO2 with their units', () => {
+    expect(physicalCostShort(physicalCost(10_800, BASIS, 24), 0.25, 'a day')).toBe('10 MW lost when capacity-limited · 90 t CO2 a day');
+    expect(physicalCostShort(physicalCost(1_080_000, BASIS), 0.25, 'since cleaning')).toBe('6,000 MWh lost when capacity-limited · 9,000 t CO2 since cleaning');
+  });
+
+  it('leaves out what the share of hours rules out, and says what zero and negative mean', () => {
+    expect(physicalCostShort(physicalCost(4_000, { ...BASIS, capacityLimitedShare: 0 }, 24), 0, 'a day')).toBe('50 t CO2 a day'); // 100 MWh × 10 × 50 / 1000
+    expect(physicalCostShort(physicalCost(6_000, { ...BASIS, capacityLimitedShare: 1 }, 24), 1, 'a day')).toBe('4.2 MW lost when capacity-limited'); // 100 MWh / 24 h
+    expect(physicalCostShort(physicalCost(0, BASIS, 24), 0.25, 'a day')).toBe('no MW or CO2 lost');
+    expect(physicalCostShort(physicalCost(-450, BASIS, 24), 0.25, 'a day')).toBe('0.4 MW gained when capacity-limited · 3.8 t CO2 a day less');
+    expect(physicalCostShort(null, 0.25, 'a day')).toBeNull();
   });
 });

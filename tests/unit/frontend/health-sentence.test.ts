@@ -19,6 +19,7 @@ const base: HealthHeadline = {
   lastSampleUtc: '2026-11-30T23:00:00Z',
   averagingNote: '',
   costBasis: null,
+  foulingPhysical: null,
   nextCleaning: {
     status: 'planned',
     planFrom: '2026-12-02',

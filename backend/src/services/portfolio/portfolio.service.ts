@@ -9,6 +9,7 @@ import Decimal from 'decimal.js';
 import type { DataSource } from 'typeorm';
 import { addDays } from '@shared/domain/calendar/plant-date.js';
 import { plantDayOf } from '@shared/domain/calendar/plant-day.js';
+import { physicalCost, type PhysicalCostBasis } from '@shared/domain/turbine/physical-cost.js';
 import { dataAgeDays, isStale, STALE_AFTER_DAYS, unitConditions } from '@shared/domain/portfolio/unit-conditions.js';
 import { CASE_STATUSES, type CaseStatus } from '@shared/schemas/cases.js';
 import { UNIT_DURING_CLEANING } from '@shared/schemas/cleaning-method.js';
@@ -47,6 +48,26 @@ function nextCleaningOf(row: PortfolioUnitRow): Pick<PortfolioUnit, 'nextCleanin
   return { nextCleaning: null, nextCleaningNote: o.reason ?? (o.status === 'none-needed' ? 'No cleaning pays within the coming year' : 'Not available') };
 }
 
+const basisParts = z.object({
+  heatRateBtuKwh: z.number(),
+  fuelPricePerMmbtu: z.number(),
+  co2KgPerMmbtu: z.number(),
+  co2PricePerTonne: z.number(),
+  replacementPricePerMwh: z.number(),
+  capacityLimitedShare: z.number(),
+}) satisfies z.ZodType<PhysicalCostBasis>;
+
+/** The MW and t CO2 behind the stored fouling cost, as the health view computes them (a day's cost over 24 h). */
+function physicalOf(row: PortfolioUnitRow, perDay: number | null, sinceCleaning: number | null): PortfolioUnit['foulingPhysical'] {
+  const basis = basisParts.safeParse(row.physicalBasis);
+  if (!row.setupComplete || !basis.success) return null;
+  return {
+    capacityLimitedShare: basis.data.capacityLimitedShare,
+    perDay: physicalCost(perDay, basis.data, 24),
+    sinceCleaning: physicalCost(sinceCleaning, basis.data),
+  };
+}
+
 function unitView(row: PortfolioUnitRow, today: string, cases: PortfolioCaseRow[], outage: PortfolioOutageRow | null): PortfolioUnit {
   const current = storedCurrentFigures.safeParse(row.current);
   const now = current.success ? current.data : null;
@@ -73,6 +94,7 @@ function unitView(row: PortfolioUnitRow, today: string, cases: PortfolioCaseRow[
     excessBackpressureKpa: now?.excessBackpressureKpa ?? null,
     foulingCostPerDay: now?.foulingCostPerDay ?? null,
     foulingCostSinceCleaning: now?.foulingCostSinceCleaning ?? null,
+    foulingPhysical: physicalOf(row, now?.foulingCostPerDay ?? null, now?.foulingCostSinceCleaning ?? null),
     lastCleaningDate: now?.lastCleaningDate ?? null,
     ...next,
     openCases: cases.map((c) => ({ id: c.id, title: c.title, status: c.status })),

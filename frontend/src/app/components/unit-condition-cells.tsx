@@ -20,6 +20,11 @@ export function UnitConditionCells({ organisationId, unitId }: { organisationId:
       <td className={`${td} text-right tabular-nums whitespace-nowrap`} data-testid="unit-cost-per-day">
         {c.costPerDay}
         {c.costNote && <span className="block text-xs text-ink-faint">{c.costNote}</span>}
+        {c.physical && (
+          <span className="block text-xs whitespace-normal text-ink-faint" data-testid="unit-physical">
+            {c.physical}
+          </span>
+        )}
       </td>
       <td className={`${td} whitespace-nowrap`} data-testid="unit-data-age">
         <span className={c.stale ? 'text-warn' : ''}>{c.dataAge}</span>

@@ -5,6 +5,7 @@ import { costCycles } from '@frontend/lib/chart-cycles';
 import { CAUSE_STYLES, CHART_COLOURS, CHART_THEME } from '@frontend/lib/chart-palette';
 import { formatStored, type FieldUnits } from '@frontend/lib/field-units';
 import { formatCurrency, formatDay, formatMonth, formatNumber } from '@frontend/lib/format';
+import { formatQuantity } from '@shared/text/physical-cost-text';
 import type { UnitHealth } from '../api/get-health';
 import { ChartFrame, TooltipBox, type LegendItem } from './chart-frame';
 import TimeChart, { type TimeSeriesSpec } from './time-chart';
@@ -241,6 +242,15 @@ function CostChart({
   );
   const total = cycles.reduce((a, c) => a + c.cost, 0);
   const money = (v: number) => formatCurrency(v, currency);
+  // the MW and t CO2 behind each day's cost (sent with the series; null without economics)
+  const byDay = useMemo(() => new Map(health.series.map((d) => [d.day, d])), [health.series]);
+  const hasPhysical = health.headline.foulingPhysical !== null;
+  const physicalOf = (from: string, to: string) =>
+    health.series
+      .filter((d) => d.day >= from && d.day <= to)
+      .reduce((a, d) => ({ co2: a.co2 + (d.foulingCo2Tonnes ?? 0), mwh: a.mwh + (d.foulingLostMwh ?? 0) }), { co2: 0, mwh: 0 });
+  const quantity = (v: number | null | undefined, unit: string) =>
+    v === null || v === undefined ? '—' : v === 0 ? 'none' : `${v <= -0.05 ? '−' : ''}${formatQuantity(v)} ${unit}`;
   const series: TimeSeriesSpec[] = cycles.map((c, i) => ({
     id: `cycle-${i}`,
     label: c.startsAtCleaning ? `Since the cleaning on ${formatDay(c.from)}` : `Since ${formatDay(c.from)} (start of the period)`,
@@ -255,9 +265,21 @@ function CostChart({
       points={health.series.length}
       table={{
         caption: `Fouling cost by day and its running total since the cycle began (${currency})`,
-        columns: ['Day', 'Cycle from', 'Fouling cost that day', 'Running total in the cycle'],
+        columns: [
+          'Day',
+          'Cycle from',
+          'Fouling cost that day',
+          'Running total in the cycle',
+          ...(hasPhysical ? ['CO2 of the extra fuel that day', 'Output lost that day (capacity-limited hours)'] : []),
+        ],
         rows: cycles.flatMap((c) =>
-          c.running.map((r, i) => [formatDay(r.day), formatDay(c.from), money(i === 0 ? r.y : r.y - (c.running[i - 1]?.y ?? 0)), money(r.y)]),
+          c.running.map((r, i) => [
+            formatDay(r.day),
+            formatDay(c.from),
+            money(i === 0 ? r.y : r.y - (c.running[i - 1]?.y ?? 0)),
+            money(r.y),
+            ...(hasPhysical ? [quantity(byDay.get(r.day)?.foulingCo2Tonnes, 't'), quantity(byDay.get(r.day)?.foulingLostMwh, 'MWh')] : []),
+          ]),
         ),
       }}
       title="Fouling cost, cleaning cycle by cycle"
@@ -270,11 +292,19 @@ function CostChart({
               <span key={c.from} className="whitespace-nowrap">
                 {i > 0 && ' · '}
                 {formatDay(c.from)} – {formatDay(c.to)}: <span className="font-medium text-ledger-700">{money(c.cost)}</span>
+                {hasPhysical && <span className="text-ink-soft"> ({quantity(physicalOf(c.from, c.to).co2, 't CO2')})</span>}
               </span>
             ))}
           </span>
-          . Whole period: <span className="font-medium text-ledger-700">{money(total)}</span>; the unexplained part (
-          {money(health.series.reduce((a, d) => a + (d.unexplainedCost ?? 0), 0))}) is not included.
+          . Whole period: <span className="font-medium text-ledger-700">{money(total)}</span>
+          {hasPhysical && (
+            <span data-testid="cost-physical">
+              {' '}
+              ({quantity(physicalOf(from, to).co2, 't CO2')} from extra fuel, {quantity(physicalOf(from, to).mwh, 'MWh')} of output lost in capacity-limited
+              hours)
+            </span>
+          )}
+          ; the unexplained part ({money(health.series.reduce((a, d) => a + (d.unexplainedCost ?? 0), 0))}) is not included.
         </>
       }
     >

@@ -2,6 +2,7 @@ import type { ReactNode } from 'react';
 import { formatStored, type FieldUnits } from '@frontend/lib/field-units';
 import { formatCurrency, formatDay, formatNumber, formatPercent, formatPlantTime } from '@frontend/lib/format';
 import { plantDayOf } from '@shared/domain/calendar/plant-day';
+import { physicalCostShort, physicalCostWords } from '@shared/text/physical-cost-text';
 import type { HealthHeadline } from '../api/get-health';
 import { healthSentence, STALE_AFTER_DAYS } from './health-sentence';
 import { NextCleaningDetail } from './next-cleaning-detail';
@@ -51,6 +52,25 @@ function CleanlinessGauge({ value, reference }: { value: number; reference: numb
     </div>
   );
 }
+
+/** What the cost per day stands for: output lost in the capacity-limited hours and the CO2 of the extra fuel in the others. */
+function PhysicalLines({ physical }: { physical: NonNullable<HealthHeadline['foulingPhysical']> }) {
+  const words = physicalCostWords(physical.perDay, physical.capacityLimitedShare, 'a day');
+  return (
+    <p className="text-ink" data-testid="fouling-physical">
+      <span data-testid="fouling-physical-output">{capitalise(words.output)}</span>
+      {words.co2 && (
+        <>
+          {'; '}
+          <span data-testid="fouling-physical-co2">{words.co2}</span>
+        </>
+      )}
+      .
+    </p>
+  );
+}
+
+const capitalise = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
 
 const perDay = (text: string) => (
   <>
@@ -117,6 +137,7 @@ export function HealthHeadlineStrip({ headline: h, units, currency, timeZone, no
         </Group>
         <Group title="Money and the next cleaning" accent="border-l-ledger-500" testId="headline-money">
           <Figure label="Fouling costs" value={perDay(money(h.foulingCostPerDay))} tone="ledger" testId="headline-fouling-cost">
+            {h.foulingPhysical && h.foulingCostPerDay !== null && <PhysicalLines physical={h.foulingPhysical} />}
             <p data-testid="since-cleaning">
               <span className="font-medium text-ledger-700">{money(h.foulingCostSinceCleaning)}</span>{' '}
               {h.lastCleaning ? (
@@ -125,6 +146,12 @@ export function HealthHeadlineStrip({ headline: h, units, currency, timeZone, no
                 </>
               ) : (
                 'over all data (no cleaning recorded)'
+              )}
+              {h.foulingPhysical?.sinceCleaning && h.foulingCostSinceCleaning !== null && (
+                <span data-testid="since-cleaning-physical">
+                  {' '}
+                  ({physicalCostShort(h.foulingPhysical.sinceCleaning, h.foulingPhysical.capacityLimitedShare, 'in all')})
+                </span>
               )}
             </p>
           </Figure>

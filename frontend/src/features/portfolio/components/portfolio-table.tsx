@@ -5,6 +5,7 @@ import { th, td, tr } from '@frontend/components/ui/data-table';
 import type { UnitSystem } from '@frontend/lib/field-units';
 import { fieldUnits, formatStored } from '@frontend/lib/field-units';
 import { formatCurrency, formatDay, formatNumber, formatPercent } from '@frontend/lib/format';
+import { physicalCostShort } from '@shared/text/physical-cost-text';
 import { sortUnits, type SortKey, type SortOrder } from './portfolio-order';
 import { CASE_WORDS, CONDITION_WORDS } from './portfolio-words';
 
@@ -88,6 +89,11 @@ function Row({ u, system }: { u: PortfolioUnit; system: UnitSystem }) {
       <td className={`${td} text-right tabular-nums`}>{formatStored(u.excessBackpressureKpa, pressure)}</td>
       <td className={`${td} text-right tabular-nums`} data-testid="unit-cost-per-day">
         {money(u.foulingCostPerDay)}
+        {u.foulingPhysical && u.foulingCostPerDay !== null && (
+          <span className="block max-w-[12rem] text-xs text-ink-faint" data-testid="unit-physical">
+            {physicalCostShort(u.foulingPhysical.perDay, u.foulingPhysical.capacityLimitedShare, 'a day')}
+          </span>
+        )}
       </td>
       <td className={`${td} text-right tabular-nums`}>
         {money(u.foulingCostSinceCleaning)}
