@@ -7,6 +7,7 @@ import { formatCurrency, formatDay, formatNumber, formatPercent } from '@fronten
 import CashFlowChart from './cash-flow-chart';
 import { CaseFigure, Swatch } from './case-figure';
 import IntervalChart from './interval-chart';
+import { casePhysicalSentence } from './case-physical';
 import { intervalCurve } from './interval-curve';
 import MonteCarloChart from './monte-carlo-chart';
 import ScheduleChart from './schedule-chart';
@@ -67,6 +68,9 @@ export function CaseResults({ results, inputs, currency, uncertaintyUpdating, pr
         <Figure label="Benefit–cost ratio" value={bc.benefitCostRatio === null ? '—' : formatNumber(bc.benefitCostRatio, 2)} note={bc.benefitCostReason} />
         <Figure label="Cost over the horizon" value={money(results.totals.total)} note={`baseline ${money(results.baseline.totals.total)}`} />
       </div>
+      <p className="text-sm text-ink-soft" data-testid="case-physical">
+        {casePhysicalSentence(inputs, results.totals.foulingCost, results.baseline.totals.foulingCost)}
+      </p>
 
       <CaseFigure
         title="Recommended schedule"
