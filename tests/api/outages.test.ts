@@ -332,6 +332,37 @@ describe('outages', () => {
     ]);
   });
 
+  it('removes a saved scope: planners only, the outage’s own, draft only; the freed place takes a new name; the audit says which', async () => {
+    const o = await newOutage({ budget: 200_000 });
+    const a = (await addItem(o.id, money('Plug tubes', 20_000, 3, 'A', 60_000))).items.at(-1)!;
+    for (const name of ['First', 'Second', 'Third'])
+      await agents.analyst
+        .post(`/api/outages/${o.id}/scopes`)
+        .set(CSRF)
+        .send({ name, itemIds: [a.id] })
+        .expect(201);
+    const full = await agents.analyst.post(`/api/outages/${o.id}/scopes`).set(CSRF).send({ name: 'Fourth', itemIds: [] });
+    expect(full.status).toBe(409);
+    expect(full.body.error ?? full.body.message).toMatch(/remove one/);
+    const view = outageView.parse((await agents.analyst.get(`/api/outages/${o.id}`).expect(200)).body);
+    const second = view.scopes.find((s) => s.name === 'Second')!;
+    const path = `/api/outages/${o.id}/scopes/${second.id}`;
+    expect((await agents.viewer.delete(path).set(CSRF)).status).toBe(403);
+    expect((await agents.otherAdmin.delete(path).set(CSRF)).status).toBe(404);
+    expect((await agents.analyst.delete(`/api/outages/${o.id}/scopes/00000000-0000-4000-8000-000000000000`).set(CSRF)).status).toBe(404);
+    const other = await newOutage({ budget: 10_000 });
+    expect((await agents.analyst.delete(`/api/outages/${other.id}/scopes/${second.id}`).set(CSRF)).status).toBe(404);
+    const removed = outageView.parse((await agents.analyst.delete(path).set(CSRF).expect(200)).body);
+    expect(removed.scopes.map((s) => s.name)).toEqual(['First', 'Third']);
+    await agents.analyst.post(`/api/outages/${o.id}/scopes`).set(CSRF).send({ name: 'Fourth', itemIds: [] }).expect(201);
+    const audit = await t.dataSource.getRepository(AuditEvent).findOneByOrFail({ entityId: o.id, action: 'outage.scope-removed' });
+    expect(audit.details).toMatchObject({ scope: 'Second' });
+    const third = removed.scopes.find((s) => s.name === 'Third')!;
+    await agents.approver.post(`/api/outages/${o.id}/approve`).set(CSRF).send({ scopeId: third.id }).expect(200);
+    const frozen = await agents.analyst.delete(`/api/outages/${o.id}/scopes/${third.id}`).set(CSRF);
+    expect(frozen.status).toBe(409);
+  });
+
   it('approving freezes a snapshot: later edits answer 409, a stale decision is refused, viewers then read it, and only administrators delete it', async () => {
     const o = await newOutage({ budget: 50_000 });
     const plug = (await addItem(o.id, money('Plug tubes', 20_000, 3, 'A', 60_000))).items.at(-1)!;

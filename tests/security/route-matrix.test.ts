@@ -27,6 +27,7 @@ import { startGoogleFake, type GoogleFake } from '../../scripts/lib/local-servic
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import type { GeneratingUnit } from '../../backend/src/entities/generating-unit.entity.js';
 import type { Plant } from '../../backend/src/entities/plant.entity.js';
+import { OutageScope } from '../../backend/src/entities/outage-scope.entity.js';
 import { createCaseRecord } from '../factories/cases.js';
 import { createOutageRecord } from '../factories/outages.js';
 import { createEvent, createPendingImport, createPlant, createUnit, TEST_CONDENSER, TEST_ECONOMICS, TEST_TURBINE } from '../factories/units.js';
@@ -323,6 +324,14 @@ const MATRIX: Record<string, Entry> = {
     path: async (fx) => `/api/outages/${(await freshOutage(fx)).outage.id}/scopes`,
     body: () => ({ name: 'Nothing this time', itemIds: [] }),
     expect: planners(201),
+  },
+  'DELETE /api/outages/:id/scopes/:scopeId': {
+    path: async (fx) => {
+      const { outage } = await freshOutage(fx);
+      const saved = await ds().getRepository(OutageScope).save({ outageId: outage.id, name: 'Spare scope', itemIds: [], createdById: fx.a.users.analyst.id });
+      return `/api/outages/${outage.id}/scopes/${saved.id}`;
+    },
+    expect: planners(200),
   },
   // No proposal yet: deciders are told to run the optimiser first.
   'POST /api/outages/:id/approve': { path: async (fx) => `/api/outages/${(await freshOutage(fx)).outage.id}/approve`, expect: deciders(409) },

@@ -25,6 +25,7 @@ import { editOutage } from '../services/outages/edit-outage.js';
 import { getOutage } from '../services/outages/get-outage.js';
 import { listOutages } from '../services/outages/list-outages.js';
 import { optimiseOutage } from '../services/outages/optimise-outage.js';
+import { removeScope } from '../services/outages/remove-scope.js';
 import { outageProposalLimiter } from '../http/rate-limits.js';
 import { outageFile, type OutageFileKind } from '../services/outages/outage-files.js';
 import { saveScope } from '../services/outages/save-scope.js';
@@ -150,6 +151,15 @@ export function outageRoutes(ds: DataSource): RouteSpec[] {
       status: 201,
       description: 'Save a named scope (the listed items, else the latest proposal’s); the same name replaces it, a fourth name is refused (409)',
       handler: async (req, res) => res.status(201).json(await saveScope(ds, scopeOf(req.actor), idParam(req), req.body)),
+    },
+    {
+      method: 'delete',
+      path: '/api/outages/:id/scopes/:scopeId',
+      access: 'outages.plan',
+      tenantScoped: true,
+      response: outageView,
+      description: 'Remove a saved scope of a draft outage (409 once the outage is approved); answers the outage',
+      handler: async (req, res) => res.json(await removeScope(ds, scopeOf(req.actor), idParam(req), idParam(req, 'scopeId'))),
     },
     {
       method: 'post',

@@ -75,6 +75,7 @@ const WRITTEN: [string, Record<string, unknown> | null][] = [
   ['outage.item-removed', { outage: 'Spring 2027', itemId: 'i1', title: 'Plug flagged tubes', noLongerNeededBy: [] }],
   ['outage.optimised', { name: 'Spring 2027', items: 4, chosen: ['Plug flagged tubes'], totalBenefit: 35000, totalCost: 18000, feasible: true }],
   ['outage.scope-saved', { outage: 'Spring 2027', scope: 'Tubes only', replaced: false, items: ['Plug flagged tubes'] }],
+  ['outage.scope-removed', { outage: 'Spring 2027', scope: 'Tubes only' }],
   ['outage.approved', { name: 'Spring 2027', scope: 'Tubes only', items: ['Plug flagged tubes'], totalBenefit: 35000, totalCost: 18000, currency: 'USD' }],
   [
     'outage.unit-removed',

@@ -1,7 +1,7 @@
 /**
  * Save a named selection of a draft outage's items to compare side by side: the items listed, or the latest
  * proposal's selection (which must be current). Saving under the name of a saved scope replaces it; a fourth name
- * is refused (at most three are kept side by side, and none is dropped without the planner saying so).
+ * is refused (at most three are kept side by side, and none is dropped without the planner saying so: remove-scope.ts).
  */
 import type { DataSource } from 'typeorm';
 import { MAX_SAVED_SCOPES, type OutageView, type ScopeSave } from '@shared/schemas/outages.js';
@@ -50,7 +50,7 @@ export async function saveScope(ds: DataSource, scope: TenantScope, id: string, 
       if (scopes.length >= MAX_SAVED_SCOPES) {
         throw new AppError(
           409,
-          `An outage keeps ${MAX_SAVED_SCOPES} saved scopes side by side (${scopes.map((s) => `“${s.name}”`).join(', ')}): save under one of their names to replace it`,
+          `An outage keeps ${MAX_SAVED_SCOPES} saved scopes side by side (${scopes.map((s) => `“${s.name}”`).join(', ')}): save under one of their names to replace it, or remove one`,
         );
       }
       await repo.save(repo.create({ outageId: outage.id, name: body.name, itemIds, createdById: scope.userId }));

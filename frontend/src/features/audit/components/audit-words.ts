@@ -100,6 +100,8 @@ function outageHappened(e: AuditEventView, d: Details): string | null {
       return `proposed a scope for the outage ${outage}${figures(d.chosen)}`;
     case 'outage.scope-saved':
       return `${d.replaced ? 'replaced' : 'saved'} the scope ${quoted(d.scope, 'a scope')} of the outage ${outage}`;
+    case 'outage.scope-removed':
+      return `removed the saved scope ${quoted(d.scope, 'a scope')} of the outage ${outage}`;
     case 'outage.approved':
       return `approved the ${text(d.scope) ? `scope ${quoted(d.scope, '')} of the ` : 'proposed scope of the '}outage ${outage}${figures(d.items)}`;
     case 'outage.unit-removed':

@@ -9,6 +9,10 @@ export const useOptimiseOutage = (organisationId: string, outageId: string) =>
 export const useSaveScope = (organisationId: string, outageId: string) =>
   useOutageChange<ScopeSave>(organisationId, (body) => ({ path: `/api/outages/${outageId}/scopes`, method: 'POST', body }));
 
+/** Removes a saved scope of a draft outage, freeing its place for another. */
+export const useRemoveScope = (organisationId: string, outageId: string) =>
+  useOutageChange<string>(organisationId, (scopeId) => ({ path: `/api/outages/${outageId}/scopes/${scopeId}`, method: 'DELETE' }));
+
 /** Approves the latest proposal, or a saved scope; the outage is frozen as a snapshot. */
 export const useApproveOutage = (organisationId: string, outageId: string) =>
   useOutageChange<OutageApprove>(organisationId, (body) => ({ path: `/api/outages/${outageId}/approve`, method: 'POST', body }));

@@ -8,7 +8,7 @@ import { ReadOnlyReason } from '@frontend/components/ui/read-only';
 import { TextField } from '@frontend/components/ui/text-field';
 import { formatCurrency } from '@frontend/lib/format';
 import { formMessage, serverFieldErrors, zodFieldErrors, type FieldErrors } from '@frontend/lib/form-errors';
-import { useApproveOutage, useSaveScope } from '../api/outage-scope';
+import { useApproveOutage, useRemoveScope, useSaveScope } from '../api/outage-scope';
 import { daysText } from './outage-words';
 
 const cell = 'px-3 py-1.5 text-right tabular-nums whitespace-nowrap';
@@ -23,7 +23,7 @@ function SaveScopeForm({ organisationId, outage }: { organisationId: string; out
   useFocusFirstProblem(formRef, fieldErrors);
   const full = outage.scopes.length >= MAX_SAVED_SCOPES;
   const why = full
-    ? `${MAX_SAVED_SCOPES} scopes are saved, the most kept side by side.`
+    ? `${MAX_SAVED_SCOPES} scopes are saved, the most kept side by side: remove one to save another.`
     : !outage.proposal
       ? 'Propose a scope first: the proposal is what gets saved.'
       : outage.proposalStale
@@ -65,6 +65,7 @@ function SaveScopeForm({ organisationId, outage }: { organisationId: string; out
 /** Up to three saved scopes side by side: benefit, cost, longest lane, and the items where they differ. */
 export function SavedScopes({ organisationId, outage }: { organisationId: string; outage: OutageView }) {
   const approve = useApproveOutage(organisationId, outage.id);
+  const remove = useRemoveScope(organisationId, outage.id);
   const scopes = outage.scopes;
   const titleOf = new Map(outage.items.map((i) => [i.id, i.title]));
   const draft = outage.status === 'draft';
@@ -193,11 +194,31 @@ export function SavedScopes({ organisationId, outage }: { organisationId: string
                   ))}
                 </tr>
               )}
+              {draft && outage.actions.saveScope && (
+                <tr>
+                  <td />
+                  {scopes.map((s) => (
+                    <td key={s.id} className="px-3 py-2 text-right">
+                      <Button
+                        variant="quiet"
+                        className="text-xs"
+                        disabled={remove.isPending}
+                        onClick={() => {
+                          if (window.confirm(`Remove the saved scope “${s.name}”? Its items stay on the outage.`)) remove.mutate(s.id);
+                        }}
+                      >
+                        Remove “{s.name}”
+                      </Button>
+                    </td>
+                  ))}
+                </tr>
+              )}
             </tbody>
           </table>
         </div>
       )}
       {approve.isError && <Notice tone="fault">Not approved: {approve.error.message}</Notice>}
+      {remove.isError && <Notice tone="fault">Not removed: {remove.error.message}</Notice>}
       {draft &&
         (outage.actions.saveScope ? (
           <SaveScopeForm organisationId={organisationId} outage={outage} />
