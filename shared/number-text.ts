@@ -63,6 +63,20 @@ export function writeNumberText(value: number, format: NumberFormat): string {
   return format.decimal === ',' ? plain.replace('.', ',') : plain;
 }
 
+/** Digits of a whole part grouped in threes (SI practice: a narrow no-break space, from five digits on). */
+const GROUP_MARK = '\u202f';
+
+/**
+ * A number for an input with its thousands grouped by a narrow no-break space, which reads back silently whatever
+ * the decimal mark (readNumberText drops spaces); four-digit whole parts stay as they are (9400).
+ */
+export function groupedNumberText(value: number, format: NumberFormat): string {
+  const plain = writeNumberText(value, format);
+  const match = /^(-?)(\d+)(.*)$/.exec(plain);
+  if (!match || match[2]!.length < 5) return plain;
+  return `${match[1]}${match[2]!.replace(/\B(?=(\d{3})+$)/g, GROUP_MARK)}${match[3]}`;
+}
+
 /** The decimal mark of a locale (BCP 47 tag); a point when the locale is unknown. */
 export function numberFormatOf(locale: string): NumberFormat {
   try {

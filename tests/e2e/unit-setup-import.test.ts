@@ -128,8 +128,8 @@ describe('unit setup, import and undo in a real browser', () => {
     await condenser.getByLabel('Tube material').selectOption('titanium');
     await field(condenser, 'Effective tube length (ft)').fill(String(LENGTH_FT));
     await condenser.getByRole('button', { name: /Compute from tube count/ }).click();
-    // closed form: 22,000 × π × (1/12 ft) × 44.95 ft = 258,893.4 ft²
-    await expect.poll(() => field(condenser, 'Outside surface (HEI basis) (ft²)').inputValue()).toBe('258893.4');
+    // closed form: 22,000 × π × (1/12 ft) × 44.95 ft = 258,893.4 ft², filled in to six significant digits, grouped
+    await expect.poll(() => field(condenser, 'Outside surface (HEI basis) (ft²)').inputValue()).toBe('258\u202f893');
     expect(await condenser.textContent()).toContain('An inside area would overstate U and the cleanliness factor by OD/dᵢ');
     await field(condenser, 'CW flow (gpm)').fill('164,800');
     await field(condenser, 'CW inlet temperature (°F)').fill('75');

@@ -1,5 +1,5 @@
 import { btuKwhToKjKwh, DISPLAY_PRESETS, ftToM, inToMm, KJ_PER_BTU, kjKwhToBtuKwh, mmToIn, mToFt, type DisplayUnit } from '@shared/units';
-import { readTyped, writeForInput } from './number-format';
+import { readTyped, writeGroupedForInput } from './number-format';
 
 export type UnitSystem = 'us' | 'si';
 
@@ -43,13 +43,21 @@ export function fieldUnits(system: UnitSystem) {
 
 export type FieldUnits = ReturnType<typeof fieldUnits>;
 
+/** Significant digits a converted value keeps in an input: a save without edits moves it by under 5 ppm. */
+const INPUT_SIGNIFICANT_DIGITS = 6;
+
 /**
  * A stored value as text for an input, in the display unit and the person's number format: one decimal more
- * than the display precision so a save without edits does not drift, trailing zeros dropped.
+ * than the display precision, but never more than six significant digits (a conversion's noise, "164843.4 gpm",
+ * is not a figure anyone typed), trailing zeros dropped, thousands grouped from five digits on. What it writes
+ * reads back and writes again as the same text, so repeated saves do not drift.
  */
 export function toInputText(stored: number | null | undefined, unit: DisplayUnit): string {
   if (stored === null || stored === undefined || !Number.isFinite(stored)) return '';
-  return writeForInput(Number(unit.fromSi(stored).toFixed(unit.decimals + 1)));
+  const value = unit.fromSi(stored);
+  const wholeDigits = Math.abs(value) < 1 ? 1 : Math.floor(Math.log10(Math.abs(value))) + 1;
+  const decimals = Math.max(0, Math.min(unit.decimals + 1, INPUT_SIGNIFICANT_DIGITS - wholeDigits));
+  return writeGroupedForInput(Number(value.toFixed(decimals)));
 }
 
 /**

@@ -385,8 +385,14 @@ function DeviationChart({ health, units, narrow }: { health: UnitHealth; units: 
       note={
         offset !== null ? (
           <>
-            Model offset (not in the bars): the model at the design point reads {signed(dp.fromSi(offset), dp.decimals + 2, dp.label)} against the datasheet
-            design backpressure.
+            Model offset (not in the bars):{' '}
+            {Math.abs(dp.fromSi(offset)) < 0.5 * 10 ** -dp.decimals ? (
+              <>
+                the model at the design point matches the datasheet design backpressure to within {formatNumber(10 ** -dp.decimals, dp.decimals)} {dp.label}.
+              </>
+            ) : (
+              <>the model at the design point reads {signed(dp.fromSi(offset), dp.decimals, dp.label)} against the datasheet design backpressure.</>
+            )}
           </>
         ) : undefined
       }

@@ -1,6 +1,6 @@
 import type { DisplayUnit } from '@shared/units';
 import { fromInputText, parseNumberText, toInputText } from '@frontend/lib/field-units';
-import { writeForInput } from '@frontend/lib/number-format';
+import { writeForInput, writeGroupedForInput } from '@frontend/lib/number-format';
 
 /** How one form field is entered: a physical quantity in the user's units, a count, or a percentage of a stored fraction. */
 export type FieldKind = { unit: DisplayUnit } | 'count' | 'percent' | 'plain';
@@ -16,7 +16,8 @@ export function storedFromText(text: string, kind: FieldKind): number | undefine
 
 export function textFromStored(stored: number | null | undefined, kind: FieldKind): string {
   if (stored === null || stored === undefined) return '';
-  if (kind === 'count' || kind === 'plain') return writeForInput(stored);
+  if (kind === 'count') return writeGroupedForInput(stored);
+  if (kind === 'plain') return writeForInput(stored);
   if (kind === 'percent') return writeForInput(Number((stored * 100).toFixed(2)));
   return toInputText(stored, kind.unit);
 }
