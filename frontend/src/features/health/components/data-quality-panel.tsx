@@ -1,5 +1,6 @@
 import { REJECTION_REASONS, type RejectionReason } from '@shared/domain/validity/rejection-reasons';
 import { formatDay, formatNumber, formatPercent } from '@frontend/lib/format';
+import { healthLeftOutNote } from '@frontend/lib/left-out-words';
 import type { UnitHealth } from '../api/get-health';
 
 const SENSOR_WORDS: Record<string, string> = {
@@ -20,7 +21,7 @@ const reasonWords = (code: string) => {
 };
 
 /** How much of the data the figures rest on, what was left out and why, and which instruments look doubtful. */
-export function DataQualityPanel({ quality }: { quality: UnitHealth['dataQuality'] }) {
+export function DataQualityPanel({ quality, period }: { quality: UnitHealth['dataQuality']; period: UnitHealth['period'] }) {
   const total = quality.pointsUsed + quality.pointsDropped;
   const reasons = Object.entries(quality.droppedByReason).sort((a, b) => b[1] - a[1]);
   const gap = quality.dutyGap;
@@ -34,6 +35,9 @@ export function DataQualityPanel({ quality }: { quality: UnitHealth['dataQuality
         <span className="font-medium tabular-nums">{formatNumber(quality.pointsDropped)}</span> left out (
         {formatPercent(total ? quality.pointsDropped / total : null, 1)}); valid data on {formatNumber(quality.daysWithValidData)} of{' '}
         {formatNumber(quality.daysInPeriod)} days.
+      </p>
+      <p className="text-xs text-ink-soft" data-testid="left-out-note">
+        {healthLeftOutNote(period, quality.droppedByReason)}
       </p>
       {reasons.length > 0 && (
         <table className="w-full text-sm">

@@ -126,7 +126,7 @@ export function HealthView({ organisationId, unit, units, cannotWrite, progress,
             )}
           </section>
         </div>
-        <DataQualityPanel quality={h.dataQuality} />
+        <DataQualityPanel quality={h.dataQuality} period={h.period} />
       </div>
     </div>
   );

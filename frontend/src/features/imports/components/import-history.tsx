@@ -6,6 +6,7 @@ import { linkClass } from '@frontend/components/ui/public-page';
 import { ErrorState, LoadingState } from '@frontend/components/ui/query-state';
 import { ReadOnlyReason } from '@frontend/components/ui/read-only';
 import { formatBytes, formatDateTime, formatNumber, formatPlantDate } from '@frontend/lib/format';
+import { IMPORT_LEFT_OUT_NOTE } from '@frontend/lib/left-out-words';
 import { importIsRunning, type ImportView } from '../api/get-import';
 import { useUnitImports } from '../api/get-imports';
 import { useUndoImport } from '../api/undo-import';
@@ -100,6 +101,9 @@ export function ImportHistory({
           </tr>
         ))}
       </DataTable>
+      <p className="text-xs text-ink-soft" data-testid="left-out-note">
+        {IMPORT_LEFT_OUT_NOTE}
+      </p>
     </div>
   );
 }
