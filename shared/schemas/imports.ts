@@ -98,11 +98,28 @@ const guessedQuantity = z.enum([...(Object.keys(IMPORT_QUANTITY_UNITS) as (keyof
 export const uploadResponse = z
   .object({
     import: importView,
-    /** wide: one column per quantity; tall: one row per tag per time (map tags, listed in `tags`) */
-    shape: z.enum(['wide', 'tall']),
-    /** a tall file's tags: name, rows and first values (at most 500; `moreTags` when the file has more) */
+    /**
+     * wide: one column per quantity; tall: one row per tag per time (map tags, listed in `tags`); per-tag-files:
+     * several files of one tag each (or a ZIP of them), read together as a tall file (map tags, listed in `files`)
+     */
+    shape: z.enum(['wide', 'tall', 'per-tag-files']),
+    /** a tall file's tags (or the files' tags): name, rows and first values (at most 500; `moreTags` when the file has more) */
     tags: z.array(z.object({ name: z.string(), rows: z.number().int(), samples: z.array(z.string()) }).strict()),
     moreTags: z.boolean(),
+    /** per-tag-files: each file with its tag, its rows and its first and last time as written */
+    files: z.array(
+      z
+        .object({
+          name: z.string(),
+          tag: z.string(),
+          rows: z.number().int(),
+          bytes: z.number().int(),
+          firstTime: z.string(),
+          lastTime: z.string(),
+          hasQuality: z.boolean(),
+        })
+        .strict(),
+    ),
     headers: z.array(z.string()),
     /** per column, the units row's text under its name ('' where none); empty when the file has no units row */
     units: z.array(z.string()),

@@ -13,6 +13,7 @@ import type { GeneratingUnit } from '../../backend/src/entities/generating-unit.
 import { createTenant, CSRF, signedInAgent } from '../factories/accounts.js';
 import { createPlant, createUnit, TEST_CONDENSER, TEST_TURBINE } from '../factories/units.js';
 import { csvLines, makeTempDir, physicalHistory } from '../helpers/historian-files.js';
+import { buildZip } from '../helpers/zip-builder.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 
 let t: TestApp;
@@ -70,6 +71,38 @@ describe('disk full while an upload is written', { timeout: 60_000 }, () => {
     expect(res.body.error).toMatch(/no room|space/i);
     expect(res.body.error).toMatch(/nothing was stored/i);
     expect(res.body.error).not.toMatch(/ENOSPC|errno|write/);
+    expect(await readdir(uploadDir)).toEqual([]);
+    expect(await t.dataSource.getRepository(DataImport).countBy({ unitId: unit.id })).toBe(0);
+  });
+
+  /** One-tag files of a few thousand hours each (about 150 KB each). */
+  const tagFile = (k: number) =>
+    Buffer.from(
+      [
+        `Time,U1.TAG${k}`,
+        ...Array.from({ length: 5000 }, (_, h) => `${new Date(Date.UTC(2024, 0, 1) + h * 3_600_000).toISOString()},${(400 + k + h / 1000).toFixed(3)}`),
+      ].join('\n'),
+    );
+
+  it('answers 507 when the disk fills while several files of one tag each are written, leaving none of them', async () => {
+    const disk = fillDiskAfter(200 * 1024);
+    let req = analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF);
+    for (let k = 0; k < 3; k++) req = req.attach('file', tagFile(k), `tag-${k}.csv`);
+    const res = await req;
+    expect(disk.partWritten()).toBe(true);
+    expect(res.status, JSON.stringify(res.body)).toBe(507);
+    expect(res.body.error).toMatch(/nothing was stored/i);
+    expect(await readdir(uploadDir)).toEqual([]);
+    expect(await t.dataSource.getRepository(DataImport).countBy({ unitId: unit.id })).toBe(0);
+  });
+
+  it('answers 507 when the disk fills while a ZIP of files is unpacked, leaving neither the ZIP nor its files', async () => {
+    const zip = buildZip([0, 1, 2].map((k) => ({ name: `tag-${k}.csv`, data: tagFile(k) })));
+    const disk = fillDiskAfter(zip.length + 200 * 1024);
+    const res = await analyst.post(`/api/units/${unit.id}/uploads`).set(CSRF).attach('file', zip, 'tags.zip');
+    expect(disk.partWritten()).toBe(true);
+    expect(res.status, JSON.stringify(res.body)).toBe(507);
+    expect(res.body.error).toMatch(/nothing was stored/i);
     expect(await readdir(uploadDir)).toEqual([]);
     expect(await t.dataSource.getRepository(DataImport).countBy({ unitId: unit.id })).toBe(0);
   });

@@ -1,43 +1,98 @@
-import { mkdirSync } from 'node:fs';
+import fs, { mkdirSync } from 'node:fs';
 import { rm } from 'node:fs/promises';
 import path from 'node:path';
-import type { RequestHandler } from 'express';
+import type { Request, RequestHandler } from 'express';
 import multer from 'multer';
 import { MAX_UPLOAD_BYTES } from '@shared/limits.js';
+import { MAX_TAG_FILES } from '@shared/schemas/imports.js';
 import { AppError } from './app-error.js';
 
-const NO_ROOM = 'The server has no room to store this file right now, so nothing was stored: try again later, and tell your administrator if it persists';
+export const NO_ROOM =
+  'The server has no room to store this file right now, so nothing was stored: try again later, and tell your administrator if it persists';
 const UPLOAD_UNREADABLE = 'The upload was cut off or is incomplete, so nothing was stored: upload the file again';
+/** Several files of one tag each, together (each also at most MAX_UPLOAD_BYTES). */
+export const MAX_UPLOAD_FILES_BYTES = 512 * 1024 * 1024;
 
 const MULTER_MESSAGES: Partial<Record<multer.ErrorCode, string>> = {
-  LIMIT_FILE_COUNT: 'Upload one file at a time',
-  LIMIT_UNEXPECTED_FILE: 'Send the file in the form field named "file", one file at a time',
+  LIMIT_FILE_COUNT: `Upload one file, or at most ${MAX_TAG_FILES} files of one tag each together`,
+  LIMIT_UNEXPECTED_FILE: 'Send the file in the form field named "file" (several files of one tag each: each in a field of that name)',
   LIMIT_FIELD_COUNT: 'The upload carries too many form fields: send only the file',
   LIMIT_PART_COUNT: 'The upload carries too many parts: send only the file',
   LIMIT_FIELD_KEY: 'A form field name in the upload is too long',
   LIMIT_FIELD_VALUE: 'A form field in the upload is too long',
 };
 
-/** One file in the field "file", streamed to disk (never held in memory), at most MAX_UPLOAD_BYTES. */
-export function singleFileUpload(uploadDir: string): RequestHandler {
+class FilesTooLarge extends Error {}
+
+const uniqueName = () => `${Date.now()}-${Math.random().toString(36).slice(2)}.upload`;
+const TOTAL = Symbol('upload bytes');
+
+/**
+ * Multer's disk storage, counting the bytes of all files of one request: past `maxTotal` the file being written
+ * stops and is removed, and multer removes the ones before it. Writes through `fs.createWriteStream`, so a full
+ * disk fails the way it does for any write.
+ */
+class CountedDiskStorage implements multer.StorageEngine {
+  constructor(
+    private readonly dir: string,
+    private readonly maxTotal: number,
+  ) {}
+
+  _handleFile(req: Request, file: Express.Multer.File, cb: (error?: unknown, info?: Partial<Express.Multer.File>) => void): void {
+    const target = path.join(this.dir, uniqueName());
+    const out = fs.createWriteStream(target);
+    const counted = req as Request & { [TOTAL]?: { bytes: number } };
+    const total = (counted[TOTAL] ??= { bytes: 0 });
+    let settled = false;
+    const settle = (err: unknown, info?: Partial<Express.Multer.File>) => {
+      if (settled) return;
+      settled = true;
+      if (!err) return cb(null, info);
+      file.stream.unpipe(out);
+      file.stream.resume();
+      out.destroy();
+      void rm(target, { force: true }).finally(() => cb(err));
+    };
+    file.stream.on('data', (chunk: Buffer) => {
+      total.bytes += chunk.length;
+      if (total.bytes > this.maxTotal) settle(new FilesTooLarge());
+    });
+    out.on('error', settle);
+    out.on('finish', () => settle(null, { destination: this.dir, filename: path.basename(target), path: target, size: out.bytesWritten }));
+    file.stream.pipe(out);
+  }
+
+  _removeFile(_req: Request, file: Express.Multer.File, cb: (error: Error | null) => void): void {
+    rm(file.path, { force: true }).then(() => cb(null), cb);
+  }
+}
+
+const filesOf = (req: Request): Express.Multer.File[] => (Array.isArray(req.files) ? req.files : []);
+
+/**
+ * A historian upload, streamed to disk (never held in memory): one file in the field "file" (at most
+ * MAX_UPLOAD_BYTES) — or several files of one tag each in fields of that name (at most MAX_TAG_FILES, each at most
+ * MAX_UPLOAD_BYTES and together at most MAX_UPLOAD_FILES_BYTES). `req.file` is the first, `req.files` all of them.
+ */
+export function historianUpload(uploadDir: string): RequestHandler {
   mkdirSync(uploadDir, { recursive: true });
   const upload = multer({
-    storage: multer.diskStorage({
-      destination: uploadDir,
-      filename: (_req, _file, cb) => cb(null, `${Date.now()}-${Math.random().toString(36).slice(2)}.upload`),
-    }),
-    limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 5 },
+    storage: new CountedDiskStorage(uploadDir, MAX_UPLOAD_FILES_BYTES),
+    limits: { fileSize: MAX_UPLOAD_BYTES, files: MAX_TAG_FILES, fields: 5 },
     // Browsers send file names in UTF-8; multer's default reads them as Latin-1 ("KÃ¼hlwasser.csv").
     defParamCharset: 'utf8',
-  }).single('file');
+  }).array('file', MAX_TAG_FILES);
   return (req, res, next) =>
     upload(req, res, (err: unknown) => {
       if (!err) {
-        if (!req.file) return next(new AppError(400, 'Choose a CSV or XLSX file to upload'));
-        if (req.file.size === 0) {
-          const empty = req.file.path;
-          return void rm(empty, { force: true }).finally(() => next(new AppError(400, 'The file is empty (0 bytes)')));
+        const files = filesOf(req);
+        if (files.length === 0) return next(new AppError(400, 'Choose a CSV or XLSX file to upload'));
+        const empty = files.find((f) => f.size === 0);
+        if (empty) {
+          const message = files.length === 1 ? 'The file is empty (0 bytes)' : `"${empty.originalname.slice(0, 120)}" is empty (0 bytes): nothing was stored`;
+          return void Promise.all(files.map((f) => rm(f.path, { force: true }))).finally(() => next(new AppError(400, message)));
         }
+        req.file = files[0];
         return next();
       }
       // Multer removes a partly written file itself; the message is ours, never the parser's.
@@ -45,6 +100,8 @@ export function singleFileUpload(uploadDir: string): RequestHandler {
         if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, `The file is larger than ${MAX_UPLOAD_BYTES / 1024 / 1024} MB`));
         return next(new AppError(400, MULTER_MESSAGES[err.code] ?? UPLOAD_UNREADABLE));
       }
+      if (err instanceof FilesTooLarge)
+        return next(new AppError(413, `The files together are larger than ${MAX_UPLOAD_FILES_BYTES / 1024 / 1024} MB: nothing was stored`));
       const code = (err as { code?: unknown } | null)?.code;
       if (code === 'ENOSPC' || code === 'EDQUOT') {
         req.log?.error({ err }, 'upload refused: no room on the upload folder');

@@ -175,7 +175,7 @@ export async function readTagFilesManifest(folder: string): Promise<TagFileEntry
   return parsed.data;
 }
 
-const when = (ms: number) => new Date(ms).toISOString().replace(/:00\.000Z$/, 'Z');
+const when = (ms: number) => new Date(ms).toISOString().replace('.000Z', 'Z');
 
 /**
  * The files read one after another into the mapped tags' series. A file's wrong cells are listed by its line and

@@ -82,15 +82,19 @@ export async function listTags(
   } finally {
     await table.close();
   }
-  // spacing from the first tag's ISO-like times (a rough proposal for the grid; the person chooses)
+  const medianSpacingMinutes = medianSpacingOf([...found.values()].map((t) => t.times));
+  return { tags: [...found.values()].map(({ times: _t, ...tag }) => tag), medianSpacingMinutes, moreTags };
+}
+
+/** The median spacing of each tag's first ISO-like times, minutes (a rough proposal for the grid; the person chooses). */
+export function medianSpacingOf(timesByTag: readonly string[][]): number | null {
   const spacings: number[] = [];
-  for (const t of found.values()) {
-    const ms = t.times.map((x) => Date.parse(x.includes('T') || /[zZ]|[+-]\d\d:?\d\d$/.test(x) ? x : x.replace(' ', 'T'))).filter(Number.isFinite);
+  for (const times of timesByTag) {
+    const ms = times.map((x) => Date.parse(x.includes('T') || /[zZ]|[+-]\d\d:?\d\d$/.test(x) ? x : x.replace(' ', 'T'))).filter(Number.isFinite);
     for (let i = 1; i < ms.length; i++) if (ms[i]! > ms[i - 1]!) spacings.push((ms[i]! - ms[i - 1]!) / 60_000);
   }
   spacings.sort((a, b) => a - b);
-  const medianSpacingMinutes = spacings.length ? spacings[Math.floor(spacings.length / 2)]! : null;
-  return { tags: [...found.values()].map(({ times: _t, ...tag }) => tag), medianSpacingMinutes, moreTags };
+  return spacings.length ? spacings[Math.floor(spacings.length / 2)]! : null;
 }
 
 /** The grid proposed for a spacing: the finest offered grid not finer than the samples. */

@@ -206,9 +206,9 @@ export async function unzipTagFiles(
       },
     });
     const compressed = fs.createReadStream(zipPath, { start: dataStart(spans[k]!, e), end: dataEnd - 1 });
-    const stages = e.method === 8 ? [compressed, zlib.createInflateRaw(), counter] : [compressed, counter];
     try {
-      await pipeline([...stages, fs.createWriteStream(target)] as unknown as Parameters<typeof pipeline>);
+      const sink = fs.createWriteStream(target);
+      await (e.method === 8 ? pipeline(compressed, zlib.createInflateRaw(), counter, sink) : pipeline(compressed, counter, sink));
     } catch (err) {
       await rm(target, { force: true });
       if (err instanceof ZipRefusal) throw err;

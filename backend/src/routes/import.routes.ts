@@ -5,7 +5,7 @@ import { z } from 'zod';
 import type { Config } from '../config.js';
 import { idParam } from '../http/params.js';
 import type { RouteSpec } from '../http/route-registry.js';
-import { singleFileUpload } from '../http/upload.js';
+import { historianUpload } from '../http/upload.js';
 import { scopeOf } from '../policies/tenant-scope.js';
 import {
   chooseSheet,
@@ -25,7 +25,7 @@ import { getStatusWords, setStatusWords } from '../services/historian-status.ser
 const startBody = z.object({ mapping: z.unknown() }).strict();
 
 export function importRoutes(ds: DataSource, config: Config): RouteSpec[] {
-  const upload = singleFileUpload(path.resolve(config.UPLOAD_DIR));
+  const upload = historianUpload(path.resolve(config.UPLOAD_DIR));
   const unitOrThrow = (req: Request) => unitForUpload(ds, scopeOf(req.actor), idParam(req));
   return [
     {
@@ -56,8 +56,9 @@ export function importRoutes(ds: DataSource, config: Config): RouteSpec[] {
       tenantScoped: true,
       // The unit is checked before a byte is stored: outside the scope answers 404 whatever is sent.
       before: [async (req, _res, next) => unitOrThrow(req).then(() => next(), next), upload],
-      description: 'Upload a historian CSV or XLSX (up to 200 MB): returns its columns, first rows and a proposed mapping',
-      handler: async (req, res) => res.status(201).json(await receiveUpload(ds, scopeOf(req.actor), idParam(req), req.file!)),
+      description:
+        'Upload a historian CSV or XLSX (up to 200 MB), or files of one tag each (up to 20, in fields named "file", or one ZIP of them): returns the columns or tags, first rows and a proposed mapping',
+      handler: async (req, res) => res.status(201).json(await receiveUpload(ds, scopeOf(req.actor), idParam(req), req.files as Express.Multer.File[])),
     },
     {
       method: 'post',

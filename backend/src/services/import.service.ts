@@ -6,13 +6,17 @@
  * reported as conflicts and not stored. Undo deletes an import's rows and recomputes. The job itself is
  * services/import-job/run-import-job.ts.
  */
-import { rm } from 'node:fs/promises';
+import { mkdir, open, rename, rm } from 'node:fs/promises';
+import path from 'node:path';
 import type { DataSource } from 'typeorm';
 import { z } from 'zod';
 import { importMappingSchema, type ImportMapping, type ImportMappingInput } from '@shared/schemas/import-mapping.js';
 import { importCounts, importView as importViewSchema, rowError, type ImportCounts, type ImportView } from '@shared/schemas/imports.js';
 import { formatRowErrorReportCsv, guessMapping, openTable, type RowError } from '../import/index.js';
-import { averagingFromText, detectTallShape, guessTallMapping, listTags } from '../import/tall-detection.js';
+import { averagingFromText, detectTallShape, guessTallMapping, listTags, medianSpacingOf } from '../import/tall-detection.js';
+import { surveyTagFiles, TAG_FILE_COLUMNS, TagFilesRefusal, type TagFileEntry, type UploadedTagFile } from '../import/per-tag-files.js';
+import { isWorkbook, readZipDirectory, startsLikeZip, unzipTagFiles, ZipRefusal } from '../import/zip-upload.js';
+import { NO_ROOM } from '../http/upload.js';
 import { DataImport } from '../entities/data-import.entity.js';
 import { GeneratingUnit } from '../entities/generating-unit.entity.js';
 import { AppError, badRequest } from '../http/app-error.js';
@@ -90,7 +94,30 @@ async function readPreview(filePath: string, sheet?: string) {
   // a tall file (one row per tag per time): one more pass lists its tags for the mapping
   const tallShape = detectTallShape(head.headers, head.sampleRows);
   const tall = tallShape ? { shape: tallShape, ...(await listTags(filePath, tallShape, head.sheet ?? undefined)) } : null;
-  return { ...head, tall };
+  return { ...head, tall, files: null as TagFileEntry[] | null };
+}
+
+/** Files of one tag each read as one tall table (see import/per-tag-files.ts): its columns, first rows and tags. */
+function tagFilesPreview(entries: TagFileEntry[]): Awaited<ReturnType<typeof readPreview>> {
+  const quality = entries.some((e) => e.qualityColumn !== null);
+  const c = TAG_FILE_COLUMNS;
+  const first = entries[0]!;
+  return {
+    kind: 'csv',
+    headers: [c.timestamp, c.tag, c.value, ...(quality ? [c.quality] : [])],
+    units: [],
+    titleLines: [],
+    sampleRows: first.times.map((t, i) => [t, first.tag, first.samples[i] ?? '', ...(quality ? [''] : [])]),
+    sheets: [],
+    sheet: null,
+    tall: {
+      shape: { timestampColumn: c.timestamp, tagColumn: c.tag, valueColumn: c.value, qualityColumn: quality ? c.quality : null },
+      tags: entries.map((e) => ({ name: e.tag, rows: e.rows, samples: e.samples })),
+      medianSpacingMinutes: medianSpacingOf(entries.map((e) => e.times)),
+      moreTags: false,
+    },
+    files: entries,
+  };
 }
 
 /** The proposed mapping of a preview: the unit's saved one when it fits the file, else a guess (which reads the units row). */
@@ -119,9 +146,18 @@ function proposeMapping(preview: Awaited<ReturnType<typeof readPreview>>, unit: 
 
 const previewAnswer = (imp: DataImport, preview: Awaited<ReturnType<typeof readPreview>>, proposed: ReturnType<typeof proposeMapping>) => ({
   import: importView(imp),
-  shape: preview.tall ? ('tall' as const) : ('wide' as const),
+  shape: preview.files ? ('per-tag-files' as const) : preview.tall ? ('tall' as const) : ('wide' as const),
   tags: preview.tall?.tags ?? [],
   moreTags: preview.tall?.moreTags ?? false,
+  files: (preview.files ?? []).map((e) => ({
+    name: e.name,
+    tag: e.tag,
+    rows: e.rows,
+    bytes: e.bytes,
+    firstTime: e.firstTime,
+    lastTime: e.lastTime,
+    hasQuality: e.qualityColumn !== null,
+  })),
   headers: preview.headers,
   units: preview.units,
   titleLines: preview.titleLines,
@@ -133,12 +169,93 @@ const previewAnswer = (imp: DataImport, preview: Awaited<ReturnType<typeof readP
   mappingSource: proposed.source,
 });
 
-/** Stores the upload, reads its header and first rows, and proposes a mapping (the unit's saved one when it fits). */
-export async function receiveUpload(ds: DataSource, scope: TenantScope, unitId: string, file: UploadedFile) {
+/** Whether an uploaded file is a ZIP of files (not an XLSX workbook, which is a ZIP too): its directory read. */
+async function zipOfFiles(file: UploadedFile): Promise<boolean> {
+  const fh = await open(file.path, 'r');
+  const head = Buffer.alloc(4);
+  try {
+    await fh.read(head, 0, 4, 0);
+  } finally {
+    await fh.close();
+  }
+  if (!startsLikeZip(head) || /\.xls[xm]$/i.test(file.originalname)) return false;
+  try {
+    return !isWorkbook(await readZipDirectory(file.path));
+  } catch (err) {
+    // a damaged workbook is told by the workbook reader, as before; a damaged ZIP in our words
+    if (err instanceof ZipRefusal && /\.zip$/i.test(file.originalname)) throw err;
+    return false;
+  }
+}
+
+/**
+ * Files of one tag each (several, or one ZIP of them) into a folder of their own beside them, as 1.upload, 2.upload, …
+ * and surveyed. Anything refused leaves nothing: the folder and every uploaded file are removed.
+ */
+async function storeTagFiles(files: UploadedFile[], zip: boolean): Promise<{ folder: string; entries: TagFileEntry[] }> {
+  const folder = path.join(path.dirname(files[0]!.path), `${Date.now()}-${Math.random().toString(36).slice(2)}.files`);
+  try {
+    await mkdir(folder);
+    let stored: UploadedTagFile[];
+    if (zip) {
+      stored = await unzipTagFiles(files[0]!.path, folder);
+      await rm(files[0]!.path, { force: true });
+    } else {
+      stored = [];
+      for (const [k, f] of files.entries()) {
+        if (await zipOfFiles(f)) throw new TagFilesRefusal(`"${f.originalname.slice(0, 120)}" is a ZIP: upload a ZIP on its own, or the files in it`);
+        const numbered = path.join(folder, `${k + 1}.upload`);
+        await rename(f.path, numbered);
+        stored.push({ name: f.originalname.slice(0, 120), path: numbered, bytes: f.size });
+      }
+    }
+    return { folder, entries: await surveyTagFiles(folder, stored) };
+  } catch (err) {
+    await rm(folder, { recursive: true, force: true });
+    await Promise.all(files.map((f) => rm(f.path, { force: true })));
+    if (err instanceof ZipRefusal) throw new AppError(err.status, `${err.message} (nothing was stored)`);
+    if (err instanceof TagFilesRefusal) throw badRequest(`${err.message} (nothing was stored)`);
+    const code = (err as { code?: unknown } | null)?.code;
+    if (code === 'ENOSPC' || code === 'EDQUOT') throw new AppError(507, NO_ROOM);
+    throw err;
+  }
+}
+
+/**
+ * Stores the upload, reads its header and first rows, and proposes a mapping (the unit's saved one when it fits).
+ * Several files, or one ZIP of files, are files of one tag each: they form one import (a folder of them).
+ */
+export async function receiveUpload(ds: DataSource, scope: TenantScope, unitId: string, files: UploadedFile[]) {
+  const file = files[0]!;
   const { unit, plant } = await foundInScope(findUnitWithPlant(ds.manager, scope, unitId), 'No such unit').catch(async (err: unknown) => {
-    await rm(file.path, { force: true });
+    await Promise.all(files.map((f) => rm(f.path, { force: true })));
     throw err;
   });
+  let zip = false;
+  if (files.length === 1) {
+    try {
+      zip = await zipOfFiles(file);
+    } catch (err) {
+      await rm(file.path, { force: true });
+      throw err instanceof ZipRefusal ? new AppError(err.status, `${err.message} (nothing was stored)`) : err;
+    }
+  }
+  if (files.length > 1 || zip) {
+    const { folder, entries } = await storeTagFiles(files, zip);
+    const preview = tagFilesPreview(entries);
+    const fileName = zip ? file.originalname : `${files.length} files: ${files.map((f) => f.originalname).join(', ')}`;
+    try {
+      return await saveUpload(ds, scope, unit, plant.timeZone, preview, {
+        fileName,
+        fileBytes: files.reduce((n, f) => n + f.size, 0),
+        fileKind: 'per-tag',
+        storedPath: folder,
+      });
+    } catch (err) {
+      await rm(folder, { recursive: true, force: true });
+      throw err;
+    }
+  }
   let preview;
   try {
     preview = await readPreview(file.path);
@@ -146,14 +263,30 @@ export async function receiveUpload(ds: DataSource, scope: TenantScope, unitId: 
     await rm(file.path, { force: true });
     throw badRequest(`This file cannot be read as a table: ${err instanceof Error ? err.message : String(err)}`);
   }
-  const proposed = proposeMapping(preview, unit, plant.timeZone);
-  const imp = await ds.getRepository(DataImport).save({
-    organisationId: scope.organisationId,
-    unitId,
-    uploadedByUserId: scope.userId,
-    fileName: file.originalname.slice(0, 255),
+  return saveUpload(ds, scope, unit, plant.timeZone, preview, {
+    fileName: file.originalname,
     fileBytes: file.size,
     fileKind: preview.kind,
+    storedPath: file.path,
+  });
+}
+
+async function saveUpload(
+  ds: DataSource,
+  scope: TenantScope,
+  unit: GeneratingUnit,
+  timeZone: string,
+  preview: Awaited<ReturnType<typeof readPreview>>,
+  stored: { fileName: string; fileBytes: number; fileKind: string; storedPath: string },
+) {
+  const proposed = proposeMapping(preview, unit, timeZone);
+  const imp = await ds.getRepository(DataImport).save({
+    organisationId: scope.organisationId,
+    unitId: unit.id,
+    uploadedByUserId: scope.userId,
+    fileName: stored.fileName.slice(0, 255),
+    fileBytes: stored.fileBytes,
+    fileKind: stored.fileKind,
     status: 'mapping',
     mapping: proposed.mapping,
     counts: null,
@@ -162,7 +295,7 @@ export async function receiveUpload(ds: DataSource, scope: TenantScope, unitId: 
     notes: null,
     progress: 0,
     message: null,
-    storedPath: file.path,
+    storedPath: stored.storedPath,
     firstTimestamp: null,
     lastTimestamp: null,
     finishedAt: null,
@@ -208,6 +341,11 @@ export async function startImport(ds: DataSource, scope: TenantScope, importId: 
   const parsed = importMappingSchema.safeParse(mapping);
   if (!parsed.success) {
     throw badRequest('The column mapping is incomplete', { fieldErrors: parsed.error.issues.map((i) => ({ path: i.path.join('.'), message: i.message })) });
+  }
+  if (imp.fileKind === 'per-tag' && !parsed.data.tall) {
+    throw badRequest('Files of one tag each are mapped tag by tag: choose the time grid and map each tag to a quantity', {
+      fieldErrors: [{ path: 'tall', message: 'choose the time grid for the files of one tag each' }],
+    });
   }
   await ds.transaction(async (em) => {
     // Only from 'mapping': of two starts sent at once (a double click) the second changes nothing and is told so.
@@ -259,6 +397,7 @@ export async function undoImport(ds: DataSource, scope: TenantScope, importId: s
       details: { fileName: imp.fileName },
     });
   });
-  if (imp.storedPath) await rm(imp.storedPath, { force: true });
+  // a file, or a folder of files of one tag each
+  if (imp.storedPath) await rm(imp.storedPath, { force: true, recursive: true });
   return importView(await ds.getRepository(DataImport).findOneByOrFail({ id: imp.id }));
 }

@@ -129,7 +129,7 @@ describe('a set of one-tag files', () => {
       row: 0,
       column: '',
       value: TAGS[3],
-      message: `the times of "${TAGS[3]}.csv" (2025-06-02T06:00Z to 2025-06-02T08:00Z) do not overlap those of "${TAGS[0]}.csv" (2025-06-01T00:00Z to 2025-06-01T02:00Z): upload files of the same period`,
+      message: `the times of "${TAGS[3]}.csv" (2025-06-02T06:00:00Z to 2025-06-02T08:00:00Z) do not overlap those of "${TAGS[0]}.csv" (2025-06-01T00:00:00Z to 2025-06-01T02:00:00Z): upload files of the same period`,
     });
   });
 
