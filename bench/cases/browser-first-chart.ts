@@ -150,7 +150,7 @@ async function timeFirstChart(browser: Browser, base: string, unitPath: string |
     const page = await context.newPage();
     const chart = async () =>
       (await (
-        await page.waitForFunction(() => (window as unknown as { __cleancaseFirstChart?: FirstChart }).__cleancaseFirstChart, null, { timeout: 60_000 })
+        await page.waitForFunction(() => (globalThis as unknown as { __cleancaseFirstChart?: FirstChart }).__cleancaseFirstChart, null, { timeout: 60_000 })
       ).jsonValue()) as FirstChart;
     if (warm) {
       await page.goto(`${base}${unitPath}`);
