@@ -47,8 +47,10 @@ const UNASSIGNED: Assignment = { role: '', unit: '' };
 
 const selectClass = 'w-full rounded border border-rule bg-paper-raised px-2 py-1 text-sm';
 
-/** What the person maps: a wide file's columns, or a tall file's tags. */
-const namesOf = (upload: UploadResponse): string[] => (upload.shape === 'tall' ? upload.tags.map((t) => t.name) : upload.headers);
+/** Tags are mapped for a tall file and for files of one tag each. */
+const mapsTags = (upload: UploadResponse): boolean => upload.shape === 'tall' || upload.shape === 'per-tag-files';
+/** What the person maps: a wide file's columns, or the tags. */
+const namesOf = (upload: UploadResponse): string[] => (mapsTags(upload) ? upload.tags.map((t) => t.name) : upload.headers);
 
 const RULE_LABELS: Record<AlignmentRule, string> = {
   nearest: 'The sample nearest the grid time',
@@ -116,7 +118,7 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
   const [barometerUnit, setBarometerUnit] = useState<string>(proposed.fixedBarometer?.unit ?? (units.pressureKpa.label === 'inHgA' ? 'inHg' : 'kPa'));
   const [flowNotMetered, setFlowNotMetered] = useState(proposed.designCwFlowM3s !== undefined && !proposed.columns?.cwFlow);
   const [goodText, setGoodText] = useState((proposed.quality?.goodValues ?? ['Good']).join(', '));
-  const tallShape = upload.shape === 'tall' ? proposed.tall : undefined;
+  const tallShape = mapsTags(upload) ? proposed.tall : undefined;
   const [averagingText, setAveragingText] = useState(proposed.averagingMinutes !== undefined ? String(proposed.averagingMinutes) : '');
   const [gridMinutes, setGridMinutes] = useState<(typeof GRID_MINUTES)[number]>(proposed.tall?.gridMinutes ?? 60);
   const [rule, setRule] = useState<AlignmentRule>(proposed.tall?.rule ?? 'nearest');
@@ -227,12 +229,14 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
   return (
     <section aria-label="Map the columns" className="flex flex-col gap-4 rounded border border-rule bg-paper-raised p-4">
       <div>
-        <h2>2. Say what each column is</h2>
+        <h2>{tallShape ? '2. Say what each tag is' : '2. Say what each column is'}</h2>
         <p className="text-sm text-ink-soft">
-          {upload.import.fileName}:{' '}
-          {tallShape
-            ? `one row per tag per time; ${upload.tags.length} tags${upload.moreTags ? ' (the first 500)' : ''}: say which tag is which quantity.`
-            : `${upload.headers.length} columns.`}{' '}
+          {upload.shape === 'per-tag-files' && upload.files.length > 0 ? '' : `${upload.import.fileName}: `}
+          {upload.shape === 'per-tag-files'
+            ? `${upload.files.length} files of one tag each: say which tag is which quantity.`
+            : tallShape
+              ? `one row per tag per time; ${upload.tags.length} tags${upload.moreTags ? ' (the first 500)' : ''}: say which tag is which quantity.`
+              : `${upload.headers.length} columns.`}{' '}
           {upload.mappingSource === 'saved'
             ? 'Filled in from this unit’s last import, which had the same columns.'
             : 'Filled in from the column names and values; check every row, then start the import.'}{' '}
@@ -250,6 +254,8 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
           </details>
         )}
       </div>
+
+      {upload.shape === 'per-tag-files' && <TagFilesTable files={upload.files} />}
 
       <DataTable
         caption="Columns of the file"
@@ -338,9 +344,18 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
         <fieldset className="flex flex-col gap-3" data-testid="time-grid">
           <legend className="mb-1 text-sm font-semibold">One time grid for every tag</legend>
           <p className="text-sm text-ink-soft">
-            Tags are read from “{tallShape.tagColumn}”, values from “{tallShape.valueColumn}”, times from “{proposed.timestamp?.column}”
-            {proposed.quality ? `, quality from “${proposed.quality.column}” (good: ${goodText})` : ''}. A grid time without a value of every required tag is
-            left out and counted under that tag.
+            {upload.shape === 'per-tag-files' ? (
+              <>
+                Each file’s tag is read from the file (its value column’s name, a tag line above the header, or the file’s name)
+                {proposed.quality ? `; quality where a file has it (good: ${goodText})` : ''}. The files’ times must overlap.
+              </>
+            ) : (
+              <>
+                Tags are read from “{tallShape.tagColumn}”, values from “{tallShape.valueColumn}”, times from “{proposed.timestamp?.column}”
+                {proposed.quality ? `, quality from “${proposed.quality.column}” (good: ${goodText})` : ''}.
+              </>
+            )}{' '}
+            A grid time without a value of every required tag is left out and counted under that tag.
           </p>
           <div className="grid gap-3 md:grid-cols-3">
             <SelectField label="Grid" value={String(gridMinutes)} onChange={(e) => setGridMinutes(Number(e.target.value) as typeof gridMinutes)}>
@@ -505,5 +520,33 @@ function MappingForm({ organisationId, upload, plantTimeZone, designCwFlowM3s, u
         </Button>
       </div>
     </section>
+  );
+}
+
+/** Files of one tag each: which tag each holds, its rows and the period it covers, as written in the file. */
+function TagFilesTable({ files }: { files: UploadResponse['files'] }) {
+  return (
+    <DataTable
+      caption="Files uploaded, one tag each"
+      head={
+        <>
+          <th className={th}>File</th>
+          <th className={th}>Tag</th>
+          <th className={`${th} text-right`}>Rows</th>
+          <th className={th}>From</th>
+          <th className={th}>To</th>
+        </>
+      }
+    >
+      {files.map((f) => (
+        <tr key={f.name + f.tag} className={tr} data-testid="tag-file-row">
+          <td className={`${td} break-all`}>{f.name}</td>
+          <td className={`${td} font-medium break-all`}>{f.tag}</td>
+          <td className={`${td} text-right tabular-nums`}>{f.rows.toLocaleString('en-US')}</td>
+          <td className={`${td} font-mono text-xs whitespace-nowrap`}>{f.firstTime}</td>
+          <td className={`${td} font-mono text-xs whitespace-nowrap`}>{f.lastTime}</td>
+        </tr>
+      ))}
+    </DataTable>
   );
 }

@@ -1,14 +1,17 @@
 import { useEffect, useRef, useState, type FormEvent } from 'react';
 import { MAX_UPLOAD_BYTES } from '@shared/limits';
+import { MAX_TAG_FILES } from '@shared/schemas/imports';
 import { Button } from '@frontend/components/ui/button';
 import { Notice } from '@frontend/components/ui/notice';
 import { ProgressBar } from '@frontend/components/ui/progress-bar';
 import { ReadOnlyReason } from '@frontend/components/ui/read-only';
 import type { UploadHandle } from '@frontend/lib/api-client';
 import { formatBytes } from '@frontend/lib/format';
-import { uploadHistorianFile, type UploadResponse } from '../api/upload-historian-file';
+import { uploadHistorianFiles, type UploadResponse } from '../api/upload-historian-file';
 
 const MAX_MB = MAX_UPLOAD_BYTES / 1024 / 1024;
+/** Several files of one tag each, together (the server's limit). */
+const MAX_FILES_BYTES = 512 * 1024 * 1024;
 
 interface Props {
   unitId: string;
@@ -29,30 +32,37 @@ export function UploadStep(props: Props) {
   );
 }
 
-/** Step 1: choose a historian export and send it, with a progress bar. */
+/** Step 1: choose a historian export (or files of one tag each, or a ZIP of them) and send it, with a progress bar. */
 function UploadForm({ unitId, onUploaded }: Omit<Props, 'disabledReason'>) {
-  const [file, setFile] = useState<File | null>(null);
+  const [files, setFiles] = useState<File[]>([]);
   const [progress, setProgress] = useState<number | null>(null);
   const [error, setError] = useState<string | null>(null);
   const handle = useRef<UploadHandle<UploadResponse> | null>(null);
   useEffect(() => () => handle.current?.abort(), []);
 
-  const choose = (f: File | null) => {
+  const choose = (chosen: File[]) => {
     setError(null);
-    if (f && f.size > MAX_UPLOAD_BYTES) {
-      setFile(null);
-      return setError(`${f.name} is ${formatBytes(f.size)}; files up to ${MAX_MB} MB can be imported. Split it by date range.`);
+    setFiles([]);
+    const big = chosen.find((f) => f.size > MAX_UPLOAD_BYTES);
+    if (big) return setError(`${big.name} is ${formatBytes(big.size)}; files up to ${MAX_MB} MB can be imported. Split it by date range.`);
+    if (chosen.length > MAX_TAG_FILES) return setError(`${chosen.length} files chosen; at most ${MAX_TAG_FILES} files of one tag each are imported together.`);
+    const total = chosen.reduce((n, f) => n + f.size, 0);
+    if (chosen.length > 1 && total > MAX_FILES_BYTES) {
+      return setError(
+        `The files come to ${formatBytes(total)}; up to ${MAX_FILES_BYTES / 1024 / 1024} MB are imported together. Choose fewer or shorter files.`,
+      );
     }
-    if (f && !/\.(csv|txt|xlsx)$/i.test(f.name)) setError('The name does not end in .csv or .xlsx; the upload will be tried, but other formats are refused.');
-    setFile(f);
+    const odd = chosen.find((f) => !/\.(csv|txt|xlsx|zip)$/i.test(f.name));
+    if (odd) setError(`${odd.name} does not end in .csv, .xlsx or .zip; the upload will be tried, but other formats are refused.`);
+    setFiles(chosen);
   };
 
   const onSubmit = (event: FormEvent) => {
     event.preventDefault();
-    if (!file) return setError('Choose a CSV or XLSX file first');
+    if (files.length === 0) return setError('Choose a CSV or XLSX file first');
     setError(null);
     setProgress(0);
-    handle.current = uploadHistorianFile(unitId, file, setProgress);
+    handle.current = uploadHistorianFiles(unitId, files, setProgress);
     handle.current.promise.then(
       (r) => {
         handle.current = null;
@@ -72,28 +82,53 @@ function UploadForm({ unitId, onUploaded }: Omit<Props, 'disabledReason'>) {
       <h2>1. Choose the historian export</h2>
       <p className="text-sm text-ink-soft">
         A CSV or XLSX file of up to {MAX_MB} MB, one row per time: timestamp, gross load, backpressure (or vacuum and barometer), CW inlet and outlet
-        temperature and CW flow, in any column names and units. Nothing is stored until you confirm the columns and every row has been checked.
+        temperature and CW flow, in any column names and units — or one row per tag per time. Nothing is stored until you confirm the columns and every row has
+        been checked.
+      </p>
+      <p className="text-sm text-ink-soft">
+        Exported one file per tag? Choose them all at once (up to {MAX_TAG_FILES}), or one ZIP of them: they are put on one time grid and imported together.
       </p>
       <label className="flex flex-col gap-1 text-sm font-medium">
-        Historian file (CSV or XLSX, up to {MAX_MB} MB)
+        Historian file or files (CSV, XLSX or ZIP, up to {MAX_MB} MB each)
         <input
           type="file"
           name="file"
-          accept=".csv,.txt,.xlsx,text/csv,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet"
+          multiple
+          accept=".csv,.txt,.xlsx,.zip,text/csv,application/zip,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet"
           disabled={progress !== null}
-          onChange={(e) => choose(e.target.files?.[0] ?? null)}
+          onChange={(e) => choose(Array.from(e.target.files ?? []))}
           className="text-sm font-normal"
         />
       </label>
-      {file && (
+      {files.length === 1 && (
         <p className="text-xs text-ink-soft">
-          {file.name}, {formatBytes(file.size)}
+          {files[0]!.name}, {formatBytes(files[0]!.size)}
         </p>
       )}
-      {progress !== null && <ProgressBar fraction={progress} label="Uploading" message={progress < 1 ? `Uploading ${file?.name}` : 'Reading the columns…'} />}
+      {files.length > 1 && (
+        <details className="text-xs text-ink-soft" data-testid="chosen-files">
+          <summary className="cursor-pointer">
+            {files.length} files of one tag each, {formatBytes(files.reduce((n, f) => n + f.size, 0))}
+          </summary>
+          <ul className="ml-5 list-disc">
+            {files.map((f) => (
+              <li key={f.name} className="break-all">
+                {f.name}, {formatBytes(f.size)}
+              </li>
+            ))}
+          </ul>
+        </details>
+      )}
+      {progress !== null && (
+        <ProgressBar
+          fraction={progress}
+          label="Uploading"
+          message={progress < 1 ? `Uploading ${files.length === 1 ? files[0]!.name : `${files.length} files`}` : 'Reading the columns…'}
+        />
+      )}
       {error && <Notice tone="fault">{error}</Notice>}
       <div className="flex gap-2">
-        <Button type="submit" disabled={!file || progress !== null}>
+        <Button type="submit" disabled={files.length === 0 || progress !== null}>
           {progress !== null ? 'Uploading…' : 'Upload and map columns'}
         </Button>
         {progress !== null && (
