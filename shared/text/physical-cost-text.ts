@@ -47,12 +47,12 @@ export function physicalCostWords(p: PhysicalCost | null, capacityLimitedShare: 
 }
 
 /**
- * The same quantities short enough for a table cell: "10 MW lost when capacity-limited · 90 t CO2 a day". Null when
- * the quantities cannot be told (the long words say why).
+ * The same quantities short enough for a table cell, one part per quantity: ["10 MW lost when capacity-limited",
+ * "90 t CO2 a day"]. Empty when the quantities cannot be told (the long words say why).
  */
-export function physicalCostShort(p: PhysicalCost | null, capacityLimitedShare: number, per: string): string | null {
-  if (!p) return null;
-  if (p.penaltyMwh === 0) return 'no MW or CO2 lost';
+export function physicalCostParts(p: PhysicalCost | null, capacityLimitedShare: number, per: string): string[] {
+  if (!p) return [];
+  if (p.penaltyMwh === 0) return ['no MW or CO2 lost'];
   const better = p.penaltyMwh < 0;
   const parts: string[] = [];
   if (capacityLimitedShare > 0) {
@@ -60,5 +60,11 @@ export function physicalCostShort(p: PhysicalCost | null, capacityLimitedShare: 
     parts.push(`${amount} ${better ? 'gained' : 'lost'} when capacity-limited`);
   }
   if (capacityLimitedShare < 1) parts.push(`${formatQuantity(p.co2Tonnes)} t CO2 ${per}${better ? ' less' : ''}`);
-  return parts.join(' · ');
+  return parts;
+}
+
+/** The parts in one line: "10 MW lost when capacity-limited · 90 t CO2 a day"; null when the quantities cannot be told. */
+export function physicalCostShort(p: PhysicalCost | null, capacityLimitedShare: number, per: string): string | null {
+  const parts = physicalCostParts(p, capacityLimitedShare, per);
+  return parts.length ? parts.join(' · ') : null;
 }

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { physicalCost, type PhysicalCostBasis } from '@shared/domain/turbine/physical-cost';
 import { penaltyCostPerHour } from '@shared/domain/turbine/penalty-cost';
-import { physicalCostShort, physicalCostWords } from '@shared/text/physical-cost-text';
+import { physicalCostParts, physicalCostShort, physicalCostWords } from '@shared/text/physical-cost-text';
 
 // Hand-computed, closed form. Value of one MWh of penalty (heat-rate equivalent):
 //   load held (1 − s of hours): HR/1000 MMBtu/MWh × (fuel price + CO2 kg/MMBtu / 1000 × CO2 price)
@@ -117,5 +117,12 @@ describe('the physical quantities short, for a table cell', () => {
     expect(physicalCostShort(physicalCost(0, BASIS, 24), 0.25, 'a day')).toBe('no MW or CO2 lost');
     expect(physicalCostShort(physicalCost(-450, BASIS, 24), 0.25, 'a day')).toBe('0.4 MW gained when capacity-limited · 3.8 t CO2 a day less');
     expect(physicalCostShort(null, 0.25, 'a day')).toBeNull();
+  });
+});
+
+describe('the physical quantities as parts, one line each in a table cell', () => {
+  it('gives one part per quantity, none when they cannot be told', () => {
+    expect(physicalCostParts(physicalCost(10_800, BASIS, 24), 0.25, 'a day')).toEqual(['10 MW lost when capacity-limited', '90 t CO2 a day']);
+    expect(physicalCostParts(null, 0.25, 'a day')).toEqual([]);
   });
 });

@@ -20,9 +20,13 @@ export function UnitConditionCells({ organisationId, unitId }: { organisationId:
       <td className={`${td} text-right tabular-nums whitespace-nowrap`} data-testid="unit-cost-per-day">
         {c.costPerDay}
         {c.costNote && <span className="block text-xs text-ink-faint">{c.costNote}</span>}
-        {c.physical && (
-          <span className="block text-xs whitespace-normal text-ink-faint" data-testid="unit-physical">
-            {c.physical}
+        {c.physical.length > 0 && (
+          <span className="block text-xs text-ink-faint" data-testid="unit-physical">
+            {c.physical.map((part) => (
+              <span key={part} className="block">
+                {part}
+              </span>
+            ))}
           </span>
         )}
       </td>

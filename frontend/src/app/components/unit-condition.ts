@@ -3,7 +3,7 @@ import { useState } from 'react';
 import { healthQueryOptions, type HealthHeadline } from '@frontend/features/health/api/get-health';
 import { unitQueryOptions } from '@frontend/features/units/api/get-unit';
 import { formatCurrency, formatDay, formatPercent } from '@frontend/lib/format';
-import { physicalCostShort } from '@shared/text/physical-cost-text';
+import { physicalCostParts } from '@shared/text/physical-cost-text';
 
 /** Data older than this reads as stale beside a unit (the health view's own threshold, common practice for daily monitoring). */
 const STALE_AFTER_DAYS = 2;
@@ -18,8 +18,8 @@ export interface UnitCondition {
   costPerDay: string;
   /** a negative cost is real (the unit runs better than its reference): said in words, not as a minus sign alone */
   costNote: string | null;
-  /** the MW and t CO2 the cost per day stands for */
-  physical: string | null;
+  /** the MW and t CO2 the cost per day stands for, one part per quantity */
+  physical: string[];
   dataAge: string;
   stale: boolean;
   lastDay: string | null;
@@ -38,7 +38,7 @@ export function useUnitCondition(organisationId: string, unitId: string): UnitCo
   const health = useQuery({ ...healthQueryOptions(organisationId, unitId, { from: day, to: day, breakdownBy: 'month' }), placeholderData: undefined });
   // the data's age is measured from when the figures were fetched, as on the unit's own page
   const now = health.dataUpdatedAt;
-  const empty = { cleanliness: '—', reference: null, costPerDay: '—', costNote: null, physical: null, dataAge: '—', stale: false, lastDay: null };
+  const empty = { cleanliness: '—', reference: null, costPerDay: '—', costNote: null, physical: [], dataAge: '—', stale: false, lastDay: null };
   if (unit.isError || health.isError) return { state: 'error', ...empty };
   if (!unit.data || !health.data) return { state: 'loading', ...empty };
   const h: HealthHeadline = health.data.headline;
@@ -51,7 +51,7 @@ export function useUnitCondition(organisationId: string, unitId: string): UnitCo
     reference: h.referenceCleanliness === null ? null : formatPercent(h.referenceCleanliness, 0),
     costPerDay: cost === null ? '—' : `${formatCurrency(Math.abs(cost), currency)}/day`,
     costNote: cost !== null && cost < 0 ? 'saved: cleaner than the reference' : null,
-    physical: cost !== null && h.foulingPhysical ? physicalCostShort(h.foulingPhysical.perDay, h.foulingPhysical.capacityLimitedShare, 'a day') : null,
+    physical: cost !== null && h.foulingPhysical ? physicalCostParts(h.foulingPhysical.perDay, h.foulingPhysical.capacityLimitedShare, 'a day') : [],
     dataAge: ageDays === null ? 'no data yet' : ageInWords(ageDays),
     stale: ageDays !== null && ageDays > STALE_AFTER_DAYS,
     lastDay: h.asOf ? formatDay(h.asOf) : null,

@@ -1,7 +1,10 @@
 import type { ReactNode } from 'react';
 
-/** Cell classes shared by every table, so lists read alike and print cleanly. */
-export const th = 'px-3 py-2 text-left text-xs font-medium uppercase tracking-wide text-ink-soft';
+/**
+ * Cell classes shared by every table, so lists read alike and print cleanly. Headers are written as sentences
+ * (capital first letter only), in the ink of the text, a little heavier than it: read as labels, not as a banner.
+ */
+export const th = 'px-3 py-2 text-left align-bottom text-xs leading-snug font-semibold text-ink-soft';
 export const td = 'px-3 py-2 align-top';
 export const tr = 'border-b border-rule last:border-0';
 

@@ -5,7 +5,7 @@ import { th, td, tr } from '@frontend/components/ui/data-table';
 import type { UnitSystem } from '@frontend/lib/field-units';
 import { fieldUnits, formatStored } from '@frontend/lib/field-units';
 import { formatCurrency, formatDay, formatNumber, formatPercent } from '@frontend/lib/format';
-import { physicalCostShort } from '@shared/text/physical-cost-text';
+import { physicalCostParts } from '@shared/text/physical-cost-text';
 import { sortUnits, type SortKey, type SortOrder } from './portfolio-order';
 import { CASE_WORDS, CONDITION_WORDS } from './portfolio-words';
 
@@ -36,11 +36,7 @@ function SortHeader({ column, order, onSort }: { column: Column; order: SortOrde
   const sticky = column.key === 'unit' ? 'sticky left-0 z-10 bg-paper-sunk' : '';
   return (
     <th scope="col" aria-sort={active ? order.direction : 'none'} className={`${th} ${column.numeric ? 'text-right' : ''} ${sticky}`}>
-      <button
-        type="button"
-        onClick={() => onSort(column.key)}
-        className="inline-flex items-center gap-1 uppercase tracking-wide hover:text-ink focus-visible:text-ink"
-      >
+      <button type="button" onClick={() => onSort(column.key)} className="inline-flex items-center gap-1 hover:text-ink focus-visible:text-ink">
         {column.label}
         <span aria-hidden className="text-ink-faint">
           {active ? (order.direction === 'ascending' ? '▲' : '▼') : '↕'}
@@ -90,8 +86,12 @@ function Row({ u, system }: { u: PortfolioUnit; system: UnitSystem }) {
       <td className={`${td} text-right tabular-nums`} data-testid="unit-cost-per-day">
         {money(u.foulingCostPerDay)}
         {u.foulingPhysical && u.foulingCostPerDay !== null && (
-          <span className="block max-w-[12rem] text-xs text-ink-faint" data-testid="unit-physical">
-            {physicalCostShort(u.foulingPhysical.perDay, u.foulingPhysical.capacityLimitedShare, 'a day')}
+          <span className="block text-xs text-ink-faint" data-testid="unit-physical">
+            {physicalCostParts(u.foulingPhysical.perDay, u.foulingPhysical.capacityLimitedShare, 'a day').map((part) => (
+              <span key={part} className="block whitespace-nowrap">
+                {part}
+              </span>
+            ))}
           </span>
         )}
       </td>
