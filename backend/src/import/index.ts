@@ -19,7 +19,9 @@ export { openTable, detectTableKind, type TableKind } from './open-table.js';
 export type { RawRow, RawTable } from './raw-table.js';
 export {
   checkImportFile,
+  checkAndImportSamples,
   importSamples,
+  type CheckedImport,
   type ImportCheck,
   type ImportSample,
   type ImportSummary,

@@ -18,7 +18,7 @@
 import { checkPointValidity, type RejectionReason, type ValidityContext } from '@shared/domain/validity/index.js';
 import { DEFAULT_MAX_ROW_ERRORS, ImportFileError, RowErrorList, type ImportFileErrorCode, type RowError } from './import-errors.js';
 import { openTable, type TableKind } from './open-table.js';
-import { F, RECORD_FIELDS, RowConverter, compileMapping } from './row-conversion.js';
+import { F, RECORD_FIELDS, RowConverter, compileMapping, type CompiledMapping } from './row-conversion.js';
 import { RecordSorter } from './record-sorter.js';
 import { SteadinessWindow } from './steadiness-window.js';
 import type { RawTable } from './raw-table.js';
@@ -104,6 +104,30 @@ const asFileError = (e: ImportFileError) => ({ code: e.code, message: e.message,
 
 /** Pass 1: reads and converts every row, collects every error, writes nothing. */
 export async function checkImportFile(filePath: string, options: ImportFileOptions & { maxErrors?: number }): Promise<ImportCheck> {
+  return (await checkRows(filePath, options, null)).check;
+}
+
+export interface CheckedImport {
+  check: ImportCheck;
+  /** The samples' counts when every row went to `onBatch`; null when the file had errors or was not in ascending time order. */
+  summary: ImportSummary | null;
+}
+
+/**
+ * Both passes in one read, for a file in ascending time order: every row is checked as in `checkImportFile`, and
+ * while no error has been met and the times rise, the checked rows are classified and handed to `onBatch` as in
+ * `importSamples`. The caller learns from `summary` whether that went to the end; when it did not (a wrong file,
+ * or one out of order) it removes what `onBatch` stored and, for a right file out of order, runs `importSamples`.
+ */
+export async function checkAndImportSamples(filePath: string, options: ImportSamplesOptions & { maxErrors?: number }): Promise<CheckedImport> {
+  return checkRows(filePath, options, options);
+}
+
+async function checkRows(
+  filePath: string,
+  options: ImportFileOptions & { maxErrors?: number },
+  stream: Pick<ImportSamplesOptions, 'steadiness' | 'onBatch' | 'batchSize'> | null,
+): Promise<CheckedImport> {
   const result: ImportCheck = {
     ok: false,
     headers: [],
@@ -119,13 +143,15 @@ export async function checkImportFile(filePath: string, options: ImportFileOptio
   };
   const errors = new RowErrorList(options.maxErrors ?? DEFAULT_MAX_ROW_ERRORS);
   let table: RawTable | undefined;
+  let classifier: SampleClassifier | null = null;
   try {
     table = await openTable(filePath, { kind: options.kind, delimiter: options.delimiter, sheet: sheetOf(options.mapping) });
     result.kind = table.kind;
     result.headers = table.headers;
     const compiled = compileMapping(options.mapping, table.headers);
-    result.assumptions = compiled.assumptions;
+    result.assumptions = [...compiled.assumptions];
     const converter = new RowConverter(compiled, options.statusWords);
+    classifier = stream ? new SampleClassifier(compiled, converter, stream, false) : null;
     const record = new Float64Array(RECORD_FIELDS);
     const index = new TimeIndex();
     const sums = new Float64Array(RECORD_FIELDS);
@@ -133,7 +159,7 @@ export async function checkImportFile(filePath: string, options: ImportFileOptio
     let ascending = true;
     let descending = true;
     let prev = Number.NaN;
-    for await (const chunk of table.chunks)
+    for await (const chunk of table.chunks) {
       for (const row of chunk) {
         result.dataRows++;
         const good = converter.convert(row.cells, row.line, record, errors);
@@ -154,7 +180,16 @@ export async function checkImportFile(filePath: string, options: ImportFileOptio
             counts[f]!++;
           }
         }
+        if (classifier) {
+          // the first wrong row or step back in time ends the streaming; the check goes on to the end
+          if (good && ascending && errors.total === 0) {
+            classifier.summary.rowsRead++;
+            classifier.push(record.slice());
+          } else classifier = null;
+        }
       }
+      if (classifier?.ready) await classifier.drain();
+    }
     result.order = ascending ? 'ascending' : descending && index.n > 1 ? 'descending' : 'unordered';
     if (!ascending && !descending) result.duplicateTimestamps = reportDuplicates(index, table.headers[compiled.timestampIndex]!, errors);
     result.warnings = unitWarnings(sums, counts);
@@ -167,7 +202,7 @@ export async function checkImportFile(filePath: string, options: ImportFileOptio
   result.errors = errors.errors;
   result.errorsNotListed = errors.notListed;
   result.ok = !result.fileError && errors.total === 0;
-  return result;
+  return { check: result, summary: result.ok && classifier ? await classifier.finish() : null };
 }
 
 /** Sorts (time, line) and reports each repeat of a time at its later line. */
@@ -259,15 +294,21 @@ const OPTIONAL_FIELDS: [keyof ImportSample, number][] = [
 ];
 
 /**
- * Pass 2: streams converted, classified samples to `onBatch`. Throws ImportFileError when the file
- * turns out wrong after all (changed since the check, or checked with another mapping).
+ * Classifies converted records arriving in ascending time order: the steadiness window judges each against its
+ * neighbours (checkPointValidity) and the samples are gathered into batches for the caller, with the counts.
  */
-export async function importSamples(filePath: string, options: ImportSamplesOptions): Promise<ImportSummary> {
-  const table = await openTable(filePath, { kind: options.kind, delimiter: options.delimiter, sheet: sheetOf(options.mapping) });
-  const sorter = options.fileOrder === 'ascending' ? null : new RecordSorter(options.tempDir, options.sortChunkRows);
-  try {
-    const compiled = compileMapping(options.mapping, table.headers);
-    const converter = new RowConverter(compiled, options.statusWords);
+class SampleClassifier {
+  readonly summary: ImportSummary;
+  private batch: ImportSample[] = [];
+  private readonly pending: ImportSample[][] = [];
+  private readonly window: SteadinessWindow;
+
+  constructor(
+    compiled: CompiledMapping,
+    converter: RowConverter,
+    private readonly options: Pick<ImportSamplesOptions, 'steadiness' | 'onBatch' | 'batchSize'>,
+    sortedOnTheWay: boolean,
+  ) {
     const s = options.steadiness ?? {};
     // averages over an interval: the load change is judged between neighbouring intervals, so the window spans one
     const averaging = compiled.mapping.averagingMinutes;
@@ -278,7 +319,7 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
       );
     }
     const batchSize = options.batchSize ?? 5000;
-    const summary: ImportSummary = {
+    const summary: ImportSummary = (this.summary = {
       rowsRead: 0,
       rowsOk: 0,
       rowsByReason: {},
@@ -287,12 +328,10 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
       lastTimestampUtc: null,
       duplicateTimestamps: 0,
       flowAssumedRows: 0,
-      sortedOnTheWay: sorter !== null,
+      sortedOnTheWay,
       assumptions: compiled.assumptions,
-    };
-    let batch: ImportSample[] = [];
-    const pendingBatches: ImportSample[][] = [];
-    const window = new SteadinessWindow(windowMinutes * 60_000, (r, minLoad, minT, maxLoad, maxT) => {
+    });
+    this.window = new SteadinessWindow(windowMinutes * 60_000, (r, minLoad, minT, maxLoad, maxT) => {
       const t = r[F.timestampUtc]!;
       const point = {
         backpressureKpa: r[F.backpressureKpa]!,
@@ -334,16 +373,50 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
       if (compiled.flowAssumed) summary.flowAssumedRows++;
       summary.firstTimestampUtc ??= t;
       summary.lastTimestampUtc = t;
-      batch.push(sample);
-      if (batch.length >= batchSize) {
-        pendingBatches.push(batch);
-        batch = [];
+      this.batch.push(sample);
+      if (this.batch.length >= batchSize) {
+        this.pending.push(this.batch);
+        this.batch = [];
       }
     });
-    const drain = async () => {
-      while (pendingBatches.length > 0) await options.onBatch(pendingBatches.shift()!);
-    };
+  }
 
+  /** A record in strictly ascending time (the window keeps it: pass a record of its own). */
+  push(record: Float64Array): void {
+    this.window.push(record);
+  }
+
+  /** Whether a batch waits for the caller. */
+  get ready(): boolean {
+    return this.pending.length > 0;
+  }
+
+  /** Hands the batches made so far to the caller, in order. */
+  async drain(): Promise<void> {
+    while (this.pending.length > 0) await this.options.onBatch(this.pending.shift()!);
+  }
+
+  /** Releases the records still in the window and hands over the last batches. */
+  async finish(): Promise<ImportSummary> {
+    this.window.flush();
+    if (this.batch.length > 0) this.pending.push(this.batch);
+    this.batch = [];
+    await this.drain();
+    return this.summary;
+  }
+}
+
+/**
+ * Pass 2: streams converted, classified samples to `onBatch`. Throws ImportFileError when the file
+ * turns out wrong after all (changed since the check, or checked with another mapping).
+ */
+export async function importSamples(filePath: string, options: ImportSamplesOptions): Promise<ImportSummary> {
+  const table = await openTable(filePath, { kind: options.kind, delimiter: options.delimiter, sheet: sheetOf(options.mapping) });
+  const sorter = options.fileOrder === 'ascending' ? null : new RecordSorter(options.tempDir, options.sortChunkRows);
+  try {
+    const compiled = compileMapping(options.mapping, table.headers);
+    const converter = new RowConverter(compiled, options.statusWords);
+    const classifier = new SampleClassifier(compiled, converter, options, sorter !== null);
     const errors = new RowErrorList(1);
     let lastTime = -Infinity;
     for await (const chunk of table.chunks)
@@ -354,15 +427,15 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
           const wrong = e ? `line ${e.row} is wrong (${e.message})` : `line ${row.line} is wrong`;
           throw new ImportFileError('file-changed', `${wrong}: check the file again before importing`, e?.row ?? row.line);
         }
-        summary.rowsRead++;
+        classifier.summary.rowsRead++;
         if (sorter) await sorter.add(record);
         else {
           if (!(record[F.timestampUtc]! > lastTime)) {
             throw new ImportFileError('file-changed', `line ${row.line} is not in ascending time order: check the file again before importing`, row.line);
           }
           lastTime = record[F.timestampUtc]!;
-          window.push(record);
-          if (pendingBatches.length > 0) await drain();
+          classifier.push(record);
+          if (classifier.ready) await classifier.drain();
         }
       }
     if (sorter) {
@@ -372,14 +445,11 @@ export async function importSamples(filePath: string, options: ImportSamplesOpti
           throw new ImportFileError('file-changed', `line ${record[F.line]} repeats a timestamp: check the file again before importing`, record[F.line]);
         }
         prev = record[F.timestampUtc]!;
-        window.push(record);
-        if (pendingBatches.length > 0) await drain();
+        classifier.push(record);
+        if (classifier.ready) await classifier.drain();
       }
     }
-    window.flush();
-    if (batch.length > 0) pendingBatches.push(batch);
-    await drain();
-    return summary;
+    return await classifier.finish();
   } finally {
     await table.close();
     await sorter?.dispose();

@@ -12,25 +12,37 @@ import { LOADED_COLUMNS, type SampleOwner } from './sample-bulk-load.repository.
 import { PASSED_CHECKS_SQL } from './sample-validity.js';
 import { restrictUnitRecordsToScope } from './scope-filter.js';
 
-/** The sample, or null when it does not exist or its unit lies outside the scope. */
+/**
+ * SQL condition on `performance_sample` (alias-free, one parameter: the unit's id): the row belongs to no import
+ * still checking or importing. An import stores its rows while it checks the file and removes them all when it
+ * fails, so readers see a unit's rows only once their import is complete.
+ */
+export const SHOWN_SAMPLE_SQL = `importId NOT IN (SELECT i.id FROM data_import i WHERE i.unitId = ? AND i.status IN ('checking', 'importing'))`;
+
+/** The sample, or null when it does not exist, its import is not complete or its unit lies outside the scope. */
 export function findSampleInScope(em: EntityManager, scope: TenantScope, id: string): Promise<PerformanceSample | null> {
   if (!/^\d{1,19}$/.test(id)) return Promise.resolve(null);
-  const qb = em.getRepository(PerformanceSample).createQueryBuilder('s').where('s.id = :id', { id });
+  const qb = em
+    .getRepository(PerformanceSample)
+    .createQueryBuilder('s')
+    .where('s.id = :id', { id })
+    .andWhere(`s.importId NOT IN (SELECT i.id FROM data_import i WHERE i.unitId = s.unitId AND i.status IN ('checking', 'importing'))`);
   return restrictUnitRecordsToScope(qb, 's', scope, { ownTenantColumn: false }).getOne();
 }
 
 const isoOrNull = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
 
-/** How many samples a unit has and the times of its first and last (ISO, UTC). */
+/** How many samples a unit shows and the times of its first and last (ISO, UTC). */
 export async function sampleSpanOfUnit(em: EntityManager, unitId: string): Promise<{ count: number; first: string | null; last: string | null }> {
-  const [row] = await em.query('SELECT COUNT(*) AS n, MIN(timestampUtc) AS first, MAX(timestampUtc) AS last FROM performance_sample WHERE unitId = ?', [
-    unitId,
-  ]);
+  const [row] = await em.query(
+    `SELECT COUNT(*) AS n, MIN(timestampUtc) AS first, MAX(timestampUtc) AS last FROM performance_sample WHERE unitId = ? AND ${SHOWN_SAMPLE_SQL}`,
+    [unitId, unitId],
+  );
   return { count: Number(row.n), first: isoOrNull(row.first), last: isoOrNull(row.last) };
 }
 
 export async function lastSampleTimeOfUnit(em: EntityManager, unitId: string): Promise<string | null> {
-  const [row] = await em.query('SELECT MAX(timestampUtc) AS ts FROM performance_sample WHERE unitId = ?', [unitId]);
+  const [row] = await em.query(`SELECT MAX(timestampUtc) AS ts FROM performance_sample WHERE unitId = ? AND ${SHOWN_SAMPLE_SQL}`, [unitId, unitId]);
   return isoOrNull(row?.ts);
 }
 
@@ -49,7 +61,7 @@ export interface ChartPointRow {
   values: Partial<Record<ChartColumn, number | null>>;
 }
 
-/** A unit's samples in [fromUtc, toUtc), in time order, with the given columns only. */
+/** A unit's samples in [fromUtc, toUtc), in time order, with the given columns only (rows of complete imports). */
 export async function chartPointsOfUnit(
   em: EntityManager,
   unitId: string,
@@ -58,8 +70,9 @@ export async function chartPointsOfUnit(
   toUtc: string,
 ): Promise<ChartPointRow[]> {
   const rows: Record<string, unknown>[] = await em.query(
-    `SELECT timestampUtc AS ts, ${PASSED_CHECKS_SQL} AS passedChecks, ${columns.join(', ')} FROM performance_sample WHERE unitId = ? AND timestampUtc >= ? AND timestampUtc < ? ORDER BY timestampUtc`,
-    [unitId, fromUtc, toUtc],
+    `SELECT timestampUtc AS ts, ${PASSED_CHECKS_SQL} AS passedChecks, ${columns.join(', ')} FROM performance_sample
+      WHERE unitId = ? AND timestampUtc >= ? AND timestampUtc < ? AND ${SHOWN_SAMPLE_SQL} ORDER BY timestampUtc`,
+    [unitId, fromUtc, toUtc, unitId],
   );
   return rows.map((r) => ({
     ts: r.ts as Date | string,
@@ -76,6 +89,15 @@ export interface StoredReading {
   cwInletC: number;
   cwOutletC: number;
   cwFlowM3s: number;
+}
+
+/** The first and last time (ms) of the unit's rows stored by other imports than the given one; null when there are none. */
+export async function storedSpanBesides(em: EntityManager, unitId: string, importId: string): Promise<{ first: number; last: number } | null> {
+  const [row] = await em.query('SELECT MIN(timestampUtc) AS first, MAX(timestampUtc) AS last FROM performance_sample WHERE unitId = ? AND importId <> ?', [
+    unitId,
+    importId,
+  ]);
+  return row?.first ? { first: new Date(row.first).getTime(), last: new Date(row.last).getTime() } : null;
 }
 
 export function storedReadingsBetween(em: EntityManager, unitId: string, from: Date, to: Date): Promise<StoredReading[]> {

@@ -1,7 +1,8 @@
 /**
  * The import job, in order: check the file → store its rows → mark it complete and queue the recompute of
- * derived data (as every other change does). Any failure leaves no rows and a failed import, handled in one
- * place below. A run that takes over from a worker that died starts again from the check.
+ * derived data (as every other change does). A wide file in time order is checked and stored in one read; a
+ * rejected file leaves none of its rows. Any failure leaves no rows and a failed import, handled in one place
+ * below. A run that takes over from a worker that died starts again from the check.
  */
 import { rm } from 'node:fs/promises';
 import type { DataSource, EntityManager } from 'typeorm';
@@ -9,10 +10,10 @@ import { DataImport } from '../../entities/data-import.entity.js';
 import { GeneratingUnit } from '../../entities/generating-unit.entity.js';
 import { LostJobLockError, withLease, type JobLease } from '../../jobs/job-queue.js';
 import { deleteSamplesOfImport } from '../../repositories/sample.repository.js';
-import { checkFile, rejectImport } from './check-file.js';
+import { checkFile, isTallMapping, rejectImport, startAfresh } from './check-file.js';
 import { importProgress } from './import-progress.js';
 import { completeAndQueueRecompute } from './queue-recompute.js';
-import { storeRows } from './store-rows.js';
+import { checkAndStoreRows, storeRows } from './store-rows.js';
 import { statusWordsOfOrganisation } from '../historian-status.service.js';
 
 export async function runImportJob(ds: DataSource, job: JobLease, importId: string): Promise<void> {
@@ -24,15 +25,28 @@ export async function runImportJob(ds: DataSource, job: JobLease, importId: stri
     if (!imp.storedPath) throw new Error('the uploaded file is gone');
     const statusWords = await statusWordsOfOrganisation(ds.manager, imp.organisationId);
     const step = { importId: imp.id, storedPath: imp.storedPath, mapping: imp.mapping, statusWords, progress: importProgress(ds, job, imp.id) };
-    const { check, prepared } = await checkFile(ds, job, step);
-    try {
-      if (!check.ok || !prepared) await rejectImport(ds, job, imp.id, check);
+    if (!isTallMapping(imp.mapping)) {
+      // A wide file: checked and stored in one read; a right file out of time order goes in again, sorted.
+      await startAfresh(ds, job, imp.id);
+      await step.progress(0.02, 'Checking and storing every row');
+      const { check, stored } = await checkAndStoreRows(ds, job, { ...step, unit, fileBytes: imp.fileBytes });
+      if (!check.ok) await rejectImport(ds, job, imp.id, check);
+      else if (stored) await completeAndQueueRecompute(ds, job, imp, stored, check);
       else {
-        const read = { storedPath: prepared.path, mapping: prepared.mapping, statusWords: prepared.statusWords };
-        await completeAndQueueRecompute(ds, job, imp, await storeRows(ds, job, { ...step, ...read, unit, check }), check, prepared.alignment);
+        await startAfresh(ds, job, imp.id);
+        await completeAndQueueRecompute(ds, job, imp, await storeRows(ds, job, { ...step, unit, check }), check);
       }
-    } finally {
-      await prepared?.dispose();
+    } else {
+      const { check, prepared } = await checkFile(ds, job, step);
+      try {
+        if (!check.ok || !prepared) await rejectImport(ds, job, imp.id, check);
+        else {
+          const read = { storedPath: prepared.path, mapping: prepared.mapping, statusWords: prepared.statusWords };
+          await completeAndQueueRecompute(ds, job, imp, await storeRows(ds, job, { ...step, ...read, unit, check }), check, prepared.alignment);
+        }
+      } finally {
+        await prepared?.dispose();
+      }
     }
   } catch (err) {
     // The worker that took the job over carries on: touch nothing.
