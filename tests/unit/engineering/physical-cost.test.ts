@@ -29,7 +29,7 @@ describe('physical quantities behind a fouling cost (closed form)', () => {
 
   it('turns back exactly what the cost per hour was made of (the forward formula of the monitoring calculation)', () => {
     // 400 MW load, 1.5 % heat-rate penalty; output penalty taken equal (the heat-rate equivalent the inverse returns)
-    const c = penaltyCostPerHour({ ratingMw: 400, loadFraction: 1, heatRateBtuKwh: 10_000, heatRatePenaltyPct: 1.5, outputPenaltyPct: 1.5, ...BASIS });
+    const c = penaltyCostPerHour({ ratingMw: 400, loadFraction: 1, heatRatePenaltyPct: 1.5, outputPenaltyPct: 1.5, ...BASIS });
     const s = BASIS.capacityLimitedShare;
     const perHour = (1 - s) * (c.fuelCostPerHour + c.co2CostPerHour) + s * c.capacityCostPerHour;
     const p = physicalCost(perHour * 24, BASIS, 24)!;
