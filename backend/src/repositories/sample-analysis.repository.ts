@@ -2,9 +2,11 @@
  * The recompute's statements on `performance_sample`: the samples it reads in id order, chunk by chunk, and
  * the per-sample analysis it writes back. Which rows are read is decided in sample-validity.ts.
  */
+import { Readable } from 'node:stream';
 import type { EntityManager } from 'typeorm';
 import type { SampleAnalysis } from '@shared/domain/monitoring/index.js';
 import type { PerformanceSample } from '../entities/performance-sample.entity.js';
+import { loadedNumber, loadStatement } from './sample-bulk-load.repository.js';
 import { REANALYSABLE_SAMPLE_SQL } from './sample-validity.js';
 
 /** A stored sample as the model reads it. */
@@ -78,8 +80,8 @@ export interface AnalysedSample {
 const WRITTEN = ['validity', ...ANALYSIS_COLUMNS] as const;
 
 /**
- * Analyses are written through a temporary table, one joined UPDATE per chunk: `em` must stay on one
- * connection (a query runner's manager) from openAnalysisScratch to closeAnalysisScratch.
+ * Analyses are written through a temporary table, loaded with LOAD DATA and joined in one UPDATE per chunk:
+ * `em` must stay on one connection (a query runner's manager) from openAnalysisScratch to closeAnalysisScratch.
  */
 export async function openAnalysisScratch(em: EntityManager): Promise<void> {
   await em.query(
@@ -87,16 +89,24 @@ export async function openAnalysisScratch(em: EntityManager): Promise<void> {
   );
 }
 
+const LOAD_ANALYSES_SQL = `LOAD DATA LOCAL INFILE 'analyses.tsv' INTO TABLE derived_update CHARACTER SET utf8mb4
+  FIELDS TERMINATED BY '\\t' ESCAPED BY '\\\\' LINES TERMINATED BY '\\n' (id, ${WRITTEN.join(', ')})`;
+
+/** One analysed sample as a loaded line (a validity is a reason code: no tab, newline or backslash). */
+function analysisLine(s: AnalysedSample): string {
+  let line = `${s.id}\t${s.validity}`;
+  for (const c of ANALYSIS_COLUMNS) line += `\t${loadedNumber(s.analysis?.[c])}`;
+  return `${line}\n`;
+}
+
 /** Writes one chunk of analyses, stamped with the setup version they were made with. */
 export async function writeAnalyses(em: EntityManager, analysed: readonly AnalysedSample[], setupVersion: number): Promise<void> {
   if (analysed.length === 0) return;
-  const values: unknown[] = [];
-  for (const s of analysed) values.push(s.id, s.validity, ...ANALYSIS_COLUMNS.map((c) => s.analysis?.[c] ?? null));
   await em.query('TRUNCATE TABLE derived_update');
-  await em.query(
-    `INSERT INTO derived_update (id, ${WRITTEN.join(', ')}) VALUES ${analysed.map(() => `(?,${WRITTEN.map(() => '?').join(',')})`).join(',')}`,
-    values,
-  );
+  const body = Buffer.from(analysed.map(analysisLine).join(''), 'utf8');
+  const loaded = await loadStatement(em, LOAD_ANALYSES_SQL, () => Readable.from([body]));
+  if (loaded.affectedRows !== analysed.length || loaded.warningStatus !== 0)
+    throw new Error(`the recompute could write ${loaded.affectedRows} of ${analysed.length} analyses`);
   await em.query(
     `UPDATE performance_sample s JOIN derived_update d ON d.id = s.id SET ${WRITTEN.map((c) => `s.${c} = d.${c}`).join(', ')}, s.setupVersion = ?`,
     [setupVersion],

@@ -94,12 +94,20 @@ interface RawConnection {
 
 /** Streams a body of lines into `performance_sample`; resolves with the rows stored and the warnings raised. */
 export function loadLines(em: EntityManager, lines: () => Readable): Promise<LoadResult> {
+  return loadStatement(em, LOAD_SAMPLES_SQL, lines);
+}
+
+/** Runs one `LOAD DATA LOCAL INFILE` statement with the given body of lines, on the manager's one connection. */
+export function loadStatement(em: EntityManager, sql: string, lines: () => Readable): Promise<LoadResult> {
   const connection = (em.queryRunner as unknown as { databaseConnection?: RawConnection } | undefined)?.databaseConnection;
   if (!connection) throw new Error('a bulk load needs a manager bound to one connection (inside a transaction)');
   return new Promise((resolve, reject) => {
-    connection.query({ sql: LOAD_SAMPLES_SQL, infileStreamFactory: lines }, (err, result) => (err ? reject(err) : resolve(result)));
+    connection.query({ sql, infileStreamFactory: lines }, (err, result) => (err ? reject(err) : resolve(result)));
   });
 }
+
+/** A number as a loaded field: `\\N` (NULL) unless finite. */
+export const loadedNumber = (v: number | undefined | null): string => num(v);
 
 /**
  * Stores checked rows of one import with one LOAD DATA statement on the manager's connection; throws unless

@@ -23,6 +23,11 @@ export const VALID_FOR_CALCULATIONS_SQL = `(validity = 'ok' AND cleanliness IS N
 /** SQL condition on `performance_sample` (alias-free): rows that passed the import's and the model's checks. */
 export const PASSED_CHECKS_SQL = `(validity = 'ok')`;
 
+/** The same rule as REANALYSABLE_SAMPLE_SQL, for a row already read. */
+export function reanalysable(validity: string): boolean {
+  return validity === 'ok' || validity.startsWith('model:');
+}
+
 /** The same rule as VALID_FOR_CALCULATIONS_SQL, for a row already read. */
 export function validForCalculations(row: { validity?: unknown; cleanliness?: unknown }): boolean {
   return row.validity === 'ok' && row.cleanliness !== null && row.cleanliness !== undefined;

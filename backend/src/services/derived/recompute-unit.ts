@@ -4,20 +4,20 @@
  * read valid samples → daily cleanliness and witnesses → air in-leakage verdicts → fouling cycles →
  * per-sample analysis → write-back → daily aggregates → cleaning outlook and forecast band → e-mail alerts.
  * Samples are read in id order in chunks, twice (the per-sample analysis needs the trend the first pass fits),
- * so memory stays bounded whatever the history length.
+ * so memory stays bounded whatever the history length; the second pass gathers the daily figures as it analyses.
  */
 import type { DataSource } from 'typeorm';
 import { dailyFiguresOfUnit } from '../../repositories/daily-aggregate.repository.js';
 import { clearAnalysesOfUnit } from '../../repositories/sample-analysis.repository.js';
 import { countSamplesOfUnit } from '../../repositories/sample.repository.js';
 import { judgeAirLeaks } from './air-leak-verdicts.js';
-import { rebuildDailyAggregates } from './daily-aggregates.js';
+import { DailyAccumulator, rebuildDailyAggregates, storeDailyAggregates } from './daily-aggregates.js';
 import { measureDailyCleanliness, witnessMedians } from './daily-witnesses.js';
 import { currentFigures } from './current-figures.js';
 import { forecastBand } from './forecast-band.js';
 import { cycleSummary, fitCycles, trendCleanlinessOn, type CycleTrend } from './fouling-cycles.js';
-import { readValidSamples } from './read-valid-samples.js';
-import { analyseSamples } from './sample-analysis.js';
+import { readEverySample, readValidSamples } from './read-valid-samples.js';
+import { analyseAndGather } from './sample-analysis.js';
 import { loadUnitContext } from './unit-context.js';
 import { planCleaningOutlook, storeUnitAnalysis, unitAnalysis } from './unit-analysis.js';
 import { writeBackAnalyses } from './write-back.js';
@@ -48,17 +48,15 @@ export async function recomputeUnit(ds: DataSource, unitId: string, onProgress: 
   // Suspected air in-leakage days are left out of the fit, so a weeks-long leak is not booked as fouling.
   const cycles = fitCycles(measured.dailyCleanliness, ctx.cleanings, airLeaks.suspectedDays);
 
-  const analysed = (async function* () {
-    for await (const rows of readValidSamples(ds, unitId)) yield analyseSamples({ model, dayOf, pluggedTubesOn, cycles }, rows);
-  })();
+  const daily = new DailyAccumulator(dayOf);
   await writeBackAnalyses(ds, {
     setupVersion: unit.setupVersion,
-    chunks: analysed,
+    chunks: analyseAndGather({ model, dayOf, pluggedTubesOn, cycles }, readEverySample(ds, unitId), daily),
     onChunk: (done) => onProgress(0.1 + 0.8 * (done / Math.max(1, total)), `Analysed ${done.toLocaleString('en-US')} points`),
   });
 
   await onProgress(0.92, 'Building daily figures');
-  const dayCount = await rebuildDailyAggregates(ds, unitId, dayOf, {
+  const dayCount = await storeDailyAggregates(ds, unitId, daily, {
     trendCleanliness: (day) => trendCleanlinessOn(cycles, day) ?? null,
     airLeakSuspected: (day) => airLeaks.suspectedDays.has(day),
     heatBalanceDutyMw: (meanLoadMw) => model.heatBalanceDutyMw(meanLoadMw / model.ratingMw),
