@@ -11,6 +11,7 @@ import type { DataSource } from 'typeorm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildDataSource } from '../../backend/src/data-source.js';
 import { Organisation } from '../../backend/src/entities/organisation.entity.js';
+import { HANDLED_EVENTS } from '../../backend/src/services/billing/receive-webhook.js';
 import { freePort } from '../../scripts/lib/free-port.js';
 import { startStripeFake, type StripeFake } from '../../scripts/lib/local-services.js';
 import { createTenant, CSRF, type TenantFixture } from '../factories/accounts.js';
@@ -118,6 +119,17 @@ describe('a Stripe webhook while the database is down', { timeout: 240_000 }, ()
     // From here on the test delivers each event itself, first during the outage and then as Stripe's retries would:
     // the stand-in is told to send this endpoint nothing more, so no delivery of its own races the test's.
     await stripe.webhookEndpoints.create({ url: `${app.url}/api/billing/webhook`, enabled_events: ['account.updated'] });
+    // Events it had queued before are still delivered: wait until each of the checkout's events is stored as applied,
+    // so none lands later and moves the organisation's billing state under the tests.
+    await until(
+      'every event of the checkout applied',
+      async () => ({
+        made: (await eventsOfCustomer()).filter((e) => (HANDLED_EVENTS as readonly string[]).includes(e.type)).length,
+        applied: Number((await ds.query('SELECT COUNT(*) AS n FROM billing_webhook_event WHERE organisationId = ?', [tenant.organisation.id]))[0].n),
+      }),
+      (v) => v.made > 0 && v.applied === v.made,
+      30_000,
+    );
   }, 180_000);
 
   afterAll(async () => {
