@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { CalcScheduleInput } from '@shared/schemas/calc-schedule';
-import { casePhysicalSentence } from '@frontend/features/cases/components/case-physical';
+import { casePhysicalSentence } from '@shared/text/case-physical-text';
 
 // Closed form, as in physical-cost.test.ts: HR 10,000 Btu/kWh, fuel 3 per MMBtu, 50 kg CO2/MMBtu at 20 per tonne,
 // replacement 60 per MWh, a quarter of hours capacity-limited: a MWh of penalty costs 0.75 × 10 × 4 + 0.25 × 60 = 45.

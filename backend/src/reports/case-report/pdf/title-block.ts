@@ -9,6 +9,7 @@ import { FONT } from './fonts.js';
 import { facts, heading, paragraph } from './layout.js';
 import { pdfText } from './pdf-text.js';
 import { COLOR, CONTENT_WIDTH, PAGE, SIZE } from './theme.js';
+import { casePhysicalSentence } from '@shared/text/case-physical-text.js';
 
 type Doc = PDFKit.PDFDocument;
 
@@ -46,6 +47,7 @@ export function titleBlock(doc: Doc, view: CaseView, ctx: CaseReportContext): vo
 
   heading(doc, 'Recommendation');
   paragraph(doc, recommendationText(view), { size: 10.5 });
+  paragraph(doc, casePhysicalSentence(view.inputs, view.results.totals.foulingCost, view.results.baseline.totals.foulingCost), { size: SIZE.small });
   const newer = newerDataLine(view);
   if (newer) paragraph(doc, newer, { color: COLOR.muted, size: SIZE.small });
   keyFigures(doc, view);

@@ -12,6 +12,7 @@ import { recommendationText } from '../recommendation.js';
 import type { CaseReportContext } from '../report-context.js';
 import { yearlyRows } from '../yearly-rows.js';
 import { fillSheet, MONEY_FMT, type Cell } from './sheet-writer.js';
+import { casePhysicalSentence } from '@shared/text/case-physical-text.js';
 
 const SOURCE_WORDS = { measured: 'measured', prefilled: 'prefilled', entered: 'entered' } as const;
 
@@ -40,6 +41,7 @@ function summary(wb: ExcelJS.Workbook, view: CaseView, ctx: CaseReportContext): 
     ['Decided', dayOf(view.decidedAt, tz)],
     ['Currency', cur],
     ['Recommendation', recommendationText(view)],
+    ['Fouling as CO2 and output', casePhysicalSentence(view.inputs, view.results.totals.foulingCost, view.results.baseline.totals.foulingCost)],
     [`NPV against the baseline (${cur})`, [bc.npv, MONEY_FMT]],
     ['IRR', bc.irr === null ? (bc.irrReason ?? 'none') : [bc.irr, '0.0%']],
     ['Payback (years)', bc.paybackYears === null ? 'not in the horizon' : [bc.paybackYears, '0.0']],

@@ -7,7 +7,7 @@ import { formatCurrency, formatDay, formatNumber, formatPercent } from '@fronten
 import CashFlowChart from './cash-flow-chart';
 import { CaseFigure, Swatch } from './case-figure';
 import IntervalChart from './interval-chart';
-import { casePhysicalSentence } from './case-physical';
+import { casePhysicalSentence } from '@shared/text/case-physical-text';
 import { intervalCurve } from './interval-curve';
 import MonteCarloChart from './monte-carlo-chart';
 import ScheduleChart from './schedule-chart';

@@ -4,9 +4,9 @@
  * so with constant prices the cost turns back into quantities exactly (shared/domain/turbine/physical-cost.ts);
  * with prices that change over the horizon one price cannot do it, and the sentence says so.
  */
-import type { CalcScheduleInput } from '@shared/schemas/calc-schedule';
-import { physicalCost, type PhysicalCostBasis } from '@shared/domain/turbine/physical-cost';
-import { formatQuantity } from '@shared/text/physical-cost-text';
+import type { CalcScheduleInput } from '../schemas/calc-schedule.js';
+import { physicalCost, type PhysicalCostBasis } from '../domain/turbine/physical-cost.js';
+import { formatQuantity } from './physical-cost-text.js';
 
 const constant = (driver: unknown): number | null => (typeof driver === 'number' && Number.isFinite(driver) ? driver : null);
 
