@@ -9,7 +9,7 @@
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, it, type ExpectStatic, type TestContext } from 'vitest';
 import { formatQuantity } from '@shared/text/physical-cost-text';
 import { DEMO_PASSWORD } from '../../backend/src/seed/demo-people.js';
 import { launchBrowser } from '../helpers/browser.js';
@@ -113,7 +113,7 @@ describe('every main screen, for every demo role, at desktop and tablet width (d
   });
 
   /** The first plant with a unit that has data, that unit, a case and the outages, all as this person sees them. */
-  async function demoOf(page: Page): Promise<Demo> {
+  async function demoOf(page: Page, expect: ExpectStatic): Promise<Demo> {
     const get = async <T>(p: string) => (await (await page.request.get(`${server.url}${p}`)).json()) as T;
     const { plants } = await get<{ plants: { id: string; name: string; units: { id: string; name: string }[] }[] }>('/api/plants');
     const plant = plants.find((p) => p.units.length > 0)!;
@@ -123,7 +123,7 @@ describe('every main screen, for every demo role, at desktop and tablet width (d
     return { plantId: plant.id, plantName: plant.name, unitId: plant.units[0]!.id, caseId: cases[0]?.id ?? null, outageCount: outages.length };
   }
 
-  function screensFor(role: Role, demo: Demo, page: Page): Screen[] {
+  function screensFor(role: Role, demo: Demo, page: Page, expect: ExpectStatic): Screen[] {
     const api = async <T>(p: string) => (await (await page.request.get(`${server.url}${p}`)).json()) as T;
     const u = `/units/${demo.unitId}`;
     const screens: Screen[] = [
@@ -238,28 +238,30 @@ describe('every main screen, for every demo role, at desktop and tablet width (d
   const take = () => (slots.free > 0 ? ((slots.free -= 1), Promise.resolve()) : new Promise<void>((resolve) => slots.waiting.push(resolve)));
   const give = () => (slots.waiting.length > 0 ? slots.waiting.shift()!() : (slots.free += 1));
 
-  it.concurrent.each(ROLES)(
+  it.concurrent.for(ROLES)(
     'as $key: every screen names itself, shows what issue 16 promises for the role, and is saved at 1280 and 800 px',
-    async (role) => {
+    // a role's time includes its wait for a free slot
+    { timeout: 600_000 },
+    async (role: Role, { expect }: TestContext) => {
       await take();
       try {
-        await visitEveryScreen(role);
+        await visitEveryScreen(role, expect);
       } finally {
         give();
       }
     },
-    240_000,
   );
 
-  async function visitEveryScreen(role: Role) {
+  /** `expect` is the test's own: the roles run side by side. */
+  async function visitEveryScreen(role: Role, expect: ExpectStatic) {
     const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     contexts.push(context);
     const page = await context.newPage();
     await signIn(page, server, role.email);
-    const demo = await demoOf(page);
+    const demo = await demoOf(page, expect);
     mkdirSync(path.join(SHOTS, role.key), { recursive: true });
     const problems: string[] = [];
-    for (const screen of screensFor(role, demo, page)) {
+    for (const screen of screensFor(role, demo, page, expect)) {
       await page.setViewportSize({ width: 1280, height: 900 });
       await page.goto(`${server.url}${screen.path}`);
       await screen.ready(page).first().waitFor({ timeout: 20_000 });
