@@ -1,4 +1,4 @@
-import fs, { mkdirSync } from 'node:fs';
+import { mkdirSync } from 'node:fs';
 import { rm } from 'node:fs/promises';
 import path from 'node:path';
 import type { Request, RequestHandler } from 'express';
@@ -28,43 +28,23 @@ const uniqueName = () => `${Date.now()}-${Math.random().toString(36).slice(2)}.u
 const TOTAL = Symbol('upload bytes');
 
 /**
- * Multer's disk storage, counting the bytes of all files of one request: past `maxTotal` the file being written
- * stops and is removed, and multer removes the ones before it. Writes through `fs.createWriteStream`, so a full
- * disk fails the way it does for any write.
+ * Multer's disk storage, counting the bytes of all files of one request: past `maxTotal` the file being read is
+ * stopped with an error, so multer removes it and every file before it (as for any failed file).
  */
-class CountedDiskStorage implements multer.StorageEngine {
-  constructor(
-    private readonly dir: string,
-    private readonly maxTotal: number,
-  ) {}
-
-  _handleFile(req: Request, file: Express.Multer.File, cb: (error?: unknown, info?: Partial<Express.Multer.File>) => void): void {
-    const target = path.join(this.dir, uniqueName());
-    const out = fs.createWriteStream(target);
-    const counted = req as Request & { [TOTAL]?: { bytes: number } };
-    const total = (counted[TOTAL] ??= { bytes: 0 });
-    let settled = false;
-    const settle = (err: unknown, info?: Partial<Express.Multer.File>) => {
-      if (settled) return;
-      settled = true;
-      if (!err) return cb(null, info);
-      file.stream.unpipe(out);
-      file.stream.resume();
-      out.destroy();
-      void rm(target, { force: true }).finally(() => cb(err));
-    };
-    file.stream.on('data', (chunk: Buffer) => {
-      total.bytes += chunk.length;
-      if (total.bytes > this.maxTotal) settle(new FilesTooLarge());
-    });
-    out.on('error', settle);
-    out.on('finish', () => settle(null, { destination: this.dir, filename: path.basename(target), path: target, size: out.bytesWritten }));
-    file.stream.pipe(out);
-  }
-
-  _removeFile(_req: Request, file: Express.Multer.File, cb: (error: Error | null) => void): void {
-    rm(file.path, { force: true }).then(() => cb(null), cb);
-  }
+function countedDiskStorage(dir: string, maxTotal: number): multer.StorageEngine {
+  const disk = multer.diskStorage({ destination: dir, filename: (_req, _file, cb) => cb(null, uniqueName()) });
+  return {
+    _handleFile(req, file, cb) {
+      const counted = req as Request & { [TOTAL]?: { bytes: number } };
+      const total = (counted[TOTAL] ??= { bytes: 0 });
+      disk._handleFile(req, file, cb);
+      file.stream.on('data', (chunk: Buffer) => {
+        total.bytes += chunk.length;
+        if (total.bytes > maxTotal && !file.stream.destroyed) file.stream.destroy(new FilesTooLarge());
+      });
+    },
+    _removeFile: (req, file, cb) => disk._removeFile(req, file, cb),
+  };
 }
 
 const filesOf = (req: Request): Express.Multer.File[] => (Array.isArray(req.files) ? req.files : []);
@@ -77,7 +57,7 @@ const filesOf = (req: Request): Express.Multer.File[] => (Array.isArray(req.file
 export function historianUpload(uploadDir: string): RequestHandler {
   mkdirSync(uploadDir, { recursive: true });
   const upload = multer({
-    storage: new CountedDiskStorage(uploadDir, MAX_UPLOAD_FILES_BYTES),
+    storage: countedDiskStorage(uploadDir, MAX_UPLOAD_FILES_BYTES),
     limits: { fileSize: MAX_UPLOAD_BYTES, files: MAX_TAG_FILES, fields: 5 },
     // Browsers send file names in UTF-8; multer's default reads them as Latin-1 ("KÃ¼hlwasser.csv").
     defParamCharset: 'utf8',

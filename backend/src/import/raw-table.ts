@@ -22,6 +22,8 @@ export interface RawTable {
   /** XLSX: every sheet of the workbook, and the one read. */
   sheets?: string[];
   sheet?: string;
+  /** A plain CSV file (no quotes, one kind of line end): how to split its lines, for readers that scan it themselves. */
+  plain?: { encoding: 'utf8' | 'latin1'; delimiter: string; ends: 'lf' | 'crlf'; maxLine: number };
   /** The first data rows, for guessing a mapping (they are also yielded by `rows`). */
   sampleRows: string[][];
   rows: AsyncIterable<RawRow>;

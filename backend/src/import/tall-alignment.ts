@@ -14,8 +14,8 @@
  * under the first tag it lacks. Every wrong cell (a bad time, other text in a value, the same tag twice at one
  * time) is listed by row and column, as for wide files, and nothing is written then.
  */
-import { createWriteStream } from 'node:fs';
-import { mkdtemp, rm } from 'node:fs/promises';
+import { createReadStream, createWriteStream } from 'node:fs';
+import { mkdtemp, rm, stat } from 'node:fs/promises';
 import { once } from 'node:events';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -23,6 +23,8 @@ import { DEFAULT_STATUS_WORDS, statusWordKey } from '@shared/schemas/historian-s
 import { IMPORT_QUANTITIES, REQUIRED_QUANTITIES, type ImportMapping, type ImportQuantity } from '@shared/schemas/import-mapping.js';
 import { ImportFileError, RowErrorList } from './import-errors.js';
 import { openTable } from './open-table.js';
+import { lineTooLong } from './read-csv.js';
+import type { RawTable } from './raw-table.js';
 import { TimestampParser } from './timestamp-parsing.js';
 
 /** One tag's samples, growable. */
@@ -46,9 +48,14 @@ export class TagSeries {
     this.lines[this.n++] = line;
   }
 
+  /** Makes room for `size` samples at once (a guess from the file's size), so the arrays are not grown step by step. */
+  reserve(size: number): void {
+    if (size > this.times.length) this.grow(Math.min(size, 1 << 26));
+  }
+
   /** Grows by half (not double): a year of 1-min samples then needs 531,441 places, not 1,048,576. */
-  private grow(): void {
-    const size = Math.ceil(this.n * 1.5);
+  private grow(to?: number): void {
+    const size = to ?? Math.ceil(this.n * 1.5);
     const times = new Float64Array(size);
     times.set(this.times);
     const values = new Float64Array(size);
@@ -249,42 +256,109 @@ export function tallTableSource(filePath: string, mapping: ImportMapping, sheet?
         let rows = 0;
         let lastText = '';
         let lastTime = Number.NaN;
-        for await (const chunk of table.chunks)
-          for (const row of chunk) {
-            rows++;
-            const cells = row.cells;
-            if (cells.length < width) {
-              errors.add(row.line, table.headers[cells.length] ?? '', '', `the row has ${cells.length} columns; the header has ${table.headers.length}`);
-              continue;
-            }
-            const tag = cells[gi]!.trim();
-            const s = series.get(tag);
-            if (!s) {
-              if (unmapped.size < 50 && tag !== '') unmapped.add(tag);
-              continue;
-            }
-            const tsText = cells[ti]!;
-            // a file in time order repeats each time once per tag: read it once
-            const t = tsText === lastText ? lastTime : parseTime.parse(tsText);
-            if (Number.isNaN(t)) {
-              errors.add(row.line, mapping.timestamp.column, tsText, `bad timestamp: ${parseTime.error}`);
-              continue;
-            }
-            [lastText, lastTime] = [tsText, t];
-            const v = readValue(cells[vi]!, qi >= 0 ? cells[qi]! : null);
-            if (v === 'empty') continue;
-            if (v === null) {
-              errors.add(row.line, tall.valueColumn, cells[vi]!, `not a number${mapping.decimalSeparator === ',' ? ' (decimal comma expected)' : ''}`);
-              continue;
-            }
-            s.push(t, v.value, v.marker, row.line);
+        /** One row: its line, its first `count` cells (all of them when fewer than `width`). */
+        const onRow = (line: number, cells: string[], count: number) => {
+          rows++;
+          if (count < width) {
+            errors.add(line, table.headers[count] ?? '', '', `the row has ${count} columns; the header has ${table.headers.length}`);
+            return;
           }
+          const tag = cells[gi]!.trim();
+          const s = series.get(tag);
+          if (!s) {
+            if (unmapped.size < 50 && tag !== '') unmapped.add(tag);
+            return;
+          }
+          const tsText = cells[ti]!;
+          // a file in time order repeats each time once per tag: read it once
+          const t = tsText === lastText ? lastTime : parseTime.parse(tsText);
+          if (Number.isNaN(t)) {
+            errors.add(line, mapping.timestamp.column, tsText, `bad timestamp: ${parseTime.error}`);
+            return;
+          }
+          [lastText, lastTime] = [tsText, t];
+          const v = readValue(cells[vi]!, qi >= 0 ? cells[qi]! : null);
+          if (v === 'empty') return;
+          if (v === null) {
+            errors.add(line, tall.valueColumn, cells[vi]!, `not a number${mapping.decimalSeparator === ',' ? ' (decimal comma expected)' : ''}`);
+            return;
+          }
+          s.push(t, v.value, v.marker, line);
+        };
+        if (table.plain) {
+          // a plain CSV file is scanned line by line here: no row arrays, only the cells the mapping reads
+          const { plain, headerLine, sampleRows } = table;
+          await table.close();
+          // room for each mapped tag's share of the rows the file's size suggests (at most the whole file's rows in all)
+          const lineBytes =
+            sampleRows.reduce((n, r) => n + r.join(plain.delimiter).length + (plain.ends === 'crlf' ? 2 : 1), 0) / Math.max(1, sampleRows.length);
+          const rowsGuess = (await stat(filePath)).size / Math.max(8, lineBytes);
+          for (const s of series.values()) s.reserve(Math.ceil((rowsGuess / series.size) * 1.02));
+          await scanPlainRows(filePath, plain, headerLine, width, onRow);
+        } else for await (const chunk of table.chunks) for (const row of chunk) onRow(row.line, row.cells, row.cells.length);
         return rows;
       } finally {
         await table.close();
       }
     },
   };
+}
+
+/**
+ * The data rows of a plain CSV file (read-csv.ts `plainLineEnds`) after its header line, as the CSV reader gives
+ * them — empty lines skipped but counted, cells as they are, a line too long refused — but only the first `width`
+ * cells of each, into one reused array.
+ */
+async function scanPlainRows(
+  filePath: string,
+  plain: NonNullable<RawTable['plain']>,
+  headerLine: number,
+  width: number,
+  onRow: (line: number, cells: string[], count: number) => void,
+): Promise<void> {
+  const { delimiter, maxLine } = plain;
+  const cut = plain.ends === 'crlf' ? 1 : 0;
+  const cells: string[] = new Array<string>(width).fill('');
+  const split = (text: string, start: number, stop: number) => {
+    let k = 0;
+    for (let p = start; k < width;) {
+      const q = text.indexOf(delimiter, p);
+      if (q < 0 || q >= stop) {
+        cells[k++] = text.slice(p, stop);
+        break;
+      }
+      cells[k++] = text.slice(p, q);
+      p = q + delimiter.length;
+    }
+    return k;
+  };
+  const input = createReadStream(filePath, { encoding: plain.encoding, highWaterMark: 256 * 1024 });
+  let rest = '';
+  let line = 0;
+  try {
+    for await (const piece of input as AsyncIterable<string>) {
+      const text = rest + piece;
+      let start = 0;
+      for (let end = text.indexOf('\n'); end >= 0; start = end + 1, end = text.indexOf('\n', start)) {
+        line++;
+        const stop = end - cut;
+        if (line <= headerLine || stop === start) continue;
+        if (stop - start > maxLine) throw lineTooLong(line, maxLine);
+        onRow(line, cells, split(text, start, stop));
+      }
+      rest = text.slice(start);
+      if (rest.length > maxLine + 1) throw lineTooLong(line + 1, maxLine);
+    }
+    if (rest.length > 0 && ++line > headerLine) {
+      if (rest.length > maxLine) throw lineTooLong(line, maxLine);
+      onRow(line, cells, split(rest, 0, rest.length));
+    }
+  } catch (e) {
+    if (e instanceof ImportFileError) throw e;
+    throw new ImportFileError('unreadable-file', 'the file could not be read to its end: upload it again', undefined, e);
+  } finally {
+    input.destroy();
+  }
 }
 
 /**
