@@ -32,18 +32,29 @@ export function findSampleInScope(em: EntityManager, scope: TenantScope, id: str
 
 const isoOrNull = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
 
-/** How many samples a unit shows and the times of its first and last (ISO, UTC). */
-export async function sampleSpanOfUnit(em: EntityManager, unitId: string): Promise<{ count: number; first: string | null; last: string | null }> {
+/** The time of the unit's first or last shown sample: the (unit, time) index read from one end, stopping at the first shown row. */
+async function endSampleTime(em: EntityManager, unitId: string, end: 'ASC' | 'DESC'): Promise<string | null> {
   const [row] = await em.query(
-    `SELECT COUNT(*) AS n, MIN(timestampUtc) AS first, MAX(timestampUtc) AS last FROM performance_sample WHERE unitId = ? AND ${SHOWN_SAMPLE_SQL}`,
+    `SELECT timestampUtc AS ts FROM performance_sample WHERE unitId = ? AND ${SHOWN_SAMPLE_SQL} ORDER BY timestampUtc ${end} LIMIT 1`,
     [unitId, unitId],
   );
-  return { count: Number(row.n), first: isoOrNull(row.first), last: isoOrNull(row.last) };
+  return isoOrNull(row?.ts);
 }
 
-export async function lastSampleTimeOfUnit(em: EntityManager, unitId: string): Promise<string | null> {
-  const [row] = await em.query(`SELECT MAX(timestampUtc) AS ts FROM performance_sample WHERE unitId = ? AND ${SHOWN_SAMPLE_SQL}`, [unitId, unitId]);
-  return isoOrNull(row?.ts);
+/** How many samples a unit shows and the times of its first and last (ISO, UTC). */
+export async function sampleSpanOfUnit(em: EntityManager, unitId: string): Promise<{ count: number; first: string | null; last: string | null }> {
+  // every row of the unit, less the rows of its imports still running (counted on the import index)
+  const [row] = await em.query(
+    `SELECT (SELECT COUNT(*) FROM performance_sample WHERE unitId = ?)
+          - (SELECT COUNT(*) FROM performance_sample WHERE importId IN (SELECT i.id FROM data_import i WHERE i.unitId = ? AND i.status IN ('checking', 'importing'))) AS n`,
+    [unitId, unitId],
+  );
+  const count = Number(row.n);
+  return { count, first: count ? await endSampleTime(em, unitId, 'ASC') : null, last: count ? await endSampleTime(em, unitId, 'DESC') : null };
+}
+
+export function lastSampleTimeOfUnit(em: EntityManager, unitId: string): Promise<string | null> {
+  return endSampleTime(em, unitId, 'DESC');
 }
 
 export async function countSamplesOfUnit(em: EntityManager, unitId: string): Promise<number> {
