@@ -1,4 +1,5 @@
 /** createApp builds the Express application from its dependencies; server.ts listens. */
+import compression from 'compression';
 import express, { type Express } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
@@ -132,9 +133,23 @@ export function createApp(deps: AppDeps): CleancaseApp {
 
   if (deps.staticDir && existsSync(deps.staticDir)) {
     const staticDir = deps.staticDir;
-    app.use(express.static(staticDir, { index: false, maxAge: '1h' }));
+    const assetsDir = path.join(staticDir, 'assets') + path.sep;
+    // The front end's files leave compressed (API answers are answered above and never pass here).
+    app.use(compression());
+    app.use(
+      express.static(staticDir, {
+        index: false,
+        // Files under assets/ carry a hash of their content in the name: a browser may keep them for good. The app
+        // shell names the current ones, so it is checked with the server on every load; anything else for an hour.
+        setHeaders: (res, file) =>
+          res.setHeader(
+            'Cache-Control',
+            file.startsWith(assetsDir) ? 'public, max-age=31536000, immutable' : file.endsWith('index.html') ? 'no-cache' : 'public, max-age=3600',
+          ),
+      }),
+    );
     // Client-side routes: every other GET gets the app shell.
-    app.get(/^\/(?!api\/).*/, (_req, res) => res.sendFile(path.join(staticDir, 'index.html')));
+    app.get(/^\/(?!api\/).*/, (_req, res) => res.sendFile(path.join(staticDir, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } }));
   }
   app.use(errorHandler);
 
