@@ -2,7 +2,8 @@
  * The CO2 and lost output behind a case's fouling cost over the horizon, for the plan and for its baseline, in one
  * sentence. The schedule prices each day with the same blended cost as the monitoring (penalty-table-builder.ts),
  * so with constant prices the cost turns back into quantities exactly (shared/domain/turbine/physical-cost.ts);
- * with prices that change over the horizon one price cannot do it, and the sentence says so.
+ * with prices that change over the horizon one price cannot do it, and the sentence says so; nor can the prices turn
+ * back a cost-per-day curve entered instead of the condenser model (directPenalty).
  */
 import type { CalcScheduleInput } from '../schemas/calc-schedule.js';
 import { physicalCost, type PhysicalCostBasis } from '../domain/turbine/physical-cost.js';
@@ -11,6 +12,9 @@ import { formatQuantity } from './physical-cost-text.js';
 const constant = (driver: unknown): number | null => (typeof driver === 'number' && Number.isFinite(driver) ? driver : null);
 
 export function casePhysicalSentence(inputs: CalcScheduleInput, planFoulingCost: number, baselineFoulingCost: number): string {
+  // A cost-per-day curve entered by hand is money only: it was not made from the heat rate and prices, so they cannot turn it back.
+  if (inputs.directPenalty)
+    return 'MWh and t CO2 are not shown: the fouling cost comes from the cost-per-day curve entered, not from the unit’s heat rate and prices.';
   const fuel = constant(inputs.drivers.fuelPricePerMmbtu);
   const replacement = constant(inputs.drivers.replacementPricePerMwh);
   const co2Price = constant(inputs.drivers.co2PricePerTonne ?? 0);
