@@ -29,7 +29,7 @@ const TOTAL = Symbol('upload bytes');
 
 /**
  * Multer's disk storage, counting the bytes of all files of one request: past `maxTotal` the file being read is
- * stopped with an error, so multer removes it and every file before it (as for any failed file).
+ * stopped with an error; its part written is removed here and multer removes every file before it.
  */
 function countedDiskStorage(dir: string, maxTotal: number): multer.StorageEngine {
   const disk = multer.diskStorage({ destination: dir, filename: (_req, _file, cb) => cb(null, uniqueName()) });
@@ -37,7 +37,12 @@ function countedDiskStorage(dir: string, maxTotal: number): multer.StorageEngine
     _handleFile(req, file, cb) {
       const counted = req as Request & { [TOTAL]?: { bytes: number } };
       const total = (counted[TOTAL] ??= { bytes: 0 });
-      disk._handleFile(req, file, cb);
+      // on an error the engine must leave nothing (multer removes only files that were stored): remove the part written
+      disk._handleFile(req, file, (err, info) => {
+        if (!err) return cb(null, info);
+        const written = (file as { path?: string }).path;
+        void (written ? rm(written, { force: true }) : Promise.resolve()).finally(() => cb(err));
+      });
       file.stream.on('data', (chunk: Buffer) => {
         total.bytes += chunk.length;
         if (total.bytes > maxTotal && !file.stream.destroyed) file.stream.destroy(new FilesTooLarge());
@@ -54,10 +59,10 @@ const filesOf = (req: Request): Express.Multer.File[] => (Array.isArray(req.file
  * MAX_UPLOAD_BYTES) — or several files of one tag each in fields of that name (at most MAX_TAG_FILES, each at most
  * MAX_UPLOAD_BYTES and together at most MAX_UPLOAD_FILES_BYTES). `req.file` is the first, `req.files` all of them.
  */
-export function historianUpload(uploadDir: string): RequestHandler {
+export function historianUpload(uploadDir: string, maxFilesBytes = MAX_UPLOAD_FILES_BYTES): RequestHandler {
   mkdirSync(uploadDir, { recursive: true });
   const upload = multer({
-    storage: countedDiskStorage(uploadDir, MAX_UPLOAD_FILES_BYTES),
+    storage: countedDiskStorage(uploadDir, maxFilesBytes),
     limits: { fileSize: MAX_UPLOAD_BYTES, files: MAX_TAG_FILES, fields: 5 },
     // Browsers send file names in UTF-8; multer's default reads them as Latin-1 ("KÃ¼hlwasser.csv").
     defParamCharset: 'utf8',
@@ -81,7 +86,7 @@ export function historianUpload(uploadDir: string): RequestHandler {
         return next(new AppError(400, MULTER_MESSAGES[err.code] ?? UPLOAD_UNREADABLE));
       }
       if (err instanceof FilesTooLarge)
-        return next(new AppError(413, `The files together are larger than ${MAX_UPLOAD_FILES_BYTES / 1024 / 1024} MB: nothing was stored`));
+        return next(new AppError(413, `The files together are larger than ${maxFilesBytes / 1024 / 1024} MB: nothing was stored`));
       const code = (err as { code?: unknown } | null)?.code;
       if (code === 'ENOSPC' || code === 'EDQUOT') {
         req.log?.error({ err }, 'upload refused: no room on the upload folder');
