@@ -5,8 +5,11 @@ export interface ChartTableData {
   /** what the rows are, read before the table by a screen reader */
   caption: string;
   columns: string[];
-  /** already formatted, in the person's units; the first cell names the row (a day, a month) */
-  rows: string[][];
+  /**
+   * already formatted, in the person's units; the first cell names the row (a day, a month). A function is called
+   * only when the table is opened, so a long table costs nothing while the chart is being drawn.
+   */
+  rows: string[][] | (() => string[][]);
 }
 
 /**
@@ -16,6 +19,7 @@ export interface ChartTableData {
 export function ChartTable({ table }: { table: ChartTableData }) {
   const [open, setOpen] = useState(false);
   const id = useId();
+  const rows = open ? (typeof table.rows === 'function' ? table.rows() : table.rows) : [];
   return (
     <div className="no-print flex flex-col gap-2">
       <div>
@@ -39,7 +43,7 @@ export function ChartTable({ table }: { table: ChartTableData }) {
               </tr>
             </thead>
             <tbody>
-              {table.rows.map((r) => (
+              {rows.map((r) => (
                 <tr key={r[0]} className="border-t border-rule">
                   {r.map((cell, i) =>
                     i === 0 ? (

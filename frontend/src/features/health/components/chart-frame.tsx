@@ -1,5 +1,6 @@
 import type { ReactNode } from 'react';
 import { ChartTable, type ChartTableData } from '@frontend/components/ui/chart-table';
+import { useAfterFirstPaint } from './after-first-paint';
 
 export type LegendMark = 'line' | 'dash' | 'points' | 'band' | 'shade' | 'marker' | 'bar';
 
@@ -40,6 +41,7 @@ export function ChartFrame({
   noteTestId,
   points,
   table,
+  drawLater,
 }: {
   title: string;
   subtitle?: ReactNode;
@@ -52,7 +54,10 @@ export function ChartFrame({
   points: number;
   /** the values drawn, for the chart's "Show as a table" */
   table?: ChartTableData;
+  /** a chart further down: its frame shows at once, its drawing once the first chart is on screen */
+  drawLater?: boolean;
 }) {
+  const painted = useAfterFirstPaint();
   return (
     <figure className="chart-frame flex min-w-0 flex-col gap-2 rounded border border-rule bg-paper-raised p-3" data-testid={testId} data-points={points}>
       <figcaption className="flex flex-col gap-1">
@@ -67,7 +72,7 @@ export function ChartFrame({
           ))}
         </ul>
       </figcaption>
-      {children}
+      {drawLater && !painted ? <div className="h-64 w-full animate-pulse rounded bg-paper-sunk print:h-56" aria-hidden /> : children}
       {table && <ChartTable table={table} />}
       {note && (
         <p className="text-2xs text-ink-faint" data-testid={noteTestId}>

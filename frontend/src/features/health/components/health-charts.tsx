@@ -92,7 +92,7 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
         table={{
           caption: 'Cleanliness factor by day: measured daily median and fitted trend, then the forecast with its band',
           columns: ['Day', 'Measured', 'Fitted trend', 'Forecast', 'Band'],
-          rows: [
+          rows: () => [
             ...health.series.map((d) => [
               formatDay(d.day),
               d.cleanliness === null ? '—' : `${formatNumber(d.cleanliness * 100, 1)} %`,
@@ -150,19 +150,21 @@ export default function HealthCharts({ health, units, currency, narrow }: Health
       </ChartFrame>
 
       <ChartFrame
+        drawLater
         testId="chart-backpressure"
         points={health.series.length}
         table={{
           caption: `Backpressure by day: the daily mean, what a condenser at the reference cleanliness would hold, and the difference (${p.label})`,
           columns: ['Day', 'Actual', 'Expected at reference', 'Actual above expected'],
-          rows: health.series.map((d) => [
-            formatDay(d.day),
-            d.backpressureKpa === null ? '—' : formatNumber(p.fromSi(d.backpressureKpa), p.decimals),
-            d.expectedBackpressureKpa === null ? '—' : formatNumber(p.fromSi(d.expectedBackpressureKpa), p.decimals),
-            d.backpressureKpa === null || d.expectedBackpressureKpa === null
-              ? '—'
-              : formatNumber(p.fromSi(d.backpressureKpa) - p.fromSi(d.expectedBackpressureKpa), p.decimals),
-          ]),
+          rows: () =>
+            health.series.map((d) => [
+              formatDay(d.day),
+              d.backpressureKpa === null ? '—' : formatNumber(p.fromSi(d.backpressureKpa), p.decimals),
+              d.expectedBackpressureKpa === null ? '—' : formatNumber(p.fromSi(d.expectedBackpressureKpa), p.decimals),
+              d.backpressureKpa === null || d.expectedBackpressureKpa === null
+                ? '—'
+                : formatNumber(p.fromSi(d.backpressureKpa) - p.fromSi(d.expectedBackpressureKpa), p.decimals),
+            ]),
         }}
         title="Backpressure above what a clean condenser would hold"
         subtitle={`Daily means. The line is what the condenser would hold at the reference cleanliness${ref === null ? '' : ` (${formatNumber(ref * 100, 0)} %)`} with the same CW and load; the shading is how far the actual backpressure sits above it (fouling and any unexplained part) or below it.`}
@@ -261,6 +263,7 @@ function CostChart({
   }));
   return (
     <ChartFrame
+      drawLater
       testId="chart-cost"
       points={health.series.length}
       table={{
@@ -272,15 +275,16 @@ function CostChart({
           'Running total in the cycle',
           ...(hasPhysical ? ['CO2 of the extra fuel that day', 'Output lost that day (capacity-limited hours)'] : []),
         ],
-        rows: cycles.flatMap((c) =>
-          c.running.map((r, i) => [
-            formatDay(r.day),
-            formatDay(c.from),
-            money(i === 0 ? r.y : r.y - (c.running[i - 1]?.y ?? 0)),
-            money(r.y),
-            ...(hasPhysical ? [quantity(byDay.get(r.day)?.foulingCo2Tonnes, 't'), quantity(byDay.get(r.day)?.foulingLostMwh, 'MWh')] : []),
-          ]),
-        ),
+        rows: () =>
+          cycles.flatMap((c) =>
+            c.running.map((r, i) => [
+              formatDay(r.day),
+              formatDay(c.from),
+              money(i === 0 ? r.y : r.y - (c.running[i - 1]?.y ?? 0)),
+              money(r.y),
+              ...(hasPhysical ? [quantity(byDay.get(r.day)?.foulingCo2Tonnes, 't'), quantity(byDay.get(r.day)?.foulingLostMwh, 'MWh')] : []),
+            ]),
+          ),
       }}
       title="Fouling cost, cleaning cycle by cycle"
       subtitle="Extra fuel and replacement power because the tubes are dirtier than the reference. The running cost starts again at each cleaning; each cycle is labelled with what it cost in this period."
@@ -368,12 +372,14 @@ function DeviationChart({ health, units, narrow }: { health: UnitHealth; units: 
   };
   return (
     <ChartFrame
+      drawLater
       testId="chart-breakdown"
       points={rows.length}
       table={{
         caption: `Why backpressure differs from design, each cause's mean by ${byWeek ? 'week' : 'month'} (${dp.label})`,
         columns: [byWeek ? 'Week of' : 'Month', ...BREAKDOWN_CAUSES.map((c) => CAUSE_STYLES[c].label)],
-        rows: rows.map((r) => [byWeek ? formatDay(r.period) : formatMonth(r.period), ...BREAKDOWN_CAUSES.map((c) => signed(r[c], dp.decimals, dp.label))]),
+        rows: () =>
+          rows.map((r) => [byWeek ? formatDay(r.period) : formatMonth(r.period), ...BREAKDOWN_CAUSES.map((c) => signed(r[c], dp.decimals, dp.label))]),
       }}
       title={`Why backpressure differs from design, by ${byWeek ? 'week' : 'month'}`}
       subtitle={

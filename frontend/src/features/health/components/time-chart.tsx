@@ -4,7 +4,9 @@ import { addDays, daysBetween } from '@shared/domain/calendar/plant-date';
 import { gapShapes } from '@frontend/lib/chart-cycles';
 import { CHART_COLOURS, CHART_THEME, dayToDate, timeTicks } from '@frontend/lib/chart-palette';
 import { formatDay } from '@frontend/lib/format';
+import { useAfterFirstPaint } from './after-first-paint';
 import { TooltipBox } from './chart-frame';
+import { thinDots, thinLine } from './thin-for-drawing';
 
 export interface TimeSeriesSpec {
   id: string;
@@ -67,6 +69,7 @@ export default function TimeChart(props: TimeChartProps) {
     gap,
     annotations = [],
   } = props;
+  const interactive = useAfterFirstPaint();
   const spanDays = Math.max(1, daysBetween(from, to));
   const ticks = timeTicks(spanDays, narrow ? 4 : 8);
 
@@ -165,16 +168,24 @@ export default function TimeChart(props: TimeChartProps) {
             if (!style) return null;
             const pts = s.data.map((d) => (d.data.y === null ? null : ([xScale(d.data.x), yScale(d.data.y)] as const)));
             if (style.style === 'points') {
+              // one dot per pixel, all in one path (a zero-length stroke with round ends is a dot): one shape to draw, not hundreds
               const r = pts.length > 500 ? 1.5 : 2.2;
               return (
-                <g key={s.id} fill={style.colour}>
-                  {pts.map((p, i) => (p ? <circle key={i} cx={p[0]} cy={p[1]} r={r} /> : null))}
-                </g>
+                <path
+                  key={s.id}
+                  d={thinDots(pts)
+                    .map((p) => `M${p[0].toFixed(1)} ${p[1].toFixed(1)}h0`)
+                    .join('')}
+                  stroke={style.colour}
+                  strokeWidth={2 * r}
+                  strokeLinecap="round"
+                  fill="none"
+                />
               );
             }
             const segments: string[] = [];
             let current = '';
-            for (const p of pts) {
+            for (const p of thinLine(pts)) {
               if (!p) {
                 if (current) segments.push(current);
                 current = '';
@@ -226,8 +237,10 @@ export default function TimeChart(props: TimeChartProps) {
           })}
       </g>
     );
-    return ['grid', Shades, Band, Gap, 'axes', Reference, Cleanings, Lines, Annotations, 'crosshair', 'slices'] as LineSvgLayer<Series>[];
-  }, [series, band, shades, cleanings, reference, from, to, gap, annotations]);
+    const drawn = ['grid', Shades, Band, Gap, 'axes', Reference, Cleanings, Lines, Annotations] as LineSvgLayer<Series>[];
+    // the hover layers (a target per day) come once the figure is on screen
+    return interactive ? ([...drawn, 'crosshair', 'slices'] as LineSvgLayer<Series>[]) : drawn;
+  }, [series, band, shades, cleanings, reference, from, to, gap, annotations, interactive]);
 
   const SliceTip = ({ slice }: SliceTooltipProps<Series>) => {
     const day = (slice.points[0]?.data.x as Date | undefined)?.toISOString().slice(0, 10);
@@ -256,7 +269,7 @@ export default function TimeChart(props: TimeChartProps) {
         enableGridX={false}
         gridYValues={5}
         layers={layers}
-        enableSlices="x"
+        enableSlices={interactive ? 'x' : false}
         sliceTooltip={SliceTip}
         enablePoints={false}
         animate={false}
