@@ -166,8 +166,12 @@ export async function surveyTagFiles(folder: string, files: readonly UploadedTag
   return entries;
 }
 
-/** Whether a stored upload is a folder of one-tag files. */
-export const isTagFilesFolder = async (storedPath: string): Promise<boolean> => (await stat(storedPath)).isDirectory();
+/** Whether a stored upload is a folder of one-tag files (a file, or nothing there, is not: its reader says what is wrong). */
+export const isTagFilesFolder = (storedPath: string): Promise<boolean> =>
+  stat(storedPath).then(
+    (s) => s.isDirectory(),
+    () => false,
+  );
 
 export async function readTagFilesManifest(folder: string): Promise<TagFileEntry[]> {
   const parsed = manifestSchema.safeParse(JSON.parse(await readFile(path.join(folder, TAG_FILES_MANIFEST), 'utf8')));

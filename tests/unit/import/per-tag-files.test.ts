@@ -151,3 +151,12 @@ describe('a set of one-tag files', () => {
     expect(check.fileError?.message).toMatch(/map the tags/);
   });
 });
+
+describe('an upload that is gone', () => {
+  it('is told by the reader in our words, whatever the mapping', async () => {
+    const gone = tmp.file('never-written.csv');
+    const { check } = await checkAnyShape(gone, { mapping });
+    expect(check.fileError?.code).toBe('unreadable-file');
+    expect(check.fileError?.message).not.toMatch(/ENOENT|\//);
+  });
+});
