@@ -55,8 +55,10 @@ export const isWorkbook = (entries: readonly ZipEntry[]): boolean =>
 
 /** Folders and the files some systems add to an archive (__MACOSX/, .DS_Store, Thumbs.db): passed over. */
 export const isPassedOver = (name: string): boolean => {
-  const base = name.split('/').filter(Boolean).at(-1) ?? '';
-  return name.endsWith('/') || name.startsWith('__MACOSX/') || base.startsWith('.') || base.toLowerCase() === 'thumbs.db';
+  // some zippers write Windows separators: a name is split at either, as displayName does
+  const parts = name.split(/[/\\]/).filter(Boolean);
+  const base = parts.at(-1) ?? '';
+  return /[/\\]$/.test(name) || parts[0] === '__MACOSX' || base.startsWith('.') || base.toLowerCase() === 'thumbs.db';
 };
 
 /** The display name of an entry: its last path part, printable characters only, at most 120 characters. */

@@ -15,7 +15,7 @@ import { importCounts, importView as importViewSchema, rowError, type ImportCoun
 import { formatRowErrorReportCsv, guessMapping, openTable, type RowError } from '../import/index.js';
 import { averagingFromText, detectTallShape, guessTallMapping, listTags, medianSpacingOf } from '../import/tall-detection.js';
 import { surveyTagFiles, TAG_FILE_COLUMNS, TagFilesRefusal, type TagFileEntry, type UploadedTagFile } from '../import/per-tag-files.js';
-import { isWorkbook, readZipDirectory, startsLikeZip, unzipTagFiles, ZipRefusal } from '../import/zip-upload.js';
+import { displayName, isWorkbook, readZipDirectory, startsLikeZip, unzipTagFiles, ZipRefusal } from '../import/zip-upload.js';
 import { NO_ROOM } from '../http/upload.js';
 import { DataImport } from '../entities/data-import.entity.js';
 import { GeneratingUnit } from '../entities/generating-unit.entity.js';
@@ -203,10 +203,12 @@ async function storeTagFiles(files: UploadedFile[], zip: boolean): Promise<{ fol
     } else {
       stored = [];
       for (const [k, f] of files.entries()) {
-        if (await zipOfFiles(f)) throw new TagFilesRefusal(`"${f.originalname.slice(0, 120)}" is a ZIP: upload a ZIP on its own, or the files in it`);
+        // the name as sent is shown and may name the tag: no control characters, no path, at most 120 characters
+        const name = displayName(f.originalname);
+        if (await zipOfFiles(f)) throw new TagFilesRefusal(`"${name}" is a ZIP: upload a ZIP on its own, or the files in it`);
         const numbered = path.join(folder, `${k + 1}.upload`);
         await rename(f.path, numbered);
-        stored.push({ name: f.originalname.slice(0, 120), path: numbered, bytes: f.size });
+        stored.push({ name, path: numbered, bytes: f.size });
       }
     }
     return { folder, entries: await surveyTagFiles(folder, stored) };
@@ -243,7 +245,7 @@ export async function receiveUpload(ds: DataSource, scope: TenantScope, unitId: 
   if (files.length > 1 || zip) {
     const { folder, entries } = await storeTagFiles(files, zip);
     const preview = tagFilesPreview(entries);
-    const fileName = zip ? file.originalname : `${files.length} files: ${files.map((f) => f.originalname).join(', ')}`;
+    const fileName = zip ? displayName(file.originalname) : `${files.length} files: ${files.map((f) => displayName(f.originalname)).join(', ')}`;
     try {
       return await saveUpload(ds, scope, unit, plant.timeZone, preview, {
         fileName,
