@@ -507,6 +507,33 @@ describe('historian upload attacks', () => {
       await undo(res.body.import.id);
     });
 
+    it('names each tag as a mapping can name it: spaces around a name trimmed, a tag longer than a mapping takes refused', async () => {
+      const { res } = await accepted([
+        { name: '  U9.SPACED  .csv', data: tagCsv('Value') },
+        { name: 'b.csv', data: tagCsv(' U9.B ') },
+      ]);
+      expect(res.body.files.map((f: { tag: string }) => f.tag)).toEqual(['U9.SPACED', 'U9.B']);
+      await undo(res.body.import.id);
+      const long = 'U9.'.padEnd(240, 'L');
+      const tall = ['Tag,Time,Value', ...[0, 1, 2].map((h) => `${long},${new Date(START + h * 3_600_000).toISOString()},${h}`)].join('\n');
+      await refused(
+        [
+          { name: 'a.csv', data: tagCsv('U9.A') },
+          { name: 'long.csv', data: tall },
+        ],
+        400,
+        /^"long.csv" names a tag of 240 characters; at most 200/,
+      );
+      await refused(
+        [
+          { name: 'a.csv', data: tagCsv('U9.A') },
+          { name: ' .csv', data: tagCsv('Value') },
+        ],
+        400,
+        /^" .csv" names no tag \(its value column says only "Value"\): name the file after its tag \(nothing was stored\)$/,
+      );
+    });
+
     it('refuses mixed shapes among the files: a wide file, a tall file of two tags', async () => {
       const wide = `Time,U9.A,U9.B\r\n${new Date(START).toISOString()},1,2\r\n`;
       await refused(

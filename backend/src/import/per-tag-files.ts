@@ -66,6 +66,8 @@ export function describeTagFile(
   if (tall) {
     const tag = sampleRows.map((r) => (r[headers.indexOf(tall.tagColumn)] ?? '').trim()).find(Boolean);
     if (!tag) throw new TagFilesRefusal(`"${name}" names no tag in its "${tall.tagColumn}" column`);
+    // the tag is read back by its full name, so one a mapping cannot name (over 200 characters) is refused here
+    if (tag.length > 200) throw new TagFilesRefusal(`"${name}" names a tag of ${tag.length} characters; at most 200 are read: shorten the tag's name`);
     return { tag, timeColumn: tall.timestampColumn, valueColumn: tall.valueColumn, qualityColumn: tall.qualityColumn, tagColumn: tall.tagColumn };
   }
   const norm = headers.map(normaliseHeader);
@@ -81,9 +83,11 @@ export function describeTagFile(
   const v = column(value);
   if (v.length > 0 && v.filter(looksNumeric).length < v.length / 2) throw new TagFilesRefusal(`${notSeries}its "${headers[value]}" column holds no numbers`);
   const titled = table.titleLines.map((l) => TAG_TITLE.exec(l.trim())?.[2]?.trim()).find(Boolean);
-  const tag = !GENERIC_VALUE.test(norm[value]!) ? headers[value]! : (titled ?? name.replace(/\.(csv|txt|xlsx|tsv)$/i, ''));
+  // a mapping names a tag trimmed: so is the tag taken from the file's name
+  const tag = !GENERIC_VALUE.test(norm[value]!) ? headers[value]! : (titled ?? name.replace(/\.(csv|txt|xlsx|tsv)$/i, '').trim());
+  if (tag.trim() === '') throw new TagFilesRefusal(`"${name}" names no tag (its value column says only "${headers[value]}"): name the file after its tag`);
   return {
-    tag: tag.slice(0, 200),
+    tag: tag.slice(0, 200).trim(),
     timeColumn: headers[time]!,
     valueColumn: headers[value]!,
     qualityColumn: quality >= 0 ? headers[quality]! : null,
