@@ -291,7 +291,7 @@ describe('historian shapes through the API', () => {
     const tagFiles = async (hours = HOURS) => writeDemoPerTagCsvs(hours, tmp.file(`per-tag-${++set}`));
     const importsOf = async (unitId: string): Promise<number> =>
       Number((await t.dataSource.query('SELECT COUNT(*) AS n FROM data_import WHERE unitId = ?', [unitId]))[0].n);
-    const uploadMany = (unitId: string, files: string[] | { name: string; data: Buffer }[]) => {
+    const uploadMany = (unitId: string, files: (string | { name: string; data: Buffer })[]) => {
       let req = analyst.post(`/api/units/${unitId}/uploads`).set(CSRF);
       for (const f of files) req = typeof f === 'string' ? req.attach('file', f) : req.attach('file', f.data, f.name);
       return req;

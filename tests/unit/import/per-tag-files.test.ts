@@ -28,7 +28,7 @@ const hour = (h: number, offsetS = 0) => new Date(Date.UTC(2025, 5, 1, h) + offs
 async function folderOf(files: [name: string, lines: string[]][]) {
   const folder = tmp.file(`upload-${++n}`);
   await mkdir(folder);
-  const stored = [];
+  const stored: { name: string; path: string; bytes: number }[] = [];
   for (const [k, [name, lines]] of files.entries()) {
     const p = path.join(folder, `${k + 1}.upload`);
     await writeFile(p, lines.join('\r\n') + '\r\n');

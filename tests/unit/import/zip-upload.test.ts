@@ -115,7 +115,8 @@ describe('a ZIP of one-tag files', () => {
     await writeFile(zip, buildZip([{ name: 'a.csv', data: CSV }]).subarray(0, 40));
     await expect(readZipDirectory(zip)).rejects.toThrow('The ZIP file is damaged (its table of contents is missing): make the ZIP again');
     const bytes = buildZip([{ name: 'a.csv', data: CSV, method: 0 }]);
-    bytes[30 + 'a.csv'.length + 20] ^= 0x01; // one stored byte changed
+    const at = 30 + 'a.csv'.length + 20;
+    bytes[at] = bytes[at]! ^ 0x01; // one stored byte changed
     const bad = tmp.file('crc.zip');
     await writeFile(bad, bytes);
     const folder = tmp.file('crc-out');
