@@ -204,7 +204,16 @@ describe('every main screen, for every demo role, at desktop and tablet width (d
         ready: (p) => p.getByRole('heading', { name: 'Cleaning methods', level: 1 }),
         title: /^Cleaning methods/,
       },
-      { key: 'cases', path: '/cases', ready: (p) => p.getByRole('heading', { name: 'Cleaning cases', level: 1 }), title: /^Cases · Cleancase$/ },
+      {
+        key: 'cases',
+        path: '/cases',
+        ready: (p) => p.getByRole('heading', { name: 'Cleaning cases', level: 1 }),
+        title: /^Cases · Cleancase$/,
+        // someone who cannot start a case is not told to start one
+        check: async (p) => {
+          if (!role.edits) expect(await mainText(p)).not.toContain('start one from its Cases tab');
+        },
+      },
       { key: 'outages', path: '/outages', ready: (p) => p.getByRole('heading', { name: 'Outages', level: 1 }), title: /^Outages · Cleancase$/ },
       {
         key: 'settings',
@@ -229,6 +238,8 @@ describe('every main screen, for every demo role, at desktop and tablet width (d
         path: '/settings/audit',
         ready: (p) => p.getByRole('heading', { name: 'Audit log', level: 1 }),
         title: /^Audit log · Cleancase$/,
+        // the filter's days are typed as every day is shown, not in the browser's own date box
+        check: async (p) => expect(await p.getByLabel('From', { exact: true }).getAttribute('placeholder')).toBe('14 Mar 2026'),
       });
     return screens;
   }

@@ -66,7 +66,15 @@ export function CasesPage() {
       {cases.data?.length === 0 && (
         <EmptyState
           title={filters.status || filters.unitId ? 'No case matches these filters' : 'No cases yet'}
-          next={filters.status || filters.unitId ? 'Change or clear the filters above.' : 'Open a unit under Plants and start one from its Cases tab.'}
+          next={
+            filters.status || filters.unitId
+              ? 'Change or clear the filters above.'
+              : session.permissions.includes('data.write')
+                ? 'Open a unit under Plants and start one from its Cases tab.'
+                : viewerOnly
+                  ? 'Cases appear here once an approver approves them.'
+                  : 'Cases appear here once an analyst or administrator starts one.'
+          }
         />
       )}
       {cases.data && cases.data.length > 0 && <CasesTable cases={cases.data} showUnit />}

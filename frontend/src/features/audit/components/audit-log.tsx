@@ -1,11 +1,11 @@
-import { useMemo, type FormEvent } from 'react';
+import { useMemo, useState, type FormEvent } from 'react';
 import type { AuditEventView } from '@shared/schemas/accounts';
 import { Button } from '@frontend/components/ui/button';
+import { DayField } from '@frontend/components/ui/day-field';
 import { DataTable, td, th, tr } from '@frontend/components/ui/data-table';
 import { EmptyState } from '@frontend/components/ui/empty-state';
 import { ErrorState, LoadingState } from '@frontend/components/ui/query-state';
 import { SelectField } from '@frontend/components/ui/select-field';
-import { TextField } from '@frontend/components/ui/text-field';
 import { formatDateTime } from '@frontend/lib/format';
 import { formText } from '@frontend/lib/form-errors';
 import { useAuditEvents, type AuditFilters } from '../api/get-audit-events';
@@ -17,6 +17,20 @@ interface Props {
   onFiltersChange: (filters: AuditFilters) => void;
   /** unit and client group names for the ids the log holds */
   names?: AuditNames;
+}
+
+/**
+ * A day typed as the app shows days ("14 Mar 2026"), sent with the form as its ISO day once the text is one
+ * (the field says why beside it otherwise, and nothing is filtered on it).
+ */
+function DayFilter({ label, name, initial }: { label: string; name: string; initial: string | undefined }) {
+  const [day, setDay] = useState(initial ?? '');
+  return (
+    <div>
+      <DayField label={label} value={day} onChange={setDay} />
+      <input type="hidden" name={name} value={/^\d{4}-\d{2}-\d{2}$/.test(day) ? day : ''} />
+    </div>
+  );
 }
 
 /** Who changed what, newest first, each entry a sentence with names. Filter choices come from what the unfiltered log contains. */
@@ -63,8 +77,8 @@ export function AuditLog({ organisationId, filters, onFiltersChange, names = NO_
             </option>
           ))}
         </SelectField>
-        <TextField label="From" name="from" type="date" defaultValue={filters.from} />
-        <TextField label="To" name="to" type="date" defaultValue={filters.to} />
+        <DayFilter label="From" name="from" initial={filters.from} />
+        <DayFilter label="To" name="to" initial={filters.to} />
         <div className="flex gap-2">
           <Button type="submit">Filter</Button>
           {filtered && (
