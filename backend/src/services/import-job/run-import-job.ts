@@ -76,5 +76,5 @@ export async function giveUpImport(em: EntityManager, importId: string, reason: 
   if (!imp || (imp.status !== 'checking' && imp.status !== 'importing')) return;
   await failImport(em, importId, reason);
   await em.getRepository(DataImport).update({ id: importId }, { storedPath: null });
-  if (imp.storedPath) await rm(imp.storedPath, { force: true });
+  if (imp.storedPath) await rm(imp.storedPath, { force: true, recursive: true });
 }
