@@ -11,6 +11,7 @@ import { startSmtpSink, type SmtpSink } from './mail/smtp-sink.js';
 import { JOB_HANDLERS } from './jobs/job-handlers.js';
 import { startJobWorker } from './jobs/job-worker.js';
 import { startAlertChecks } from './services/alerts/alert-checks.js';
+import { startUploadHousekeeping } from './services/upload-housekeeping.js';
 import { seedDemoIfEmpty } from './seed/demo-seed.js';
 import type { DemoDay } from './seed/demo-units-seed.js';
 import { withinTime } from './time-limit.js';
@@ -89,6 +90,7 @@ export async function bootstrap(config: Config, options: BootstrapOptions = {}):
   if (seededDemo) await seedDemoBilling(billing, log);
   const trialMail = background ? startTrialEndingMails(dataSource, config, log) : null;
   const alertChecks = background ? startAlertChecks(dataSource, log) : null;
+  const uploadHousekeeping = background ? startUploadHousekeeping(dataSource, log) : null;
 
   const report = (line: string) => logger.warn(line);
   return {
@@ -108,6 +110,7 @@ export async function bootstrap(config: Config, options: BootstrapOptions = {}):
       // A job still running keeps its lock and is taken over after a restart; it is not waited for beyond the limit.
       trialMail?.stop();
       alertChecks?.stop();
+      uploadHousekeeping?.stop();
       if (worker) await withinTime('stopping the job worker', STOP_LIMITS_MS.jobs, () => worker.stop(), report);
       if (outbox) await withinTime('stopping mail delivery', STOP_LIMITS_MS.mail, () => outbox.stop(STOP_LIMITS_MS.mail - 500), report);
       await withinTime('closing the session store', STOP_LIMITS_MS.sessions, () => app.locals.close(), report);

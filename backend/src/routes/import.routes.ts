@@ -6,6 +6,7 @@ import type { Config } from '../config.js';
 import { idParam } from '../http/params.js';
 import type { RouteSpec } from '../http/route-registry.js';
 import { historianUpload } from '../http/upload.js';
+import { assertRoomForUpload } from '../services/upload-housekeeping.js';
 import { scopeOf } from '../policies/tenant-scope.js';
 import {
   chooseSheet,
@@ -55,7 +56,13 @@ export function importRoutes(ds: DataSource, config: Config): RouteSpec[] {
       access: 'data.write',
       tenantScoped: true,
       // The unit is checked before a byte is stored: outside the scope answers 404 whatever is sent.
-      before: [async (req, _res, next) => unitOrThrow(req).then(() => next(), next), upload],
+      before: [
+        async (req, _res, next) =>
+          unitOrThrow(req)
+            .then(() => assertRoomForUpload(ds.manager, scopeOf(req.actor).organisationId))
+            .then(() => next(), next),
+        upload,
+      ],
       description:
         'Upload a historian CSV or XLSX (up to 200 MB), or files of one tag each (up to 20, in fields named "file", or one ZIP of them): returns the columns or tags, first rows and a proposed mapping',
       handler: async (req, res) => res.status(201).json(await receiveUpload(ds, scopeOf(req.actor), idParam(req), req.files as Express.Multer.File[])),

@@ -13,6 +13,7 @@ import { recordAudit } from './audit.service.js';
 import { dropDraftCasesOrRefuse, isCaseStillReferencing } from './cases/cases-of-deleted-units.js';
 import { assertWithinPlanLimit } from './billing/plan-limits.js';
 import { refuseApprovedOutagesOrDetach } from './outages/outages-of-deleted-units.js';
+import { removeUploadFiles, uploadPathsOfUnits } from './upload-housekeeping.js';
 
 /** A case written between the check and the delete: the foreign key refuses, answered as the check would. */
 const refuseWhileCasesRemain = (what: 'unit' | 'plant') => (err: unknown) => {
@@ -94,12 +95,14 @@ export async function updatePlant(ds: DataSource, scope: TenantScope, id: string
 
 export async function deletePlant(ds: DataSource, scope: TenantScope, id: string): Promise<void> {
   const plant = await foundInScope(findPlant(ds.manager, scope, id), 'No such plant');
+  let uploads: string[] = [];
   await ds
     .transaction(async (em) => {
       const units = await em
         .getRepository(GeneratingUnit)
         .find({ where: { plantId: id, organisationId: scope.organisationId }, select: { id: true, name: true } });
       const unitIds = units.map((u) => u.id);
+      uploads = await uploadPathsOfUnits(em, unitIds);
       const draftCasesDeleted = await dropDraftCasesOrRefuse(em, scope.organisationId, unitIds, 'plant');
       const draftOutagesChanged = await refuseApprovedOutagesOrDetach(em, { organisationId: scope.organisationId, userId: scope.userId, units, what: 'plant' });
       await em.getRepository(Plant).delete({ id, organisationId: scope.organisationId });
@@ -117,6 +120,8 @@ export async function deletePlant(ds: DataSource, scope: TenantScope, id: string
       });
     })
     .catch(refuseWhileCasesRemain('plant'));
+  // committed: the files of the plant's uploads go too
+  await removeUploadFiles(uploads);
 }
 
 export async function createUnit(ds: DataSource, scope: TenantScope, plantId: string, input: z.infer<typeof unitInput>) {
@@ -160,8 +165,10 @@ export async function renameUnit(ds: DataSource, scope: TenantScope, id: string,
 
 export async function deleteUnit(ds: DataSource, scope: TenantScope, id: string): Promise<void> {
   const unit = await foundInScope(findUnit(ds.manager, scope, id), 'No such unit');
+  let uploads: string[] = [];
   await ds
     .transaction(async (em) => {
+      uploads = await uploadPathsOfUnits(em, [id]);
       const draftCasesDeleted = await dropDraftCasesOrRefuse(em, scope.organisationId, [id], 'unit');
       const draftOutagesChanged = await refuseApprovedOutagesOrDetach(em, {
         organisationId: scope.organisationId,
@@ -184,4 +191,5 @@ export async function deleteUnit(ds: DataSource, scope: TenantScope, id: string)
       });
     })
     .catch(refuseWhileCasesRemain('unit'));
+  await removeUploadFiles(uploads);
 }
