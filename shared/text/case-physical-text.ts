@@ -1,7 +1,8 @@
 /**
  * The CO2 and lost output behind a case's fouling cost over the horizon, for the plan and for its baseline, in one
  * sentence. The schedule prices each day with the same blended cost as the monitoring (penalty-table-builder.ts),
- * so with constant prices the cost turns back into quantities exactly (shared/domain/turbine/physical-cost.ts);
+ * so with constant prices the cost turns back into quantities (shared/domain/turbine/physical-cost.ts: exact when no
+ * hours or all hours are capacity-limited, else within about the heat-rate penalty's own share);
  * with prices that change over the horizon one price cannot do it, and the sentence says so; nor can the prices turn
  * back a cost-per-day curve entered instead of the condenser model (directPenalty).
  */

@@ -12,6 +12,15 @@ export function formatQuantity(value: number): string {
   return formatNumber(v, v < 9.95 ? 1 : 0);
 }
 
+/** A share that would round to 0 % or 100 % without being either keeps one decimal. */
+function shareText(share: number): string {
+  return formatPercent(share, (share > 0 && share < 0.01) || (share < 1 && share > 0.99) ? 1 : 0);
+}
+
+const NO_CO2_FACTOR = 'no CO2 counted: the CO2 factor of the unit’s fuel is set to 0';
+/** Extra fuel burned but no CO2 from it: the fuel's CO2 factor is 0, which "under 0.1 t" would hide. */
+const noCo2Factor = (p: PhysicalCost) => p.co2Tonnes === 0 && p.extraFuelMmbtu !== 0;
+
 export interface PhysicalCostWords {
   /** the output lost (or gained) in the capacity-limited hours */
   output: string;
@@ -27,7 +36,7 @@ export function physicalCostWords(p: PhysicalCost | null, capacityLimitedShare: 
   if (!p) return { output: 'MW and t CO2 not shown: the unit’s prices give no value to a MWh', co2: null };
   if (p.penaltyMwh === 0) return { output: 'no output lost', co2: 'no extra CO2' };
   const better = p.penaltyMwh < 0;
-  const share = formatPercent(capacityLimitedShare, 0);
+  const share = shareText(capacityLimitedShare);
   const amount = p.lostMw !== null ? `${formatQuantity(p.lostMw)} MW` : `${formatQuantity(p.lostMwh)} MWh`;
   const output =
     capacityLimitedShare <= 0
@@ -40,9 +49,11 @@ export function physicalCostWords(p: PhysicalCost | null, capacityLimitedShare: 
   const co2 =
     capacityLimitedShare >= 1
       ? 'no extra fuel: the unit is capacity-limited in every hour'
-      : better
-        ? `${formatQuantity(p.co2Tonnes)} t CO2 ${per} less than at the reference cleanliness`
-        : `${formatQuantity(p.co2Tonnes)} t CO2 ${per} from extra fuel${capacityLimitedShare > 0 ? ' in the other hours' : ''}`;
+      : noCo2Factor(p)
+        ? NO_CO2_FACTOR
+        : better
+          ? `${formatQuantity(p.co2Tonnes)} t CO2 ${per} less than at the reference cleanliness`
+          : `${formatQuantity(p.co2Tonnes)} t CO2 ${per} from extra fuel${capacityLimitedShare > 0 ? ' in the other hours' : ''}`;
   return { output, co2 };
 }
 
@@ -59,7 +70,8 @@ export function physicalCostParts(p: PhysicalCost | null, capacityLimitedShare: 
     const amount = p.lostMw !== null ? `${formatQuantity(p.lostMw)} MW` : `${formatQuantity(p.lostMwh)} MWh`;
     parts.push(`${amount} ${better ? 'gained' : 'lost'} when capacity-limited`);
   }
-  if (capacityLimitedShare < 1) parts.push(`${formatQuantity(p.co2Tonnes)} t CO2 ${per}${better ? ' less' : ''}`);
+  if (capacityLimitedShare < 1)
+    parts.push(noCo2Factor(p) ? 'no CO2 counted (CO2 factor 0)' : `${formatQuantity(p.co2Tonnes)} t CO2 ${per}${better ? ' less' : ''}`);
   return parts;
 }
 

@@ -9,8 +9,10 @@
  * it is output lost (s · C / V MWh), in the others extra fuel ((1 − s) · C / V · HR/1000 MMBtu) and its CO2.
  *
  * The lost output is the heat-rate equivalent: with firing held the curve's output loss is ΔHR%/(1 + ΔHR%/100)
- * of load [derived, correction-curve.ts], smaller by ΔHR % of itself (1 % at a 1 % penalty), below the precision
- * shown. Fuel and CO2 are exact for the stored cost. Pure: read from the stored daily figures at read time.
+ * of load [derived, correction-curve.ts], smaller by ΔHR % of itself (1 % at a 1 % penalty). The stored money prices
+ * the capacity-limited hours on that smaller loss, so with 0 < s < 1 one price per MWh cannot undo the blend exactly:
+ * fuel and CO2 come out low and MW high by about ΔHR % of themselves (0.4 % and 0.8 % at a 1.2 % penalty and s = 0.15,
+ * tests/reference/physical-cost-recomputed.test.ts); exact at s = 0 or 1. Pure: read from the stored daily figures.
  */
 
 export interface PhysicalCostBasis {

@@ -98,6 +98,19 @@ describe('the physical quantities in words', () => {
     expect(unknown.co2).toBeNull();
   });
 
+  it('a share that would round to 0 % or 100 % keeps a decimal, and a CO2 factor of 0 says so instead of "under 0.1 t"', () => {
+    const rare = physicalCostWords(physicalCost(10_800, { ...BASIS, capacityLimitedShare: 0.004 }, 24), 0.004, 'a day');
+    expect(rare.output).toMatch(/in the 0\.4 % of hours/);
+    const mostly = physicalCostWords(physicalCost(10_800, { ...BASIS, capacityLimitedShare: 0.998 }, 24), 0.998, 'a day');
+    expect(mostly.output).toMatch(/in the 99\.8 % of hours/);
+    const noFactor = physicalCostWords(physicalCost(10_800, { ...BASIS, co2KgPerMmbtu: 0 }, 24), 0.25, 'a day');
+    expect(noFactor.co2).toBe('no CO2 counted: the CO2 factor of the unit’s fuel is set to 0');
+    expect(physicalCostParts(physicalCost(10_800, { ...BASIS, co2KgPerMmbtu: 0 }, 24), 0.25, 'a day')).toEqual([
+      '12 MW lost when capacity-limited', // 10,800 / (0.75 × 10 × 3 + 0.25 × 60 = 37.5) = 288 MWh over 24 h
+      'no CO2 counted (CO2 factor 0)',
+    ]);
+  });
+
   it('writes a period total with grouped thousands and the period named', () => {
     const w = physicalCostWords(physicalCost(1_080_000, BASIS), 0.25, 'since the last cleaning');
     expect(w.output).toBe('6,000 MWh of output lost in the 25 % of hours the unit is capacity-limited');
