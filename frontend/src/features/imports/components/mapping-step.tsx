@@ -533,8 +533,8 @@ function TagFilesTable({ files }: { files: UploadResponse['files'] }) {
           <th className={th}>File</th>
           <th className={th}>Tag</th>
           <th className={`${th} text-right`}>Rows</th>
-          <th className={th}>From</th>
-          <th className={th}>To</th>
+          <th className={th}>First time, as written</th>
+          <th className={th}>Last time, as written</th>
         </>
       }
     >
