@@ -65,7 +65,7 @@ describe('finding one’s way: plant page, one data tab, page names, form proble
       headline: { cleanliness: number; foulingCostPerDay: number };
     };
     expect(await card.getByTestId('unit-cleanliness').textContent()).toBe(`${(health.headline.cleanliness * 100).toFixed(1)} %`);
-    const cost = (await card.getByTestId('unit-cost-per-day').textContent()) ?? '';
+    const cost = (await card.getByTestId('unit-cost-per-day').innerText()) ?? '';
     expect(Number(/\$([\d,]+)/.exec(cost)?.[1]?.replace(/,/g, ''))).toBe(Math.round(Math.abs(health.headline.foulingCostPerDay)));
     // the demo's data ends on its own fixed day, long before the machine's clock: its age reads in days
     expect(await card.getByTestId('unit-data-age').textContent()).toMatch(/^[\d,]+ days? old$/);
