@@ -32,10 +32,10 @@ export interface UploadHandle<T> {
 }
 
 /**
- * Sends one file as multipart (field `file`) with our CSRF header. XMLHttpRequest rather than fetch because
- * only it reports upload progress; `onProgress` gets the sent fraction, 0 to 1.
+ * Sends a file (or several, each in its own field) as multipart (fields named `file`) with our CSRF header.
+ * XMLHttpRequest rather than fetch because only it reports upload progress; `onProgress` gets the sent fraction, 0 to 1.
  */
-export function uploadFile<T>(path: string, file: File, onProgress: (fraction: number) => void): UploadHandle<T> {
+export function uploadFile<T>(path: string, file: File | readonly File[], onProgress: (fraction: number) => void): UploadHandle<T> {
   const xhr = new XMLHttpRequest();
   const promise = new Promise<T>((resolve, reject) => {
     xhr.open('POST', path);
@@ -55,7 +55,7 @@ export function uploadFile<T>(path: string, file: File, onProgress: (fraction: n
     xhr.onerror = () => reject(new ApiError(0, 'The upload was interrupted; check the connection and try again'));
     xhr.onabort = () => reject(new ApiError(0, 'Upload cancelled'));
     const body = new FormData();
-    body.append('file', file);
+    for (const f of Array.isArray(file) ? file : [file]) body.append('file', f);
     xhr.send(body);
   });
   return { promise, abort: () => xhr.abort() };
