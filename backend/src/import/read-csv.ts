@@ -198,32 +198,32 @@ async function openPlainTable(filePath: string, encoding: 'utf8' | 'latin1', del
     await source.return(undefined);
   };
   try {
-    const { head, located, buffered } = await readHeaderBlock(async () => (await nextChunk(1))?.[0] ?? null, {
-      empty: 'the file holds no text (only blank lines or spaces)',
-      noHeader: `no header row found in the first ${HEADER_SEARCH_ROWS} lines: the file must name its columns`,
-      noData: 'the file has a header but no data rows',
-    });
-    async function* chunks(): AsyncGenerator<RawRow[]> {
-      try {
-        yield buffered;
-        for (let chunk = await nextChunk(CHUNK_ROWS); chunk; chunk = await nextChunk(CHUNK_ROWS)) yield chunk;
-      } finally {
-        await close();
-      }
-    }
-    const table = tableFrom(
-      'csv',
-      { ...located, titleLines: titleLinesOf(head, located.headerIndex) },
-      head[located.dataIndex - 1]!.line,
-      buffered,
-      chunks(),
-      close,
-    );
-    return { ...table, plain: { encoding, delimiter, ends, maxLine } };
+    return { ...(await tableAfterHeader(nextChunk, close)), plain: { encoding, delimiter, ends, maxLine } };
   } catch (e) {
     await close();
     throw e;
   }
+}
+
+/**
+ * The table of either reader once rows come in chunks: the header block found in the first rows, then those rows
+ * and the rest in chunks; the reader is closed when the chunks end (or are left early).
+ */
+async function tableAfterHeader(nextChunk: (max: number) => Promise<RawRow[] | null>, close: () => Promise<void>): Promise<RawTable> {
+  const { head, located, buffered } = await readHeaderBlock(async () => (await nextChunk(1))?.[0] ?? null, {
+    empty: 'the file holds no text (only blank lines or spaces)',
+    noHeader: `no header row found in the first ${HEADER_SEARCH_ROWS} lines: the file must name its columns`,
+    noData: 'the file has a header but no data rows',
+  });
+  async function* chunks(): AsyncGenerator<RawRow[]> {
+    try {
+      yield buffered;
+      for (let chunk = await nextChunk(CHUNK_ROWS); chunk; chunk = await nextChunk(CHUNK_ROWS)) yield chunk;
+    } finally {
+      await close();
+    }
+  }
+  return tableFrom('csv', { ...located, titleLines: titleLinesOf(head, located.headerIndex) }, head[located.dataIndex - 1]!.line, buffered, chunks(), close);
 }
 
 export async function openCsvTable(filePath: string, options: CsvReadOptions = {}): Promise<RawTable> {
@@ -302,27 +302,13 @@ export async function openCsvTable(filePath: string, options: CsvReadOptions = {
       });
     }
   };
-  const next = async (): Promise<RawRow | null> => (await nextChunk(1))?.[0] ?? null;
   const close = async () => {
     input.destroy();
     parser.destroy();
   };
 
   try {
-    const { head, located, buffered } = await readHeaderBlock(next, {
-      empty: 'the file holds no text (only blank lines or spaces)',
-      noHeader: `no header row found in the first ${HEADER_SEARCH_ROWS} lines: the file must name its columns`,
-      noData: 'the file has a header but no data rows',
-    });
-    async function* chunks(): AsyncGenerator<RawRow[]> {
-      try {
-        yield buffered;
-        for (let chunk = await nextChunk(CHUNK_ROWS); chunk; chunk = await nextChunk(CHUNK_ROWS)) yield chunk;
-      } finally {
-        await close();
-      }
-    }
-    return tableFrom('csv', { ...located, titleLines: titleLinesOf(head, located.headerIndex) }, head[located.dataIndex - 1]!.line, buffered, chunks(), close);
+    return await tableAfterHeader(nextChunk, close);
   } catch (e) {
     await close();
     throw e;
