@@ -176,39 +176,36 @@ export function SavedScopes({ organisationId, outage }: { organisationId: string
                   ))}
                 </tr>
               ))}
-              {draft && outage.actions.approve && (
+              {draft && (outage.actions.approve || outage.actions.saveScope) && (
                 <tr>
                   <td />
                   {scopes.map((s) => (
                     <td key={s.id} className="px-3 py-2 text-right">
-                      <Button
-                        variant="quiet"
-                        className="text-xs"
-                        disabled={approve.isPending || !s.feasible}
-                        title={s.feasible ? undefined : 'This scope breaks a limit'}
-                        onClick={() => approve.mutate({ scopeId: s.id, seenUpdatedAt: outage.updatedAt })}
-                      >
-                        Approve “{s.name}”
-                      </Button>
-                    </td>
-                  ))}
-                </tr>
-              )}
-              {draft && outage.actions.saveScope && (
-                <tr>
-                  <td />
-                  {scopes.map((s) => (
-                    <td key={s.id} className="px-3 py-2 text-right">
-                      <Button
-                        variant="quiet"
-                        className="text-xs"
-                        disabled={remove.isPending}
-                        onClick={() => {
-                          if (window.confirm(`Remove the saved scope “${s.name}”? Its items stay on the outage.`)) remove.mutate(s.id);
-                        }}
-                      >
-                        Remove “{s.name}”
-                      </Button>
+                      <div className="flex flex-col items-end gap-1">
+                        {outage.actions.approve && (
+                          <Button
+                            variant="quiet"
+                            className="text-xs"
+                            disabled={approve.isPending || !s.feasible}
+                            title={s.feasible ? undefined : 'This scope breaks a limit'}
+                            onClick={() => approve.mutate({ scopeId: s.id, seenUpdatedAt: outage.updatedAt })}
+                          >
+                            Approve “{s.name}”
+                          </Button>
+                        )}
+                        {outage.actions.saveScope && (
+                          <Button
+                            variant="quiet"
+                            className="text-xs"
+                            disabled={remove.isPending}
+                            onClick={() => {
+                              if (window.confirm(`Remove the saved scope “${s.name}”? Its items stay on the outage.`)) remove.mutate(s.id);
+                            }}
+                          >
+                            Remove “{s.name}”
+                          </Button>
+                        )}
+                      </div>
                     </td>
                   ))}
                 </tr>
