@@ -9,6 +9,7 @@ import { rm } from 'node:fs/promises';
 import { In, LessThan, Not, IsNull, type DataSource, type EntityManager } from 'typeorm';
 import { DataImport } from '../entities/data-import.entity.js';
 import { AppError } from '../http/app-error.js';
+import { everySoOften } from '../jobs/every-so-often.js';
 
 /** 2 GB: four of the largest single uploads, far more than a planner maps at once. */
 export const UPLOAD_WAITING_LIMIT_BYTES = 2 * 1024 ** 3;
@@ -61,15 +62,5 @@ export async function discardStaleUploads(ds: DataSource, now = new Date()): Pro
 }
 
 export function startUploadHousekeeping(ds: DataSource, log: (line: string) => void): { stop: () => void } {
-  const run = () => void discardStaleUploads(ds).catch((err: unknown) => log(`upload housekeeping: ${String(err)}`));
-  const timer = setInterval(run, CHECK_EVERY_MS);
-  timer.unref();
-  const first = setTimeout(run, 30_000);
-  first.unref();
-  return {
-    stop: () => {
-      clearInterval(timer);
-      clearTimeout(first);
-    },
-  };
+  return everySoOften(() => discardStaleUploads(ds), 'upload housekeeping', log, CHECK_EVERY_MS, 30_000);
 }

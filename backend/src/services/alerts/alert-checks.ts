@@ -8,6 +8,7 @@ import type { DataSource } from 'typeorm';
 import { publicUrl, loadConfig, type Config } from '../../config.js';
 import { evaluateAlerts, type AlertRun } from './evaluate-alerts.js';
 import { sendWeeklyDigests } from './weekly-digest.js';
+import { everySoOften } from '../../jobs/every-so-often.js';
 
 const CHECK_EVERY_MS = 60 * 60 * 1000;
 
@@ -36,15 +37,5 @@ export async function alertsAfterRecompute(ds: DataSource, organisationId: strin
 }
 
 export function startAlertChecks(ds: DataSource, log: (line: string) => void): { stop: () => void } {
-  const run = () => void runAlertChecks(ds).catch((err: unknown) => log(`alert check: ${String(err)}`));
-  const timer = setInterval(run, CHECK_EVERY_MS);
-  timer.unref();
-  const first = setTimeout(run, 10_000);
-  first.unref();
-  return {
-    stop: () => {
-      clearInterval(timer);
-      clearTimeout(first);
-    },
-  };
+  return everySoOften(() => runAlertChecks(ds), 'alert check', log, CHECK_EVERY_MS, 10_000);
 }

@@ -9,6 +9,7 @@ import type { BillingContext } from './billing-context.js';
 import { HANDLED_EVENTS } from './receive-webhook.js';
 import { usesLocalStripe } from './stripe-client.js';
 import { sendTrialEndingMails } from './trial-ending-mails.js';
+import { everySoOften } from '../../jobs/every-so-often.js';
 
 export async function prepareBilling(ctx: BillingContext, log: (line: string) => void): Promise<void> {
   try {
@@ -26,15 +27,5 @@ export async function prepareBilling(ctx: BillingContext, log: (line: string) =>
 }
 
 export function startTrialEndingMails(ds: DataSource, config: Config, log: (line: string) => void): { stop: () => void } {
-  const run = () => void sendTrialEndingMails(ds, config).catch((err: unknown) => log(`trial-ending mail: ${String(err)}`));
-  const timer = setInterval(run, 60 * 60 * 1000);
-  timer.unref();
-  const first = setTimeout(run, 5_000);
-  first.unref();
-  return {
-    stop: () => {
-      clearInterval(timer);
-      clearTimeout(first);
-    },
-  };
+  return everySoOften(() => sendTrialEndingMails(ds, config), 'trial-ending mail', log, 60 * 60 * 1000, 5_000);
 }
